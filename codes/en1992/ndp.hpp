@@ -1,0 +1,43 @@
+// Nationally Determined Parameters of one EN 1992 variant, read from a data
+// file so that a national annex is data, not code.
+#pragma once
+
+#include <filesystem>
+#include <string>
+#include <vector>
+
+namespace armature::en1992 {
+
+struct Ndp {
+  std::string variant;           // "UK"
+  std::string title;             // "UK National Annex"
+  double gamma_c = 0.0;          // 2.4.2.4
+  double gamma_s = 0.0;          // 2.4.2.4
+  double alpha_cc = 0.0;         // 3.1.6(1), bending
+  double alpha_ct = 0.0;         // 3.1.6(2)
+  double gamma_G = 0.0;          // EN 1990 Table A1.2(B)
+  double gamma_Q = 0.0;          // EN 1990 Table A1.2(B)
+  double xi = 0.0;               // EN 1990 Table A1.2(B), 6.10b
+  double k1 = 0.0;               // 5.5(4)
+  double k2_factor = 0.0;        // k2 = k2_factor (0.6 + 0.0014/εcu2)
+  double k3 = 0.0;
+  double k4_factor = 0.0;
+  std::string pattern_loading;   // 5.1.3(1)P: "adjacent_pairs" or "all_spans"
+  double w_max_X0_XC1_mm = 0.0;  // Table 7.1N
+  double w_max_other_mm = 0.0;   // Table 7.1N
+  double steel_stress_factor_cap = 0.0;  // 7.4.2(2)
+  double C_Rd_c_factor = 0.0;    // 6.2.2(1): CRd,c = factor / γc
+  double v_min_factor = 0.0;     // 6.2.2(1): vmin = factor k^1.5 fck^0.5
+  double k1_shear = 0.0;         // 6.2.2(1)
+  double delta_c_dev_mm = 0.0;   // 4.4.1.3(1)P
+  std::string durability_note;   // warning given with every design, "" for none
+};
+
+// Reads and validates one NDP file; throws std::invalid_argument naming
+// the file and the key for a missing, unknown or out-of-range parameter.
+Ndp read_ndp_file(const std::filesystem::path& file);
+
+// Every *.json file of a directory, sorted by variant name.
+std::vector<Ndp> read_ndp_directory(const std::filesystem::path& dir);
+
+}  // namespace armature::en1992

@@ -1,0 +1,522 @@
+// The EN 1992-1-1 code plug-in: variants are NDP data files; every check
+// is drawn from the clause functions of rules.hpp.
+#include <cmath>
+#include <cstdio>
+#include <numbers>
+
+#include "armature/plugin.hpp"
+#include "ndp.hpp"
+#include "rules.hpp"
+
+namespace armature::en1992 {
+namespace {
+
+constexpr const char* code_id = "EN1992-1-1";
+const std::vector<double> bar_catalogue_mm{6, 8, 10, 12, 16, 20, 25, 32, 40};
+const std::vector<std::string> default_bars{"8", "10", "12", "16", "20", "25"};
+constexpr double default_density_kN_m3 = 25.0;  // EN 1991-1-1 Table A.1
+constexpr double default_fyk = 500.0;
+
+std::string num(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.4g", v);
+  return buf;
+}
+
+std::optional<double> bar_diameter(const std::string& designation) {
+  for (double d : bar_catalogue_mm)
+    if (designation == num(d)) return d;
+  return std::nullopt;
+}
+
+StructuralSystem system_of(SpanKind kind) {
+  switch (kind) {
+    case SpanKind::simply_supported: return StructuralSystem::simply_supported;
+    case SpanKind::end_span: return StructuralSystem::end_span;
+    case SpanKind::interior_span: return StructuralSystem::interior_span;
+    case SpanKind::cantilever: return StructuralSystem::cantilever;
+  }
+  return StructuralSystem::simply_supported;
+}
+
+// Collects the steps of one check only when the caller asked for them.
+class Steps {
+ public:
+  explicit Steps(bool on) : on_(on) {}
+  void add(const char* symbol, const char* expression, const std::string& substituted,
+           double result, const char* unit, const char* clause) {
+    if (on_) items_.push_back({symbol, expression, substituted, result, unit, clause});
+  }
+  bool on() const { return on_; }
+  std::vector<Step> take() { return std::move(items_); }
+
+ private:
+  bool on_;
+  std::vector<Step> items_;
+};
+
+struct Materials {
+  double fck, fyk, fcd, fyd, fctm, eta, lambda, eps_cu2;
+};
+
+class Checker final : public SlabChecker {
+ public:
+  Checker(const Ndp& ndp, const Request& req) : ndp_(ndp), req_(req) {
+    const double fck = req.concrete.cylinder_strength_MPa
+                           ? *req.concrete.cylinder_strength_MPa
+                           : *fck_of_strength_class(*req.concrete.strength_class);
+    const double fyk = req.reinforcement.yield_strength_MPa.value_or(default_fyk);
+    m_ = {fck,
+          fyk,
+          design_compressive_strength(fck, ndp.alpha_cc, ndp.gamma_c),
+          design_yield_strength(fyk, ndp.gamma_s),
+          mean_tensile_strength(fck),
+          stress_block_strength_factor(fck),
+          stress_block_depth_factor(fck),
+          ultimate_compressive_strain(fck)};
+    psi_ = *psi_factors(req.loads.imposed_category);
+    exposure_ = req.durability.exposure.value_or("XC1");
+    w_max_ = (exposure_ == "X0" || exposure_ == "XC1") ? ndp.w_max_X0_XC1_mm : ndp.w_max_other_mm;
+    for (const auto& name : req.reinforcement.bars.value_or(default_bars))
+      bars_.push_back({name, *bar_diameter(name)});
+    if (!ndp.durability_note.empty()) warnings_.push_back(ndp.durability_note);
+  }
+
+  LoadBasis load_basis() const override {
+    LoadBasis basis;
+    basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(default_density_kN_m3);
+    basis.psi2 = psi_.psi2;
+    const double gG = ndp_.gamma_G, gQ = ndp_.gamma_Q;
+    if (req_.design.combination.value_or("6.10") == "6.10") {
+      basis.uls.push_back({"6.10: " + num(gG) + " Gk + " + num(gQ) + " Qk", gG, gQ, gG});
+    } else {
+      const double gQa = gQ * psi_.psi0, gGb = ndp_.xi * gG;
+      basis.uls.push_back({"6.10a: " + num(gG) + " Gk + " + num(gQa) + " Qk", gG, gQa, gG});
+      basis.uls.push_back({"6.10b: " + num(gGb) + " Gk + " + num(gQ) + " Qk", gGb, gQ, gGb});
+    }
+    return basis;
+  }
+
+  std::vector<BarOption> bar_options() const override { return bars_; }
+
+  double max_spacing_mm(const RegionDemand&) const override {
+    return max_main_bar_spacing_max_moment(req_.slab.thickness_mm);
+  }
+
+  RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
+                             bool with_steps) const override {
+    RegionOutcome out;
+    const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
+    const double phi = bar.diameter_mm, dg = req_.concrete.aggregate_mm;
+    const double As_prov = std::numbers::pi * phi * phi / 4.0 * b / s;
+
+    // Cover (4.4.1)
+    Steps cover_steps(with_steps);
+    const int s_class = structural_class(req_.durability.design_life_years, exposure_, m_.fck);
+    const double c_dur = minimum_cover_durability(s_class, exposure_);
+    const double c_bond = minimum_cover_bond(phi, dg);
+    const double c_min = minimum_cover(c_bond, c_dur);
+    const double c_req = c_min + ndp_.delta_c_dev_mm;
+    const double c_nom = req_.durability.cover_mm ? *req_.durability.cover_mm : round_up_to_5(c_req);
+    if (cover_steps.on()) {
+      cover_steps.add("S", "structural class (S4, life, slab geometry, strength)",
+                      "S" + std::to_string(s_class) + " for " + exposure_ + ", " +
+                          num(req_.durability.design_life_years) + " years, fck " + num(m_.fck),
+                      s_class, "-", "EN 1992-1-1 4.4.1.2 Table 4.3N");
+      cover_steps.add("c_min,dur", "Table 4.4N (S, exposure)",
+                      "S" + std::to_string(s_class) + ", " + exposure_, c_dur, "mm",
+                      "EN 1992-1-1 4.4.1.2 Table 4.4N");
+      cover_steps.add("c_min,b", "φ (+5 if dg > 32)", num(phi) + " mm bar, dg " + num(dg), c_bond,
+                      "mm", "EN 1992-1-1 4.4.1.2 Table 4.2");
+      cover_steps.add("c_min", "max(c_min,b, c_min,dur, 10)",
+                      "max(" + num(c_bond) + ", " + num(c_dur) + ", 10)", c_min, "mm",
+                      "EN 1992-1-1 4.4.1.2 (4.2)");
+      cover_steps.add("c_min + Δc_dev", "c_min + Δc_dev", num(c_min) + " + " + num(ndp_.delta_c_dev_mm),
+                      c_req, "mm", "EN 1992-1-1 4.4.1.3");
+      cover_steps.add("c_nom", req_.durability.cover_mm ? "given" : "c_min + Δc_dev rounded up to 5 mm",
+                      num(c_nom), c_nom, "mm", "EN 1992-1-1 4.4.1.1");
+    }
+    out.cover_mm = c_nom;
+    out.d_mm = h - c_nom - phi / 2.0;
+    const double d = out.d_mm;
+    out.As_min_mm2 = minimum_tension_steel(m_.fctm, m_.fyk, b, d);
+    out.As_max_mm2 = maximum_steel(b, h);
+    if (d <= 0.0) {
+      out.checks.push_back(make_check("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, 0.0,
+                                      "kNm"));
+      out.checks.push_back(make_check("cover", g.where, "EN 1992-1-1 4.4.1", c_req, c_nom, "mm",
+                                      cover_steps.take()));
+      return out;
+    }
+
+    // Bending (6.1) and ductility (5.5(4))
+    const double delta = g.redistribution_delta;
+    const bool normal = m_.fck <= 50.0;
+    const double k_a = normal ? ndp_.k1 : ndp_.k3;
+    const double k_b = redistribution_coefficient(normal ? ndp_.k2_factor : ndp_.k4_factor, m_.eps_cu2);
+    const double xi = limiting_neutral_axis_ratio(delta, k_a, k_b, m_.fck);
+    const double K_lim = limiting_K(m_.eta, ndp_.alpha_cc, ndp_.gamma_c, m_.lambda, xi);
+    const double K = moment_factor_K(g.M_Ed, b, d, m_.fck);
+    const double z = lever_arm(d, std::min(K, K_lim), m_.eta, ndp_.alpha_cc, ndp_.gamma_c);
+    out.As_req_mm2 = required_tension_steel(g.M_Ed, m_.fyd, z);
+    const double M_lim = K_lim * m_.fck * b * d * d;
+    const double M_Rd = std::min(moment_resistance(As_prov, m_.fyd, m_.fcd, m_.eta, b, d), M_lim);
+
+    Steps bend(with_steps), duct(with_steps);
+    if (with_steps) {
+      bend.add("d", "h − c_nom − φ/2", num(h) + " − " + num(c_nom) + " − " + num(phi) + "/2", d, "mm",
+               "EN 1992-1-1 6.1");
+      bend.add("K", "M_Ed / (b d² fck)",
+               num(g.M_Ed * 1e-6) + "e6 / (" + num(b) + " × " + num(d) + "² × " + num(m_.fck) + ")",
+               K, "-", "EN 1992-1-1 6.1");
+      bend.add("z", "d [0.5 + √(0.25 − K/(2η αcc/γc))] ≤ 0.95 d",
+               num(d) + " [0.5 + √(0.25 − " + num(std::min(K, K_lim)) + "/(2 × " + num(m_.eta) +
+                   " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + "))]",
+               z, "mm", "EN 1992-1-1 6.1, 3.1.7(3)");
+      bend.add("As,req", "M_Ed / (fyd z)",
+               num(g.M_Ed * 1e-6) + "e6 / (" + num(m_.fyd) + " × " + num(z) + ")", out.As_req_mm2,
+               "mm2", "EN 1992-1-1 6.1");
+      bend.add("As,prov", "π φ²/4 × b/s",
+               "π × " + num(phi) + "²/4 × " + num(b) + "/" + num(s), As_prov, "mm2", "");
+      bend.add("M_Rd", "min(As fyd z_prov, K' fck b d²), z_prov = d − As fyd/(2η fcd b) ≤ 0.95d",
+               num(As_prov) + " × " + num(m_.fyd) + " × z_prov, limit " + num(M_lim * 1e-6) + " kNm",
+               M_Rd * 1e-6, "kNm", "EN 1992-1-1 6.1, 3.1.7(3)");
+      duct.add("ξ_lim", "min((δ − k1)/k2, 0.45 or 0.35)",
+               "min((" + num(delta) + " − " + num(k_a) + ")/" + num(k_b) + ", " +
+                   (normal ? "0.45" : "0.35") + ")",
+               xi, "-", "EN 1992-1-1 5.5(4)");
+      duct.add("K'", "η (αcc/γc) λ ξ (1 − λ ξ/2)",
+               num(m_.eta) + " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + " × " +
+                   num(m_.lambda) + " × " + num(xi) + " × (1 − " + num(m_.lambda) + " × " + num(xi) +
+                   "/2)",
+               K_lim, "-", "EN 1992-1-1 5.5(4), 6.1");
+      duct.add("K", "M_Ed / (b d² fck)", num(K), K, "-", "EN 1992-1-1 6.1");
+    }
+    out.checks.push_back(run_check("bending", [&] {
+      // A computed cover is no check of its own: its derivation leads the
+      // bending steps, where it sets d.
+      std::vector<Step> steps = req_.durability.cover_mm ? std::vector<Step>{} : cover_steps.take();
+      for (auto& st : bend.take()) steps.push_back(std::move(st));
+      return make_check("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, M_Rd * 1e-6, "kNm",
+                        std::move(steps));
+    }));
+    out.checks.push_back(run_check("ductility", [&] {
+      return make_check("ductility", g.where, "EN 1992-1-1 5.5(4), 6.1", K, K_lim, "-", duct.take());
+    }));
+
+    // Minimum and maximum steel (9.2.1.1)
+    out.checks.push_back(run_check("min_steel", [&] {
+      Steps st(with_steps);
+      st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", num(m_.fck), m_.fctm,
+             "MPa", "EN 1992-1-1 Table 3.1");
+      st.add("As,min", "max(0.26 fctm/fyk, 0.0013) b d",
+             "max(0.26 × " + num(m_.fctm) + "/" + num(m_.fyk) + ", 0.0013) × " + num(b) + " × " + num(d),
+             out.As_min_mm2, "mm2", "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)");
+      return make_check("min_steel", g.where, "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)", out.As_min_mm2,
+                        As_prov, "mm2", st.take());
+    }));
+    out.checks.push_back(run_check("max_steel", [&] {
+      Steps st(with_steps);
+      st.add("As,max", "0.04 b h", "0.04 × " + num(b) + " × " + num(h), out.As_max_mm2, "mm2",
+             "EN 1992-1-1 9.2.1.1(3)");
+      return make_check("max_steel", g.where, "EN 1992-1-1 9.2.1.1(3)", As_prov, out.As_max_mm2,
+                        "mm2", st.take());
+    }));
+
+    // Spacing (9.3.1.1(3), 8.2(2))
+    out.checks.push_back(run_check("spacing", [&] {
+      const double s_max = max_main_bar_spacing_max_moment(h);
+      Steps st(with_steps);
+      st.add("s_max,slabs", "min(2h, 250) in areas of maximum moment", "min(2 × " + num(h) + ", 250)",
+             s_max, "mm", "EN 1992-1-1 9.3.1.1(3)");
+      return make_check("spacing", g.where, "EN 1992-1-1 9.3.1.1(3)", s, s_max, "mm", st.take());
+    }));
+    out.checks.push_back(run_check("spacing", [&] {
+      const double clear_min = minimum_clear_bar_spacing(phi, dg);
+      Steps st(with_steps);
+      st.add("a_min", "max(φ, dg + 5, 20)", "max(" + num(phi) + ", " + num(dg) + " + 5, 20)",
+             clear_min, "mm", "EN 1992-1-1 8.2(2)");
+      st.add("a", "s − φ", num(s) + " − " + num(phi), s - phi, "mm", "EN 1992-1-1 8.2(2)");
+      return make_check("spacing", g.where, "EN 1992-1-1 8.2(2)", clear_min, s - phi, "mm",
+                        st.take());
+    }));
+
+    // Crack control (7.3.3)
+    if (crack_check_needed(h)) {
+      out.checks.push_back(run_check("cracking", [&] {
+        return crack_check(g, phi, s, d, out.As_req_mm2, As_prov, with_steps);
+      }));
+    }
+
+    // Cover (4.4.1), when the request gives it
+    if (req_.durability.cover_mm) {
+      out.checks.push_back(run_check("cover", [&] {
+        return make_check("cover", g.where, "EN 1992-1-1 4.4.1", c_req, c_nom, "mm",
+                          cover_steps.take());
+      }));
+    }
+
+    // Fire (EN 1992-1-2 Table 5.8): axis distance of these bars
+    if (req_.fire.resistance_min) {
+      out.checks.push_back(run_check("fire", [&] {
+        const int t = *req_.fire.resistance_min;
+        const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance(t);
+        Steps st(with_steps);
+        st.add("a", "c_nom + φ/2", num(c_nom) + " + " + num(phi) + "/2", a, "mm", "EN 1992-1-2 5.7.2");
+        st.add("a_min", "Table 5.8, one-way slab", "REI " + std::to_string(t), a_min, "mm",
+               "EN 1992-1-2 5.7.2 Table 5.8");
+        return make_check("fire", g.where, "EN 1992-1-2 5.7.2 Table 5.8 (axis distance)", a_min, a,
+                          "mm", st.take());
+      }));
+    }
+
+    // Deflection (7.4.2) of the span these bars govern
+    if (!g.span_where.empty()) {
+      out.span_checks.push_back(run_check("deflection", [&] {
+        return deflection_check(g, d, out.As_req_mm2, As_prov, with_steps);
+      }));
+    }
+
+    // Shear (6.2.2) at the supports where these bars are the tension steel
+    for (const auto& sup : g.supports) {
+      SupportOutcome so;
+      so.where = sup.where;
+      so.V_Ed = sup.V_Ed;
+      so.checks.push_back(run_check("shear", [&] {
+        const double rho_l = As_prov / (b * d);
+        const double k = shear_depth_factor(d);
+        const double v_min = minimum_shear_strength(k, m_.fck, ndp_.v_min_factor);
+        const double C = ndp_.C_Rd_c_factor / ndp_.gamma_c;
+        so.V_Rd = shear_resistance_without_links(C, k, rho_l, m_.fck, v_min, b, d);
+        Steps st(with_steps);
+        st.add("k", "1 + √(200/d) ≤ 2", "1 + √(200/" + num(d) + ")", k, "-", "EN 1992-1-1 6.2.2(1)");
+        st.add("ρl", "Asl/(b d) ≤ 0.02", num(As_prov) + "/(" + num(b) + " × " + num(d) + ")", rho_l,
+               "-", "EN 1992-1-1 6.2.2(1)");
+        st.add("v_min", "0.035 k^1.5 fck^0.5", num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " +
+               num(m_.fck) + "^0.5", v_min, "MPa", "EN 1992-1-1 6.2.2(1) (6.3N)");
+        st.add("V_Rd,c", "max(CRd,c k (100 ρl fck)^(1/3), v_min) b d",
+               "max(" + num(C) + " × " + num(k) + " × (100 × " + num(std::min(rho_l, 0.02)) + " × " +
+                   num(m_.fck) + ")^(1/3), " + num(v_min) + ") × " + num(b) + " × " + num(d),
+               so.V_Rd * 1e-3, "kN", "EN 1992-1-1 6.2.2(1) (6.2)");
+        return make_check("shear", sup.where, "EN 1992-1-1 6.2.2(1)", sup.V_Ed * 1e-3,
+                          so.V_Rd * 1e-3, "kN", st.take());
+      }));
+      out.supports.push_back(std::move(so));
+    }
+    return out;
+  }
+
+  std::vector<Check> span_checks(const std::string& span_where) const override {
+    std::vector<Check> out;
+    if (req_.fire.resistance_min) {
+      out.push_back(run_check("fire", [&] {
+        const int t = *req_.fire.resistance_min;
+        const double h_min = fire_min_thickness(t);
+        std::vector<Step> st;
+        st.push_back({"h_s,min", "Table 5.8, one-way slab", "REI " + std::to_string(t), h_min, "mm",
+                      "EN 1992-1-2 5.7.2 Table 5.8"});
+        return make_check("fire", span_where, "EN 1992-1-2 5.7.2 Table 5.8 (thickness)", h_min,
+                          req_.slab.thickness_mm, "mm", std::move(st));
+      }));
+    }
+    return out;
+  }
+
+  DistributionNeed distribution(double main_As_prov) const override {
+    return {minimum_distribution_steel(main_As_prov),
+            max_distribution_bar_spacing_max_moment(req_.slab.thickness_mm)};
+  }
+
+  std::vector<std::string> warnings() const override { return warnings_; }
+
+ private:
+  Check crack_check(const RegionDemand& g, double phi, double s, double d, double As_req,
+                    double As_prov, bool with_steps) const {
+    const double h = req_.slab.thickness_mm;
+    const double sigma = quasi_permanent_steel_stress(m_.fyd, g.quasi_permanent_to_uls, As_req,
+                                                      As_prov, g.redistribution_delta);
+    const auto s_lim = max_bar_spacing_table_7_3N(sigma, w_max_);
+    const auto phi_star = max_bar_diameter_table_7_2N(sigma, w_max_);
+    // A limit past the end of its table is zero: that route cannot pass.
+    const double s_limit = s_lim.value_or(0.0);
+    const double phi_limit =
+        phi_star ? adjusted_max_bar_diameter(*phi_star, m_.fctm, h, d) : 0.0;
+    const double u_spacing = utilisation_of(s, s_limit);
+    const double u_diameter = utilisation_of(phi, phi_limit);
+    Steps st(with_steps);
+    st.add("w_max", "Table 7.1N for the exposure class", exposure_, w_max_, "mm",
+           "EN 1992-1-1 7.3.1 Table 7.1N");
+    st.add("σs", "fyd (n_qp/n_uls)(As,req/As,prov)/δ",
+           num(m_.fyd) + " × " + num(g.quasi_permanent_to_uls) + " × " + num(As_req) + "/" +
+               num(As_prov) + " / " + num(g.redistribution_delta),
+           sigma, "MPa", "EN 1992-1-1 7.3.3 (common practice estimate)");
+    st.add("s_max", "Table 7.3N(σs, w_max)", num(sigma) + " MPa", s_limit, "mm",
+           "EN 1992-1-1 7.3.3 Table 7.3N");
+    st.add("φ*s", "Table 7.2N(σs, w_max)", num(sigma) + " MPa", phi_star.value_or(0.0), "mm",
+           "EN 1992-1-1 7.3.3 Table 7.2N");
+    st.add("φs", "φ*s (fctm/2.9) kc hcr/(2(h − d)), kc = 0.4, hcr = h/2",
+           num(phi_star.value_or(0.0)) + " × (" + num(m_.fctm) + "/2.9) × 0.4 × " + num(h / 2) +
+               "/(2 × (" + num(h) + " − " + num(d) + "))",
+           phi_limit, "mm", "EN 1992-1-1 7.3.3 (7.6N)");
+    if (u_spacing <= u_diameter)
+      return make_check("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.3N (bar spacing)", s,
+                        s_limit, "mm", st.take());
+    return make_check("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.2N (bar diameter)", phi,
+                      phi_limit, "mm", st.take());
+  }
+
+  Check deflection_check(const RegionDemand& g, double d, double As_req, double As_prov,
+                         bool with_steps) const {
+    const double rho = As_req / (req_.slab.strip_width_mm * d);
+    const double rho0 = reference_reinforcement_ratio(m_.fck);
+    const double K = structural_system_factor(system_of(g.span_kind));
+    const double basic = basic_span_depth_ratio(K, m_.fck, rho, 0.0);
+    const double f_long = long_span_factor(g.span_mm);
+    const double f_steel = steel_stress_factor(m_.fyk, As_prov, As_req, ndp_.steel_stress_factor_cap);
+    const double allowed = basic * f_long * f_steel;
+    const double actual = g.span_mm / d;
+    Steps st(with_steps);
+    st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");
+    st.add("ρ", "As,req/(b d)",
+           num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho, "-",
+           "EN 1992-1-1 7.4.2(2)");
+    st.add("K", "Table 7.4N structural system", num(K), K, "-", "EN 1992-1-1 7.4.2 Table 7.4N");
+    st.add("l/d basic", rho <= rho0 ? "K[11 + 1.5√fck ρ0/ρ + 3.2√fck (ρ0/ρ − 1)^1.5]"
+                                    : "K[11 + 1.5√fck ρ0/(ρ − ρ') + √fck √(ρ'/ρ0)/12], ρ' = 0",
+           "K = " + num(K) + ", fck = " + num(m_.fck) + ", ρ0 = " + num(rho0) + ", ρ = " + num(rho),
+           basic, "-", rho <= rho0 ? "EN 1992-1-1 7.4.2 (7.16a)" : "EN 1992-1-1 7.4.2 (7.16b)");
+    st.add("F_l", "7/leff when leff > 7 m", num(g.span_mm * 1e-3) + " m", f_long, "-",
+           "EN 1992-1-1 7.4.2(2)");
+    st.add("310/σs", "(500/fyk)(As,prov/As,req) ≤ cap",
+           "(500/" + num(m_.fyk) + ")(" + num(As_prov) + "/" + num(As_req) + ") ≤ " +
+               num(ndp_.steel_stress_factor_cap),
+           f_steel, "-", "EN 1992-1-1 7.4.2(2) (7.17)");
+    st.add("l/d allowed", "l/d basic × F_l × 310/σs",
+           num(basic) + " × " + num(f_long) + " × " + num(f_steel), allowed, "-",
+           "EN 1992-1-1 7.4.2");
+    st.add("l/d actual", "leff/d", num(g.span_mm) + "/" + num(d), actual, "-", "EN 1992-1-1 7.4.2");
+    return make_check("deflection", g.span_where, "EN 1992-1-1 7.4.2 (7.16), Table 7.4N", actual,
+                      allowed, "-", st.take());
+  }
+
+  Ndp ndp_;
+  Request req_;
+  Materials m_{};
+  PsiFactors psi_{};
+  std::string exposure_;
+  double w_max_ = 0.0;
+  std::vector<BarOption> bars_;
+  std::vector<std::string> warnings_;
+};
+
+std::string format_range(double lo, double hi, const char* unit) {
+  return "must be between " + num(lo) + " and " + num(hi) + " " + unit;
+}
+
+class Code final : public DesignCode {
+ public:
+  explicit Code(Ndp ndp) : ndp_(std::move(ndp)) {}
+
+  CodeIdentity identity() const override { return {code_id, ndp_.variant, ndp_.title}; }
+
+  void validate(const Request& req, InputProblems& problems) const override {
+    const auto& c = req.concrete;
+    if (c.strength_class && !fck_of_strength_class(*c.strength_class))
+      problems.add("concrete.class", "unknown strength class '" + *c.strength_class +
+                                         "'; EN 1992-1-1 Table 3.1 classes run C12/15 to C90/105");
+    if (c.cylinder_strength_MPa && (*c.cylinder_strength_MPa < 12 || *c.cylinder_strength_MPa > 90))
+      problems.add("concrete.cylinder_strength_MPa",
+                   format_range(12, 90, "MPa") + " (EN 1992-1-1 3.1.2), got " +
+                       num(*c.cylinder_strength_MPa));
+    const auto& fy = req.reinforcement.yield_strength_MPa;
+    if (fy && (*fy < 400 || *fy > 600))
+      problems.add("reinforcement.yield_strength_MPa",
+                   format_range(400, 600, "MPa") + " (EN 1992-1-1 Annex C), got " + num(*fy));
+    double smallest_bar = 1e9;
+    if (req.reinforcement.bars) {
+      const auto& bars = *req.reinforcement.bars;
+      for (std::size_t i = 0; i < bars.size(); ++i) {
+        auto d = bar_diameter(bars[i]);
+        if (!d)
+          problems.add("reinforcement.bars[" + std::to_string(i) + "]",
+                       "unknown bar '" + bars[i] + "'; EN 1992 bars are 6, 8, 10, 12, 16, 20, 25, 32, 40");
+        else
+          smallest_bar = std::min(smallest_bar, *d);
+      }
+    } else {
+      smallest_bar = 8.0;
+    }
+    if (!psi_factors(req.loads.imposed_category))
+      problems.add("loads.imposed_category", "must be one of A to H (EN 1990 Table A1.1), got '" +
+                                                 req.loads.imposed_category + "'");
+    if (req.durability.exposure && !is_exposure_class(*req.durability.exposure))
+      problems.add("durability.exposure",
+                   "unknown exposure class '" + *req.durability.exposure +
+                       "'; use X0, XC1-XC4, XD1-XD3 or XS1-XS3 (EN 1992-1-1 Table 4.1)");
+    const double h = req.slab.thickness_mm;
+    if (const auto& cover = req.durability.cover_mm; cover && h > 0) {
+      if (*cover >= h / 2)
+        problems.add("durability.cover_mm", "must be less than half the slab thickness (" +
+                                                num(h / 2) + " mm), got " + num(*cover));
+      else if (smallest_bar < 1e9 && *cover + smallest_bar >= h)
+        problems.add("slab.thickness_mm", "must exceed cover plus the smallest bar (" +
+                                              num(*cover + smallest_bar) + " mm), got " + num(h));
+    }
+    if (req.fire.resistance_min && !is_tabulated_fire_resistance(*req.fire.resistance_min))
+      problems.add("fire.resistance_min",
+                   "must be 30, 60, 90, 120, 180 or 240 (EN 1992-1-2 Table 5.8), got " +
+                       std::to_string(*req.fire.resistance_min));
+    if (const auto& comb = req.design.combination; comb && *comb != "6.10" && *comb != "6.10a/b")
+      problems.add("design.combination", "must be \"6.10\" or \"6.10a/b\" (EN 1990 Table A1.2(B)), got '" +
+                                             *comb + "'");
+  }
+
+  std::unique_ptr<SlabChecker> begin(const Request& req) const override {
+    return std::make_unique<Checker>(ndp_, req);
+  }
+
+ private:
+  Ndp ndp_;
+};
+
+class Factory final : public CodeFactory {
+ public:
+  explicit Factory(const PluginContext& context)
+      : variants_(read_ndp_directory(context.plugin_file.parent_path() / "en1992")) {
+    if (variants_.empty())
+      throw std::invalid_argument("no NDP files in " +
+                                  (context.plugin_file.parent_path() / "en1992").string());
+  }
+  std::string id() const override { return code_id; }
+  std::string title() const override { return "Eurocode 2: design of concrete structures, part 1-1 (with EN 1992-1-2 fire, EN 1990 actions)"; }
+  std::string edition() const override { return "EN 1992-1-1:2004+AC:2010"; }
+  std::vector<std::string> variants() const override {
+    std::vector<std::string> names;
+    for (const auto& v : variants_) names.push_back(v.variant);
+    return names;
+  }
+  std::string default_variant() const override { return "recommended"; }
+  std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost&) const override {
+    for (const auto& v : variants_)
+      if (v.variant == variant) return std::make_shared<Code>(v);
+    throw std::invalid_argument("no EN 1992-1-1 variant '" + variant + "'");
+  }
+
+ private:
+  std::vector<Ndp> variants_;
+};
+
+std::unique_ptr<CodeFactory> create_factory(const PluginContext& context) {
+  return std::make_unique<Factory>(context);
+}
+
+}  // namespace
+
+const PluginEntry* plugin_entry() {
+  static const PluginEntry entry{plugin_abi_version, &create_factory};
+  return &entry;
+}
+
+}  // namespace armature::en1992
+
+ARMATURE_CODE_PLUGIN(armature::en1992::plugin_entry)

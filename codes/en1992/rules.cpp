@@ -1,0 +1,301 @@
+#include "rules.hpp"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <cstdio>
+#include <stdexcept>
+
+namespace armature::en1992 {
+
+// ---- Materials -------------------------------------------------------------
+std::optional<double> fck_of_strength_class(const std::string& name) {
+  // Table 3.1 strength classes C fck / fck,cube.
+  static constexpr std::array<std::array<int, 2>, 14> classes{{{12, 15}, {16, 20}, {20, 25},
+                                                               {25, 30}, {30, 37}, {35, 45},
+                                                               {40, 50}, {45, 55}, {50, 60},
+                                                               {55, 67}, {60, 75}, {70, 85},
+                                                               {80, 95}, {90, 105}}};
+  for (const auto& c : classes) {
+    char buf[16];
+    std::snprintf(buf, sizeof buf, "C%d/%d", c[0], c[1]);
+    if (name == buf) return c[0];
+  }
+  return std::nullopt;
+}
+
+double mean_compressive_strength(double fck) { return fck + 8.0; }
+
+double mean_tensile_strength(double fck) {
+  if (fck <= 50.0) return 0.30 * std::pow(fck, 2.0 / 3.0);
+  return 2.12 * std::log(1.0 + mean_compressive_strength(fck) / 10.0);
+}
+
+double secant_modulus_MPa(double fck) {
+  return 22000.0 * std::pow(mean_compressive_strength(fck) / 10.0, 0.3);
+}
+
+double ultimate_compressive_strain(double fck) {
+  if (fck <= 50.0) return 0.0035;
+  return (2.6 + 35.0 * std::pow((90.0 - fck) / 100.0, 4.0)) * 1e-3;
+}
+
+double stress_block_depth_factor(double fck) {
+  return fck <= 50.0 ? 0.8 : 0.8 - (fck - 50.0) / 400.0;
+}
+
+double stress_block_strength_factor(double fck) {
+  return fck <= 50.0 ? 1.0 : 1.0 - (fck - 50.0) / 200.0;
+}
+
+double design_compressive_strength(double fck, double alpha_cc, double gamma_c) {
+  return alpha_cc * fck / gamma_c;
+}
+
+double design_yield_strength(double fyk, double gamma_s) { return fyk / gamma_s; }
+
+// ---- Actions ---------------------------------------------------------------
+std::optional<PsiFactors> psi_factors(const std::string& category) {
+  if (category == "A" || category == "B" || category == "G") return PsiFactors{0.7, 0.5, 0.3};
+  if (category == "C" || category == "D" || category == "F") return PsiFactors{0.7, 0.7, 0.6};
+  if (category == "E") return PsiFactors{1.0, 0.9, 0.8};
+  if (category == "H") return PsiFactors{0.0, 0.0, 0.0};
+  return std::nullopt;
+}
+
+// ---- Bending ---------------------------------------------------------------
+double redistribution_coefficient(double factor, double eps_cu2) {
+  return factor * (0.6 + 0.0014 / eps_cu2);
+}
+
+double limiting_neutral_axis_ratio(double delta, double k1, double k2, double fck) {
+  const double cap = fck <= 50.0 ? 0.45 : 0.35;
+  return std::min((delta - k1) / k2, cap);
+}
+
+double limiting_K(double eta, double alpha_cc, double gamma_c, double lambda, double xi) {
+  return eta * (alpha_cc / gamma_c) * lambda * xi * (1.0 - lambda * xi / 2.0);
+}
+
+double moment_factor_K(double M_Nmm, double b, double d, double fck) {
+  return M_Nmm / (b * d * d * fck);
+}
+
+double lever_arm(double d, double K, double eta, double alpha_cc, double gamma_c) {
+  const double root = std::sqrt(std::max(0.25 - K / (2.0 * eta * alpha_cc / gamma_c), 0.0));
+  return std::min(d * (0.5 + root), 0.95 * d);
+}
+
+double required_tension_steel(double M_Nmm, double fyd, double z) { return M_Nmm / (fyd * z); }
+
+double moment_resistance(double As, double fyd, double fcd, double eta, double b, double d) {
+  const double block_depth = As * fyd / (eta * fcd * b);  // λx from equilibrium
+  const double z = std::min(d - block_depth / 2.0, 0.95 * d);
+  return As * fyd * std::max(z, 0.0);
+}
+
+// ---- Detailing -------------------------------------------------------------
+double minimum_tension_steel(double fctm, double fyk, double b, double d) {
+  return std::max(0.26 * fctm / fyk, 0.0013) * b * d;
+}
+
+double maximum_steel(double b, double h) { return 0.04 * b * h; }
+
+double max_main_bar_spacing_max_moment(double h) { return std::min(2.0 * h, 250.0); }
+
+double max_distribution_bar_spacing_max_moment(double h) { return std::min(3.0 * h, 400.0); }
+
+double minimum_distribution_steel(double main_As_prov) { return 0.2 * main_As_prov; }
+
+double minimum_clear_bar_spacing(double phi, double aggregate) {
+  return std::max({phi, aggregate + 5.0, 20.0});
+}
+
+// ---- Crack control ---------------------------------------------------------
+bool crack_check_needed(double h) { return h > 200.0; }
+
+double quasi_permanent_steel_stress(double fyd, double qp_to_uls, double As_req, double As_prov,
+                                    double delta) {
+  return fyd * qp_to_uls * (As_req / As_prov) / delta;
+}
+
+namespace {
+constexpr double missing = -1.0;  // "–" in a table
+
+int wk_column(double wk) {
+  if (std::abs(wk - 0.4) < 1e-9) return 0;
+  if (std::abs(wk - 0.3) < 1e-9) return 1;
+  if (std::abs(wk - 0.2) < 1e-9) return 2;
+  return -1;
+}
+
+template <std::size_t N>
+std::optional<double> interpolate_table(const std::array<std::array<double, 4>, N>& rows,
+                                        double sigma, int col) {
+  if (col < 0) return std::nullopt;
+  const int c = col + 1;
+  if (sigma <= rows[0][0]) return rows[0][c] == missing ? std::nullopt : std::optional(rows[0][c]);
+  for (std::size_t i = 1; i < N; ++i) {
+    if (sigma <= rows[i][0]) {
+      const double lo = rows[i - 1][c], hi = rows[i][c];
+      if (lo == missing || hi == missing) return std::nullopt;
+      const double t = (sigma - rows[i - 1][0]) / (rows[i][0] - rows[i - 1][0]);
+      return lo + t * (hi - lo);
+    }
+  }
+  return std::nullopt;  // past the last row
+}
+}  // namespace
+
+std::optional<double> max_bar_diameter_table_7_2N(double sigma_s, double wk) {
+  // σs, then φ*s for wk = 0.4, 0.3, 0.2 mm.
+  static constexpr std::array<std::array<double, 4>, 8> table{{{160, 40, 32, 25},
+                                                               {200, 32, 25, 16},
+                                                               {240, 20, 16, 12},
+                                                               {280, 16, 12, 8},
+                                                               {320, 12, 10, 6},
+                                                               {360, 10, 8, 5},
+                                                               {400, 8, 6, 4},
+                                                               {450, 6, 5, missing}}};
+  return interpolate_table(table, sigma_s, wk_column(wk));
+}
+
+std::optional<double> max_bar_spacing_table_7_3N(double sigma_s, double wk) {
+  // σs, then s_max for wk = 0.4, 0.3, 0.2 mm.
+  static constexpr std::array<std::array<double, 4>, 6> table{{{160, 300, 300, 200},
+                                                               {200, 300, 250, 150},
+                                                               {240, 250, 200, 100},
+                                                               {280, 200, 150, 50},
+                                                               {320, 150, 100, missing},
+                                                               {360, 100, 50, missing}}};
+  return interpolate_table(table, sigma_s, wk_column(wk));
+}
+
+double adjusted_max_bar_diameter(double phi_star, double fctm, double h, double d) {
+  constexpr double kc = 0.4;
+  const double h_cr = h / 2.0;
+  return phi_star * (fctm / 2.9) * kc * h_cr / (2.0 * (h - d));
+}
+
+// ---- Deflection ------------------------------------------------------------
+double reference_reinforcement_ratio(double fck) { return std::sqrt(fck) * 1e-3; }
+
+double structural_system_factor(StructuralSystem s) {
+  switch (s) {
+    case StructuralSystem::simply_supported: return 1.0;
+    case StructuralSystem::end_span: return 1.3;
+    case StructuralSystem::interior_span: return 1.5;
+    case StructuralSystem::cantilever: return 0.4;
+  }
+  return 1.0;
+}
+
+double basic_span_depth_ratio(double K, double fck, double rho, double rho_compression) {
+  const double rho0 = reference_reinforcement_ratio(fck);
+  const double root_fck = std::sqrt(fck);
+  if (rho <= rho0)
+    return K * (11.0 + 1.5 * root_fck * rho0 / rho +
+                3.2 * root_fck * std::pow(rho0 / rho - 1.0, 1.5));
+  return K * (11.0 + 1.5 * root_fck * rho0 / (rho - rho_compression) +
+              root_fck * std::sqrt(rho_compression / rho0) / 12.0);
+}
+
+double long_span_factor(double span_mm) { return span_mm > 7000.0 ? 7000.0 / span_mm : 1.0; }
+
+double steel_stress_factor(double fyk, double As_prov, double As_req, double cap) {
+  return std::min((500.0 / fyk) * (As_prov / As_req), cap);
+}
+
+// ---- Shear -----------------------------------------------------------------
+double shear_depth_factor(double d) { return std::min(1.0 + std::sqrt(200.0 / d), 2.0); }
+
+double minimum_shear_strength(double k, double fck, double v_min_factor) {
+  return v_min_factor * std::pow(k, 1.5) * std::sqrt(fck);
+}
+
+double shear_resistance_without_links(double C_Rd_c, double k, double rho_l, double fck,
+                                      double v_min, double b, double d) {
+  const double rho = std::min(rho_l, 0.02);
+  const double v = C_Rd_c * k * std::cbrt(100.0 * rho * fck);
+  return std::max(v, v_min) * b * d;
+}
+
+// ---- Cover -----------------------------------------------------------------
+namespace {
+// Column of Table 4.4N: X0, XC1, XC2/XC3, XC4, XD1/XS1, XD2/XS2, XD3/XS3.
+int exposure_column(const std::string& e) {
+  if (e == "X0") return 0;
+  if (e == "XC1") return 1;
+  if (e == "XC2" || e == "XC3") return 2;
+  if (e == "XC4") return 3;
+  if (e == "XD1" || e == "XS1") return 4;
+  if (e == "XD2" || e == "XS2") return 5;
+  if (e == "XD3" || e == "XS3") return 6;
+  return -1;
+}
+
+// Table 4.3N: strength class at or above which the class drops by one.
+double strength_for_reduction(const std::string& e) {
+  if (e == "X0" || e == "XC1") return 30.0;
+  if (e == "XC2" || e == "XC3") return 35.0;
+  if (e == "XC4" || e == "XD1" || e == "XD2" || e == "XS1") return 40.0;
+  return 45.0;  // XD3, XS2, XS3
+}
+}  // namespace
+
+bool is_exposure_class(const std::string& exposure) { return exposure_column(exposure) >= 0; }
+
+int structural_class(double design_life_years, const std::string& exposure, double fck) {
+  int s = 4;
+  if (design_life_years > 50.0) s += 2;  // Table 4.3N: 100 years
+  s -= 1;                                // member with slab geometry
+  if (fck >= strength_for_reduction(exposure)) s -= 1;
+  return std::clamp(s, 1, 6);
+}
+
+double minimum_cover_durability(int structural_class, const std::string& exposure) {
+  static constexpr std::array<std::array<double, 7>, 6> table{{{10, 10, 10, 15, 20, 25, 30},
+                                                               {10, 10, 15, 20, 25, 30, 35},
+                                                               {10, 10, 20, 25, 30, 35, 40},
+                                                               {10, 15, 25, 30, 35, 40, 45},
+                                                               {15, 20, 30, 35, 40, 45, 50},
+                                                               {20, 25, 35, 40, 45, 50, 55}}};
+  return table.at(static_cast<std::size_t>(structural_class - 1))
+      .at(static_cast<std::size_t>(exposure_column(exposure)));
+}
+
+double minimum_cover_bond(double phi, double aggregate) {
+  return phi + (aggregate > 32.0 ? 5.0 : 0.0);
+}
+
+double minimum_cover(double c_min_b, double c_min_dur) {
+  return std::max({c_min_b, c_min_dur, 10.0});
+}
+
+double round_up_to_5(double x) { return std::ceil(x / 5.0 - 1e-9) * 5.0; }
+
+// ---- Fire ------------------------------------------------------------------
+namespace {
+struct FireRow {
+  int minutes;
+  double h, a;
+};
+constexpr std::array<FireRow, 6> table_5_8{
+    {{30, 60, 10}, {60, 80, 20}, {90, 100, 30}, {120, 120, 40}, {180, 150, 55}, {240, 175, 65}}};
+
+const FireRow& fire_row(int minutes) {
+  for (const auto& r : table_5_8)
+    if (r.minutes == minutes) return r;
+  throw std::invalid_argument("fire resistance " + std::to_string(minutes) +
+                              " min is not in EN 1992-1-2 Table 5.8");
+}
+}  // namespace
+
+bool is_tabulated_fire_resistance(int minutes) {
+  return std::any_of(table_5_8.begin(), table_5_8.end(),
+                     [&](const FireRow& r) { return r.minutes == minutes; });
+}
+double fire_min_thickness(int minutes) { return fire_row(minutes).h; }
+double fire_min_axis_distance(int minutes) { return fire_row(minutes).a; }
+
+}  // namespace armature::en1992

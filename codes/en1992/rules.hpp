@@ -1,0 +1,97 @@
+// EN 1992-1-1 / EN 1992-1-2 / EN 1990 rules for one-way solid slabs, one
+// small pure function per clause. Units: N, mm, MPa unless a name says
+// otherwise. Values of tables are as written in en1992-basis.md (from
+// memory of the standards; see the tests for the check values).
+#pragma once
+
+#include <optional>
+#include <string>
+
+namespace armature::en1992 {
+
+// ---- Materials (EN 1992-1-1 3.1, 3.2) ------------------------------------
+// "C30/37" → 30; nullopt unless the class is one of Table 3.1.
+std::optional<double> fck_of_strength_class(const std::string& name);
+double mean_compressive_strength(double fck);           // 3.1.2 Table 3.1: fcm
+double mean_tensile_strength(double fck);               // 3.1.2 Table 3.1: fctm
+double secant_modulus_MPa(double fck);                  // 3.1.3 Table 3.1: Ecm
+double ultimate_compressive_strain(double fck);         // 3.1.3 Table 3.1: εcu2 = εcu3
+double stress_block_depth_factor(double fck);           // 3.1.7(3): λ
+double stress_block_strength_factor(double fck);        // 3.1.7(3): η
+double design_compressive_strength(double fck, double alpha_cc, double gamma_c);  // 3.1.6(1)
+double design_yield_strength(double fyk, double gamma_s);                         // 3.2.7(2)
+
+// ---- Actions (EN 1990) ----------------------------------------------------
+struct PsiFactors {
+  double psi0, psi1, psi2;
+};
+// Table A1.1 by imposed load category A–H; nullopt for an unknown category.
+std::optional<PsiFactors> psi_factors(const std::string& category);
+
+// ---- Bending (EN 1992-1-1 6.1, 5.5) ---------------------------------------
+// 5.5(4): k2 or k4 = factor × (0.6 + 0.0014/εcu2).
+double redistribution_coefficient(double factor, double eps_cu2);
+// Limiting xu/d from δ ≥ k1 + k2 xu/d, capped (0.45 to C50/60, 0.35 above:
+// common practice).
+double limiting_neutral_axis_ratio(double delta, double k1, double k2, double fck);
+// K' = η (αcc/γc) λ ξ (1 − λ ξ / 2): limit of K for a singly reinforced section.
+double limiting_K(double eta, double alpha_cc, double gamma_c, double lambda, double xi);
+double moment_factor_K(double M_Nmm, double b, double d, double fck);  // K = M/(b d² fck)
+// z = d [0.5 + √(0.25 − K/(2 η αcc/γc))] ≤ 0.95 d (the cap: common practice).
+double lever_arm(double d, double K, double eta, double alpha_cc, double gamma_c);
+double required_tension_steel(double M_Nmm, double fyd, double z);  // As = M/(fyd z)
+// Resistance of As with the rectangular block, z ≤ 0.95 d: MRd = As fyd z.
+double moment_resistance(double As, double fyd, double fcd, double eta, double b, double d);
+
+// ---- Detailing (EN 1992-1-1 9.2.1.1, 9.3.1.1, 8.2) -----------------------
+double minimum_tension_steel(double fctm, double fyk, double b, double d);  // 9.2.1.1(1)
+double maximum_steel(double b, double h);                                   // 9.2.1.1(3)
+double max_main_bar_spacing_max_moment(double h);          // 9.3.1.1(3): min(2h, 250)
+double max_distribution_bar_spacing_max_moment(double h);  // 9.3.1.1(3): min(3h, 400)
+double minimum_distribution_steel(double main_As_prov);    // 9.3.1.1(2): 20 %
+double minimum_clear_bar_spacing(double phi, double aggregate);  // 8.2(2)
+
+// ---- Crack control (EN 1992-1-1 7.3) --------------------------------------
+bool crack_check_needed(double h);  // 7.3.3(1): none for h ≤ 200 mm
+// σs,qp ≈ fyd (n_qp/n_uls)(As,req/As,prov)/δ (common practice estimate).
+double quasi_permanent_steel_stress(double fyd, double qp_to_uls, double As_req, double As_prov,
+                                    double delta);
+// Table 7.2N φ*s and Table 7.3N s_max for wk 0.4, 0.3 or 0.2 mm; linear
+// interpolation; below the first row the first row; nullopt past the table.
+std::optional<double> max_bar_diameter_table_7_2N(double sigma_s, double wk);
+std::optional<double> max_bar_spacing_table_7_3N(double sigma_s, double wk);
+// (7.6N) with kc = 0.4, hcr = h/2: φs = φ*s (fctm/2.9) kc hcr / (2 (h − d)).
+double adjusted_max_bar_diameter(double phi_star, double fctm, double h, double d);
+
+// ---- Deflection (EN 1992-1-1 7.4.2) ---------------------------------------
+enum class StructuralSystem { simply_supported, end_span, interior_span, cantilever };
+double reference_reinforcement_ratio(double fck);      // ρ0 = √fck × 10⁻³
+double structural_system_factor(StructuralSystem s);   // Table 7.4N: K
+// (7.16a) for ρ ≤ ρ0, (7.16b) otherwise.
+double basic_span_depth_ratio(double K, double fck, double rho, double rho_compression);
+double long_span_factor(double span_mm);               // 7.4.2(2): 7/leff beyond 7 m
+// 7.4.2(2), (7.17): 310/σs ≈ (500/fyk)(As,prov/As,req), capped.
+double steel_stress_factor(double fyk, double As_prov, double As_req, double cap);
+
+// ---- Shear (EN 1992-1-1 6.2.2) --------------------------------------------
+double shear_depth_factor(double d);                    // k = 1 + √(200/d) ≤ 2
+double minimum_shear_strength(double k, double fck, double v_min_factor);  // (6.3N)
+// (6.2a)/(6.2b) without axial force: VRd,c in N for width b.
+double shear_resistance_without_links(double C_Rd_c, double k, double rho_l, double fck,
+                                      double v_min, double b, double d);
+
+// ---- Cover (EN 1992-1-1 4.4.1) --------------------------------------------
+bool is_exposure_class(const std::string& exposure);
+// Table 4.3N: S4, +2 beyond 50 years, −1 slab geometry, −1 strength; S1–S6.
+int structural_class(double design_life_years, const std::string& exposure, double fck);
+double minimum_cover_durability(int structural_class, const std::string& exposure);  // Table 4.4N
+double minimum_cover_bond(double phi, double aggregate);  // Table 4.2: φ (+5 if dg > 32)
+double minimum_cover(double c_min_b, double c_min_dur);   // (4.2) without additions
+double round_up_to_5(double x);
+
+// ---- Fire (EN 1992-1-2 5.7.2, Table 5.8, one-way slabs) -------------------
+bool is_tabulated_fire_resistance(int minutes);
+double fire_min_thickness(int minutes);       // hs
+double fire_min_axis_distance(int minutes);   // a
+
+}  // namespace armature::en1992

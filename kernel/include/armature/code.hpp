@@ -1,0 +1,158 @@
+// The interface between the kernel and a design code. A code plug-in
+// implements DesignCode (immutable, shareable across threads) and, for each
+// request, a SlabChecker holding that request's resolved materials.
+// The kernel owns loads, analysis and the bar search; the code owns every
+// factor, limit and clause.
+#pragma once
+
+#include <memory>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "armature/errors.hpp"
+#include "armature/record.hpp"
+#include "armature/request.hpp"
+
+namespace armature {
+
+struct CodeIdentity {
+  std::string id;       // "EN1992-1-1"
+  std::string variant;  // "UK"
+  std::string title;    // human-readable title of code and variant
+};
+
+// One ULS expression: its factors on the loaded and unloaded spans.
+// Design load on a loaded span = gamma_G_loaded Gk + gamma_Q Qk; on an
+// unloaded span = gamma_G_unloaded Gk.
+struct UlsExpression {
+  std::string label;  // "6.10: 1.35 Gk + 1.5 Qk"
+  double gamma_G_loaded = 0.0;
+  double gamma_Q = 0.0;
+  double gamma_G_unloaded = 0.0;
+};
+
+// What the code says about actions for one request.
+struct LoadBasis {
+  double density_kN_m3 = 0.0;             // for self-weight
+  std::vector<UlsExpression> uls;          // envelope over all of them
+  double psi2 = 0.0;                       // quasi-permanent factor on Qk
+};
+
+// Combined loads of one request, per unit area (N/mm²).
+struct LoadTotals {
+  double self_weight = 0.0;
+  double Gk = 0.0;
+  double Qk = 0.0;
+  double uls = 0.0;             // governing ULS load, all spans loaded
+  std::string combination;      // label of the governing expression
+  double sls_quasi_permanent = 0.0;
+};
+
+enum class Face { bottom, top };
+const char* to_string(Face face);
+
+// How a span is supported, for span/depth rules.
+enum class SpanKind { simply_supported, end_span, interior_span, cantilever };
+
+struct SupportDemand {
+  std::string where;   // "support 1"
+  double V_Ed = 0.0;   // N, for the strip width, at the support centreline
+};
+
+// Everything the code needs to check one design region.
+struct RegionDemand {
+  std::string where;       // "span 1" or "support 2"
+  Face face = Face::bottom;
+  double x_mm = 0.0;       // position along the strip
+  double M_Ed = 0.0;       // N·mm, magnitude, for the strip width
+  // The span whose deflection these bars govern (span regions only).
+  std::string span_where;
+  double span_mm = 0.0;
+  SpanKind span_kind = SpanKind::simply_supported;
+  // Supports whose shear resistance relies on these bars as tension steel.
+  std::vector<SupportDemand> supports;
+  double quasi_permanent_to_uls = 0.0;  // ratio of SLS quasi-permanent to ULS moment
+  double redistribution_delta = 1.0;    // δ of 5.5 at this region
+};
+
+struct BarOption {
+  std::string designation;  // as in the request: "12", "#4"
+  double diameter_mm = 0.0;
+};
+
+struct SupportOutcome {
+  std::string where;
+  double V_Ed = 0.0;  // N
+  double V_Rd = 0.0;  // N
+  std::vector<Check> checks;
+};
+
+// The code's verdict on one bar arrangement in one region.
+struct RegionOutcome {
+  double cover_mm = 0.0;       // nominal cover used for these bars
+  double d_mm = 0.0;           // effective depth
+  double As_req_mm2 = 0.0;
+  double As_min_mm2 = 0.0;
+  double As_max_mm2 = 0.0;
+  std::vector<Check> checks;        // section checks of the region
+  std::vector<Check> span_checks;   // deflection etc. of span_where
+  std::vector<SupportOutcome> supports;
+};
+
+// Requirement for the distribution (secondary) bars.
+struct DistributionNeed {
+  double As_req_mm2 = 0.0;
+  double max_spacing_mm = 0.0;
+};
+
+class SlabChecker {
+ public:
+  virtual ~SlabChecker() = default;
+  virtual LoadBasis load_basis() const = 0;
+  // Candidate bars of the request (or the code's default set).
+  virtual std::vector<BarOption> bar_options() const = 0;
+  // Largest bar spacing the code allows in this region (mm).
+  virtual double max_spacing_mm(const RegionDemand& region) const = 0;
+  // Every check of one arrangement; steps are filled only when asked for.
+  virtual RegionOutcome check_region(const RegionDemand& region, const BarOption& bar,
+                                     double spacing_mm, bool with_steps) const = 0;
+  // Checks of a span that do not depend on the bars (fire thickness, ...).
+  virtual std::vector<Check> span_checks(const std::string& span_where) const = 0;
+  virtual DistributionNeed distribution(double main_As_prov_mm2) const = 0;
+  virtual std::vector<std::string> warnings() const = 0;
+};
+
+class DesignCode {
+ public:
+  virtual ~DesignCode() = default;
+  virtual CodeIdentity identity() const = 0;
+  // Adds one problem per code-specific field that is out of range or unknown.
+  virtual void validate(const Request& request, InputProblems& problems) const = 0;
+  // For a request that passed validate().
+  virtual std::unique_ptr<SlabChecker> begin(const Request& request) const = 0;
+};
+
+// Runs one check; any exception escapes as CheckError naming the check.
+template <class Fn>
+auto run_check(const char* check_id, Fn&& fn) -> decltype(fn()) {
+  try {
+    return fn();
+  } catch (const CheckError&) {
+    throw;
+  } catch (const std::exception& e) {
+    throw CheckError(check_id, e.what());
+  } catch (...) {
+    throw CheckError(check_id, "unknown exception");
+  }
+}
+
+// Lets a plug-in open another code through the registry (decorators).
+class CodeHost {
+ public:
+  virtual ~CodeHost() = default;
+  virtual std::shared_ptr<const DesignCode> open(const std::string& id,
+                                                 const std::string& variant) const = 0;
+};
+
+}  // namespace armature

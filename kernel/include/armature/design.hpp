@@ -1,0 +1,97 @@
+// The design driver: request → loads → analysis → regions → bar search →
+// design record. Nothing here knows a clause; the code plug-in does.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include <nlohmann/json_fwd.hpp>
+
+#include "armature/code.hpp"
+#include "armature/record.hpp"
+#include "armature/request.hpp"
+
+namespace armature {
+
+class Registry;
+
+inline constexpr const char* caution_text =
+    "A design aid: the results must be checked and adopted by a qualified engineer "
+    "under the codes that govern the project, local rules first.";
+
+const char* version_string();
+
+struct BarChoice {
+  std::string bar;
+  double diameter_mm = 0.0;
+  double spacing_mm = 0.0;
+  double As_prov_mm2 = 0.0;
+};
+
+struct RegionRecord {
+  std::string where;
+  Face face = Face::bottom;
+  double x_mm = 0.0;
+  double M_Ed = 0.0;  // N·mm
+  double d_mm = 0.0;
+  double As_req_mm2 = 0.0;
+  double As_min_mm2 = 0.0;
+  double As_max_mm2 = 0.0;
+  double cover_mm = 0.0;
+  BarChoice bars;
+  std::vector<Check> checks;
+};
+
+struct SupportRecord {
+  std::string where;
+  double V_Ed = 0.0;  // N
+  double V_Rd = 0.0;  // N
+  std::vector<Check> checks;
+};
+
+struct SpanRecord {
+  std::string where;
+  std::vector<Check> checks;
+};
+
+struct DistributionRecord {
+  BarChoice bars;
+  double As_req_mm2 = 0.0;
+};
+
+struct DesignRecord {
+  CodeIdentity code;
+  bool pass = false;
+  double max_utilisation = 0.0;
+  std::string governing_check;
+  std::string governing_where;
+  LoadTotals loads;
+  double cover_mm = 0.0;
+  std::vector<RegionRecord> regions;
+  std::vector<SupportRecord> supports;
+  std::vector<SpanRecord> spans;
+  DistributionRecord distribution;
+  std::vector<std::string> warnings;
+
+  // Every check of every region, support and span, in that order.
+  std::vector<const Check*> all_checks() const;
+};
+
+// Parses and validates a JSON request (throws InputError listing every
+// problem), opens its code through the registry and designs it.
+DesignRecord design(const Registry& registry, const nlohmann::json& request);
+// The same for a request already parsed; the code's validation still runs.
+DesignRecord design(const Registry& registry, const Request& request);
+
+// Bar search of contract.md, exposed for tests: the chosen arrangement.
+struct SearchCandidate {
+  BarOption bar;
+  double spacing_mm = 0.0;
+  double As_prov_mm2 = 0.0;
+};
+// True when a is preferred to b on equal standing: least area, then the
+// larger spacing, then the smaller bar.
+bool preferred(const SearchCandidate& a, const SearchCandidate& b);
+double provided_area_mm2(double diameter_mm, double spacing_mm, double width_mm);
+
+}  // namespace armature

@@ -1,0 +1,22 @@
+// JSON at the boundary: request in (with validation), result out.
+// Units convert here: m, kPa, kN, kNm outside; mm, MPa, N, N·mm inside.
+#pragma once
+
+#include <nlohmann/json.hpp>
+
+#include "armature/design.hpp"
+#include "armature/errors.hpp"
+#include "armature/request.hpp"
+
+namespace armature {
+
+// Structural validation: types, required fields, unknown keys, generic
+// ranges. Code-specific ranges are the code's validate(). Problems are
+// added, never thrown.
+Request request_from_json(const nlohmann::json& j, InputProblems& problems);
+
+// The result of contract.md. Steps are included only when asked for.
+nlohmann::json result_to_json(const DesignRecord& record, bool with_steps = false);
+nlohmann::json check_to_json(const Check& check, bool with_steps = false);
+
+}  // namespace armature

@@ -1,0 +1,70 @@
+// The request model of contract.md, in kernel units (N, mm, MPa).
+// Loads per unit area are held in MPa (N/mm²): 1 kPa = 1e-3 MPa.
+#pragma once
+
+#include <array>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "armature/errors.hpp"
+
+namespace armature {
+
+enum class EndSupport { pinned, fixed, free };
+
+const char* to_string(EndSupport end);
+
+struct SlabInput {
+  std::vector<double> spans_mm;  // effective spans, left to right
+  std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
+  double thickness_mm = 0.0;
+  double strip_width_mm = 1000.0;
+};
+
+struct ConcreteInput {
+  std::optional<std::string> strength_class;      // "C30/37"
+  std::optional<double> cylinder_strength_MPa;    // fck or f'c
+  std::optional<double> density_kN_m3;            // code default when absent
+  double aggregate_mm = 20.0;
+};
+
+struct ReinforcementInput {
+  std::optional<double> yield_strength_MPa;       // code default when absent
+  std::optional<std::vector<std::string>> bars;   // code default set when absent
+};
+
+struct LoadsInput {
+  double dead_MPa = 0.0;      // superimposed permanent load, N/mm²
+  double imposed_MPa = 0.0;   // imposed load, N/mm²
+  std::string imposed_category = "B";
+};
+
+struct DurabilityInput {
+  std::optional<double> cover_mm;
+  std::optional<std::string> exposure;  // code default when absent
+  double design_life_years = 50.0;
+};
+
+struct FireInput {
+  std::optional<int> resistance_min;
+};
+
+struct DesignOptions {
+  std::optional<std::string> combination;  // EN: "6.10" or "6.10a/b"
+  double redistribution_percent = 0.0;
+};
+
+struct Request {
+  std::string code;
+  std::optional<std::string> variant;
+  SlabInput slab;
+  ConcreteInput concrete;
+  ReinforcementInput reinforcement;
+  LoadsInput loads;
+  DurabilityInput durability;
+  FireInput fire;
+  DesignOptions design;
+};
+
+}  // namespace armature

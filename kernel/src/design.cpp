@@ -1,0 +1,300 @@
+// The design driver. Loads are totalled from the code's factors, the strip is
+// analysed, each region gets the bar search of contract.md, and the code's
+// checks of the chosen arrangements make the design record.
+#include "armature/design.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+
+#include "armature/analysis.hpp"
+#include "armature/json_io.hpp"
+#include "armature/registry.hpp"
+
+#ifndef ARMATURE_VERSION
+#define ARMATURE_VERSION "0.0.0"
+#endif
+
+namespace armature {
+
+const char* version_string() { return ARMATURE_VERSION; }
+
+namespace {
+
+constexpr double first_spacing_mm = 75.0;
+constexpr double spacing_step_mm = 25.0;
+
+// Calls into a code plug-in; any failure becomes a DesignError that names
+// the code, the variant and the check or stage.
+template <class Fn>
+auto call_code(const CodeIdentity& code, const std::string& stage, Fn&& fn) -> decltype(fn()) {
+  const std::string who = code.id + " (" + code.variant + ")";
+  try {
+    return fn();
+  } catch (const InputError&) {
+    throw;
+  } catch (const CheckError& e) {
+    throw DesignError(who + ": check '" + e.check_id() + "' failed during " + stage + ": " +
+                      e.what());
+  } catch (const std::exception& e) {
+    throw DesignError(who + ": failed during " + stage + ": " + e.what());
+  } catch (...) {
+    throw DesignError(who + ": failed during " + stage + " with an unknown exception");
+  }
+}
+
+// What this version of the kernel designs; the contract allows more.
+void add_scope_problems(const Request& req, InputProblems& problems) {
+  if (req.slab.spans_mm.size() > 1)
+    problems.add("slab.spans_m", "continuous strips are not designed by this version yet; "
+                                 "give a single span");
+  if (req.slab.ends[0] != EndSupport::pinned || req.slab.ends[1] != EndSupport::pinned)
+    problems.add("slab.ends", "only simply supported spans (both ends \"pinned\") are "
+                              "designed by this version yet");
+  if (req.slab.spans_mm.size() == 1 && req.design.redistribution_percent > 0.0)
+    problems.add("design.redistribution_percent",
+                 "a single span has no interior support to redistribute from; the largest "
+                 "allowed value is 0");
+}
+
+LoadTotals total_loads(const LoadBasis& basis, const Request& req) {
+  LoadTotals t;
+  // density kN/m³ = 1e-6 N/mm³; times h in mm gives N/mm².
+  t.self_weight = basis.density_kN_m3 * 1e-6 * req.slab.thickness_mm;
+  t.Gk = t.self_weight + req.loads.dead_MPa;
+  t.Qk = req.loads.imposed_MPa;
+  t.uls = -1.0;
+  for (const auto& e : basis.uls) {
+    double full = e.gamma_G_loaded * t.Gk + e.gamma_Q * t.Qk;
+    if (full > t.uls) {
+      t.uls = full;
+      t.combination = e.label;
+    }
+  }
+  t.sls_quasi_permanent = t.Gk + basis.psi2 * t.Qk;
+  return t;
+}
+
+bool passes_all(const RegionOutcome& o) {
+  auto ok = [](const std::vector<Check>& cs) {
+    return std::all_of(cs.begin(), cs.end(), [](const Check& c) { return c.pass; });
+  };
+  if (!ok(o.checks) || !ok(o.span_checks)) return false;
+  return std::all_of(o.supports.begin(), o.supports.end(),
+                     [&](const SupportOutcome& s) { return ok(s.checks); });
+}
+
+bool passes_bending_and_min_steel(const RegionOutcome& o) {
+  return std::all_of(o.checks.begin(), o.checks.end(), [](const Check& c) {
+    return c.pass || (c.id != "bending" && c.id != "min_steel");
+  });
+}
+
+struct Chosen {
+  SearchCandidate candidate;
+  bool found = false;
+};
+
+void consider(Chosen& best, const SearchCandidate& c) {
+  if (!best.found || preferred(c, best.candidate)) {
+    best.candidate = c;
+    best.found = true;
+  }
+}
+
+// Bar search of contract.md for one region.
+SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
+                            const RegionDemand& region, double width_mm,
+                            std::vector<std::string>& warnings) {
+  const auto bars = call_code(code, "bar options", [&] { return checker.bar_options(); });
+  const double s_max =
+      call_code(code, "maximum spacing at " + region.where, [&] { return checker.max_spacing_mm(region); });
+  Chosen passing, fallback, largest;
+  for (const auto& bar : bars) {
+    for (double s = first_spacing_mm; s <= s_max + 1e-9; s += spacing_step_mm) {
+      SearchCandidate c{bar, s, provided_area_mm2(bar.diameter_mm, s, width_mm)};
+      RegionOutcome o = call_code(code, "checks at " + region.where,
+                                  [&] { return checker.check_region(region, bar, s, false); });
+      if (passes_all(o)) consider(passing, c);
+      if (passes_bending_and_min_steel(o)) consider(fallback, c);
+      if (!largest.found || c.As_prov_mm2 > largest.candidate.As_prov_mm2) {
+        largest.candidate = c;
+        largest.found = true;
+      }
+    }
+  }
+  if (passing.found) return passing.candidate;
+  if (fallback.found) return fallback.candidate;
+  if (!largest.found)
+    throw DesignError(code.id + " (" + code.variant + "): no bar arrangement to try at " +
+                      region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
+  warnings.push_back(region.where + ": no candidate bar arrangement satisfies bending and "
+                     "minimum steel; the arrangement with the most steel is reported");
+  return largest.candidate;
+}
+
+DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIdentity& code,
+                                       double main_As_prov, double width_mm,
+                                       std::vector<std::string>& warnings, bool& ok) {
+  DistributionNeed need =
+      call_code(code, "distribution steel", [&] { return checker.distribution(main_As_prov); });
+  const auto bars = call_code(code, "bar options", [&] { return checker.bar_options(); });
+  Chosen best, largest;
+  for (const auto& bar : bars) {
+    for (double s = first_spacing_mm; s <= need.max_spacing_mm + 1e-9; s += spacing_step_mm) {
+      SearchCandidate c{bar, s, provided_area_mm2(bar.diameter_mm, s, width_mm)};
+      if (c.As_prov_mm2 >= need.As_req_mm2) consider(best, c);
+      if (!largest.found || c.As_prov_mm2 > largest.candidate.As_prov_mm2) {
+        largest.candidate = c;
+        largest.found = true;
+      }
+    }
+  }
+  ok = best.found;
+  const SearchCandidate& pick = best.found ? best.candidate : largest.candidate;
+  if (!best.found)
+    warnings.push_back("distribution steel: no candidate bar provides the required area; "
+                       "the design fails until larger bars are allowed");
+  DistributionRecord d;
+  d.As_req_mm2 = need.As_req_mm2;
+  d.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
+  return d;
+}
+
+DesignRecord design_validated(const DesignCode& code, const Request& req);
+
+}  // namespace
+
+double provided_area_mm2(double diameter_mm, double spacing_mm, double width_mm) {
+  return std::numbers::pi * diameter_mm * diameter_mm / 4.0 * width_mm / spacing_mm;
+}
+
+bool preferred(const SearchCandidate& a, const SearchCandidate& b) {
+  const double tol = 1e-9 * std::max(a.As_prov_mm2, b.As_prov_mm2);
+  if (a.As_prov_mm2 < b.As_prov_mm2 - tol) return true;
+  if (a.As_prov_mm2 > b.As_prov_mm2 + tol) return false;
+  if (a.spacing_mm != b.spacing_mm) return a.spacing_mm > b.spacing_mm;
+  return a.bar.diameter_mm < b.bar.diameter_mm;
+}
+
+std::vector<const Check*> DesignRecord::all_checks() const {
+  std::vector<const Check*> out;
+  for (const auto& r : regions)
+    for (const auto& c : r.checks) out.push_back(&c);
+  for (const auto& s : supports)
+    for (const auto& c : s.checks) out.push_back(&c);
+  for (const auto& s : spans)
+    for (const auto& c : s.checks) out.push_back(&c);
+  return out;
+}
+
+DesignRecord design(const Registry& registry, const nlohmann::json& j) {
+  InputProblems problems;
+  Request req = request_from_json(j, problems);
+  std::shared_ptr<const DesignCode> code;
+  if (!problems.has_field("code")) {
+    try {
+      code = registry.open(req.code, req.variant.value_or(""));
+    } catch (const InputError& e) {
+      for (const auto& p : e.problems()) problems.add(p.field, p.message);
+    }
+  }
+  if (code) {
+    const CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""},
+                                      "identity", [&] { return code->identity(); });
+    call_code(id, "input validation", [&] { code->validate(req, problems); });
+  }
+  if (problems.empty()) add_scope_problems(req, problems);
+  problems.raise_if_any();
+  return design_validated(*code, req);
+}
+
+DesignRecord design(const Registry& registry, const Request& req) {
+  auto code = registry.open(req.code, req.variant.value_or(""));
+  InputProblems problems;
+  const CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""},
+                                    "identity", [&] { return code->identity(); });
+  call_code(id, "input validation", [&] { code->validate(req, problems); });
+  add_scope_problems(req, problems);
+  problems.raise_if_any();
+  return design_validated(*code, req);
+}
+
+namespace {
+DesignRecord design_validated(const DesignCode& code, const Request& req) {
+  DesignRecord rec;
+  rec.code = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
+                       [&] { return code.identity(); });
+  const auto checker = call_code(rec.code, "set-up", [&] { return code.begin(req); });
+  const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
+  if (basis.uls.empty()) throw DesignError(rec.code.id + ": the code gave no ULS expression");
+  rec.loads = total_loads(basis, req);
+
+  const double b = req.slab.strip_width_mm;
+  const double L = req.slab.spans_mm.at(0);
+  const SimpleSpanActions uls = simply_supported_actions(L, rec.loads.uls * b);
+
+  RegionDemand demand;
+  demand.where = "span 1";
+  demand.face = Face::bottom;
+  demand.x_mm = uls.x_max_moment_mm;
+  demand.M_Ed = uls.max_moment_Nmm;
+  demand.span_where = "span 1";
+  demand.span_mm = L;
+  demand.span_kind = SpanKind::simply_supported;
+  demand.supports = {{"support 1", uls.end_shear_N}, {"support 2", uls.end_shear_N}};
+  demand.quasi_permanent_to_uls = rec.loads.sls_quasi_permanent / rec.loads.uls;
+  demand.redistribution_delta = 1.0;
+
+  const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);
+  RegionOutcome out = call_code(rec.code, "checks at " + demand.where, [&] {
+    return checker->check_region(demand, pick.bar, pick.spacing_mm, true);
+  });
+
+  RegionRecord region;
+  region.where = demand.where;
+  region.face = demand.face;
+  region.x_mm = demand.x_mm;
+  region.M_Ed = demand.M_Ed;
+  region.d_mm = out.d_mm;
+  region.As_req_mm2 = out.As_req_mm2;
+  region.As_min_mm2 = out.As_min_mm2;
+  region.As_max_mm2 = out.As_max_mm2;
+  region.cover_mm = out.cover_mm;
+  region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
+  region.checks = std::move(out.checks);
+  rec.regions.push_back(std::move(region));
+
+  for (auto& s : out.supports) rec.supports.push_back({s.where, s.V_Ed, s.V_Rd, std::move(s.checks)});
+
+  SpanRecord span{"span 1", std::move(out.span_checks)};
+  auto extra = call_code(rec.code, "span checks", [&] { return checker->span_checks("span 1"); });
+  for (auto& c : extra) span.checks.push_back(std::move(c));
+  rec.spans.push_back(std::move(span));
+
+  bool distribution_ok = true;
+  rec.distribution = choose_distribution(*checker, rec.code, pick.As_prov_mm2, b, rec.warnings,
+                                         distribution_ok);
+
+  rec.cover_mm = 0.0;
+  for (const auto& r : rec.regions) rec.cover_mm = std::max(rec.cover_mm, r.cover_mm);
+
+  rec.pass = distribution_ok;
+  rec.max_utilisation = 0.0;
+  bool first = true;
+  for (const Check* c : rec.all_checks()) {
+    if (!c->pass) rec.pass = false;
+    if (first || c->utilisation > rec.max_utilisation) {
+      rec.max_utilisation = c->utilisation;
+      rec.governing_check = c->id;
+      rec.governing_where = c->where;
+      first = false;
+    }
+  }
+  auto code_warnings = call_code(rec.code, "warnings", [&] { return checker->warnings(); });
+  rec.warnings.insert(rec.warnings.begin(), code_warnings.begin(), code_warnings.end());
+  return rec;
+}
+}  // namespace
+
+}  // namespace armature

@@ -1,0 +1,58 @@
+// A code whose bending check throws: the kernel must report a design error
+// naming the code and the check, and carry on with other codes.
+#include <stdexcept>
+
+#include "armature/plugin.hpp"
+
+namespace {
+using namespace armature;
+
+class ThrowingChecker final : public SlabChecker {
+ public:
+  LoadBasis load_basis() const override { return {25.0, {{"all: 1.0 Gk + 1.0 Qk", 1.0, 1.0, 1.0}}, 0.3}; }
+  std::vector<BarOption> bar_options() const override { return {{"10", 10.0}}; }
+  double max_spacing_mm(const RegionDemand&) const override { return 200.0; }
+  RegionOutcome check_region(const RegionDemand&, const BarOption&, double, bool) const override {
+    RegionOutcome out;
+    out.checks.push_back(run_check("bending", []() -> Check {
+      throw std::runtime_error("deliberate failure inside the bending check");
+    }));
+    return out;
+  }
+  std::vector<Check> span_checks(const std::string&) const override { return {}; }
+  DistributionNeed distribution(double) const override { return {0.0, 300.0}; }
+  std::vector<std::string> warnings() const override { return {}; }
+};
+
+class ThrowingCode final : public DesignCode {
+ public:
+  CodeIdentity identity() const override { return {"TEST-THROWING", "default", "test code that throws"}; }
+  void validate(const Request&, InputProblems&) const override {}
+  std::unique_ptr<SlabChecker> begin(const Request&) const override {
+    return std::make_unique<ThrowingChecker>();
+  }
+};
+
+class ThrowingFactory final : public CodeFactory {
+ public:
+  std::string id() const override { return "TEST-THROWING"; }
+  std::string title() const override { return "test code that throws"; }
+  std::string edition() const override { return "test"; }
+  std::vector<std::string> variants() const override { return {"default"}; }
+  std::string default_variant() const override { return "default"; }
+  std::shared_ptr<const DesignCode> make(const std::string&, const CodeHost&) const override {
+    return std::make_shared<ThrowingCode>();
+  }
+};
+
+std::unique_ptr<CodeFactory> create(const PluginContext&) { return std::make_unique<ThrowingFactory>(); }
+}  // namespace
+
+namespace throwing {
+const PluginEntry* entry() {
+  static const PluginEntry e{plugin_abi_version, &create};
+  return &e;
+}
+}  // namespace throwing
+
+ARMATURE_CODE_PLUGIN(throwing::entry)
