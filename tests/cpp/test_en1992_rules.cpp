@@ -1,1 +1,222 @@
+// Clause functions of the EN 1992 plug-in against the standards' tables.
+// Table values are as recorded in en1992-basis.md ("value from memory" of
+// EN 1992-1-1:2004, EN 1992-1-2:2004 and EN 1990:2002).
 #include <catch2/catch.hpp>
+
+#include <cmath>
+#include <random>
+
+#include "rules.hpp"
+
+using namespace armature::en1992;
+
+TEST_CASE("Table 3.1 fctm and Ecm, C20/25 to C50/60", "[en1992][materials]") {
+  // EN 1992-1-1 Table 3.1 (value from memory): fck, fctm MPa, Ecm GPa.
+  struct Row { double fck, fctm, Ecm_GPa; };
+  const Row rows[] = {{20, 2.2, 30}, {25, 2.6, 31}, {30, 2.9, 33}, {35, 3.2, 34},
+                      {40, 3.5, 35}, {45, 3.8, 36}, {50, 4.1, 37}};
+  for (const auto& r : rows) {
+    INFO("fck = " << r.fck);
+    // The table is rounded to 0.1 MPa and 1 GPa.
+    CHECK(mean_tensile_strength(r.fck) == Approx(r.fctm).margin(0.05));
+    CHECK(secant_modulus_MPa(r.fck) / 1000.0 == Approx(r.Ecm_GPa).margin(0.5));
+  }
+}
+
+TEST_CASE("Table 3.1 above C50/60 and the stress block", "[en1992][materials]") {
+  // EN 1992-1-1 Table 3.1 (value from memory): C60/75 fctm 4.4, εcu2 2.9‰;
+  // C90/105 fctm 5.0, εcu2 2.6‰.
+  CHECK(mean_tensile_strength(60) == Approx(4.4).margin(0.05));
+  CHECK(mean_tensile_strength(90) == Approx(5.0).margin(0.05));
+  CHECK(ultimate_compressive_strain(60) * 1000 == Approx(2.9).margin(0.05));
+  CHECK(ultimate_compressive_strain(90) * 1000 == Approx(2.6));
+  CHECK(ultimate_compressive_strain(30) == Approx(0.0035));
+  // EN 1992-1-1 3.1.7(3) (value from memory): λ = 0.8, η = 1 to C50/60;
+  // at fck 90: λ = 0.7, η = 0.8.
+  CHECK(stress_block_depth_factor(90) == Approx(0.7));
+  CHECK(stress_block_strength_factor(90) == Approx(0.8));
+  CHECK(stress_block_depth_factor(40) == Approx(0.8));
+  CHECK(fck_of_strength_class("C30/37").value() == 30);
+  CHECK(fck_of_strength_class("C90/105").value() == 90);
+  CHECK_FALSE(fck_of_strength_class("C32/40").has_value());
+  CHECK_FALSE(fck_of_strength_class("c30/37").has_value());
+}
+
+TEST_CASE("K' for UK and recommended values at delta = 1", "[en1992][bending]") {
+  // K' = 0.167 with the UK NA and 0.196 with the recommended values
+  // (value from memory; common practice figures of UK design handbooks).
+  const double e = ultimate_compressive_strain(30);
+  const double xi_uk = limiting_neutral_axis_ratio(1.0, 0.4, redistribution_coefficient(1.0, e), 30);
+  CHECK(xi_uk == Approx(0.45));  // (1 − 0.4)/1.0 = 0.6, capped at 0.45
+  CHECK(limiting_K(1.0, 0.85, 1.5, 0.8, xi_uk) == Approx(0.167).margin(0.0005));
+  const double xi_rec = limiting_neutral_axis_ratio(1.0, 0.44, redistribution_coefficient(1.25, e), 30);
+  CHECK(xi_rec == Approx(0.448));  // (1 − 0.44)/1.25
+  CHECK(limiting_K(1.0, 1.0, 1.5, 0.8, xi_rec) == Approx(0.196).margin(0.0005));
+}
+
+TEST_CASE("Lever arm: the 0.95d cap and the UK root term", "[en1992][bending]") {
+  // z/d = 0.5 + √(0.25 − K/1.134) with UK values (value from memory,
+  // common practice UK handbooks).
+  CHECK(lever_arm(200, 0.10, 1.0, 0.85, 1.5) / 200 ==
+        Approx(0.5 + std::sqrt(0.25 - 0.10 / 1.134)).epsilon(1e-4));  // 1.134 is rounded
+  CHECK(lever_arm(200, 0.01, 1.0, 0.85, 1.5) == Approx(190.0));  // capped at 0.95 d
+  // Resistance of the As that a moment needs gives that moment back.
+  const double d = 180, b = 1000, fcd = 0.85 * 30 / 1.5, fyd = 500 / 1.15, M = 60e6;
+  const double K = moment_factor_K(M, b, d, 30);
+  const double As = required_tension_steel(M, fyd, lever_arm(d, K, 1.0, 0.85, 1.5));
+  CHECK(moment_resistance(As, fyd, fcd, 1.0, b, d) == Approx(M).epsilon(1e-9));
+}
+
+TEST_CASE("Minimum and maximum steel, spacing limits", "[en1992][detailing]") {
+  // 9.2.1.1(1): C30/37, fyk 500: 0.26 × 2.90/500 = 0.00151 > 0.0013.
+  CHECK(minimum_tension_steel(2.8965, 500, 1000, 170) == Approx(0.26 * 2.8965 / 500 * 170000));
+  // C16/20: 0.26 × 1.90/500 = 0.00099 < 0.0013, the floor governs.
+  CHECK(minimum_tension_steel(mean_tensile_strength(16), 500, 1000, 170) == Approx(0.0013 * 170000));
+  CHECK(maximum_steel(1000, 200) == Approx(8000));  // 9.2.1.1(3): 0.04 Ac
+  CHECK(max_main_bar_spacing_max_moment(100) == Approx(200));  // 9.3.1.1(3): 2h
+  CHECK(max_main_bar_spacing_max_moment(250) == Approx(250));
+  CHECK(max_distribution_bar_spacing_max_moment(120) == Approx(360));  // 3h
+  CHECK(max_distribution_bar_spacing_max_moment(200) == Approx(400));
+  CHECK(minimum_clear_bar_spacing(12, 20) == Approx(25));  // 8.2(2): dg + 5
+  CHECK(minimum_clear_bar_spacing(32, 20) == Approx(32));  // φ
+  CHECK(minimum_clear_bar_spacing(10, 10) == Approx(20));  // 20 mm
+  CHECK(minimum_distribution_steel(500) == Approx(100));   // 9.3.1.1(2): 20 %
+}
+
+TEST_CASE("Tables 7.2N and 7.3N with interpolation", "[en1992][cracking]") {
+  // EN 1992-1-1 Tables 7.2N and 7.3N (value from memory).
+  CHECK(max_bar_diameter_table_7_2N(240, 0.3).value() == Approx(16));
+  CHECK(max_bar_diameter_table_7_2N(220, 0.3).value() == Approx(20.5));  // 25 → 16
+  CHECK(max_bar_diameter_table_7_2N(100, 0.4).value() == Approx(40));    // first row
+  CHECK(max_bar_diameter_table_7_2N(450, 0.4).value() == Approx(6));
+  CHECK_FALSE(max_bar_diameter_table_7_2N(451, 0.4).has_value());        // past the table
+  CHECK_FALSE(max_bar_diameter_table_7_2N(420, 0.2).has_value());        // "–" at 450
+  CHECK(max_bar_spacing_table_7_3N(220, 0.3).value() == Approx(225));    // 250 → 200
+  CHECK(max_bar_spacing_table_7_3N(300, 0.4).value() == Approx(175));    // 200 → 150
+  CHECK(max_bar_spacing_table_7_3N(150, 0.2).value() == Approx(200));
+  CHECK(max_bar_spacing_table_7_3N(360, 0.3).value() == Approx(50));
+  CHECK_FALSE(max_bar_spacing_table_7_3N(361, 0.3).has_value());
+  CHECK_FALSE(max_bar_spacing_table_7_3N(300, 0.2).has_value());
+  CHECK_FALSE(max_bar_spacing_table_7_3N(200, 0.25).has_value());        // no such column
+  // (7.6N) with kc = 0.4, hcr = h/2 (EN 1992-1-1 7.3.3(2)):
+  // 16 × (2.9/2.9) × 0.4 × 125 / (2 × 40) = 10.0 mm.
+  CHECK(adjusted_max_bar_diameter(16, 2.9, 250, 210) == Approx(10.0));
+  CHECK_FALSE(crack_check_needed(200));  // 7.3.3(1)
+  CHECK(crack_check_needed(201));
+}
+
+TEST_CASE("Table 7.4N ratios reproduced from (7.16)", "[en1992][deflection]") {
+  // EN 1992-1-1 Table 7.4N at C30/37, σs = 310 MPa (value from memory);
+  // the table rounds its entries, to within about one unit.
+  struct Row { StructuralSystem s; double high, low; };  // ρ = 1.5 %, 0.5 %
+  const Row rows[] = {{StructuralSystem::simply_supported, 14, 20},
+                      {StructuralSystem::end_span, 18, 26},
+                      {StructuralSystem::interior_span, 20, 30},
+                      {StructuralSystem::cantilever, 6, 8}};
+  for (const auto& r : rows) {
+    const double K = structural_system_factor(r.s);
+    INFO("K = " << K);
+    CHECK(basic_span_depth_ratio(K, 30, 0.015, 0.0) == Approx(r.high).margin(1.1));
+    CHECK(basic_span_depth_ratio(K, 30, 0.005, 0.0) == Approx(r.low).margin(1.1));
+  }
+  // The simply supported entries to the table's own precision.
+  CHECK(basic_span_depth_ratio(1.0, 30, 0.015, 0.0) == Approx(14.0).margin(0.1));
+  CHECK(basic_span_depth_ratio(1.0, 30, 0.005, 0.0) == Approx(20.5).margin(0.1));
+  CHECK(long_span_factor(8000) == Approx(7.0 / 8.0));  // 7.4.2(2)
+  CHECK(long_span_factor(6000) == Approx(1.0));
+  CHECK(steel_stress_factor(500, 600, 400, 1.5) == Approx(1.5));  // capped
+  CHECK(steel_stress_factor(500, 440, 400, 1.5) == Approx(1.1));  // (7.17)
+}
+
+TEST_CASE("A thicker slab never gets a lower basic l/d", "[en1992][deflection][property]") {
+  std::mt19937 rng(12345);
+  std::uniform_real_distribution<double> M(5e6, 120e6), h(120, 400), fck(20, 50);
+  for (int i = 0; i < 2000; ++i) {
+    const double m = M(rng), f = fck(rng), h1 = h(rng), h2 = h1 + 5.0 + 50.0 * (i % 3);
+    auto basic = [&](double thickness) {
+      const double d = thickness - 30.0;
+      const double K = moment_factor_K(m, 1000, d, f);
+      const double z = lever_arm(d, std::min(K, 0.167), 1.0, 0.85, 1.5);
+      const double As = required_tension_steel(m, 500 / 1.15, z);
+      return basic_span_depth_ratio(1.0, f, As / (1000 * d), 0.0);
+    };
+    INFO("M " << m << " fck " << f << " h " << h1 << " → " << h2);
+    CHECK(basic(h2) >= basic(h1));
+  }
+}
+
+TEST_CASE("Shear resistance without links", "[en1992][shear]") {
+  // EN 1992-1-1 6.2.2(1): d = 170, k = 1 + √(200/170) = 2.085 → 2.0.
+  CHECK(shear_depth_factor(170) == Approx(2.0));
+  CHECK(shear_depth_factor(800) == Approx(1.5));
+  // (6.3N): vmin = 0.035 × 2^1.5 × √30 = 0.5422 MPa.
+  CHECK(minimum_shear_strength(2.0, 30, 0.035) == Approx(0.5422).epsilon(1e-3));
+  // (6.2a) at ρl = 1 %: 0.12 × 2 × (100 × 0.01 × 30)^(1/3) = 0.7457 MPa → 126.8 kN.
+  CHECK(shear_resistance_without_links(0.12, 2.0, 0.01, 30, 0.5422, 1000, 170) / 1000 ==
+        Approx(126.77).epsilon(1e-3));
+  // ρl is limited to 0.02.
+  CHECK(shear_resistance_without_links(0.12, 2.0, 0.05, 30, 0.5422, 1000, 170) ==
+        Approx(shear_resistance_without_links(0.12, 2.0, 0.02, 30, 0.5422, 1000, 170)));
+  // Lightly reinforced: vmin governs.
+  CHECK(shear_resistance_without_links(0.12, 2.0, 0.001, 30, 0.5422, 1000, 170) ==
+        Approx(0.5422 * 170000));
+}
+
+TEST_CASE("Tables 4.3N and 4.4N cover cases", "[en1992][cover]") {
+  // EN 1992-1-1 Tables 4.3N, 4.4N (value from memory).
+  // XC1, 50 years, C30/37: S4 − 1 (slab) − 1 (≥ C30/37) = S2 → 10 mm.
+  CHECK(structural_class(50, "XC1", 30) == 2);
+  CHECK(minimum_cover_durability(2, "XC1") == 10);
+  // XC3, 50 years, C30/37 (below C35/45): S3 → 20 mm.
+  CHECK(structural_class(50, "XC3", 30) == 3);
+  CHECK(minimum_cover_durability(3, "XC3") == 20);
+  // XD1, 100 years, C40/50: S4 + 2 − 1 − 1 = S4 → 35 mm.
+  CHECK(structural_class(100, "XD1", 40) == 4);
+  CHECK(minimum_cover_durability(4, "XD1") == 35);
+  // XS3, 50 years, C25/30: S3 → 40 mm.
+  CHECK(structural_class(50, "XS3", 25) == 3);
+  CHECK(minimum_cover_durability(3, "XS3") == 40);
+  // XC4, 100 years, C25/30: S4 + 2 − 1 = S5 → 35 mm.
+  CHECK(structural_class(100, "XC4", 25) == 5);
+  CHECK(minimum_cover_durability(5, "XC4") == 35);
+  // X0, 50 years, C40/50: S2 → 10 mm; never below S1.
+  CHECK(minimum_cover_durability(structural_class(50, "X0", 40), "X0") == 10);
+  CHECK(minimum_cover_durability(6, "XD3") == 55);
+  // Table 4.2: cmin,b = φ, + 5 mm when dg > 32 mm.
+  CHECK(minimum_cover_bond(16, 20) == 16);
+  CHECK(minimum_cover_bond(16, 40) == 21);
+  CHECK(minimum_cover(8, 5) == 10);  // (4.2): never below 10 mm
+  CHECK(minimum_cover(16, 25) == 25);
+  CHECK(round_up_to_5(21) == 25);
+  CHECK(round_up_to_5(20) == 20);
+  CHECK_FALSE(is_exposure_class("XC5"));
+}
+
+TEST_CASE("Table 5.8 fire cases, one-way slabs", "[en1992][fire]") {
+  // EN 1992-1-2 Table 5.8 (value from memory): REI, hs mm, a mm.
+  CHECK(fire_min_thickness(30) == 60);
+  CHECK(fire_min_axis_distance(30) == 10);
+  CHECK(fire_min_thickness(60) == 80);
+  CHECK(fire_min_axis_distance(60) == 20);
+  CHECK(fire_min_thickness(90) == 100);
+  CHECK(fire_min_axis_distance(90) == 30);
+  CHECK(fire_min_thickness(120) == 120);
+  CHECK(fire_min_axis_distance(120) == 40);
+  CHECK(fire_min_thickness(180) == 150);
+  CHECK(fire_min_axis_distance(180) == 55);
+  CHECK(fire_min_thickness(240) == 175);
+  CHECK(fire_min_axis_distance(240) == 65);
+  CHECK_FALSE(is_tabulated_fire_resistance(45));
+  CHECK_THROWS(fire_min_thickness(45));
+}
+
+TEST_CASE("psi factors of EN 1990 Table A1.1", "[en1992][actions]") {
+  // EN 1990 Table A1.1 (value from memory).
+  CHECK(psi_factors("A")->psi2 == Approx(0.3));
+  CHECK(psi_factors("C")->psi1 == Approx(0.7));
+  CHECK(psi_factors("D")->psi2 == Approx(0.6));
+  CHECK(psi_factors("E")->psi0 == Approx(1.0));
+  CHECK(psi_factors("E")->psi2 == Approx(0.8));
+  CHECK(psi_factors("H")->psi0 == Approx(0.0));
+  CHECK_FALSE(psi_factors("I").has_value());
+}

@@ -1,1 +1,123 @@
+// The plug-in registry: good plug-ins load, every broken one is reported
+// against its file, and the kernel goes on with the rest.
 #include <catch2/catch.hpp>
+
+#include <filesystem>
+#include <fstream>
+
+#include <nlohmann/json.hpp>
+
+#include "armature/design.hpp"
+#include "armature/registry.hpp"
+
+namespace fs = std::filesystem;
+using armature::Registry;
+
+namespace {
+const armature::PluginFailure* failure_for(const Registry& r, const std::string& file_part) {
+  for (const auto& f : r.failures())
+    if (f.path.find(file_part) != std::string::npos) return &f;
+  return nullptr;
+}
+
+fs::path junk_plugin_dir() {
+  fs::path dir = fs::temp_directory_path() / "armature-registry-test";
+  fs::create_directories(dir);
+  std::ofstream(dir / "armature_code_junk.so") << "this is not a shared library\n";
+  std::ofstream(dir / "unrelated.txt") << "ignored: not named like a plug-in\n";
+  return dir;
+}
+
+nlohmann::json simple_request(const std::string& code) {
+  return {{"code", code},
+          {"slab", {{"spans_m", {4.0}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 200}}},
+          {"concrete", {{"class", "C30/37"}}},
+          {"loads", {{"imposed_kPa", 2.5}}}};
+}
+}  // namespace
+
+TEST_CASE("Broken plug-ins are reported and the good ones load", "[registry]") {
+  const fs::path missing = fs::temp_directory_path() / "armature-no-such-directory";
+  Registry reg({ARMATURE_TEST_PLUGIN_DIR, junk_plugin_dir(), missing, ARMATURE_CODE_DIR});
+
+  std::vector<std::string> ids;
+  for (const auto& c : reg.codes()) ids.push_back(c.id);
+  CHECK(std::find(ids.begin(), ids.end(), "EN1992-1-1") != ids.end());
+  CHECK(std::find(ids.begin(), ids.end(), "TEST-THROWING") != ids.end());
+
+  const auto* abi = failure_for(reg, "armature_code_wrongabi.so");
+  REQUIRE(abi != nullptr);
+  CHECK_THAT(abi->reason, Catch::Contains("ABI version 101") && Catch::Contains("expects 1"));
+
+  const auto* noentry = failure_for(reg, "armature_code_noentry.so");
+  REQUIRE(noentry != nullptr);
+  CHECK_THAT(noentry->reason, Catch::Contains("no entry point"));
+
+  const auto* junk = failure_for(reg, "armature_code_junk.so");
+  REQUIRE(junk != nullptr);
+  CHECK_THAT(junk->reason, Catch::Contains("not a loadable library"));
+
+  const auto* dir = failure_for(reg, "armature-no-such-directory");
+  REQUIRE(dir != nullptr);
+  CHECK_THAT(dir->reason, Catch::Contains("does not exist"));
+
+  CHECK(failure_for(reg, "unrelated.txt") == nullptr);
+  CHECK(reg.failures().size() == 4);
+
+  // The kernel goes on: the EN 1992 design runs with the same registry.
+  auto rec = armature::design(reg, simple_request("EN1992-1-1"));
+  CHECK(rec.code.variant == "recommended");
+  CHECK(rec.regions.size() == 1);
+}
+
+TEST_CASE("A plug-in that throws inside a check becomes a design error", "[registry]") {
+  Registry reg({ARMATURE_TEST_PLUGIN_DIR, ARMATURE_CODE_DIR});
+  try {
+    armature::design(reg, simple_request("TEST-THROWING"));
+    FAIL("expected a design error");
+  } catch (const armature::DesignError& e) {
+    const std::string what = e.what();
+    CHECK_THAT(what, Catch::Contains("TEST-THROWING") && Catch::Contains("'bending'") &&
+                         Catch::Contains("deliberate failure"));
+  }
+  // And the other code still designs.
+  CHECK(armature::design(reg, simple_request("EN1992-1-1")).regions.size() == 1);
+}
+
+TEST_CASE("Unknown code and variant name their field", "[registry]") {
+  Registry reg({ARMATURE_CODE_DIR});
+  try {
+    reg.open("EN1992-1-9", "");
+    FAIL("expected an input error");
+  } catch (const armature::InputError& e) {
+    REQUIRE(e.problems().size() == 1);
+    CHECK(e.problems()[0].field == "code");
+    CHECK_THAT(e.problems()[0].message, Catch::Contains("EN1992-1-9") && Catch::Contains("EN1992-1-1"));
+  }
+  try {
+    reg.open("EN1992-1-1", "Atlantis");
+    FAIL("expected an input error");
+  } catch (const armature::InputError& e) {
+    CHECK(e.problems()[0].field == "variant");
+    CHECK_THAT(e.problems()[0].message, Catch::Contains("Atlantis") && Catch::Contains("UK") &&
+                                            Catch::Contains("recommended"));
+  }
+}
+
+TEST_CASE("A code keeps its library loaded after the registry is gone", "[registry]") {
+  std::shared_ptr<const armature::DesignCode> code;
+  {
+    Registry reg({ARMATURE_CODE_DIR});
+    code = reg.open("EN1992-1-1", "UK");
+  }
+  // The vtable still lives: the library was not unloaded.
+  CHECK(code->identity().variant == "UK");
+  CHECK(code->identity().id == "EN1992-1-1");
+}
+
+TEST_CASE("The first plug-in on the path wins; a second copy is reported", "[registry]") {
+  Registry reg({ARMATURE_CODE_DIR, ARMATURE_CODE_DIR "/../codes"});
+  // Both entries are the same directory: it is searched once.
+  CHECK(reg.search_dirs().size() == 1);
+  CHECK(reg.failures().empty());
+}
