@@ -1,0 +1,73 @@
+"""The armature command line: output forms, exit codes and plug-in listing."""
+import json
+import os
+import subprocess
+
+import armature
+from conftest import CLI, ROOT, TEST_PLUGINS
+
+
+def run(args, stdin=None, env=None):
+    return subprocess.run([str(CLI), *args], input=stdin, capture_output=True, text=True,
+                          timeout=60, env=env)
+
+
+def test_version():
+    r = run(["--version"])
+    assert r.returncode == 0
+    assert r.stdout.strip() == f"armature {armature.__version__}"
+
+
+def test_json_output_equals_python_result(base_request):
+    r = run(["design", "--json", "-"], stdin=json.dumps(base_request))
+    assert r.returncode == 0, r.stderr
+    assert json.loads(r.stdout) == armature.design(base_request)
+
+
+def test_summary_names_checks_clauses_and_caution(base_request):
+    r = run(["design", "-"], stdin=json.dumps(base_request))
+    assert r.returncode == 0
+    assert "EN 1992-1-1 6.2.2(1)" in r.stdout
+    assert "ø10 @ 225" in r.stdout
+    assert "qualified engineer" in r.stdout
+    assert "PASS" in r.stdout
+
+
+def test_failing_design_exits_1(base_request):
+    # EN 1992-1-2 Table 5.8 (value from memory): REI 240 needs a ≥ 65 mm;
+    # 25 mm cover + φ/2 falls short, so the design fails.
+    base_request["fire"] = {"resistance_min": 240}
+    r = run(["design", "--json", "-"], stdin=json.dumps(base_request))
+    assert r.returncode == 1
+    assert json.loads(r.stdout)["status"] == "fail"
+
+
+def test_demo_request_designs():
+    r = run(["design", "--json", str(ROOT / "examples" / "workshop-first-floor.json")])
+    assert r.returncode in (0, 1), r.stderr
+    assert json.loads(r.stdout)["regions"][0]["where"] == "span 1"
+
+
+def test_usage_errors_exit_2():
+    assert run([]).returncode == 2
+    assert run(["design"]).returncode == 2
+    assert run(["design", "a.json", "--frobnicate"]).returncode == 2
+    r = run(["design", "/nonexistent/request.json"])
+    assert r.returncode == 2 and r.stdout == "" and "cannot read" in r.stderr
+
+
+def test_broken_plugins_on_the_path_are_reported_and_design_goes_on(base_request):
+    env = dict(os.environ, ARMATURE_CODE_PATH=f"{TEST_PLUGINS}:/nonexistent/armature-codes")
+    listing = run(["codes"], env=env)
+    assert listing.returncode == 0
+    assert "EN1992-1-1" in listing.stdout and "TEST-THROWING" in listing.stdout
+    assert "armature_code_wrongabi.so: plug-in ABI version 101" in listing.stdout
+    assert "armature_code_noentry.so: no entry point" in listing.stdout
+    assert "/nonexistent/armature-codes: plug-in directory does not exist" in listing.stdout
+    designed = run(["design", "--json", "-"], stdin=json.dumps(base_request), env=env)
+    assert designed.returncode == 0
+    throwing = dict(base_request, code="TEST-THROWING")
+    del throwing["variant"]
+    failed = run(["design", "-"], stdin=json.dumps(throwing), env=env)
+    assert failed.returncode == 3 and failed.stdout == ""
+    assert "TEST-THROWING" in failed.stderr and "'bending'" in failed.stderr
