@@ -97,6 +97,12 @@ class Checker final : public SlabChecker {
     return basis;
   }
 
+  std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const override {
+    return en1992::load_arrangements(span_count, ndp_.pattern_loading == "adjacent_pairs");
+  }
+
+  double pinned_end_fixity_fraction() const override { return partial_fixity_fraction; }
+
   std::vector<BarOption> bar_options() const override { return bars_; }
 
   double max_spacing_mm(const RegionDemand&) const override {
@@ -256,8 +262,8 @@ class Checker final : public SlabChecker {
       }));
     }
 
-    // Fire (EN 1992-1-2 Table 5.8): axis distance of these bars
-    if (req_.fire.resistance_min) {
+    // Fire (EN 1992-1-2 Table 5.8): axis distance of the bottom bars
+    if (req_.fire.resistance_min && g.face == Face::bottom) {
       out.checks.push_back(run_check("fire", [&] {
         const int t = *req_.fire.resistance_min;
         const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance(t);
@@ -367,7 +373,9 @@ class Checker final : public SlabChecker {
 
   Check deflection_check(const RegionDemand& g, double d, double As_req, double As_prov,
                          bool with_steps) const {
-    const double rho = As_req / (req_.slab.strip_width_mm * d);
+    // A region with no moment has As,req = 0; a floor of 1e-6 keeps (7.16a)
+    // finite (the ratio is then far above any actual l/d).
+    const double rho = std::max(As_req / (req_.slab.strip_width_mm * d), 1e-6);
     const double rho0 = reference_reinforcement_ratio(m_.fck);
     const double K = structural_system_factor(system_of(g.span_kind));
     const double basic = basic_span_depth_ratio(K, m_.fck, rho, 0.0);
@@ -466,6 +474,12 @@ class Code final : public DesignCode {
       problems.add("fire.resistance_min",
                    "must be 30, 60, 90, 120, 180 or 240 (EN 1992-1-2 Table 5.8), got " +
                        std::to_string(*req.fire.resistance_min));
+    const double max_percent = (1.0 - min_redistribution_ratio_class_B) * 100.0;
+    if (req.design.redistribution_percent > max_percent + 1e-9)
+      problems.add("design.redistribution_percent",
+                   "must be at most " + num(max_percent) +
+                       " % for this slab (EN 1992-1-1 5.5(4): δ ≥ 0.7 for class B and C "
+                       "reinforcement), got " + num(req.design.redistribution_percent));
     if (const auto& comb = req.design.combination; comb && *comb != "6.10" && *comb != "6.10a/b")
       problems.add("design.combination", "must be \"6.10\" or \"6.10a/b\" (EN 1990 Table A1.2(B)), got '" +
                                              *comb + "'");

@@ -63,6 +63,28 @@ std::optional<PsiFactors> psi_factors(const std::string& category) {
   return std::nullopt;
 }
 
+// ---- Load arrangements -----------------------------------------------------
+std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacent_pairs) {
+  std::vector<std::vector<bool>> out;
+  for (std::size_t parity = 0; parity < 2; ++parity) {
+    std::vector<bool> a(spans);
+    for (std::size_t i = 0; i < spans; ++i) a[i] = i % 2 == parity;
+    out.push_back(a);
+  }
+  if (adjacent_pairs) {
+    for (std::size_t i = 0; i + 1 < spans; ++i) {
+      std::vector<bool> a(spans, false);
+      a[i] = a[i + 1] = true;
+      out.push_back(a);
+    }
+  } else {
+    out.push_back(std::vector<bool>(spans, true));
+  }
+  // A single span: the loaded case is the only one that matters, but the
+  // list stays as the rule gives it.
+  return out;
+}
+
 // ---- Bending ---------------------------------------------------------------
 double redistribution_coefficient(double factor, double eps_cu2) {
   return factor * (0.6 + 0.0014 / eps_cu2);

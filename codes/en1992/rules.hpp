@@ -6,6 +6,7 @@
 
 #include <optional>
 #include <string>
+#include <vector>
 
 namespace armature::en1992 {
 
@@ -27,6 +28,15 @@ struct PsiFactors {
 };
 // Table A1.1 by imposed load category A–H; nullopt for an unknown category.
 std::optional<PsiFactors> psi_factors(const std::string& category);
+
+// ---- Load arrangements (EN 1992-1-1 5.1.3) --------------------------------
+// (a) alternate spans loaded, both ways; (b) every pair of adjacent spans
+// loaded (recommended) or all spans loaded (UK NA).
+std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacent_pairs);
+// 9.3.1.2(2): top steel at simple supports for 25 % of the span moment.
+constexpr double partial_fixity_fraction = 0.25;
+// 5.5(4): δ ≥ 0.7 for ductility classes B and C (0.8 for class A).
+constexpr double min_redistribution_ratio_class_B = 0.7;
 
 // ---- Bending (EN 1992-1-1 6.1, 5.5) ---------------------------------------
 // 5.5(4): k2 or k4 = factor × (0.6 + 0.0014/εcu2).

@@ -43,18 +43,19 @@ auto call_code(const CodeIdentity& code, const std::string& stage, Fn&& fn) -> d
   }
 }
 
-// What this version of the kernel designs; the contract allows more.
+// Geometry the kernel cannot analyse, and redistribution where there is
+// no support to take it from.
 void add_scope_problems(const Request& req, InputProblems& problems) {
-  if (req.slab.spans_mm.size() > 1)
-    problems.add("slab.spans_m", "continuous strips are not designed by this version yet; "
-                                 "give a single span");
-  if (req.slab.ends[0] != EndSupport::pinned || req.slab.ends[1] != EndSupport::pinned)
-    problems.add("slab.ends", "only simply supported spans (both ends \"pinned\") are "
-                              "designed by this version yet");
-  if (req.slab.spans_mm.size() == 1 && req.design.redistribution_percent > 0.0)
-    problems.add("design.redistribution_percent",
-                 "a single span has no interior support to redistribute from; the largest "
-                 "allowed value is 0");
+  const StripModel model{req.slab.spans_mm, req.slab.ends[0], req.slab.ends[1]};
+  if (const auto why = stability_problem(model); !why.empty())
+    problems.add("slab.ends", why + " (the strip would be a mechanism)");
+  if (req.design.redistribution_percent > 0.0) {
+    const auto nodes = redistributable_nodes(model);
+    if (std::none_of(nodes.begin(), nodes.end(), [](bool b) { return b; }))
+      problems.add("design.redistribution_percent",
+                   "this strip has no interior support whose moment can be redistributed "
+                   "(cantilever roots are statically determinate); the largest allowed value is 0");
+  }
 }
 
 LoadTotals total_loads(const LoadBasis& basis, const Request& req) {
@@ -221,6 +222,96 @@ DesignRecord design(const Registry& registry, const Request& req) {
 }
 
 namespace {
+
+std::string span_name(std::size_t e) { return "span " + std::to_string(e + 1); }
+std::string support_name(std::size_t j) { return "support " + std::to_string(j + 1); }
+
+SpanKind span_kind_of(const StripModel& m, std::size_t e) {
+  if (m.is_cantilever(e)) return SpanKind::cantilever;
+  const bool left = m.is_restrained(e), right = m.is_restrained(e + 1);
+  if (left && right) return SpanKind::interior_span;
+  if (left || right) return SpanKind::end_span;
+  return SpanKind::simply_supported;
+}
+
+// Load cases: every arrangement of every ULS expression, as line loads.
+std::vector<std::vector<double>> load_cases(const LoadBasis& basis, const LoadTotals& t,
+                                            const std::vector<std::vector<bool>>& arrangements,
+                                            double width_mm) {
+  std::vector<std::vector<double>> cases;
+  for (const auto& e : basis.uls) {
+    const double loaded = (e.gamma_G_loaded * t.Gk + e.gamma_Q * t.Qk) * width_mm;
+    const double unloaded = e.gamma_G_unloaded * t.Gk * width_mm;
+    for (const auto& a : arrangements) {
+      std::vector<double> w(a.size());
+      for (std::size_t i = 0; i < a.size(); ++i) w[i] = a[i] ? loaded : unloaded;
+      cases.push_back(std::move(w));
+    }
+  }
+  return cases;
+}
+
+// The regions of contract.md in order along the strip: a top region at each
+// support that carries hogging (and at pinned ends when the code asks for
+// partial-fixity steel), a bottom region in each span that is not a cantilever.
+std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
+                                     double fixity_fraction, double delta,
+                                     const std::vector<bool>& redistributed, double qp_to_uls,
+                                     std::vector<std::string>& warnings) {
+  std::vector<RegionDemand> out;
+  const std::size_t n = m.span_count();
+  for (std::size_t j = 0; j <= n; ++j) {
+    if (m.has_support(j)) {
+      const bool end = j == 0 || j == n;
+      const bool pinned_end = end && !m.is_restrained(j);
+      RegionDemand g;
+      g.where = support_name(j);
+      g.face = Face::top;
+      g.x_mm = m.node_position_mm(j);
+      g.quasi_permanent_to_uls = qp_to_uls;
+      if (pinned_end) {
+        if (fixity_fraction > 0.0) {
+          const std::size_t e = j == 0 ? 0 : n - 1;
+          g.M_Ed = fixity_fraction * std::max(env.span_max_sagging[e], 0.0);
+          out.push_back(std::move(g));
+        }
+      } else {
+        g.M_Ed = env.node_max_hogging[j];
+        g.supports = {{support_name(j), env.node_max_shear[j]}};
+        g.redistribution_delta = redistributed[j] ? delta : 1.0;
+        for (std::size_t e : {j - 1, j}) {
+          if (e < n && m.is_cantilever(e)) {  // j − 1 wraps past n at j = 0
+            g.span_where = span_name(e);
+            g.span_mm = m.spans_mm[e];
+            g.span_kind = SpanKind::cantilever;
+          }
+        }
+        out.push_back(std::move(g));
+      }
+    }
+    if (j < n && !m.is_cantilever(j)) {
+      RegionDemand g;
+      g.where = span_name(j);
+      g.face = Face::bottom;
+      if (env.span_max_sagging[j] <= 0.0)
+        warnings.push_back(span_name(j) + ": no sagging moment under any arrangement; top bars "
+                                          "must run through the span");
+      g.M_Ed = std::max(env.span_max_sagging[j], 0.0);
+      g.x_mm = m.node_position_mm(j) + env.span_x_max_sagging[j];
+      g.span_where = span_name(j);
+      g.span_mm = m.spans_mm[j];
+      g.span_kind = span_kind_of(m, j);
+      g.quasi_permanent_to_uls = qp_to_uls;
+      // Pinned end supports rely on the bottom bars of their span.
+      for (std::size_t k : {j, j + 1})
+        if ((k == 0 || k == n) && m.has_support(k) && !m.is_restrained(k))
+          g.supports.push_back({support_name(k), env.node_max_shear[k]});
+      out.push_back(std::move(g));
+    }
+  }
+  return out;
+}
+
 DesignRecord design_validated(const DesignCode& code, const Request& req) {
   DesignRecord rec;
   rec.code = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
@@ -231,49 +322,66 @@ DesignRecord design_validated(const DesignCode& code, const Request& req) {
   rec.loads = total_loads(basis, req);
 
   const double b = req.slab.strip_width_mm;
-  const double L = req.slab.spans_mm.at(0);
-  const SimpleSpanActions uls = simply_supported_actions(L, rec.loads.uls * b);
+  const StripModel model{req.slab.spans_mm, req.slab.ends[0], req.slab.ends[1]};
+  const std::size_t n = model.span_count();
+  const auto arrangements =
+      call_code(rec.code, "load arrangements", [&] { return checker->load_arrangements(n); });
+  for (const auto& a : arrangements)
+    if (a.size() != n) throw DesignError(rec.code.id + ": a load arrangement does not match the spans");
+  if (arrangements.empty()) throw DesignError(rec.code.id + ": the code gave no load arrangement");
 
-  RegionDemand demand;
-  demand.where = "span 1";
-  demand.face = Face::bottom;
-  demand.x_mm = uls.x_max_moment_mm;
-  demand.M_Ed = uls.max_moment_Nmm;
-  demand.span_where = "span 1";
-  demand.span_mm = L;
-  demand.span_kind = SpanKind::simply_supported;
-  demand.supports = {{"support 1", uls.end_shear_N}, {"support 2", uls.end_shear_N}};
-  demand.quasi_permanent_to_uls = rec.loads.sls_quasi_permanent / rec.loads.uls;
-  demand.redistribution_delta = 1.0;
+  const double delta = 1.0 - req.design.redistribution_percent / 100.0;
+  const auto redistributed = redistributable_nodes(model);
+  std::vector<CaseResult> cases;
+  for (const auto& w : load_cases(basis, rec.loads, arrangements, b)) {
+    CaseResult elastic = analyse(model, w);
+    cases.push_back(delta < 1.0 ? redistribute(model, elastic, redistributed, delta) : std::move(elastic));
+  }
+  const Envelope env = envelope_of(model, cases);
+  const double fixity = call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
+  const auto demands = regions_of(model, env, fixity, delta, redistributed,
+                                  rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
 
-  const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);
-  RegionOutcome out = call_code(rec.code, "checks at " + demand.where, [&] {
-    return checker->check_region(demand, pick.bar, pick.spacing_mm, true);
-  });
-
-  RegionRecord region;
-  region.where = demand.where;
-  region.face = demand.face;
-  region.x_mm = demand.x_mm;
-  region.M_Ed = demand.M_Ed;
-  region.d_mm = out.d_mm;
-  region.As_req_mm2 = out.As_req_mm2;
-  region.As_min_mm2 = out.As_min_mm2;
-  region.As_max_mm2 = out.As_max_mm2;
-  region.cover_mm = out.cover_mm;
-  region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
-  region.checks = std::move(out.checks);
-  rec.regions.push_back(std::move(region));
-
-  for (auto& s : out.supports) rec.supports.push_back({s.where, s.V_Ed, s.V_Rd, std::move(s.checks)});
-
-  SpanRecord span{"span 1", std::move(out.span_checks)};
-  auto extra = call_code(rec.code, "span checks", [&] { return checker->span_checks("span 1"); });
-  for (auto& c : extra) span.checks.push_back(std::move(c));
-  rec.spans.push_back(std::move(span));
+  std::vector<std::vector<Check>> span_checks(n);
+  std::vector<SupportRecord> supports(n + 1);
+  double max_main_As = 0.0;
+  for (const auto& demand : demands) {
+    const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);
+    RegionOutcome out = call_code(rec.code, "checks at " + demand.where, [&] {
+      return checker->check_region(demand, pick.bar, pick.spacing_mm, true);
+    });
+    RegionRecord region;
+    region.where = demand.where;
+    region.face = demand.face;
+    region.x_mm = demand.x_mm;
+    region.M_Ed = demand.M_Ed;
+    region.d_mm = out.d_mm;
+    region.As_req_mm2 = out.As_req_mm2;
+    region.As_min_mm2 = out.As_min_mm2;
+    region.As_max_mm2 = out.As_max_mm2;
+    region.cover_mm = out.cover_mm;
+    region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
+    region.checks = std::move(out.checks);
+    rec.regions.push_back(std::move(region));
+    max_main_As = std::max(max_main_As, pick.As_prov_mm2);
+    for (std::size_t e = 0; e < n; ++e)
+      if (demand.span_where == span_name(e))
+        for (auto& c : out.span_checks) span_checks[e].push_back(std::move(c));
+    for (auto& s : out.supports)
+      for (std::size_t j = 0; j <= n; ++j)
+        if (s.where == support_name(j)) supports[j] = {s.where, s.V_Ed, s.V_Rd, std::move(s.checks)};
+  }
+  for (std::size_t j = 0; j <= n; ++j)
+    if (model.has_support(j) && !supports[j].where.empty()) rec.supports.push_back(std::move(supports[j]));
+  for (std::size_t e = 0; e < n; ++e) {
+    SpanRecord span{span_name(e), std::move(span_checks[e])};
+    auto extra = call_code(rec.code, "span checks", [&] { return checker->span_checks(span.where); });
+    for (auto& c : extra) span.checks.push_back(std::move(c));
+    rec.spans.push_back(std::move(span));
+  }
 
   bool distribution_ok = true;
-  rec.distribution = choose_distribution(*checker, rec.code, pick.As_prov_mm2, b, rec.warnings,
+  rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, rec.warnings,
                                          distribution_ok);
 
   rec.cover_mm = 0.0;

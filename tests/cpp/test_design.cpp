@@ -17,10 +17,16 @@ armature::Registry& registry() {
 }
 
 const armature::Check& find_check(const armature::DesignRecord& r, const std::string& id,
-                                  const std::string& clause_part = "") {
+                                  const std::string& where = "span 1") {
   for (const armature::Check* c : r.all_checks())
-    if (c->id == id && c->clause.find(clause_part) != std::string::npos) return *c;
-  throw std::runtime_error("no check " + id);
+    if (c->id == id && c->where == where) return *c;
+  throw std::runtime_error("no check " + id + " at " + where);
+}
+
+const armature::RegionRecord& find_region(const armature::DesignRecord& r, const std::string& where) {
+  for (const auto& g : r.regions)
+    if (g.where == where) return g;
+  throw std::runtime_error("no region " + where);
 }
 }  // namespace
 
@@ -45,6 +51,9 @@ const armature::Check& find_check(const armature::DesignRecord& r, const std::st
 //   cover: S2 → cmin,dur 10, cmin,b 10 → cmin 10 + 10 = 20 ≤ 25
 //   h = 200: no crack check (7.3.3(1)); distribution 0.2 × 349.1 = 69.8 mm²
 //     → ø10 @ 400 (3h = 600 > 400) = 196.3 mm²
+//   partial fixity at each pinned end (9.3.1.2(2)): 0.25 × 23.70 = 5.925 kNm
+//     ø10: As,req = 5.925e6 / (434.78 × 161.5) = 84.38 mm² < As,min 256.1
+//     → ø10 @ 250 = 314.2 mm² (the widest spacing allowed, min(2h, 250))
 TEST_CASE("Single span worked by hand, EN 1992-1-1 UK", "[design][worked]") {
   json req = json::parse(R"({
     "code": "EN1992-1-1", "variant": "UK",
@@ -59,8 +68,19 @@ TEST_CASE("Single span worked by hand, EN 1992-1-1 UK", "[design][worked]") {
   CHECK(r.loads.uls * 1e3 == Approx(11.85));
   CHECK(r.loads.sls_quasi_permanent * 1e3 == Approx(6.75));
   CHECK(r.loads.combination == "6.10: 1.35 Gk + 1.5 Qk");
-  REQUIRE(r.regions.size() == 1);
-  const auto& g = r.regions[0];
+  REQUIRE(r.regions.size() == 3);
+  CHECK(r.regions[0].where == "support 1");
+  CHECK(r.regions[2].where == "support 2");
+  for (const char* end : {"support 1", "support 2"}) {
+    const auto& top = find_region(r, end);
+    CHECK(top.face == armature::Face::top);
+    CHECK(top.M_Ed * 1e-6 == Approx(5.925));
+    CHECK(top.As_req_mm2 == Approx(84.38).epsilon(1e-3));
+    CHECK(top.bars.bar == "10");
+    CHECK(top.bars.spacing_mm == 250);
+  }
+  CHECK(r.regions[2].x_mm == Approx(4000));
+  const auto& g = find_region(r, "span 1");
   CHECK(g.where == "span 1");
   CHECK(g.x_mm == Approx(2000));
   CHECK(g.M_Ed * 1e-6 == Approx(23.70));
@@ -82,6 +102,7 @@ TEST_CASE("Single span worked by hand, EN 1992-1-1 UK", "[design][worked]") {
   CHECK(r.supports[0].V_Ed * 1e-3 == Approx(23.70));
   CHECK(r.supports[1].V_Rd * 1e-3 == Approx(92.18).epsilon(1e-3));
   CHECK(find_check(r, "cover").demand == Approx(20));
+  CHECK(r.supports[0].checks.at(0).where == "support 1");
   CHECK(find_check(r, "cover").capacity == Approx(25));
   CHECK(r.cover_mm == 25);
   CHECK_THROWS(find_check(r, "cracking"));  // h = 200: none (7.3.3(1))
@@ -89,8 +110,12 @@ TEST_CASE("Single span worked by hand, EN 1992-1-1 UK", "[design][worked]") {
   CHECK(r.distribution.bars.bar == "10");
   CHECK(r.distribution.bars.spacing_mm == 400);
   CHECK(r.pass);
-  CHECK(r.governing_check == "bending");  // 23.70 / 24.51 = 0.967
-  CHECK(r.max_utilisation == Approx(23.70 / 24.51).epsilon(1e-3));
+  // The top bars sit at the widest spacing allowed (250/250 = 1.0), ahead of
+  // bending in the span (23.70 / 24.51 = 0.967).
+  CHECK(r.governing_check == "spacing");
+  CHECK(r.governing_where == "support 1");
+  CHECK(r.max_utilisation == Approx(1.0));
+  CHECK(find_check(r, "bending").utilisation == Approx(23.70 / 24.51).epsilon(1e-3));
   // Every check of the chosen design carries its derivation.
   for (const armature::Check* c : r.all_checks()) {
     INFO(c->id << " at " << c->where);
@@ -132,7 +157,7 @@ TEST_CASE("Computed cover follows Tables 4.3N/4.4N and the bar", "[design][cover
   })");
   auto r = armature::design(registry(), req);
   CHECK(r.cover_mm == 30);
-  CHECK(r.regions[0].d_mm == Approx(180 - 30 - 6));
+  CHECK(find_region(r, "span 1").d_mm == Approx(180 - 30 - 6));
   // dg 40 > 32: cmin,b = 12 + 5 = 17 < 20, cover unchanged; with ø25 bars
   // cmin,b = 30 → 30 + 10 = 40 mm.
   req["reinforcement"]["bars"] = {"25"};
@@ -158,7 +183,8 @@ TEST_CASE("Crack control applies above 200 mm", "[design][cracking]") {
     if (s.symbol == "σs") sigma = s.result;
   REQUIRE(sigma > 0);
   const double n_ratio = r.loads.sls_quasi_permanent / r.loads.uls;
-  CHECK(sigma == Approx(500 / 1.15 * n_ratio * r.regions[0].As_req_mm2 / r.regions[0].bars.As_prov_mm2));
+  const auto& span = find_region(r, "span 1");
+  CHECK(sigma == Approx(500 / 1.15 * n_ratio * span.As_req_mm2 / span.bars.As_prov_mm2));
   CHECK(crack.pass);
   // Span beyond 7 m: the 7/leff factor appears in the deflection derivation.
   const auto& defl = find_check(r, "deflection");
@@ -188,7 +214,7 @@ TEST_CASE("Random slabs: properties of the design", "[design][property]") {
     json heavier = req;
     heavier["loads"]["imposed_kPa"] = req["loads"]["imposed_kPa"].get<double>() + 1.0;
     auto r2 = armature::design(registry(), heavier);
-    CHECK(r2.regions[0].As_req_mm2 >= r1.regions[0].As_req_mm2);
+    CHECK(find_region(r2, "span 1").As_req_mm2 >= find_region(r1, "span 1").As_req_mm2);
     // Whenever the status is pass, the chosen bars pass every check, and the
     // provided steel covers both the required and the minimum area.
     if (r1.pass) {
@@ -197,7 +223,7 @@ TEST_CASE("Random slabs: properties of the design", "[design][property]") {
         CHECK(c->pass);
         CHECK(c->utilisation <= 1.0);
       }
-      const auto& reg = r1.regions[0];
+      const auto& reg = find_region(r1, "span 1");
       CHECK(reg.bars.As_prov_mm2 >= reg.As_req_mm2);
       CHECK(reg.bars.As_prov_mm2 >= reg.As_min_mm2);
       CHECK(reg.bars.spacing_mm <= std::min(2 * req["slab"]["thickness_mm"].get<double>(), 250.0));
@@ -218,6 +244,7 @@ TEST_CASE("Random slabs: properties of the design", "[design][property]") {
         d.span_mm = parsed.slab.spans_mm[0];
         d.supports = {{"support 1", r1.supports[0].V_Ed}, {"support 2", r1.supports[1].V_Ed}};
         d.quasi_permanent_to_uls = r1.loads.sls_quasi_permanent / r1.loads.uls;
+        d.x_mm = reg.x_mm;
         auto out = checker->check_region(d, {reg.bars.bar, reg.bars.diameter_mm}, wider, false);
         bool all = true;
         for (const auto& c : out.checks) all = all && c.pass;

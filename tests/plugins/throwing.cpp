@@ -10,6 +10,10 @@ using namespace armature;
 class ThrowingChecker final : public SlabChecker {
  public:
   LoadBasis load_basis() const override { return {25.0, {{"all: 1.0 Gk + 1.0 Qk", 1.0, 1.0, 1.0}}, 0.3}; }
+  std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
+    return {std::vector<bool>(n, true)};
+  }
+  double pinned_end_fixity_fraction() const override { return 0.0; }
   std::vector<BarOption> bar_options() const override { return {{"10", 10.0}}; }
   double max_spacing_mm(const RegionDemand&) const override { return 200.0; }
   RegionOutcome check_region(const RegionDemand&, const BarOption&, double, bool) const override {

@@ -110,6 +110,12 @@ class SlabChecker {
  public:
   virtual ~SlabChecker() = default;
   virtual LoadBasis load_basis() const = 0;
+  // Load arrangements: each marks the spans carrying the full ULS load;
+  // the others carry the unloaded (permanent) value. Envelope over all.
+  virtual std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const = 0;
+  // Top steel at pinned ends, as a fraction of the largest adjacent span
+  // moment; 0 when the code asks for none.
+  virtual double pinned_end_fixity_fraction() const = 0;
   // Candidate bars of the request (or the code's default set).
   virtual std::vector<BarOption> bar_options() const = 0;
   // Largest bar spacing the code allows in this region (mm).
