@@ -1,0 +1,208 @@
+"""Continuous strips and cantilevers to EN 1992-1-1: region moments and
+support shears against an independent three-moment solution (numpy) under
+the load arrangements of EN 1992-1-1 5.1.3 (value from memory: UK NA all
+spans loaded, recommended every pair of adjacent spans loaded, both with
+alternate spans loaded both ways)."""
+import random
+
+import numpy as np
+import pytest
+
+import armature
+
+
+def three_moment(spans, ends, q):
+    """Support moments (sagging positive, kNm) by Clapeyron's equation."""
+    n = len(spans)
+    M = np.zeros(n + 1)
+    known = [False] * (n + 1)
+    known[0] = ends[0] != "fixed"
+    known[n] = ends[1] != "fixed"
+    if ends[0] == "free":
+        M[1], known[1] = -q[0] * spans[0] ** 2 / 2, True
+    if ends[1] == "free":
+        M[n - 1], known[n - 1] = -q[-1] * spans[-1] ** 2 / 2, True
+    unknown = [j for j in range(n + 1) if not known[j]]
+    A = np.zeros((len(unknown), len(unknown)))
+    b = np.zeros(len(unknown))
+    for r, j in enumerate(unknown):
+        L1, w1 = (spans[j - 1], q[j - 1]) if j > 0 else (0.0, 0.0)
+        L2, w2 = (spans[j], q[j]) if j < n else (0.0, 0.0)
+        b[r] = -w1 * L1 ** 3 / 4 - w2 * L2 ** 3 / 4
+        A[r, r] = 2 * (L1 + L2)
+        for node, L in ((j - 1, L1), (j + 1, L2)):
+            if 0 <= node <= n and L > 0:
+                if node in unknown:
+                    A[r, unknown.index(node)] += L
+                else:
+                    b[r] -= M[node] * L
+    if unknown:
+        M[unknown] = np.linalg.solve(A, b)
+    return M
+
+
+def span_forces(L, w, M1, M2):
+    """Left shear, largest sagging moment and right shear of one span (statics)."""
+    V1 = (M2 - M1) / L + w * L / 2
+    V2 = V1 - w * L
+    sag = max(M1, M2)
+    if w > 0 and 0 < V1 / w < L:
+        x = V1 / w
+        sag = max(sag, M1 + V1 * x - w * x * x / 2)
+    return V1, sag, V2
+
+
+def arrangements(n, variant):
+    out = [[i % 2 == p for i in range(n)] for p in (0, 1)]
+    if variant == "UK":
+        out.append([True] * n)
+    else:
+        out += [[i in (k, k + 1) for i in range(n)] for k in range(n - 1)]
+    return out
+
+
+def expected_actions(req):
+    spans, ends = req["slab"]["spans_m"], req["slab"]["ends"]
+    n = len(spans)
+    Gk = 25.0 * req["slab"]["thickness_mm"] / 1000 + req["loads"].get("dead_kPa", 0.0)
+    Qk = req["loads"]["imposed_kPa"]
+    loaded, unloaded = 1.35 * Gk + 1.5 * Qk, 1.35 * Gk  # 6.10, EN 1990 Table A1.2(B)
+    sag = [-np.inf] * n
+    hog = [0.0] * (n + 1)
+    shear = [0.0] * (n + 1)
+    for arr in arrangements(n, req["variant"]):
+        q = [loaded if a else unloaded for a in arr]
+        M = three_moment(spans, ends, q)
+        for e in range(n):
+            V1, s, V2 = span_forces(spans[e], q[e], M[e], M[e + 1])
+            sag[e] = max(sag[e], s)
+            hog[e] = max(hog[e], -M[e])
+            hog[e + 1] = max(hog[e + 1], -M[e + 1])
+            shear[e] = max(shear[e], abs(V1))
+            shear[e + 1] = max(shear[e + 1], abs(V2))
+    regions = {}
+    for j in range(n + 1):
+        has_support = not ((j == 0 and ends[0] == "free") or (j == n and ends[1] == "free"))
+        if has_support:
+            pinned_end = (j == 0 and ends[0] == "pinned") or (j == n and ends[1] == "pinned")
+            if pinned_end:  # EN 1992-1-1 9.3.1.2(2): 25 % of the span moment
+                regions[f"support {j + 1}"] = 0.25 * max(sag[0 if j == 0 else n - 1], 0.0)
+            else:
+                regions[f"support {j + 1}"] = hog[j]
+        cantilever = j < n and ((j == 0 and ends[0] == "free") or (j == n - 1 and ends[1] == "free"))
+        if j < n and not cantilever:
+            regions[f"span {j + 1}"] = max(sag[j], 0.0)
+    supports = {f"support {j + 1}": shear[j] for j in range(n + 1)
+                if not ((j == 0 and ends[0] == "free") or (j == n and ends[1] == "free"))}
+    return regions, supports
+
+
+def random_strip(rng):
+    while True:
+        n = rng.randint(1, 5)
+        ends = [rng.choice(["pinned", "fixed", "free"]) for _ in range(2)]
+        supports = (n + 1) - sum(e == "free" for e in ends)
+        if supports >= 2 or (supports == 1 and "fixed" in ends):
+            break
+    spans = [round(rng.uniform(2.5, 6.5), 2) for _ in range(n)]
+    if ends[0] == "free":
+        spans[0] = round(rng.uniform(0.8, 2.0), 2)
+    if ends[1] == "free":
+        spans[-1] = round(rng.uniform(0.8, 2.0), 2)
+    return {
+        "code": "EN1992-1-1",
+        "variant": rng.choice(["UK", "recommended"]),
+        "slab": {"spans_m": spans, "ends": ends, "thickness_mm": rng.choice([200, 225, 250, 300])},
+        "concrete": {"class": "C30/37"},
+        "loads": {"dead_kPa": round(rng.uniform(0, 3), 2), "imposed_kPa": round(rng.uniform(1.5, 7.5), 2)},
+    }
+
+
+def test_random_strips_match_three_moment_envelopes():
+    rng = random.Random(31)
+    for _ in range(150):
+        req = random_strip(rng)
+        res = armature.design(req)
+        regions, supports = expected_actions(req)
+        got = {g["where"]: g["design_moment_kNm"] for g in res["regions"]}
+        assert got.keys() == regions.keys(), req
+        for where, M in regions.items():
+            assert got[where] == pytest.approx(M, rel=1e-7, abs=1e-9), (req, where)
+        got_v = {s["where"]: s["design_shear_kN"] for s in res["supports"]}
+        assert got_v.keys() == supports.keys(), req
+        for where, V in supports.items():
+            assert got_v[where] == pytest.approx(V, rel=1e-7), (req, where)
+
+
+BALCONY = {
+    "code": "EN1992-1-1", "variant": "UK",
+    "slab": {"spans_m": [4.0, 4.0, 1.6], "ends": ["pinned", "free"], "thickness_mm": 225},
+    "concrete": {"class": "C30/37"},
+    "loads": {"dead_kPa": 1.5, "imposed_kPa": 4.0},
+    "durability": {"cover_mm": 25},
+}
+
+
+def test_cantilever_has_root_steel_and_its_own_deflection_check():
+    res = armature.design(BALCONY)
+    root = next(g for g in res["regions"] if g["where"] == "support 3")
+    assert root["face"] == "top"
+    assert not any(g["where"] == "span 3" for g in res["regions"])
+    # Root moment w Lc²/2 with the loaded ULS value (statics).
+    Gk = 25 * 0.225 + 1.5
+    assert root["design_moment_kNm"] == pytest.approx((1.35 * Gk + 1.5 * 4.0) * 1.6 ** 2 / 2)
+    defl = next(c for c in res["checks"] if c["id"] == "deflection" and c["where"] == "span 3")
+    # Actual l/d of the cantilever from the root's effective depth.
+    assert defl["demand"] == pytest.approx(1600 / root["effective_depth_mm"])
+    # Cantilever K = 0.4 (Table 7.4N, value from memory): far below a span's ratio.
+    span1 = next(c for c in res["checks"] if c["id"] == "deflection" and c["where"] == "span 1")
+    assert defl["capacity"] < 0.5 * span1["capacity"]
+
+
+def test_redistribution_scales_support_moments_and_is_limited():
+    req = {
+        "code": "EN1992-1-1", "variant": "recommended",
+        "slab": {"spans_m": [5.0, 5.0, 5.0], "ends": ["pinned", "pinned"], "thickness_mm": 250},
+        "concrete": {"class": "C30/37"},
+        "loads": {"dead_kPa": 1.5, "imposed_kPa": 4.0},
+    }
+    elastic = armature.design(req)
+    req15 = dict(req, design={"redistribution_percent": 15})
+    redistributed = armature.design(req15)
+    m0 = {g["where"]: g["design_moment_kNm"] for g in elastic["regions"]}
+    m15 = {g["where"]: g["design_moment_kNm"] for g in redistributed["regions"]}
+    assert m15["support 2"] == pytest.approx(0.85 * m0["support 2"])
+    assert m15["span 2"] > m0["span 2"]  # rebalanced by equilibrium
+    # K' with δ = 0.85, recommended k1 = 0.44, k2 = 1.25 (EN 1992-1-1 5.5(4)):
+    # ξ = 0.41/1.25 = 0.328; K' = (1/1.5) 0.8 ξ (1 − 0.4 ξ) = 0.1520.
+    duct = next(c for c in redistributed["checks"] if c["id"] == "ductility" and c["where"] == "support 2")
+    xi = (0.85 - 0.44) / 1.25
+    assert duct["capacity"] == pytest.approx(1 / 1.5 * 0.8 * xi * (1 - 0.8 * xi / 2))
+    with pytest.raises(armature.InputError, match=r"design\.redistribution_percent: must be at most 30 %"):
+        armature.design(dict(req, design={"redistribution_percent": 35}))
+
+
+def test_redistribution_without_an_interior_support_is_refused():
+    req = dict(BALCONY, slab={"spans_m": [4.0, 1.6], "ends": ["pinned", "free"], "thickness_mm": 225},
+               design={"redistribution_percent": 10})
+    with pytest.raises(armature.InputError, match="largest allowed value is 0"):
+        armature.design(req)
+
+
+def test_unstable_strips_are_refused():
+    for ends in (["pinned", "free"], ["free", "free"]):
+        req = dict(BALCONY, slab={"spans_m": [4.0], "ends": ends, "thickness_mm": 225})
+        with pytest.raises(armature.InputError, match=r"slab\.ends: "):
+            armature.design(req)
+
+
+def test_interior_support_shear_uses_the_top_bars():
+    res = armature.design(BALCONY)
+    top = next(g for g in res["regions"] if g["where"] == "support 2")
+    support = next(s for s in res["supports"] if s["where"] == "support 2")
+    # VRd,c from (6.2a)/(6.3N) with ρl of the top bars at the support.
+    d, As, fck = top["effective_depth_mm"], top["bars"]["As_prov_mm2"], 30.0
+    k = min(1 + (200 / d) ** 0.5, 2.0)
+    rho = min(As / (1000 * d), 0.02)
+    v = max(0.18 / 1.5 * k * (100 * rho * fck) ** (1 / 3), 0.035 * k ** 1.5 * fck ** 0.5)
+    assert support["shear_resistance_kN"] == pytest.approx(v * 1000 * d / 1000)
