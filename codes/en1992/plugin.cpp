@@ -5,6 +5,7 @@
 #include <numbers>
 
 #include "armature/plugin.hpp"
+#include "armature/steps.hpp"
 #include "ndp.hpp"
 #include "rules.hpp"
 
@@ -17,17 +18,16 @@ const std::vector<std::string> default_bars{"8", "10", "12", "16", "20", "25"};
 constexpr double default_density_kN_m3 = 25.0;  // EN 1991-1-1 Table A.1
 constexpr double default_fyk = 500.0;
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
-}
+std::string num(double v) { return step_number(v); }
 
 std::optional<double> bar_diameter(const std::string& designation) {
   for (double d : bar_catalogue_mm)
     if (designation == num(d)) return d;
   return std::nullopt;
 }
+
+// EN bars are specified by diameter: area π φ²/4.
+double bar_area(double phi) { return std::numbers::pi * phi * phi / 4.0; }
 
 StructuralSystem system_of(SpanKind kind) {
   switch (kind) {
@@ -39,21 +39,7 @@ StructuralSystem system_of(SpanKind kind) {
   return StructuralSystem::simply_supported;
 }
 
-// Collects the steps of one check only when the caller asked for them.
-class Steps {
- public:
-  explicit Steps(bool on) : on_(on) {}
-  void add(const char* symbol, const char* expression, const std::string& substituted,
-           double result, const char* unit, const char* clause) {
-    if (on_) items_.push_back({symbol, expression, substituted, result, unit, clause});
-  }
-  bool on() const { return on_; }
-  std::vector<Step> take() { return std::move(items_); }
-
- private:
-  bool on_;
-  std::vector<Step> items_;
-};
+using Steps = StepRecorder;
 
 struct Materials {
   double fck, fyk, fcd, fyd, fctm, eta, lambda, eps_cu2;
@@ -78,7 +64,7 @@ class Checker final : public SlabChecker {
     exposure_ = req.durability.exposure.value_or("XC1");
     w_max_ = (exposure_ == "X0" || exposure_ == "XC1") ? ndp.w_max_X0_XC1_mm : ndp.w_max_other_mm;
     for (const auto& name : req.reinforcement.bars.value_or(default_bars))
-      bars_.push_back({name, *bar_diameter(name)});
+      bars_.push_back({name, *bar_diameter(name), bar_area(*bar_diameter(name))});
     if (!ndp.durability_note.empty()) warnings_.push_back(ndp.durability_note);
   }
 
@@ -114,7 +100,7 @@ class Checker final : public SlabChecker {
     RegionOutcome out;
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
     const double phi = bar.diameter_mm, dg = req_.concrete.aggregate_mm;
-    const double As_prov = std::numbers::pi * phi * phi / 4.0 * b / s;
+    const double As_prov = bar.area_mm2 * b / s;
 
     // Cover (4.4.1)
     Steps cover_steps(with_steps);

@@ -113,7 +113,7 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   Chosen passing, fallback, largest;
   for (const auto& bar : bars) {
     for (double s = first_spacing_mm; s <= s_max + 1e-9; s += spacing_step_mm) {
-      SearchCandidate c{bar, s, provided_area_mm2(bar.diameter_mm, s, width_mm)};
+      SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       RegionOutcome o = call_code(code, "checks at " + region.where,
                                   [&] { return checker.check_region(region, bar, s, false); });
       if (passes_all(o)) consider(passing, c);
@@ -143,7 +143,7 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
   Chosen best, largest;
   for (const auto& bar : bars) {
     for (double s = first_spacing_mm; s <= need.max_spacing_mm + 1e-9; s += spacing_step_mm) {
-      SearchCandidate c{bar, s, provided_area_mm2(bar.diameter_mm, s, width_mm)};
+      SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       if (c.As_prov_mm2 >= need.As_req_mm2) consider(best, c);
       if (!largest.found || c.As_prov_mm2 > largest.candidate.As_prov_mm2) {
         largest.candidate = c;
@@ -166,8 +166,8 @@ DesignRecord design_validated(const DesignCode& code, const Request& req);
 
 }  // namespace
 
-double provided_area_mm2(double diameter_mm, double spacing_mm, double width_mm) {
-  return std::numbers::pi * diameter_mm * diameter_mm / 4.0 * width_mm / spacing_mm;
+double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm) {
+  return bar_area_mm2 * width_mm / spacing_mm;
 }
 
 bool preferred(const SearchCandidate& a, const SearchCandidate& b) {

@@ -23,6 +23,11 @@ std::string pad(std::string s, std::size_t width) {
 std::string rpad(const std::string& s, std::size_t width) {
   return s.size() < width ? std::string(width - s.size(), ' ') + s : s;
 }
+// EN bars are named by diameter ("ø12"); catalogue names stay as they are ("#4").
+std::string bar_label(const BarChoice& b) {
+  const bool by_diameter = !b.bar.empty() && b.bar[0] >= '0' && b.bar[0] <= '9';
+  return (by_diameter ? "ø" : "") + b.bar + " @ " + fmt("%.0f", b.spacing_mm);
+}
 std::string util(double u) { return std::isfinite(u) ? fmt("%.2f", u) : std::string("inf"); }
 }  // namespace
 
@@ -41,13 +46,12 @@ std::string format_summary(const DesignRecord& r) {
     o += pad(g.where, 12) + pad(to_string(g.face), 8) + rpad(fmt("%.2f", g.M_Ed * 1e-6), 9) +
          rpad(fmt("%.1f", g.d_mm), 8) + rpad(fmt("%.1f", g.As_req_mm2), 9) +
          rpad(fmt("%.1f", g.As_min_mm2), 9) + "   " +
-         pad("ø" + g.bars.bar + " @ " + fmt("%.0f", g.bars.spacing_mm), 12) +
+         pad(bar_label(g.bars), 12) +
          rpad(fmt("%.1f", g.bars.As_prov_mm2), 12) + "\n";
   for (const auto& s : r.supports)
-    o += pad(s.where, 12) + "V_Ed " + fmt("%.1f", s.V_Ed * 1e-3) + " kN, V_Rd,c " +
+    o += pad(s.where, 12) + "V_Ed " + fmt("%.1f", s.V_Ed * 1e-3) + " kN, resistance " +
          fmt("%.1f", s.V_Rd * 1e-3) + " kN\n";
-  o += "Distribution bars ø" + r.distribution.bars.bar + " @ " +
-       fmt("%.0f", r.distribution.bars.spacing_mm) + " (As,req " +
+  o += "Distribution bars " + bar_label(r.distribution.bars) + " (As,req " +
        fmt("%.1f", r.distribution.As_req_mm2) + ", As,prov " +
        fmt("%.1f", r.distribution.bars.As_prov_mm2) + " mm2)\n\n";
 

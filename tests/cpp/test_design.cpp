@@ -195,6 +195,7 @@ TEST_CASE("Crack control applies above 200 mm", "[design][cracking]") {
 }
 
 TEST_CASE("Random slabs: properties of the design", "[design][property]") {
+  const double pi = 3.141592653589793;
   std::mt19937 rng(2026);
   std::uniform_real_distribution<double> span(2.0, 7.0), h(150, 320), q(1.5, 10.0), g(0.0, 3.0);
   std::uniform_int_distribution<int> cls(0, 5), bar(0, 3);
@@ -245,7 +246,9 @@ TEST_CASE("Random slabs: properties of the design", "[design][property]") {
         d.supports = {{"support 1", r1.supports[0].V_Ed}, {"support 2", r1.supports[1].V_Ed}};
         d.quasi_permanent_to_uls = r1.loads.sls_quasi_permanent / r1.loads.uls;
         d.x_mm = reg.x_mm;
-        auto out = checker->check_region(d, {reg.bars.bar, reg.bars.diameter_mm}, wider, false);
+        auto out = checker->check_region(
+            d, {reg.bars.bar, reg.bars.diameter_mm, pi * reg.bars.diameter_mm * reg.bars.diameter_mm / 4}, wider, false);
+
         bool all = true;
         for (const auto& c : out.checks) all = all && c.pass;
         for (const auto& c : out.span_checks) all = all && c.pass;
@@ -259,18 +262,20 @@ TEST_CASE("Random slabs: properties of the design", "[design][property]") {
 
 TEST_CASE("Bar search tie-break: least area, then larger spacing, then smaller bar", "[design][search]") {
   using armature::SearchCandidate;
-  SearchCandidate a{{"10", 10}, 150, armature::provided_area_mm2(10, 150, 1000)};
-  SearchCandidate b{{"12", 12}, 200, armature::provided_area_mm2(12, 200, 1000)};
+  const double pi = 3.141592653589793;
+  auto area = [&](double phi) { return pi * phi * phi / 4; };
+  SearchCandidate a{{"10", 10, area(10)}, 150, armature::provided_area_mm2(area(10), 150, 1000)};
+  SearchCandidate b{{"12", 12, area(12)}, 200, armature::provided_area_mm2(area(12), 200, 1000)};
   CHECK(armature::preferred(b, a) == (b.As_prov_mm2 < a.As_prov_mm2));
   // ø8 @ 100 and ø16 @ 400 have the same area: the larger spacing wins.
-  SearchCandidate c{{"8", 8}, 100, armature::provided_area_mm2(8, 100, 1000)};
-  SearchCandidate d{{"16", 16}, 400, armature::provided_area_mm2(16, 400, 1000)};
+  SearchCandidate c{{"8", 8, area(8)}, 100, armature::provided_area_mm2(area(8), 100, 1000)};
+  SearchCandidate d{{"16", 16, area(16)}, 400, armature::provided_area_mm2(area(16), 400, 1000)};
   CHECK(armature::preferred(d, c));
   CHECK_FALSE(armature::preferred(c, d));
   // Same area and spacing: the smaller bar.
-  SearchCandidate e{{"8", 8}, 100, 502.65};
-  SearchCandidate f{{"8b", 9}, 100, 502.65};
+  SearchCandidate e{{"8", 8, area(8)}, 100, 502.65};
+  SearchCandidate f{{"8b", 9, area(9)}, 100, 502.65};
   CHECK(armature::preferred(e, f));
   // π φ²/4 × b/s (ø10 @ 200 per metre = 392.7 mm²).
-  CHECK(armature::provided_area_mm2(10, 200, 1000) == Approx(392.70).epsilon(1e-4));
+  CHECK(armature::provided_area_mm2(area(10), 200, 1000) == Approx(392.70).epsilon(1e-4));
 }

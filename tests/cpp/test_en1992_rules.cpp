@@ -6,7 +6,7 @@
 #include <cmath>
 #include <random>
 
-#include "rules.hpp"
+#include "en1992/rules.hpp"
 
 using namespace armature::en1992;
 

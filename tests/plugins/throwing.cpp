@@ -14,7 +14,7 @@ class ThrowingChecker final : public SlabChecker {
     return {std::vector<bool>(n, true)};
   }
   double pinned_end_fixity_fraction() const override { return 0.0; }
-  std::vector<BarOption> bar_options() const override { return {{"10", 10.0}}; }
+  std::vector<BarOption> bar_options() const override { return {{"10", 10.0, 78.5}}; }
   double max_spacing_mm(const RegionDemand&) const override { return 200.0; }
   RegionOutcome check_region(const RegionDemand&, const BarOption&, double, bool) const override {
     RegionOutcome out;

@@ -79,6 +79,7 @@ struct RegionDemand {
 struct BarOption {
   std::string designation;  // as in the request: "12", "#4"
   double diameter_mm = 0.0;
+  double area_mm2 = 0.0;    // the catalogue's area of one bar
 };
 
 struct SupportOutcome {

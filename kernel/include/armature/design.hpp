@@ -92,6 +92,7 @@ struct SearchCandidate {
 // True when a is preferred to b on equal standing: least area, then the
 // larger spacing, then the smaller bar.
 bool preferred(const SearchCandidate& a, const SearchCandidate& b);
-double provided_area_mm2(double diameter_mm, double spacing_mm, double width_mm);
+// Area per strip width of bars of one area at one spacing.
+double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm);
 
 }  // namespace armature

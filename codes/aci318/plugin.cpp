@@ -1,0 +1,309 @@
+// The ACI 318-19 (SI) code plug-in for one-way solid slabs.
+#include <algorithm>
+#include <cmath>
+
+#include "armature/plugin.hpp"
+#include "armature/steps.hpp"
+#include "rules.hpp"
+
+namespace armature::aci318 {
+namespace {
+
+constexpr const char* code_id = "ACI318-19";
+constexpr const char* variant_name = "SI";
+const std::vector<std::string> default_bars{"#3", "#4", "#5", "#6", "#7", "#8"};
+constexpr double default_density_kN_m3 = 23.6;  // 150 lb/ft³ (common practice)
+constexpr double default_fy = 420.0;             // Grade 60
+constexpr double lambda_normal_weight = 1.0;     // 19.2.4
+
+std::string num(double v) { return step_number(v); }
+
+SupportCondition condition_of(SpanKind kind) {
+  switch (kind) {
+    case SpanKind::simply_supported: return SupportCondition::simply_supported;
+    case SpanKind::end_span: return SupportCondition::one_end_continuous;
+    case SpanKind::interior_span: return SupportCondition::both_ends_continuous;
+    case SpanKind::cantilever: return SupportCondition::cantilever;
+  }
+  return SupportCondition::simply_supported;
+}
+
+const char* condition_name(SupportCondition c) {
+  switch (c) {
+    case SupportCondition::simply_supported: return "simply supported, ℓ/20";
+    case SupportCondition::one_end_continuous: return "one end continuous, ℓ/24";
+    case SupportCondition::both_ends_continuous: return "both ends continuous, ℓ/28";
+    case SupportCondition::cantilever: return "cantilever, ℓ/10";
+  }
+  return "";
+}
+
+class Checker final : public SlabChecker {
+ public:
+  explicit Checker(const Request& req) : req_(req) {
+    fc_ = *req.concrete.cylinder_strength_MPa;
+    fy_ = req.reinforcement.yield_strength_MPa.value_or(default_fy);
+    beta1_ = stress_block_factor_beta1(fc_);
+    exposure_ = req.durability.exposure.value_or("interior");
+    for (const auto& name : req.reinforcement.bars.value_or(default_bars)) {
+      const Bar bar = *find_bar(name);
+      bars_.push_back({name, bar.diameter_mm, bar.area_mm2});
+    }
+    if (req.fire.resistance_min)
+      warnings_.push_back("fire resistance is not checked by this code: for US slabs it is set by "
+                          "ACI/TMS 216.1, which armature does not implement");
+  }
+
+  LoadBasis load_basis() const override {
+    LoadBasis basis;
+    basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(default_density_kN_m3);
+    basis.uls.push_back({"5.3.1a: 1.4 D", dead_only_factor, 0.0, dead_only_factor});
+    basis.uls.push_back({"5.3.1b: 1.2 D + 1.6 L", dead_factor, live_factor, dead_factor});
+    basis.psi2 = 0.0;  // the sustained part of L is not defined here: D alone
+    return basis;
+  }
+
+  std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
+    // 6.4.3.2: (a) the span and alternate spans loaded, both ways; (b) the
+    // two spans adjacent to each support loaded.
+    std::vector<std::vector<bool>> out;
+    for (std::size_t parity = 0; parity < 2; ++parity) {
+      std::vector<bool> a(n);
+      for (std::size_t i = 0; i < n; ++i) a[i] = i % 2 == parity;
+      out.push_back(a);
+    }
+    for (std::size_t i = 0; i + 1 < n; ++i) {
+      std::vector<bool> a(n, false);
+      a[i] = a[i + 1] = true;
+      out.push_back(a);
+    }
+    return out;
+  }
+
+  double pinned_end_fixity_fraction() const override { return 0.0; }
+
+  std::vector<BarOption> bar_options() const override { return bars_; }
+
+  double max_spacing_mm(const RegionDemand&) const override {
+    return max_flexural_bar_spacing(req_.slab.thickness_mm);
+  }
+
+  RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
+                             bool with_steps) const override {
+    RegionOutcome out;
+    const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm, db = bar.diameter_mm;
+    const double As = bar.area_mm2 * b / s;
+    const double c_req = specified_cover(exposure_, db);
+    const double cover = req_.durability.cover_mm.value_or(c_req);
+    out.cover_mm = cover;
+    out.d_mm = h - cover - db / 2.0;
+    const double d = out.d_mm;
+    out.As_min_mm2 = minimum_flexural_steel(b, h);
+    if (d <= 0.0) {
+      out.checks.push_back(make_check("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6,
+                                      0.0, "kNm"));
+      return out;
+    }
+    out.As_max_mm2 = steel_at_strain_limit(fc_, fy_, b, d);
+    const auto As_root = required_flexural_steel(g.M_Ed, fc_, fy_, b, d);
+    out.As_req_mm2 = As_root.value_or(0.85 * fc_ * b * d / fy_);
+    const double a = stress_block_depth(As, fy_, fc_, b);
+    const double c = a / beta1_;
+    const double eps_t = net_tensile_strain(d, c);
+    const double eps_ty = fy_ / steel_modulus_MPa;
+    const double phi = strength_reduction_factor(eps_t, eps_ty);
+    const double phi_Mn = phi * nominal_moment(As, fy_, d, a);
+
+    StepRecorder cover_steps(with_steps);
+    cover_steps.add("c", "Table 20.5.1.3.1 (" + exposure_ + ", bar " + bar.designation + ")",
+                    exposure_, c_req, "mm", "ACI 318-19 20.5.1.3.1");
+    out.checks.push_back(run_check("bending", [&] {
+      StepRecorder st(with_steps);
+      if (!req_.durability.cover_mm)
+        for (auto& x : cover_steps.take()) st.add(x.symbol.c_str(), x.expression, x.substituted, x.result, "mm", "ACI 318-19 20.5.1.3.1");
+      st.add("d", "h − cover − db/2", num(h) + " − " + num(cover) + " − " + num(db) + "/2", d, "mm",
+             "ACI 318-19 22.2");
+      st.add("As,req", "(0.85 f'c b/fy)(d − √(d² − 2Mu/(0.9 × 0.85 f'c b)))",
+             "Mu = " + num(g.M_Ed * 1e-6) + " kNm, f'c = " + num(fc_) + ", fy = " + num(fy_),
+             out.As_req_mm2, "mm2", "ACI 318-19 22.2.2");
+      st.add("As", "bar area × b/s", num(bar.area_mm2) + " × " + num(b) + "/" + num(s), As, "mm2", "");
+      st.add("a", "As fy/(0.85 f'c b)", num(As) + " × " + num(fy_) + "/(0.85 × " + num(fc_) + " × " + num(b) + ")",
+             a, "mm", "ACI 318-19 22.2.2.4.1");
+      st.add("φ", "Table 21.2.2 from εt", "εt = " + num(eps_t) + ", εty = " + num(eps_ty), phi, "-",
+             "ACI 318-19 21.2.2");
+      st.add("φMn", "φ As fy (d − a/2)", num(phi) + " × " + num(As) + " × " + num(fy_) + " × (" + num(d) +
+             " − " + num(a) + "/2)", phi_Mn * 1e-6, "kNm", "ACI 318-19 22.2");
+      return make_check("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, phi_Mn * 1e-6,
+                        "kNm", st.take());
+    }));
+    out.checks.push_back(run_check("ductility", [&] {
+      StepRecorder st(with_steps);
+      st.add("β1", "Table 22.2.2.4.3", "f'c = " + num(fc_), beta1_, "-", "ACI 318-19 22.2.2.4.3");
+      st.add("c", "a/β1", num(a) + "/" + num(beta1_), c, "mm", "ACI 318-19 22.2.2.4.2");
+      st.add("εt", "0.003 (d − c)/c", "0.003 × (" + num(d) + " − " + num(c) + ")/" + num(c), eps_t, "-",
+             "ACI 318-19 21.2.2");
+      if (!As_root)
+        st.add("As,req", "no real root: the section cannot reach Mu with φ = 0.9", num(g.M_Ed * 1e-6),
+               0.0, "mm2", "ACI 318-19 22.2.2");
+      return make_check("ductility", g.where, "ACI 318-19 7.3.3.1", slab_min_net_tensile_strain,
+                        As_root ? eps_t : 0.0, "-", st.take());
+    }));
+    out.checks.push_back(run_check("min_steel", [&] {
+      StepRecorder st(with_steps);
+      st.add("As,min", "0.0018 Ag", "0.0018 × " + num(b) + " × " + num(h), out.As_min_mm2, "mm2",
+             "ACI 318-19 7.6.1.1");
+      return make_check("min_steel", g.where, "ACI 318-19 7.6.1.1", out.As_min_mm2, As, "mm2", st.take());
+    }));
+    out.checks.push_back(run_check("spacing", [&] {
+      StepRecorder st(with_steps);
+      const double s_max = max_flexural_bar_spacing(h);
+      st.add("s_max", "min(3h, 450)", "min(3 × " + num(h) + ", 450)", s_max, "mm", "ACI 318-19 7.7.2.3");
+      return make_check("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", st.take());
+    }));
+    out.checks.push_back(run_check("cracking", [&] {
+      StepRecorder st(with_steps);
+      const double fs = service_steel_stress(fy_);
+      const double s_crack = crack_control_spacing(fs, cover);
+      st.add("fs", "2/3 fy", "2/3 × " + num(fy_), fs, "MPa", "ACI 318-19 24.3.2.1");
+      st.add("s", "min(380 (280/fs) − 2.5 cc, 300 (280/fs))",
+             "min(380 × 280/" + num(fs) + " − 2.5 × " + num(cover) + ", 300 × 280/" + num(fs) + ")",
+             s_crack, "mm", "ACI 318-19 24.3.2");
+      return make_check("cracking", g.where, "ACI 318-19 24.3.2", s, s_crack, "mm", st.take());
+    }));
+    if (req_.durability.cover_mm) {
+      out.checks.push_back(run_check("cover", [&] {
+        return make_check("cover", g.where, "ACI 318-19 20.5.1.3.1", c_req, cover, "mm",
+                          cover_steps.take());
+      }));
+    }
+    if (!g.span_where.empty()) {
+      out.span_checks.push_back(run_check("deflection", [&] {
+        const SupportCondition cond = condition_of(g.span_kind);
+        const double h_min = minimum_slab_thickness(g.span_mm, cond, fy_);
+        StepRecorder st(with_steps);
+        st.add("h_min", std::string("Table 7.3.1.1: ") + condition_name(cond) + ", × (0.4 + fy/700)",
+               "ℓ = " + num(g.span_mm) + ", fy = " + num(fy_), h_min, "mm", "ACI 318-19 7.3.1.1");
+        return make_check("deflection", g.span_where, "ACI 318-19 7.3.1.1", h_min, h, "mm", st.take());
+      }));
+    }
+    for (const auto& sup : g.supports) {
+      SupportOutcome so;
+      so.where = sup.where;
+      so.V_Ed = sup.V_Ed;
+      so.checks.push_back(run_check("shear", [&] {
+        const double rho_w = As / (b * d);
+        const double ls = size_effect_factor(d);
+        const double Vc = one_way_shear_strength(ls, lambda_normal_weight, rho_w, fc_, b, d);
+        so.V_Rd = shear_strength_reduction * Vc;
+        StepRecorder st(with_steps);
+        st.add("λs", "√(2/(1 + 0.004 d)) ≤ 1", "d = " + num(d), ls, "-", "ACI 318-19 22.5.5.1.3");
+        st.add("ρw", "As/(b d)", num(As) + "/(" + num(b) + " × " + num(d) + ")", rho_w, "-",
+               "ACI 318-19 22.5.5.1");
+        st.add("Vc", "0.66 λs λ ρw^(1/3) √f'c b d ≤ 0.42 λ √f'c b d",
+               "λs = " + num(ls) + ", √f'c = " + num(std::min(std::sqrt(fc_), 8.3)), Vc * 1e-3, "kN",
+               "ACI 318-19 22.5.5.1");
+        st.add("φVc", "0.75 Vc", "0.75 × " + num(Vc * 1e-3), so.V_Rd * 1e-3, "kN", "ACI 318-19 21.2.1");
+        return make_check("shear", sup.where, "ACI 318-19 22.5.5.1", sup.V_Ed * 1e-3, so.V_Rd * 1e-3,
+                          "kN", st.take());
+      }));
+      out.supports.push_back(std::move(so));
+    }
+    return out;
+  }
+
+  std::vector<Check> span_checks(const std::string&) const override { return {}; }
+
+  DistributionNeed distribution(double) const override {
+    return {shrinkage_temperature_steel(req_.slab.strip_width_mm, req_.slab.thickness_mm),
+            max_shrinkage_bar_spacing(req_.slab.thickness_mm)};
+  }
+
+  std::vector<std::string> warnings() const override { return warnings_; }
+
+ private:
+  Request req_;
+  double fc_ = 0.0, fy_ = 0.0, beta1_ = 0.0;
+  std::string exposure_;
+  std::vector<BarOption> bars_;
+  std::vector<std::string> warnings_;
+};
+
+class Code final : public DesignCode {
+ public:
+  CodeIdentity identity() const override {
+    return {code_id, variant_name, "ACI 318-19, SI units"};
+  }
+
+  void validate(const Request& req, InputProblems& problems) const override {
+    if (req.concrete.strength_class)
+      problems.add("concrete.class", "ACI 318-19 specifies concrete by f'c: give "
+                                     "concrete.cylinder_strength_MPa instead");
+    if (const auto& fc = req.concrete.cylinder_strength_MPa; fc && (*fc < 17 || *fc > 100))
+      problems.add("concrete.cylinder_strength_MPa",
+                   "must be between 17 and 100 MPa (ACI 318-19 19.2.1.1), got " + num(*fc));
+    if (const auto& fy = req.reinforcement.yield_strength_MPa; fy && (*fy < 280 || *fy > 550))
+      problems.add("reinforcement.yield_strength_MPa",
+                   "must be between 280 and 550 MPa (ACI 318-19 20.2.2.4), got " + num(*fy));
+    double smallest_bar = 9.5;
+    if (req.reinforcement.bars) {
+      smallest_bar = 1e9;
+      const auto& bars = *req.reinforcement.bars;
+      for (std::size_t i = 0; i < bars.size(); ++i) {
+        if (auto bar = find_bar(bars[i]))
+          smallest_bar = std::min(smallest_bar, bar->diameter_mm);
+        else
+          problems.add("reinforcement.bars[" + std::to_string(i) + "]",
+                       "unknown bar '" + bars[i] + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)");
+      }
+    }
+    if (req.durability.exposure && !is_exposure(*req.durability.exposure))
+      problems.add("durability.exposure", "unknown exposure '" + *req.durability.exposure +
+                                              "'; ACI 318 uses interior, weather or ground");
+    const double h = req.slab.thickness_mm;
+    if (const auto& cover = req.durability.cover_mm; cover && h > 0) {
+      if (*cover >= h / 2)
+        problems.add("durability.cover_mm", "must be less than half the slab thickness (" +
+                                                num(h / 2) + " mm), got " + num(*cover));
+      else if (smallest_bar < 1e9 && *cover + smallest_bar >= h)
+        problems.add("slab.thickness_mm", "must exceed cover plus the smallest bar (" +
+                                              num(*cover + smallest_bar) + " mm), got " + num(h));
+    }
+    if (req.design.combination)
+      problems.add("design.combination", "ACI 318-19 has no choice of combination rule (5.3.1 "
+                                         "applies); remove the field");
+    if (req.design.redistribution_percent > 0.0)
+      problems.add("design.redistribution_percent",
+                   "moment redistribution is not implemented for ACI 318-19; the largest allowed "
+                   "value is 0");
+  }
+
+  std::unique_ptr<SlabChecker> begin(const Request& req) const override {
+    return std::make_unique<Checker>(req);
+  }
+};
+
+class Factory final : public CodeFactory {
+ public:
+  std::string id() const override { return code_id; }
+  std::string title() const override { return "Building Code Requirements for Structural Concrete (SI)"; }
+  std::string edition() const override { return "ACI 318-19"; }
+  std::vector<std::string> variants() const override { return {variant_name}; }
+  std::string default_variant() const override { return variant_name; }
+  std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost&) const override {
+    if (variant != variant_name) throw std::invalid_argument("no ACI 318-19 variant '" + variant + "'");
+    return std::make_shared<Code>();
+  }
+};
+
+std::unique_ptr<CodeFactory> create_factory(const PluginContext&) { return std::make_unique<Factory>(); }
+
+}  // namespace
+
+const PluginEntry* plugin_entry() {
+  static const PluginEntry entry{plugin_abi_version, &create_factory};
+  return &entry;
+}
+
+}  // namespace armature::aci318
+
+ARMATURE_CODE_PLUGIN(armature::aci318::plugin_entry)

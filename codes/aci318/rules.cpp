@@ -1,0 +1,96 @@
+#include "rules.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+namespace armature::aci318 {
+
+const std::vector<Bar>& bar_catalogue() {
+  static const std::vector<Bar> bars{
+      {"#3", "No.10", 9.5, 71},    {"#4", "No.13", 12.7, 129},  {"#5", "No.16", 15.9, 199},
+      {"#6", "No.19", 19.1, 284},  {"#7", "No.22", 22.2, 387},  {"#8", "No.25", 25.4, 510},
+      {"#9", "No.29", 28.7, 645},  {"#10", "No.32", 32.3, 819}, {"#11", "No.36", 35.8, 1006}};
+  return bars;
+}
+
+std::optional<Bar> find_bar(const std::string& designation) {
+  for (const auto& b : bar_catalogue())
+    if (designation == b.number || designation == b.metric) return b;
+  return std::nullopt;
+}
+
+double modulus_of_elasticity(double fc) { return 4700.0 * std::sqrt(fc); }
+double modulus_of_rupture(double fc, double lambda) { return 0.62 * lambda * std::sqrt(fc); }
+
+double stress_block_factor_beta1(double fc) {
+  if (fc <= 28.0) return 0.85;
+  if (fc >= 55.0) return 0.65;
+  return 0.85 - 0.05 * (fc - 28.0) / 7.0;
+}
+
+std::optional<double> required_flexural_steel(double Mu, double fc, double fy, double b, double d) {
+  const double radicand = d * d - 2.0 * Mu / (0.9 * 0.85 * fc * b);
+  if (radicand < 0.0) return std::nullopt;
+  return 0.85 * fc * b / fy * (d - std::sqrt(radicand));
+}
+
+double stress_block_depth(double As, double fy, double fc, double b) {
+  return As * fy / (0.85 * fc * b);
+}
+
+double net_tensile_strain(double d, double c) { return 0.003 * (d - c) / c; }
+
+double strength_reduction_factor(double eps_t, double eps_ty) {
+  if (eps_t >= eps_ty + 0.003) return 0.90;
+  if (eps_t <= eps_ty) return 0.65;
+  return 0.65 + 0.25 * (eps_t - eps_ty) / 0.003;
+}
+
+double nominal_moment(double As, double fy, double d, double a) { return As * fy * (d - a / 2.0); }
+
+double steel_at_strain_limit(double fc, double fy, double b, double d) {
+  // εt = 0.003 (d − c)/c = 0.004 → c = 3d/7; a = β1 c; As = 0.85 f'c b a / fy.
+  const double c = 0.003 * d / (0.003 + slab_min_net_tensile_strain);
+  return 0.85 * fc * b * stress_block_factor_beta1(fc) * c / fy;
+}
+
+double minimum_flexural_steel(double b, double h) { return 0.0018 * b * h; }
+double max_flexural_bar_spacing(double h) { return std::min(3.0 * h, 450.0); }
+double service_steel_stress(double fy) { return 2.0 / 3.0 * fy; }
+
+double crack_control_spacing(double fs, double clear_cover) {
+  return std::min(380.0 * (280.0 / fs) - 2.5 * clear_cover, 300.0 * (280.0 / fs));
+}
+
+double shrinkage_temperature_steel(double b, double h) { return 0.0018 * b * h; }
+double max_shrinkage_bar_spacing(double h) { return std::min(5.0 * h, 450.0); }
+
+double size_effect_factor(double d) { return std::min(std::sqrt(2.0 / (1.0 + 0.004 * d)), 1.0); }
+
+double one_way_shear_strength(double lambda_s, double lambda, double rho_w, double fc, double b,
+                              double d) {
+  const double root_fc = std::min(std::sqrt(fc), 8.3);
+  const double vc = 0.66 * lambda_s * lambda * std::cbrt(rho_w) * root_fc;
+  return std::min(vc, 0.42 * lambda * root_fc) * b * d;
+}
+
+double minimum_slab_thickness(double span, SupportCondition condition, double fy) {
+  double divisor = 20.0;
+  switch (condition) {
+    case SupportCondition::simply_supported: divisor = 20.0; break;
+    case SupportCondition::one_end_continuous: divisor = 24.0; break;
+    case SupportCondition::both_ends_continuous: divisor = 28.0; break;
+    case SupportCondition::cantilever: divisor = 10.0; break;
+  }
+  return span / divisor * (0.4 + fy / 700.0);
+}
+
+bool is_exposure(const std::string& e) { return e == "interior" || e == "weather" || e == "ground"; }
+
+double specified_cover(const std::string& exposure, double bar_diameter) {
+  if (exposure == "ground") return 75.0;
+  if (exposure == "weather") return bar_diameter >= 19.0 ? 50.0 : 40.0;  // No.19 and larger
+  return 20.0;  // interior slabs, No.36 and smaller
+}
+
+}  // namespace armature::aci318

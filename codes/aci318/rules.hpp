@@ -1,0 +1,69 @@
+// ACI 318-19 (SI) rules for one-way solid slabs, one small pure function
+// per section. Units: N, mm, MPa. Values are as written in aci318-basis.md
+// (from memory of the standard; see the tests for the check values).
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace armature::aci318 {
+
+// ASTM A615/A615M bars: inch-pound number, metric number, diameter, area.
+struct Bar {
+  const char* number;  // "#4"
+  const char* metric;  // "No.13"
+  double diameter_mm;
+  double area_mm2;
+};
+const std::vector<Bar>& bar_catalogue();
+std::optional<Bar> find_bar(const std::string& designation);  // either name
+
+// ---- Materials (19.2, 20.2) -------------------------------------------------
+double modulus_of_elasticity(double fc);                  // 19.2.2.1: 4700 √f'c
+double modulus_of_rupture(double fc, double lambda);      // 19.2.3.1: 0.62 λ √f'c
+constexpr double steel_modulus_MPa = 200000.0;            // 20.2.2.2
+
+// ---- Flexure (22.2, 21.2, 7.3.3) ---------------------------------------------
+double stress_block_factor_beta1(double fc);              // Table 22.2.2.4.3
+// As for Mu with φ = 0.9: (0.85 f'c b/fy)(d − √(d² − 2Mu/(0.9 · 0.85 f'c b)));
+// nullopt when there is no real root (the section is too shallow).
+std::optional<double> required_flexural_steel(double Mu, double fc, double fy, double b, double d);
+double stress_block_depth(double As, double fy, double fc, double b);  // a = As fy/(0.85 f'c b)
+double net_tensile_strain(double d, double c);            // εt = 0.003 (d − c)/c
+double strength_reduction_factor(double eps_t, double eps_ty);  // Table 21.2.2
+double nominal_moment(double As, double fy, double d, double a);  // Mn = As fy (d − a/2)
+// The steel area at which εt reaches the slab limit 0.004 (7.3.3.1).
+double steel_at_strain_limit(double fc, double fy, double b, double d);
+constexpr double slab_min_net_tensile_strain = 0.004;     // 7.3.3.1
+
+// ---- Reinforcement limits and detailing ------------------------------------
+double minimum_flexural_steel(double b, double h);        // 7.6.1.1: 0.0018 Ag
+double max_flexural_bar_spacing(double h);                // 7.7.2.3: min(3h, 450)
+double service_steel_stress(double fy);                   // 24.3.2.1: fs = 2/3 fy
+// 24.3.2: s ≤ min(380 (280/fs) − 2.5 cc, 300 (280/fs)).
+double crack_control_spacing(double fs, double clear_cover);
+double shrinkage_temperature_steel(double b, double h);   // 24.4.3.2: 0.0018 Ag
+double max_shrinkage_bar_spacing(double h);               // 24.4.3.3: min(5h, 450)
+
+// ---- Shear (22.5.5.1) ----------------------------------------------------------
+double size_effect_factor(double d);                      // λs = √(2/(1 + 0.004 d)) ≤ 1
+// Vc = 0.66 λs λ ρw^(1/3) √f'c b d ≤ 0.42 λ √f'c b d, √f'c ≤ 8.3 MPa (22.5.3.1).
+double one_way_shear_strength(double lambda_s, double lambda, double rho_w, double fc, double b,
+                              double d);
+constexpr double shear_strength_reduction = 0.75;         // 21.2.1
+
+// ---- Deflection by minimum thickness (Table 7.3.1.1) -----------------------
+enum class SupportCondition { simply_supported, one_end_continuous, both_ends_continuous, cantilever };
+// ℓ/20, ℓ/24, ℓ/28, ℓ/10, times (0.4 + fy/700) (7.3.1.1.1).
+double minimum_slab_thickness(double span, SupportCondition condition, double fy);
+
+// ---- Cover (20.5.1.3.1) -----------------------------------------------------
+bool is_exposure(const std::string& exposure);            // interior, weather, ground
+double specified_cover(const std::string& exposure, double bar_diameter);
+
+// ---- Loads (5.3.1) ------------------------------------------------------------
+constexpr double dead_only_factor = 1.4;                  // (5.3.1a)
+constexpr double dead_factor = 1.2, live_factor = 1.6;    // (5.3.1b)
+
+}  // namespace armature::aci318

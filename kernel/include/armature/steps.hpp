@@ -1,0 +1,37 @@
+// Helpers for code plug-ins that build Check records with their Steps.
+#pragma once
+
+#include <cstdio>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "armature/record.hpp"
+
+namespace armature {
+
+// A number as a derivation shows it: four significant figures.
+inline std::string step_number(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.4g", v);
+  return buf;
+}
+
+// Collects the steps of one check only when the caller asked for them, so
+// that the bar search runs without building strings.
+class StepRecorder {
+ public:
+  explicit StepRecorder(bool on) : on_(on) {}
+  void add(const char* symbol, const std::string& expression, const std::string& substituted,
+           double result, const char* unit, const char* clause) {
+    if (on_) items_.push_back({symbol, expression, substituted, result, unit, clause});
+  }
+  bool on() const { return on_; }
+  std::vector<Step> take() { return std::move(items_); }
+
+ private:
+  bool on_;
+  std::vector<Step> items_;
+};
+
+}  // namespace armature
