@@ -6,7 +6,7 @@ cd "$(dirname "$0")/.."
 
 PYTHON="${PYTHON:-/usr/bin/python3}"
 packages=(g++ cmake make pkg-config nlohmann-json3-dev libboost-dev catch2 pybind11-dev
-          python3-dev python3-pybind11 python3-pytest python3-numpy)
+          python3-dev python3-pybind11 python3-pytest python3-numpy python3-pandas)
 
 missing=()
 for p in "${packages[@]}"; do

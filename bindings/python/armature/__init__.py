@@ -16,13 +16,16 @@ from ._core import (  # noqa: F401
     design_many,
     plugin_failures,
 )
+from .tables import compare, to_frame  # noqa: F401
 
 __all__ = [
     "CAUTION",
     "DesignError",
     "InputError",
     "codes",
+    "compare",
     "design",
     "design_many",
     "plugin_failures",
+    "to_frame",
 ]
