@@ -316,6 +316,8 @@ DesignRecord design_validated(const DesignCode& code, const Request& req) {
   DesignRecord rec;
   rec.code = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                        [&] { return code.identity(); });
+  rec.report_units = req.report_units;
+  rec.strip_width_mm = req.slab.strip_width_mm;
   const auto checker = call_code(rec.code, "set-up", [&] { return code.begin(req); });
   const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
   if (basis.uls.empty()) throw DesignError(rec.code.id + ": the code gave no ULS expression");

@@ -6,6 +6,7 @@
 #include <set>
 
 #include "armature/json_io.hpp"
+#include "armature/units.hpp"
 
 namespace armature {
 namespace {
@@ -25,14 +26,86 @@ std::string describe(const json& v) {
   return v.type_name();
 }
 
+// A field that may also be given under its plain name as a quantity string:
+// "thickness": "8 in" for "thickness_mm": 203.2.
+struct PlainAlias {
+  const char* plain;
+  const char* canonical;
+  Dimension dimension;
+  double unit_si;  // one canonical unit in SI base units
+};
+
+const std::vector<PlainAlias>& plain_aliases() {
+  static const std::vector<PlainAlias> aliases{
+      {"spans", "spans_m", Dimension::length, 1.0},
+      {"thickness", "thickness_mm", Dimension::length, 1e-3},
+      {"strip_width", "strip_width_mm", Dimension::length, 1e-3},
+      {"cylinder_strength", "cylinder_strength_MPa", Dimension::pressure, 1e6},
+      {"density", "density_kN_m3", Dimension::unit_weight, 1e3},
+      {"aggregate", "aggregate_mm", Dimension::length, 1e-3},
+      {"yield_strength", "yield_strength_MPa", Dimension::pressure, 1e6},
+      {"dead", "dead_kPa", Dimension::pressure, 1e3},
+      {"imposed", "imposed_kPa", Dimension::pressure, 1e3},
+      {"cover", "cover_mm", Dimension::length, 1e-3},
+  };
+  return aliases;
+}
+
 // Reads the members of one JSON object, recording problems under `path`.
 class ObjectReader {
  public:
   ObjectReader(const json& object, std::string path, InputProblems& problems,
                std::set<std::string> known)
       : object_(object), path_(std::move(path)), problems_(problems), known_(std::move(known)) {
+    for (const auto& a : plain_aliases())
+      if (known_.count(a.canonical)) known_.insert(a.plain);
     for (auto it = object_.begin(); it != object_.end(); ++it)
       if (!known_.count(it.key())) problems_.add(field(it.key()), "unknown field");
+  }
+
+  const PlainAlias* alias_of(const std::string& canonical) const {
+    for (const auto& a : plain_aliases())
+      if (canonical == a.canonical && known_.count(a.plain)) return &a;
+    return nullptr;
+  }
+
+  // The plain-name form of a field, if given: "thickness": "8 in". Sets
+  // `given` when the plain name is present (even if it is wrong).
+  const json* plain_form(const std::string& canonical, const PlainAlias*& alias, bool& given) {
+    alias = alias_of(canonical);
+    given = false;
+    if (!alias) return nullptr;
+    const json* v = find(alias->plain);
+    if (!v) return nullptr;
+    given = true;
+    if (find(canonical)) {
+      problems_.add(field(alias->plain), std::string("give either ") + alias->plain + " or " +
+                                             canonical + ", not both");
+      return nullptr;
+    }
+    return v;
+  }
+
+  // Converts one quantity string to the canonical unit of `alias`.
+  std::optional<double> quantity_value(const json& v, const std::string& f, const PlainAlias& alias) {
+    if (!v.is_string()) {
+      problems_.add(f, std::string("must be a quantity with a unit such as \"8 in\" or \"200 mm\", got ") +
+                           describe(v));
+      return std::nullopt;
+    }
+    std::string error;
+    auto q = parse_quantity(v.get<std::string>(), error);
+    if (!q) {
+      problems_.add(f, error);
+      return std::nullopt;
+    }
+    if (q->dimension != alias.dimension) {
+      problems_.add(f, std::string("must be ") + to_string(alias.dimension) + " (" +
+                           units_of(alias.dimension) + "), got " + to_string(q->dimension) + " \"" +
+                           v.get<std::string>() + "\"");
+      return std::nullopt;
+    }
+    return q->si / alias.unit_si;
   }
 
   std::string field(const std::string& key) const {
@@ -44,9 +117,13 @@ class ObjectReader {
   }
 
   std::optional<double> number(const std::string& key, bool required = false) {
+    const PlainAlias* alias = nullptr;
+    bool plain_given = false;
+    if (const json* p = plain_form(key, alias, plain_given))
+      return quantity_value(*p, field(alias->plain), *alias);
     const json* v = find(key);
     if (!v) {
-      if (required) problems_.add(field(key), "required");
+      if (required && !plain_given) problems_.add(field(key), "required");
       return std::nullopt;
     }
     return number_value(*v, field(key));
@@ -112,12 +189,14 @@ class ObjectReader {
     bool below = lo_open ? *v <= lo : *v < lo;
     if (below || *v > hi) {
       std::string u = unit[0] ? std::string(" ") + unit : std::string();
+      std::string name = field(key);
+      if (const PlainAlias* a = alias_of(key); a && find(a->plain)) name = field(a->plain);
       if (lo_open)
-        problems_.add(field(key), "must be greater than " + format_number(lo) + u +
+        problems_.add(name, "must be greater than " + format_number(lo) + u +
                                       " and at most " + format_number(hi) + u + ", got " +
                                       format_number(*v));
       else
-        problems_.add(field(key), "must be between " + format_number(lo) + " and " +
+        problems_.add(name, "must be between " + format_number(lo) + " and " +
                                       format_number(hi) + u + ", got " + format_number(*v));
       return std::nullopt;
     }
@@ -137,14 +216,25 @@ constexpr std::size_t max_spans = 20;
 
 void read_slab(const json& j, InputProblems& problems, SlabInput& slab) {
   ObjectReader r(j, "slab", problems, {"spans_m", "ends", "thickness_mm", "strip_width_mm"});
-  if (const json* spans = r.array("spans_m", true)) {
+  const PlainAlias* alias = nullptr;
+  bool plain_given = false;
+  const json* plain_spans = r.plain_form("spans_m", alias, plain_given);
+  const std::string spans_name = plain_spans ? "slab.spans" : "slab.spans_m";
+  const json* spans = nullptr;
+  if (plain_spans) {
+    if (plain_spans->is_array()) spans = plain_spans;
+    else problems.add(spans_name, "must be a list, got " + describe(*plain_spans));
+  } else if (!plain_given) {
+    spans = r.array("spans_m", true);
+  }
+  if (spans) {
     if (spans->empty() || spans->size() > max_spans) {
-      problems.add("slab.spans_m", "must list 1 to " + std::to_string(max_spans) +
-                                       " spans, got " + std::to_string(spans->size()));
+      problems.add(spans_name, "must list 1 to " + std::to_string(max_spans) +
+                                   " spans, got " + std::to_string(spans->size()));
     } else {
       for (std::size_t i = 0; i < spans->size(); ++i) {
-        std::string f = "slab.spans_m[" + std::to_string(i) + "]";
-        auto v = r.number_value((*spans)[i], f);
+        std::string f = spans_name + "[" + std::to_string(i) + "]";
+        auto v = plain_spans ? r.quantity_value((*spans)[i], f, *alias) : r.number_value((*spans)[i], f);
         if (!v) continue;
         if (*v <= 0.0 || *v > 30.0) {
           problems.add(f, "must be greater than 0 m and at most 30 m, got " + format_number(*v));
@@ -182,9 +272,9 @@ void read_concrete(const json& j, InputProblems& problems, ConcreteInput& c) {
   c.strength_class = r.text("class");
   c.cylinder_strength_MPa = r.number("cylinder_strength_MPa");
   bool has_class = r.find("class") != nullptr;
-  bool has_fck = r.find("cylinder_strength_MPa") != nullptr;
+  bool has_fck = r.find("cylinder_strength_MPa") != nullptr || r.find("cylinder_strength") != nullptr;
   if (has_class && has_fck)
-    problems.add("concrete", "give either class or cylinder_strength_MPa, not both");
+    problems.add("concrete", "give either class or a cylinder strength, not both");
   if (!has_class && !has_fck)
     problems.add("concrete.class", "required (or give concrete.cylinder_strength_MPa)");
   c.density_kN_m3 = r.in_range(r.number("density_kN_m3"), "density_kN_m3", 18, 30, "kN/m3");
@@ -258,8 +348,13 @@ Request request_from_json(const json& j, InputProblems& problems) {
   }
   ObjectReader r(j, "", problems,
                  {"code", "variant", "slab", "concrete", "reinforcement", "loads", "durability",
-                  "fire", "design"});
+                  "fire", "design", "report_units"});
   if (auto code = r.text("code", true)) req.code = *code;
+  if (auto units = r.text("report_units")) {
+    if (*units == "SI") req.report_units = ReportUnits::SI;
+    else if (*units == "US") req.report_units = ReportUnits::US;
+    else problems.add("report_units", "must be \"SI\" or \"US\", got \"" + *units + "\"");
+  }
   req.variant = r.text("variant");
   if (const json* s = r.object("slab", true)) read_slab(*s, problems, req.slab);
   if (const json* c = r.object("concrete", true)) read_concrete(*c, problems, req.concrete);

@@ -4,6 +4,8 @@
 #include <cstdio>
 #include <string>
 
+#include "armature/units.hpp"
+
 namespace armature {
 
 namespace {
@@ -13,7 +15,7 @@ std::string fmt(const char* format, double v) {
   return buf;
 }
 std::string pad(std::string s, std::size_t width) {
-  // Width counted in code points so that "≤" and "²" do not skew columns.
+  // Width counted in code points so that "ø" and "²" do not skew columns.
   std::size_t points = 0;
   for (unsigned char c : s)
     if ((c & 0xC0) != 0x80) ++points;
@@ -23,44 +25,83 @@ std::string pad(std::string s, std::size_t width) {
 std::string rpad(const std::string& s, std::size_t width) {
   return s.size() < width ? std::string(width - s.size(), ' ') + s : s;
 }
-// EN bars are named by diameter ("ø12"); catalogue names stay as they are ("#4").
-std::string bar_label(const BarChoice& b) {
-  const bool by_diameter = !b.bar.empty() && b.bar[0] >= '0' && b.bar[0] <= '9';
-  return (by_diameter ? "ø" : "") + b.bar + " @ " + fmt("%.0f", b.spacing_mm);
-}
 std::string util(double u) { return std::isfinite(u) ? fmt("%.2f", u) : std::string("inf"); }
+
+// Units of the summary: SI as the kernel's report units, or US customary.
+struct Show {
+  bool us;
+  const char* load_unit() const { return us ? "psf" : "kPa"; }
+  const char* moment_unit() const { return us ? "kip-ft" : "kNm"; }
+  const char* length_unit() const { return us ? "in" : "mm"; }
+  const char* area_unit() const { return us ? "in2" : "mm2"; }
+  const char* force_unit() const { return us ? "kip" : "kN"; }
+  double load(double MPa) const { return us ? MPa * 1e3 / kPa_per_psf : MPa * 1e3; }
+  double moment(double Nmm) const { return us ? Nmm * 1e-6 / kNm_per_kipft : Nmm * 1e-6; }
+  double length(double mm) const { return us ? mm / mm_per_in : mm; }
+  double area(double mm2) const { return us ? mm2 / (mm_per_in * mm_per_in) : mm2; }
+  double force(double N) const { return us ? N * 1e-3 / kN_per_kip : N * 1e-3; }
+  const char* length_format() const { return us ? "%.2f" : "%.1f"; }
+  const char* area_format() const { return us ? "%.3f" : "%.1f"; }
+  // A check value in its report unit, converted.
+  std::pair<double, std::string> check_value(double v, const std::string& unit) const {
+    if (!us) return {v, unit};
+    if (unit == "kNm") return {v / kNm_per_kipft, "kip-ft"};
+    if (unit == "kN") return {v / kN_per_kip, "kip"};
+    if (unit == "mm") return {v / mm_per_in, "in"};
+    if (unit == "mm2") return {v / (mm_per_in * mm_per_in), "in2"};
+    return {v, unit};
+  }
+  std::string bars(const BarChoice& b) const {
+    // EN bars are named by diameter ("ø12"); catalogue names stay as they are ("#4").
+    const bool by_diameter = !b.bar.empty() && b.bar[0] >= '0' && b.bar[0] <= '9';
+    return (by_diameter ? "ø" : "") + b.bar + " @ " +
+           fmt(us ? "%.1f" : "%.0f", length(b.spacing_mm));
+  }
+};
 }  // namespace
 
 std::string format_summary(const DesignRecord& r) {
+  const Show u{r.report_units == ReportUnits::US};
+  const std::string L = u.length_unit(), A = u.area_unit();
   std::string o;
   o += "armature " + std::string(version_string()) + " | " + r.code.id + " (" + r.code.variant +
-       ") | " + r.code.title + "\n\n";
-  o += "Loads      self-weight " + fmt("%.2f", r.loads.self_weight * 1e3) + " kPa, ULS " +
-       fmt("%.2f", r.loads.uls * 1e3) + " kPa [" + r.loads.combination +
-       "], quasi-permanent " + fmt("%.2f", r.loads.sls_quasi_permanent * 1e3) + " kPa\n";
-  o += "Cover      " + fmt("%.0f", r.cover_mm) + " mm\n\n";
+       ") | " + r.code.title + "\n";
+  o += u.us ? "Units      US customary (the JSON result stays SI)\n" : "";
+  o += "\n";
+  o += "Loads      self-weight " + fmt("%.2f", u.load(r.loads.self_weight)) + " " + u.load_unit() +
+       ", ULS " + fmt("%.2f", u.load(r.loads.uls)) + " " + u.load_unit() + " [" +
+       r.loads.combination + "], quasi-permanent " + fmt("%.2f", u.load(r.loads.sls_quasi_permanent)) +
+       " " + u.load_unit() + "\n";
+  o += "Cover      " + fmt(u.us ? "%.2f" : "%.0f", u.length(r.cover_mm)) + " " + L + "\n\n";
 
-  o += pad("Region", 12) + pad("face", 8) + rpad("M_Ed kNm", 9) + rpad("d mm", 8) +
-       rpad("As,req", 9) + rpad("As,min", 9) + "   " + pad("bars", 12) + rpad("As,prov mm2", 12) + "\n";
+  o += pad("Region", 12) + pad("face", 8) + rpad(std::string("M_Ed ") + u.moment_unit(), 12) +
+       rpad("d " + L, 8) + rpad("As,req", 9) + rpad("As,min", 9) + "   " + pad("bars", 14) +
+       rpad("As,prov " + A, 12) + "\n";
   for (const auto& g : r.regions)
-    o += pad(g.where, 12) + pad(to_string(g.face), 8) + rpad(fmt("%.2f", g.M_Ed * 1e-6), 9) +
-         rpad(fmt("%.1f", g.d_mm), 8) + rpad(fmt("%.1f", g.As_req_mm2), 9) +
-         rpad(fmt("%.1f", g.As_min_mm2), 9) + "   " +
-         pad(bar_label(g.bars), 12) +
-         rpad(fmt("%.1f", g.bars.As_prov_mm2), 12) + "\n";
+    o += pad(g.where, 12) + pad(to_string(g.face), 8) + rpad(fmt("%.2f", u.moment(g.M_Ed)), 12) +
+         rpad(fmt(u.length_format(), u.length(g.d_mm)), 8) +
+         rpad(fmt(u.area_format(), u.area(g.As_req_mm2)), 9) +
+         rpad(fmt(u.area_format(), u.area(g.As_min_mm2)), 9) + "   " + pad(u.bars(g.bars), 14) +
+         rpad(fmt(u.area_format(), u.area(g.bars.As_prov_mm2)), 12) + "\n";
   for (const auto& s : r.supports)
-    o += pad(s.where, 12) + "V_Ed " + fmt("%.1f", s.V_Ed * 1e-3) + " kN, resistance " +
-         fmt("%.1f", s.V_Rd * 1e-3) + " kN\n";
-  o += "Distribution bars " + bar_label(r.distribution.bars) + " (As,req " +
-       fmt("%.1f", r.distribution.As_req_mm2) + ", As,prov " +
-       fmt("%.1f", r.distribution.bars.As_prov_mm2) + " mm2)\n\n";
+    o += pad(s.where, 12) + "V_Ed " + fmt("%.1f", u.force(s.V_Ed)) + " " + u.force_unit() +
+         ", resistance " + fmt("%.1f", u.force(s.V_Rd)) + " " + u.force_unit() + "\n";
+  o += "Distribution bars " + u.bars(r.distribution.bars) + " (As,req " +
+       fmt(u.area_format(), u.area(r.distribution.As_req_mm2)) + ", As,prov " +
+       fmt(u.area_format(), u.area(r.distribution.bars.As_prov_mm2)) + " " + A + ")\n";
+  if (u.us) o += "Quantities are for the design strip width of " +
+                 fmt("%.1f", u.length(r.strip_width_mm)) + " in.\n";
+  o += "\n";
 
   o += pad("Check", 12) + pad("where", 11) + rpad("demand", 10) + rpad("capacity", 10) + "  " +
-       pad("unit", 6) + rpad("util", 6) + "  " + pad("", 5) + "clause\n";
-  for (const Check* c : r.all_checks())
-    o += pad(c->id, 12) + pad(c->where, 11) + rpad(fmt("%.3g", c->demand), 10) +
-         rpad(fmt("%.3g", c->capacity), 10) + "  " + pad(c->unit, 6) + rpad(util(c->utilisation), 6) +
+       pad("unit", 7) + rpad("util", 6) + "  " + pad("", 5) + "clause\n";
+  for (const Check* c : r.all_checks()) {
+    const auto [demand, unit] = u.check_value(c->demand, c->unit);
+    const double capacity = u.check_value(c->capacity, c->unit).first;
+    o += pad(c->id, 12) + pad(c->where, 11) + rpad(fmt("%.3g", demand), 10) +
+         rpad(fmt("%.3g", capacity), 10) + "  " + pad(unit, 7) + rpad(util(c->utilisation), 6) +
          "  " + pad(c->pass ? "ok" : "FAIL", 5) + c->clause + "\n";
+  }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " +
        util(r.max_utilisation) + " (" + r.governing_check + ", " + r.governing_where + ")\n";
   for (const auto& w : r.warnings) o += "Warning    " + w + "\n";

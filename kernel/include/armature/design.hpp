@@ -72,6 +72,8 @@ struct DesignRecord {
   std::vector<SpanRecord> spans;
   DistributionRecord distribution;
   std::vector<std::string> warnings;
+  ReportUnits report_units = ReportUnits::SI;  // of the summary, as requested
+  double strip_width_mm = 1000.0;
 
   // Every check of every region, support and span, in that order.
   std::vector<const Check*> all_checks() const;

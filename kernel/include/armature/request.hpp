@@ -55,6 +55,10 @@ struct DesignOptions {
   double redistribution_percent = 0.0;
 };
 
+// Units of the readable summary and calculation record (the JSON result is
+// always SI).
+enum class ReportUnits { SI, US };
+
 struct Request {
   std::string code;
   std::optional<std::string> variant;
@@ -65,6 +69,7 @@ struct Request {
   DurabilityInput durability;
   FireInput fire;
   DesignOptions design;
+  ReportUnits report_units = ReportUnits::SI;
 };
 
 }  // namespace armature
