@@ -9,8 +9,10 @@ mkdir -p out
 set +e
 build/bin/armature design "$request"
 status=$?
-build/bin/armature design --json "$request" >out/workshop-first-floor.result.json
+build/bin/armature design --json "$request" --report out/workshop-first-floor.html \
+  >out/workshop-first-floor.result.json
 set -e
 echo
 echo "Result JSON written to out/workshop-first-floor.result.json"
+echo "Calculation record written to out/workshop-first-floor.html"
 [ "$status" -le 1 ] || exit "$status"

@@ -12,6 +12,7 @@
 #include "armature/design.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
+#include "armature/report.hpp"
 
 namespace py = pybind11;
 using nlohmann::json;
@@ -147,6 +148,23 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
   return out;
 }
 
+// Designs `request` again and writes its calculation record to `path`; the
+// result given must be the one this request produces.
+std::string write_record(const py::handle& request, const std::string& path, const py::handle& result) {
+  json req = to_json(request, "");
+  json given = to_json(result, "");
+  const auto format = armature::record_format_for(path);
+  {
+    py::gil_scoped_release release;
+    const auto record = armature::design(armature::Registry::shared(), req);
+    if (armature::result_to_json(record) != given)
+      throw std::invalid_argument("the result does not match its request (was it changed after design?)");
+    armature::write_file_atomically(path, armature::calculation_record(record, req, format,
+                                                                       armature::today_iso()));
+  }
+  return path;
+}
+
 py::list codes() {
   py::list out;
   for (const auto& c : armature::Registry::shared().codes()) {
@@ -181,6 +199,8 @@ PYBIND11_MODULE(_core, m) {
         "Design one slab strip from a request dict; returns the result dict.");
   m.def("design_many", &design_many, py::arg("requests"), py::arg("threads") = 0,
         "Design many requests on `threads` threads (0: all cores), GIL released.");
+  m.def("write_record", &write_record, py::arg("request"), py::arg("path"), py::arg("result"),
+        "Write the calculation record (.html or .md) of a request whose result is given.");
   m.def("codes", &codes, "The loaded code plug-ins: id, title, variants, path.");
   m.def("plugin_failures", &plugin_failures, "Plug-ins that failed to load, with the reason.");
   m.attr("__version__") = armature::version_string();

@@ -1,9 +1,11 @@
 // armature: command-line front end of the design kernel.
-//   armature design FILE|- [--json]   design one slab strip
+//   armature design FILE|- [--json] [--report out.html|out.md]
+//                                     design one slab strip (and write its record)
 //   armature codes                    list the code plug-ins and load failures
 //   armature --version
 // Exit codes: 0 every check passes, 1 some check fails, 2 bad input or
 // usage (messages on stderr, nothing on stdout), 3 internal error.
+#include <filesystem>
 #include <fstream>
 #include <iostream>
 #include <iterator>
@@ -14,6 +16,7 @@
 #include "armature/design.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
+#include "armature/report.hpp"
 #include "armature/summary.hpp"
 
 namespace {
@@ -21,7 +24,7 @@ namespace {
 constexpr int exit_pass = 0, exit_fail = 1, exit_input = 2, exit_internal = 3;
 
 const char* usage =
-    "usage: armature design FILE|- [--json]\n"
+    "usage: armature design FILE|- [--json] [--report RECORD.html|RECORD.md]\n"
     "       armature codes\n"
     "       armature --version\n";
 
@@ -51,15 +54,30 @@ int list_codes() {
 }
 
 int design_command(const std::vector<std::string>& args) {
-  std::string file;
+  std::string file, report;
   bool as_json = false;
-  for (const auto& a : args) {
+  for (std::size_t i = 0; i < args.size(); ++i) {
+    const std::string& a = args[i];
     if (a == "--json") as_json = true;
-    else if (a.size() > 1 && a[0] == '-' && a != "-") return usage_error("unknown option " + a);
+    else if (a == "--report") {
+      if (i + 1 >= args.size()) return usage_error("--report needs a file name (.html or .md)");
+      report = args[++i];
+    } else if (a.size() > 1 && a[0] == '-' && a != "-") return usage_error("unknown option " + a);
     else if (file.empty()) file = a;
     else return usage_error("design takes one request file, got also " + a);
   }
   if (file.empty()) return usage_error("design needs a request file, or - for standard input");
+  if (!report.empty()) {
+    try {
+      armature::record_format_for(report);
+    } catch (const armature::InputError& e) {
+      return usage_error(e.problems().front().message);
+    }
+    std::error_code ec;
+    if (file != "-" && (std::filesystem::absolute(report) == std::filesystem::absolute(file) ||
+                        std::filesystem::equivalent(report, file, ec)))
+      return usage_error("--report would overwrite the request file " + file);
+  }
 
   std::string text;
   if (file == "-") {
@@ -88,6 +106,16 @@ int design_command(const std::vector<std::string>& args) {
   } catch (const armature::DesignError& e) {
     std::cerr << "armature: design error: " << e.what() << "\n";
     return exit_internal;
+  }
+  if (!report.empty()) {
+    try {
+      armature::write_file_atomically(
+          report, armature::calculation_record(record, request, armature::record_format_for(report),
+                                               armature::today_iso()));
+    } catch (const std::exception& e) {
+      std::cerr << "armature: cannot write the calculation record: " << e.what() << "\n";
+      return exit_internal;
+    }
   }
   std::string out = as_json ? armature::result_to_json(record).dump(2) + "\n"
                             : armature::format_summary(record);

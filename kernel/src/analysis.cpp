@@ -204,4 +204,26 @@ Envelope envelope_of(const StripModel& m, const std::vector<CaseResult>& cases) 
   return env;
 }
 
+std::vector<std::vector<DiagramPoint>> envelope_diagrams(const StripModel& m,
+                                                         const std::vector<CaseResult>& cases,
+                                                         int segments) {
+  std::vector<std::vector<DiagramPoint>> out(m.span_count());
+  for (std::size_t e = 0; e < m.span_count(); ++e) {
+    const double x0 = m.node_position_mm(e), L = m.spans_mm[e];
+    for (int k = 0; k <= segments; ++k) {
+      const double x = L * k / segments;
+      DiagramPoint p{x0 + x, -INFINITY, INFINITY, -INFINITY, INFINITY};
+      for (const auto& c : cases) {
+        const double M = c.spans[e].moment_at(x), V = c.spans[e].shear_at(x);
+        p.M_max = std::max(p.M_max, M);
+        p.M_min = std::min(p.M_min, M);
+        p.V_max = std::max(p.V_max, V);
+        p.V_min = std::min(p.V_min, V);
+      }
+      out[e].push_back(p);
+    }
+  }
+  return out;
+}
+
 }  // namespace armature

@@ -340,6 +340,14 @@ DesignRecord design_validated(const DesignCode& code, const Request& req) {
     cases.push_back(delta < 1.0 ? redistribute(model, elastic, redistributed, delta) : std::move(elastic));
   }
   const Envelope env = envelope_of(model, cases);
+  rec.diagrams = envelope_diagrams(model, cases);
+  rec.spans_mm = req.slab.spans_mm;
+  rec.uls_expressions = basis.uls;
+  rec.load_arrangements = arrangements.size();
+  rec.ends = req.slab.ends;
+  rec.redistribution_percent = req.design.redistribution_percent;
+  rec.project = req.project;
+  rec.thickness_mm = req.slab.thickness_mm;
   const double fixity = call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
   const auto demands = regions_of(model, env, fixity, delta, redistributed,
                                   rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);

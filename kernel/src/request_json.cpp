@@ -348,7 +348,14 @@ Request request_from_json(const json& j, InputProblems& problems) {
   }
   ObjectReader r(j, "", problems,
                  {"code", "variant", "slab", "concrete", "reinforcement", "loads", "durability",
-                  "fire", "design", "report_units"});
+                  "fire", "design", "report_units", "project"});
+  if (const json* p = r.object("project")) {
+    ObjectReader pr(*p, "project", problems, {"name", "reference", "designer", "checker"});
+    req.project.name = pr.text("name").value_or("");
+    req.project.reference = pr.text("reference").value_or("");
+    req.project.designer = pr.text("designer").value_or("");
+    req.project.checker = pr.text("checker").value_or("");
+  }
   if (auto code = r.text("code", true)) req.code = *code;
   if (auto units = r.text("report_units")) {
     if (*units == "SI") req.report_units = ReportUnits::SI;

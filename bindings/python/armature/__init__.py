@@ -6,17 +6,44 @@ checked and adopted by a qualified engineer under the codes that govern the
 project, local rules first.
 """
 
-from ._core import (  # noqa: F401
-    CAUTION,
-    DesignError,
-    InputError,
-    __version__,
-    codes,
-    design,
-    design_many,
-    plugin_failures,
-)
-from .tables import compare, to_frame  # noqa: F401
+import os
+
+from . import _core
+from ._core import CAUTION, DesignError, InputError, __version__, codes, plugin_failures  # noqa: F401
+
+
+class Result(dict):
+    """A design result: a dict with the contract's keys that also keeps the
+    request it came from (`result.request`), so that its calculation record
+    can be written later."""
+
+    def __init__(self, data, request):
+        super().__init__(data)
+        self.request = request
+
+
+def design(request):
+    """Design one slab strip; returns the result (a dict, see contract.md)."""
+    return Result(_core.design(request), request)
+
+
+def design_many(requests, threads=0):
+    """Design many requests on `threads` threads (0: all cores), the GIL
+    released; results in the order of the requests."""
+    requests = list(requests)
+    return [Result(r, q) for r, q in zip(_core.design_many(requests, threads), requests)]
+
+
+def report(result, path):
+    """Write the calculation record of `result` to `path` (.html or .md),
+    atomically. Returns the path."""
+    request = getattr(result, "request", None)
+    if request is None:
+        raise ValueError("report needs a result returned by armature.design (it keeps its request)")
+    return _core.write_record(request, os.fspath(path), dict(result))
+
+
+from .tables import compare, to_frame  # noqa: E402,F401
 
 __all__ = [
     "CAUTION",
@@ -27,5 +54,7 @@ __all__ = [
     "design",
     "design_many",
     "plugin_failures",
+    "report",
+    "Result",
     "to_frame",
 ]

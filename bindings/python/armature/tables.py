@@ -5,7 +5,7 @@ is evaluated in Python.
 """
 import copy
 
-from ._core import InputError, design
+from ._core import InputError
 
 
 def _pandas():
@@ -42,6 +42,8 @@ def compare(request, codes):
     only one code has, such as bar names, exposure names or a strength
     class); a field that one code refuses raises InputError naming it.
     """
+    from . import design
+
     pd = _pandas()
     rows = []
     for spec in codes:

@@ -74,4 +74,14 @@ struct Envelope {
 };
 Envelope envelope_of(const StripModel& model, const std::vector<CaseResult>& cases);
 
+// The envelope sampled along one span, for diagrams (both ends included).
+struct DiagramPoint {
+  double x_mm = 0.0;  // along the strip
+  double M_max = 0.0, M_min = 0.0;  // N·mm
+  double V_max = 0.0, V_min = 0.0;  // N
+};
+std::vector<std::vector<DiagramPoint>> envelope_diagrams(const StripModel& model,
+                                                         const std::vector<CaseResult>& cases,
+                                                         int segments_per_span = 24);
+
 }  // namespace armature

@@ -2,11 +2,13 @@
 // design record. Nothing here knows a clause; the code plug-in does.
 #pragma once
 
+#include <array>
 #include <string>
 #include <vector>
 
 #include <nlohmann/json_fwd.hpp>
 
+#include "armature/analysis.hpp"
 #include "armature/code.hpp"
 #include "armature/record.hpp"
 #include "armature/request.hpp"
@@ -74,6 +76,14 @@ struct DesignRecord {
   std::vector<std::string> warnings;
   ReportUnits report_units = ReportUnits::SI;  // of the summary, as requested
   double strip_width_mm = 1000.0;
+  double thickness_mm = 0.0;
+  std::vector<double> spans_mm;
+  std::vector<std::vector<DiagramPoint>> diagrams;  // M and V envelopes per span
+  std::vector<UlsExpression> uls_expressions;       // every expression enveloped
+  std::size_t load_arrangements = 0;                // per expression
+  std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
+  double redistribution_percent = 0.0;
+  ProjectInfo project;
 
   // Every check of every region, support and span, in that order.
   std::vector<const Check*> all_checks() const;

@@ -55,6 +55,11 @@ struct DesignOptions {
   double redistribution_percent = 0.0;
 };
 
+// Title-block information of the calculation record (all optional).
+struct ProjectInfo {
+  std::string name, reference, designer, checker;
+};
+
 // Units of the readable summary and calculation record (the JSON result is
 // always SI).
 enum class ReportUnits { SI, US };
@@ -70,6 +75,7 @@ struct Request {
   FireInput fire;
   DesignOptions design;
   ReportUnits report_units = ReportUnits::SI;
+  ProjectInfo project;
 };
 
 }  // namespace armature

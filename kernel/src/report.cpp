@@ -1,0 +1,467 @@
+// Calculation record writer. Layout and wording are our own: a plain,
+// typographic page that prints in black and white on A4 or Letter.
+#include "armature/report.hpp"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+#include <ctime>
+#include <fstream>
+#include <random>
+#include <sstream>
+
+#include <nlohmann/json.hpp>
+
+#include "armature/errors.hpp"
+
+namespace armature {
+
+namespace {
+using nlohmann::json;
+
+std::string n4(double v) {
+  if (!std::isfinite(v)) return v > 0 ? "inf" : "-";
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.4g", v);
+  return buf;
+}
+
+std::string esc(const std::string& s) {
+  std::string o;
+  for (char c : s) {
+    switch (c) {
+      case '&': o += "&amp;"; break;
+      case '<': o += "&lt;"; break;
+      case '>': o += "&gt;"; break;
+      case '"': o += "&quot;"; break;
+      default: o += c;
+    }
+  }
+  return o;
+}
+
+// Markdown table cells may not hold a bare '|'.
+std::string md(const std::string& s) {
+  std::string o;
+  for (char c : s) o += c == '|' ? std::string("\\|") : std::string(1, c);
+  return o;
+}
+
+void flatten(const json& j, const std::string& path, std::vector<std::pair<std::string, std::string>>& out) {
+  if (j.is_object()) {
+    for (auto it = j.begin(); it != j.end(); ++it)
+      flatten(it.value(), path.empty() ? it.key() : path + "." + it.key(), out);
+  } else {
+    out.push_back({path, j.is_string() ? j.get<std::string>() : j.dump()});
+  }
+}
+
+// A unit as printed after a number: nothing for a pure number.
+std::string unit_text(const std::string& unit) { return unit == "-" ? std::string() : " " + unit; }
+
+const char* outcome(const Check& c) { return c.pass ? "satisfied" : "NOT SATISFIED"; }
+
+struct Part {
+  std::string title;           // "span 1 — bottom steel"
+  const RegionRecord* region;  // or null
+  std::vector<const Check*> checks;
+};
+
+std::vector<Part> parts_of(const DesignRecord& r) {
+  std::vector<Part> parts;
+  for (const auto& g : r.regions) {
+    Part p{g.where + (g.face == Face::bottom ? ": bottom steel (sagging)" : ": top steel (hogging)"), &g, {}};
+    for (const auto& c : g.checks) p.checks.push_back(&c);
+    parts.push_back(std::move(p));
+  }
+  for (const auto& s : r.supports) {
+    Part p{s.where + ": shear at the support", nullptr, {}};
+    for (const auto& c : s.checks) p.checks.push_back(&c);
+    parts.push_back(std::move(p));
+  }
+  for (const auto& s : r.spans) {
+    if (s.checks.empty()) continue;
+    Part p{s.where + ": span checks", nullptr, {}};
+    for (const auto& c : s.checks) p.checks.push_back(&c);
+    parts.push_back(std::move(p));
+  }
+  return parts;
+}
+
+// ---- SVG --------------------------------------------------------------------
+struct Frame {
+  double width = 660, height = 190, pad_x = 30, pad_y = 28;
+  double length = 1;   // mm
+  double extent = 1;   // largest |value|
+  double sx(double x_mm) const { return pad_x + (width - 2 * pad_x) * x_mm / length; }
+  // Value axis: `down` positive draws positive values below the axis.
+  double sy(double v, bool down) const {
+    const double half = (height - 2 * pad_y) / 2;
+    return pad_y + half + (down ? 1 : -1) * half * v / extent;
+  }
+};
+
+std::string polyline(const std::vector<std::pair<double, double>>& pts, const char* style) {
+  std::string o = "<polyline fill=\"none\" " + std::string(style) + " points=\"";
+  for (const auto& [x, y] : pts) o += n4(x) + "," + n4(y) + " ";
+  return o + "\"/>";
+}
+
+std::string supports_svg(const DesignRecord& r, const Frame& f) {
+  std::string o;
+  double x = 0;
+  const double y0 = f.sy(0, true);
+  for (std::size_t j = 0; j <= r.spans_mm.size(); ++j) {
+    const bool free = (j == 0 && r.ends[0] == EndSupport::free) ||
+                      (j == r.spans_mm.size() && r.ends[1] == EndSupport::free);
+    const bool fixed = (j == 0 && r.ends[0] == EndSupport::fixed) ||
+                       (j == r.spans_mm.size() && r.ends[1] == EndSupport::fixed);
+    const double px = f.sx(x);
+    if (fixed)
+      o += "<line x1=\"" + n4(px) + "\" y1=\"" + n4(y0 - 9) + "\" x2=\"" + n4(px) + "\" y2=\"" +
+           n4(y0 + 9) + "\" stroke=\"#000\" stroke-width=\"3\"/>";
+    else if (!free)
+      o += "<polygon points=\"" + n4(px) + "," + n4(y0) + " " + n4(px - 5) + "," + n4(y0 + 8) + " " +
+           n4(px + 5) + "," + n4(y0 + 8) + "\" fill=\"none\" stroke=\"#000\"/>";
+    if (j < r.spans_mm.size()) x += r.spans_mm[j];
+  }
+  return o;
+}
+
+std::string diagram_svg(const DesignRecord& r, bool moment) {
+  Frame f;
+  for (double L : r.spans_mm) f.length += L;
+  f.length -= 1;
+  f.extent = 1e-9;
+  for (const auto& span : r.diagrams)
+    for (const auto& p : span)
+      f.extent = std::max({f.extent, std::abs(moment ? p.M_max : p.V_max),
+                           std::abs(moment ? p.M_min : p.V_min)});
+  const bool down = moment;  // sagging drawn below the axis, on the tension side
+  std::string o = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" + n4(f.width) + "\" height=\"" +
+                  n4(f.height) + "\" viewBox=\"0 0 " + n4(f.width) + " " + n4(f.height) +
+                  "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" aria-label=\"" +
+                  (moment ? "bending moment envelope" : "shear force envelope") + "\">";
+  o += "<text x=\"4\" y=\"12\">" + std::string(moment ? "Bending moment envelope, kNm (sagging below the axis)"
+                                                      : "Shear force envelope, kN") + "</text>";
+  o += "<line x1=\"" + n4(f.sx(0)) + "\" y1=\"" + n4(f.sy(0, down)) + "\" x2=\"" + n4(f.sx(f.length)) +
+       "\" y2=\"" + n4(f.sy(0, down)) + "\" stroke=\"#000\" stroke-width=\"1.2\"/>";
+  o += supports_svg(r, f);
+  for (const auto& span : r.diagrams) {
+    std::vector<std::pair<double, double>> hi, lo;
+    for (const auto& p : span) {
+      hi.push_back({f.sx(p.x_mm), f.sy(moment ? p.M_max : p.V_max, down)});
+      lo.push_back({f.sx(p.x_mm), f.sy(moment ? p.M_min : p.V_min, down)});
+    }
+    o += polyline(hi, "stroke=\"#000\" stroke-width=\"1\"");
+    o += polyline(lo, "stroke=\"#000\" stroke-width=\"1\" stroke-dasharray=\"4 2\"");
+  }
+  if (moment) {
+    for (const auto& g : r.regions) {
+      const double v = g.face == Face::bottom ? g.M_Ed : -g.M_Ed;
+      const double px = f.sx(g.x_mm), py = f.sy(v, down);
+      o += "<circle cx=\"" + n4(px) + "\" cy=\"" + n4(py) + "\" r=\"2.5\" fill=\"#000\"/>";
+      o += "<text x=\"" + n4(px + 3) + "\" y=\"" + n4(g.face == Face::bottom ? py + 12 : py - 5) +
+           "\">" + esc(n4(g.M_Ed * 1e-6)) + "</text>";
+    }
+  } else {
+    for (const auto& s : r.supports) {
+      const std::size_t j = static_cast<std::size_t>(std::stoi(s.where.substr(8))) - 1;
+      double x = 0;
+      for (std::size_t k = 0; k < j && k < r.spans_mm.size(); ++k) x += r.spans_mm[k];
+      const double px = f.sx(x), py = f.sy(s.V_Ed, down);
+      o += "<circle cx=\"" + n4(px) + "\" cy=\"" + n4(py) + "\" r=\"2.5\" fill=\"#000\"/>";
+      o += "<text x=\"" + n4(px + 3) + "\" y=\"" + n4(py - 4) + "\">" + esc(n4(s.V_Ed * 1e-3)) + "</text>";
+    }
+  }
+  o += "<text x=\"4\" y=\"" + n4(f.height - 4) + "\">solid: largest, dashed: smallest of " +
+       std::to_string(r.uls_expressions.size() * r.load_arrangements) +
+       " load cases; dots: design values</text>";
+  return o + "</svg>";
+}
+
+// Cross-section of the strip, to scale, with the region's bars.
+std::string section_svg(const DesignRecord& r, const RegionRecord& g) {
+  const double b = r.strip_width_mm, h = r.thickness_mm;
+  const double scale = std::min(500.0 / b, 160.0 / h);
+  const double W = b * scale, H = h * scale, ox = 60, oy = 24;
+  const double phi = g.bars.diameter_mm, c = g.cover_mm;
+  const double yc = g.face == Face::bottom ? h - c - phi / 2 : c + phi / 2;  // bar centre from top
+  std::string o = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" + n4(W + 200) + "\" height=\"" +
+                  n4(H + 48) + "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" "
+                  "aria-label=\"cross-section of the strip at " + esc(g.where) + "\">";
+  o += "<rect x=\"" + n4(ox) + "\" y=\"" + n4(oy) + "\" width=\"" + n4(W) + "\" height=\"" + n4(H) +
+       "\" fill=\"none\" stroke=\"#000\" stroke-width=\"1.2\"/>";
+  for (double x = g.bars.spacing_mm / 2; x < b; x += g.bars.spacing_mm)
+    o += "<circle cx=\"" + n4(ox + x * scale) + "\" cy=\"" + n4(oy + yc * scale) + "\" r=\"" +
+         n4(std::max(phi / 2 * scale, 1.5)) + "\" fill=\"#000\"/>";
+  const double xd = ox + W + 12;
+  const double face_y = g.face == Face::bottom ? oy : oy + H;  // compression face
+  const double bar_y = oy + yc * scale;
+  const double tension_face = g.face == Face::bottom ? oy + H : oy;
+  o += "<line x1=\"" + n4(xd) + "\" y1=\"" + n4(face_y) + "\" x2=\"" + n4(xd) + "\" y2=\"" + n4(bar_y) +
+       "\" stroke=\"#000\"/>";
+  o += "<text x=\"" + n4(xd + 4) + "\" y=\"" + n4((face_y + bar_y) / 2 + 3) + "\">d = " + n4(g.d_mm) +
+       " mm</text>";
+  const double bar_face = oy + (g.face == Face::bottom ? h - c : c) * scale;
+  o += "<line x1=\"" + n4(xd + 60) + "\" y1=\"" + n4(tension_face) + "\" x2=\"" + n4(xd + 60) +
+       "\" y2=\"" + n4(bar_face) + "\" stroke=\"#000\" stroke-width=\"2\"/>";
+  o += "<text x=\"" + n4(xd + 66) + "\" y=\"" + n4((tension_face + bar_face) / 2 + 3) + "\">cover " +
+       n4(c) + " mm</text>";
+  o += "<text x=\"" + n4(ox) + "\" y=\"14\">b = " + n4(b) + " mm, h = " + n4(h) + " mm, bars " +
+       esc(g.bars.bar) + " at " + n4(g.bars.spacing_mm) + " mm (" +
+       (g.face == Face::bottom ? "bottom" : "top") + "), to scale</text>";
+  o += "<text x=\"4\" y=\"" + n4(oy + H / 2 + 3) + "\">h = " + n4(h) + "</text>";
+  return o + "</svg>";
+}
+
+// ---- shared content ------------------------------------------------------------
+struct Title {
+  std::vector<std::pair<std::string, std::string>> rows;
+};
+
+Title title_of(const DesignRecord& r, const json& request, const std::string& date) {
+  Title t;
+  auto add = [&](const std::string& k, const std::string& v) {
+    if (!v.empty()) t.rows.push_back({k, v});
+  };
+  add("Project", r.project.name);
+  add("Reference", r.project.reference);
+  std::string strip = std::to_string(r.spans_mm.size()) + (r.spans_mm.size() == 1 ? " span" : " spans") + ": ";
+  for (std::size_t i = 0; i < r.spans_mm.size(); ++i) strip += (i ? ", " : "") + n4(r.spans_mm[i] / 1000) + " m";
+  strip += "; ends " + std::string(to_string(r.ends[0])) + " / " + to_string(r.ends[1]) + "; h = " +
+           n4(r.thickness_mm) + " mm; strip width " + n4(r.strip_width_mm) + " mm";
+  add("Slab strip", strip);
+  add("Design code", r.code.id + " (" + r.code.variant + "): " + r.code.title);
+  add("armature version", version_string());
+  add("Date", date);
+  add("Request fingerprint", request_fingerprint(request) + " (FNV-1a 64 of the request JSON)");
+  add("Designer", r.project.designer.empty() ? "—" : r.project.designer);
+  add("Checker", r.project.checker.empty() ? "—" : r.project.checker);
+  add("Outcome", std::string(r.pass ? "every check satisfied" : "SOME CHECKS NOT SATISFIED") +
+                     "; largest utilisation " + n4(r.max_utilisation) + " (" + r.governing_check + ", " +
+                     r.governing_where + ")");
+  return t;
+}
+
+std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord& r) {
+  std::vector<std::pair<std::string, std::string>> rows;
+  rows.push_back({"Self-weight", n4(r.loads.self_weight * 1e3) + " kPa"});
+  rows.push_back({"Gk (self-weight + superimposed)", n4(r.loads.Gk * 1e3) + " kPa"});
+  rows.push_back({"Qk (imposed)", n4(r.loads.Qk * 1e3) + " kPa"});
+  for (const auto& e : r.uls_expressions)
+    rows.push_back({"ULS " + e.label, "loaded span " + n4(e.gamma_G_loaded) + " Gk + " + n4(e.gamma_Q) +
+                                          " Qk = " + n4((e.gamma_G_loaded * r.loads.Gk + e.gamma_Q * r.loads.Qk) * 1e3) +
+                                          " kPa; unloaded span " + n4(e.gamma_G_unloaded) + " Gk = " +
+                                          n4(e.gamma_G_unloaded * r.loads.Gk * 1e3) + " kPa"});
+  rows.push_back({"Governing ULS load", n4(r.loads.uls * 1e3) + " kPa [" + r.loads.combination + "]"});
+  rows.push_back({"Quasi-permanent load", n4(r.loads.sls_quasi_permanent * 1e3) + " kPa"});
+  rows.push_back({"Load arrangements", std::to_string(r.load_arrangements) + " per ULS expression (code's pattern rules)"});
+  if (r.redistribution_percent > 0)
+    rows.push_back({"Moment redistribution", n4(r.redistribution_percent) + " % at interior supports"});
+  return rows;
+}
+
+std::vector<std::pair<std::string, std::string>> region_rows(const RegionRecord& g) {
+  return {{"Design moment M_Ed", n4(g.M_Ed * 1e-6) + " kNm at x = " + n4(g.x_mm / 1000) + " m"},
+          {"Cover", n4(g.cover_mm) + " mm"},
+          {"Effective depth d", n4(g.d_mm) + " mm"},
+          {"As,req", n4(g.As_req_mm2) + " mm2"},
+          {"As,min", n4(g.As_min_mm2) + " mm2"},
+          {"As,max", n4(g.As_max_mm2) + " mm2"},
+          {"Bars", g.bars.bar + " at " + n4(g.bars.spacing_mm) + " mm, As,prov = " + n4(g.bars.As_prov_mm2) + " mm2"}};
+}
+
+const char* css =
+    "body{font-family:Georgia,'Times New Roman',serif;color:#000;background:#fff;max-width:180mm;"
+    "margin:10mm auto;padding:0 4mm;font-size:10.5pt;line-height:1.35}"
+    "h1{font-size:16pt;margin:0 0 4pt}h2{font-size:12.5pt;border-bottom:1pt solid #000;margin:16pt 0 6pt}"
+    "h3{font-size:11pt;margin:12pt 0 4pt}h4{font-size:10.5pt;font-style:italic;margin:8pt 0 2pt}"
+    "table{border-collapse:collapse;width:100%;margin:2pt 0 6pt}td,th{padding:1.5pt 4pt;text-align:left;"
+    "vertical-align:top;border-bottom:0.5pt solid #aaa}th{border-bottom:1pt solid #000}"
+    ".num{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}"
+    ".title td{border:none;padding:1pt 4pt}.title td:first-child{width:34%;font-variant:small-caps}"
+    ".caution{border:1pt solid #000;padding:4pt 6pt;margin:8pt 0}"
+    ".steps td{border:none;padding:0.5pt 4pt}.steps td.clause{font-size:9pt;color:#333}"
+    ".verdict{margin:2pt 0 8pt}.no{font-weight:bold;text-decoration:underline}"
+    "svg{display:block;margin:4pt 0;max-width:100%;height:auto}"
+    "@page{margin:12mm}@media print{body{margin:0 auto}h2,h3,h4{break-after:avoid}.check{break-inside:avoid}}";
+
+std::string html_record(const DesignRecord& r, const json& request, const std::string& date) {
+  std::string o = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>";
+  o += esc("Calculation record: " + (r.project.reference.empty() ? r.code.id : r.project.reference)) +
+       "</title>\n<style>" + css + "</style>\n</head>\n<body>\n";
+  o += "<h1>Calculation record: one-way slab strip</h1>\n<table class=\"title\">\n";
+  for (const auto& [k, v] : title_of(r, request, date).rows)
+    o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
+  o += "</table>\n<p class=\"caution\"><strong>Caution.</strong> " + esc(caution_text) + "</p>\n";
+
+  o += "<h2>1 Inputs</h2>\n<table>\n<tr><th>field</th><th>value</th></tr>\n";
+  std::vector<std::pair<std::string, std::string>> inputs;
+  flatten(request, "", inputs);
+  for (const auto& [k, v] : inputs) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
+  o += "</table>\n";
+
+  o += "<h2>2 Actions and combinations</h2>\n<table>\n";
+  for (const auto& [k, v] : action_rows(r)) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
+  o += "</table>\n";
+
+  o += "<h2>3 Analysis</h2>\n<p>Elastic continuous beam, uniform stiffness, knife-edge supports; moments and "
+       "shears at support centrelines, for the strip width of " + n4(r.strip_width_mm) + " mm.</p>\n";
+  o += diagram_svg(r, true) + "\n" + diagram_svg(r, false) + "\n";
+
+  o += "<h2>4 Design of regions, supports and spans</h2>\n";
+  for (const auto& part : parts_of(r)) {
+    o += "<h3>" + esc(part.title) + "</h3>\n";
+    if (part.region) {
+      o += "<table>\n";
+      for (const auto& [k, v] : region_rows(*part.region))
+        o += "<tr><td>" + esc(k) + "</td><td class=\"num\">" + esc(v) + "</td></tr>\n";
+      o += "</table>\n" + section_svg(r, *part.region) + "\n";
+    }
+    for (const Check* c : part.checks) {
+      o += "<div class=\"check\">\n<h4>" + esc(c->id) + " at " + esc(c->where) + ": " + esc(c->clause) + "</h4>\n";
+      o += "<table class=\"steps\">\n";
+      for (const auto& s : c->steps)
+        o += "<tr><td>" + esc(s.symbol) + "</td><td>= " + esc(s.expression) + "</td><td>= " +
+             esc(s.substituted) + "</td><td class=\"num\">= " + esc(n4(s.result) + unit_text(s.unit)) +
+             "</td><td class=\"clause\">" + esc(s.clause) + "</td></tr>\n";
+      o += "</table>\n<p class=\"verdict\">demand " + esc(n4(c->demand) + unit_text(c->unit)) +
+           " against capacity " + esc(n4(c->capacity) + unit_text(c->unit)) + ": utilisation " +
+           esc(n4(c->utilisation)) + ", <span" + (c->pass ? "" : " class=\"no\"") + ">" + outcome(*c) +
+           "</span></p>\n</div>\n";
+    }
+  }
+  o += "<h3>Distribution bars</h3>\n<p>" + esc(r.distribution.bars.bar) + " at " +
+       n4(r.distribution.bars.spacing_mm) + " mm: As,prov " + n4(r.distribution.bars.As_prov_mm2) +
+       " mm2 against As,req " + n4(r.distribution.As_req_mm2) + " mm2.</p>\n";
+
+  o += "<h2>5 Summary of checks</h2>\n<table>\n<tr><th>check</th><th>where</th><th>clause</th>"
+       "<th class=\"num\">demand</th><th class=\"num\">capacity</th><th>unit</th><th class=\"num\">"
+       "utilisation</th><th>outcome</th></tr>\n";
+  for (const Check* c : r.all_checks())
+    o += "<tr><td>" + esc(c->id) + "</td><td>" + esc(c->where) + "</td><td>" + esc(c->clause) +
+         "</td><td class=\"num\">" + esc(n4(c->demand)) + "</td><td class=\"num\">" + esc(n4(c->capacity)) +
+         "</td><td>" + esc(c->unit) + "</td><td class=\"num\">" + esc(n4(c->utilisation)) + "</td><td" +
+         (c->pass ? "" : " class=\"no\"") + ">" + (c->pass ? "ok" : "fails") + "</td></tr>\n";
+  o += "</table>\n";
+
+  o += "<h2>6 Warnings</h2>\n";
+  if (r.warnings.empty()) o += "<p>None.</p>\n";
+  else {
+    o += "<ul>\n";
+    for (const auto& w : r.warnings) o += "<li>" + esc(w) + "</li>\n";
+    o += "</ul>\n";
+  }
+  o += "<p class=\"caution\"><strong>Caution.</strong> " + esc(caution_text) + "</p>\n</body>\n</html>\n";
+  return o;
+}
+
+std::string markdown_record(const DesignRecord& r, const json& request, const std::string& date) {
+  std::string o = "# Calculation record: one-way slab strip\n\n";
+  for (const auto& [k, v] : title_of(r, request, date).rows) o += "- **" + k + ":** " + v + "\n";
+  o += "\n> **Caution.** " + std::string(caution_text) + "\n\n## 1 Inputs\n\n| field | value |\n|---|---|\n";
+  std::vector<std::pair<std::string, std::string>> inputs;
+  flatten(request, "", inputs);
+  for (const auto& [k, v] : inputs) o += "| " + md(k) + " | " + md(v) + " |\n";
+  o += "\n## 2 Actions and combinations\n\n| item | value |\n|---|---|\n";
+  for (const auto& [k, v] : action_rows(r)) o += "| " + md(k) + " | " + md(v) + " |\n";
+  o += "\n## 3 Analysis\n\nEnvelopes of the strip (kNm, kN), sampled along each span:\n\n"
+       "| x m | M max | M min | V max | V min |\n|---:|---:|---:|---:|---:|\n";
+  for (const auto& span : r.diagrams)
+    for (const auto& p : span)
+      o += "| " + n4(p.x_mm / 1000) + " | " + n4(p.M_max * 1e-6) + " | " + n4(p.M_min * 1e-6) + " | " +
+           n4(p.V_max * 1e-3) + " | " + n4(p.V_min * 1e-3) + " |\n";
+  o += "\n## 4 Design of regions, supports and spans\n";
+  for (const auto& part : parts_of(r)) {
+    o += "\n### " + part.title + "\n\n";
+    if (part.region) {
+      for (const auto& [k, v] : region_rows(*part.region)) o += "- " + k + ": " + v + "\n";
+      o += "- Section: h = " + n4(r.thickness_mm) + " mm, " +
+           (part.region->face == Face::bottom ? "bottom" : "top") + " bars at d = " +
+           n4(part.region->d_mm) + " mm from the compression face\n";
+    }
+    for (const Check* c : part.checks) {
+      o += "\n**" + c->id + " at " + c->where + "** (" + c->clause + ")\n\n";
+      for (const auto& s : c->steps)
+        o += "- " + s.symbol + " = " + s.expression + " = " + s.substituted + " = " + n4(s.result) +
+             unit_text(s.unit) + (s.clause.empty() ? "" : " (" + s.clause + ")") + "\n";
+      o += "- demand " + n4(c->demand) + unit_text(c->unit) + " against capacity " + n4(c->capacity) +
+           unit_text(c->unit) + ": utilisation " + n4(c->utilisation) + ", " + outcome(*c) + "\n";
+    }
+  }
+  o += "\n### Distribution bars\n\n" + r.distribution.bars.bar + " at " + n4(r.distribution.bars.spacing_mm) +
+       " mm: As,prov " + n4(r.distribution.bars.As_prov_mm2) + " mm2 against As,req " +
+       n4(r.distribution.As_req_mm2) + " mm2.\n";
+  o += "\n## 5 Summary of checks\n\n| check | where | clause | demand | capacity | unit | utilisation | outcome |\n"
+       "|---|---|---|---:|---:|---|---:|---|\n";
+  for (const Check* c : r.all_checks())
+    o += "| " + c->id + " | " + c->where + " | " + md(c->clause) + " | " + n4(c->demand) + " | " +
+         n4(c->capacity) + " | " + c->unit + " | " + n4(c->utilisation) + " | " + (c->pass ? "ok" : "fails") + " |\n";
+  o += "\n## 6 Warnings\n\n";
+  if (r.warnings.empty()) o += "None.\n";
+  for (const auto& w : r.warnings) o += "- " + w + "\n";
+  o += "\n> **Caution.** " + std::string(caution_text) + "\n";
+  return o;
+}
+}  // namespace
+
+RecordFormat record_format_for(const std::filesystem::path& path) {
+  const std::string ext = path.extension().string();
+  if (ext == ".html" || ext == ".htm") return RecordFormat::html;
+  if (ext == ".md") return RecordFormat::markdown;
+  throw InputError({{"report", "the record is written as .html or .md, got '" + path.string() + "'"}});
+}
+
+std::string calculation_record(const DesignRecord& record, const json& request, RecordFormat format,
+                               const std::string& date) {
+  return format == RecordFormat::html ? html_record(record, request, date)
+                                      : markdown_record(record, request, date);
+}
+
+std::string request_fingerprint(const json& request) {
+  std::uint64_t h = 14695981039346656037ull;
+  for (unsigned char c : request.dump()) {
+    h ^= c;
+    h *= 1099511628211ull;
+  }
+  char buf[17];
+  std::snprintf(buf, sizeof buf, "%016llx", static_cast<unsigned long long>(h));
+  return buf;
+}
+
+std::string today_iso() {
+  const std::time_t t = std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
+  std::tm tm{};
+  gmtime_r(&t, &tm);
+  char buf[16];
+  std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
+  return buf;
+}
+
+void write_file_atomically(const std::filesystem::path& path, const std::string& content) {
+  namespace fs = std::filesystem;
+  const fs::path dir = path.has_parent_path() ? path.parent_path() : fs::path(".");
+  std::random_device rd;
+  const fs::path tmp = dir / ("." + path.filename().string() + ".tmp" + std::to_string(rd()));
+  {
+    std::ofstream out(tmp, std::ios::binary | std::ios::trunc);
+    if (!out) throw std::runtime_error("cannot write " + tmp.string());
+    out << content;
+    out.flush();
+    if (!out) {
+      std::error_code ec;
+      fs::remove(tmp, ec);
+      throw std::runtime_error("cannot write " + tmp.string());
+    }
+  }
+  std::error_code ec;
+  fs::rename(tmp, path, ec);
+  if (ec) {
+    fs::remove(tmp, ec);
+    throw std::runtime_error("cannot replace " + path.string() + ": " + ec.message());
+  }
+}
+
+}  // namespace armature
