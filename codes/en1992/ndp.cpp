@@ -1,6 +1,7 @@
 #include "ndp.hpp"
 
 #include <algorithm>
+#include <cstdio>
 #include <cmath>
 #include <fstream>
 #include <map>
@@ -40,6 +41,12 @@ const std::map<std::string, NumberSpec>& number_specs() {
   return specs;
 }
 
+std::string short_number(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%g", v);
+  return buf;
+}
+
 bool is_crack_width_column(double w) {
   return std::abs(w - 0.2) < 1e-9 || std::abs(w - 0.3) < 1e-9 || std::abs(w - 0.4) < 1e-9;
 }
@@ -73,8 +80,8 @@ Ndp read_ndp_file(const std::filesystem::path& file) {
     if (!v.is_number()) fail(key, "must be a number");
     const double x = v.get<double>();
     if (!(x >= spec.lo && x <= spec.hi))
-      fail(key, "must be between " + std::to_string(spec.lo) + " and " + std::to_string(spec.hi) +
-                    ", got " + std::to_string(x));
+      fail(key, "must be between " + short_number(spec.lo) + " and " + short_number(spec.hi) +
+                    ", got " + short_number(x));
     ndp.*spec.member = x;
   }
   for (const auto& key : text_keys) {

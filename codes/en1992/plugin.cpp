@@ -1,6 +1,9 @@
 // The EN 1992-1-1 code plug-in: variants are NDP data files; every check
 // is drawn from the clause functions of rules.hpp.
+#include <algorithm>
 #include <cmath>
+#include <cstring>
+#include <filesystem>
 #include <cstdio>
 #include <numbers>
 
@@ -479,6 +482,10 @@ class Code final : public DesignCode {
   Ndp ndp_;
 };
 
+// A firm's own national-annex variant: a file <name>.en1992.json in any
+// directory of the search path, with every NDP of the shipped files.
+constexpr const char* data_variant_suffix = ".en1992.json";
+
 class Factory final : public CodeFactory {
  public:
   explicit Factory(const PluginContext& context)
@@ -486,7 +493,9 @@ class Factory final : public CodeFactory {
     if (variants_.empty())
       throw std::invalid_argument("no NDP files in " +
                                   (context.plugin_file.parent_path() / "en1992").string());
+    for (const auto& dir : context.search_dirs) add_data_variants(dir);
   }
+  std::vector<std::pair<std::string, std::string>> data_problems() const override { return problems_; }
   std::string id() const override { return code_id; }
   std::string title() const override { return "Eurocode 2: design of concrete structures, part 1-1 (with EN 1992-1-2 fire, EN 1990 actions)"; }
   std::string edition() const override { return "EN 1992-1-1:2004+AC:2010"; }
@@ -503,7 +512,38 @@ class Factory final : public CodeFactory {
   }
 
  private:
+  void add_data_variants(const std::filesystem::path& dir) {
+    std::error_code ec;
+    std::vector<std::filesystem::path> files;
+    for (const auto& entry : std::filesystem::directory_iterator(dir, ec)) {
+      const std::string name = entry.path().filename().string();
+      if (name.size() > std::strlen(data_variant_suffix) &&
+          name.compare(name.size() - std::strlen(data_variant_suffix), std::string::npos,
+                       data_variant_suffix) == 0)
+        files.push_back(entry.path());
+    }
+    std::sort(files.begin(), files.end());
+    for (const auto& f : files) {
+      try {
+        Ndp ndp = read_ndp_file(f);
+        const bool taken = std::any_of(variants_.begin(), variants_.end(),
+                                       [&](const Ndp& v) { return v.variant == ndp.variant; });
+        if (taken)
+          problems_.push_back({f.string(), "variant: '" + ndp.variant +
+                                               "' is already defined; this file is ignored"});
+        else
+          variants_.push_back(std::move(ndp));
+      } catch (const std::exception& e) {
+        std::string reason = e.what();
+        const std::string prefix = f.string() + ": ";
+        if (reason.rfind(prefix, 0) == 0) reason = reason.substr(prefix.size());
+        problems_.push_back({f.string(), reason});
+      }
+    }
+  }
+
   std::vector<Ndp> variants_;
+  std::vector<std::pair<std::string, std::string>> problems_;
 };
 
 std::unique_ptr<CodeFactory> create_factory(const PluginContext& context) {

@@ -15,6 +15,9 @@
 #ifndef ARMATURE_BUILD_CODE_DIR
 #define ARMATURE_BUILD_CODE_DIR ""
 #endif
+#ifndef ARMATURE_BUILD_LIB_DIR
+#define ARMATURE_BUILD_LIB_DIR ""
+#endif
 
 namespace armature {
 
@@ -121,6 +124,12 @@ void Registry::Impl::load_file(const fs::path& file) {
       return;
     }
   }
+  try {
+    for (const auto& [data_file, reason] : plugin.factory->data_problems())
+      failures.push_back({data_file, reason});
+  } catch (const std::exception& e) {
+    failures.push_back({file.string(), std::string("plug-in failed to list its data problems: ") + e.what()});
+  }
   infos.push_back(plugin.info);
   plugins.push_back(std::move(plugin));
 }
@@ -163,8 +172,12 @@ std::vector<fs::path> Registry::default_search_dirs() {
   fs::path here = boost::dll::this_line_location(ec);
   fs::path installed = here.parent_path() / "armature" / "codes";
   if (!ec && fs::is_directory(installed, ec)) dirs.push_back(installed);
+  // The build tree, only for the kernel library of that build tree (an
+  // installed kernel never reaches back into the tree it was built in).
   fs::path build_tree = ARMATURE_BUILD_CODE_DIR;
-  if (!build_tree.empty() && fs::is_directory(build_tree, ec)) dirs.push_back(build_tree);
+  const bool in_build_tree =
+      !ec && fs::weakly_canonical(here.parent_path(), ec) == fs::weakly_canonical(ARMATURE_BUILD_LIB_DIR, ec);
+  if (in_build_tree && !build_tree.empty() && fs::is_directory(build_tree, ec)) dirs.push_back(build_tree);
   return dirs;
 }
 

@@ -19,7 +19,7 @@ std::string pad(std::string s, std::size_t width) {
   std::size_t points = 0;
   for (unsigned char c : s)
     if ((c & 0xC0) != 0x80) ++points;
-  if (points < width) s.append(width - points, ' ');
+  s.append(points < width ? width - points : 1, ' ');
   return s;
 }
 std::string rpad(const std::string& s, std::size_t width) {

@@ -9,6 +9,7 @@
 #include <filesystem>
 #include <memory>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include <boost/dll/alias.hpp>
@@ -38,6 +39,9 @@ class CodeFactory {
   // Throws std::invalid_argument for an unknown variant.
   virtual std::shared_ptr<const DesignCode> make(const std::string& variant,
                                                  const CodeHost& host) const = 0;
+  // Data files the plug-in found but refused (file, reason); the registry
+  // lists them with the load failures, and the plug-in works without them.
+  virtual std::vector<std::pair<std::string, std::string>> data_problems() const { return {}; }
 };
 
 struct PluginEntry {

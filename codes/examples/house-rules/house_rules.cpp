@@ -1,0 +1,143 @@
+// Example house rules over EN 1992-1-1 with the UK National Annex. The
+// plug-in opens EN 1992 (UK) through the registry and wraps it: every EN
+// check stays as EN computes it, and the house tightens or adds:
+//   HR-1  allowed span/depth ratio × 0.9
+//   HR-2  bar spacing ≤ 200 mm
+//   HR-3  slab thickness ≥ 175 mm (acoustic separation between floors)
+//   HR-4  nominal cover ≥ 30 mm
+// No EN 1992 rule is copied here.
+#include <algorithm>
+#include <string>
+
+#include <armature/plugin.hpp>
+#include <armature/steps.hpp>
+
+namespace house {
+namespace {
+using namespace armature;
+
+constexpr const char* code_id = "HOUSE-RULES";
+constexpr const char* variant_name = "EN1992-UK";
+constexpr double deflection_factor = 0.9;  // HR-1
+constexpr double max_spacing = 200.0;      // HR-2, mm
+constexpr double min_thickness = 175.0;    // HR-3, mm
+constexpr double min_cover = 30.0;         // HR-4, mm
+
+Check scaled_deflection(Check c) {
+  const double allowed = c.capacity * deflection_factor;
+  std::vector<Step> steps = std::move(c.steps);
+  steps.push_back({"l/d allowed (house)", "EN allowed l/d × 0.9", step_number(c.capacity) + " × 0.9",
+                   allowed, "-", "house rule HR-1"});
+  return make_check(c.id, c.where, c.clause + "; house rule HR-1", c.demand, allowed, c.unit,
+                    std::move(steps));
+}
+
+class Checker final : public SlabChecker {
+ public:
+  Checker(std::unique_ptr<SlabChecker> inner, std::unique_ptr<SlabChecker> inner_min_cover,
+          const Request& req)
+      : inner_(std::move(inner)), min_cover_(std::move(inner_min_cover)), req_(req) {}
+
+  LoadBasis load_basis() const override { return inner_->load_basis(); }
+  std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
+    return inner_->load_arrangements(n);
+  }
+  double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
+  std::vector<BarOption> bar_options() const override { return inner_->bar_options(); }
+  double max_spacing_mm(const RegionDemand& g) const override {
+    return std::min(inner_->max_spacing_mm(g), max_spacing);
+  }
+
+  RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
+                             bool with_steps) const override {
+    RegionOutcome out = inner_->check_region(g, bar, s, with_steps);
+    // HR-4: where EN's own cover is less than 30 mm, design with 30 mm
+    // given (EN then checks that 30 mm meets its own minimum).
+    if (min_cover_ && out.cover_mm < min_cover)
+      out = min_cover_->check_region(g, bar, s, with_steps);
+    for (auto& c : out.span_checks)
+      if (c.id == "deflection") c = scaled_deflection(std::move(c));
+    out.checks.push_back(run_check("spacing", [&] {
+      return make_check("spacing", g.where, "house rule HR-2", s, max_spacing, "mm",
+                        {{"s_max", "house limit", "200", max_spacing, "mm", "house rule HR-2"}});
+    }));
+    out.checks.push_back(run_check("cover", [&] {
+      return make_check("cover", g.where, "house rule HR-4", min_cover, out.cover_mm, "mm",
+                        {{"c_nom,min", "house minimum", "30", min_cover, "mm", "house rule HR-4"}});
+    }));
+    return out;
+  }
+
+  std::vector<Check> span_checks(const std::string& span) const override {
+    auto out = inner_->span_checks(span);
+    out.push_back(run_check("acoustic_thickness", [&] {
+      return make_check("acoustic_thickness", span, "house rule HR-3", min_thickness,
+                        req_.slab.thickness_mm, "mm",
+                        {{"h_min", "house minimum for acoustic separation", "175", min_thickness, "mm",
+                          "house rule HR-3"}});
+    }));
+    return out;
+  }
+
+  DistributionNeed distribution(double main_As) const override {
+    auto need = inner_->distribution(main_As);
+    need.max_spacing_mm = std::min(need.max_spacing_mm, max_spacing);
+    return need;
+  }
+
+  std::vector<std::string> warnings() const override { return inner_->warnings(); }
+
+ private:
+  std::unique_ptr<SlabChecker> inner_, min_cover_;
+  Request req_;
+};
+
+class Code final : public DesignCode {
+ public:
+  explicit Code(std::shared_ptr<const DesignCode> en) : en_(std::move(en)) {}
+
+  CodeIdentity identity() const override {
+    return {code_id, variant_name, "House rules HR-1 to HR-4 over " + en_->identity().title};
+  }
+
+  void validate(const Request& req, InputProblems& problems) const override {
+    en_->validate(req, problems);
+  }
+
+  std::unique_ptr<SlabChecker> begin(const Request& req) const override {
+    std::unique_ptr<SlabChecker> with_min_cover;
+    if (!req.durability.cover_mm) {
+      Request fixed = req;
+      fixed.durability.cover_mm = min_cover;
+      with_min_cover = en_->begin(fixed);
+    }
+    return std::make_unique<Checker>(en_->begin(req), std::move(with_min_cover), req);
+  }
+
+ private:
+  std::shared_ptr<const DesignCode> en_;
+};
+
+class Factory final : public CodeFactory {
+ public:
+  std::string id() const override { return code_id; }
+  std::string title() const override { return "Example house rules over EN 1992-1-1 (UK)"; }
+  std::string edition() const override { return "house rules, issue 1"; }
+  std::vector<std::string> variants() const override { return {variant_name}; }
+  std::string default_variant() const override { return variant_name; }
+  std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost& host) const override {
+    if (variant != variant_name) throw std::invalid_argument("no house-rules variant '" + variant + "'");
+    return std::make_shared<Code>(host.open("EN1992-1-1", "UK"));
+  }
+};
+
+std::unique_ptr<CodeFactory> create(const PluginContext&) { return std::make_unique<Factory>(); }
+}  // namespace
+
+const PluginEntry* entry() {
+  static const PluginEntry e{plugin_abi_version, &create};
+  return &e;
+}
+}  // namespace house
+
+ARMATURE_CODE_PLUGIN(house::entry)

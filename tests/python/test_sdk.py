@@ -1,0 +1,166 @@
+"""Plug-ins from outside the repository: install armature into a temporary
+prefix, build the example house-rules plug-in against it as a separate CMake
+project, and use it from the installed CLI and from Python; data-only
+national-annex variants."""
+import json
+import os
+import pathlib
+import shutil
+import subprocess
+import sys
+
+import pytest
+
+import armature
+from conftest import BUILD, ROOT
+
+EXAMPLE = ROOT / "codes" / "examples" / "house-rules"
+DEMO = json.loads((ROOT / "examples" / "workshop-first-floor.json").read_text())
+
+
+@pytest.fixture(scope="module")
+def installed(tmp_path_factory):
+    base = tmp_path_factory.mktemp("sdk")
+    prefix, example_build = base / "prefix", base / "house-build"
+    subprocess.run(["cmake", "--install", str(BUILD), "--prefix", str(prefix)], check=True,
+                   capture_output=True)
+    subprocess.run(["cmake", "-S", str(EXAMPLE), "-B", str(example_build),
+                    f"-DCMAKE_PREFIX_PATH={prefix}", "-DCMAKE_BUILD_TYPE=Release"], check=True,
+                   capture_output=True)
+    subprocess.run(["cmake", "--build", str(example_build)], check=True, capture_output=True)
+    return prefix, example_build
+
+
+def clean_env(**extra):
+    env = {k: v for k, v in os.environ.items() if k != "ARMATURE_CODE_PATH"}
+    env.update(extra)
+    return env
+
+
+def test_installed_cli_finds_installed_plugins_without_environment(installed):
+    prefix, _ = installed
+    run = subprocess.run([str(prefix / "bin" / "armature"), "codes"], capture_output=True, text=True,
+                         env=clean_env(), check=True)
+    assert f"{prefix}/lib/armature/codes/armature_code_en1992.so" in run.stdout
+    assert f"{prefix}/lib/armature/codes/armature_code_aci318.so" in run.stdout
+    assert str(BUILD) not in run.stdout  # never reaches back into the build tree
+
+
+def house_request():
+    req = dict(DEMO, code="HOUSE-RULES")
+    req.pop("variant")
+    return req
+
+
+def test_house_rules_from_the_installed_cli(installed):
+    prefix, example_build = installed
+    env = clean_env(ARMATURE_CODE_PATH=str(example_build))
+    run = subprocess.run([str(prefix / "bin" / "armature"), "design", "--json", "-"],
+                         input=json.dumps(house_request()), capture_output=True, text=True, env=env)
+    assert run.returncode in (0, 1), run.stderr
+    res = json.loads(run.stdout)
+    assert res["code"] == "HOUSE-RULES" and res["variant"] == "EN1992-UK"
+    clauses = {c["clause"] for c in res["checks"]}
+    assert {"house rule HR-2", "house rule HR-3", "house rule HR-4"} <= clauses
+    hr3 = [c for c in res["checks"] if c["clause"] == "house rule HR-3"]
+    assert all(c["demand"] == 175 and c["capacity"] == 200 for c in hr3)
+    assert all(g["bars"]["spacing_mm"] <= 200 for g in res["regions"])
+    assert res["cover_mm"] >= 30
+
+
+def test_house_rules_tighten_en_deflection_by_0_9(installed):
+    _, example_build = installed
+    # A span where EN (UK) already picks bars within the house limits
+    # (spacing ≤ 200 mm, cover 30 mm given, h ≥ 175 mm): both designs use
+    # the same bars, and the house allows 0.9 × EN's span/depth ratio.
+    req = {
+        "code": "EN1992-1-1", "variant": "UK",
+        "slab": {"spans_m": [4.5], "ends": ["pinned", "pinned"], "thickness_mm": 200},
+        "concrete": {"class": "C30/37"},
+        "reinforcement": {"bars": ["12"]},
+        "loads": {"dead_kPa": 1.5, "imposed_kPa": 5.0},
+        "durability": {"cover_mm": 30},
+    }
+    code = f"""
+import json, armature
+req = json.loads({json.dumps(json.dumps(req))})
+house = dict(req, code="HOUSE-RULES"); del house["variant"]
+print(json.dumps([armature.design(house), armature.design(req)]))
+"""
+    env = clean_env(ARMATURE_CODE_PATH=str(example_build), PYTHONPATH=str(BUILD / "python"))
+    run = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, env=env, check=True)
+    house, en = json.loads(run.stdout)
+    span_h = next(g for g in house["regions"] if g["where"] == "span 1")
+    span_e = next(g for g in en["regions"] if g["where"] == "span 1")
+    assert span_h["bars"] == span_e["bars"] and span_e["bars"]["spacing_mm"] <= 200
+    h = next(c for c in house["checks"] if c["id"] == "deflection")
+    e = next(c for c in en["checks"] if c["id"] == "deflection")
+    assert h["clause"] == e["clause"] + "; house rule HR-1"
+    assert h["demand"] == pytest.approx(e["demand"])
+    assert h["capacity"] == pytest.approx(0.9 * e["capacity"])
+
+
+NDP_UK = json.loads((ROOT / "codes" / "en1992" / "variants" / "UK.json").read_text())
+
+
+def write_variant(directory, name, **changes):
+    data = dict(NDP_UK, **changes)
+    for key in [k for k, v in changes.items() if v is None]:
+        del data[key]
+    (directory / f"{name}.en1992.json").write_text(json.dumps(data))
+
+
+def run_python(code, code_path):
+    env = clean_env(ARMATURE_CODE_PATH=str(code_path), PYTHONPATH=str(BUILD / "python"))
+    run = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, env=env)
+    assert run.returncode == 0, run.stderr
+    return json.loads(run.stdout)
+
+
+def test_data_only_variant_changes_the_design_as_hand_calculation_predicts(tmp_path):
+    write_variant(tmp_path, "acc", variant="UK-acc1", title="UK NA with alpha_cc = 1.0", alpha_cc=1.0)
+    req = {
+        "code": "EN1992-1-1", "variant": "UK",
+        "slab": {"spans_m": [5.0], "ends": ["pinned", "pinned"], "thickness_mm": 175},
+        "concrete": {"class": "C25/30"},
+        "reinforcement": {"bars": ["12"]},
+        "loads": {"dead_kPa": 2.0, "imposed_kPa": 7.5},
+        "durability": {"cover_mm": 25},
+    }
+    uk, acc = run_python(f"""
+import json, armature
+req = json.loads({json.dumps(json.dumps(req))})
+print(json.dumps([armature.design(req), armature.design(dict(req, variant="UK-acc1"))]))
+""", tmp_path)
+    g_uk = next(g for g in uk["regions"] if g["where"] == "span 1")
+    g_acc = next(g for g in acc["regions"] if g["where"] == "span 1")
+    # Hand calculation, EN 1992-1-1 6.1: K = M/(b d² fck) is the same in both;
+    # z = d [0.5 + √(0.25 − K/(2 αcc/γc))] changes with αcc (0.85 → 1.0).
+    M, d, fck = g_uk["design_moment_kNm"] * 1e6, g_uk["effective_depth_mm"], 25.0
+    K = M / (1000 * d * d * fck)
+    z_uk = min(d * (0.5 + (0.25 - K / (2 * 0.85 / 1.5)) ** 0.5), 0.95 * d)
+    z_acc = min(d * (0.5 + (0.25 - K / (2 * 1.0 / 1.5)) ** 0.5), 0.95 * d)
+    assert z_uk < 0.95 * d  # the case is chosen so that αcc matters
+    assert g_uk["As_req_mm2"] == pytest.approx(M / (500 / 1.15 * z_uk))
+    assert g_acc["As_req_mm2"] == pytest.approx(M / (500 / 1.15 * z_acc))
+    # K' = η (αcc/γc) λ ξ (1 − λξ/2), ξ = 0.45: 0.1673 → 0.1968.
+    duct = next(c for c in acc["checks"] if c["id"] == "ductility" and c["where"] == "span 1")
+    assert duct["capacity"] == pytest.approx(1.0 / 1.5 * 0.8 * 0.45 * (1 - 0.8 * 0.45 / 2))
+
+
+def test_bad_data_variants_name_the_file_and_key(tmp_path):
+    write_variant(tmp_path, "typo", variant="T1", alfa_cc=1.0)
+    write_variant(tmp_path, "missing", variant="T2", gamma_c=None)
+    write_variant(tmp_path, "range", variant="T3", alpha_cc=1.3)
+    write_variant(tmp_path, "clash", variant="UK")
+    failures, variants = run_python("""
+import json, armature
+en = next(c for c in armature.codes() if c["id"] == "EN1992-1-1")
+print(json.dumps([armature.plugin_failures(), en["variants"]]))
+""", tmp_path)
+    reasons = {pathlib.Path(f["path"]).name: f["reason"] for f in failures}
+    assert reasons["typo.en1992.json"] == "alfa_cc: unknown parameter"
+    assert reasons["missing.en1992.json"] == "gamma_c: missing"
+    assert reasons["range.en1992.json"].startswith("alpha_cc: must be between 0.8 and 1, got 1.3")
+    assert "already defined" in reasons["clash.en1992.json"]
+    assert set(variants) == {"UK", "recommended"}  # the shipped variants still load
