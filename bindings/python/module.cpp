@@ -1,16 +1,20 @@
 // armature._core: the thin pybind11 layer. It converts between Python
 // objects and the kernel's JSON boundary and releases the GIL while
 // designing; every engineering rule stays in C++.
+#include <pybind11/numpy.h>
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
 
+#include <algorithm>
 #include <atomic>
+#include <optional>
 #include <cmath>
 #include <exception>
 #include <thread>
 
 #include "armature/design.hpp"
 #include "armature/json_io.hpp"
+#include "armature/quantities.hpp"
 #include "armature/registry.hpp"
 #include "armature/report.hpp"
 
@@ -99,6 +103,29 @@ py::object design(const py::handle& request) {
   return to_python(result);
 }
 
+// Runs fn(i) for i in [0, n) on `threads` threads (0: all cores). Call
+// without the GIL.
+template <class Fn>
+void parallel_for(std::size_t n, unsigned threads, Fn&& fn) {
+  armature::Registry::shared();  // load plug-ins once, before the workers start
+  unsigned t = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
+  t = static_cast<unsigned>(std::min<std::size_t>(t, std::max<std::size_t>(n, 1)));
+  std::atomic<std::size_t> next{0};
+  auto work = [&] {
+    for (std::size_t i; (i = next.fetch_add(1)) < n;) fn(i);
+  };
+  std::vector<std::thread> pool;
+  for (unsigned k = 1; k < t; ++k) pool.emplace_back(work);
+  work();
+  for (auto& th : pool) th.join();
+}
+
+armature::InputError indexed(const armature::InputError& e, const std::string& prefix) {
+  std::vector<armature::InputProblem> ps;
+  for (const auto& p : e.problems()) ps.push_back({prefix + " " + p.field, p.message});
+  return armature::InputError(ps);
+}
+
 py::list design_many(const py::sequence& requests, unsigned threads) {
   std::vector<json> reqs;
   reqs.reserve(py::len(requests));
@@ -106,46 +133,191 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
     try {
       reqs.push_back(to_json(requests[i], ""));
     } catch (const armature::InputError& e) {
-      std::vector<armature::InputProblem> ps;
-      for (auto p : e.problems()) ps.push_back({"requests[" + std::to_string(i) + "] " + p.field, p.message});
-      throw armature::InputError(ps);
+      throw indexed(e, "requests[" + std::to_string(i) + "]");
     }
   }
   std::vector<json> results(reqs.size());
   std::vector<std::exception_ptr> errors(reqs.size());
   {
     py::gil_scoped_release release;
-    armature::Registry::shared();  // load plug-ins once, before the workers start
-    unsigned n = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
-    n = static_cast<unsigned>(std::min<std::size_t>(n, std::max<std::size_t>(reqs.size(), 1)));
-    std::atomic<std::size_t> next{0};
-    auto work = [&] {
-      for (std::size_t i; (i = next.fetch_add(1)) < reqs.size();) {
-        try {
-          results[i] = design_json(reqs[i]);
-        } catch (...) {
-          errors[i] = std::current_exception();
-        }
+    parallel_for(reqs.size(), threads, [&](std::size_t i) {
+      try {
+        results[i] = design_json(reqs[i]);
+      } catch (...) {
+        errors[i] = std::current_exception();
       }
-    };
-    std::vector<std::thread> pool;
-    for (unsigned t = 1; t < n; ++t) pool.emplace_back(work);
-    work();
-    for (auto& t : pool) t.join();
+    });
   }
   for (std::size_t i = 0; i < errors.size(); ++i) {
     if (!errors[i]) continue;
     try {
       std::rethrow_exception(errors[i]);
     } catch (const armature::InputError& e) {
-      std::vector<armature::InputProblem> ps;
-      for (auto p : e.problems()) ps.push_back({"requests[" + std::to_string(i) + "] " + p.field, p.message});
-      throw armature::InputError(ps);
+      throw indexed(e, "requests[" + std::to_string(i) + "]");
     }
   }
   py::list out;
   for (const auto& r : results) out.append(to_python(r));
   return out;
+}
+
+// Sets a value at a dotted path with list indices: "slab.spans_m[0]".
+void set_path(json& j, const std::string& path, const json& value) {
+  json* node = &j;
+  std::size_t i = 0;
+  auto fail = [&](const std::string& why) { throw armature::InputError({{path, why}}); };
+  while (i < path.size()) {
+    if (path[i] == '[') {
+      const std::size_t close = path.find(']', i);
+      if (close == std::string::npos) fail("unclosed [ in the axis path");
+      const std::size_t k = std::stoul(path.substr(i + 1, close - i - 1));
+      if (!node->is_array() || k >= node->size()) fail("the base request has no list entry " + std::to_string(k) + " here");
+      node = &(*node)[k];
+      i = close + 1;
+      if (i < path.size() && path[i] == '.') ++i;
+    } else {
+      std::size_t end = path.find_first_of(".[", i);
+      if (end == std::string::npos) end = path.size();
+      const std::string key = path.substr(i, end - i);
+      if (key.empty()) fail("empty name in the axis path");
+      if (!node->is_object()) fail("'" + key + "' is not inside an object");
+      node = &(*node)[key];
+      i = end;
+      if (i < path.size() && path[i] == '.') ++i;
+    }
+  }
+  *node = value;
+}
+
+// A sweep over the product of the axes (the first axis varies slowest),
+// designed on all cores, returned column by column.
+py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& paths,
+                       const std::vector<py::list>& values, unsigned threads) {
+  const json base_json = to_json(base, "");
+  std::vector<std::vector<json>> axis_values;
+  std::size_t total = 1;
+  for (std::size_t a = 0; a < values.size(); ++a) {
+    std::vector<json> vs;
+    for (std::size_t k = 0; k < py::len(values[a]); ++k)
+      vs.push_back(to_json(values[a][k], paths[a] + "[" + std::to_string(k) + "]"));
+    total *= vs.size();
+    axis_values.push_back(std::move(vs));
+  }
+  std::vector<std::optional<armature::DesignRecord>> records(total);
+  std::vector<std::string> errors(total);
+  {
+    py::gil_scoped_release release;
+    parallel_for(total, threads, [&](std::size_t i) {
+      try {
+        json req = base_json;
+        std::size_t rest = i;
+        for (std::size_t a = axis_values.size(); a-- > 0;) {
+          const std::size_t k = rest % axis_values[a].size();
+          rest /= axis_values[a].size();
+          const json& v = axis_values[a][k];
+          if (paths[a] == "code" && v.is_string() && v.get<std::string>().find(':') != std::string::npos) {
+            const std::string spec = v.get<std::string>();
+            req["code"] = spec.substr(0, spec.find(':'));
+            req["variant"] = spec.substr(spec.find(':') + 1);
+          } else {
+            set_path(req, paths[a], v);
+          }
+        }
+        records[i] = armature::design(armature::Registry::shared(), req);
+      } catch (const armature::InputError& e) {
+        errors[i] = e.what();
+      } catch (const std::exception& e) {
+        errors[i] = std::string("design error: ") + e.what();
+      }
+    });
+  }
+  py::dict cols;
+  for (std::size_t a = 0; a < paths.size(); ++a) {
+    py::list col;
+    for (std::size_t i = 0; i < total; ++i) {
+      std::size_t rest = i;
+      for (std::size_t b = axis_values.size(); b-- > a + 1;) rest /= axis_values[b].size();
+      col.append(values[a][rest % axis_values[a].size()]);
+    }
+    cols[py::str(paths[a])] = col;
+  }
+  auto numeric = [&](auto&& get) {
+    py::array_t<double> arr(static_cast<py::ssize_t>(total));
+    auto m = arr.mutable_unchecked<1>();
+    for (std::size_t i = 0; i < total; ++i)
+      m(static_cast<py::ssize_t>(i)) = records[i] ? get(*records[i]) : NAN;
+    return arr;
+  };
+  auto text = [&](auto&& get, const char* none) {
+    py::list l;
+    for (std::size_t i = 0; i < total; ++i) l.append(records[i] ? get(*records[i]) : std::string(none));
+    return l;
+  };
+  cols["status"] = text([](const armature::DesignRecord& r) { return std::string(r.pass ? "pass" : "fail"); }, "invalid");
+  cols["max_utilisation"] = numeric([](const armature::DesignRecord& r) { return r.max_utilisation; });
+  cols["governing_check"] = text([](const armature::DesignRecord& r) { return r.governing_check; }, "");
+  cols["governing_where"] = text([](const armature::DesignRecord& r) { return r.governing_where; }, "");
+  cols["steel_kg_m2"] = numeric([](const armature::DesignRecord& r) { return armature::steel_mass_kg_per_m2(r); });
+  cols["concrete_m3_m2"] = numeric([](const armature::DesignRecord& r) { return armature::concrete_volume_m3_per_m2(r); });
+  std::vector<std::string> wheres;
+  for (const auto& r : records)
+    if (r)
+      for (const auto& g : r->regions)
+        if (std::find(wheres.begin(), wheres.end(), g.where) == wheres.end()) wheres.push_back(g.where);
+  for (const auto& w : wheres) {
+    auto find = [&](const armature::DesignRecord& r) -> const armature::RegionRecord* {
+      for (const auto& g : r.regions)
+        if (g.where == w) return &g;
+      return nullptr;
+    };
+    py::list bar;
+    for (std::size_t i = 0; i < total; ++i) {
+      const auto* g = records[i] ? find(*records[i]) : nullptr;
+      bar.append(g ? py::object(py::str(g->bars.bar)) : py::object(py::none()));
+    }
+    cols[py::str(w + " bar")] = bar;
+    cols[py::str(w + " spacing_mm")] = numeric([&](const armature::DesignRecord& r) {
+      const auto* g = find(r);
+      return g ? g->bars.spacing_mm : NAN;
+    });
+    cols[py::str(w + " As_prov_mm2")] = numeric([&](const armature::DesignRecord& r) {
+      const auto* g = find(r);
+      return g ? g->bars.As_prov_mm2 : NAN;
+    });
+  }
+  py::list err;
+  for (const auto& e : errors) err.append(e);
+  cols["error"] = err;
+  return cols;
+}
+
+// The M and V envelopes of a request, per span, in kN and m.
+py::list envelope_diagrams(const py::handle& request) {
+  json req = to_json(request, "");
+  armature::DesignRecord rec;
+  {
+    py::gil_scoped_release release;
+    rec = armature::design(armature::Registry::shared(), req);
+  }
+  py::list spans;
+  for (const auto& span : rec.diagrams) {
+    std::vector<double> x, mmax, mmin, vmax, vmin;
+    for (const auto& p : span) {
+      x.push_back(p.x_mm * 1e-3);
+      mmax.push_back(p.M_max * 1e-6);
+      mmin.push_back(p.M_min * 1e-6);
+      vmax.push_back(p.V_max * 1e-3);
+      vmin.push_back(p.V_min * 1e-3);
+    }
+    py::dict d;
+    d["x_m"] = x;
+    d["M_max_kNm"] = mmax;
+    d["M_min_kNm"] = mmin;
+    d["V_max_kN"] = vmax;
+    d["V_min_kN"] = vmin;
+    spans.append(d);
+  }
+  return spans;
 }
 
 // Designs `request` again and writes its calculation record to `path`; the
@@ -201,6 +373,10 @@ PYBIND11_MODULE(_core, m) {
         "Design many requests on `threads` threads (0: all cores), GIL released.");
   m.def("write_record", &write_record, py::arg("request"), py::arg("path"), py::arg("result"),
         "Write the calculation record (.html or .md) of a request whose result is given.");
+  m.def("sweep_columns", &sweep_columns, py::arg("base"), py::arg("paths"), py::arg("values"),
+        py::arg("threads") = 0, "Design the product of the axes; columns of the results.");
+  m.def("envelope_diagrams", &envelope_diagrams, py::arg("request"),
+        "M and V envelopes of a request along each span.");
   m.def("codes", &codes, "The loaded code plug-ins: id, title, variants, path.");
   m.def("plugin_failures", &plugin_failures, "Plug-ins that failed to load, with the reason.");
   m.attr("__version__") = armature::version_string();

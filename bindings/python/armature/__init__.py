@@ -43,6 +43,8 @@ def report(result, path):
     return _core.write_record(request, os.fspath(path), dict(result))
 
 
+from .plots import plot_envelopes, plot_study  # noqa: E402,F401
+from .studies import sweep  # noqa: E402,F401
 from .tables import compare, to_frame  # noqa: E402,F401
 
 __all__ = [
@@ -53,8 +55,11 @@ __all__ = [
     "compare",
     "design",
     "design_many",
+    "plot_envelopes",
+    "plot_study",
     "plugin_failures",
     "report",
     "Result",
+    "sweep",
     "to_frame",
 ]
