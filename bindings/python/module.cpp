@@ -7,10 +7,13 @@
 
 #include <algorithm>
 #include <atomic>
+#include <condition_variable>
+#include <mutex>
 #include <optional>
 #include <cmath>
 #include <exception>
 #include <thread>
+#include <unordered_map>
 
 #include "armature/design.hpp"
 #include "armature/json_io.hpp"
@@ -67,6 +70,19 @@ json to_json(const py::handle& obj, const std::string& path, int depth = 0) {
       {{where, "cannot be given as a Python " + std::string(py::str(obj.get_type().attr("__name__")))}});
 }
 
+// Result objects repeat the same few dozen keys; their Python strings are
+// made once (with their hash) and reused. Called with the GIL held.
+const py::object& key_object(const std::string& key) {
+  static std::unordered_map<std::string, py::object>* cache = new std::unordered_map<std::string, py::object>();
+  auto it = cache->find(key);
+  if (it == cache->end()) {
+    py::str k(key);
+    PyUnicode_InternInPlace(&k.ptr());
+    it = cache->emplace(key, std::move(k)).first;
+  }
+  return it->second;
+}
+
 py::object to_python(const json& j) {
   switch (j.type()) {
     case json::value_t::null: return py::none();
@@ -76,13 +92,15 @@ py::object to_python(const json& j) {
     case json::value_t::number_float: return py::float_(j.get<double>());
     case json::value_t::string: return py::str(j.get_ref<const std::string&>());
     case json::value_t::array: {
-      py::list l;
-      for (const auto& v : j) l.append(to_python(v));
+      py::list l(j.size());
+      std::size_t i = 0;
+      for (const auto& v : j) PyList_SET_ITEM(l.ptr(), static_cast<py::ssize_t>(i++), to_python(v).release().ptr());
       return l;
     }
     case json::value_t::object: {
       py::dict d;
-      for (auto it = j.begin(); it != j.end(); ++it) d[py::str(it.key())] = to_python(it.value());
+      for (auto it = j.begin(); it != j.end(); ++it)
+        PyDict_SetItem(d.ptr(), key_object(it.key()).ptr(), to_python(it.value()).ptr());
       return d;
     }
     default: return py::none();
@@ -126,6 +144,10 @@ armature::InputError indexed(const armature::InputError& e, const std::string& p
   return armature::InputError(ps);
 }
 
+// With one thread everything runs on the calling thread. With more, that
+// many workers design while the calling thread converts finished results
+// to Python objects in order (the conversion needs the GIL, the designs do
+// not), so the two overlap; a result's JSON is freed once converted.
 py::list design_many(const py::sequence& requests, unsigned threads) {
   std::vector<json> reqs;
   reqs.reserve(py::len(requests));
@@ -136,28 +158,82 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
       throw indexed(e, "requests[" + std::to_string(i) + "]");
     }
   }
-  std::vector<json> results(reqs.size());
-  std::vector<std::exception_ptr> errors(reqs.size());
-  {
-    py::gil_scoped_release release;
-    parallel_for(reqs.size(), threads, [&](std::size_t i) {
-      try {
-        results[i] = design_json(reqs[i]);
-      } catch (...) {
-        errors[i] = std::current_exception();
-      }
-    });
-  }
-  for (std::size_t i = 0; i < errors.size(); ++i) {
-    if (!errors[i]) continue;
+  const std::size_t n = reqs.size();
+  const unsigned workers = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
+  py::list out;
+  auto raise_for = [&](std::size_t i, std::exception_ptr error) {
     try {
-      std::rethrow_exception(errors[i]);
+      std::rethrow_exception(error);
     } catch (const armature::InputError& e) {
       throw indexed(e, "requests[" + std::to_string(i) + "]");
     }
+  };
+  if (workers <= 1 || n <= 1) {
+    armature::Registry::shared();
+    for (std::size_t i = 0; i < n; ++i) {
+      json result;
+      std::exception_ptr error;
+      {
+        py::gil_scoped_release release;
+        try {
+          result = design_json(reqs[i]);
+        } catch (...) {
+          error = std::current_exception();
+        }
+      }
+      if (error) raise_for(i, error);
+      out.append(to_python(result));
+    }
+    return out;
   }
-  py::list out;
-  for (const auto& r : results) out.append(to_python(r));
+  std::vector<json> results(n);
+  std::vector<std::exception_ptr> errors(n);
+  std::vector<char> ready(n, 0);
+  std::mutex mutex;
+  std::condition_variable cv;
+  std::atomic<bool> stop{false};
+  std::atomic<std::size_t> next{0};
+  std::vector<std::thread> pool;
+  {
+    py::gil_scoped_release release;
+    armature::Registry::shared();
+    for (unsigned k = 0; k < std::min<std::size_t>(workers, n); ++k)
+      pool.emplace_back([&] {
+        for (std::size_t i; !stop && (i = next.fetch_add(1)) < n;) {
+          try {
+            results[i] = design_json(reqs[i]);
+          } catch (...) {
+            errors[i] = std::current_exception();
+          }
+          {
+            std::lock_guard<std::mutex> lock(mutex);
+            ready[i] = 1;
+          }
+          cv.notify_all();
+        }
+      });
+  }
+  auto join_all = [&] {
+    py::gil_scoped_release release;
+    stop = true;
+    for (auto& t : pool) t.join();
+  };
+  try {
+    for (std::size_t i = 0; i < n; ++i) {
+      {
+        py::gil_scoped_release release;
+        std::unique_lock<std::mutex> lock(mutex);
+        cv.wait(lock, [&] { return ready[i] != 0; });
+      }
+      if (errors[i]) raise_for(i, errors[i]);
+      out.append(to_python(results[i]));
+      json().swap(results[i]);
+    }
+  } catch (...) {
+    join_all();
+    throw;
+  }
+  join_all();
   return out;
 }
 

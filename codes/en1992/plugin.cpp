@@ -118,18 +118,20 @@ class Checker final : public SlabChecker {
                       "S" + std::to_string(s_class) + " for " + exposure_ + ", " +
                           num(req_.durability.design_life_years) + " years, fck " + num(m_.fck),
                       s_class, "-", "EN 1992-1-1 4.4.1.2 Table 4.3N");
-      cover_steps.add("c_min,dur", "Table 4.4N (S, exposure)",
-                      "S" + std::to_string(s_class) + ", " + exposure_, c_dur, "mm",
-                      "EN 1992-1-1 4.4.1.2 Table 4.4N");
-      cover_steps.add("c_min,b", "φ (+5 if dg > 32)", num(phi) + " mm bar, dg " + num(dg), c_bond,
-                      "mm", "EN 1992-1-1 4.4.1.2 Table 4.2");
-      cover_steps.add("c_min", "max(c_min,b, c_min,dur, 10)",
-                      "max(" + num(c_bond) + ", " + num(c_dur) + ", 10)", c_min, "mm",
-                      "EN 1992-1-1 4.4.1.2 (4.2)");
-      cover_steps.add("c_min + Δc_dev", "c_min + Δc_dev", num(c_min) + " + " + num(ndp_.delta_c_dev_mm),
-                      c_req, "mm", "EN 1992-1-1 4.4.1.3");
-      cover_steps.add("c_nom", req_.durability.cover_mm ? "given" : "c_min + Δc_dev rounded up to 5 mm",
-                      num(c_nom), c_nom, "mm", "EN 1992-1-1 4.4.1.1");
+      if (cover_steps.on()) {
+        cover_steps.add("c_min,dur", "Table 4.4N (S, exposure)",
+                        "S" + std::to_string(s_class) + ", " + exposure_, c_dur, "mm",
+                        "EN 1992-1-1 4.4.1.2 Table 4.4N");
+        cover_steps.add("c_min,b", "φ (+5 if dg > 32)", num(phi) + " mm bar, dg " + num(dg), c_bond,
+                        "mm", "EN 1992-1-1 4.4.1.2 Table 4.2");
+        cover_steps.add("c_min", "max(c_min,b, c_min,dur, 10)",
+                        "max(" + num(c_bond) + ", " + num(c_dur) + ", 10)", c_min, "mm",
+                        "EN 1992-1-1 4.4.1.2 (4.2)");
+        cover_steps.add("c_min + Δc_dev", "c_min + Δc_dev", num(c_min) + " + " + num(ndp_.delta_c_dev_mm),
+                        c_req, "mm", "EN 1992-1-1 4.4.1.3");
+        cover_steps.add("c_nom", req_.durability.cover_mm ? "given" : "c_min + Δc_dev rounded up to 5 mm",
+                        num(c_nom), c_nom, "mm", "EN 1992-1-1 4.4.1.1");
+      }
     }
     out.cover_mm = c_nom;
     out.d_mm = h - c_nom - phi / 2.0;
@@ -202,18 +204,22 @@ class Checker final : public SlabChecker {
     // Minimum and maximum steel (9.2.1.1)
     out.checks.push_back(run_check("min_steel", [&] {
       Steps st(with_steps);
-      st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", num(m_.fck), m_.fctm,
-             "MPa", "EN 1992-1-1 Table 3.1");
-      st.add("As,min", "max(0.26 fctm/fyk, 0.0013) b d",
-             "max(0.26 × " + num(m_.fctm) + "/" + num(m_.fyk) + ", 0.0013) × " + num(b) + " × " + num(d),
-             out.As_min_mm2, "mm2", "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)");
+      if (with_steps) {
+        st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", num(m_.fck), m_.fctm,
+               "MPa", "EN 1992-1-1 Table 3.1");
+        st.add("As,min", "max(0.26 fctm/fyk, 0.0013) b d",
+               "max(0.26 × " + num(m_.fctm) + "/" + num(m_.fyk) + ", 0.0013) × " + num(b) + " × " + num(d),
+               out.As_min_mm2, "mm2", "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)");
+      }
       return make_check("min_steel", g.where, "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)", out.As_min_mm2,
                         As_prov, "mm2", st.take());
     }));
     out.checks.push_back(run_check("max_steel", [&] {
       Steps st(with_steps);
-      st.add("As,max", "0.04 b h", "0.04 × " + num(b) + " × " + num(h), out.As_max_mm2, "mm2",
-             "EN 1992-1-1 9.2.1.1(3)");
+      if (with_steps) {
+        st.add("As,max", "0.04 b h", "0.04 × " + num(b) + " × " + num(h), out.As_max_mm2, "mm2",
+               "EN 1992-1-1 9.2.1.1(3)");
+      }
       return make_check("max_steel", g.where, "EN 1992-1-1 9.2.1.1(3)", As_prov, out.As_max_mm2,
                         "mm2", st.take());
     }));
@@ -222,16 +228,20 @@ class Checker final : public SlabChecker {
     out.checks.push_back(run_check("spacing", [&] {
       const double s_max = max_main_bar_spacing_max_moment(h);
       Steps st(with_steps);
-      st.add("s_max,slabs", "min(2h, 250) in areas of maximum moment", "min(2 × " + num(h) + ", 250)",
-             s_max, "mm", "EN 1992-1-1 9.3.1.1(3)");
+      if (with_steps) {
+        st.add("s_max,slabs", "min(2h, 250) in areas of maximum moment", "min(2 × " + num(h) + ", 250)",
+               s_max, "mm", "EN 1992-1-1 9.3.1.1(3)");
+      }
       return make_check("spacing", g.where, "EN 1992-1-1 9.3.1.1(3)", s, s_max, "mm", st.take());
     }));
     out.checks.push_back(run_check("spacing", [&] {
       const double clear_min = minimum_clear_bar_spacing(phi, dg);
       Steps st(with_steps);
-      st.add("a_min", "max(φ, dg + 5, 20)", "max(" + num(phi) + ", " + num(dg) + " + 5, 20)",
-             clear_min, "mm", "EN 1992-1-1 8.2(2)");
-      st.add("a", "s − φ", num(s) + " − " + num(phi), s - phi, "mm", "EN 1992-1-1 8.2(2)");
+      if (with_steps) {
+        st.add("a_min", "max(φ, dg + 5, 20)", "max(" + num(phi) + ", " + num(dg) + " + 5, 20)",
+               clear_min, "mm", "EN 1992-1-1 8.2(2)");
+        st.add("a", "s − φ", num(s) + " − " + num(phi), s - phi, "mm", "EN 1992-1-1 8.2(2)");
+      }
       return make_check("spacing", g.where, "EN 1992-1-1 8.2(2)", clear_min, s - phi, "mm",
                         st.take());
     }));
@@ -257,9 +267,11 @@ class Checker final : public SlabChecker {
         const int t = *req_.fire.resistance_min;
         const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance(t);
         Steps st(with_steps);
-        st.add("a", "c_nom + φ/2", num(c_nom) + " + " + num(phi) + "/2", a, "mm", "EN 1992-1-2 5.7.2");
-        st.add("a_min", "Table 5.8, one-way slab", "REI " + std::to_string(t), a_min, "mm",
-               "EN 1992-1-2 5.7.2 Table 5.8");
+        if (with_steps) {
+          st.add("a", "c_nom + φ/2", num(c_nom) + " + " + num(phi) + "/2", a, "mm", "EN 1992-1-2 5.7.2");
+          st.add("a_min", "Table 5.8, one-way slab", "REI " + std::to_string(t), a_min, "mm",
+                 "EN 1992-1-2 5.7.2 Table 5.8");
+        }
         return make_check("fire", g.where, "EN 1992-1-2 5.7.2 Table 5.8 (axis distance)", a_min, a,
                           "mm", st.take());
       }));
@@ -284,15 +296,17 @@ class Checker final : public SlabChecker {
         const double C = ndp_.C_Rd_c_factor / ndp_.gamma_c;
         so.V_Rd = shear_resistance_without_links(C, k, rho_l, m_.fck, v_min, b, d);
         Steps st(with_steps);
-        st.add("k", "1 + √(200/d) ≤ 2", "1 + √(200/" + num(d) + ")", k, "-", "EN 1992-1-1 6.2.2(1)");
-        st.add("ρl", "Asl/(b d) ≤ 0.02", num(As_prov) + "/(" + num(b) + " × " + num(d) + ")", rho_l,
-               "-", "EN 1992-1-1 6.2.2(1)");
-        st.add("v_min", "0.035 k^1.5 fck^0.5", num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " +
-               num(m_.fck) + "^0.5", v_min, "MPa", "EN 1992-1-1 6.2.2(1) (6.3N)");
-        st.add("V_Rd,c", "max(CRd,c k (100 ρl fck)^(1/3), v_min) b d",
-               "max(" + num(C) + " × " + num(k) + " × (100 × " + num(std::min(rho_l, 0.02)) + " × " +
-                   num(m_.fck) + ")^(1/3), " + num(v_min) + ") × " + num(b) + " × " + num(d),
-               so.V_Rd * 1e-3, "kN", "EN 1992-1-1 6.2.2(1) (6.2)");
+        if (with_steps) {
+          st.add("k", "1 + √(200/d) ≤ 2", "1 + √(200/" + num(d) + ")", k, "-", "EN 1992-1-1 6.2.2(1)");
+          st.add("ρl", "Asl/(b d) ≤ 0.02", num(As_prov) + "/(" + num(b) + " × " + num(d) + ")", rho_l,
+                 "-", "EN 1992-1-1 6.2.2(1)");
+          st.add("v_min", "0.035 k^1.5 fck^0.5", num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " +
+                 num(m_.fck) + "^0.5", v_min, "MPa", "EN 1992-1-1 6.2.2(1) (6.3N)");
+          st.add("V_Rd,c", "max(CRd,c k (100 ρl fck)^(1/3), v_min) b d",
+                 "max(" + num(C) + " × " + num(k) + " × (100 × " + num(std::min(rho_l, 0.02)) + " × " +
+                     num(m_.fck) + ")^(1/3), " + num(v_min) + ") × " + num(b) + " × " + num(d),
+                 so.V_Rd * 1e-3, "kN", "EN 1992-1-1 6.2.2(1) (6.2)");
+        }
         return make_check("shear", sup.where, "EN 1992-1-1 6.2.2(1)", sup.V_Ed * 1e-3,
                           so.V_Rd * 1e-3, "kN", st.take());
       }));
@@ -339,20 +353,22 @@ class Checker final : public SlabChecker {
     const double u_spacing = utilisation_of(s, s_limit);
     const double u_diameter = utilisation_of(phi, phi_limit);
     Steps st(with_steps);
-    st.add("w_max", "Table 7.1N for the exposure class", exposure_, w_max_, "mm",
-           "EN 1992-1-1 7.3.1 Table 7.1N");
-    st.add("σs", "fyd (n_qp/n_uls)(As,req/As,prov)/δ",
-           num(m_.fyd) + " × " + num(g.quasi_permanent_to_uls) + " × " + num(As_req) + "/" +
-               num(As_prov) + " / " + num(g.redistribution_delta),
-           sigma, "MPa", "EN 1992-1-1 7.3.3 (common practice estimate)");
-    st.add("s_max", "Table 7.3N(σs, w_max)", num(sigma) + " MPa", s_limit, "mm",
-           "EN 1992-1-1 7.3.3 Table 7.3N");
-    st.add("φ*s", "Table 7.2N(σs, w_max)", num(sigma) + " MPa", phi_star.value_or(0.0), "mm",
-           "EN 1992-1-1 7.3.3 Table 7.2N");
-    st.add("φs", "φ*s (fctm/2.9) kc hcr/(2(h − d)), kc = 0.4, hcr = h/2",
-           num(phi_star.value_or(0.0)) + " × (" + num(m_.fctm) + "/2.9) × 0.4 × " + num(h / 2) +
-               "/(2 × (" + num(h) + " − " + num(d) + "))",
-           phi_limit, "mm", "EN 1992-1-1 7.3.3 (7.6N)");
+    if (with_steps) {
+      st.add("w_max", "Table 7.1N for the exposure class", exposure_, w_max_, "mm",
+             "EN 1992-1-1 7.3.1 Table 7.1N");
+      st.add("σs", "fyd (n_qp/n_uls)(As,req/As,prov)/δ",
+             num(m_.fyd) + " × " + num(g.quasi_permanent_to_uls) + " × " + num(As_req) + "/" +
+                 num(As_prov) + " / " + num(g.redistribution_delta),
+             sigma, "MPa", "EN 1992-1-1 7.3.3 (common practice estimate)");
+      st.add("s_max", "Table 7.3N(σs, w_max)", num(sigma) + " MPa", s_limit, "mm",
+             "EN 1992-1-1 7.3.3 Table 7.3N");
+      st.add("φ*s", "Table 7.2N(σs, w_max)", num(sigma) + " MPa", phi_star.value_or(0.0), "mm",
+             "EN 1992-1-1 7.3.3 Table 7.2N");
+      st.add("φs", "φ*s (fctm/2.9) kc hcr/(2(h − d)), kc = 0.4, hcr = h/2",
+             num(phi_star.value_or(0.0)) + " × (" + num(m_.fctm) + "/2.9) × 0.4 × " + num(h / 2) +
+                 "/(2 × (" + num(h) + " − " + num(d) + "))",
+             phi_limit, "mm", "EN 1992-1-1 7.3.3 (7.6N)");
+    }
     if (u_spacing <= u_diameter)
       return make_check("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.3N (bar spacing)", s,
                         s_limit, "mm", st.take());
@@ -373,25 +389,27 @@ class Checker final : public SlabChecker {
     const double allowed = basic * f_long * f_steel;
     const double actual = g.span_mm / d;
     Steps st(with_steps);
-    st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");
-    st.add("ρ", "As,req/(b d)",
-           num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho, "-",
-           "EN 1992-1-1 7.4.2(2)");
-    st.add("K", "Table 7.4N structural system", num(K), K, "-", "EN 1992-1-1 7.4.2 Table 7.4N");
-    st.add("l/d basic", rho <= rho0 ? "K[11 + 1.5√fck ρ0/ρ + 3.2√fck (ρ0/ρ − 1)^1.5]"
-                                    : "K[11 + 1.5√fck ρ0/(ρ − ρ') + √fck √(ρ'/ρ0)/12], ρ' = 0",
-           "K = " + num(K) + ", fck = " + num(m_.fck) + ", ρ0 = " + num(rho0) + ", ρ = " + num(rho),
-           basic, "-", rho <= rho0 ? "EN 1992-1-1 7.4.2 (7.16a)" : "EN 1992-1-1 7.4.2 (7.16b)");
-    st.add("F_l", "7/leff when leff > 7 m", num(g.span_mm * 1e-3) + " m", f_long, "-",
-           "EN 1992-1-1 7.4.2(2)");
-    st.add("310/σs", "(500/fyk)(As,prov/As,req) ≤ cap",
-           "(500/" + num(m_.fyk) + ")(" + num(As_prov) + "/" + num(As_req) + ") ≤ " +
-               num(ndp_.steel_stress_factor_cap),
-           f_steel, "-", "EN 1992-1-1 7.4.2(2) (7.17)");
-    st.add("l/d allowed", "l/d basic × F_l × 310/σs",
-           num(basic) + " × " + num(f_long) + " × " + num(f_steel), allowed, "-",
-           "EN 1992-1-1 7.4.2");
-    st.add("l/d actual", "leff/d", num(g.span_mm) + "/" + num(d), actual, "-", "EN 1992-1-1 7.4.2");
+    if (with_steps) {
+      st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");
+      st.add("ρ", "As,req/(b d)",
+             num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho, "-",
+             "EN 1992-1-1 7.4.2(2)");
+      st.add("K", "Table 7.4N structural system", num(K), K, "-", "EN 1992-1-1 7.4.2 Table 7.4N");
+      st.add("l/d basic", rho <= rho0 ? "K[11 + 1.5√fck ρ0/ρ + 3.2√fck (ρ0/ρ − 1)^1.5]"
+                                      : "K[11 + 1.5√fck ρ0/(ρ − ρ') + √fck √(ρ'/ρ0)/12], ρ' = 0",
+             "K = " + num(K) + ", fck = " + num(m_.fck) + ", ρ0 = " + num(rho0) + ", ρ = " + num(rho),
+             basic, "-", rho <= rho0 ? "EN 1992-1-1 7.4.2 (7.16a)" : "EN 1992-1-1 7.4.2 (7.16b)");
+      st.add("F_l", "7/leff when leff > 7 m", num(g.span_mm * 1e-3) + " m", f_long, "-",
+             "EN 1992-1-1 7.4.2(2)");
+      st.add("310/σs", "(500/fyk)(As,prov/As,req) ≤ cap",
+             "(500/" + num(m_.fyk) + ")(" + num(As_prov) + "/" + num(As_req) + ") ≤ " +
+                 num(ndp_.steel_stress_factor_cap),
+             f_steel, "-", "EN 1992-1-1 7.4.2(2) (7.17)");
+      st.add("l/d allowed", "l/d basic × F_l × 310/σs",
+             num(basic) + " × " + num(f_long) + " × " + num(f_steel), allowed, "-",
+             "EN 1992-1-1 7.4.2");
+      st.add("l/d actual", "leff/d", num(g.span_mm) + "/" + num(d), actual, "-", "EN 1992-1-1 7.4.2");
+    }
     return make_check("deflection", g.span_where, "EN 1992-1-1 7.4.2 (7.16), Table 7.4N", actual,
                       allowed, "-", st.take());
   }

@@ -1,0 +1,54 @@
+"""Python throughput figures: design_many on 1 and 2 threads (and the
+speed-up), and sweep. Prints its figures; asserts nothing about time.
+
+    PYTHONPATH=build/python /usr/bin/python3 tests/bench/bench_python.py [N]
+"""
+import random
+import sys
+import time
+
+import armature
+
+N = int(sys.argv[1]) if len(sys.argv) > 1 else 100_000
+
+
+def requests(n):
+    rng = random.Random(1)
+    out = []
+    for _ in range(n):
+        out.append({
+            "code": "EN1992-1-1", "variant": rng.choice(["UK", "recommended"]),
+            "slab": {"spans_m": [round(rng.uniform(3, 6), 2)], "ends": ["pinned", "pinned"],
+                     "thickness_mm": rng.choice([175, 200, 225, 250])},
+            "concrete": {"class": rng.choice(["C25/30", "C30/37", "C35/45"])},
+            "loads": {"dead_kPa": 1.5, "imposed_kPa": round(rng.uniform(2, 6), 2)},
+        })
+    return out
+
+
+def timed(fn):
+    t = time.perf_counter()
+    out = fn()
+    return out, time.perf_counter() - t
+
+
+def main():
+    reqs = requests(N)
+    armature.design(reqs[0])  # load the plug-ins outside the timing
+    one, t1 = timed(lambda: armature.design_many(reqs, threads=1))
+    two, t2 = timed(lambda: armature.design_many(reqs, threads=2))
+    assert one == two
+    print(f"design_many, {N} single-span EN designs")
+    print(f"  1 thread : {t1:8.3f} s  {N / t1:10.0f} designs/s")
+    print(f"  2 threads: {t2:8.3f} s  {N / t2:10.0f} designs/s  speed-up {t1 / t2:.2f}x")
+    base = reqs[0]
+    side = max(2, round((N / 4) ** 0.5))
+    axes = {"slab.thickness_mm": [150 + 5 * i for i in range(side)],
+            "slab.spans_m[0]": [3.0 + 3.0 * i / side for i in range(side)],
+            "concrete.class": ["C25/30", "C30/37"], "variant": ["UK", "recommended"]}
+    frame, ts = timed(lambda: armature.sweep(base, axes))
+    print(f"sweep, {len(frame)} designs: {ts:8.3f} s  {len(frame) / ts:10.0f} designs/s")
+
+
+if __name__ == "__main__":
+    main()
