@@ -404,7 +404,7 @@ std::string write_record(const py::handle& request, const std::string& path, con
   const auto format = armature::record_format_for(path);
   {
     py::gil_scoped_release release;
-    const auto record = armature::design(armature::Registry::shared(), req);
+    const auto record = armature::design(armature::Registry::shared(), req, armature::Detail::steps);
     if (armature::result_to_json(record) != given)
       throw std::invalid_argument("the result does not match its request (was it changed after design?)");
     armature::write_file_atomically(path, armature::calculation_record(record, req, format,

@@ -89,19 +89,26 @@ class Checker final : public SlabChecker {
   }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
-                             bool with_steps) const override {
+                             Detail detail) const override {
     RegionOutcome out;
+    CheckCollector checks(out.checks, out.verdict, detail);
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm, db = bar.diameter_mm;
     const double As = bar.area_mm2 * b / s;
     const double c_req = specified_cover(exposure_, db);
+    const bool cover_given = req_.durability.cover_mm.has_value();
     const double cover = req_.durability.cover_mm.value_or(c_req);
+    auto cover_steps = [&] {
+      StepRecorder st(true);
+      st.add("c", "Table 20.5.1.3.1 (" + exposure_ + ", bar " + bar.designation + ")", exposure_, c_req, "mm",
+             "ACI 318-19 20.5.1.3.1");
+      return st.take();
+    };
     out.cover_mm = cover;
     out.d_mm = h - cover - db / 2.0;
     const double d = out.d_mm;
     out.As_min_mm2 = minimum_flexural_steel(b, h);
-    if (d <= 0.0) {
-      out.checks.push_back(make_check("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6,
-                                      0.0, "kNm"));
+    if (d <= 0.0) {  // the bar does not fit: nothing can resist
+      checks.add("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, 0.0, "kNm", cover_steps);
       return out;
     }
     out.As_max_mm2 = steel_at_strain_limit(fc_, fy_, b, d);
@@ -114,105 +121,97 @@ class Checker final : public SlabChecker {
     const double phi = strength_reduction_factor(eps_t, eps_ty);
     const double phi_Mn = phi * nominal_moment(As, fy_, d, a);
 
-    StepRecorder cover_steps(with_steps);
-    if (cover_steps.on()) {
-      cover_steps.add("c", "Table 20.5.1.3.1 (" + exposure_ + ", bar " + bar.designation + ")",
-                      exposure_, c_req, "mm", "ACI 318-19 20.5.1.3.1");
-    }
-    out.checks.push_back(run_check("bending", [&] {
-      StepRecorder st(with_steps);
-      if (!req_.durability.cover_mm)
-        for (auto& x : cover_steps.take()) st.add(x.symbol.c_str(), x.expression, x.substituted, x.result, "mm", "ACI 318-19 20.5.1.3.1");
-      if (with_steps) {
+    run_check("bending", [&] {
+      checks.add("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, phi_Mn * 1e-6, "kNm", [&] {
+        StepRecorder st(true);
+        if (!cover_given)
+          for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
         st.add("d", "h − cover − db/2", num(h) + " − " + num(cover) + " − " + num(db) + "/2", d, "mm",
                "ACI 318-19 22.2");
         st.add("As,req", "(0.85 f'c b/fy)(d − √(d² − 2Mu/(0.9 × 0.85 f'c b)))",
-               "Mu = " + num(g.M_Ed * 1e-6) + " kNm, f'c = " + num(fc_) + ", fy = " + num(fy_),
-               out.As_req_mm2, "mm2", "ACI 318-19 22.2.2");
+               "Mu = " + num(g.M_Ed * 1e-6) + " kNm, f'c = " + num(fc_) + ", fy = " + num(fy_), out.As_req_mm2,
+               "mm2", "ACI 318-19 22.2.2");
         st.add("As", "bar area × b/s", num(bar.area_mm2) + " × " + num(b) + "/" + num(s), As, "mm2", "");
-        st.add("a", "As fy/(0.85 f'c b)", num(As) + " × " + num(fy_) + "/(0.85 × " + num(fc_) + " × " + num(b) + ")",
-               a, "mm", "ACI 318-19 22.2.2.4.1");
+        st.add("a", "As fy/(0.85 f'c b)",
+               num(As) + " × " + num(fy_) + "/(0.85 × " + num(fc_) + " × " + num(b) + ")", a, "mm",
+               "ACI 318-19 22.2.2.4.1");
         st.add("φ", "Table 21.2.2 from εt", "εt = " + num(eps_t) + ", εty = " + num(eps_ty), phi, "-",
                "ACI 318-19 21.2.2");
-        st.add("φMn", "φ As fy (d − a/2)", num(phi) + " × " + num(As) + " × " + num(fy_) + " × (" + num(d) +
-               " − " + num(a) + "/2)", phi_Mn * 1e-6, "kNm", "ACI 318-19 22.2");
-      }
-      return make_check("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, phi_Mn * 1e-6,
-                        "kNm", st.take());
-    }));
-    out.checks.push_back(run_check("ductility", [&] {
-      StepRecorder st(with_steps);
-      if (with_steps) {
-        st.add("β1", "Table 22.2.2.4.3", "f'c = " + num(fc_), beta1_, "-", "ACI 318-19 22.2.2.4.3");
-        st.add("c", "a/β1", num(a) + "/" + num(beta1_), c, "mm", "ACI 318-19 22.2.2.4.2");
-        st.add("εt", "0.003 (d − c)/c", "0.003 × (" + num(d) + " − " + num(c) + ")/" + num(c), eps_t, "-",
-               "ACI 318-19 21.2.2");
-      }
-      if (!As_root)
-        if (with_steps) {
-          st.add("As,req", "no real root: the section cannot reach Mu with φ = 0.9", num(g.M_Ed * 1e-6),
-                 0.0, "mm2", "ACI 318-19 22.2.2");
-        }
-      return make_check("ductility", g.where, "ACI 318-19 7.3.3.1", slab_min_net_tensile_strain,
-                        As_root ? eps_t : 0.0, "-", st.take());
-    }));
-    out.checks.push_back(run_check("min_steel", [&] {
-      StepRecorder st(with_steps);
-      if (with_steps) {
+        st.add("φMn", "φ As fy (d − a/2)",
+               num(phi) + " × " + num(As) + " × " + num(fy_) + " × (" + num(d) + " − " + num(a) + "/2)",
+               phi_Mn * 1e-6, "kNm", "ACI 318-19 22.2");
+        return st.take();
+      });
+    });
+    run_check("ductility", [&] {
+      checks.add("ductility", g.where, "ACI 318-19 7.3.3.1", slab_min_net_tensile_strain, As_root ? eps_t : 0.0,
+                 "-", [&] {
+                   StepRecorder st(true);
+                   st.add("β1", "Table 22.2.2.4.3", "f'c = " + num(fc_), beta1_, "-", "ACI 318-19 22.2.2.4.3");
+                   st.add("c", "a/β1", num(a) + "/" + num(beta1_), c, "mm", "ACI 318-19 22.2.2.4.2");
+                   st.add("εt", "0.003 (d − c)/c", "0.003 × (" + num(d) + " − " + num(c) + ")/" + num(c), eps_t,
+                          "-", "ACI 318-19 21.2.2");
+                   if (!As_root)
+                     st.add("As,req", "no real root: the section cannot reach Mu with φ = 0.9",
+                            num(g.M_Ed * 1e-6), 0.0, "mm2", "ACI 318-19 22.2.2");
+                   return st.take();
+                 });
+    });
+    run_check("min_steel", [&] {
+      checks.add("min_steel", g.where, "ACI 318-19 7.6.1.1", out.As_min_mm2, As, "mm2", [&] {
+        StepRecorder st(true);
         st.add("As,min", "0.0018 Ag", "0.0018 × " + num(b) + " × " + num(h), out.As_min_mm2, "mm2",
                "ACI 318-19 7.6.1.1");
-      }
-      return make_check("min_steel", g.where, "ACI 318-19 7.6.1.1", out.As_min_mm2, As, "mm2", st.take());
-    }));
-    out.checks.push_back(run_check("spacing", [&] {
-      StepRecorder st(with_steps);
+        return st.take();
+      });
+    });
+    run_check("spacing", [&] {
       const double s_max = max_flexural_bar_spacing(h);
-      if (with_steps) {
+      checks.add("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", [&] {
+        StepRecorder st(true);
         st.add("s_max", "min(3h, 450)", "min(3 × " + num(h) + ", 450)", s_max, "mm", "ACI 318-19 7.7.2.3");
-      }
-      return make_check("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", st.take());
-    }));
-    out.checks.push_back(run_check("cracking", [&] {
-      StepRecorder st(with_steps);
+        return st.take();
+      });
+    });
+    run_check("cracking", [&] {
       const double fs = service_steel_stress(fy_);
       const double s_crack = crack_control_spacing(fs, cover);
-      if (with_steps) {
+      checks.add("cracking", g.where, "ACI 318-19 24.3.2", s, s_crack, "mm", [&] {
+        StepRecorder st(true);
         st.add("fs", "2/3 fy", "2/3 × " + num(fy_), fs, "MPa", "ACI 318-19 24.3.2.1");
         st.add("s", "min(380 (280/fs) − 2.5 cc, 300 (280/fs))",
-               "min(380 × 280/" + num(fs) + " − 2.5 × " + num(cover) + ", 300 × 280/" + num(fs) + ")",
-               s_crack, "mm", "ACI 318-19 24.3.2");
-      }
-      return make_check("cracking", g.where, "ACI 318-19 24.3.2", s, s_crack, "mm", st.take());
-    }));
-    if (req_.durability.cover_mm) {
-      out.checks.push_back(run_check("cover", [&] {
-        return make_check("cover", g.where, "ACI 318-19 20.5.1.3.1", c_req, cover, "mm",
-                          cover_steps.take());
-      }));
-    }
+               "min(380 × 280/" + num(fs) + " − 2.5 × " + num(cover) + ", 300 × 280/" + num(fs) + ")", s_crack,
+               "mm", "ACI 318-19 24.3.2");
+        return st.take();
+      });
+    });
+    if (cover_given)
+      run_check("cover", [&] { checks.add("cover", g.where, "ACI 318-19 20.5.1.3.1", c_req, cover, "mm", cover_steps); });
     if (!g.span_where.empty()) {
-      out.span_checks.push_back(run_check("deflection", [&] {
+      CheckCollector span(out.span_checks, out.verdict, detail);
+      run_check("deflection", [&] {
         const SupportCondition cond = condition_of(g.span_kind);
         const double h_min = minimum_slab_thickness(g.span_mm, cond, fy_);
-        StepRecorder st(with_steps);
-        if (with_steps) {
+        span.add("deflection", g.span_where, "ACI 318-19 7.3.1.1", h_min, h, "mm", [&] {
+          StepRecorder st(true);
           st.add("h_min", std::string("Table 7.3.1.1: ") + condition_name(cond) + ", × (0.4 + fy/700)",
                  "ℓ = " + num(g.span_mm) + ", fy = " + num(fy_), h_min, "mm", "ACI 318-19 7.3.1.1");
-        }
-        return make_check("deflection", g.span_where, "ACI 318-19 7.3.1.1", h_min, h, "mm", st.take());
-      }));
+          return st.take();
+        });
+      });
     }
     for (const auto& sup : g.supports) {
       SupportOutcome so;
       so.where = sup.where;
       so.V_Ed = sup.V_Ed;
-      so.checks.push_back(run_check("shear", [&] {
+      CheckCollector support(so.checks, out.verdict, detail);
+      run_check("shear", [&] {
         const double rho_w = As / (b * d);
         const double ls = size_effect_factor(d);
         const double Vc = one_way_shear_strength(ls, lambda_normal_weight, rho_w, fc_, b, d);
         so.V_Rd = shear_strength_reduction * Vc;
-        StepRecorder st(with_steps);
-        if (with_steps) {
+        support.add("shear", sup.where, "ACI 318-19 22.5.5.1", sup.V_Ed * 1e-3, so.V_Rd * 1e-3, "kN", [&] {
+          StepRecorder st(true);
           st.add("λs", "√(2/(1 + 0.004 d)) ≤ 1", "d = " + num(d), ls, "-", "ACI 318-19 22.5.5.1.3");
           st.add("ρw", "As/(b d)", num(As) + "/(" + num(b) + " × " + num(d) + ")", rho_w, "-",
                  "ACI 318-19 22.5.5.1");
@@ -220,10 +219,9 @@ class Checker final : public SlabChecker {
                  "λs = " + num(ls) + ", √f'c = " + num(std::min(std::sqrt(fc_), 8.3)), Vc * 1e-3, "kN",
                  "ACI 318-19 22.5.5.1");
           st.add("φVc", "0.75 Vc", "0.75 × " + num(Vc * 1e-3), so.V_Rd * 1e-3, "kN", "ACI 318-19 21.2.1");
-        }
-        return make_check("shear", sup.where, "ACI 318-19 22.5.5.1", sup.V_Ed * 1e-3, so.V_Rd * 1e-3,
-                          "kN", st.take());
-      }));
+          return st.take();
+        });
+      });
       out.supports.push_back(std::move(so));
     }
     return out;

@@ -69,6 +69,8 @@ class Checker final : public SlabChecker {
     for (const auto& name : req.reinforcement.bars.value_or(default_bars))
       bars_.push_back({name, *bar_diameter(name), bar_area(*bar_diameter(name))});
     if (!ndp.durability_note.empty()) warnings_.push_back(ndp.durability_note);
+    structural_class_ = structural_class(req.durability.design_life_years, exposure_, m_.fck);
+    c_min_dur_ = minimum_cover_durability(structural_class_, exposure_);
   }
 
   LoadBasis load_basis() const override {
@@ -99,50 +101,46 @@ class Checker final : public SlabChecker {
   }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
-                             bool with_steps) const override {
+                             Detail detail) const override {
     RegionOutcome out;
+    CheckCollector checks(out.checks, out.verdict, detail);
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
     const double phi = bar.diameter_mm, dg = req_.concrete.aggregate_mm;
     const double As_prov = bar.area_mm2 * b / s;
 
     // Cover (4.4.1)
-    Steps cover_steps(with_steps);
-    const int s_class = structural_class(req_.durability.design_life_years, exposure_, m_.fck);
-    const double c_dur = minimum_cover_durability(s_class, exposure_);
+    const int s_class = structural_class_;
+    const double c_dur = c_min_dur_;
     const double c_bond = minimum_cover_bond(phi, dg);
     const double c_min = minimum_cover(c_bond, c_dur);
     const double c_req = c_min + ndp_.delta_c_dev_mm;
-    const double c_nom = req_.durability.cover_mm ? *req_.durability.cover_mm : round_up_to_5(c_req);
-    if (cover_steps.on()) {
-      cover_steps.add("S", "structural class (S4, life, slab geometry, strength)",
-                      "S" + std::to_string(s_class) + " for " + exposure_ + ", " +
-                          num(req_.durability.design_life_years) + " years, fck " + num(m_.fck),
-                      s_class, "-", "EN 1992-1-1 4.4.1.2 Table 4.3N");
-      if (cover_steps.on()) {
-        cover_steps.add("c_min,dur", "Table 4.4N (S, exposure)",
-                        "S" + std::to_string(s_class) + ", " + exposure_, c_dur, "mm",
-                        "EN 1992-1-1 4.4.1.2 Table 4.4N");
-        cover_steps.add("c_min,b", "φ (+5 if dg > 32)", num(phi) + " mm bar, dg " + num(dg), c_bond,
-                        "mm", "EN 1992-1-1 4.4.1.2 Table 4.2");
-        cover_steps.add("c_min", "max(c_min,b, c_min,dur, 10)",
-                        "max(" + num(c_bond) + ", " + num(c_dur) + ", 10)", c_min, "mm",
-                        "EN 1992-1-1 4.4.1.2 (4.2)");
-        cover_steps.add("c_min + Δc_dev", "c_min + Δc_dev", num(c_min) + " + " + num(ndp_.delta_c_dev_mm),
-                        c_req, "mm", "EN 1992-1-1 4.4.1.3");
-        cover_steps.add("c_nom", req_.durability.cover_mm ? "given" : "c_min + Δc_dev rounded up to 5 mm",
-                        num(c_nom), c_nom, "mm", "EN 1992-1-1 4.4.1.1");
-      }
-    }
+    const bool cover_given = req_.durability.cover_mm.has_value();
+    const double c_nom = cover_given ? *req_.durability.cover_mm : round_up_to_5(c_req);
+    auto cover_steps = [&] {
+      Steps st(true);
+      st.add("S", "structural class (S4, life, slab geometry, strength)",
+             "S" + std::to_string(s_class) + " for " + exposure_ + ", " +
+                 num(req_.durability.design_life_years) + " years, fck " + num(m_.fck),
+             s_class, "-", "EN 1992-1-1 4.4.1.2 Table 4.3N");
+      st.add("c_min,dur", "Table 4.4N (S, exposure)", "S" + std::to_string(s_class) + ", " + exposure_,
+             c_dur, "mm", "EN 1992-1-1 4.4.1.2 Table 4.4N");
+      st.add("c_min,b", "φ (+5 if dg > 32)", num(phi) + " mm bar, dg " + num(dg), c_bond, "mm",
+             "EN 1992-1-1 4.4.1.2 Table 4.2");
+      st.add("c_min", "max(c_min,b, c_min,dur, 10)", "max(" + num(c_bond) + ", " + num(c_dur) + ", 10)",
+             c_min, "mm", "EN 1992-1-1 4.4.1.2 (4.2)");
+      st.add("c_min + Δc_dev", "c_min + Δc_dev", num(c_min) + " + " + num(ndp_.delta_c_dev_mm), c_req,
+             "mm", "EN 1992-1-1 4.4.1.3");
+      st.add("c_nom", cover_given ? "given" : "c_min + Δc_dev rounded up to 5 mm", num(c_nom), c_nom,
+             "mm", "EN 1992-1-1 4.4.1.1");
+      return st.take();
+    };
     out.cover_mm = c_nom;
     out.d_mm = h - c_nom - phi / 2.0;
     const double d = out.d_mm;
     out.As_min_mm2 = minimum_tension_steel(m_.fctm, m_.fyk, b, d);
     out.As_max_mm2 = maximum_steel(b, h);
-    if (d <= 0.0) {
-      out.checks.push_back(make_check("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, 0.0,
-                                      "kNm"));
-      out.checks.push_back(make_check("cover", g.where, "EN 1992-1-1 4.4.1", c_req, c_nom, "mm",
-                                      cover_steps.take()));
+    if (d <= 0.0) {  // the bar does not fit: nothing can resist
+      checks.add("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, 0.0, "kNm", cover_steps);
       return out;
     }
 
@@ -159,129 +157,118 @@ class Checker final : public SlabChecker {
     const double M_lim = K_lim * m_.fck * b * d * d;
     const double M_Rd = std::min(moment_resistance(As_prov, m_.fyd, m_.fcd, m_.eta, b, d), M_lim);
 
-    Steps bend(with_steps), duct(with_steps);
-    if (with_steps) {
-      bend.add("d", "h − c_nom − φ/2", num(h) + " − " + num(c_nom) + " − " + num(phi) + "/2", d, "mm",
+    run_check("bending", [&] {
+      checks.add("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, M_Rd * 1e-6, "kNm", [&] {
+        // A computed cover is no check of its own: its derivation leads the
+        // bending steps, where it sets d.
+        Steps st(true);
+        if (!cover_given)
+          for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
+        st.add("d", "h − c_nom − φ/2", num(h) + " − " + num(c_nom) + " − " + num(phi) + "/2", d, "mm",
                "EN 1992-1-1 6.1");
-      bend.add("K", "M_Ed / (b d² fck)",
-               num(g.M_Ed * 1e-6) + "e6 / (" + num(b) + " × " + num(d) + "² × " + num(m_.fck) + ")",
-               K, "-", "EN 1992-1-1 6.1");
-      bend.add("z", "d [0.5 + √(0.25 − K/(2η αcc/γc))] ≤ 0.95 d",
-               num(d) + " [0.5 + √(0.25 − " + num(std::min(K, K_lim)) + "/(2 × " + num(m_.eta) +
-                   " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + "))]",
+        st.add("K", "M_Ed / (b d² fck)",
+               num(g.M_Ed * 1e-6) + "e6 / (" + num(b) + " × " + num(d) + "² × " + num(m_.fck) + ")", K,
+               "-", "EN 1992-1-1 6.1");
+        st.add("z", "d [0.5 + √(0.25 − K/(2η αcc/γc))] ≤ 0.95 d",
+               num(d) + " [0.5 + √(0.25 − " + num(std::min(K, K_lim)) + "/(2 × " + num(m_.eta) + " × " +
+                   num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + "))]",
                z, "mm", "EN 1992-1-1 6.1, 3.1.7(3)");
-      bend.add("As,req", "M_Ed / (fyd z)",
-               num(g.M_Ed * 1e-6) + "e6 / (" + num(m_.fyd) + " × " + num(z) + ")", out.As_req_mm2,
-               "mm2", "EN 1992-1-1 6.1");
-      bend.add("As,prov", "π φ²/4 × b/s",
-               "π × " + num(phi) + "²/4 × " + num(b) + "/" + num(s), As_prov, "mm2", "");
-      bend.add("M_Rd", "min(As fyd z_prov, K' fck b d²), z_prov = d − As fyd/(2η fcd b) ≤ 0.95d",
+        st.add("As,req", "M_Ed / (fyd z)",
+               num(g.M_Ed * 1e-6) + "e6 / (" + num(m_.fyd) + " × " + num(z) + ")", out.As_req_mm2, "mm2",
+               "EN 1992-1-1 6.1");
+        st.add("As,prov", "π φ²/4 × b/s", "π × " + num(phi) + "²/4 × " + num(b) + "/" + num(s), As_prov,
+               "mm2", "");
+        st.add("M_Rd", "min(As fyd z_prov, K' fck b d²), z_prov = d − As fyd/(2η fcd b) ≤ 0.95d",
                num(As_prov) + " × " + num(m_.fyd) + " × z_prov, limit " + num(M_lim * 1e-6) + " kNm",
                M_Rd * 1e-6, "kNm", "EN 1992-1-1 6.1, 3.1.7(3)");
-      duct.add("ξ_lim", "min((δ − k1)/k2, 0.45 or 0.35)",
-               "min((" + num(delta) + " − " + num(k_a) + ")/" + num(k_b) + ", " +
-                   (normal ? "0.45" : "0.35") + ")",
+        return st.take();
+      });
+    });
+    run_check("ductility", [&] {
+      checks.add("ductility", g.where, "EN 1992-1-1 5.5(4), 6.1", K, K_lim, "-", [&] {
+        Steps st(true);
+        st.add("ξ_lim", "min((δ − k1)/k2, 0.45 or 0.35)",
+               "min((" + num(delta) + " − " + num(k_a) + ")/" + num(k_b) + ", " + (normal ? "0.45" : "0.35") +
+                   ")",
                xi, "-", "EN 1992-1-1 5.5(4)");
-      duct.add("K'", "η (αcc/γc) λ ξ (1 − λ ξ/2)",
-               num(m_.eta) + " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + " × " +
-                   num(m_.lambda) + " × " + num(xi) + " × (1 − " + num(m_.lambda) + " × " + num(xi) +
-                   "/2)",
+        st.add("K'", "η (αcc/γc) λ ξ (1 − λ ξ/2)",
+               num(m_.eta) + " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + " × " + num(m_.lambda) +
+                   " × " + num(xi) + " × (1 − " + num(m_.lambda) + " × " + num(xi) + "/2)",
                K_lim, "-", "EN 1992-1-1 5.5(4), 6.1");
-      duct.add("K", "M_Ed / (b d² fck)", num(K), K, "-", "EN 1992-1-1 6.1");
-    }
-    out.checks.push_back(run_check("bending", [&] {
-      // A computed cover is no check of its own: its derivation leads the
-      // bending steps, where it sets d.
-      std::vector<Step> steps = req_.durability.cover_mm ? std::vector<Step>{} : cover_steps.take();
-      for (auto& st : bend.take()) steps.push_back(std::move(st));
-      return make_check("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, M_Rd * 1e-6, "kNm",
-                        std::move(steps));
-    }));
-    out.checks.push_back(run_check("ductility", [&] {
-      return make_check("ductility", g.where, "EN 1992-1-1 5.5(4), 6.1", K, K_lim, "-", duct.take());
-    }));
+        st.add("K", "M_Ed / (b d² fck)", num(K), K, "-", "EN 1992-1-1 6.1");
+        return st.take();
+      });
+    });
 
     // Minimum and maximum steel (9.2.1.1)
-    out.checks.push_back(run_check("min_steel", [&] {
-      Steps st(with_steps);
-      if (with_steps) {
-        st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", num(m_.fck), m_.fctm,
-               "MPa", "EN 1992-1-1 Table 3.1");
-        st.add("As,min", "max(0.26 fctm/fyk, 0.0013) b d",
-               "max(0.26 × " + num(m_.fctm) + "/" + num(m_.fyk) + ", 0.0013) × " + num(b) + " × " + num(d),
-               out.As_min_mm2, "mm2", "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)");
-      }
-      return make_check("min_steel", g.where, "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)", out.As_min_mm2,
-                        As_prov, "mm2", st.take());
-    }));
-    out.checks.push_back(run_check("max_steel", [&] {
-      Steps st(with_steps);
-      if (with_steps) {
+    run_check("min_steel", [&] {
+      checks.add("min_steel", g.where, "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)", out.As_min_mm2, As_prov,
+                 "mm2", [&] {
+                   Steps st(true);
+                   st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", num(m_.fck),
+                          m_.fctm, "MPa", "EN 1992-1-1 Table 3.1");
+                   st.add("As,min", "max(0.26 fctm/fyk, 0.0013) b d",
+                          "max(0.26 × " + num(m_.fctm) + "/" + num(m_.fyk) + ", 0.0013) × " + num(b) +
+                              " × " + num(d),
+                          out.As_min_mm2, "mm2", "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)");
+                   return st.take();
+                 });
+    });
+    run_check("max_steel", [&] {
+      checks.add("max_steel", g.where, "EN 1992-1-1 9.2.1.1(3)", As_prov, out.As_max_mm2, "mm2", [&] {
+        Steps st(true);
         st.add("As,max", "0.04 b h", "0.04 × " + num(b) + " × " + num(h), out.As_max_mm2, "mm2",
                "EN 1992-1-1 9.2.1.1(3)");
-      }
-      return make_check("max_steel", g.where, "EN 1992-1-1 9.2.1.1(3)", As_prov, out.As_max_mm2,
-                        "mm2", st.take());
-    }));
+        return st.take();
+      });
+    });
 
     // Spacing (9.3.1.1(3), 8.2(2))
-    out.checks.push_back(run_check("spacing", [&] {
+    run_check("spacing", [&] {
       const double s_max = max_main_bar_spacing_max_moment(h);
-      Steps st(with_steps);
-      if (with_steps) {
+      checks.add("spacing", g.where, "EN 1992-1-1 9.3.1.1(3)", s, s_max, "mm", [&] {
+        Steps st(true);
         st.add("s_max,slabs", "min(2h, 250) in areas of maximum moment", "min(2 × " + num(h) + ", 250)",
                s_max, "mm", "EN 1992-1-1 9.3.1.1(3)");
-      }
-      return make_check("spacing", g.where, "EN 1992-1-1 9.3.1.1(3)", s, s_max, "mm", st.take());
-    }));
-    out.checks.push_back(run_check("spacing", [&] {
+        return st.take();
+      });
       const double clear_min = minimum_clear_bar_spacing(phi, dg);
-      Steps st(with_steps);
-      if (with_steps) {
-        st.add("a_min", "max(φ, dg + 5, 20)", "max(" + num(phi) + ", " + num(dg) + " + 5, 20)",
-               clear_min, "mm", "EN 1992-1-1 8.2(2)");
+      checks.add("spacing", g.where, "EN 1992-1-1 8.2(2)", clear_min, s - phi, "mm", [&] {
+        Steps st(true);
+        st.add("a_min", "max(φ, dg + 5, 20)", "max(" + num(phi) + ", " + num(dg) + " + 5, 20)", clear_min,
+               "mm", "EN 1992-1-1 8.2(2)");
         st.add("a", "s − φ", num(s) + " − " + num(phi), s - phi, "mm", "EN 1992-1-1 8.2(2)");
-      }
-      return make_check("spacing", g.where, "EN 1992-1-1 8.2(2)", clear_min, s - phi, "mm",
-                        st.take());
-    }));
+        return st.take();
+      });
+    });
 
     // Crack control (7.3.3)
-    if (crack_check_needed(h)) {
-      out.checks.push_back(run_check("cracking", [&] {
-        return crack_check(g, phi, s, d, out.As_req_mm2, As_prov, with_steps);
-      }));
-    }
+    if (crack_check_needed(h))
+      run_check("cracking", [&] { crack_check(checks, g, phi, s, d, out.As_req_mm2, As_prov); });
 
     // Cover (4.4.1), when the request gives it
-    if (req_.durability.cover_mm) {
-      out.checks.push_back(run_check("cover", [&] {
-        return make_check("cover", g.where, "EN 1992-1-1 4.4.1", c_req, c_nom, "mm",
-                          cover_steps.take());
-      }));
-    }
+    if (cover_given)
+      run_check("cover", [&] { checks.add("cover", g.where, "EN 1992-1-1 4.4.1", c_req, c_nom, "mm", cover_steps); });
 
     // Fire (EN 1992-1-2 Table 5.8): axis distance of the bottom bars
     if (req_.fire.resistance_min && g.face == Face::bottom) {
-      out.checks.push_back(run_check("fire", [&] {
+      run_check("fire", [&] {
         const int t = *req_.fire.resistance_min;
         const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance(t);
-        Steps st(with_steps);
-        if (with_steps) {
+        checks.add("fire", g.where, "EN 1992-1-2 5.7.2 Table 5.8 (axis distance)", a_min, a, "mm", [&] {
+          Steps st(true);
           st.add("a", "c_nom + φ/2", num(c_nom) + " + " + num(phi) + "/2", a, "mm", "EN 1992-1-2 5.7.2");
           st.add("a_min", "Table 5.8, one-way slab", "REI " + std::to_string(t), a_min, "mm",
                  "EN 1992-1-2 5.7.2 Table 5.8");
-        }
-        return make_check("fire", g.where, "EN 1992-1-2 5.7.2 Table 5.8 (axis distance)", a_min, a,
-                          "mm", st.take());
-      }));
+          return st.take();
+        });
+      });
     }
 
     // Deflection (7.4.2) of the span these bars govern
     if (!g.span_where.empty()) {
-      out.span_checks.push_back(run_check("deflection", [&] {
-        return deflection_check(g, d, out.As_req_mm2, As_prov, with_steps);
-      }));
+      CheckCollector span(out.span_checks, out.verdict, detail);
+      run_check("deflection", [&] { deflection_check(span, g, d, out.As_req_mm2, As_prov); });
     }
 
     // Shear (6.2.2) at the supports where these bars are the tension steel
@@ -289,27 +276,28 @@ class Checker final : public SlabChecker {
       SupportOutcome so;
       so.where = sup.where;
       so.V_Ed = sup.V_Ed;
-      so.checks.push_back(run_check("shear", [&] {
+      CheckCollector support(so.checks, out.verdict, detail);
+      run_check("shear", [&] {
         const double rho_l = As_prov / (b * d);
         const double k = shear_depth_factor(d);
         const double v_min = minimum_shear_strength(k, m_.fck, ndp_.v_min_factor);
         const double C = ndp_.C_Rd_c_factor / ndp_.gamma_c;
         so.V_Rd = shear_resistance_without_links(C, k, rho_l, m_.fck, v_min, b, d);
-        Steps st(with_steps);
-        if (with_steps) {
+        support.add("shear", sup.where, "EN 1992-1-1 6.2.2(1)", sup.V_Ed * 1e-3, so.V_Rd * 1e-3, "kN", [&] {
+          Steps st(true);
           st.add("k", "1 + √(200/d) ≤ 2", "1 + √(200/" + num(d) + ")", k, "-", "EN 1992-1-1 6.2.2(1)");
-          st.add("ρl", "Asl/(b d) ≤ 0.02", num(As_prov) + "/(" + num(b) + " × " + num(d) + ")", rho_l,
-                 "-", "EN 1992-1-1 6.2.2(1)");
-          st.add("v_min", "0.035 k^1.5 fck^0.5", num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " +
-                 num(m_.fck) + "^0.5", v_min, "MPa", "EN 1992-1-1 6.2.2(1) (6.3N)");
+          st.add("ρl", "Asl/(b d) ≤ 0.02", num(As_prov) + "/(" + num(b) + " × " + num(d) + ")", rho_l, "-",
+                 "EN 1992-1-1 6.2.2(1)");
+          st.add("v_min", "0.035 k^1.5 fck^0.5",
+                 num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " + num(m_.fck) + "^0.5", v_min, "MPa",
+                 "EN 1992-1-1 6.2.2(1) (6.3N)");
           st.add("V_Rd,c", "max(CRd,c k (100 ρl fck)^(1/3), v_min) b d",
                  "max(" + num(C) + " × " + num(k) + " × (100 × " + num(std::min(rho_l, 0.02)) + " × " +
                      num(m_.fck) + ")^(1/3), " + num(v_min) + ") × " + num(b) + " × " + num(d),
                  so.V_Rd * 1e-3, "kN", "EN 1992-1-1 6.2.2(1) (6.2)");
-        }
-        return make_check("shear", sup.where, "EN 1992-1-1 6.2.2(1)", sup.V_Ed * 1e-3,
-                          so.V_Rd * 1e-3, "kN", st.take());
-      }));
+          return st.take();
+        });
+      });
       out.supports.push_back(std::move(so));
     }
     return out;
@@ -339,45 +327,42 @@ class Checker final : public SlabChecker {
   std::vector<std::string> warnings() const override { return warnings_; }
 
  private:
-  Check crack_check(const RegionDemand& g, double phi, double s, double d, double As_req,
-                    double As_prov, bool with_steps) const {
+  void crack_check(CheckCollector& checks, const RegionDemand& g, double phi, double s, double d,
+                   double As_req, double As_prov) const {
     const double h = req_.slab.thickness_mm;
     const double sigma = quasi_permanent_steel_stress(m_.fyd, g.quasi_permanent_to_uls, As_req,
                                                       As_prov, g.redistribution_delta);
+    // A limit past the end of its table is zero: that route cannot pass.
     const auto s_lim = max_bar_spacing_table_7_3N(sigma, w_max_);
     const auto phi_star = max_bar_diameter_table_7_2N(sigma, w_max_);
-    // A limit past the end of its table is zero: that route cannot pass.
     const double s_limit = s_lim.value_or(0.0);
-    const double phi_limit =
-        phi_star ? adjusted_max_bar_diameter(*phi_star, m_.fctm, h, d) : 0.0;
-    const double u_spacing = utilisation_of(s, s_limit);
-    const double u_diameter = utilisation_of(phi, phi_limit);
-    Steps st(with_steps);
-    if (with_steps) {
+    const double phi_limit = phi_star ? adjusted_max_bar_diameter(*phi_star, m_.fctm, h, d) : 0.0;
+    auto steps = [&] {
+      Steps st(true);
       st.add("w_max", "Table 7.1N for the exposure class", exposure_, w_max_, "mm",
              "EN 1992-1-1 7.3.1 Table 7.1N");
       st.add("σs", "fyd (n_qp/n_uls)(As,req/As,prov)/δ",
-             num(m_.fyd) + " × " + num(g.quasi_permanent_to_uls) + " × " + num(As_req) + "/" +
-                 num(As_prov) + " / " + num(g.redistribution_delta),
+             num(m_.fyd) + " × " + num(g.quasi_permanent_to_uls) + " × " + num(As_req) + "/" + num(As_prov) +
+                 " / " + num(g.redistribution_delta),
              sigma, "MPa", "EN 1992-1-1 7.3.3 (common practice estimate)");
-      st.add("s_max", "Table 7.3N(σs, w_max)", num(sigma) + " MPa", s_limit, "mm",
-             "EN 1992-1-1 7.3.3 Table 7.3N");
+      st.add("s_max", "Table 7.3N(σs, w_max)", num(sigma) + " MPa", s_limit, "mm", "EN 1992-1-1 7.3.3 Table 7.3N");
       st.add("φ*s", "Table 7.2N(σs, w_max)", num(sigma) + " MPa", phi_star.value_or(0.0), "mm",
              "EN 1992-1-1 7.3.3 Table 7.2N");
       st.add("φs", "φ*s (fctm/2.9) kc hcr/(2(h − d)), kc = 0.4, hcr = h/2",
-             num(phi_star.value_or(0.0)) + " × (" + num(m_.fctm) + "/2.9) × 0.4 × " + num(h / 2) +
-                 "/(2 × (" + num(h) + " − " + num(d) + "))",
+             num(phi_star.value_or(0.0)) + " × (" + num(m_.fctm) + "/2.9) × 0.4 × " + num(h / 2) + "/(2 × (" +
+                 num(h) + " − " + num(d) + "))",
              phi_limit, "mm", "EN 1992-1-1 7.3.3 (7.6N)");
-    }
-    if (u_spacing <= u_diameter)
-      return make_check("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.3N (bar spacing)", s,
-                        s_limit, "mm", st.take());
-    return make_check("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.2N (bar diameter)", phi,
-                      phi_limit, "mm", st.take());
+      return st.take();
+    };
+    // Either route passes the check; the one with the lower utilisation is reported.
+    if (utilisation_of(s, s_limit) <= utilisation_of(phi, phi_limit))
+      checks.add("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.3N (bar spacing)", s, s_limit, "mm", steps);
+    else
+      checks.add("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.2N (bar diameter)", phi, phi_limit, "mm", steps);
   }
 
-  Check deflection_check(const RegionDemand& g, double d, double As_req, double As_prov,
-                         bool with_steps) const {
+  void deflection_check(CheckCollector& checks, const RegionDemand& g, double d, double As_req,
+                        double As_prov) const {
     // A region with no moment has As,req = 0; a floor of 1e-6 keeps (7.16a)
     // finite (the ratio is then far above any actual l/d).
     const double rho = std::max(As_req / (req_.slab.strip_width_mm * d), 1e-6);
@@ -388,30 +373,27 @@ class Checker final : public SlabChecker {
     const double f_steel = steel_stress_factor(m_.fyk, As_prov, As_req, ndp_.steel_stress_factor_cap);
     const double allowed = basic * f_long * f_steel;
     const double actual = g.span_mm / d;
-    Steps st(with_steps);
-    if (with_steps) {
+    checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.2 (7.16), Table 7.4N", actual, allowed, "-", [&] {
+      Steps st(true);
       st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");
-      st.add("ρ", "As,req/(b d)",
-             num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho, "-",
-             "EN 1992-1-1 7.4.2(2)");
+      st.add("ρ", "As,req/(b d)", num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho,
+             "-", "EN 1992-1-1 7.4.2(2)");
       st.add("K", "Table 7.4N structural system", num(K), K, "-", "EN 1992-1-1 7.4.2 Table 7.4N");
-      st.add("l/d basic", rho <= rho0 ? "K[11 + 1.5√fck ρ0/ρ + 3.2√fck (ρ0/ρ − 1)^1.5]"
-                                      : "K[11 + 1.5√fck ρ0/(ρ − ρ') + √fck √(ρ'/ρ0)/12], ρ' = 0",
-             "K = " + num(K) + ", fck = " + num(m_.fck) + ", ρ0 = " + num(rho0) + ", ρ = " + num(rho),
-             basic, "-", rho <= rho0 ? "EN 1992-1-1 7.4.2 (7.16a)" : "EN 1992-1-1 7.4.2 (7.16b)");
-      st.add("F_l", "7/leff when leff > 7 m", num(g.span_mm * 1e-3) + " m", f_long, "-",
-             "EN 1992-1-1 7.4.2(2)");
+      st.add("l/d basic",
+             rho <= rho0 ? "K[11 + 1.5√fck ρ0/ρ + 3.2√fck (ρ0/ρ − 1)^1.5]"
+                         : "K[11 + 1.5√fck ρ0/(ρ − ρ') + √fck √(ρ'/ρ0)/12], ρ' = 0",
+             "K = " + num(K) + ", fck = " + num(m_.fck) + ", ρ0 = " + num(rho0) + ", ρ = " + num(rho), basic, "-",
+             rho <= rho0 ? "EN 1992-1-1 7.4.2 (7.16a)" : "EN 1992-1-1 7.4.2 (7.16b)");
+      st.add("F_l", "7/leff when leff > 7 m", num(g.span_mm * 1e-3) + " m", f_long, "-", "EN 1992-1-1 7.4.2(2)");
       st.add("310/σs", "(500/fyk)(As,prov/As,req) ≤ cap",
              "(500/" + num(m_.fyk) + ")(" + num(As_prov) + "/" + num(As_req) + ") ≤ " +
                  num(ndp_.steel_stress_factor_cap),
              f_steel, "-", "EN 1992-1-1 7.4.2(2) (7.17)");
-      st.add("l/d allowed", "l/d basic × F_l × 310/σs",
-             num(basic) + " × " + num(f_long) + " × " + num(f_steel), allowed, "-",
-             "EN 1992-1-1 7.4.2");
+      st.add("l/d allowed", "l/d basic × F_l × 310/σs", num(basic) + " × " + num(f_long) + " × " + num(f_steel),
+             allowed, "-", "EN 1992-1-1 7.4.2");
       st.add("l/d actual", "leff/d", num(g.span_mm) + "/" + num(d), actual, "-", "EN 1992-1-1 7.4.2");
-    }
-    return make_check("deflection", g.span_where, "EN 1992-1-1 7.4.2 (7.16), Table 7.4N", actual,
-                      allowed, "-", st.take());
+      return st.take();
+    });
   }
 
   Ndp ndp_;
@@ -419,6 +401,8 @@ class Checker final : public SlabChecker {
   Materials m_{};
   PsiFactors psi_{};
   std::string exposure_;
+  int structural_class_ = 0;   // Table 4.3N, for this request
+  double c_min_dur_ = 0.0;     // Table 4.4N, for this request
   double w_max_ = 0.0;
   std::vector<BarOption> bars_;
   std::vector<std::string> warnings_;

@@ -99,7 +99,8 @@ int design_command(const std::vector<std::string>& args) {
   }
   armature::DesignRecord record;
   try {
-    record = armature::design(armature::Registry::shared(), request);
+    record = armature::design(armature::Registry::shared(), request,
+                              report.empty() ? armature::Detail::checks : armature::Detail::steps);
   } catch (const armature::InputError& e) {
     for (const auto& p : e.problems()) std::cerr << "armature: " << p.text() << "\n";
     return exit_input;

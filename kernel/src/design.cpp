@@ -76,21 +76,6 @@ LoadTotals total_loads(const LoadBasis& basis, const Request& req) {
   return t;
 }
 
-bool passes_all(const RegionOutcome& o) {
-  auto ok = [](const std::vector<Check>& cs) {
-    return std::all_of(cs.begin(), cs.end(), [](const Check& c) { return c.pass; });
-  };
-  if (!ok(o.checks) || !ok(o.span_checks)) return false;
-  return std::all_of(o.supports.begin(), o.supports.end(),
-                     [&](const SupportOutcome& s) { return ok(s.checks); });
-}
-
-bool passes_bending_and_min_steel(const RegionOutcome& o) {
-  return std::all_of(o.checks.begin(), o.checks.end(), [](const Check& c) {
-    return c.pass || (c.id != "bending" && c.id != "min_steel");
-  });
-}
-
 struct Chosen {
   SearchCandidate candidate;
   bool found = false;
@@ -109,15 +94,16 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
                             std::vector<std::string>& warnings) {
   const auto bars = call_code(code, "bar options", [&] { return checker.bar_options(); });
   const double s_max =
-      call_code(code, "maximum spacing at " + region.where, [&] { return checker.max_spacing_mm(region); });
+      call_code(code, "maximum spacing", [&] { return checker.max_spacing_mm(region); });
   Chosen passing, fallback, largest;
   for (const auto& bar : bars) {
     for (double s = first_spacing_mm; s <= s_max + 1e-9; s += spacing_step_mm) {
       SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      RegionOutcome o = call_code(code, "checks at " + region.where,
-                                  [&] { return checker.check_region(region, bar, s, false); });
-      if (passes_all(o)) consider(passing, c);
-      if (passes_bending_and_min_steel(o)) consider(fallback, c);
+      const RegionVerdict v = call_code(code, "the bar search", [&] {
+        return checker.check_region(region, bar, s, Detail::verdict).verdict;
+      });
+      if (v.all_pass) consider(passing, c);
+      if (v.strength_pass) consider(fallback, c);
       if (!largest.found || c.As_prov_mm2 > largest.candidate.As_prov_mm2) {
         largest.candidate = c;
         largest.found = true;
@@ -162,7 +148,7 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
   return d;
 }
 
-DesignRecord design_validated(const DesignCode& code, const Request& req);
+DesignRecord design_validated(const DesignCode& code, const Request& req, Detail detail);
 
 }  // namespace
 
@@ -189,7 +175,7 @@ std::vector<const Check*> DesignRecord::all_checks() const {
   return out;
 }
 
-DesignRecord design(const Registry& registry, const nlohmann::json& j) {
+DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail detail) {
   InputProblems problems;
   Request req = request_from_json(j, problems);
   std::shared_ptr<const DesignCode> code;
@@ -207,10 +193,10 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j) {
   }
   if (problems.empty()) add_scope_problems(req, problems);
   problems.raise_if_any();
-  return design_validated(*code, req);
+  return design_validated(*code, req, detail);
 }
 
-DesignRecord design(const Registry& registry, const Request& req) {
+DesignRecord design(const Registry& registry, const Request& req, Detail detail) {
   auto code = registry.open(req.code, req.variant.value_or(""));
   InputProblems problems;
   const CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""},
@@ -218,7 +204,7 @@ DesignRecord design(const Registry& registry, const Request& req) {
   call_code(id, "input validation", [&] { code->validate(req, problems); });
   add_scope_problems(req, problems);
   problems.raise_if_any();
-  return design_validated(*code, req);
+  return design_validated(*code, req, detail);
 }
 
 namespace {
@@ -312,7 +298,8 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
   return out;
 }
 
-DesignRecord design_validated(const DesignCode& code, const Request& req) {
+DesignRecord design_validated(const DesignCode& code, const Request& req, Detail detail) {
+  if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                        [&] { return code.identity(); });
@@ -358,7 +345,7 @@ DesignRecord design_validated(const DesignCode& code, const Request& req) {
   for (const auto& demand : demands) {
     const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);
     RegionOutcome out = call_code(rec.code, "checks at " + demand.where, [&] {
-      return checker->check_region(demand, pick.bar, pick.spacing_mm, true);
+      return checker->check_region(demand, pick.bar, pick.spacing_mm, detail);
     });
     RegionRecord region;
     region.where = demand.where;

@@ -16,7 +16,7 @@ class ThrowingChecker final : public SlabChecker {
   double pinned_end_fixity_fraction() const override { return 0.0; }
   std::vector<BarOption> bar_options() const override { return {{"10", 10.0, 78.5}}; }
   double max_spacing_mm(const RegionDemand&) const override { return 200.0; }
-  RegionOutcome check_region(const RegionDemand&, const BarOption&, double, bool) const override {
+  RegionOutcome check_region(const RegionDemand&, const BarOption&, double, Detail) const override {
     RegionOutcome out;
     out.checks.push_back(run_check("bending", []() -> Check {
       throw std::runtime_error("deliberate failure inside the bending check");

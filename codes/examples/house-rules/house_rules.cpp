@@ -49,12 +49,14 @@ class Checker final : public SlabChecker {
   }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
-                             bool with_steps) const override {
-    RegionOutcome out = inner_->check_region(g, bar, s, with_steps);
+                             Detail detail) const override {
+    // The house changes EN's checks, so it always asks for them.
+    const Detail inner_detail = detail == Detail::steps ? Detail::steps : Detail::checks;
+    RegionOutcome out = inner_->check_region(g, bar, s, inner_detail);
     // HR-4: where EN's own cover is less than 30 mm, design with 30 mm
     // given (EN then checks that 30 mm meets its own minimum).
     if (min_cover_ && out.cover_mm < min_cover)
-      out = min_cover_->check_region(g, bar, s, with_steps);
+      out = min_cover_->check_region(g, bar, s, inner_detail);
     for (auto& c : out.span_checks)
       if (c.id == "deflection") c = scaled_deflection(std::move(c));
     out.checks.push_back(run_check("spacing", [&] {
@@ -65,6 +67,7 @@ class Checker final : public SlabChecker {
       return make_check("cover", g.where, "house rule HR-4", min_cover, out.cover_mm, "mm",
                         {{"c_nom,min", "house minimum", "30", min_cover, "mm", "house rule HR-4"}});
     }));
+    out.verdict = verdict_of(out);
     return out;
   }
 

@@ -7,6 +7,7 @@
 
 #include <memory>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -76,6 +77,17 @@ struct RegionDemand {
   double redistribution_delta = 1.0;    // δ of 5.5 at this region
 };
 
+// How much a code reports for one bar arrangement: the bar search needs
+// only the verdict; the result needs the checks; the record their steps.
+enum class Detail { verdict, checks, steps };
+
+struct RegionVerdict {
+  bool all_pass = true;       // every check of the arrangement passes
+  bool strength_pass = true;  // bending and minimum steel pass
+};
+
+inline bool is_strength_check(std::string_view id) { return id == "bending" || id == "min_steel"; }
+
 struct BarOption {
   std::string designation;  // as in the request: "12", "#4"
   double diameter_mm = 0.0;
@@ -91,6 +103,7 @@ struct SupportOutcome {
 
 // The code's verdict on one bar arrangement in one region.
 struct RegionOutcome {
+  RegionVerdict verdict;       // always filled, at every detail
   double cover_mm = 0.0;       // nominal cover used for these bars
   double d_mm = 0.0;           // effective depth
   double As_req_mm2 = 0.0;
@@ -121,9 +134,10 @@ class SlabChecker {
   virtual std::vector<BarOption> bar_options() const = 0;
   // Largest bar spacing the code allows in this region (mm).
   virtual double max_spacing_mm(const RegionDemand& region) const = 0;
-  // Every check of one arrangement; steps are filled only when asked for.
+  // Every check of one arrangement, at the detail asked for (the verdict
+  // is filled at every detail).
   virtual RegionOutcome check_region(const RegionDemand& region, const BarOption& bar,
-                                     double spacing_mm, bool with_steps) const = 0;
+                                     double spacing_mm, Detail detail) const = 0;
   // Checks of a span that do not depend on the bars (fire thickness, ...).
   virtual std::vector<Check> span_checks(const std::string& span_where) const = 0;
   virtual DistributionNeed distribution(double main_As_prov_mm2) const = 0;
@@ -139,6 +153,40 @@ class DesignCode {
   // For a request that passed validate().
   virtual std::unique_ptr<SlabChecker> begin(const Request& request) const = 0;
 };
+
+// Collects the checks of one arrangement at a detail: always the verdict,
+// the Check records from Detail::checks, their steps at Detail::steps only
+// (`make_steps` is not called otherwise).
+class CheckCollector {
+ public:
+  CheckCollector(std::vector<Check>& out, RegionVerdict& verdict, Detail detail)
+      : out_(out), verdict_(verdict), detail_(detail) {}
+  Detail detail() const { return detail_; }
+
+  // Records the requirement demand ≤ capacity.
+  template <class StepsFn>
+  void add(const char* id, const std::string& where, const char* clause, double demand,
+           double capacity, const char* unit, StepsFn&& make_steps) {
+    const bool pass = utilisation_of(demand, capacity) <= 1.0;
+    verdict_.all_pass = verdict_.all_pass && pass;
+    if (is_strength_check(id)) verdict_.strength_pass = verdict_.strength_pass && pass;
+    if (detail_ == Detail::verdict) return;
+    out_.push_back(make_check(id, where, clause, demand, capacity, unit,
+                              detail_ == Detail::steps ? make_steps() : std::vector<Step>{}));
+  }
+  void add(const char* id, const std::string& where, const char* clause, double demand,
+           double capacity, const char* unit) {
+    add(id, where, clause, demand, capacity, unit, [] { return std::vector<Step>{}; });
+  }
+
+ private:
+  std::vector<Check>& out_;
+  RegionVerdict& verdict_;
+  Detail detail_;
+};
+
+// The verdict of an outcome's checks (for a decorator that changed them).
+RegionVerdict verdict_of(const RegionOutcome& outcome);
 
 // Runs one check; any exception escapes as CheckError naming the check.
 template <class Fn>

@@ -90,10 +90,14 @@ struct DesignRecord {
 };
 
 // Parses and validates a JSON request (throws InputError listing every
-// problem), opens its code through the registry and designs it.
-DesignRecord design(const Registry& registry, const nlohmann::json& request);
+// problem), opens its code through the registry and designs it. The chosen
+// arrangements' checks carry their steps only at Detail::steps (the
+// calculation record); Detail::verdict is treated as Detail::checks.
+DesignRecord design(const Registry& registry, const nlohmann::json& request,
+                    Detail detail = Detail::checks);
 // The same for a request already parsed; the code's validation still runs.
-DesignRecord design(const Registry& registry, const Request& request);
+DesignRecord design(const Registry& registry, const Request& request,
+                    Detail detail = Detail::checks);
 
 // Bar search of contract.md, exposed for tests: the chosen arrangement.
 struct SearchCandidate {

@@ -22,8 +22,8 @@ inline std::string step_number(double v) {
 class StepRecorder {
  public:
   explicit StepRecorder(bool on) : on_(on) {}
-  void add(const char* symbol, const std::string& expression, const std::string& substituted,
-           double result, const char* unit, const char* clause) {
+  void add(const std::string& symbol, const std::string& expression, const std::string& substituted,
+           double result, const std::string& unit, const std::string& clause) {
     if (on_) items_.push_back({symbol, expression, substituted, result, unit, clause});
   }
   bool on() const { return on_; }
