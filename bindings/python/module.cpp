@@ -20,6 +20,7 @@
 #include "armature/quantities.hpp"
 #include "armature/registry.hpp"
 #include "armature/report.hpp"
+#include "armature/result_writer.hpp"
 
 namespace py = pybind11;
 using nlohmann::json;
@@ -72,10 +73,13 @@ json to_json(const py::handle& obj, const std::string& path, int depth = 0) {
 
 // Result objects repeat the same few dozen keys; their Python strings are
 // made once (with their hash) and reused. Called with the GIL held.
+// Values repeat too (check ids, clauses, units, places): short strings are
+// cached as well, up to a bound, and shared (Python strings are immutable).
 const py::object& key_object(const std::string& key) {
-  static std::unordered_map<std::string, py::object>* cache = new std::unordered_map<std::string, py::object>();
+  static auto* cache = new std::unordered_map<std::string, py::object>();  // lives with the process
   auto it = cache->find(key);
   if (it == cache->end()) {
+    if (cache->size() > 8192) cache->clear();
     py::str k(key);
     PyUnicode_InternInPlace(&k.ptr());
     it = cache->emplace(key, std::move(k)).first;
@@ -83,42 +87,62 @@ const py::object& key_object(const std::string& key) {
   return it->second;
 }
 
-py::object to_python(const json& j) {
-  switch (j.type()) {
-    case json::value_t::null: return py::none();
-    case json::value_t::boolean: return py::bool_(j.get<bool>());
-    case json::value_t::number_integer: return py::int_(j.get<long long>());
-    case json::value_t::number_unsigned: return py::int_(j.get<unsigned long long>());
-    case json::value_t::number_float: return py::float_(j.get<double>());
-    case json::value_t::string: return py::str(j.get_ref<const std::string&>());
-    case json::value_t::array: {
-      py::list l(j.size());
-      std::size_t i = 0;
-      for (const auto& v : j) PyList_SET_ITEM(l.ptr(), static_cast<py::ssize_t>(i++), to_python(v).release().ptr());
-      return l;
-    }
-    case json::value_t::object: {
-      py::dict d;
-      for (auto it = j.begin(); it != j.end(); ++it)
-        PyDict_SetItem(d.ptr(), key_object(it.key()).ptr(), to_python(it.value()).ptr());
-      return d;
-    }
-    default: return py::none();
+// Builds the result's Python objects straight from the design record,
+// through the shared schema of result_writer.hpp. Needs the GIL.
+class PyWriter {
+ public:
+  void begin_object() { open(PyDict_New()); }
+  void begin_array() { open(PyList_New(0)); }
+  void end() { stack_.pop_back(); }
+  void key(const char* k) { key_ = k; }
+  void value(double v) { put(PyFloat_FromDouble(v)); }
+  void value(bool v) { put(PyBool_FromLong(v)); }
+  void value(const std::string& v) {
+    if (v.size() <= 64) put(key_object(v).inc_ref().ptr());
+    else put(PyUnicode_FromStringAndSize(v.data(), static_cast<Py_ssize_t>(v.size())));
   }
+  void value(const char* v) { value(std::string(v)); }
+  py::object take() { return std::move(root_); }
+
+ private:
+  // Steals `v`; returns it (borrowed) for opening.
+  PyObject* put(PyObject* v) {
+    if (!v) throw py::error_already_set();
+    if (stack_.empty()) {
+      root_ = py::reinterpret_steal<py::object>(v);
+      return v;
+    }
+    PyObject* top = stack_.back();
+    if (PyList_Check(top)) PyList_Append(top, v);
+    else PyDict_SetItem(top, key_object(key_).ptr(), v);
+    Py_DECREF(v);  // the container holds it now
+    return v;
+  }
+  void open(PyObject* v) { stack_.push_back(put(v)); }
+
+  py::object root_;
+  std::vector<PyObject*> stack_;
+  const char* key_ = "";
+};
+
+py::object record_to_python(const armature::DesignRecord& record) {
+  PyWriter w;
+  armature::write_result(w, record);
+  return w.take();
 }
 
-json design_json(const json& request) {
-  return armature::result_to_json(armature::design(armature::Registry::shared(), request));
+armature::DesignRecord design_record(const json& request) {
+  return armature::design(armature::Registry::shared(), request);
 }
 
 py::object design(const py::handle& request) {
   json req = to_json(request, "");
-  json result;
+  armature::DesignRecord record;
   {
     py::gil_scoped_release release;
-    result = design_json(req);
+    record = design_record(req);
   }
-  return to_python(result);
+  return record_to_python(record);
 }
 
 // Runs fn(i) for i in [0, n) on `threads` threads (0: all cores). Call
@@ -144,10 +168,11 @@ armature::InputError indexed(const armature::InputError& e, const std::string& p
   return armature::InputError(ps);
 }
 
-// With one thread everything runs on the calling thread. With more, that
-// many workers design while the calling thread converts finished results
-// to Python objects in order (the conversion needs the GIL, the designs do
-// not), so the two overlap; a result's JSON is freed once converted.
+// With one thread everything runs on the calling thread. With T threads,
+// T − 1 workers design while the calling thread converts finished results
+// to Python objects in order (only that needs the GIL) and designs too
+// whenever the next result is not ready. Workers stay at most `window`
+// results ahead of the conversion, so memory stays bounded.
 py::list design_many(const py::sequence& requests, unsigned threads) {
   std::vector<json> reqs;
   reqs.reserve(py::len(requests));
@@ -159,75 +184,86 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
     }
   }
   const std::size_t n = reqs.size();
-  const unsigned workers = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
+  const unsigned total = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
+  const std::size_t window = 256;
   py::list out;
-  auto raise_for = [&](std::size_t i, std::exception_ptr error) {
-    try {
-      std::rethrow_exception(error);
-    } catch (const armature::InputError& e) {
-      throw indexed(e, "requests[" + std::to_string(i) + "]");
-    }
-  };
-  if (workers <= 1 || n <= 1) {
-    armature::Registry::shared();
-    for (std::size_t i = 0; i < n; ++i) {
-      json result;
-      std::exception_ptr error;
-      {
-        py::gil_scoped_release release;
-        try {
-          result = design_json(reqs[i]);
-        } catch (...) {
-          error = std::current_exception();
-        }
-      }
-      if (error) raise_for(i, error);
-      out.append(to_python(result));
-    }
-    return out;
-  }
-  std::vector<json> results(n);
+  std::vector<armature::DesignRecord> results(n);
   std::vector<std::exception_ptr> errors(n);
   std::vector<char> ready(n, 0);
   std::mutex mutex;
-  std::condition_variable cv;
+  std::condition_variable ready_cv, space_cv;
   std::atomic<bool> stop{false};
-  std::atomic<std::size_t> next{0};
+  std::atomic<std::size_t> next{0}, converted{0};
+  auto design_one = [&](std::size_t i) {
+    try {
+      results[i] = design_record(reqs[i]);
+    } catch (...) {
+      errors[i] = std::current_exception();
+    }
+    {
+      std::lock_guard<std::mutex> lock(mutex);
+      ready[i] = 1;
+    }
+    ready_cv.notify_one();
+  };
   std::vector<std::thread> pool;
   {
     py::gil_scoped_release release;
-    armature::Registry::shared();
-    for (unsigned k = 0; k < std::min<std::size_t>(workers, n); ++k)
+    armature::Registry::shared();  // load plug-ins once, before the workers start
+    for (unsigned k = 1; k < total && k < n; ++k)
       pool.emplace_back([&] {
-        for (std::size_t i; !stop && (i = next.fetch_add(1)) < n;) {
-          try {
-            results[i] = design_json(reqs[i]);
-          } catch (...) {
-            errors[i] = std::current_exception();
-          }
+        while (!stop) {
           {
-            std::lock_guard<std::mutex> lock(mutex);
-            ready[i] = 1;
+            std::unique_lock<std::mutex> lock(mutex);
+            space_cv.wait(lock, [&] { return stop || next.load() < converted.load() + window; });
           }
-          cv.notify_all();
+          const std::size_t i = next.fetch_add(1);
+          if (i >= n || stop) break;
+          design_one(i);
         }
       });
   }
   auto join_all = [&] {
     py::gil_scoped_release release;
-    stop = true;
+    {
+      std::lock_guard<std::mutex> lock(mutex);
+      stop = true;
+    }
+    space_cv.notify_all();
     for (auto& t : pool) t.join();
   };
   try {
     for (std::size_t i = 0; i < n; ++i) {
       {
         py::gil_scoped_release release;
-        std::unique_lock<std::mutex> lock(mutex);
-        cv.wait(lock, [&] { return ready[i] != 0; });
+        for (;;) {
+          {
+            std::lock_guard<std::mutex> lock(mutex);
+            if (ready[i]) break;
+          }
+          if (next.load() < std::min(n, i + window)) {
+            const std::size_t j = next.fetch_add(1);
+            if (j < n) {
+              design_one(j);
+              continue;
+            }
+          }
+          std::unique_lock<std::mutex> lock(mutex);
+          ready_cv.wait(lock, [&] { return ready[i] != 0; });
+          break;
+        }
       }
-      if (errors[i]) raise_for(i, errors[i]);
-      out.append(to_python(results[i]));
-      json().swap(results[i]);
+      if (errors[i]) {
+        try {
+          std::rethrow_exception(errors[i]);
+        } catch (const armature::InputError& e) {
+          throw indexed(e, "requests[" + std::to_string(i) + "]");
+        }
+      }
+      out.append(record_to_python(results[i]));
+      results[i] = armature::DesignRecord{};  // free it once converted
+      converted = i + 1;
+      space_cv.notify_all();
     }
   } catch (...) {
     join_all();
@@ -373,7 +409,7 @@ py::list envelope_diagrams(const py::handle& request) {
   armature::DesignRecord rec;
   {
     py::gil_scoped_release release;
-    rec = armature::design(armature::Registry::shared(), req);
+    rec = armature::design(armature::Registry::shared(), req, armature::Detail::steps);
   }
   py::list spans;
   for (const auto& span : rec.diagrams) {

@@ -327,7 +327,7 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
     cases.push_back(delta < 1.0 ? redistribute(model, elastic, redistributed, delta) : std::move(elastic));
   }
   const Envelope env = envelope_of(model, cases);
-  rec.diagrams = envelope_diagrams(model, cases);
+  if (detail == Detail::steps) rec.diagrams = envelope_diagrams(model, cases);  // for the record
   rec.spans_mm = req.slab.spans_mm;
   rec.uls_expressions = basis.uls;
   rec.load_arrangements = arrangements.size();

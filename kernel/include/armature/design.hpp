@@ -78,7 +78,7 @@ struct DesignRecord {
   double strip_width_mm = 1000.0;
   double thickness_mm = 0.0;
   std::vector<double> spans_mm;
-  std::vector<std::vector<DiagramPoint>> diagrams;  // M and V envelopes per span
+  std::vector<std::vector<DiagramPoint>> diagrams;  // M and V envelopes per span (Detail::steps)
   std::vector<UlsExpression> uls_expressions;       // every expression enveloped
   std::size_t load_arrangements = 0;                // per expression
   std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
