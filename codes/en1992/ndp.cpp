@@ -4,6 +4,7 @@
 #include <cstdio>
 #include <cmath>
 #include <fstream>
+#include <iterator>
 #include <map>
 #include <stdexcept>
 
@@ -53,12 +54,16 @@ bool is_crack_width_column(double w) {
 }  // namespace
 
 Ndp read_ndp_file(const std::filesystem::path& file) {
-  const std::string where = file.string();
-  std::ifstream in(file);
-  if (!in) throw std::invalid_argument(where + ": cannot be read");
+  std::ifstream in(file, std::ios::binary);
+  if (!in) throw std::invalid_argument(file.string() + ": cannot be read");
+  const std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  return parse_ndp(text, file.string());
+}
+
+Ndp parse_ndp(const std::string& text, const std::string& where) {
   nlohmann::json j;
   try {
-    j = nlohmann::json::parse(in);
+    j = nlohmann::json::parse(text);
   } catch (const std::exception& e) {
     throw std::invalid_argument(where + ": not valid JSON: " + e.what());
   }

@@ -37,6 +37,9 @@ struct Ndp {
 // the file and the key for a missing, unknown or out-of-range parameter.
 Ndp read_ndp_file(const std::filesystem::path& file);
 
+// The same from the text of such a file; `where` names it in messages.
+Ndp parse_ndp(const std::string& text, const std::string& where);
+
 // Every *.json file of a directory, sorted by variant name.
 std::vector<Ndp> read_ndp_directory(const std::filesystem::path& dir);
 

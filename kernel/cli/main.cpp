@@ -93,7 +93,7 @@ int design_command(const std::vector<std::string>& args) {
   nlohmann::json request;
   try {
     request = nlohmann::json::parse(text);
-  } catch (const nlohmann::json::parse_error& e) {
+  } catch (const nlohmann::json::exception& e) {  // syntax, number overflow
     std::cerr << "armature: (request): not valid JSON: " << e.what() << "\n";
     return exit_input;
   }
