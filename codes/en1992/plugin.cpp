@@ -24,8 +24,9 @@ constexpr double default_fyk = 500.0;
 std::string num(double v) { return step_number(v); }
 
 std::optional<double> bar_diameter(const std::string& designation) {
-  for (double d : bar_catalogue_mm)
-    if (designation == num(d)) return d;
+  static const char* const names[] = {"6", "8", "10", "12", "16", "20", "25", "32", "40"};
+  for (std::size_t i = 0; i < bar_catalogue_mm.size(); ++i)
+    if (designation == names[i]) return bar_catalogue_mm[i];
   return std::nullopt;
 }
 

@@ -10,17 +10,17 @@ namespace armature::en1992 {
 
 // ---- Materials -------------------------------------------------------------
 std::optional<double> fck_of_strength_class(const std::string& name) {
-  // Table 3.1 strength classes C fck / fck,cube.
-  static constexpr std::array<std::array<int, 2>, 14> classes{{{12, 15}, {16, 20}, {20, 25},
-                                                               {25, 30}, {30, 37}, {35, 45},
-                                                               {40, 50}, {45, 55}, {50, 60},
-                                                               {55, 67}, {60, 75}, {70, 85},
-                                                               {80, 95}, {90, 105}}};
-  for (const auto& c : classes) {
-    char buf[16];
-    std::snprintf(buf, sizeof buf, "C%d/%d", c[0], c[1]);
-    if (name == buf) return c[0];
-  }
+  // Table 3.1 strength classes: C fck / fck,cube.
+  struct Class {
+    const char* name;
+    double fck;
+  };
+  static constexpr Class classes[] = {{"C12/15", 12}, {"C16/20", 16}, {"C20/25", 20}, {"C25/30", 25},
+                                      {"C30/37", 30}, {"C35/45", 35}, {"C40/50", 40}, {"C45/55", 45},
+                                      {"C50/60", 50}, {"C55/67", 55}, {"C60/75", 60}, {"C70/85", 70},
+                                      {"C80/95", 80}, {"C90/105", 90}};
+  for (const auto& c : classes)
+    if (name == c.name) return c.fck;
   return std::nullopt;
 }
 
@@ -217,7 +217,7 @@ double basic_span_depth_ratio(double K, double fck, double rho, double rho_compr
   const double root_fck = std::sqrt(fck);
   if (rho <= rho0)
     return K * (11.0 + 1.5 * root_fck * rho0 / rho +
-                3.2 * root_fck * std::pow(rho0 / rho - 1.0, 1.5));
+                3.2 * root_fck * (rho0 / rho - 1.0) * std::sqrt(rho0 / rho - 1.0));
   return K * (11.0 + 1.5 * root_fck * rho0 / (rho - rho_compression) +
               root_fck * std::sqrt(rho_compression / rho0) / 12.0);
 }
@@ -232,7 +232,7 @@ double steel_stress_factor(double fyk, double As_prov, double As_req, double cap
 double shear_depth_factor(double d) { return std::min(1.0 + std::sqrt(200.0 / d), 2.0); }
 
 double minimum_shear_strength(double k, double fck, double v_min_factor) {
-  return v_min_factor * std::pow(k, 1.5) * std::sqrt(fck);
+  return v_min_factor * k * std::sqrt(k) * std::sqrt(fck);  // k^1.5
 }
 
 double shear_resistance_without_links(double C_Rd_c, double k, double rho_l, double fck,

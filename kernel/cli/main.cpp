@@ -22,6 +22,7 @@
 namespace {
 
 constexpr int exit_pass = 0, exit_fail = 1, exit_input = 2, exit_internal = 3;
+constexpr std::size_t max_request_bytes = 1 << 20;  // a slab request is a few hundred bytes
 
 const char* usage =
     "usage: armature design FILE|- [--json] [--report RECORD.html|RECORD.md]\n"
@@ -89,6 +90,11 @@ int design_command(const std::vector<std::string>& args) {
       return exit_input;
     }
     text.assign(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
+  }
+  if (text.size() > max_request_bytes) {
+    std::cerr << "armature: (request): larger than 1 MiB (" << text.size() << " bytes); a slab "
+                 "request is a few hundred bytes\n";
+    return exit_input;
   }
   nlohmann::json request;
   try {

@@ -95,18 +95,29 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   const auto bars = call_code(code, "bar options", [&] { return checker.bar_options(); });
   const double s_max =
       call_code(code, "maximum spacing", [&] { return checker.max_spacing_mm(region); });
+  // Every arrangement is a candidate, but one with more steel than an
+  // arrangement already known to pass can never be chosen, so it is not
+  // checked. Each bar is tried from its widest spacing (least steel) down.
   Chosen passing, fallback, largest;
+  const int steps = s_max >= first_spacing_mm
+                        ? static_cast<int>(std::floor((s_max - first_spacing_mm) / spacing_step_mm + 1e-9))
+                        : -1;
   for (const auto& bar : bars) {
-    for (double s = first_spacing_mm; s <= s_max + 1e-9; s += spacing_step_mm) {
+    for (int k = steps; k >= 0; --k) {
+      const double s = first_spacing_mm + spacing_step_mm * k;
       SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      const RegionVerdict v = call_code(code, "the bar search", [&] {
-        return checker.check_region(region, bar, s, Detail::verdict).verdict;
-      });
-      if (v.all_pass) consider(passing, c);
-      if (v.strength_pass) consider(fallback, c);
       if (!largest.found || c.As_prov_mm2 > largest.candidate.As_prov_mm2) {
         largest.candidate = c;
         largest.found = true;
+      }
+      if (passing.found && c.As_prov_mm2 > passing.candidate.As_prov_mm2 * (1 + 1e-9)) break;
+      const RegionVerdict v = call_code(code, "the bar search", [&] {
+        return checker.check_region(region, bar, s, Detail::verdict).verdict;
+      });
+      if (v.strength_pass) consider(fallback, c);
+      if (v.all_pass) {
+        consider(passing, c);
+        break;  // closer spacings of this bar carry more steel
       }
     }
   }

@@ -307,7 +307,7 @@ void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInp
 void read_loads(const json& j, InputProblems& problems, LoadsInput& l) {
   ObjectReader r(j, "loads", problems, {"dead_kPa", "imposed_kPa", "imposed_category"});
   if (auto g = r.in_range(r.number("dead_kPa"), "dead_kPa", 0, 100, "kPa")) l.dead_MPa = *g * 1e-3;
-  if (auto q = r.in_range(r.number("imposed_kPa", true), "imposed_kPa", 0, 100, "kPa"))
+  if (auto q = r.in_range(r.number("imposed_kPa", true), "imposed_kPa", 0, 100, "kPa", true))
     l.imposed_MPa = *q * 1e-3;
   if (auto c = r.text("imposed_category")) l.imposed_category = *c;
 }

@@ -1,0 +1,55 @@
+// Design throughput on one core (Google Benchmark). Prints its figures;
+// nothing here asserts a time. Run: scripts/bench.sh
+#include <benchmark/benchmark.h>
+
+#include <nlohmann/json.hpp>
+
+#include "armature/design.hpp"
+#include "armature/json_io.hpp"
+#include "armature/registry.hpp"
+
+namespace {
+const nlohmann::json single_span = nlohmann::json::parse(R"({
+  "code": "EN1992-1-1", "variant": "UK",
+  "slab": {"spans_m": [4.5], "ends": ["pinned", "pinned"], "thickness_mm": 200},
+  "concrete": {"class": "C30/37"},
+  "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}
+})");
+const nlohmann::json five_spans = nlohmann::json::parse(R"({
+  "code": "EN1992-1-1", "variant": "UK",
+  "slab": {"spans_m": [4.2, 4.8, 4.2, 4.8, 4.2], "ends": ["pinned", "pinned"], "thickness_mm": 225},
+  "concrete": {"class": "C30/37"},
+  "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}
+})");
+
+armature::Request parsed(const nlohmann::json& j) {
+  armature::InputProblems problems;
+  return armature::request_from_json(j, problems);
+}
+
+void single_span_design(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(single_span);
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+BENCHMARK(single_span_design);
+
+void five_span_design(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(five_spans);
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+BENCHMARK(five_span_design);
+
+void json_parse_design_serialise(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const std::string text = single_span.dump();
+  for (auto _ : state) {
+    const auto record = armature::design(reg, nlohmann::json::parse(text));
+    benchmark::DoNotOptimize(armature::result_to_json(record).dump());
+  }
+}
+BENCHMARK(json_parse_design_serialise);
+}  // namespace
+
+BENCHMARK_MAIN();
