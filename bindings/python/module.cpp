@@ -93,7 +93,20 @@ class PyWriter {
  public:
   void begin_object() { open(PyDict_New()); }
   void begin_array() { open(PyList_New(0)); }
-  void end() { stack_.pop_back(); }
+  void end() {
+    last_closed_ = stack_.back();
+    stack_.pop_back();
+  }
+  // The top-level list of checks holds the very dicts of the regions,
+  // supports and spans ("the same objects as inside them").
+  bool reuse(const armature::Check* c) {
+    auto it = made_.find(c);
+    if (it == made_.end()) return false;
+    Py_INCREF(it->second);
+    put(it->second);
+    return true;
+  }
+  void remember(const armature::Check* c) { made_[c] = last_closed_; }
   void key(const char* k) { key_ = k; }
   void value(double v) { put(PyFloat_FromDouble(v)); }
   void value(bool v) { put(PyBool_FromLong(v)); }
@@ -122,6 +135,8 @@ class PyWriter {
 
   py::object root_;
   std::vector<PyObject*> stack_;
+  PyObject* last_closed_ = nullptr;                           // borrowed
+  std::unordered_map<const armature::Check*, PyObject*> made_;  // borrowed, owned by root_
   const char* key_ = "";
 };
 

@@ -6,6 +6,7 @@
 // Units convert here: m, kPa, kN, kNm outside; mm, MPa, N, N·mm inside.
 #pragma once
 
+#include <concepts>
 #include <string>
 
 #include "armature/design.hpp"
@@ -19,8 +20,20 @@ inline constexpr double kN_per_N = 1e-3;
 inline constexpr double m_per_mm = 1e-3;
 }  // namespace result_units
 
+// A writer may share one output object between the places a check appears
+// (the result lists each check twice: in its region, support or span, and
+// in the top-level list, as the same object) by offering reuse/remember.
+template <class W>
+concept SharesChecks = requires(W& w, const Check* c) {
+  { w.reuse(c) } -> std::same_as<bool>;
+  w.remember(c);
+};
+
 template <class W>
 void write_check(W& w, const Check& c, bool with_steps) {
+  if constexpr (SharesChecks<W>) {
+    if (w.reuse(&c)) return;
+  }
   w.begin_object();
   w.key("id"), w.value(c.id);
   w.key("where"), w.value(c.where);
@@ -46,6 +59,7 @@ void write_check(W& w, const Check& c, bool with_steps) {
     w.end();
   }
   w.end();
+  if constexpr (SharesChecks<W>) w.remember(&c);
 }
 
 template <class W>
