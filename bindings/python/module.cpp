@@ -127,11 +127,12 @@ class PyWriter {
     }
     PyObject* top = stack_.back();
     if (PyList_Check(top)) PyList_Append(top, v);
-    else PyDict_SetItem(top, key_object(key_).ptr(), v);
+    else PyDict_SetItem(top, literal_key(key_), v);
     Py_DECREF(v);  // the container holds it now
     return v;
   }
   void open(PyObject* v) { stack_.push_back(put(v)); }
+  static PyObject* literal_key(const char* key);
 
   py::object root_;
   std::vector<PyObject*> stack_;
@@ -139,6 +140,17 @@ class PyWriter {
   std::unordered_map<const armature::Check*, PyObject*> made_;  // borrowed, owned by root_
   const char* key_ = "";
 };
+
+// Keys are string literals of result_writer.hpp: cached by address.
+PyObject* PyWriter::literal_key(const char* key) {
+  static auto* cache = new std::unordered_map<const char*, PyObject*>();  // lives with the process
+  auto it = cache->find(key);
+  if (it != cache->end()) return it->second;
+  PyObject* k = PyUnicode_InternFromString(key);
+  if (!k) throw py::error_already_set();
+  cache->emplace(key, k);
+  return k;
+}
 
 py::object record_to_python(const armature::DesignRecord& record) {
   PyWriter w;
