@@ -342,11 +342,22 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
     total *= vs.size();
     axis_values.push_back(std::move(vs));
   }
-  std::vector<std::optional<armature::DesignRecord>> records(total);
-  std::vector<std::string> errors(total);
+  // Each worker keeps only the row of its design, not the whole record.
+  struct RegionCell {
+    std::string where, bar;
+    double spacing_mm, As_prov_mm2;
+  };
+  struct Row {
+    bool designed = false, pass = false;
+    double max_utilisation = NAN, steel = NAN, concrete = NAN;
+    std::string governing_check, governing_where, error;
+    std::vector<RegionCell> regions;
+  };
+  std::vector<Row> rows(total);
   {
     py::gil_scoped_release release;
     parallel_for(total, threads, [&](std::size_t i) {
+      Row& row = rows[i];
       try {
         json req = base_json;
         std::size_t rest = i;
@@ -362,11 +373,20 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
             set_path(req, paths[a], v);
           }
         }
-        records[i] = armature::design(armature::Registry::shared(), req);
+        const auto r = armature::design(armature::Registry::shared(), req);
+        row.designed = true;
+        row.pass = r.pass;
+        row.max_utilisation = r.max_utilisation;
+        row.governing_check = r.governing_check;
+        row.governing_where = r.governing_where;
+        row.steel = armature::steel_mass_kg_per_m2(r);
+        row.concrete = armature::concrete_volume_m3_per_m2(r);
+        for (const auto& g : r.regions)
+          row.regions.push_back({g.where, g.bars.bar, g.bars.spacing_mm, g.bars.As_prov_mm2});
       } catch (const armature::InputError& e) {
-        errors[i] = e.what();
+        row.error = e.what();
       } catch (const std::exception& e) {
-        errors[i] = std::string("design error: ") + e.what();
+        row.error = std::string("design error: ") + e.what();
       }
     });
   }
@@ -383,50 +403,46 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
   auto numeric = [&](auto&& get) {
     py::array_t<double> arr(static_cast<py::ssize_t>(total));
     auto m = arr.mutable_unchecked<1>();
-    for (std::size_t i = 0; i < total; ++i)
-      m(static_cast<py::ssize_t>(i)) = records[i] ? get(*records[i]) : NAN;
+    for (std::size_t i = 0; i < total; ++i) m(static_cast<py::ssize_t>(i)) = get(rows[i]);
     return arr;
   };
-  auto text = [&](auto&& get, const char* none) {
+  auto text = [&](auto&& get) {
     py::list l;
-    for (std::size_t i = 0; i < total; ++i) l.append(records[i] ? get(*records[i]) : std::string(none));
+    for (const auto& row : rows) l.append(get(row));
     return l;
   };
-  cols["status"] = text([](const armature::DesignRecord& r) { return std::string(r.pass ? "pass" : "fail"); }, "invalid");
-  cols["max_utilisation"] = numeric([](const armature::DesignRecord& r) { return r.max_utilisation; });
-  cols["governing_check"] = text([](const armature::DesignRecord& r) { return r.governing_check; }, "");
-  cols["governing_where"] = text([](const armature::DesignRecord& r) { return r.governing_where; }, "");
-  cols["steel_kg_m2"] = numeric([](const armature::DesignRecord& r) { return armature::steel_mass_kg_per_m2(r); });
-  cols["concrete_m3_m2"] = numeric([](const armature::DesignRecord& r) { return armature::concrete_volume_m3_per_m2(r); });
+  cols["status"] = text([](const Row& r) { return std::string(!r.designed ? "invalid" : r.pass ? "pass" : "fail"); });
+  cols["max_utilisation"] = numeric([](const Row& r) { return r.max_utilisation; });
+  cols["governing_check"] = text([](const Row& r) { return r.governing_check; });
+  cols["governing_where"] = text([](const Row& r) { return r.governing_where; });
+  cols["steel_kg_m2"] = numeric([](const Row& r) { return r.steel; });
+  cols["concrete_m3_m2"] = numeric([](const Row& r) { return r.concrete; });
   std::vector<std::string> wheres;
-  for (const auto& r : records)
-    if (r)
-      for (const auto& g : r->regions)
-        if (std::find(wheres.begin(), wheres.end(), g.where) == wheres.end()) wheres.push_back(g.where);
+  for (const auto& row : rows)
+    for (const auto& g : row.regions)
+      if (std::find(wheres.begin(), wheres.end(), g.where) == wheres.end()) wheres.push_back(g.where);
   for (const auto& w : wheres) {
-    auto find = [&](const armature::DesignRecord& r) -> const armature::RegionRecord* {
+    auto find = [&](const Row& r) -> const RegionCell* {
       for (const auto& g : r.regions)
         if (g.where == w) return &g;
       return nullptr;
     };
     py::list bar;
-    for (std::size_t i = 0; i < total; ++i) {
-      const auto* g = records[i] ? find(*records[i]) : nullptr;
-      bar.append(g ? py::object(py::str(g->bars.bar)) : py::object(py::none()));
+    for (const auto& row : rows) {
+      const auto* g = find(row);
+      bar.append(g ? py::object(py::str(g->bar)) : py::object(py::none()));
     }
     cols[py::str(w + " bar")] = bar;
-    cols[py::str(w + " spacing_mm")] = numeric([&](const armature::DesignRecord& r) {
+    cols[py::str(w + " spacing_mm")] = numeric([&](const Row& r) {
       const auto* g = find(r);
-      return g ? g->bars.spacing_mm : NAN;
+      return g ? g->spacing_mm : NAN;
     });
-    cols[py::str(w + " As_prov_mm2")] = numeric([&](const armature::DesignRecord& r) {
+    cols[py::str(w + " As_prov_mm2")] = numeric([&](const Row& r) {
       const auto* g = find(r);
-      return g ? g->bars.As_prov_mm2 : NAN;
+      return g ? g->As_prov_mm2 : NAN;
     });
   }
-  py::list err;
-  for (const auto& e : errors) err.append(e);
-  cols["error"] = err;
+  cols["error"] = text([](const Row& r) { return r.error; });
   return cols;
 }
 

@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <string_view>
 #include <numbers>
 
 #include "armature/analysis.hpp"
@@ -27,19 +28,20 @@ constexpr double spacing_step_mm = 25.0;
 // Calls into a code plug-in; any failure becomes a DesignError that names
 // the code, the variant and the check or stage.
 template <class Fn>
-auto call_code(const CodeIdentity& code, const std::string& stage, Fn&& fn) -> decltype(fn()) {
-  const std::string who = code.id + " (" + code.variant + ")";
+auto call_code(const CodeIdentity& code, std::string_view stage, Fn&& fn) -> decltype(fn()) {
+  // The message is built only on failure: this sits on the bar search's path.
+  auto who = [&] { return code.id + " (" + code.variant + ")"; };
   try {
     return fn();
   } catch (const InputError&) {
     throw;
   } catch (const CheckError& e) {
-    throw DesignError(who + ": check '" + e.check_id() + "' failed during " + stage + ": " +
-                      e.what());
+    throw DesignError(who() + ": check '" + e.check_id() + "' failed during " + std::string(stage) +
+                      ": " + e.what());
   } catch (const std::exception& e) {
-    throw DesignError(who + ": failed during " + stage + ": " + e.what());
+    throw DesignError(who() + ": failed during " + std::string(stage) + ": " + e.what());
   } catch (...) {
-    throw DesignError(who + ": failed during " + stage + " with an unknown exception");
+    throw DesignError(who() + ": failed during " + std::string(stage) + " with an unknown exception");
   }
 }
 
@@ -355,7 +357,7 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
   double max_main_As = 0.0;
   for (const auto& demand : demands) {
     const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);
-    RegionOutcome out = call_code(rec.code, "checks at " + demand.where, [&] {
+    RegionOutcome out = call_code(rec.code, "the checks of " + demand.where, [&] {
       return checker->check_region(demand, pick.bar, pick.spacing_mm, detail);
     });
     RegionRecord region;
