@@ -352,6 +352,9 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
   const auto demands = regions_of(model, env, fixity, delta, redistributed,
                                   rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
 
+  std::vector<std::string> span_names, support_names;
+  for (std::size_t e = 0; e < n; ++e) span_names.push_back(span_name(e));
+  for (std::size_t j = 0; j <= n; ++j) support_names.push_back(support_name(j));
   std::vector<std::vector<Check>> span_checks(n);
   std::vector<SupportRecord> supports(n + 1);
   double max_main_As = 0.0;
@@ -375,16 +378,16 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
     rec.regions.push_back(std::move(region));
     max_main_As = std::max(max_main_As, pick.As_prov_mm2);
     for (std::size_t e = 0; e < n; ++e)
-      if (demand.span_where == span_name(e))
+      if (demand.span_where == span_names[e])
         for (auto& c : out.span_checks) span_checks[e].push_back(std::move(c));
     for (auto& s : out.supports)
       for (std::size_t j = 0; j <= n; ++j)
-        if (s.where == support_name(j)) supports[j] = {s.where, s.V_Ed, s.V_Rd, std::move(s.checks)};
+        if (s.where == support_names[j]) supports[j] = {s.where, s.V_Ed, s.V_Rd, std::move(s.checks)};
   }
   for (std::size_t j = 0; j <= n; ++j)
     if (model.has_support(j) && !supports[j].where.empty()) rec.supports.push_back(std::move(supports[j]));
   for (std::size_t e = 0; e < n; ++e) {
-    SpanRecord span{span_name(e), std::move(span_checks[e])};
+    SpanRecord span{span_names[e], std::move(span_checks[e])};
     auto extra = call_code(rec.code, "span checks", [&] { return checker->span_checks(span.where); });
     for (auto& c : extra) span.checks.push_back(std::move(c));
     rec.spans.push_back(std::move(span));

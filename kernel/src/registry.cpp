@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <cstdlib>
 #include <map>
+#include <mutex>
 #include <system_error>
 
 #include <boost/dll/runtime_symbol_info.hpp>
@@ -62,6 +63,9 @@ struct Registry::Impl {
   std::vector<LoadedPlugin> plugins;
   std::vector<LoadedCodeInfo> infos;
   std::vector<PluginFailure> failures;
+  // DesignCodes are immutable: each (id, variant) is made once and shared.
+  mutable std::mutex opened_mutex;
+  mutable std::map<std::pair<std::string, std::string>, std::shared_ptr<const DesignCode>> opened;
 
   void load_file(const fs::path& file);
 };
@@ -195,6 +199,11 @@ std::shared_ptr<const DesignCode> Registry::open(const std::string& id,
   for (const auto& p : impl_->plugins) {
     if (p.info.id != id) continue;
     const std::string& v = variant.empty() ? p.info.default_variant : variant;
+    {
+      std::lock_guard<std::mutex> lock(impl_->opened_mutex);
+      auto it = impl_->opened.find({id, v});
+      if (it != impl_->opened.end()) return it->second;
+    }
     if (std::find(p.info.variants.begin(), p.info.variants.end(), v) == p.info.variants.end()) {
       std::string list;
       for (const auto& name : p.info.variants) list += (list.empty() ? "" : ", ") + name;
@@ -215,7 +224,11 @@ std::shared_ptr<const DesignCode> Registry::open(const std::string& id,
     auto holder = std::make_shared<
         std::pair<std::shared_ptr<boost::dll::shared_library>, std::shared_ptr<const DesignCode>>>(
         p.library, std::move(code));
-    return std::shared_ptr<const DesignCode>(holder, holder->second.get());
+    std::shared_ptr<const DesignCode> shared(holder, holder->second.get());
+    // Made outside the lock (a wrapping code opens another through this
+    // registry); if two threads made it at once, the first one kept wins.
+    std::lock_guard<std::mutex> lock(impl_->opened_mutex);
+    return impl_->opened.emplace(std::make_pair(id, v), shared).first->second;
   }
   std::string list;
   for (const auto& info : impl_->infos) list += (list.empty() ? "" : ", ") + info.id;
