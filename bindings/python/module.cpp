@@ -196,31 +196,61 @@ armature::InputError indexed(const armature::InputError& e, const std::string& p
 }
 
 // With one thread everything runs on the calling thread. With T threads,
-// T − 1 workers design while the calling thread converts finished results
-// to Python objects in order (only that needs the GIL) and designs too
-// whenever the next result is not ready. Workers stay at most `window`
-// results ahead of the conversion, so memory stays bounded.
+// T − 1 workers design while the calling thread does what needs the GIL —
+// converting requests from Python ahead of the workers and results back to
+// Python in order — and designs too whenever it would otherwise wait.
+// Everything stays within `window` items of the conversion, so memory is
+// bounded however many requests there are.
 py::list design_many(const py::sequence& requests, unsigned threads) {
-  std::vector<json> reqs;
-  reqs.reserve(py::len(requests));
-  for (std::size_t i = 0; i < py::len(requests); ++i) {
+  const std::size_t n = py::len(requests);
+  const unsigned total = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
+  const std::size_t window = 256;
+  std::vector<json> reqs(n);
+  auto prepare = [&](std::size_t i) {  // needs the GIL
     try {
-      reqs.push_back(to_json(requests[i], ""));
+      reqs[i] = to_json(requests[i], "");
     } catch (const armature::InputError& e) {
       throw indexed(e, "requests[" + std::to_string(i) + "]");
     }
-  }
-  const std::size_t n = reqs.size();
-  const unsigned total = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
-  const std::size_t window = 256;
+  };
+  auto raise_for = [&](std::size_t i, std::exception_ptr error) {
+    try {
+      std::rethrow_exception(error);
+    } catch (const armature::InputError& e) {
+      throw indexed(e, "requests[" + std::to_string(i) + "]");
+    }
+  };
   py::list out;
+  if (total <= 1 || n <= 1) {
+    armature::Registry::shared();
+    for (std::size_t i = 0; i < n; ++i) {
+      prepare(i);
+      armature::DesignRecord record;
+      std::exception_ptr error;
+      {
+        py::gil_scoped_release release;
+        try {
+          record = design_record(reqs[i]);
+        } catch (...) {
+          error = std::current_exception();
+        }
+      }
+      if (error) raise_for(i, error);
+      out.append(record_to_python(record));
+      reqs[i] = json();
+    }
+    return out;
+  }
   std::vector<armature::DesignRecord> results(n);
   std::vector<std::exception_ptr> errors(n);
   std::vector<char> ready(n, 0);
   std::mutex mutex;
-  std::condition_variable ready_cv, space_cv;
-  std::atomic<bool> stop{false};
-  std::atomic<std::size_t> next{0}, converted{0};
+  std::condition_variable ready_cv, work_cv;
+  bool stop = false;                 // guarded by mutex
+  std::size_t prepared = 0;          // requests converted so far; guarded by mutex
+  std::size_t next = 0;              // next request to design; guarded by mutex
+  // Claims the next prepared request, or returns n when there is none now.
+  auto claim = [&](std::unique_lock<std::mutex>&) { return next < prepared ? next++ : n; };
   auto design_one = [&](std::size_t i) {
     try {
       results[i] = design_record(reqs[i]);
@@ -239,13 +269,14 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
     armature::Registry::shared();  // load plug-ins once, before the workers start
     for (unsigned k = 1; k < total && k < n; ++k)
       pool.emplace_back([&] {
-        while (!stop) {
+        for (;;) {
+          std::size_t i;
           {
             std::unique_lock<std::mutex> lock(mutex);
-            space_cv.wait(lock, [&] { return stop || next.load() < converted.load() + window; });
+            work_cv.wait(lock, [&] { return stop || next < prepared || next >= n; });
+            if (stop || next >= n) return;
+            i = claim(lock);
           }
-          const std::size_t i = next.fetch_add(1);
-          if (i >= n || stop) break;
           design_one(i);
         }
       });
@@ -256,41 +287,42 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
       std::lock_guard<std::mutex> lock(mutex);
       stop = true;
     }
-    space_cv.notify_all();
+    work_cv.notify_all();
     for (auto& t : pool) t.join();
   };
   try {
+    std::size_t converted_requests = 0;
     for (std::size_t i = 0; i < n; ++i) {
+      // Keep the workers fed: requests up to `window` ahead of the results.
+      const std::size_t target = std::min(n, i + window);
+      if (converted_requests < target) {
+        for (; converted_requests < target; ++converted_requests) prepare(converted_requests);
+        {
+          std::lock_guard<std::mutex> lock(mutex);
+          prepared = converted_requests;
+        }
+        work_cv.notify_all();
+      }
       {
         py::gil_scoped_release release;
         for (;;) {
+          std::size_t j = n;
           {
-            std::lock_guard<std::mutex> lock(mutex);
+            std::unique_lock<std::mutex> lock(mutex);
             if (ready[i]) break;
-          }
-          if (next.load() < std::min(n, i + window)) {
-            const std::size_t j = next.fetch_add(1);
-            if (j < n) {
-              design_one(j);
-              continue;
+            j = claim(lock);
+            if (j == n) {
+              ready_cv.wait(lock, [&] { return ready[i] != 0; });
+              break;
             }
           }
-          std::unique_lock<std::mutex> lock(mutex);
-          ready_cv.wait(lock, [&] { return ready[i] != 0; });
-          break;
+          design_one(j);
         }
       }
-      if (errors[i]) {
-        try {
-          std::rethrow_exception(errors[i]);
-        } catch (const armature::InputError& e) {
-          throw indexed(e, "requests[" + std::to_string(i) + "]");
-        }
-      }
+      if (errors[i]) raise_for(i, errors[i]);
       out.append(record_to_python(results[i]));
-      results[i] = armature::DesignRecord{};  // free it once converted
-      converted = i + 1;
-      space_cv.notify_all();
+      results[i] = armature::DesignRecord{};  // free them once converted
+      reqs[i] = json();
     }
   } catch (...) {
     join_all();

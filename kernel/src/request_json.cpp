@@ -3,7 +3,9 @@
 // silently (defaults are the documented ones of contract.md).
 #include <cmath>
 #include <cstdio>
-#include <set>
+#include <algorithm>
+#include <initializer_list>
+#include <string_view>
 
 #include "armature/json_io.hpp"
 #include "armature/units.hpp"
@@ -55,17 +57,25 @@ const std::vector<PlainAlias>& plain_aliases() {
 class ObjectReader {
  public:
   ObjectReader(const json& object, std::string path, InputProblems& problems,
-               std::set<std::string> known)
-      : object_(object), path_(std::move(path)), problems_(problems), known_(std::move(known)) {
-    for (const auto& a : plain_aliases())
-      if (known_.count(a.canonical)) known_.insert(a.plain);
+               std::initializer_list<std::string_view> known)
+      : object_(object), path_(std::move(path)), problems_(problems), known_(known) {
     for (auto it = object_.begin(); it != object_.end(); ++it)
-      if (!known_.count(it.key())) problems_.add(field(it.key()), "unknown field");
+      if (!is_known(it.key()) && !alias_named(it.key())) problems_.add(field(it.key()), "unknown field");
+  }
+
+  bool is_known(std::string_view key) const {
+    return std::find(known_.begin(), known_.end(), key) != known_.end();
+  }
+  // The plain-name alias of one of this object's fields, by its plain name.
+  const PlainAlias* alias_named(std::string_view plain) const {
+    for (const auto& a : plain_aliases())
+      if (plain == a.plain && is_known(a.canonical)) return &a;
+    return nullptr;
   }
 
   const PlainAlias* alias_of(const std::string& canonical) const {
     for (const auto& a : plain_aliases())
-      if (canonical == a.canonical && known_.count(a.plain)) return &a;
+      if (canonical == a.canonical && is_known(a.canonical)) return &a;
     return nullptr;
   }
 
@@ -209,7 +219,7 @@ class ObjectReader {
   const json& object_;
   std::string path_;
   InputProblems& problems_;
-  std::set<std::string> known_;
+  std::vector<std::string_view> known_;
 };
 
 constexpr std::size_t max_spans = 20;
