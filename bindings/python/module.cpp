@@ -87,11 +87,22 @@ const py::object& key_object(const std::string& key) {
   return it->second;
 }
 
+// The Python class of results (armature.Result, a dict that keeps its
+// request), registered by the package at import; plain dicts until then.
+PyObject* result_type = nullptr;
+
+void set_result_type(const py::object& type) {
+  Py_XDECREF(result_type);
+  result_type = type.inc_ref().ptr();
+}
+
 // Builds the result's Python objects straight from the design record,
 // through the shared schema of result_writer.hpp. Needs the GIL.
 class PyWriter {
  public:
-  void begin_object() { open(PyDict_New()); }
+  void begin_object() {
+    open(stack_.empty() && result_type ? PyObject_CallNoArgs(result_type) : PyDict_New());
+  }
   void begin_array() { open(PyList_New(0)); }
   void end() {
     last_closed_ = stack_.back();
@@ -152,10 +163,30 @@ PyObject* PyWriter::literal_key(const char* key) {
   return k;
 }
 
-py::object record_to_python(const armature::DesignRecord& record) {
+// Result objects are many small containers without cycles: the cyclic
+// collector is paused while they are built (it would otherwise run every
+// few results and walk all the results made so far) and resumed after.
+class CollectorPause {
+ public:
+  CollectorPause() : was_enabled_(PyGC_Disable()) {}
+  ~CollectorPause() {
+    if (was_enabled_) PyGC_Enable();
+  }
+  CollectorPause(const CollectorPause&) = delete;
+  CollectorPause& operator=(const CollectorPause&) = delete;
+
+ private:
+  int was_enabled_;
+};
+
+// The result of one request, as an armature.Result that keeps the request.
+py::object record_to_python(const armature::DesignRecord& record, const py::handle& request) {
   PyWriter w;
   armature::write_result(w, record);
-  return w.take();
+  py::object result = w.take();
+  if (result_type && PyObject_SetAttrString(result.ptr(), "request", request.ptr()) != 0)
+    throw py::error_already_set();
+  return result;
 }
 
 armature::DesignRecord design_record(const json& request) {
@@ -169,7 +200,8 @@ py::object design(const py::handle& request) {
     py::gil_scoped_release release;
     record = design_record(req);
   }
-  return record_to_python(record);
+  CollectorPause pause;
+  return record_to_python(record, request);
 }
 
 // Runs fn(i) for i in [0, n) on `threads` threads (0: all cores). Call
@@ -221,6 +253,7 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
     }
   };
   py::list out;
+  CollectorPause pause;
   if (total <= 1 || n <= 1) {
     armature::Registry::shared();
     for (std::size_t i = 0; i < n; ++i) {
@@ -236,7 +269,7 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
         }
       }
       if (error) raise_for(i, error);
-      out.append(record_to_python(record));
+      out.append(record_to_python(record, requests[i]));
       reqs[i] = json();
     }
     return out;
@@ -252,6 +285,10 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
   // Claims the next prepared request, or returns n when there is none now.
   auto claim = [&](std::unique_lock<std::mutex>&) { return next < prepared ? next++ : n; };
   auto design_one = [&](std::size_t i) {
+    // The calling thread has converted every result more than `window`
+    // behind this one (it cannot be claimed earlier): free one here, off
+    // the calling thread.
+    if (i > window) results[i - window - 1] = armature::DesignRecord{};
     try {
       results[i] = design_record(reqs[i]);
     } catch (...) {
@@ -293,9 +330,10 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
   try {
     std::size_t converted_requests = 0;
     for (std::size_t i = 0; i < n; ++i) {
-      // Keep the workers fed: requests up to `window` ahead of the results.
+      // Keep the workers fed: requests up to `window` ahead of the results,
+      // converted in batches so that the workers are woken seldom.
       const std::size_t target = std::min(n, i + window);
-      if (converted_requests < target) {
+      if (converted_requests < std::min(n, i + window / 2 + 1)) {
         for (; converted_requests < target; ++converted_requests) prepare(converted_requests);
         {
           std::lock_guard<std::mutex> lock(mutex);
@@ -320,8 +358,7 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
         }
       }
       if (errors[i]) raise_for(i, errors[i]);
-      out.append(record_to_python(results[i]));
-      results[i] = armature::DesignRecord{};  // free them once converted
+      out.append(record_to_python(results[i], requests[i]));
       reqs[i] = json();
     }
   } catch (...) {
@@ -422,6 +459,7 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
       }
     });
   }
+  CollectorPause pause;
   py::dict cols;
   for (std::size_t a = 0; a < paths.size(); ++a) {
     py::list col;
@@ -438,9 +476,10 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
     for (std::size_t i = 0; i < total; ++i) m(static_cast<py::ssize_t>(i)) = get(rows[i]);
     return arr;
   };
-  auto text = [&](auto&& get) {
-    py::list l;
-    for (const auto& row : rows) l.append(get(row));
+  auto text = [&](auto&& get) {  // repeated labels share one string object
+    py::list l(total);
+    for (std::size_t i = 0; i < total; ++i)
+      PyList_SET_ITEM(l.ptr(), static_cast<py::ssize_t>(i), key_object(get(rows[i])).inc_ref().ptr());
     return l;
   };
   cols["status"] = text([](const Row& r) { return std::string(!r.designed ? "invalid" : r.pass ? "pass" : "fail"); });
@@ -462,7 +501,7 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
     py::list bar;
     for (const auto& row : rows) {
       const auto* g = find(row);
-      bar.append(g ? py::object(py::str(g->bar)) : py::object(py::none()));
+      bar.append(g ? key_object(g->bar) : py::object(py::none()));
     }
     cols[py::str(w + " bar")] = bar;
     cols[py::str(w + " spacing_mm")] = numeric([&](const Row& r) {
@@ -554,6 +593,8 @@ PYBIND11_MODULE(_core, m) {
   m.doc() = "armature design kernel (C++ core)";
   py::register_exception<armature::InputError>(m, "InputError", PyExc_ValueError);
   py::register_exception<armature::DesignError>(m, "DesignError", PyExc_RuntimeError);
+  m.def("_set_result_type", &set_result_type, py::arg("type"),
+        "The class of results (set by the armature package).");
   m.def("design", &design, py::arg("request"),
         "Design one slab strip from a request dict; returns the result dict.");
   m.def("design_many", &design_many, py::arg("requests"), py::arg("threads") = 0,

@@ -17,21 +17,23 @@ class Result(dict):
     request it came from (`result.request`), so that its calculation record
     can be written later."""
 
-    def __init__(self, data, request):
+    def __init__(self, data=(), request=None):
         super().__init__(data)
         self.request = request
 
 
+_core._set_result_type(Result)
+
+
 def design(request):
     """Design one slab strip; returns the result (a dict, see contract.md)."""
-    return Result(_core.design(request), request)
+    return _core.design(request)
 
 
 def design_many(requests, threads=0):
     """Design many requests on `threads` threads (0: all cores), the GIL
     released; results in the order of the requests."""
-    requests = list(requests)
-    return [Result(r, q) for r, q in zip(_core.design_many(requests, threads), requests)]
+    return _core.design_many(list(requests), threads)
 
 
 def report(result, path):
