@@ -66,17 +66,8 @@ class Checker final : public SlabChecker {
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
     // 6.4.3.2: (a) the span and alternate spans loaded, both ways; (b) the
     // two spans adjacent to each support loaded.
-    std::vector<std::vector<bool>> out;
-    for (std::size_t parity = 0; parity < 2; ++parity) {
-      std::vector<bool> a(n);
-      for (std::size_t i = 0; i < n; ++i) a[i] = i % 2 == parity;
-      out.push_back(a);
-    }
-    for (std::size_t i = 0; i + 1 < n; ++i) {
-      std::vector<bool> a(n, false);
-      a[i] = a[i + 1] = true;
-      out.push_back(a);
-    }
+    auto out = alternate_span_arrangements(n);
+    for (auto& a : adjacent_pair_arrangements(n)) out.push_back(std::move(a));
     return out;
   }
 
@@ -275,15 +266,7 @@ class Code final : public DesignCode {
     if (req.durability.exposure && !is_exposure(*req.durability.exposure))
       problems.add("durability.exposure", "unknown exposure '" + *req.durability.exposure +
                                               "'; ACI 318 uses interior, weather or ground");
-    const double h = req.slab.thickness_mm;
-    if (const auto& cover = req.durability.cover_mm; cover && h > 0) {
-      if (*cover >= h / 2)
-        problems.add("durability.cover_mm", "must be less than half the slab thickness (" +
-                                                num(h / 2) + " mm), got " + num(*cover));
-      else if (smallest_bar < 1e9 && *cover + smallest_bar >= h)
-        problems.add("slab.thickness_mm", "must exceed cover plus the smallest bar (" +
-                                              num(*cover + smallest_bar) + " mm), got " + num(h));
-    }
+    if (smallest_bar < 1e9) add_cover_fit_problems(req, smallest_bar, problems);
     if (req.design.combination)
       problems.add("design.combination", "ACI 318-19 has no choice of combination rule (5.3.1 "
                                          "applies); remove the field");

@@ -453,15 +453,7 @@ class Code final : public DesignCode {
       problems.add("durability.exposure",
                    "unknown exposure class '" + *req.durability.exposure +
                        "'; use X0, XC1-XC4, XD1-XD3 or XS1-XS3 (EN 1992-1-1 Table 4.1)");
-    const double h = req.slab.thickness_mm;
-    if (const auto& cover = req.durability.cover_mm; cover && h > 0) {
-      if (*cover >= h / 2)
-        problems.add("durability.cover_mm", "must be less than half the slab thickness (" +
-                                                num(h / 2) + " mm), got " + num(*cover));
-      else if (smallest_bar < 1e9 && *cover + smallest_bar >= h)
-        problems.add("slab.thickness_mm", "must exceed cover plus the smallest bar (" +
-                                              num(*cover + smallest_bar) + " mm), got " + num(h));
-    }
+    if (smallest_bar < 1e9) add_cover_fit_problems(req, smallest_bar, problems);
     if (req.fire.resistance_min && !is_tabulated_fire_resistance(*req.fire.resistance_min))
       problems.add("fire.resistance_min",
                    "must be 30, 60, 90, 120, 180 or 240 (EN 1992-1-2 Table 5.8), got " +

@@ -1,5 +1,7 @@
 #include "rules.hpp"
 
+#include "armature/code.hpp"
+
 #include <algorithm>
 #include <array>
 #include <cmath>
@@ -65,23 +67,12 @@ std::optional<PsiFactors> psi_factors(const std::string& category) {
 
 // ---- Load arrangements -----------------------------------------------------
 std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacent_pairs) {
-  std::vector<std::vector<bool>> out;
-  for (std::size_t parity = 0; parity < 2; ++parity) {
-    std::vector<bool> a(spans);
-    for (std::size_t i = 0; i < spans; ++i) a[i] = i % 2 == parity;
-    out.push_back(a);
-  }
+  auto out = alternate_span_arrangements(spans);
   if (adjacent_pairs) {
-    for (std::size_t i = 0; i + 1 < spans; ++i) {
-      std::vector<bool> a(spans, false);
-      a[i] = a[i + 1] = true;
-      out.push_back(a);
-    }
+    for (auto& a : adjacent_pair_arrangements(spans)) out.push_back(std::move(a));
   } else {
-    out.push_back(std::vector<bool>(spans, true));
+    out.push_back(all_spans_loaded(spans));
   }
-  // A single span: the loaded case is the only one that matters, but the
-  // list stays as the rule gives it.
   return out;
 }
 

@@ -60,20 +60,6 @@ const char* to_string(EndSupport end) {
   return "?";
 }
 
-RegionVerdict verdict_of(const RegionOutcome& o) {
-  RegionVerdict v;
-  auto take = [&](const std::vector<Check>& checks) {
-    for (const auto& c : checks) {
-      v.all_pass = v.all_pass && c.pass;
-      if (is_strength_check(c.id)) v.strength_pass = v.strength_pass && c.pass;
-    }
-  };
-  take(o.checks);
-  take(o.span_checks);
-  for (const auto& s : o.supports) take(s.checks);
-  return v;
-}
-
 const char* to_string(Face face) { return face == Face::bottom ? "bottom" : "top"; }
 
 }  // namespace armature

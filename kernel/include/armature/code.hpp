@@ -188,6 +188,16 @@ class CheckCollector {
 // The verdict of an outcome's checks (for a decorator that changed them).
 RegionVerdict verdict_of(const RegionOutcome& outcome);
 
+// Geometry every code refuses: a given cover of half the slab or more, or
+// a slab no thicker than cover plus the smallest candidate bar.
+void add_cover_fit_problems(const Request& request, double smallest_bar_mm, InputProblems& problems);
+
+// Building blocks of load arrangements (each marks the loaded spans): the
+// code chooses which it uses.
+std::vector<std::vector<bool>> alternate_span_arrangements(std::size_t span_count);  // both ways
+std::vector<std::vector<bool>> adjacent_pair_arrangements(std::size_t span_count);
+std::vector<bool> all_spans_loaded(std::size_t span_count);
+
 // Runs one check; any exception escapes as CheckError naming the check.
 template <class Fn>
 auto run_check(const char* check_id, Fn&& fn) -> decltype(fn()) {

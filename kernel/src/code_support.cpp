@@ -1,0 +1,63 @@
+// Helpers the kernel offers to code plug-ins (code.hpp): verdicts of
+// checks, geometry every code refuses, building blocks of load arrangements.
+#include <cstdio>
+#include <string>
+
+#include "armature/code.hpp"
+
+namespace armature {
+
+RegionVerdict verdict_of(const RegionOutcome& o) {
+  RegionVerdict v;
+  auto take = [&](const std::vector<Check>& checks) {
+    for (const auto& c : checks) {
+      v.all_pass = v.all_pass && c.pass;
+      if (is_strength_check(c.id)) v.strength_pass = v.strength_pass && c.pass;
+    }
+  };
+  take(o.checks);
+  take(o.span_checks);
+  for (const auto& s : o.supports) take(s.checks);
+  return v;
+}
+
+void add_cover_fit_problems(const Request& req, double smallest_bar_mm, InputProblems& problems) {
+  const double h = req.slab.thickness_mm;
+  const auto& cover = req.durability.cover_mm;
+  if (!cover || h <= 0) return;
+  auto num = [](double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.4g", v);
+    return std::string(buf);
+  };
+  if (*cover >= h / 2)
+    problems.add("durability.cover_mm", "must be less than half the slab thickness (" + num(h / 2) +
+                                            " mm), got " + num(*cover));
+  else if (*cover + smallest_bar_mm >= h)
+    problems.add("slab.thickness_mm", "must exceed cover plus the smallest bar (" +
+                                          num(*cover + smallest_bar_mm) + " mm), got " + num(h));
+}
+
+std::vector<std::vector<bool>> alternate_span_arrangements(std::size_t n) {
+  std::vector<std::vector<bool>> out;
+  for (std::size_t parity = 0; parity < 2; ++parity) {
+    std::vector<bool> a(n);
+    for (std::size_t i = 0; i < n; ++i) a[i] = i % 2 == parity;
+    out.push_back(std::move(a));
+  }
+  return out;
+}
+
+std::vector<std::vector<bool>> adjacent_pair_arrangements(std::size_t n) {
+  std::vector<std::vector<bool>> out;
+  for (std::size_t i = 0; i + 1 < n; ++i) {
+    std::vector<bool> a(n, false);
+    a[i] = a[i + 1] = true;
+    out.push_back(std::move(a));
+  }
+  return out;
+}
+
+std::vector<bool> all_spans_loaded(std::size_t n) { return std::vector<bool>(n, true); }
+
+}  // namespace armature
