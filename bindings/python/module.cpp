@@ -204,20 +204,20 @@ py::object design(const py::handle& request) {
   return record_to_python(record, request);
 }
 
-// Runs fn(i) for i in [0, n) on `threads` threads (0: all cores). Call
-// without the GIL.
+// Runs fn(i, worker) for i in [0, n) on `threads` threads (0: all cores);
+// `worker` numbers the thread from 0. Call without the GIL.
 template <class Fn>
 void parallel_for(std::size_t n, unsigned threads, Fn&& fn) {
   armature::Registry::shared();  // load plug-ins once, before the workers start
   unsigned t = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
   t = static_cast<unsigned>(std::min<std::size_t>(t, std::max<std::size_t>(n, 1)));
   std::atomic<std::size_t> next{0};
-  auto work = [&] {
-    for (std::size_t i; (i = next.fetch_add(1)) < n;) fn(i);
+  auto work = [&](unsigned worker) {
+    for (std::size_t i; (i = next.fetch_add(1)) < n;) fn(i, worker);
   };
   std::vector<std::thread> pool;
-  for (unsigned k = 1; k < t; ++k) pool.emplace_back(work);
-  work();
+  for (unsigned k = 1; k < t; ++k) pool.emplace_back(work, k);
+  work(0);
   for (auto& th : pool) th.join();
 }
 
@@ -423,21 +423,28 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
     std::vector<RegionCell> regions;
   };
   std::vector<Row> rows(total);
+  // One request per worker, copied from the base once: every axis field is
+  // set again for each combination, and nothing else changes.
+  std::vector<std::optional<json>> scratch(std::max(1u, threads ? threads : std::thread::hardware_concurrency()));
   {
     py::gil_scoped_release release;
-    parallel_for(total, threads, [&](std::size_t i) {
+    parallel_for(total, threads, [&](std::size_t i, unsigned worker) {
       Row& row = rows[i];
       try {
-        json req = base_json;
+        if (!scratch[worker]) scratch[worker] = base_json;
+        json& req = *scratch[worker];
         std::size_t rest = i;
         for (std::size_t a = axis_values.size(); a-- > 0;) {
           const std::size_t k = rest % axis_values[a].size();
           rest /= axis_values[a].size();
           const json& v = axis_values[a][k];
-          if (paths[a] == "code" && v.is_string() && v.get<std::string>().find(':') != std::string::npos) {
+          if (paths[a] == "code" && v.is_string()) {  // "ID" or "ID:variant"
             const std::string spec = v.get<std::string>();
-            req["code"] = spec.substr(0, spec.find(':'));
-            req["variant"] = spec.substr(spec.find(':') + 1);
+            const auto colon = spec.find(':');
+            req["code"] = spec.substr(0, colon);
+            if (colon != std::string::npos) req["variant"] = spec.substr(colon + 1);
+            else if (base_json.contains("variant")) req["variant"] = base_json["variant"];
+            else req.erase("variant");
           } else {
             set_path(req, paths[a], v);
           }

@@ -156,6 +156,9 @@ class Checker final : public SlabChecker {
         return st.take();
       });
     });
+    // The bar search needs no more once an arrangement has failed: bending
+    // and minimum steel (its fallback) are known by now.
+    if (checks.verdict_settled()) return out;
     run_check("spacing", [&] {
       const double s_max = max_flexural_bar_spacing(h);
       checks.add("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", [&] {

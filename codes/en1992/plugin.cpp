@@ -224,6 +224,10 @@ class Checker final : public SlabChecker {
       });
     });
 
+    // The bar search needs no more once an arrangement has failed: bending
+    // and minimum steel (its fallback) are known by now.
+    if (checks.verdict_settled()) return out;
+
     // Spacing (9.3.1.1(3), 8.2(2))
     run_check("spacing", [&] {
       const double s_max = max_main_bar_spacing_max_moment(h);
@@ -242,6 +246,8 @@ class Checker final : public SlabChecker {
         return st.take();
       });
     });
+
+    if (checks.verdict_settled()) return out;
 
     // Crack control (7.3.3)
     if (crack_check_needed(h))

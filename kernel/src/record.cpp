@@ -8,12 +8,6 @@
 
 namespace armature {
 
-double utilisation_of(double demand, double capacity) {
-  if (capacity > 0.0) return demand / capacity;
-  if (demand <= 0.0) return 0.0;
-  return std::numeric_limits<double>::infinity();
-}
-
 Check make_check(std::string id, std::string where, std::string clause, double demand,
                  double capacity, std::string unit, std::vector<Step> steps) {
   Check c;

@@ -162,6 +162,9 @@ class CheckCollector {
   CheckCollector(std::vector<Check>& out, RegionVerdict& verdict, Detail detail)
       : out_(out), verdict_(verdict), detail_(detail) {}
   Detail detail() const { return detail_; }
+  // True when only the verdict is wanted and it is already settled: the
+  // strength checks are in and something has failed.
+  bool verdict_settled() const { return detail_ == Detail::verdict && !verdict_.all_pass; }
 
   // Records the requirement demand ≤ capacity.
   template <class StepsFn>

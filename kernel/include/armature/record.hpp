@@ -2,6 +2,7 @@
 // Python objects and the calculation record are all drawn from these.
 #pragma once
 
+#include <limits>
 #include <string>
 #include <vector>
 
@@ -32,7 +33,11 @@ struct Check {
 
 // utilisation = demand / capacity; a capacity of zero or less gives +inf
 // unless the demand is also zero.
-double utilisation_of(double demand, double capacity);
+inline double utilisation_of(double demand, double capacity) {
+  if (capacity > 0.0) return demand / capacity;
+  if (demand <= 0.0) return 0.0;
+  return std::numeric_limits<double>::infinity();
+}
 
 // Builds a Check with utilisation and pass derived from demand and capacity.
 Check make_check(std::string id, std::string where, std::string clause, double demand,
