@@ -89,7 +89,7 @@ class Checker final : public SlabChecker {
     const bool cover_given = req_.durability.cover_mm.has_value();
     const double cover = req_.durability.cover_mm.value_or(c_req);
     auto cover_steps = [&] {
-      StepRecorder st(true);
+      StepRecorder st;
       st.add("c", "Table 20.5.1.3.1 (" + exposure_ + ", bar " + bar.designation + ")", exposure_, c_req, "mm",
              "ACI 318-19 20.5.1.3.1");
       return st.take();
@@ -114,7 +114,7 @@ class Checker final : public SlabChecker {
 
     run_check("bending", [&] {
       checks.add("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, phi_Mn * 1e-6, "kNm", [&] {
-        StepRecorder st(true);
+        StepRecorder st;
         if (!cover_given)
           for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
         st.add("d", "h − cover − db/2", num(h) + " − " + num(cover) + " − " + num(db) + "/2", d, "mm",
@@ -137,7 +137,7 @@ class Checker final : public SlabChecker {
     run_check("ductility", [&] {
       checks.add("ductility", g.where, "ACI 318-19 7.3.3.1", slab_min_net_tensile_strain, As_root ? eps_t : 0.0,
                  "-", [&] {
-                   StepRecorder st(true);
+                   StepRecorder st;
                    st.add("β1", "Table 22.2.2.4.3", "f'c = " + num(fc_), beta1_, "-", "ACI 318-19 22.2.2.4.3");
                    st.add("c", "a/β1", num(a) + "/" + num(beta1_), c, "mm", "ACI 318-19 22.2.2.4.2");
                    st.add("εt", "0.003 (d − c)/c", "0.003 × (" + num(d) + " − " + num(c) + ")/" + num(c), eps_t,
@@ -150,7 +150,7 @@ class Checker final : public SlabChecker {
     });
     run_check("min_steel", [&] {
       checks.add("min_steel", g.where, "ACI 318-19 7.6.1.1", out.As_min_mm2, As, "mm2", [&] {
-        StepRecorder st(true);
+        StepRecorder st;
         st.add("As,min", "0.0018 Ag", "0.0018 × " + num(b) + " × " + num(h), out.As_min_mm2, "mm2",
                "ACI 318-19 7.6.1.1");
         return st.take();
@@ -162,7 +162,7 @@ class Checker final : public SlabChecker {
     run_check("spacing", [&] {
       const double s_max = max_flexural_bar_spacing(h);
       checks.add("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", [&] {
-        StepRecorder st(true);
+        StepRecorder st;
         st.add("s_max", "min(3h, 450)", "min(3 × " + num(h) + ", 450)", s_max, "mm", "ACI 318-19 7.7.2.3");
         return st.take();
       });
@@ -171,7 +171,7 @@ class Checker final : public SlabChecker {
       const double fs = service_steel_stress(fy_);
       const double s_crack = crack_control_spacing(fs, cover);
       checks.add("cracking", g.where, "ACI 318-19 24.3.2", s, s_crack, "mm", [&] {
-        StepRecorder st(true);
+        StepRecorder st;
         st.add("fs", "2/3 fy", "2/3 × " + num(fy_), fs, "MPa", "ACI 318-19 24.3.2.1");
         st.add("s", "min(380 (280/fs) − 2.5 cc, 300 (280/fs))",
                "min(380 × 280/" + num(fs) + " − 2.5 × " + num(cover) + ", 300 × 280/" + num(fs) + ")", s_crack,
@@ -187,7 +187,7 @@ class Checker final : public SlabChecker {
         const SupportCondition cond = condition_of(g.span_kind);
         const double h_min = minimum_slab_thickness(g.span_mm, cond, fy_);
         span.add("deflection", g.span_where, "ACI 318-19 7.3.1.1", h_min, h, "mm", [&] {
-          StepRecorder st(true);
+          StepRecorder st;
           st.add("h_min", std::string("Table 7.3.1.1: ") + condition_name(cond) + ", × (0.4 + fy/700)",
                  "ℓ = " + num(g.span_mm) + ", fy = " + num(fy_), h_min, "mm", "ACI 318-19 7.3.1.1");
           return st.take();
@@ -205,7 +205,7 @@ class Checker final : public SlabChecker {
         const double Vc = one_way_shear_strength(ls, lambda_normal_weight, rho_w, fc_, b, d);
         so.V_Rd = shear_strength_reduction * Vc;
         support.add("shear", sup.where, "ACI 318-19 22.5.5.1", sup.V_Ed * 1e-3, so.V_Rd * 1e-3, "kN", [&] {
-          StepRecorder st(true);
+          StepRecorder st;
           st.add("λs", "√(2/(1 + 0.004 d)) ≤ 1", "d = " + num(d), ls, "-", "ACI 318-19 22.5.5.1.3");
           st.add("ρw", "As/(b d)", num(As) + "/(" + num(b) + " × " + num(d) + ")", rho_w, "-",
                  "ACI 318-19 22.5.5.1");

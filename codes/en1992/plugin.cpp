@@ -118,7 +118,7 @@ class Checker final : public SlabChecker {
     const bool cover_given = req_.durability.cover_mm.has_value();
     const double c_nom = cover_given ? *req_.durability.cover_mm : round_up_to_5(c_req);
     auto cover_steps = [&] {
-      Steps st(true);
+      Steps st;
       st.add("S", "structural class (S4, life, slab geometry, strength)",
              "S" + std::to_string(s_class) + " for " + exposure_ + ", " +
                  num(req_.durability.design_life_years) + " years, fck " + num(m_.fck),
@@ -162,7 +162,7 @@ class Checker final : public SlabChecker {
       checks.add("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, M_Rd * 1e-6, "kNm", [&] {
         // A computed cover is no check of its own: its derivation leads the
         // bending steps, where it sets d.
-        Steps st(true);
+        Steps st;
         if (!cover_given)
           for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
         st.add("d", "h − c_nom − φ/2", num(h) + " − " + num(c_nom) + " − " + num(phi) + "/2", d, "mm",
@@ -187,7 +187,7 @@ class Checker final : public SlabChecker {
     });
     run_check("ductility", [&] {
       checks.add("ductility", g.where, "EN 1992-1-1 5.5(4), 6.1", K, K_lim, "-", [&] {
-        Steps st(true);
+        Steps st;
         st.add("ξ_lim", "min((δ − k1)/k2, 0.45 or 0.35)",
                "min((" + num(delta) + " − " + num(k_a) + ")/" + num(k_b) + ", " + (normal ? "0.45" : "0.35") +
                    ")",
@@ -205,7 +205,7 @@ class Checker final : public SlabChecker {
     run_check("min_steel", [&] {
       checks.add("min_steel", g.where, "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)", out.As_min_mm2, As_prov,
                  "mm2", [&] {
-                   Steps st(true);
+                   Steps st;
                    st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", num(m_.fck),
                           m_.fctm, "MPa", "EN 1992-1-1 Table 3.1");
                    st.add("As,min", "max(0.26 fctm/fyk, 0.0013) b d",
@@ -217,7 +217,7 @@ class Checker final : public SlabChecker {
     });
     run_check("max_steel", [&] {
       checks.add("max_steel", g.where, "EN 1992-1-1 9.2.1.1(3)", As_prov, out.As_max_mm2, "mm2", [&] {
-        Steps st(true);
+        Steps st;
         st.add("As,max", "0.04 b h", "0.04 × " + num(b) + " × " + num(h), out.As_max_mm2, "mm2",
                "EN 1992-1-1 9.2.1.1(3)");
         return st.take();
@@ -232,14 +232,14 @@ class Checker final : public SlabChecker {
     run_check("spacing", [&] {
       const double s_max = max_main_bar_spacing_max_moment(h);
       checks.add("spacing", g.where, "EN 1992-1-1 9.3.1.1(3)", s, s_max, "mm", [&] {
-        Steps st(true);
+        Steps st;
         st.add("s_max,slabs", "min(2h, 250) in areas of maximum moment", "min(2 × " + num(h) + ", 250)",
                s_max, "mm", "EN 1992-1-1 9.3.1.1(3)");
         return st.take();
       });
       const double clear_min = minimum_clear_bar_spacing(phi, dg);
       checks.add("spacing", g.where, "EN 1992-1-1 8.2(2)", clear_min, s - phi, "mm", [&] {
-        Steps st(true);
+        Steps st;
         st.add("a_min", "max(φ, dg + 5, 20)", "max(" + num(phi) + ", " + num(dg) + " + 5, 20)", clear_min,
                "mm", "EN 1992-1-1 8.2(2)");
         st.add("a", "s − φ", num(s) + " − " + num(phi), s - phi, "mm", "EN 1992-1-1 8.2(2)");
@@ -263,7 +263,7 @@ class Checker final : public SlabChecker {
         const int t = *req_.fire.resistance_min;
         const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance(t);
         checks.add("fire", g.where, "EN 1992-1-2 5.7.2 Table 5.8 (axis distance)", a_min, a, "mm", [&] {
-          Steps st(true);
+          Steps st;
           st.add("a", "c_nom + φ/2", num(c_nom) + " + " + num(phi) + "/2", a, "mm", "EN 1992-1-2 5.7.2");
           st.add("a_min", "Table 5.8, one-way slab", "REI " + std::to_string(t), a_min, "mm",
                  "EN 1992-1-2 5.7.2 Table 5.8");
@@ -291,7 +291,7 @@ class Checker final : public SlabChecker {
         const double C = ndp_.C_Rd_c_factor / ndp_.gamma_c;
         so.V_Rd = shear_resistance_without_links(C, k, rho_l, m_.fck, v_min, b, d);
         support.add("shear", sup.where, "EN 1992-1-1 6.2.2(1)", sup.V_Ed * 1e-3, so.V_Rd * 1e-3, "kN", [&] {
-          Steps st(true);
+          Steps st;
           st.add("k", "1 + √(200/d) ≤ 2", "1 + √(200/" + num(d) + ")", k, "-", "EN 1992-1-1 6.2.2(1)");
           st.add("ρl", "Asl/(b d) ≤ 0.02", num(As_prov) + "/(" + num(b) + " × " + num(d) + ")", rho_l, "-",
                  "EN 1992-1-1 6.2.2(1)");
@@ -345,7 +345,7 @@ class Checker final : public SlabChecker {
     const double s_limit = s_lim.value_or(0.0);
     const double phi_limit = phi_star ? adjusted_max_bar_diameter(*phi_star, m_.fctm, h, d) : 0.0;
     auto steps = [&] {
-      Steps st(true);
+      Steps st;
       st.add("w_max", "Table 7.1N for the exposure class", exposure_, w_max_, "mm",
              "EN 1992-1-1 7.3.1 Table 7.1N");
       st.add("σs", "fyd (n_qp/n_uls)(As,req/As,prov)/δ",
@@ -381,7 +381,7 @@ class Checker final : public SlabChecker {
     const double allowed = basic * f_long * f_steel;
     const double actual = g.span_mm / d;
     checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.2 (7.16), Table 7.4N", actual, allowed, "-", [&] {
-      Steps st(true);
+      Steps st;
       st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");
       st.add("ρ", "As,req/(b d)", num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho,
              "-", "EN 1992-1-1 7.4.2(2)");

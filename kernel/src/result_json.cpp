@@ -44,12 +44,6 @@ class JsonWriter {
 };
 }  // namespace
 
-json check_to_json(const Check& c, bool with_steps) {
-  JsonWriter w;
-  write_check(w, c, with_steps);
-  return w.take();
-}
-
 json result_to_json(const DesignRecord& r, bool with_steps) {
   JsonWriter w;
   write_result(w, r, with_steps);

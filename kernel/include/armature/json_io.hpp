@@ -17,6 +17,5 @@ Request request_from_json(const nlohmann::json& j, InputProblems& problems);
 
 // The result of contract.md. Steps are included only when asked for.
 nlohmann::json result_to_json(const DesignRecord& record, bool with_steps = false);
-nlohmann::json check_to_json(const Check& check, bool with_steps = false);
 
 }  // namespace armature

@@ -17,20 +17,17 @@ inline std::string step_number(double v) {
   return buf;
 }
 
-// Collects the steps of one check only when the caller asked for them, so
-// that the bar search runs without building strings.
+// Collects the steps of one check's derivation (built only at
+// Detail::steps: see CheckCollector).
 class StepRecorder {
  public:
-  explicit StepRecorder(bool on) : on_(on) {}
   void add(const std::string& symbol, const std::string& expression, const std::string& substituted,
            double result, const std::string& unit, const std::string& clause) {
-    if (on_) items_.push_back({symbol, expression, substituted, result, unit, clause});
+    items_.push_back({symbol, expression, substituted, result, unit, clause});
   }
-  bool on() const { return on_; }
   std::vector<Step> take() { return std::move(items_); }
 
  private:
-  bool on_;
   std::vector<Step> items_;
 };
 
