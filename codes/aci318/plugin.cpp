@@ -73,7 +73,7 @@ class Checker final : public SlabChecker {
 
   double pinned_end_fixity_fraction() const override { return 0.0; }
 
-  std::vector<BarOption> bar_options() const override { return bars_; }
+  const std::vector<BarOption>& bar_options() const override { return bars_; }
 
   double max_spacing_mm(const RegionDemand&) const override {
     return max_flexural_bar_spacing(req_.slab.thickness_mm);
@@ -231,7 +231,7 @@ class Checker final : public SlabChecker {
   std::vector<std::string> warnings() const override { return warnings_; }
 
  private:
-  Request req_;
+  const Request& req_;  // kept alive by the caller of Code::begin
   double fc_ = 0.0, fy_ = 0.0, beta1_ = 0.0;
   std::string exposure_;
   std::vector<BarOption> bars_;

@@ -33,6 +33,21 @@ std::optional<double> bar_diameter(const std::string& designation) {
 // EN bars are specified by diameter: area π φ²/4.
 double bar_area(double phi) { return std::numbers::pi * phi * phi / 4.0; }
 
+// For designations already validated.
+std::vector<BarOption> bar_options_of(const std::vector<std::string>& names) {
+  std::vector<BarOption> out;
+  for (const auto& name : names) {
+    const double phi = *bar_diameter(name);
+    out.push_back({name, phi, bar_area(phi)});
+  }
+  return out;
+}
+
+const std::vector<BarOption>& default_bar_options() {
+  static const std::vector<BarOption> bars = bar_options_of(default_bars);
+  return bars;
+}
+
 StructuralSystem system_of(SpanKind kind) {
   switch (kind) {
     case SpanKind::simply_supported: return StructuralSystem::simply_supported;
@@ -45,13 +60,19 @@ StructuralSystem system_of(SpanKind kind) {
 
 using Steps = StepRecorder;
 
+// "6.10: 1.35 Gk + 1.5 Qk"
+std::string uls_label(const char* expression, double gamma_G, double gamma_Q) {
+  return std::string(expression) + ": " + num(gamma_G) + " Gk + " + num(gamma_Q) + " Qk";
+}
+
 struct Materials {
   double fck, fyk, fcd, fyd, fctm, eta, lambda, eps_cu2;
 };
 
 class Checker final : public SlabChecker {
  public:
-  Checker(const Ndp& ndp, const Request& req) : ndp_(ndp), req_(req) {
+  Checker(const Ndp& ndp, const std::string& label_6_10, const Request& req)
+      : ndp_(ndp), label_6_10_(label_6_10), req_(req) {
     const double fck = req.concrete.cylinder_strength_MPa
                            ? *req.concrete.cylinder_strength_MPa
                            : *fck_of_strength_class(*req.concrete.strength_class);
@@ -67,8 +88,10 @@ class Checker final : public SlabChecker {
     psi_ = *psi_factors(req.loads.imposed_category);
     exposure_ = req.durability.exposure.value_or("XC1");
     w_max_ = (exposure_ == "X0" || exposure_ == "XC1") ? ndp.w_max_X0_XC1_mm : ndp.w_max_other_mm;
-    for (const auto& name : req.reinforcement.bars.value_or(default_bars))
-      bars_.push_back({name, *bar_diameter(name), bar_area(*bar_diameter(name))});
+    if (req.reinforcement.bars) {
+      own_bars_ = bar_options_of(*req.reinforcement.bars);
+      bars_ = &own_bars_;
+    }
     if (!ndp.durability_note.empty()) warnings_.push_back(ndp.durability_note);
     structural_class_ = structural_class(req.durability.design_life_years, exposure_, m_.fck);
     c_min_dur_ = minimum_cover_durability(structural_class_, exposure_);
@@ -80,11 +103,11 @@ class Checker final : public SlabChecker {
     basis.psi2 = psi_.psi2;
     const double gG = ndp_.gamma_G, gQ = ndp_.gamma_Q;
     if (req_.design.combination.value_or("6.10") == "6.10") {
-      basis.uls.push_back({"6.10: " + num(gG) + " Gk + " + num(gQ) + " Qk", gG, gQ, gG});
+      basis.uls.push_back({label_6_10_, gG, gQ, gG});
     } else {
       const double gQa = gQ * psi_.psi0, gGb = ndp_.xi * gG;
-      basis.uls.push_back({"6.10a: " + num(gG) + " Gk + " + num(gQa) + " Qk", gG, gQa, gG});
-      basis.uls.push_back({"6.10b: " + num(gGb) + " Gk + " + num(gQ) + " Qk", gGb, gQ, gGb});
+      basis.uls.push_back({uls_label("6.10a", gG, gQa), gG, gQa, gG});
+      basis.uls.push_back({uls_label("6.10b", gGb, gQ), gGb, gQ, gGb});
     }
     return basis;
   }
@@ -95,7 +118,7 @@ class Checker final : public SlabChecker {
 
   double pinned_end_fixity_fraction() const override { return partial_fixity_fraction; }
 
-  std::vector<BarOption> bar_options() const override { return bars_; }
+  const std::vector<BarOption>& bar_options() const override { return *bars_; }
 
   double max_spacing_mm(const RegionDemand&) const override {
     return max_main_bar_spacing_max_moment(req_.slab.thickness_mm);
@@ -403,15 +426,17 @@ class Checker final : public SlabChecker {
     });
   }
 
-  Ndp ndp_;
-  Request req_;
+  const Ndp& ndp_;       // of the Code, which outlives this checker
+  const std::string& label_6_10_;  // the Code's, as ndp_
+  const Request& req_;   // kept alive by the caller of Code::begin
   Materials m_{};
   PsiFactors psi_{};
   std::string exposure_;
   int structural_class_ = 0;   // Table 4.3N, for this request
   double c_min_dur_ = 0.0;     // Table 4.4N, for this request
   double w_max_ = 0.0;
-  std::vector<BarOption> bars_;
+  std::vector<BarOption> own_bars_;  // when the request names its bars
+  const std::vector<BarOption>* bars_ = &default_bar_options();
   std::vector<std::string> warnings_;
 };
 
@@ -421,7 +446,9 @@ std::string format_range(double lo, double hi, const char* unit) {
 
 class Code final : public DesignCode {
  public:
-  explicit Code(Ndp ndp) : ndp_(std::move(ndp)) {}
+  explicit Code(Ndp ndp)
+      : ndp_(std::move(ndp)),
+        label_6_10_(uls_label("6.10", ndp_.gamma_G, ndp_.gamma_Q)) {}
 
   CodeIdentity identity() const override { return {code_id, ndp_.variant, ndp_.title}; }
 
@@ -476,11 +503,12 @@ class Code final : public DesignCode {
   }
 
   std::unique_ptr<SlabChecker> begin(const Request& req) const override {
-    return std::make_unique<Checker>(ndp_, req);
+    return std::make_unique<Checker>(ndp_, label_6_10_, req);
   }
 
  private:
   Ndp ndp_;
+  std::string label_6_10_;  // the same for every request of this variant
 };
 
 // A firm's own national-annex variant: a file <name>.en1992.json in any

@@ -26,22 +26,27 @@ constexpr double first_spacing_mm = 75.0;
 constexpr double spacing_step_mm = 25.0;
 
 // Calls into a code plug-in; any failure becomes a DesignError that names
-// the code, the variant and the check or stage.
+// the code, the variant and the check or stage (with the place, if given).
 template <class Fn>
-auto call_code(const CodeIdentity& code, std::string_view stage, Fn&& fn) -> decltype(fn()) {
+auto call_code(const CodeIdentity& code, std::string_view stage, Fn&& fn,
+               std::string_view place = {}) -> decltype(fn()) {
   // The message is built only on failure: this sits on the bar search's path.
   auto who = [&] { return code.id + " (" + code.variant + ")"; };
+  auto during = [&] {
+    std::string s(stage);
+    if (!place.empty()) s.append(" of ").append(place);
+    return s;
+  };
   try {
     return fn();
   } catch (const InputError&) {
     throw;
   } catch (const CheckError& e) {
-    throw DesignError(who() + ": check '" + e.check_id() + "' failed during " + std::string(stage) +
-                      ": " + e.what());
+    throw DesignError(who() + ": check '" + e.check_id() + "' failed during " + during() + ": " + e.what());
   } catch (const std::exception& e) {
-    throw DesignError(who() + ": failed during " + std::string(stage) + ": " + e.what());
+    throw DesignError(who() + ": failed during " + during() + ": " + e.what());
   } catch (...) {
-    throw DesignError(who() + ": failed during " + std::string(stage) + " with an unknown exception");
+    throw DesignError(who() + ": failed during " + during() + " with an unknown exception");
   }
 }
 
@@ -78,6 +83,13 @@ LoadTotals total_loads(const LoadBasis& basis, const Request& req) {
   return t;
 }
 
+// Spacings of the search are first_spacing_mm + k spacing_step_mm for
+// k = 0 … this (−1 when even the first exceeds the limit).
+int last_spacing_step(double max_spacing_mm) {
+  if (!(max_spacing_mm >= first_spacing_mm)) return -1;
+  return static_cast<int>(std::floor((max_spacing_mm - first_spacing_mm) / spacing_step_mm + 1e-9));
+}
+
 struct Chosen {
   SearchCandidate candidate;
   bool found = false;
@@ -94,16 +106,15 @@ void consider(Chosen& best, const SearchCandidate& c) {
 SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
                             const RegionDemand& region, double width_mm,
                             std::vector<std::string>& warnings) {
-  const auto bars = call_code(code, "bar options", [&] { return checker.bar_options(); });
+  const auto& bars = call_code(code, "bar options",
+                               [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const double s_max =
       call_code(code, "maximum spacing", [&] { return checker.max_spacing_mm(region); });
   // Every arrangement is a candidate, but one with more steel than an
   // arrangement already known to pass can never be chosen, so it is not
   // checked. Each bar is tried from its widest spacing (least steel) down.
   Chosen passing, fallback, largest;
-  const int steps = s_max >= first_spacing_mm
-                        ? static_cast<int>(std::floor((s_max - first_spacing_mm) / spacing_step_mm + 1e-9))
-                        : -1;
+  const int steps = last_spacing_step(s_max);
   for (const auto& bar : bars) {
     for (int k = steps; k >= 0; --k) {
       const double s = first_spacing_mm + spacing_step_mm * k;
@@ -133,24 +144,40 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   return largest.candidate;
 }
 
+// Distribution bars: the least area that meets the need, at a spacing of
+// the search's grid within the code's limit; for each bar that is its
+// widest spacing providing the area, so one candidate per bar is compared.
 DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIdentity& code,
                                        double main_As_prov, double width_mm,
                                        std::vector<std::string>& warnings, bool& ok) {
   DistributionNeed need =
       call_code(code, "distribution steel", [&] { return checker.distribution(main_As_prov); });
-  const auto bars = call_code(code, "bar options", [&] { return checker.bar_options(); });
+  const auto& bars = call_code(code, "bar options",
+                               [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
+  const int steps = last_spacing_step(need.max_spacing_mm);
   Chosen best, largest;
   for (const auto& bar : bars) {
-    for (double s = first_spacing_mm; s <= need.max_spacing_mm + 1e-9; s += spacing_step_mm) {
-      SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      if (c.As_prov_mm2 >= need.As_req_mm2) consider(best, c);
-      if (!largest.found || c.As_prov_mm2 > largest.candidate.As_prov_mm2) {
-        largest.candidate = c;
-        largest.found = true;
+    if (steps < 0) break;
+    // The closest spacing of the grid gives this bar's most steel.
+    const SearchCandidate closest{bar, first_spacing_mm, provided_area_mm2(bar.area_mm2, first_spacing_mm, width_mm)};
+    if (!largest.found || closest.As_prov_mm2 > largest.candidate.As_prov_mm2) {
+      largest.candidate = closest;
+      largest.found = true;
+    }
+    // Widest spacing on the grid whose area still meets the need.
+    for (int k = steps; k >= 0; --k) {
+      const double s = first_spacing_mm + spacing_step_mm * k;
+      const SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
+      if (c.As_prov_mm2 >= need.As_req_mm2) {
+        consider(best, c);
+        break;
       }
     }
   }
   ok = best.found;
+  if (!largest.found)
+    throw DesignError(code.id + " (" + code.variant + "): no distribution bar arrangement to try "
+                      "(maximum spacing " + std::to_string(need.max_spacing_mm) + " mm)");
   const SearchCandidate& pick = best.found ? best.candidate : largest.candidate;
   if (!best.found)
     warnings.push_back("distribution steel: no candidate bar provides the required area; "
@@ -360,9 +387,9 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
   double max_main_As = 0.0;
   for (const auto& demand : demands) {
     const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);
-    RegionOutcome out = call_code(rec.code, "the checks of " + demand.where, [&] {
-      return checker->check_region(demand, pick.bar, pick.spacing_mm, detail);
-    });
+    RegionOutcome out = call_code(
+        rec.code, "the checks",
+        [&] { return checker->check_region(demand, pick.bar, pick.spacing_mm, detail); }, demand.where);
     RegionRecord region;
     region.where = demand.where;
     region.face = demand.face;

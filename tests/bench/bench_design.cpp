@@ -41,6 +41,19 @@ void five_span_design(benchmark::State& state) {
 }
 BENCHMARK(five_span_design);
 
+// The parts of the JSON route, apart: text to Request, and record to text.
+void json_request_parse(benchmark::State& state) {
+  const std::string text = single_span.dump();
+  for (auto _ : state) benchmark::DoNotOptimize(parsed(nlohmann::json::parse(text)));
+}
+BENCHMARK(json_request_parse);
+
+void json_result_serialise(benchmark::State& state) {
+  const auto record = armature::design(armature::Registry::shared(), parsed(single_span));
+  for (auto _ : state) benchmark::DoNotOptimize(armature::result_to_json(record).dump());
+}
+BENCHMARK(json_result_serialise);
+
 void json_parse_design_serialise(benchmark::State& state) {
   auto& reg = armature::Registry::shared();
   const std::string text = single_span.dump();

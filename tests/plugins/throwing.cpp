@@ -14,7 +14,7 @@ class ThrowingChecker final : public SlabChecker {
     return {std::vector<bool>(n, true)};
   }
   double pinned_end_fixity_fraction() const override { return 0.0; }
-  std::vector<BarOption> bar_options() const override { return {{"10", 10.0, 78.5}}; }
+  const std::vector<BarOption>& bar_options() const override { return bars_; }
   double max_spacing_mm(const RegionDemand&) const override { return 200.0; }
   RegionOutcome check_region(const RegionDemand&, const BarOption&, double, Detail) const override {
     RegionOutcome out;
@@ -26,6 +26,9 @@ class ThrowingChecker final : public SlabChecker {
   std::vector<Check> span_checks(const std::string&) const override { return {}; }
   DistributionNeed distribution(double) const override { return {0.0, 300.0}; }
   std::vector<std::string> warnings() const override { return {}; }
+
+ private:
+  std::vector<BarOption> bars_{{"10", 10.0, 78.5}};
 };
 
 class ThrowingCode final : public DesignCode {

@@ -34,16 +34,22 @@ Check scaled_deflection(Check c) {
 
 class Checker final : public SlabChecker {
  public:
-  Checker(std::unique_ptr<SlabChecker> inner, std::unique_ptr<SlabChecker> inner_min_cover,
-          const Request& req)
-      : inner_(std::move(inner)), min_cover_(std::move(inner_min_cover)), req_(req) {}
+  // EN's checkers may refer to their requests: the request with the house
+  // cover is kept here, beside the checker made for it.
+  Checker(const DesignCode& en, const Request& req) : req_(req), inner_(en.begin(req)) {
+    if (!req.durability.cover_mm) {
+      with_min_cover_ = req;
+      with_min_cover_.durability.cover_mm = min_cover;
+      min_cover_ = en.begin(with_min_cover_);
+    }
+  }
 
   LoadBasis load_basis() const override { return inner_->load_basis(); }
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
     return inner_->load_arrangements(n);
   }
   double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
-  std::vector<BarOption> bar_options() const override { return inner_->bar_options(); }
+  const std::vector<BarOption>& bar_options() const override { return inner_->bar_options(); }
   double max_spacing_mm(const RegionDemand& g) const override {
     return std::min(inner_->max_spacing_mm(g), max_spacing);
   }
@@ -91,8 +97,9 @@ class Checker final : public SlabChecker {
   std::vector<std::string> warnings() const override { return inner_->warnings(); }
 
  private:
+  const Request& req_;        // kept alive by the caller of Code::begin
+  Request with_min_cover_;    // req_ with HR-4's cover, when req_ gives none
   std::unique_ptr<SlabChecker> inner_, min_cover_;
-  Request req_;
 };
 
 class Code final : public DesignCode {
@@ -108,13 +115,7 @@ class Code final : public DesignCode {
   }
 
   std::unique_ptr<SlabChecker> begin(const Request& req) const override {
-    std::unique_ptr<SlabChecker> with_min_cover;
-    if (!req.durability.cover_mm) {
-      Request fixed = req;
-      fixed.durability.cover_mm = min_cover;
-      with_min_cover = en_->begin(fixed);
-    }
-    return std::make_unique<Checker>(en_->begin(req), std::move(with_min_cover), req);
+    return std::make_unique<Checker>(*en_, req);
   }
 
  private:

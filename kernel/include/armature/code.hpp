@@ -130,8 +130,9 @@ class SlabChecker {
   // Top steel at pinned ends, as a fraction of the largest adjacent span
   // moment; 0 when the code asks for none.
   virtual double pinned_end_fixity_fraction() const = 0;
-  // Candidate bars of the request (or the code's default set).
-  virtual std::vector<BarOption> bar_options() const = 0;
+  // Candidate bars of the request (or the code's default set); the list
+  // lives as long as the checker.
+  virtual const std::vector<BarOption>& bar_options() const = 0;
   // Largest bar spacing the code allows in this region (mm).
   virtual double max_spacing_mm(const RegionDemand& region) const = 0;
   // Every check of one arrangement, at the detail asked for (the verdict
@@ -150,7 +151,9 @@ class DesignCode {
   virtual CodeIdentity identity() const = 0;
   // Adds one problem per code-specific field that is out of range or unknown.
   virtual void validate(const Request& request, InputProblems& problems) const = 0;
-  // For a request that passed validate().
+  // For a request that passed validate(). The checker may refer to the
+  // request and to this code: the caller keeps both alive while the
+  // checker lives.
   virtual std::unique_ptr<SlabChecker> begin(const Request& request) const = 0;
 };
 
@@ -170,12 +173,21 @@ class CheckCollector {
   template <class StepsFn>
   void add(const char* id, const std::string& where, const char* clause, double demand,
            double capacity, const char* unit, StepsFn&& make_steps) {
-    const bool pass = utilisation_of(demand, capacity) <= 1.0;
+    const double utilisation = utilisation_of(demand, capacity);
+    const bool pass = utilisation <= 1.0;
     verdict_.all_pass = verdict_.all_pass && pass;
     if (is_strength_check(id)) verdict_.strength_pass = verdict_.strength_pass && pass;
     if (detail_ == Detail::verdict) return;
-    out_.push_back(make_check(id, where, clause, demand, capacity, unit,
-                              detail_ == Detail::steps ? make_steps() : std::vector<Step>{}));
+    Check& c = out_.emplace_back();
+    c.id = id;
+    c.where = where;
+    c.clause = clause;
+    c.demand = demand;
+    c.capacity = capacity;
+    c.unit = unit;
+    c.utilisation = utilisation;
+    c.pass = pass;
+    if (detail_ == Detail::steps) c.steps = make_steps();
   }
   void add(const char* id, const std::string& where, const char* clause, double demand,
            double capacity, const char* unit) {
