@@ -126,6 +126,14 @@ class PyWriter {
     else put(PyUnicode_FromStringAndSize(v.data(), static_cast<Py_ssize_t>(v.size())));
   }
   void value(const char* v) { value(std::string(v)); }
+  // A label's text is stored once for the process: its Python string is
+  // made once too, found by address.
+  void value(const armature::Label& v) {
+    static auto* cache = new std::unordered_map<const std::string*, py::object>();  // lives with the process
+    auto it = cache->find(&v.str());
+    if (it == cache->end()) it = cache->emplace(&v.str(), key_object(v.str())).first;
+    put(it->second.inc_ref().ptr());
+  }
   py::object take() { return std::move(root_); }
 
  private:

@@ -12,7 +12,7 @@ RegionVerdict verdict_of(const RegionOutcome& o) {
   auto take = [&](const std::vector<Check>& checks) {
     for (const auto& c : checks) {
       v.all_pass = v.all_pass && c.pass;
-      if (is_strength_check(c.id)) v.strength_pass = v.strength_pass && c.pass;
+      if (is_strength_check(c.id.str())) v.strength_pass = v.strength_pass && c.pass;
     }
   };
   take(o.checks);

@@ -1,6 +1,11 @@
 #include "armature/record.hpp"
 
+#include <cstdint>
+#include <cstring>
 #include <limits>
+#include <mutex>
+#include <ostream>
+#include <unordered_set>
 
 #include "armature/code.hpp"
 #include "armature/errors.hpp"
@@ -8,15 +13,68 @@
 
 namespace armature {
 
-Check make_check(std::string id, std::string where, std::string clause, double demand,
-                 double capacity, std::string unit, std::vector<Step> steps) {
+namespace {
+
+// Every label's text, kept for the life of the process (never destroyed:
+// labels may be used from static destructors). Elements of an
+// unordered_set keep their address when it grows.
+struct LabelStore {
+  std::mutex mutex;
+  std::unordered_set<std::string> texts;
+};
+LabelStore& label_store() {
+  static auto* store = new LabelStore();
+  return *store;
+}
+
+const std::string* stored_text(std::string_view text) {
+  auto& store = label_store();
+  std::lock_guard<std::mutex> lock(store.mutex);
+  return &*store.texts.emplace(text).first;
+}
+
+// Labels are mostly made from string literals, again and again: each
+// thread remembers, by address, the stored text of the literals it has
+// seen. The text is compared on every hit, so a different text at a
+// remembered address (a plug-in unloaded and another loaded) is looked up
+// afresh, never mistaken.
+struct LiteralCache {
+  static constexpr std::size_t size = 512;
+  const char* address[size] = {};
+  const std::string* text[size] = {};
+};
+
+const std::string* text_of_literal(const char* literal) {
+  thread_local LiteralCache cache;
+  const std::size_t slot = (reinterpret_cast<std::uintptr_t>(literal) >> 3) % LiteralCache::size;
+  if (cache.address[slot] == literal && std::strcmp(cache.text[slot]->c_str(), literal) == 0)
+    return cache.text[slot];
+  const std::string* stored = stored_text(literal);
+  cache.address[slot] = literal;
+  cache.text[slot] = stored;
+  return stored;
+}
+
+}  // namespace
+
+Label::Label() {
+  static const std::string* const empty = stored_text("");
+  text_ = empty;
+}
+Label::Label(const char* text) : text_(text_of_literal(text ? text : "")) {}
+Label::Label(std::string_view text) : text_(stored_text(text)) {}
+
+std::ostream& operator<<(std::ostream& out, const Label& label) { return out << label.str(); }
+
+Check make_check(Label id, std::string where, Label clause, double demand, double capacity,
+                 Label unit, std::vector<Step> steps) {
   Check c;
-  c.id = std::move(id);
+  c.id = id;
   c.where = std::move(where);
-  c.clause = std::move(clause);
+  c.clause = clause;
   c.demand = demand;
   c.capacity = capacity;
-  c.unit = std::move(unit);
+  c.unit = unit;
   c.utilisation = utilisation_of(demand, capacity);
   c.pass = c.utilisation <= 1.0;
   c.steps = std::move(steps);

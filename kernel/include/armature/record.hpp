@@ -2,11 +2,45 @@
 // Python objects and the calculation record are all drawn from these.
 #pragma once
 
+#include <iosfwd>
 #include <limits>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace armature {
+
+// A short text that repeats from check to check: an id, a clause, a unit.
+// Each distinct text is stored once for the life of the process, so a
+// Label is one pointer and copying it allocates nothing. Labels are for
+// fixed vocabularies; numbers belong in the steps.
+class Label {
+ public:
+  Label();
+  Label(const char* text);  // NOLINT: implicit, as a string would be
+  Label(std::string_view text);
+  Label(const std::string& text) : Label(std::string_view(text)) {}  // NOLINT
+
+  const std::string& str() const { return *text_; }
+  operator const std::string&() const { return *text_; }  // NOLINT
+  const char* c_str() const { return text_->c_str(); }
+  bool empty() const { return text_->empty(); }
+  std::size_t size() const { return text_->size(); }
+
+  friend bool operator==(const Label& a, const Label& b) { return a.text_ == b.text_; }
+  friend bool operator==(const Label& a, const char* b) { return *a.text_ == b; }
+  friend bool operator==(const Label& a, const std::string& b) { return *a.text_ == b; }
+  friend bool operator==(const Label& a, std::string_view b) { return *a.text_ == b; }
+
+ private:
+  const std::string* text_;
+};
+
+inline std::string operator+(const Label& a, const std::string& b) { return a.str() + b; }
+inline std::string operator+(const Label& a, const char* b) { return a.str() + b; }
+inline std::string operator+(const std::string& a, const Label& b) { return a + b.str(); }
+inline std::string operator+(const char* a, const Label& b) { return a + b.str(); }
+std::ostream& operator<<(std::ostream& out, const Label& label);
 
 // One line of a derivation: symbol = expression = substituted values = result.
 struct Step {
@@ -20,12 +54,12 @@ struct Step {
 
 // One verified requirement: demand ≤ capacity.
 struct Check {
-  std::string id;      // bending, ductility, min_steel, ... (contract.md)
+  Label id;            // bending, ductility, min_steel, ... (contract.md)
   std::string where;   // "span 1", "support 2"
-  std::string clause;  // "EN 1992-1-1 6.2.2(1)"
+  Label clause;        // "EN 1992-1-1 6.2.2(1)"
   double demand = 0.0;    // in report units (kNm, kN, mm, mm2, -)
   double capacity = 0.0;  // same unit as demand
-  std::string unit;
+  Label unit;
   double utilisation = 0.0;  // demand / capacity
   bool pass = false;
   std::vector<Step> steps;
@@ -40,7 +74,7 @@ inline double utilisation_of(double demand, double capacity) {
 }
 
 // Builds a Check with utilisation and pass derived from demand and capacity.
-Check make_check(std::string id, std::string where, std::string clause, double demand,
-                 double capacity, std::string unit, std::vector<Step> steps = {});
+Check make_check(Label id, std::string where, Label clause, double demand, double capacity,
+                 Label unit, std::vector<Step> steps = {});
 
 }  // namespace armature

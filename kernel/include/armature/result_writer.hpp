@@ -3,6 +3,7 @@
 // schema through a Writer with these members:
 //   begin_object(), begin_array(), end(), key(const char*),
 //   value(double), value(bool), value(const std::string&), value(const char*)
+// and, optionally, value(const Label&) (else a Label is written as its text).
 // Units convert here: m, kPa, kN, kNm outside; mm, MPa, N, N·mm inside.
 #pragma once
 
