@@ -79,6 +79,11 @@ class Checker final : public SlabChecker {
     return max_flexural_bar_spacing(req_.slab.thickness_mm);
   }
 
+  // The capacity of the min_steel check below (the same for every bar).
+  double minimum_area_mm2(const RegionDemand&, const BarOption&) const override {
+    return minimum_flexural_steel(req_.slab.strip_width_mm, req_.slab.thickness_mm);
+  }
+
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
                              Detail detail) const override {
     RegionOutcome out;

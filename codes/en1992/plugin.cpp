@@ -124,6 +124,12 @@ class Checker final : public SlabChecker {
     return max_main_bar_spacing_max_moment(req_.slab.thickness_mm);
   }
 
+  // The capacity of the min_steel check below, for this bar's depth.
+  double minimum_area_mm2(const RegionDemand&, const BarOption& bar) const override {
+    const double d = req_.slab.thickness_mm - cover_of(bar.diameter_mm).c_nom - bar.diameter_mm / 2.0;
+    return d > 0.0 ? minimum_tension_steel(m_.fctm, m_.fyk, req_.slab.strip_width_mm, d) : 0.0;
+  }
+
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
                              Detail detail) const override {
     RegionOutcome out;
@@ -135,11 +141,9 @@ class Checker final : public SlabChecker {
     // Cover (4.4.1)
     const int s_class = structural_class_;
     const double c_dur = c_min_dur_;
-    const double c_bond = minimum_cover_bond(phi, dg);
-    const double c_min = minimum_cover(c_bond, c_dur);
-    const double c_req = c_min + ndp_.delta_c_dev_mm;
+    const CoverOf cover = cover_of(phi);
+    const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = cover.c_nom;
     const bool cover_given = req_.durability.cover_mm.has_value();
-    const double c_nom = cover_given ? *req_.durability.cover_mm : round_up_to_5(c_req);
     auto cover_steps = [&] {
       Steps st;
       st.add("S", "structural class (S4, life, slab geometry, strength)",
@@ -357,6 +361,20 @@ class Checker final : public SlabChecker {
   std::vector<std::string> warnings() const override { return warnings_; }
 
  private:
+  // Cover of bars of diameter phi (4.4.1): c_nom is the request's cover
+  // when given, else c_min + Δc_dev rounded up to 5 mm.
+  struct CoverOf {
+    double c_bond, c_min, c_req, c_nom;
+  };
+  CoverOf cover_of(double phi) const {
+    CoverOf c;
+    c.c_bond = minimum_cover_bond(phi, req_.concrete.aggregate_mm);
+    c.c_min = minimum_cover(c.c_bond, c_min_dur_);
+    c.c_req = c.c_min + ndp_.delta_c_dev_mm;
+    c.c_nom = req_.durability.cover_mm ? *req_.durability.cover_mm : round_up_to_5(c.c_req);
+    return c;
+  }
+
   void crack_check(CheckCollector& checks, const RegionDemand& g, double phi, double s, double d,
                    double As_req, double As_prov) const {
     const double h = req_.slab.thickness_mm;

@@ -102,7 +102,8 @@ void consider(Chosen& best, const SearchCandidate& c) {
   }
 }
 
-// Bar search of contract.md for one region.
+}  // namespace
+
 SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
                             const RegionDemand& region, double width_mm,
                             std::vector<std::string>& warnings) {
@@ -116,6 +117,12 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   Chosen passing, fallback, largest;
   const int steps = last_spacing_step(s_max);
   for (const auto& bar : bars) {
+    // Arrangements below the code's minimum steel fail it: no verdict is
+    // needed (the margin keeps a rounding tie with the check's own ratio
+    // on the checked side).
+    const double floor =
+        call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) *
+        (1 - 1e-12);
     for (int k = steps; k >= 0; --k) {
       const double s = first_spacing_mm + spacing_step_mm * k;
       SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
@@ -124,6 +131,7 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
         largest.found = true;
       }
       if (passing.found && c.As_prov_mm2 > passing.candidate.As_prov_mm2 * (1 + 1e-9)) break;
+      if (c.As_prov_mm2 < floor) continue;
       const RegionVerdict v = call_code(code, "the bar search", [&] {
         return checker.check_region(region, bar, s, Detail::verdict).verdict;
       });
@@ -143,6 +151,8 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
                      "minimum steel; the arrangement with the most steel is reported");
   return largest.candidate;
 }
+
+namespace {
 
 // Distribution bars: the least area that meets the need, at a spacing of
 // the search's grid within the code's limit; for each bar that is its

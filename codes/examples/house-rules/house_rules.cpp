@@ -54,6 +54,13 @@ class Checker final : public SlabChecker {
     return std::min(inner_->max_spacing_mm(g), max_spacing);
   }
 
+  // EN's minimum steel, at the depth of whichever cover HR-4 leads to:
+  // the lesser of the two is a floor for both.
+  double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
+    const double own = inner_->minimum_area_mm2(g, bar);
+    return min_cover_ ? std::min(own, min_cover_->minimum_area_mm2(g, bar)) : own;
+  }
+
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
                              Detail detail) const override {
     // The house changes EN's checks, so it always asks for them.

@@ -110,5 +110,10 @@ struct SearchCandidate {
 bool preferred(const SearchCandidate& a, const SearchCandidate& b);
 // Area per strip width of bars of one area at one spacing.
 double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm);
+// The bar search of contract.md for one region, as design() runs it: the
+// chosen arrangement (a warning is added when none passes every check).
+SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
+                            const RegionDemand& region, double width_mm,
+                            std::vector<std::string>& warnings);
 
 }  // namespace armature
