@@ -4,6 +4,7 @@
 #include "armature/analysis.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <stdexcept>
 
@@ -64,38 +65,56 @@ SpanForces span_from_end_moments(double L, double w, double M_left, double M_rig
 }
 
 namespace {
-// Solves A x = b in place by Gaussian elimination with partial pivoting.
-std::vector<double> solve_dense(std::vector<double> A, std::vector<double> b) {
-  const std::size_t n = b.size();
-  for (std::size_t k = 0; k < n; ++k) {
-    std::size_t p = k;
-    for (std::size_t i = k + 1; i < n; ++i)
-      if (std::abs(A[i * n + k]) > std::abs(A[p * n + k])) p = i;
-    if (std::abs(A[p * n + k]) < 1e-300) throw std::runtime_error("strip is a mechanism");
-    if (p != k) {
-      for (std::size_t j = 0; j < n; ++j) std::swap(A[k * n + j], A[p * n + j]);
-      std::swap(b[k], b[p]);
-    }
-    for (std::size_t i = k + 1; i < n; ++i) {
-      const double f = A[i * n + k] / A[k * n + k];
-      if (f == 0.0) continue;
-      for (std::size_t j = k; j < n; ++j) A[i * n + j] -= f * A[k * n + j];
-      b[i] -= f * b[k];
+// LU factors of a dense matrix with partial pivoting: factored once, then
+// solved for as many load vectors as there are load cases.
+class DenseLu {
+ public:
+  explicit DenseLu(std::vector<double> A, std::size_t n) : a_(std::move(A)), n_(n), pivot_(n) {
+    for (std::size_t k = 0; k < n; ++k) {
+      std::size_t p = k;
+      for (std::size_t i = k + 1; i < n; ++i)
+        if (std::abs(a_[i * n + k]) > std::abs(a_[p * n + k])) p = i;
+      if (std::abs(a_[p * n + k]) < 1e-300) throw std::runtime_error("strip is a mechanism");
+      pivot_[k] = p;
+      if (p != k)
+        for (std::size_t j = 0; j < n; ++j) std::swap(a_[k * n + j], a_[p * n + j]);
+      for (std::size_t i = k + 1; i < n; ++i) {
+        const double f = a_[i * n + k] / a_[k * n + k];
+        a_[i * n + k] = f;  // the multiplier, kept for the solves
+        if (f == 0.0) continue;
+        for (std::size_t j = k + 1; j < n; ++j) a_[i * n + j] -= f * a_[k * n + j];
+      }
     }
   }
-  std::vector<double> x(n);
-  for (std::size_t i = n; i-- > 0;) {
-    double s = b[i];
-    for (std::size_t j = i + 1; j < n; ++j) s -= A[i * n + j] * x[j];
-    x[i] = s / A[i * n + i];
+  // x with A x = b; b is overwritten by x.
+  void solve(std::vector<double>& b) const {
+    const std::size_t n = n_;
+    // Rows were exchanged whole (multipliers too): P first, then L, then U.
+    for (std::size_t k = 0; k < n; ++k) std::swap(b[k], b[pivot_[k]]);
+    for (std::size_t k = 0; k < n; ++k)
+      for (std::size_t i = k + 1; i < n; ++i) b[i] -= a_[i * n + k] * b[k];
+    for (std::size_t i = n; i-- > 0;) {
+      double s = b[i];
+      for (std::size_t j = i + 1; j < n; ++j) s -= a_[i * n + j] * b[j];
+      b[i] = s / a_[i * n + i];
+    }
   }
-  return x;
-}
+
+ private:
+  std::vector<double> a_;
+  std::size_t n_;
+  std::vector<std::size_t> pivot_;
+};
 }  // namespace
 
-CaseResult analyse(const StripModel& m, const std::vector<double>& w) {
+CaseResult analyse(const StripModel& m, const std::vector<double>& w_N_per_mm) {
+  return std::move(analyse_cases(m, {w_N_per_mm}).front());
+}
+
+std::vector<CaseResult> analyse_cases(const StripModel& m, const std::vector<std::vector<double>>& loads) {
   const std::size_t n_spans = m.span_count(), n_nodes = m.node_count();
-  if (w.size() != n_spans) throw std::invalid_argument("one load per span is needed");
+  for (const auto& w : loads)
+    if (w.size() != n_spans) throw std::invalid_argument("one load per span is needed");
   if (const auto why = stability_problem(m); !why.empty()) throw std::invalid_argument(why);
   constexpr double EI = 1e12;  // N·mm²; uniform, so it cancels from the forces
 
@@ -109,44 +128,61 @@ CaseResult analyse(const StripModel& m, const std::vector<double>& w) {
     if (!fixed) index[2 * j + 1] = free_dofs++;
   }
   const std::size_t nf = static_cast<std::size_t>(free_dofs);
-  std::vector<double> K(nf * nf, 0.0), P(nf, 0.0);
+  auto dofs_of = [&](std::size_t e) {
+    return std::array<int, 4>{index[2 * e], index[2 * e + 1], index[2 * e + 2], index[2 * e + 3]};
+  };
+  std::vector<double> K(nf * nf, 0.0);
   for (std::size_t e = 0; e < n_spans; ++e) {
-    const double L = m.spans_mm[e], q = w[e];
+    const double L = m.spans_mm[e];
     const double k[4][4] = {{12 / (L * L * L), 6 / (L * L), -12 / (L * L * L), 6 / (L * L)},
                             {6 / (L * L), 4 / L, -6 / (L * L), 2 / L},
                             {-12 / (L * L * L), -6 / (L * L), 12 / (L * L * L), -6 / (L * L)},
                             {6 / (L * L), 2 / L, -6 / (L * L), 4 / L}};
-    // Equivalent nodal loads of a downward uniform load (minus the fixed-end forces).
-    const double f[4] = {-q * L / 2, -q * L * L / 12, -q * L / 2, q * L * L / 12};
-    const int dofs[4] = {index[2 * e], index[2 * e + 1], index[2 * e + 2], index[2 * e + 3]};
+    const auto dofs = dofs_of(e);
     for (int a = 0; a < 4; ++a) {
       if (dofs[a] < 0) continue;
-      P[dofs[a]] += f[a];
       for (int b = 0; b < 4; ++b)
         if (dofs[b] >= 0) K[dofs[a] * nf + dofs[b]] += EI * k[a][b];
     }
   }
-  const std::vector<double> u = nf ? solve_dense(K, P) : std::vector<double>{};
-  auto disp = [&](std::size_t dof) { return index[dof] < 0 ? 0.0 : u[index[dof]]; };
+  const DenseLu lu(std::move(K), nf);
 
-  CaseResult r;
-  r.reactions.assign(n_nodes, 0.0);
-  for (std::size_t e = 0; e < n_spans; ++e) {
-    const double L = m.spans_mm[e], q = w[e];
-    const double d[4] = {disp(2 * e), disp(2 * e + 1), disp(2 * e + 2), disp(2 * e + 3)};
-    // End forces on the element: k d + fixed-end forces.
-    const double F1 = EI * (12 * d[0] / (L * L * L) + 6 * d[1] / (L * L) - 12 * d[2] / (L * L * L) +
-                            6 * d[3] / (L * L)) + q * L / 2;
-    const double M1 = EI * (6 * d[0] / (L * L) + 4 * d[1] / L - 6 * d[2] / (L * L) + 2 * d[3] / L) +
-                      q * L * L / 12;
-    SpanForces s{L, q, -M1, F1};  // anticlockwise end moment on the left = hogging
-    r.spans.push_back(s);
-    r.reactions[e] += s.V_left;
-    r.reactions[e + 1] -= s.V_right();
+  std::vector<CaseResult> results;
+  results.reserve(loads.size());
+  std::vector<double> u(nf);
+  for (const auto& w : loads) {
+    // Equivalent nodal loads of a downward uniform load (minus the fixed-end forces).
+    std::fill(u.begin(), u.end(), 0.0);
+    for (std::size_t e = 0; e < n_spans; ++e) {
+      const double L = m.spans_mm[e], q = w[e];
+      const double f[4] = {-q * L / 2, -q * L * L / 12, -q * L / 2, q * L * L / 12};
+      const auto dofs = dofs_of(e);
+      for (int a = 0; a < 4; ++a)
+        if (dofs[a] >= 0) u[dofs[a]] += f[a];
+    }
+    lu.solve(u);
+    auto disp = [&](std::size_t dof) { return index[dof] < 0 ? 0.0 : u[index[dof]]; };
+
+    CaseResult& r = results.emplace_back();
+    r.spans.reserve(n_spans);
+    r.reactions.assign(n_nodes, 0.0);
+    for (std::size_t e = 0; e < n_spans; ++e) {
+      const double L = m.spans_mm[e], q = w[e];
+      const double d[4] = {disp(2 * e), disp(2 * e + 1), disp(2 * e + 2), disp(2 * e + 3)};
+      // End forces on the element: k d + fixed-end forces.
+      const double F1 = EI * (12 * d[0] / (L * L * L) + 6 * d[1] / (L * L) - 12 * d[2] / (L * L * L) +
+                              6 * d[3] / (L * L)) + q * L / 2;
+      const double M1 = EI * (6 * d[0] / (L * L) + 4 * d[1] / L - 6 * d[2] / (L * L) + 2 * d[3] / L) +
+                        q * L * L / 12;
+      SpanForces s{L, q, -M1, F1};  // anticlockwise end moment on the left = hogging
+      r.spans.push_back(s);
+      r.reactions[e] += s.V_left;
+      r.reactions[e + 1] -= s.V_right();
+    }
+    for (std::size_t j = 0; j < n_nodes; ++j)
+      if (!m.has_support(j)) r.reactions[j] = 0.0;
   }
-  for (std::size_t j = 0; j < n_nodes; ++j)
-    if (!m.has_support(j)) r.reactions[j] = 0.0;
-  return r;
+  return results;
 }
 
 std::vector<bool> redistributable_nodes(const StripModel& m) {

@@ -281,7 +281,9 @@ std::vector<std::vector<double>> load_cases(const LoadBasis& basis, const LoadTo
     for (const auto& a : arrangements) {
       std::vector<double> w(a.size());
       for (std::size_t i = 0; i < a.size(); ++i) w[i] = a[i] ? loaded : unloaded;
-      cases.push_back(std::move(w));
+      // The same loads twice (a single span's "alternate" and "all spans"
+      // arrangements) add nothing to the envelope.
+      if (std::find(cases.begin(), cases.end(), w) == cases.end()) cases.push_back(std::move(w));
     }
   }
   return cases;
@@ -371,11 +373,9 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
 
   const double delta = 1.0 - req.design.redistribution_percent / 100.0;
   const auto redistributed = redistributable_nodes(model);
-  std::vector<CaseResult> cases;
-  for (const auto& w : load_cases(basis, rec.loads, arrangements, b)) {
-    CaseResult elastic = analyse(model, w);
-    cases.push_back(delta < 1.0 ? redistribute(model, elastic, redistributed, delta) : std::move(elastic));
-  }
+  std::vector<CaseResult> cases = analyse_cases(model, load_cases(basis, rec.loads, arrangements, b));
+  if (delta < 1.0)
+    for (auto& c : cases) c = redistribute(model, c, redistributed, delta);
   const Envelope env = envelope_of(model, cases);
   if (detail == Detail::steps) rec.diagrams = envelope_diagrams(model, cases);  // for the record
   rec.spans_mm = req.slab.spans_mm;

@@ -55,6 +55,10 @@ struct CaseResult {
 
 // Stiffness solution for one load case; w_N_per_mm has one entry per span.
 CaseResult analyse(const StripModel& model, const std::vector<double>& w_N_per_mm);
+// The same for several load cases (one load per span each), sharing one
+// factorisation of the stiffness matrix.
+std::vector<CaseResult> analyse_cases(const StripModel& model,
+                                      const std::vector<std::vector<double>>& w_N_per_mm);
 
 // Nodes whose support moment may be redistributed: interior supports not
 // next to a cantilever (a cantilever root moment is statically fixed).
