@@ -87,6 +87,7 @@ class Checker final : public SlabChecker {
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
                              Detail detail) const override {
     RegionOutcome out;
+    if (detail != Detail::verdict) out.checks.reserve(8);  // as many as a region has, nearly always
     CheckCollector checks(out.checks, out.verdict, detail);
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm, db = bar.diameter_mm;
     const double As = bar.area_mm2 * b / s;

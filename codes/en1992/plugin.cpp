@@ -95,6 +95,7 @@ class Checker final : public SlabChecker {
     if (!ndp.durability_note.empty()) warnings_.push_back(ndp.durability_note);
     structural_class_ = structural_class(req.durability.design_life_years, exposure_, m_.fck);
     c_min_dur_ = minimum_cover_durability(structural_class_, exposure_);
+    for (const auto& bar : *bars_) covers_.push_back({bar.diameter_mm, cover_of(bar.diameter_mm)});
   }
 
   LoadBasis load_basis() const override {
@@ -126,13 +127,14 @@ class Checker final : public SlabChecker {
 
   // The capacity of the min_steel check below, for this bar's depth.
   double minimum_area_mm2(const RegionDemand&, const BarOption& bar) const override {
-    const double d = req_.slab.thickness_mm - cover_of(bar.diameter_mm).c_nom - bar.diameter_mm / 2.0;
+    const double d = req_.slab.thickness_mm - cover_for(bar.diameter_mm).c_nom - bar.diameter_mm / 2.0;
     return d > 0.0 ? minimum_tension_steel(m_.fctm, m_.fyk, req_.slab.strip_width_mm, d) : 0.0;
   }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
                              Detail detail) const override {
     RegionOutcome out;
+    if (detail != Detail::verdict) out.checks.reserve(8);  // as many as a region has, nearly always
     CheckCollector checks(out.checks, out.verdict, detail);
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
     const double phi = bar.diameter_mm, dg = req_.concrete.aggregate_mm;
@@ -141,7 +143,7 @@ class Checker final : public SlabChecker {
     // Cover (4.4.1)
     const int s_class = structural_class_;
     const double c_dur = c_min_dur_;
-    const CoverOf cover = cover_of(phi);
+    const CoverOf cover = cover_for(phi);
     const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = cover.c_nom;
     const bool cover_given = req_.durability.cover_mm.has_value();
     auto cover_steps = [&] {
@@ -375,6 +377,13 @@ class Checker final : public SlabChecker {
     return c;
   }
 
+  // cover_of, worked out once per candidate bar of the request.
+  CoverOf cover_for(double phi) const {
+    for (const auto& [diameter, cover] : covers_)
+      if (diameter == phi) return cover;
+    return cover_of(phi);
+  }
+
   void crack_check(CheckCollector& checks, const RegionDemand& g, double phi, double s, double d,
                    double As_req, double As_prov) const {
     const double h = req_.slab.thickness_mm;
@@ -455,6 +464,7 @@ class Checker final : public SlabChecker {
   double w_max_ = 0.0;
   std::vector<BarOption> own_bars_;  // when the request names its bars
   const std::vector<BarOption>* bars_ = &default_bar_options();
+  std::vector<std::pair<double, CoverOf>> covers_;  // per candidate bar diameter
   std::vector<std::string> warnings_;
 };
 
