@@ -222,7 +222,7 @@ class Checker final : public SlabChecker {
           return st.take();
         });
       });
-      out.supports.push_back(std::move(so));
+      if (detail != Detail::verdict) out.supports.push_back(std::move(so));  // the search needs only the verdict
     }
     return out;
   }

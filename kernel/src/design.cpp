@@ -198,7 +198,8 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
   return d;
 }
 
-DesignRecord design_validated(const DesignCode& code, const Request& req, Detail detail);
+// For a request that passed validation; `id` is the code's identity.
+DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Request& req, Detail detail);
 
 }  // namespace
 
@@ -215,7 +216,12 @@ bool preferred(const SearchCandidate& a, const SearchCandidate& b) {
 }
 
 std::vector<const Check*> DesignRecord::all_checks() const {
+  std::size_t count = 0;
+  for (const auto& r : regions) count += r.checks.size();
+  for (const auto& s : supports) count += s.checks.size();
+  for (const auto& s : spans) count += s.checks.size();
   std::vector<const Check*> out;
+  out.reserve(count);
   for (const auto& r : regions)
     for (const auto& c : r.checks) out.push_back(&c);
   for (const auto& s : supports)
@@ -236,25 +242,26 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
       for (const auto& p : e.problems()) problems.add(p.field, p.message);
     }
   }
+  CodeIdentity id;
   if (code) {
-    const CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""},
-                                      "identity", [&] { return code->identity(); });
+    id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
+                   [&] { return code->identity(); });
     call_code(id, "input validation", [&] { code->validate(req, problems); });
   }
   if (problems.empty()) add_scope_problems(req, problems);
   problems.raise_if_any();
-  return design_validated(*code, req, detail);
+  return design_validated(*code, std::move(id), req, detail);
 }
 
 DesignRecord design(const Registry& registry, const Request& req, Detail detail) {
   auto code = registry.open(req.code, req.variant.value_or(""));
   InputProblems problems;
-  const CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""},
-                                    "identity", [&] { return code->identity(); });
+  CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
+                              [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
   add_scope_problems(req, problems);
   problems.raise_if_any();
-  return design_validated(*code, req, detail);
+  return design_validated(*code, std::move(id), req, detail);
 }
 
 namespace {
@@ -350,15 +357,14 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
   return out;
 }
 
-DesignRecord design_validated(const DesignCode& code, const Request& req, Detail detail) {
+DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Request& req, Detail detail) {
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
-  rec.code = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
-                       [&] { return code.identity(); });
+  rec.code = std::move(id);
   rec.report_units = req.report_units;
   rec.strip_width_mm = req.slab.strip_width_mm;
   const auto checker = call_code(rec.code, "set-up", [&] { return code.begin(req); });
-  const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
+  LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
   if (basis.uls.empty()) throw DesignError(rec.code.id + ": the code gave no ULS expression");
   rec.loads = total_loads(basis, req);
 
@@ -379,7 +385,7 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
   const Envelope env = envelope_of(model, cases);
   if (detail == Detail::steps) rec.diagrams = envelope_diagrams(model, cases);  // for the record
   rec.spans_mm = req.slab.spans_mm;
-  rec.uls_expressions = basis.uls;
+  rec.uls_expressions = std::move(basis.uls);  // basis is not used below
   rec.load_arrangements = arrangements.size();
   rec.ends = req.slab.ends;
   rec.redistribution_percent = req.design.redistribution_percent;
@@ -394,6 +400,9 @@ DesignRecord design_validated(const DesignCode& code, const Request& req, Detail
   for (std::size_t j = 0; j <= n; ++j) support_names.push_back(support_name(j));
   std::vector<std::vector<Check>> span_checks(n);
   std::vector<SupportRecord> supports(n + 1);
+  rec.regions.reserve(demands.size());
+  rec.spans.reserve(n);
+  rec.supports.reserve(n + 1);
   double max_main_As = 0.0;
   for (const auto& demand : demands) {
     const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);

@@ -101,7 +101,9 @@ struct SupportOutcome {
   std::vector<Check> checks;
 };
 
-// The code's verdict on one bar arrangement in one region.
+// The code's verdict on one bar arrangement in one region. At
+// Detail::verdict only `verdict` counts; the records are filled from
+// Detail::checks on.
 struct RegionOutcome {
   RegionVerdict verdict;       // always filled, at every detail
   double cover_mm = 0.0;       // nominal cover used for these bars
