@@ -92,7 +92,6 @@ class Checker final : public SlabChecker {
       own_bars_ = bar_options_of(*req.reinforcement.bars);
       bars_ = &own_bars_;
     }
-    if (!ndp.durability_note.empty()) warnings_.push_back(ndp.durability_note);
     structural_class_ = structural_class(req.durability.design_life_years, exposure_, m_.fck);
     c_min_dur_ = minimum_cover_durability(structural_class_, exposure_);
     for (const auto& bar : *bars_) covers_.push_back({bar.diameter_mm, cover_of(bar.diameter_mm)});
@@ -360,7 +359,10 @@ class Checker final : public SlabChecker {
             max_distribution_bar_spacing_max_moment(req_.slab.thickness_mm)};
   }
 
-  std::vector<std::string> warnings() const override { return warnings_; }
+  std::vector<std::string> warnings() const override {
+    if (ndp_.durability_note.empty()) return {};
+    return {ndp_.durability_note};
+  }
 
  private:
   // Cover of bars of diameter phi (4.4.1): c_nom is the request's cover
@@ -465,7 +467,6 @@ class Checker final : public SlabChecker {
   std::vector<BarOption> own_bars_;  // when the request names its bars
   const std::vector<BarOption>* bars_ = &default_bar_options();
   std::vector<std::pair<double, CoverOf>> covers_;  // per candidate bar diameter
-  std::vector<std::string> warnings_;
 };
 
 std::string format_range(double lo, double hi, const char* unit) {
