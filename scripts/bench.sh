@@ -10,5 +10,5 @@ if [ "$(id -u)" -eq 0 ] && ! dpkg-query -W -f='${Status}' libbenchmark-dev 2>/de
 fi
 bash scripts/setup.sh >/dev/null
 cmake -S . -B build >/dev/null && cmake --build build -j"$(nproc)" --target armature_bench >/dev/null
-build/bin/armature_bench --benchmark_min_time=1
+build/bin/armature_bench --benchmark_min_time=0.2
 PYTHONPATH="$PWD/build/python" "$PYTHON" tests/bench/bench_python.py "${1:-100000}"

@@ -1,5 +1,6 @@
 // The ACI 318-19 (SI) code plug-in for one-way solid slabs.
 #include <algorithm>
+#include <limits>
 #include <cmath>
 
 #include "armature/plugin.hpp"
@@ -79,9 +80,18 @@ class Checker final : public SlabChecker {
     return max_flexural_bar_spacing(req_.slab.thickness_mm);
   }
 
-  // The capacity of the min_steel check below (the same for every bar).
-  double minimum_area_mm2(const RegionDemand&, const BarOption&) const override {
-    return minimum_flexural_steel(req_.slab.strip_width_mm, req_.slab.thickness_mm);
+  // Below this area the bar fails bending or minimum steel, as checked in
+  // check_region: the larger of As,min (7.6.1.1) and the As,req of bending
+  // at φ = 0.9 (φ never exceeds 0.9 and Mn grows with As below a = d);
+  // no area passes when even a = d cannot carry Mu.
+  double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
+    const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
+    const double d = h - req_.durability.cover_mm.value_or(specified_cover(exposure_, bar.diameter_mm)) -
+                     bar.diameter_mm / 2.0;
+    if (d <= 0.0) return 0.0;  // bending fails unless M_Ed = 0: left to the check
+    const auto As_bending = required_flexural_steel(g.M_Ed, fc_, fy_, b, d);
+    if (!As_bending) return std::numeric_limits<double>::infinity();
+    return std::max(minimum_flexural_steel(b, h), *As_bending * (1.0 - 1e-9));  // a rounding margin
   }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,

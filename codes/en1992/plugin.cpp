@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstring>
 #include <filesystem>
+#include <limits>
 #include <cstdio>
 #include <numbers>
 
@@ -124,10 +125,19 @@ class Checker final : public SlabChecker {
     return max_main_bar_spacing_max_moment(req_.slab.thickness_mm);
   }
 
-  // The capacity of the min_steel check below, for this bar's depth.
-  double minimum_area_mm2(const RegionDemand&, const BarOption& bar) const override {
+  // Below this area the bar fails bending or minimum steel, as checked in
+  // check_region: the larger of As,min (9.2.1.1) and the As,req of bending
+  // (6.1), where M_Rd = M_Ed (the same equilibrium, and M_Rd grows with
+  // As); no area passes when K > K'.
+  double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
+    const double b = req_.slab.strip_width_mm;
     const double d = req_.slab.thickness_mm - cover_for(bar.diameter_mm).c_nom - bar.diameter_mm / 2.0;
-    return d > 0.0 ? minimum_tension_steel(m_.fctm, m_.fyk, req_.slab.strip_width_mm, d) : 0.0;
+    if (d <= 0.0) return 0.0;  // bending fails unless M_Ed = 0: left to the check
+    const double K = moment_factor_K(g.M_Ed, b, d, m_.fck);
+    if (K > bending_limit(g.redistribution_delta).K_lim) return std::numeric_limits<double>::infinity();
+    const double z = lever_arm(d, K, m_.eta, ndp_.alpha_cc, ndp_.gamma_c);
+    const double As_bending = required_tension_steel(g.M_Ed, m_.fyd, z) * (1.0 - 1e-9);  // a rounding margin
+    return std::max(minimum_tension_steel(m_.fctm, m_.fyk, b, d), As_bending);
   }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
@@ -175,11 +185,9 @@ class Checker final : public SlabChecker {
 
     // Bending (6.1) and ductility (5.5(4))
     const double delta = g.redistribution_delta;
-    const bool normal = m_.fck <= 50.0;
-    const double k_a = normal ? ndp_.k1 : ndp_.k3;
-    const double k_b = redistribution_coefficient(normal ? ndp_.k2_factor : ndp_.k4_factor, m_.eps_cu2);
-    const double xi = limiting_neutral_axis_ratio(delta, k_a, k_b, m_.fck);
-    const double K_lim = limiting_K(m_.eta, ndp_.alpha_cc, ndp_.gamma_c, m_.lambda, xi);
+    const BendingLimit limit = bending_limit(delta);
+    const bool normal = limit.normal;
+    const double k_a = limit.k_a, k_b = limit.k_b, xi = limit.xi, K_lim = limit.K_lim;
     const double K = moment_factor_K(g.M_Ed, b, d, m_.fck);
     const double z = lever_arm(d, std::min(K, K_lim), m_.eta, ndp_.alpha_cc, ndp_.gamma_c);
     out.As_req_mm2 = required_tension_steel(g.M_Ed, m_.fyd, z);
@@ -377,6 +385,22 @@ class Checker final : public SlabChecker {
     c.c_req = c.c_min + ndp_.delta_c_dev_mm;
     c.c_nom = req_.durability.cover_mm ? *req_.durability.cover_mm : round_up_to_5(c.c_req);
     return c;
+  }
+
+  // The limit of bending without compression steel at redistribution
+  // ratio δ (5.5(4), 6.1).
+  struct BendingLimit {
+    bool normal;  // fck ≤ 50 MPa
+    double k_a, k_b, xi, K_lim;
+  };
+  BendingLimit bending_limit(double delta) const {
+    BendingLimit l;
+    l.normal = m_.fck <= 50.0;
+    l.k_a = l.normal ? ndp_.k1 : ndp_.k3;
+    l.k_b = redistribution_coefficient(l.normal ? ndp_.k2_factor : ndp_.k4_factor, m_.eps_cu2);
+    l.xi = limiting_neutral_axis_ratio(delta, l.k_a, l.k_b, m_.fck);
+    l.K_lim = limiting_K(m_.eta, ndp_.alpha_cc, ndp_.gamma_c, m_.lambda, l.xi);
+    return l;
   }
 
   // cover_of, worked out once per candidate bar of the request.

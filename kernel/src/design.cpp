@@ -117,9 +117,9 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   Chosen passing, fallback, largest;
   const int steps = last_spacing_step(s_max);
   for (const auto& bar : bars) {
-    // Arrangements below the code's minimum steel fail it: no verdict is
-    // needed (the margin keeps a rounding tie with the check's own ratio
-    // on the checked side).
+    // Arrangements below the code's strength floor fail bending or minimum
+    // steel: no verdict is needed (the margin keeps a rounding tie with the
+    // check's own ratio on the checked side).
     const double floor =
         call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) *
         (1 - 1e-12);

@@ -4,6 +4,7 @@
 // when every candidate is checked in full.
 #include <catch2/catch.hpp>
 
+#include <cmath>
 #include <random>
 
 #include "armature/design.hpp"
@@ -104,6 +105,7 @@ TEST_CASE("bar search: the same choice as checking every candidate in full", "[s
       g.supports = {{"support 1", uniform(0, 400e3)}};
     }
     g.quasi_permanent_to_uls = uniform(0.4, 0.8);
+    if (!aci && g.face == armature::Face::top && i % 3 == 0) g.redistribution_delta = uniform(0.7, 1.0);
     std::vector<std::string> warnings;
     const armature::CodeIdentity id{parsed.code, parsed.variant.value_or(""), ""};
     const SearchCandidate chosen = armature::search_bars(*checker, id, g, 1000.0, warnings);
@@ -121,8 +123,17 @@ TEST_CASE("bar search: the same choice as checking every candidate in full", "[s
   CHECK(searched - failing > 10);
 }
 
-TEST_CASE("bar search: the minimum area a code gives is its min_steel capacity", "[search]") {
-  // The search relies on this: below that area, the min_steel check fails.
+TEST_CASE("bar search: a code's minimum area is where its strength checks start to pass", "[search]") {
+  // The search skips arrangements below minimum_area_mm2: just below it
+  // bending or min_steel must fail, just above both must pass (bars of a
+  // chosen area at a spacing equal to the strip width, so As = that area).
+  auto strength_passes = [](const armature::RegionOutcome& out) {
+    bool ok = true;
+    for (const auto& c : out.checks)
+      if (c.id == "bending" || c.id == "min_steel") ok = ok && c.pass;
+    return ok;
+  };
+  int finite = 0, infinite = 0;
   for (const char* code_id : {"EN1992-1-1", "ACI318-19"}) {
     const bool aci = std::string(code_id) == "ACI318-19";
     json req = {{"code", code_id},
@@ -133,16 +144,32 @@ TEST_CASE("bar search: the minimum area a code gives is its min_steel capacity",
     const auto parsed = armature::request_from_json(req, problems);
     const auto code = registry().open(parsed.code, parsed.variant.value_or(""));
     const auto checker = code->begin(parsed);
-    armature::RegionDemand g;
-    g.where = "support 1";
-    g.face = armature::Face::top;
-    g.M_Ed = 10e6;
-    for (const auto& bar : checker->bar_options()) {
-      const double floor = checker->minimum_area_mm2(g, bar);
-      const auto out = checker->check_region(g, bar, 150, armature::Detail::checks);
-      INFO(code_id << " bar " << bar.designation);
-      CHECK(floor == Approx(out.As_min_mm2));
-      CHECK(floor > 0.0);
+    for (double M_kNm : {0.0, 5.0, 40.0, 120.0, 250.0, 600.0}) {
+      armature::RegionDemand g;
+      g.where = "support 1";
+      g.face = armature::Face::top;
+      g.M_Ed = M_kNm * 1e6;
+      g.redistribution_delta = M_kNm == 120.0 ? 0.8 : 1.0;
+      for (const auto& bar : checker->bar_options()) {
+        const double floor = checker->minimum_area_mm2(g, bar);
+        INFO(code_id << " bar " << bar.designation << " M_Ed " << M_kNm << " kNm, floor " << floor);
+        if (std::isinf(floor)) {
+          ++infinite;  // no area passes: not even the code's maximum steel
+          armature::BarOption heavy = bar;
+          heavy.area_mm2 = 0.04 * 1000 * 250;
+          CHECK_FALSE(strength_passes(checker->check_region(g, heavy, 1000, armature::Detail::checks)));
+          continue;
+        }
+        ++finite;
+        REQUIRE(floor > 0.0);
+        armature::BarOption below = bar, above = bar;
+        below.area_mm2 = floor * (1 - 1e-6);
+        above.area_mm2 = floor * (1 + 1e-6);
+        CHECK_FALSE(strength_passes(checker->check_region(g, below, 1000, armature::Detail::checks)));
+        CHECK(strength_passes(checker->check_region(g, above, 1000, armature::Detail::checks)));
+      }
     }
   }
+  CHECK(finite > 20);
+  CHECK(infinite > 2);
 }

@@ -137,10 +137,11 @@ class SlabChecker {
   virtual const std::vector<BarOption>& bar_options() const = 0;
   // Largest bar spacing the code allows in this region (mm).
   virtual double max_spacing_mm(const RegionDemand& region) const = 0;
-  // The least area (mm², for the strip width) this bar may provide in
-  // this region: the capacity side of the code's min_steel check, so that
-  // an arrangement with less fails it. The bar search asks no verdict of
-  // such arrangements. 0 when the code sets no such minimum.
+  // An area (mm², for the strip width) below which this bar certainly
+  // fails a strength check (bending or min_steel) in this region; +inf
+  // when no area of it passes. The bar search asks no verdict of such
+  // arrangements, so it must never exceed the true threshold. 0 when the
+  // code gives none.
   virtual double minimum_area_mm2(const RegionDemand&, const BarOption&) const { return 0.0; }
   // Every check of one arrangement, at the detail asked for (the verdict
   // is filled at every detail).
