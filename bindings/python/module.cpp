@@ -465,6 +465,7 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
         row.governing_where = r.governing_where;
         row.steel = armature::steel_mass_kg_per_m2(r);
         row.concrete = armature::concrete_volume_m3_per_m2(r);
+        row.regions.reserve(r.regions.size());
         for (const auto& g : r.regions)
           row.regions.push_back({g.where, g.bars.bar, g.bars.spacing_mm, g.bars.As_prov_mm2});
       } catch (const armature::InputError& e) {

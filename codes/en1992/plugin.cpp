@@ -95,6 +95,7 @@ class Checker final : public SlabChecker {
     }
     structural_class_ = structural_class(req.durability.design_life_years, exposure_, m_.fck);
     c_min_dur_ = minimum_cover_durability(structural_class_, exposure_);
+    covers_.reserve(bars_->size());
     for (const auto& bar : *bars_) covers_.push_back({bar.diameter_mm, cover_of(bar.diameter_mm)});
   }
 
