@@ -124,7 +124,7 @@ int design_command(const std::vector<std::string>& args) {
       return exit_internal;
     }
   }
-  std::string out = as_json ? armature::result_to_json(record).dump(2) + "\n"
+  std::string out = as_json ? armature::result_to_json_text(record, 2) + "\n"
                             : armature::format_summary(record);
   std::cout << out << std::flush;
   return record.pass ? exit_pass : exit_fail;

@@ -60,7 +60,7 @@ ARMATURE_BENCHMARK(json_request_parse);
 
 void json_result_serialise(benchmark::State& state) {
   const auto record = armature::design(armature::Registry::shared(), parsed(single_span));
-  for (auto _ : state) benchmark::DoNotOptimize(armature::result_to_json(record).dump());
+  for (auto _ : state) benchmark::DoNotOptimize(armature::result_to_json_text(record));
 }
 ARMATURE_BENCHMARK(json_result_serialise);
 
@@ -69,7 +69,7 @@ void json_parse_design_serialise(benchmark::State& state) {
   const std::string text = single_span.dump();
   for (auto _ : state) {
     const auto record = armature::design(reg, nlohmann::json::parse(text));
-    benchmark::DoNotOptimize(armature::result_to_json(record).dump());
+    benchmark::DoNotOptimize(armature::result_to_json_text(record));
   }
 }
 ARMATURE_BENCHMARK(json_parse_design_serialise);

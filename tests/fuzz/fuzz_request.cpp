@@ -22,8 +22,10 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
   }
   try {
     const auto record = armature::design(registry, request);
-    // The result must serialise (finite numbers, valid UTF-8).
-    (void)armature::result_to_json(record).dump();
+    // The result must serialise (valid UTF-8), and the direct text writer
+    // must say the same as the JSON library.
+    const std::string expected = armature::result_to_json(record).dump();
+    if (nlohmann::json::parse(armature::result_to_json_text(record)).dump() != expected) __builtin_trap();
   } catch (const armature::InputError& e) {
     if (e.problems().empty()) __builtin_trap();  // an input error must say what is wrong
   }

@@ -17,5 +17,8 @@ Request request_from_json(const nlohmann::json& j, InputProblems& problems);
 
 // The result of contract.md. Steps are included only when asked for.
 nlohmann::json result_to_json(const DesignRecord& record, bool with_steps = false);
+// The same result as JSON text, written directly (keys in the schema's
+// order): compact when indent < 0, else pretty with that many spaces.
+std::string result_to_json_text(const DesignRecord& record, int indent = -1, bool with_steps = false);
 
 }  // namespace armature
