@@ -39,14 +39,17 @@ const std::string* stored_text(std::string_view text) {
 // remembered address (a plug-in unloaded and another loaded) is looked up
 // afresh, never mistaken.
 struct LiteralCache {
-  static constexpr std::size_t size = 512;
+  static constexpr std::size_t size = 512;  // 2^9 slots
   const char* address[size] = {};
   const std::string* text[size] = {};
 };
 
 const std::string* text_of_literal(const char* literal) {
   thread_local LiteralCache cache;
-  const std::size_t slot = (reinterpret_cast<std::uintptr_t>(literal) >> 3) % LiteralCache::size;
+  // Literals sit side by side at any alignment: a multiplicative hash
+  // spreads neighbouring addresses over the slots.
+  const std::uint64_t address = reinterpret_cast<std::uintptr_t>(literal);
+  const std::size_t slot = static_cast<std::size_t>((address * 0x9E3779B97F4A7C15ull) >> 55);  // 9 bits
   if (cache.address[slot] == literal && std::strcmp(cache.text[slot]->c_str(), literal) == 0)
     return cache.text[slot];
   const std::string* stored = stored_text(literal);
