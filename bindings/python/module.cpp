@@ -102,7 +102,7 @@ void set_result_type(const py::object& type) {
 class PyWriter {
  public:
   void begin_object() {
-    open(stack_.empty() && result_type ? PyObject_CallNoArgs(result_type) : PyDict_New());
+    open(stack_.empty() && result_type ? new_result() : PyDict_New());
   }
   void begin_array() { open(PyList_New(0)); }
   void end() {
@@ -153,6 +153,13 @@ class PyWriter {
   }
   void open(PyObject* v) { stack_.push_back(put(v)); }
   static PyObject* literal_key(const char* key);
+  // An empty armature.Result, made by its type's tp_new (its __init__,
+  // Python code, is not needed: the caller sets `request`).
+  static PyObject* new_result() {
+    auto* type = reinterpret_cast<PyTypeObject*>(result_type);
+    py::tuple no_args;
+    return type->tp_new(type, no_args.ptr(), nullptr);
+  }
 
   py::object root_;
   std::vector<PyObject*> stack_;

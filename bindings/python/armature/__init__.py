@@ -17,6 +17,8 @@ class Result(dict):
     request it came from (`result.request`), so that its calculation record
     can be written later."""
 
+    __slots__ = ("request",)  # no per-result __dict__
+
     def __init__(self, data=(), request=None):
         super().__init__(data)
         self.request = request
