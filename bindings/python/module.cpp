@@ -59,6 +59,9 @@ json to_json(const py::handle& obj, const std::string& path, int depth = 0) {
     }
     return j;
   }
+  // Floats first, without asking for attributes: a failed attribute lookup
+  // raises and clears an exception, which costs more than the design.
+  if (PyFloat_Check(obj.ptr())) return PyFloat_AS_DOUBLE(obj.ptr());
   if (py::isinstance<py::int_>(obj) || py::hasattr(obj, "__index__")) {
     try {
       return py::int_(py::reinterpret_borrow<py::object>(obj)).cast<long long>();
