@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <string_view>
 #include <numbers>
 
@@ -90,16 +91,35 @@ int last_spacing_step(double max_spacing_mm) {
   return static_cast<int>(std::floor((max_spacing_mm - first_spacing_mm) / spacing_step_mm + 1e-9));
 }
 
-struct Chosen {
-  SearchCandidate candidate;
-  bool found = false;
+// The tie rule of contract.md on plain values: least area, then the larger
+// spacing, then the smaller bar.
+bool preferred_values(double area_a, double s_a, double phi_a, double area_b, double s_b, double phi_b) {
+  const double tol = 1e-9 * std::max(area_a, area_b);
+  if (area_a < area_b - tol) return true;
+  if (area_a > area_b + tol) return false;
+  if (s_a != s_b) return s_a > s_b;
+  return phi_a < phi_b;
+}
+
+// One arrangement the search has seen, pointing at its bar in the
+// checker's list (which outlives the search); no bar: none yet.
+struct Trial {
+  const BarOption* bar = nullptr;
+  double spacing_mm = 0.0;
+  double As_prov_mm2 = 0.0;
+
+  bool found() const { return bar != nullptr; }
+  SearchCandidate candidate() const { return {*bar, spacing_mm, As_prov_mm2}; }
 };
 
-void consider(Chosen& best, const SearchCandidate& c) {
-  if (!best.found || preferred(c, best.candidate)) {
-    best.candidate = c;
-    best.found = true;
-  }
+void consider(Trial& best, const Trial& c) {
+  if (!best.found() || preferred_values(c.As_prov_mm2, c.spacing_mm, c.bar->diameter_mm, best.As_prov_mm2,
+                                        best.spacing_mm, best.bar->diameter_mm))
+    best = c;
+}
+
+void keep_largest(Trial& largest, const Trial& c) {
+  if (!largest.found() || c.As_prov_mm2 > largest.As_prov_mm2) largest = c;
 }
 
 }  // namespace
@@ -114,24 +134,23 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   // Every arrangement is a candidate, but one with more steel than an
   // arrangement already known to pass can never be chosen, so it is not
   // checked. Each bar is tried from its widest spacing (least steel) down.
-  Chosen passing, fallback, largest;
+  Trial passing, fallback, largest;
   const int steps = last_spacing_step(s_max);
   for (const auto& bar : bars) {
     // Arrangements below the code's strength floor fail bending or minimum
     // steel: no verdict is needed (the margin keeps a rounding tie with the
-    // check's own ratio on the checked side).
-    const double floor =
-        call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) *
-        (1 - 1e-12);
+    // check's own ratio on the checked side). Asked for only when this bar
+    // has an arrangement left to check.
+    std::optional<double> floor;
     for (int k = steps; k >= 0; --k) {
       const double s = first_spacing_mm + spacing_step_mm * k;
-      SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      if (!largest.found || c.As_prov_mm2 > largest.candidate.As_prov_mm2) {
-        largest.candidate = c;
-        largest.found = true;
-      }
-      if (passing.found && c.As_prov_mm2 > passing.candidate.As_prov_mm2 * (1 + 1e-9)) break;
-      if (c.As_prov_mm2 < floor) continue;
+      const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
+      keep_largest(largest, c);
+      if (passing.found() && c.As_prov_mm2 > passing.As_prov_mm2 * (1 + 1e-9)) break;
+      if (!floor)
+        floor = call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) *
+                (1 - 1e-12);
+      if (c.As_prov_mm2 < *floor) continue;
       const RegionVerdict v = call_code(code, "the bar search", [&] {
         return checker.check_region(region, bar, s, Detail::verdict).verdict;
       });
@@ -142,14 +161,14 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
       }
     }
   }
-  if (passing.found) return passing.candidate;
-  if (fallback.found) return fallback.candidate;
-  if (!largest.found)
+  if (passing.found()) return passing.candidate();
+  if (fallback.found()) return fallback.candidate();
+  if (!largest.found())
     throw DesignError(code.id + " (" + code.variant + "): no bar arrangement to try at " +
                       region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
   warnings.push_back(region.where + ": no candidate bar arrangement satisfies bending and "
                      "minimum steel; the arrangement with the most steel is reported");
-  return largest.candidate;
+  return largest.candidate();
 }
 
 namespace {
@@ -165,31 +184,27 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const int steps = last_spacing_step(need.max_spacing_mm);
-  Chosen best, largest;
+  Trial best, largest;
   for (const auto& bar : bars) {
     if (steps < 0) break;
     // The closest spacing of the grid gives this bar's most steel.
-    const SearchCandidate closest{bar, first_spacing_mm, provided_area_mm2(bar.area_mm2, first_spacing_mm, width_mm)};
-    if (!largest.found || closest.As_prov_mm2 > largest.candidate.As_prov_mm2) {
-      largest.candidate = closest;
-      largest.found = true;
-    }
+    keep_largest(largest, {&bar, first_spacing_mm, provided_area_mm2(bar.area_mm2, first_spacing_mm, width_mm)});
     // Widest spacing on the grid whose area still meets the need.
     for (int k = steps; k >= 0; --k) {
       const double s = first_spacing_mm + spacing_step_mm * k;
-      const SearchCandidate c{bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
+      const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       if (c.As_prov_mm2 >= need.As_req_mm2) {
         consider(best, c);
         break;
       }
     }
   }
-  ok = best.found;
-  if (!largest.found)
+  ok = best.found();
+  if (!largest.found())
     throw DesignError(code.id + " (" + code.variant + "): no distribution bar arrangement to try "
                       "(maximum spacing " + std::to_string(need.max_spacing_mm) + " mm)");
-  const SearchCandidate& pick = best.found ? best.candidate : largest.candidate;
-  if (!best.found)
+  const SearchCandidate pick = best.found() ? best.candidate() : largest.candidate();
+  if (!best.found())
     warnings.push_back("distribution steel: no candidate bar provides the required area; "
                        "the design fails until larger bars are allowed");
   DistributionRecord d;
@@ -208,11 +223,8 @@ double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm
 }
 
 bool preferred(const SearchCandidate& a, const SearchCandidate& b) {
-  const double tol = 1e-9 * std::max(a.As_prov_mm2, b.As_prov_mm2);
-  if (a.As_prov_mm2 < b.As_prov_mm2 - tol) return true;
-  if (a.As_prov_mm2 > b.As_prov_mm2 + tol) return false;
-  if (a.spacing_mm != b.spacing_mm) return a.spacing_mm > b.spacing_mm;
-  return a.bar.diameter_mm < b.bar.diameter_mm;
+  return preferred_values(a.As_prov_mm2, a.spacing_mm, a.bar.diameter_mm, b.As_prov_mm2, b.spacing_mm,
+                          b.bar.diameter_mm);
 }
 
 std::vector<const Check*> DesignRecord::all_checks() const {
