@@ -47,14 +47,26 @@ struct LiteralCache {
 const std::string* text_of_literal(const char* literal) {
   thread_local LiteralCache cache;
   // Literals sit side by side at any alignment: a multiplicative hash
-  // spreads neighbouring addresses over the slots.
+  // spreads neighbouring addresses over the slots, and a few neighbouring
+  // slots are tried so that two literals rarely take turns at one.
   const std::uint64_t address = reinterpret_cast<std::uintptr_t>(literal);
-  const std::size_t slot = static_cast<std::size_t>((address * 0x9E3779B97F4A7C15ull) >> 55);  // 9 bits
-  if (cache.address[slot] == literal && std::strcmp(cache.text[slot]->c_str(), literal) == 0)
-    return cache.text[slot];
+  const std::size_t home = static_cast<std::size_t>((address * 0x9E3779B97F4A7C15ull) >> 55);  // 9 bits
+  std::size_t free_slot = home;
+  for (std::size_t probe = 0; probe < 4; ++probe) {
+    const std::size_t slot = (home + probe) % LiteralCache::size;
+    if (cache.address[slot] == literal) {
+      if (std::strcmp(cache.text[slot]->c_str(), literal) == 0) return cache.text[slot];
+      free_slot = slot;  // another text at a remembered address: replace it
+      break;
+    }
+    if (!cache.address[slot]) {
+      free_slot = slot;
+      break;
+    }
+  }
   const std::string* stored = stored_text(literal);
-  cache.address[slot] = literal;
-  cache.text[slot] = stored;
+  cache.address[free_slot] = literal;
+  cache.text[free_slot] = stored;
   return stored;
 }
 
