@@ -312,24 +312,37 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
   bool stop = false;                 // guarded by mutex
   std::size_t prepared = 0;          // requests converted so far; guarded by mutex
   std::size_t next = 0;              // next request to design; guarded by mutex
-  // Claims the next prepared request, or returns n when there is none now.
-  auto claim = [&](std::unique_lock<std::mutex>&) { return next < prepared ? next++ : n; };
-  auto design_one = [&](std::size_t i) {
-    // The calling thread has converted every result more than `window`
-    // behind this one (it cannot be claimed earlier): free one here, off
-    // the calling thread.
-    if (i > window) results[i - window - 1] = armature::DesignRecord{};
-    try {
-      results[i] = design_record(reqs[i]);
-    } catch (...) {
-      errors[i] = std::current_exception();
+  // Claims up to `most` prepared requests from `next` on: the range
+  // [first, end), empty when there is none now.
+  struct Range {
+    std::size_t first, end;
+  };
+  auto claim = [&](std::unique_lock<std::mutex>&, std::size_t most) {
+    const Range r{next, std::min(prepared, next + most)};
+    next = r.end;
+    return r;
+  };
+  // Designs a claimed range, then marks it ready with one lock and one
+  // wake-up (a hand-off per request cost more than the design itself).
+  auto design_range = [&](Range r) {
+    for (std::size_t i = r.first; i < r.end; ++i) {
+      // The calling thread has converted every result more than `window`
+      // behind this one (it cannot be claimed earlier): free one here, off
+      // the calling thread.
+      if (i > window) results[i - window - 1] = armature::DesignRecord{};
+      try {
+        results[i] = design_record(reqs[i]);
+      } catch (...) {
+        errors[i] = std::current_exception();
+      }
     }
     {
       std::lock_guard<std::mutex> lock(mutex);
-      ready[i] = 1;
+      for (std::size_t i = r.first; i < r.end; ++i) ready[i] = 1;
     }
     ready_cv.notify_one();
   };
+  constexpr std::size_t worker_chunk = 8;  // requests a worker designs per hand-off
   std::vector<std::thread> pool;
   {
     py::gil_scoped_release release;
@@ -337,14 +350,14 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
     for (unsigned k = 1; k < total && k < n; ++k)
       pool.emplace_back([&] {
         for (;;) {
-          std::size_t i;
+          Range r;
           {
             std::unique_lock<std::mutex> lock(mutex);
             work_cv.wait(lock, [&] { return stop || next < prepared || next >= n; });
             if (stop || next >= n) return;
-            i = claim(lock);
+            r = claim(lock, worker_chunk);
           }
-          design_one(i);
+          design_range(r);
         }
       });
   }
@@ -374,17 +387,17 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
       {
         py::gil_scoped_release release;
         for (;;) {
-          std::size_t j = n;
+          Range r;
           {
             std::unique_lock<std::mutex> lock(mutex);
             if (ready[i]) break;
-            j = claim(lock);
-            if (j == n) {
+            r = claim(lock, 1);  // one at a time: results are waiting to be converted
+            if (r.first == r.end) {
               ready_cv.wait(lock, [&] { return ready[i] != 0; });
               break;
             }
           }
-          design_one(j);
+          design_range(r);
         }
       }
       if (errors[i]) raise_for(i, errors[i]);
