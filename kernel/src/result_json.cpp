@@ -83,7 +83,10 @@ class TextWriter {
     item();
     quoted(v);
   }
-  void value(const char* v) { value(std::string(v)); }
+  void value(const char* v) {
+    item();
+    quoted(v);
+  }
   std::string take() { return std::move(out_); }
 
  private:
