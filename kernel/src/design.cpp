@@ -122,6 +122,58 @@ void keep_largest(Trial& largest, const Trial& c) {
   if (!largest.found() || c.As_prov_mm2 > largest.As_prov_mm2) largest = c;
 }
 
+// The number of checks an arrangement fails, all of them counted (the
+// record's detail: the verdict alone stops at the first failure).
+std::size_t failures_of(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
+                        const BarOption& bar, double spacing_mm) {
+  const RegionOutcome out = call_code(code, "the bar search", [&] {
+    return checker.check_region(region, bar, spacing_mm, Detail::checks);
+  });
+  std::size_t n = 0;
+  auto count = [&](const std::vector<Check>& checks) {
+    for (const auto& c : checks) n += c.pass ? 0 : 1;
+  };
+  count(out.checks);
+  count(out.span_checks);
+  for (const auto& s : out.supports) count(s.checks);
+  return n;
+}
+
+// When no arrangement passes: among those that pass bending and minimum
+// steel (at least `least`, the least-area one), the one failing the fewest
+// checks, then by the tie rule. Checks that fail whatever the bars (a
+// thickness limit, say) fail for every arrangement alike, so this keeps an
+// arrangement that passes every check the bars can satisfy where there is
+// one, and the failures shown are the real causes.
+Trial fewest_failures(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
+                      double width_mm, double s_max, const Trial& least) {
+  Trial best = least;
+  std::size_t best_failures = failures_of(checker, code, region, *least.bar, least.spacing_mm);
+  const auto& bars = checker.bar_options();
+  const int steps = last_spacing_step(s_max);
+  for (const auto& bar : bars) {
+    const double floor =
+        call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) * (1 - 1e-12);
+    for (int k = steps; k >= 0 && best_failures > 0; --k) {
+      const double s = first_spacing_mm + spacing_step_mm * k;
+      const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
+      if (c.As_prov_mm2 < floor || (c.bar == best.bar && s == best.spacing_mm)) continue;
+      const RegionVerdict v = call_code(code, "the bar search", [&] {
+        return checker.check_region(region, bar, s, Detail::verdict).verdict;
+      });
+      if (!v.strength_pass) continue;
+      const std::size_t f = failures_of(checker, code, region, bar, s);
+      if (f < best_failures || (f == best_failures && preferred_values(c.As_prov_mm2, s, bar.diameter_mm,
+                                                                       best.As_prov_mm2, best.spacing_mm,
+                                                                       best.bar->diameter_mm))) {
+        best = c;
+        best_failures = f;
+      }
+    }
+  }
+  return best;
+}
+
 }  // namespace
 
 SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
@@ -162,7 +214,7 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
     }
   }
   if (passing.found()) return passing.candidate();
-  if (fallback.found()) return fallback.candidate();
+  if (fallback.found()) return fewest_failures(checker, code, region, width_mm, s_max, fallback).candidate();
   if (!largest.found())
     throw DesignError(code.id + " (" + code.variant + "): no bar arrangement to try at " +
                       region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
@@ -463,6 +515,10 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   bool first = true;
   for (const Check* c : rec.all_checks()) {
     if (!c->pass) rec.pass = false;
+    // The search takes the widest spacing allowed, so a passing spacing
+    // limit sits near 1 by construction and says nothing: it stays in the
+    // checks but heads the result only when it fails.
+    if (is_arrangement_limit(c->id.str()) && c->pass) continue;
     if (first || c->utilisation > rec.max_utilisation) {
       rec.max_utilisation = c->utilisation;
       rec.governing_check = c->id;

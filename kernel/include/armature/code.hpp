@@ -87,6 +87,9 @@ struct RegionVerdict {
 };
 
 inline bool is_strength_check(std::string_view id) { return id == "bending" || id == "min_steel"; }
+// Limits on the bar arrangement itself (spacing): the search works up to
+// them, so they are left out of the governing check unless they fail.
+inline bool is_arrangement_limit(std::string_view id) { return id == "spacing"; }
 
 struct BarOption {
   std::string designation;  // as in the request: "12", "#4"
