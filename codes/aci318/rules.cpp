@@ -64,6 +64,7 @@ double max_flexural_bar_spacing(double h) { return std::min(3.0 * h, 450.0); }
 double minimum_clear_bar_spacing(double db, double aggregate) {
   return std::max({25.0, db, 4.0 / 3.0 * aggregate});
 }
+
 double service_steel_stress(double fy) { return 2.0 / 3.0 * fy; }
 
 double crack_control_spacing(double fs, double clear_cover) {

@@ -121,6 +121,8 @@ TEST_CASE("Bars, cover and spacing rules", "[aci318][detailing]") {
 //   #4 @ 350 = 368.6 would be lighter but 350 > 300 (24.3.2 at fs = 280);
 //   #4 @ 300 = 430 > 405.7 → #3 @ 175
 //   a = 405.7 × 420/23800 = 7.160; c = 8.423; εt = 0.003 (175.25 − 8.423)/8.423 = 0.0594 → φ 0.9
+//   As,max (7.3.3.1, εt ≥ 0.0021 + 0.003): c = 0.003 × 175.25/0.0081 = 64.91, As = 3126.4 mm²
+//   clear spacing (25.2.1): 175 − 9.5 = 165.5 ≥ max(25, 9.5, 4/3 × 20) = 26.67
 //   φMn = 0.9 × 405.7 × 420 × (175.25 − 3.580) = 26.33 kNm
 //   h,min = 4000/20 × 1.0 = 200 = h (utilisation 1.0)
 //   shear: ρw = 0.002315, λs = 1 (d < 250), Vc = 0.66 × 0.13229 × 5.2915 × 175250 = 80.97 kN
@@ -148,6 +150,11 @@ TEST_CASE("ACI single span worked by hand", "[aci318][design][worked]") {
   CHECK(g.bars.As_prov_mm2 == Approx(405.71).epsilon(1e-4));
   CHECK(g.checks.at(0).id == "bending");
   CHECK(g.checks.at(0).capacity == Approx(26.33).epsilon(1e-3));
+  CHECK(g.As_max_mm2 == Approx(3126.4).epsilon(1e-4));
+  REQUIRE(g.checks.size() == 6);  // bending, ductility, min_steel, spacing × 2, cracking
+  CHECK(g.checks.at(4).clause == "ACI 318-19 25.2.1");
+  CHECK(g.checks.at(4).demand == Approx(26.667).epsilon(1e-4));
+  CHECK(g.checks.at(4).capacity == Approx(165.5));
   CHECK(r.supports.at(0).V_Rd * 1e-3 == Approx(60.73).epsilon(1e-3));
   CHECK(r.spans.at(0).checks.at(0).id == "deflection");
   CHECK(r.spans.at(0).checks.at(0).demand == Approx(200));
