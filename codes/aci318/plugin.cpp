@@ -124,7 +124,7 @@ class Checker final : public SlabChecker {
     const double a = stress_block_depth(As, fy_, fc_, b);
     const double c = a / beta1_;
     const double eps_t = net_tensile_strain(d, c);
-    const double eps_ty = fy_ / steel_modulus_MPa;
+    const double eps_ty = yield_strain(fy_);
     const double phi = strength_reduction_factor(eps_t, eps_ty);
     const double phi_Mn = phi * nominal_moment(As, fy_, d, a);
 
@@ -151,13 +151,21 @@ class Checker final : public SlabChecker {
       });
     });
     run_check("ductility", [&] {
-      checks.add("ductility", g.where, "ACI 318-19 7.3.3.1", slab_min_net_tensile_strain, As_root ? eps_t : 0.0,
-                 "-", [&] {
+      const double eps_min = slab_min_net_tensile_strain(fy_);
+      checks.add("ductility", g.where, "ACI 318-19 7.3.3.1, 21.2.2", eps_min, As_root ? eps_t : 0.0, "-", [&] {
                    StepRecorder st;
+                   st.add("εty", "fy/Es", num(fy_) + "/" + num(steel_modulus_MPa), eps_ty, "-",
+                          "ACI 318-19 21.2.2.1");
+                   st.add("εt,min", "εty + 0.003 (slab tension-controlled)", num(eps_ty) + " + 0.003", eps_min, "-",
+                          "ACI 318-19 7.3.3.1, Table 21.2.2");
                    st.add("β1", "Table 22.2.2.4.3", "f'c = " + num(fc_), beta1_, "-", "ACI 318-19 22.2.2.4.3");
                    st.add("c", "a/β1", num(a) + "/" + num(beta1_), c, "mm", "ACI 318-19 22.2.2.4.2");
                    st.add("εt", "0.003 (d − c)/c", "0.003 × (" + num(d) + " − " + num(c) + ")/" + num(c), eps_t,
-                          "-", "ACI 318-19 21.2.2");
+                          "-", "ACI 318-19 22.2.1.2");
+                   st.add("As,max", "0.85 f'c b β1 c_lim/fy, c_lim = 0.003 d/(0.003 + εt,min)",
+                          "f'c = " + num(fc_) + ", b = " + num(b) + ", β1 = " + num(beta1_) + ", d = " + num(d) +
+                              ", fy = " + num(fy_),
+                          out.As_max_mm2, "mm2", "ACI 318-19 7.3.3.1");
                    if (!As_root)
                      st.add("As,req", "no real root: the section cannot reach Mu with φ = 0.9",
                             num(g.M_Ed * 1e-6), 0.0, "mm2", "ACI 318-19 22.2.2");
@@ -180,6 +188,15 @@ class Checker final : public SlabChecker {
       checks.add("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", [&] {
         StepRecorder st;
         st.add("s_max", "min(3h, 450)", "min(3 × " + num(h) + ", 450)", s_max, "mm", "ACI 318-19 7.7.2.3");
+        return st.take();
+      });
+      const double dagg = req_.concrete.aggregate_mm;
+      const double clear_min = minimum_clear_bar_spacing(db, dagg);
+      checks.add("spacing", g.where, "ACI 318-19 25.2.1", clear_min, s - db, "mm", [&] {
+        StepRecorder st;
+        st.add("s_clear,min", "max(25 mm, db, 4/3 dagg)",
+               "max(25, " + num(db) + ", 4/3 × " + num(dagg) + ")", clear_min, "mm", "ACI 318-19 25.2.1");
+        st.add("s_clear", "s − db", num(s) + " − " + num(db), s - db, "mm", "ACI 318-19 25.2.1");
         return st.take();
       });
     });

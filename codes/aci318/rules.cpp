@@ -40,6 +40,8 @@ double stress_block_depth(double As, double fy, double fc, double b) {
 
 double net_tensile_strain(double d, double c) { return 0.003 * (d - c) / c; }
 
+double yield_strain(double fy) { return fy / steel_modulus_MPa; }
+
 double strength_reduction_factor(double eps_t, double eps_ty) {
   if (eps_t >= eps_ty + 0.003) return 0.90;
   if (eps_t <= eps_ty) return 0.65;
@@ -48,14 +50,21 @@ double strength_reduction_factor(double eps_t, double eps_ty) {
 
 double nominal_moment(double As, double fy, double d, double a) { return As * fy * (d - a / 2.0); }
 
+double slab_min_net_tensile_strain(double fy) { return yield_strain(fy) + 0.003; }
+
 double steel_at_strain_limit(double fc, double fy, double b, double d) {
-  // εt = 0.003 (d − c)/c = 0.004 → c = 3d/7; a = β1 c; As = 0.85 f'c b a / fy.
-  const double c = 0.003 * d / (0.003 + slab_min_net_tensile_strain);
+  // εt = 0.003 (d − c)/c = εt,min → c = 0.003 d/(0.003 + εt,min); a = β1 c; As = 0.85 f'c b a/fy.
+  const double c = 0.003 * d / (0.003 + slab_min_net_tensile_strain(fy));
   return 0.85 * fc * b * stress_block_factor_beta1(fc) * c / fy;
 }
 
 double minimum_flexural_steel(double b, double h) { return 0.0018 * b * h; }
 double max_flexural_bar_spacing(double h) { return std::min(3.0 * h, 450.0); }
+
+double minimum_clear_bar_spacing(double db, double aggregate) {
+  return std::max({25.0, db, 4.0 / 3.0 * aggregate});
+}
+
 double service_steel_stress(double fy) { return 2.0 / 3.0 * fy; }
 
 double crack_control_spacing(double fs, double clear_cover) {

@@ -31,15 +31,19 @@ double stress_block_factor_beta1(double fc);              // Table 22.2.2.4.3
 std::optional<double> required_flexural_steel(double Mu, double fc, double fy, double b, double d);
 double stress_block_depth(double As, double fy, double fc, double b);  // a = As fy/(0.85 f'c b)
 double net_tensile_strain(double d, double c);            // εt = 0.003 (d − c)/c
+double yield_strain(double fy);                           // 21.2.2.1: εty = fy/Es
 double strength_reduction_factor(double eps_t, double eps_ty);  // Table 21.2.2
 double nominal_moment(double As, double fy, double d, double a);  // Mn = As fy (d − a/2)
-// The steel area at which εt reaches the slab limit 0.004 (7.3.3.1).
+// 7.3.3.1: nonprestressed slabs tension-controlled, εt ≥ εty + 0.003 (Table 21.2.2).
+double slab_min_net_tensile_strain(double fy);
+// The steel area at which εt falls to the slab limit of 7.3.3.1.
 double steel_at_strain_limit(double fc, double fy, double b, double d);
-constexpr double slab_min_net_tensile_strain = 0.004;     // 7.3.3.1
 
 // ---- Reinforcement limits and detailing ------------------------------------
 double minimum_flexural_steel(double b, double h);        // 7.6.1.1: 0.0018 Ag
 double max_flexural_bar_spacing(double h);                // 7.7.2.3: min(3h, 450)
+// 25.2.1: clear spacing of parallel bars in a layer ≥ max(25 mm, db, 4/3 dagg).
+double minimum_clear_bar_spacing(double db, double aggregate);
 double service_steel_stress(double fy);                   // 24.3.2.1: fs = 2/3 fy
 // 24.3.2: s ≤ min(380 (280/fs) − 2.5 cc, 300 (280/fs)).
 double crack_control_spacing(double fs, double clear_cover);
