@@ -2,6 +2,7 @@
 // against its file, and the kernel goes on with the rest.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 
@@ -117,9 +118,28 @@ TEST_CASE("A code keeps its library loaded after the registry is gone", "[regist
   CHECK(code->identity().id == "EN1992-1-1");
 }
 
-TEST_CASE("The first plug-in on the path wins; a second copy is reported", "[registry]") {
+TEST_CASE("A directory named twice on the path is searched once", "[registry]") {
   Registry reg({ARMATURE_CODE_DIR, ARMATURE_CODE_DIR "/../codes"});
   // Both entries are the same directory: it is searched once.
   CHECK(reg.search_dirs().size() == 1);
   CHECK(reg.failures().empty());
+}
+
+TEST_CASE("The first plug-in on the path wins and a second copy is reported", "[registry]") {
+  // A copy of the ACI 318 plug-in in a directory later on the path.
+  const fs::path dir = fs::temp_directory_path() / "armature-registry-copy";
+  fs::create_directories(dir);
+  const fs::path first = fs::path(ARMATURE_CODE_DIR) / "armature_code_aci318.so";
+  const fs::path copy = dir / "armature_code_aci318.so";
+  fs::copy_file(first, copy, fs::copy_options::overwrite_existing);
+  Registry reg({ARMATURE_CODE_DIR, dir});
+  const auto& codes = reg.codes();
+  const auto aci = std::find_if(codes.begin(), codes.end(), [](const auto& c) { return c.id == "ACI318-19"; });
+  REQUIRE(aci != codes.end());
+  CHECK(fs::path(aci->path) == fs::weakly_canonical(first));
+  CHECK(std::count_if(codes.begin(), codes.end(), [](const auto& c) { return c.id == "ACI318-19"; }) == 1);
+  REQUIRE(reg.failures().size() == 1);
+  CHECK(fs::path(reg.failures()[0].path) == fs::weakly_canonical(copy));
+  CHECK_THAT(reg.failures()[0].reason, Catch::Contains("code 'ACI318-19' is already provided by") &&
+                                           Catch::Contains("this file is ignored"));
 }

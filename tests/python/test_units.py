@@ -2,6 +2,7 @@
 1 in = 25.4 mm, 1 ft = 0.3048 m, 1 psf = 0.047880259 kPa,
 1 psi = 0.0068947573 MPa, by definition of the inch and the pound-force)."""
 import json
+import re
 import subprocess
 
 import pytest
@@ -89,8 +90,19 @@ def test_us_report_units_in_the_summary():
     req = dict(US, report_units="US")
     run = subprocess.run([str(CLI), "design", "-"], input=json.dumps(req), capture_output=True,
                          text=True, timeout=60)
-    assert run.returncode in (0, 1), run.stderr
-    assert "psf" in run.stdout and "kip-ft" in run.stdout and "in2" in run.stdout
+    # Every check of this floor passes: exit 0.
+    assert run.returncode == 0, run.stderr
+    assert "kip-ft" in run.stdout and "in2" in run.stdout
+    # Loads by hand, in psf: self-weight 23.6 kN/m³ (the ACI basis' default, 150 lb/ft³,
+    # common practice) × 8 in = 4.7955 kPa = 100.16 psf; ULS 1.2 D + 1.6 L (ACI 318-19
+    # 5.3.1b) = 1.2 × (100.16 + 15) + 1.6 × 50 = 218.19 psf.
+    assert "self-weight 100.16 psf, ULS 218.19 psf [5.3.1b: 1.2 D + 1.6 L]" in run.stdout
+    # Minimum thickness, ACI 318-19 Table 7.3.1.1 (value from memory): one end continuous
+    # ℓ/24 × (0.4 + fy/700), fy = 60 ksi = 413.69 MPa: 168 in/24 × 0.99098 = 6.94 in and
+    # 186 in/24 × 0.99098 = 7.68 in, against h = 8 in.
+    defl = {m.group(1): (m.group(2), m.group(3)) for m in
+            re.finditer(r"^deflection +(span \d) +(\S+) +(\S+) +in ", run.stdout, re.M)}
+    assert defl == {"span 1": ("6.94", "8"), "span 2": ("7.68", "8")}
     si_run = subprocess.run([str(CLI), "design", "-"], input=json.dumps(US), capture_output=True,
                             text=True, timeout=60)
     assert "kNm" in si_run.stdout and "kip-ft" not in si_run.stdout
