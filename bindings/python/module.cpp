@@ -484,11 +484,16 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
           rest /= axis_values[a].size();
           const json& v = axis_values[a][k];
           if (paths[a] == "code" && v.is_string()) {  // "ID" or "ID:variant"
+            // "ID" alone keeps the base's variant when the base is of that
+            // code, else takes the code's default (another code's variant
+            // means nothing to it).
             const std::string spec = v.get<std::string>();
             const auto colon = spec.find(':');
-            req["code"] = spec.substr(0, colon);
+            const std::string id = spec.substr(0, colon);
+            req["code"] = id;
             if (colon != std::string::npos) req["variant"] = spec.substr(colon + 1);
-            else if (base_json.contains("variant")) req["variant"] = base_json["variant"];
+            else if (base_json.contains("variant") && base_json.value("code", json()) == id)
+              req["variant"] = base_json["variant"];
             else req.erase("variant");
           } else {
             set_path(req, paths[a], v);

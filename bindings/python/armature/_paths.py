@@ -25,13 +25,14 @@ def _set_path(request, path, value, base=None):
     """Sets `value` at the dotted `path` of the request dict, as the sweep of
     the kernel does (bindings/python/module.cpp set_path): objects missing on
     the way are made, list entries must exist. The path "code" takes "ID" or
-    "ID:variant"; "ID" alone restores the variant of `base` (or none)."""
+    "ID:variant"; "ID" alone keeps the variant of `base` when `base` is of
+    that code, else none (the code's default)."""
     if path == "code" and isinstance(value, str):
         code, sep, variant = value.partition(":")
         request["code"] = code
         if sep:
             request["variant"] = variant
-        elif base is not None and "variant" in base:
+        elif base is not None and "variant" in base and base.get("code") == code:
             request["variant"] = copy.deepcopy(base["variant"])
         else:
             request.pop("variant", None)

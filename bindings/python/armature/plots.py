@@ -1,5 +1,7 @@
 """Plots with matplotlib: the envelopes of one design, and a study. Every
 figure carries the caution as a one-line footnote."""
+import textwrap
+
 from . import _core
 from ._core import CAUTION
 
@@ -8,22 +10,28 @@ CAUTION_GID = "armature-caution"  # the footnote's artist id, one per figure
 
 def add_caution(figure):
     """Writes the caution as a one-line footnote along the bottom of a
-    matplotlib figure (once per figure; the font shrinks until the line
-    fits the figure's width). Returns the text artist."""
+    matplotlib figure, once per figure: the font shrinks (7 pt down to
+    3.5 pt) until the line fits the figure's width; a figure narrower than
+    about 5 inches gets it on more lines rather than cut. Returns the text
+    artist (its gid is CAUTION_GID)."""
     for t in figure.texts:
         if t.get_gid() == CAUTION_GID:
             return t
-    text = figure.text(0.5, 0.005, "Caution: " + CAUTION, ha="center", va="bottom",
-                       fontsize=7, color="black", gid=CAUTION_GID)
+    line = "Caution: " + CAUTION
+    text = figure.text(0.5, 0.005, line, ha="center", va="bottom", fontsize=7, color="black",
+                       gid=CAUTION_GID)
     try:
         renderer = figure.canvas.get_renderer()
     except AttributeError:  # pragma: no cover - a backend without a renderer at hand
         return text
-    width = figure.get_figwidth() * figure.dpi * 0.98
+    room = figure.get_figwidth() * figure.dpi * 0.98
     size = 7.0
-    while size > 3.0 and text.get_window_extent(renderer).width > width:
+    while size > 3.5 and text.get_window_extent(renderer).width > room:
         size -= 0.25
         text.set_fontsize(size)
+    width = text.get_window_extent(renderer).width
+    if width > room:
+        text.set_text(textwrap.fill(line, max(20, int(len(line) * room / width * 0.95))))
     return text
 
 
