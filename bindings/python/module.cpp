@@ -412,7 +412,8 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
   return out;
 }
 
-// Sets a value at a dotted path with list indices: "slab.spans_m[0]".
+// Sets a value at a dotted path with list indices: "slab.spans_m[0]";
+// objects missing on the way are made (the Python twin is studies._set_path).
 void set_path(json& j, const std::string& path, const json& value) {
   json* node = &j;
   std::size_t i = 0;
@@ -431,6 +432,7 @@ void set_path(json& j, const std::string& path, const json& value) {
       if (end == std::string::npos) end = path.size();
       const std::string key = path.substr(i, end - i);
       if (key.empty()) fail("empty name in the axis path");
+      if (node->is_null()) *node = json::object();  // "design.redistribution_percent" with no "design" yet
       if (!node->is_object()) fail("'" + key + "' is not inside an object");
       node = &(*node)[key];
       i = end;
@@ -482,11 +484,16 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
           rest /= axis_values[a].size();
           const json& v = axis_values[a][k];
           if (paths[a] == "code" && v.is_string()) {  // "ID" or "ID:variant"
+            // "ID" alone keeps the base's variant when the base is of that
+            // code, else takes the code's default (another code's variant
+            // means nothing to it).
             const std::string spec = v.get<std::string>();
             const auto colon = spec.find(':');
-            req["code"] = spec.substr(0, colon);
+            const std::string id = spec.substr(0, colon);
+            req["code"] = id;
             if (colon != std::string::npos) req["variant"] = spec.substr(colon + 1);
-            else if (base_json.contains("variant")) req["variant"] = base_json["variant"];
+            else if (base_json.contains("variant") && base_json.value("code", json()) == id)
+              req["variant"] = base_json["variant"];
             else req.erase("variant");
           } else {
             set_path(req, paths[a], v);
@@ -566,6 +573,18 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
   }
   cols["error"] = text([](const Row& r) { return r.error; });
   return cols;
+}
+
+// The structural problems of a request (types, required and unknown
+// fields, generic ranges) as (field, message) pairs, without designing: the
+// package checks sweep axes and overrides against the kernel's own fields.
+py::list request_problems(const py::handle& request) {
+  const json req = to_json(request, "");
+  armature::InputProblems problems;
+  armature::request_from_json(req, problems);
+  py::list out;
+  for (const auto& p : problems.items()) out.append(py::make_tuple(p.field, p.message));
+  return out;
 }
 
 // The M and V envelopes of a request, per span, in kN and m.
@@ -654,6 +673,8 @@ PYBIND11_MODULE(_core, m) {
         "Write the calculation record (.html or .md) of a request whose result is given.");
   m.def("sweep_columns", &sweep_columns, py::arg("base"), py::arg("paths"), py::arg("values"),
         py::arg("threads") = 0, "Design the product of the axes; columns of the results.");
+  m.def("request_problems", &request_problems, py::arg("request"),
+        "Structural problems of a request as (field, message) pairs, without designing.");
   m.def("envelope_diagrams", &envelope_diagrams, py::arg("request"),
         "M and V envelopes of a request along each span.");
   m.def("codes", &codes, "The loaded code plug-ins: id, title, variants, path.");

@@ -3,6 +3,7 @@
 //                                     design one slab strip (and write its record)
 //   armature codes                    list the code plug-ins and load failures
 //   armature --version
+//   armature --help | -h              usage and the caution, on stdout
 // Exit codes: 0 every check passes, 1 some check fails, 2 bad input or
 // usage (messages on stderr, nothing on stdout), 3 internal error.
 #include <filesystem>
@@ -27,7 +28,23 @@ constexpr std::size_t max_request_bytes = 1 << 20;  // a slab request is a few h
 const char* usage =
     "usage: armature design FILE|- [--json] [--report RECORD.html|RECORD.md]\n"
     "       armature codes\n"
-    "       armature --version\n";
+    "       armature --version\n"
+    "       armature --help\n";
+
+// Usage and the caution on stdout: asking for help is not an error.
+int help() {
+  std::cout << "armature " << armature::version_string()
+            << ": design of reinforced concrete one-way slab strips\n"
+            << usage << "\n"
+            << "  design FILE|-   design the request in FILE (- for standard input) and print\n"
+               "                  its summary; --json prints the result JSON instead, --report\n"
+               "                  also writes the calculation record (.html or .md)\n"
+               "  codes           list the code plug-ins, their variants and load failures\n\n"
+               "Exit codes: 0 every check passes, 1 some check fails, 2 bad input or usage,\n"
+               "3 internal error.\n\n"
+            << "Caution: " << armature::caution_text << "\n";
+  return exit_pass;
+}
 
 int usage_error(const std::string& message) {
   std::cerr << "armature: " << message << "\n" << usage;
@@ -59,6 +76,7 @@ int design_command(const std::vector<std::string>& args) {
   bool as_json = false;
   for (std::size_t i = 0; i < args.size(); ++i) {
     const std::string& a = args[i];
+    if (a == "--help" || a == "-h") return help();
     if (a == "--json") as_json = true;
     else if (a == "--report") {
       if (i + 1 >= args.size()) return usage_error("--report needs a file name (.html or .md)");
@@ -140,11 +158,9 @@ int main(int argc, char** argv) {
       std::cout << "armature " << armature::version_string() << "\n";
       return exit_pass;
     }
-    if (args[0] == "--help" || args[0] == "-h") {
-      std::cout << usage;
-      return exit_pass;
-    }
+    if (args[0] == "--help" || args[0] == "-h") return help();
     if (args[0] == "codes") {
+      if (args.size() == 2 && (args[1] == "--help" || args[1] == "-h")) return help();
       if (args.size() > 1) return usage_error("codes takes no arguments");
       return list_codes();
     }

@@ -10,6 +10,12 @@ BUILD = pathlib.Path(os.environ.get("ARMATURE_BUILD_DIR", ROOT / "build"))
 sys.path.insert(0, str(BUILD / "python"))
 
 CLI = BUILD / "bin" / "armature"
+
+# The caution in the wording agreed for every place a result can travel
+# (issue 12, item 13); the kernel's caution_text must say exactly this.
+CAUTION = ("A design aid: its results must be checked and adopted by an engineer qualified, "
+           "and where required licensed or registered, for the place of the works, under the "
+           "codes that govern it, local rules first.")
 TEST_PLUGINS = BUILD / "test-plugins"
 
 BASE_REQUEST = {

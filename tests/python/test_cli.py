@@ -7,7 +7,7 @@ import subprocess
 import pytest
 
 import armature
-from conftest import CLI, ROOT, TEST_PLUGINS
+from conftest import CAUTION, CLI, ROOT, TEST_PLUGINS
 
 
 def run(args, stdin=None, env=None):
@@ -21,6 +21,23 @@ def test_version():
     assert r.stdout.strip() == f"armature {armature.__version__}"
 
 
+@pytest.mark.parametrize("args", [["--help"], ["-h"], ["design", "--help"], ["codes", "-h"]])
+def test_help_prints_usage_and_the_caution_on_stdout(args):
+    r = run(args)
+    assert r.returncode == 0 and r.stderr == ""
+    assert r.stdout.startswith(f"armature {armature.__version__}: ")
+    usage = r.stdout.splitlines()[1:6]
+    assert usage == ["usage: armature design FILE|- [--json] [--report RECORD.html|RECORD.md]",
+                     "       armature codes", "       armature --version", "       armature --help", ""]
+    assert r.stdout.rstrip().endswith("Caution: " + CAUTION)
+
+
+def test_usage_error_still_goes_to_stderr_with_exit_2():
+    r = run(["desing"])
+    assert r.returncode == 2 and r.stdout == ""
+    assert r.stderr.startswith("armature: unknown command desing\nusage: armature design")
+
+
 def test_json_output_equals_python_result(base_request):
     r = run(["design", "--json", "-"], stdin=json.dumps(base_request))
     assert r.returncode == 0, r.stderr
@@ -32,7 +49,7 @@ def test_summary_names_checks_clauses_and_caution(base_request):
     assert r.returncode == 0
     assert "EN 1992-1-1 6.2.2(1)" in r.stdout
     assert "ø10 @ 225" in r.stdout
-    assert "qualified engineer" in r.stdout
+    assert CAUTION in r.stdout
     assert "PASS" in r.stdout
 
 

@@ -1,9 +1,11 @@
 """armature: design of reinforced concrete one-way slab strips.
 
 All engineering is done by the C++ kernel and its code plug-ins; this
-package converts requests and results. A design aid: the results must be
-checked and adopted by a qualified engineer under the codes that govern the
-project, local rules first.
+package converts requests and results.
+
+`armature.CAUTION` (from the kernel, the one place it is written) travels
+with every result: the result's "caution", the record and summary, the
+DataFrames' ``attrs["caution"]`` and a footnote on every plot.
 """
 
 import os
@@ -47,12 +49,13 @@ def report(result, path):
     return _core.write_record(request, os.fspath(path), dict(result))
 
 
-from .plots import plot_envelopes, plot_study  # noqa: E402,F401
-from .studies import sweep  # noqa: E402,F401
+from .plots import add_caution, plot_envelopes, plot_study  # noqa: E402,F401
+from .studies import request_for, sweep  # noqa: E402,F401
 from .tables import compare, to_frame  # noqa: E402,F401
 
 __all__ = [
     "CAUTION",
+    "add_caution",
     "DesignError",
     "InputError",
     "codes",
@@ -63,6 +66,7 @@ __all__ = [
     "plot_study",
     "plugin_failures",
     "report",
+    "request_for",
     "Result",
     "sweep",
     "to_frame",

@@ -1,5 +1,38 @@
-"""Plots with matplotlib: the envelopes of one design, and a study."""
+"""Plots with matplotlib: the envelopes of one design, and a study. Every
+figure carries the caution as a one-line footnote."""
+import textwrap
+
 from . import _core
+from ._core import CAUTION
+
+CAUTION_GID = "armature-caution"  # the footnote's artist id, one per figure
+
+
+def add_caution(figure):
+    """Writes the caution as a one-line footnote along the bottom of a
+    matplotlib figure, once per figure: the font shrinks (7 pt down to
+    3.5 pt) until the line fits the figure's width; a figure narrower than
+    about 5 inches gets it on more lines rather than cut. Returns the text
+    artist (its gid is CAUTION_GID)."""
+    for t in figure.texts:
+        if t.get_gid() == CAUTION_GID:
+            return t
+    line = "Caution: " + CAUTION
+    text = figure.text(0.5, 0.005, line, ha="center", va="bottom", fontsize=7, color="black",
+                       gid=CAUTION_GID)
+    try:
+        renderer = figure.canvas.get_renderer()
+    except AttributeError:  # pragma: no cover - a backend without a renderer at hand
+        return text
+    room = figure.get_figwidth() * figure.dpi * 0.98
+    size = 7.0
+    while size > 3.5 and text.get_window_extent(renderer).width > room:
+        size -= 0.25
+        text.set_fontsize(size)
+    width = text.get_window_extent(renderer).width
+    if width > room:
+        text.set_text(textwrap.fill(line, max(20, int(len(line) * room / width * 0.95))))
+    return text
 
 
 def _pyplot():
@@ -20,8 +53,10 @@ def plot_envelopes(result, axes=None):
         raise ValueError("plot_envelopes needs a result returned by armature.design")
     spans = _core.envelope_diagrams(request)
     if axes is None:
-        _, axes = plt.subplots(2, 1, sharex=True, figsize=(8, 5))
+        fig, axes = plt.subplots(2, 1, sharex=True, figsize=(8, 5))
+        fig.subplots_adjust(bottom=0.14)  # room for the caution under the x label
     ax_m, ax_v = axes
+    add_caution(ax_m.figure)
     for k, s in enumerate(spans):
         label = k == 0
         ax_m.plot(s["x_m"], s["M_max_kNm"], color="black", lw=1, label="largest" if label else None)
@@ -51,7 +86,9 @@ def plot_study(frame, x, y="steel_kg_m2", by=None, ax=None):
     that fail are drawn as open, hatched markers. Returns the axes."""
     plt = _pyplot()
     if ax is None:
-        _, ax = plt.subplots(figsize=(7, 4))
+        fig, ax = plt.subplots(figsize=(8, 4.5))
+        fig.subplots_adjust(bottom=0.17)  # room for the caution under the x label
+    add_caution(ax.figure)
     groups = [(None, frame)] if by is None else list(frame.groupby(by, sort=True))
     for key, g in groups:
         g = g.sort_values(x)
@@ -65,5 +102,6 @@ def plot_study(frame, x, y="steel_kg_m2", by=None, ax=None):
         ax.plot([], [], "o", mfc="none", color="black", label="fails a check")
     ax.set_xlabel(x)
     ax.set_ylabel(y)
-    ax.legend(fontsize=8)
+    if ax.get_legend_handles_labels()[0]:  # nothing to explain: one line, every design passes
+        ax.legend(fontsize=8)
     return ax

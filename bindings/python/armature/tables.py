@@ -5,7 +5,8 @@ is evaluated in Python.
 """
 import copy
 
-from ._core import InputError
+from ._core import CAUTION, InputError
+from ._paths import _check_paths, _set_path
 
 
 def _pandas():
@@ -20,7 +21,9 @@ def to_frame(result):
     """The checks of one result as a DataFrame, one row per check."""
     pd = _pandas()
     columns = ["id", "where", "clause", "demand", "capacity", "unit", "utilisation", "pass"]
-    return pd.DataFrame([{k: c[k] for k in columns} for c in result["checks"]], columns=columns)
+    frame = pd.DataFrame([{k: c[k] for k in columns} for c in result["checks"]], columns=columns)
+    frame.attrs["caution"] = CAUTION
+    return frame
 
 
 def _with_code(request, spec):
@@ -34,21 +37,66 @@ def _with_code(request, spec):
     return req
 
 
-def compare(request, codes):
+def _overrides_for(spec, overrides):
+    """The overrides that apply to the code `spec` ("EN1992-1-1:UK"): those
+    given for its code id ("EN1992-1-1") first, then those for the spec
+    itself, as (path, value) pairs."""
+    code = spec.partition(":")[0]
+    out = []
+    for key in dict.fromkeys([code, spec]):
+        out.extend(overrides.get(key, {}).items())
+    return out
+
+
+def _check_overrides(request, codes, overrides):
+    if not isinstance(overrides, dict):
+        raise InputError("overrides: must map a code (\"ACI318-19\", \"EN1992-1-1:UK\") to "
+                         "{field path: value}")
+    known = set(codes) | {spec.partition(":")[0] for spec in codes}
+    for key, fields in overrides.items():
+        if key not in known:
+            raise InputError(f"overrides.{key}: not one of the codes compared ({', '.join(codes)})")
+        if not isinstance(fields, dict):
+            raise InputError(f"overrides.{key}: must map field paths to values, "
+                             "such as {\"reinforcement.bars\": [\"#4\", \"#5\"]}")
+        for path in fields:
+            if path in ("code", "variant"):
+                raise InputError(f"overrides.{key}.{path}: the code and variant come from `codes`")
+    for spec in codes:
+        pairs = _overrides_for(spec, overrides)
+        if pairs:
+            _check_paths(_with_code(request, spec), pairs, f"override for {spec}")
+
+
+def compare(request, codes, overrides=None):
     """Design one request to several codes; one row per code and region.
 
     `codes` are ids with an optional variant: "EN1992-1-1:UK", "ACI318-19".
-    The request must be valid for every code named (leave out the fields
-    only one code has, such as bar names, exposure names or a strength
-    class); a field that one code refuses raises InputError naming it.
+    What only one code knows (bar names, exposure names, a strength class)
+    goes in `overrides`: per code, field paths as in `sweep` axes and their
+    values, for example ``{"ACI318-19": {"reinforcement.bars": ["#4", "#5"]},
+    "EN1992-1-1": {"reinforcement.bars": ["10", "12"]}}``. A key is a code id
+    (every variant of it) or an id with its variant (that one only, applied
+    after the id's). A path that is not a request field raises InputError
+    naming it; so does a field that one code refuses, with the code.
+    The DataFrame's ``attrs`` hold the caution and, under "requests", the
+    request designed for each code (for `design` and `report`).
     """
     from . import design
 
+    overrides = {} if overrides is None else overrides
+    codes = list(codes)
+    _check_overrides(request, codes, overrides)
     pd = _pandas()
     rows = []
+    requests = {}
     for spec in codes:
+        req = _with_code(request, spec)
+        for path, value in _overrides_for(spec, overrides):
+            _set_path(req, path, copy.deepcopy(value), req)
+        requests[spec] = req
         try:
-            res = design(_with_code(request, spec))
+            res = design(req)
         except InputError as e:
             raise InputError("\n".join(f"{spec}: {line}" for line in str(e).splitlines())) from None
         deflection = {c["where"]: c for c in res["checks"] if c["id"] == "deflection"}
@@ -74,4 +122,7 @@ def compare(request, codes):
                 "max_utilisation": res["max_utilisation"],
                 "governing": f'{res["governing"]["check"]} at {res["governing"]["where"]}',
             })
-    return pd.DataFrame(rows)
+    frame = pd.DataFrame(rows)
+    frame.attrs["caution"] = CAUTION
+    frame.attrs["requests"] = requests
+    return frame

@@ -17,9 +17,12 @@ namespace armature {
 
 class Registry;
 
+// The one place the caution lives: result JSON, record, summary, CLI help,
+// Python (armature.CAUTION: DataFrames, plots) all take it from here.
 inline constexpr const char* caution_text =
-    "A design aid: the results must be checked and adopted by a qualified engineer "
-    "under the codes that govern the project, local rules first.";
+    "A design aid: its results must be checked and adopted by an engineer qualified, "
+    "and where required licensed or registered, for the place of the works, under the "
+    "codes that govern it, local rules first.";
 
 const char* version_string();
 
