@@ -241,7 +241,7 @@ class Checker final : public SlabChecker {
         st.add("K'", "η (αcc/γc) λ ξ (1 − λ ξ/2)",
                num(m_.eta) + " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + " × " + num(m_.lambda) +
                    " × " + num(xi) + " × (1 − " + num(m_.lambda) + " × " + num(xi) + "/2)",
-               K_lim, "-", "EN 1992-1-1 5.5(4), 6.1");
+               K_lim, "-", variant_ndp("EN 1992-1-1 5.5(4), 6.1, 3.1.6(1)", "alpha_cc, gamma_c"));
         st.add("K", "M_Ed / (b d² fck)", num(K), K, "-", "EN 1992-1-1 6.1");
         return st.take();
       });

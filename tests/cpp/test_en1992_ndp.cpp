@@ -422,6 +422,13 @@ TEST_CASE("Steps label the values a variant file set", "[en1992][ndp][record]") 
   CHECK(fcd.result == Approx(0.85 * 30 / 1.5));  // UK NA 3.1.6(1): αcc = 0.85 (value from memory)
   CHECK(fcd.clause == "EN 1992-1-1 3.1.6(1), 2.4.2.4; UK variant NDP alpha_cc, gamma_c");
   CHECK(find_step(bending, "fyd").result == Approx(500 / 1.15));
+  // K' = η (αcc/γc) λ ξ (1 − λ ξ/2) = 0.85/1.5 × 0.8 × 0.45 × 0.82 = 0.1673
+  // (UK, δ = 1; value from memory of UK handbooks: 0.167).
+  const auto& K_lim = find_step(find_check(r, "ductility", "span 1"), "K'");
+  CHECK(K_lim.result == Approx(0.85 / 1.5 * 0.8 * 0.45 * (1 - 0.8 * 0.45 / 2)));
+  CHECK(K_lim.clause == "EN 1992-1-1 5.5(4), 6.1, 3.1.6(1); UK variant NDP alpha_cc, gamma_c");
+  CHECK(find_step(find_check(r, "ductility", "span 1"), "ξ_lim").clause ==
+        "EN 1992-1-1 5.5(4); UK variant NDP k1, k2_factor");
   const auto& crack = find_check(r, "cracking", "span 1", "EN 1992-1-1 7.3.3");
   CHECK(find_step(crack, "w_max").result == 0.3);
   CHECK(find_step(crack, "w_max").clause == "EN 1992-1-1 7.3.1(5) Table 7.1N; UK variant NDP w_max_other_mm");
