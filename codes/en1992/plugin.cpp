@@ -454,8 +454,8 @@ class Checker final : public SlabChecker {
     const double As_min = minimum_crack_control_steel(kc_bending_rectangular, k, m_.fctm, A_ct, m_.fyk);
     checks.add("cracking", g.where, "EN 1992-1-1 7.3.2(2) (7.1) (minimum steel)", As_min, As_prov, "mm2", [&] {
       Steps st;
-      st.add("kc", "0.4 for bending of a rectangular section", "σc = 0", kc_bending_rectangular, "-",
-             "EN 1992-1-1 7.3.2(2) (7.2)");
+      st.add("kc", "0.4 (1 − σc/(k1 (h/h*) fct,eff)), rectangular section in bending", "0.4 × (1 − 0), σc = 0",
+             kc_bending_rectangular, "-", "EN 1992-1-1 7.3.2(2) (7.2)");
       st.add("k", "1.0 for h ≤ 300, 0.65 for h ≥ 800, linear between", "h = " + num(h), k, "-",
              "EN 1992-1-1 7.3.2(2)");
       st.add("Act", "b h/2 (tension zone before cracking)", num(b) + " × " + num(h) + "/2", A_ct, "mm2",
