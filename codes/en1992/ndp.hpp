@@ -2,9 +2,14 @@
 // file so that a national annex is data, not code.
 #pragma once
 
+#include <array>
 #include <filesystem>
+#include <map>
+#include <optional>
 #include <string>
 #include <vector>
+
+#include "rules.hpp"
 
 namespace armature::en1992 {
 
@@ -31,7 +36,26 @@ struct Ndp {
   double k1_shear = 0.0;         // 6.2.2(1)
   double delta_c_dev_mm = 0.0;   // 4.4.1.3(1)P
   std::string durability_note;   // warning given with every design, "" for none
+  // EN 1990 Table A1.1: ψ0, ψ1, ψ2 of imposed-load categories A–H, in
+  // that order (imposed_load_categories).
+  std::array<PsiFactors, 8> psi{};
+  // UK NA Table NA.5 note: allowed l/d ≤ cap × K (Table 7.4N K); none
+  // when the variant sets no cap (JSON null).
+  std::optional<double> span_depth_cap_K;
+  // UK NA to 6.2.2(1): fck in VRd,c and vmin taken as no more than this;
+  // none when the variant sets no cap (JSON null).
+  std::optional<double> shear_fck_cap_MPa;
+  // Strength classes the variant adds to Table 3.1 ("C28/35" → 28); their
+  // properties follow from the Table 3.1 formulas.
+  std::map<std::string, double> extra_strength_classes;
 };
+
+// ψ factors of an imposed-load category under a variant; nullopt for a
+// category outside A–H.
+std::optional<PsiFactors> psi_of_category(const Ndp& ndp, const std::string& category);
+
+// fck of a strength class: Table 3.1, then the variant's own classes.
+std::optional<double> fck_of_class(const Ndp& ndp, const std::string& name);
 
 // Reads and validates one NDP file; throws std::invalid_argument naming
 // the file and the key for a missing, unknown or out-of-range parameter.

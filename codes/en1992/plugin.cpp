@@ -76,7 +76,7 @@ class Checker final : public SlabChecker {
       : ndp_(ndp), label_6_10_(label_6_10), req_(req) {
     const double fck = req.concrete.cylinder_strength_MPa
                            ? *req.concrete.cylinder_strength_MPa
-                           : *fck_of_strength_class(*req.concrete.strength_class);
+                           : *fck_of_class(ndp, *req.concrete.strength_class);
     const double fyk = req.reinforcement.yield_strength_MPa.value_or(default_fyk);
     m_ = {fck,
           fyk,
@@ -86,7 +86,7 @@ class Checker final : public SlabChecker {
           stress_block_strength_factor(fck),
           stress_block_depth_factor(fck),
           ultimate_compressive_strain(fck)};
-    psi_ = *psi_factors(req.loads.imposed_category);
+    psi_ = *psi_of_category(ndp, req.loads.imposed_category);
     exposure_ = req.durability.exposure.value_or("XC1");
     w_max_ = (exposure_ == "X0" || exposure_ == "XC1") ? ndp.w_max_X0_XC1_mm : ndp.w_max_other_mm;
     if (req.reinforcement.bars) {
@@ -107,9 +107,14 @@ class Checker final : public SlabChecker {
     if (req_.design.combination.value_or("6.10") == "6.10") {
       basis.uls.push_back({label_6_10_, gG, gQ, gG});
     } else {
+      // ψ0 and ξ are the variant's: the labels say so.
       const double gQa = gQ * psi_.psi0, gGb = ndp_.xi * gG;
-      basis.uls.push_back({uls_label("6.10a", gG, gQa), gG, gQa, gG});
-      basis.uls.push_back({uls_label("6.10b", gGb, gQ), gGb, gQ, gGb});
+      basis.uls.push_back({uls_label("6.10a", gG, gQa) + " (ψ0 = " + num(psi_.psi0) + " for category " +
+                               req_.loads.imposed_category + ", " + ndp_.variant + " variant NDP)",
+                           gG, gQa, gG});
+      basis.uls.push_back({uls_label("6.10b", gGb, gQ) + " (ξ = " + num(ndp_.xi) + ", " + ndp_.variant +
+                               " variant NDP)",
+                           gGb, gQ, gGb});
     }
     return basis;
   }
@@ -169,7 +174,7 @@ class Checker final : public SlabChecker {
       st.add("c_min", "max(c_min,b, c_min,dur, 10)", "max(" + num(c_bond) + ", " + num(c_dur) + ", 10)",
              c_min, "mm", "EN 1992-1-1 4.4.1.2 (4.2)");
       st.add("c_min + Δc_dev", "c_min + Δc_dev", num(c_min) + " + " + num(ndp_.delta_c_dev_mm), c_req,
-             "mm", "EN 1992-1-1 4.4.1.3");
+             "mm", variant_ndp("EN 1992-1-1 4.4.1.3(1)P", "delta_c_dev_mm"));
       st.add("c_nom", cover_given ? "given" : "c_min + Δc_dev rounded up to 5 mm", num(c_nom), c_nom,
              "mm", "EN 1992-1-1 4.4.1.1");
       return st.take();
@@ -204,6 +209,10 @@ class Checker final : public SlabChecker {
           for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
         st.add("d", "h − c_nom − φ/2", num(h) + " − " + num(c_nom) + " − " + num(phi) + "/2", d, "mm",
                "EN 1992-1-1 6.1");
+        st.add("fcd", "αcc fck / γc", num(ndp_.alpha_cc) + " × " + num(m_.fck) + " / " + num(ndp_.gamma_c),
+               m_.fcd, "MPa", variant_ndp("EN 1992-1-1 3.1.6(1), 2.4.2.4", "alpha_cc, gamma_c"));
+        st.add("fyd", "fyk / γs", num(m_.fyk) + " / " + num(ndp_.gamma_s), m_.fyd, "MPa",
+               variant_ndp("EN 1992-1-1 3.2.7(2), 2.4.2.4", "gamma_s"));
         st.add("K", "M_Ed / (b d² fck)",
                num(g.M_Ed * 1e-6) + "e6 / (" + num(b) + " × " + num(d) + "² × " + num(m_.fck) + ")", K,
                "-", "EN 1992-1-1 6.1");
@@ -228,11 +237,11 @@ class Checker final : public SlabChecker {
         st.add("ξ_lim", "min((δ − k1)/k2, 0.45 or 0.35)",
                "min((" + num(delta) + " − " + num(k_a) + ")/" + num(k_b) + ", " + (normal ? "0.45" : "0.35") +
                    ")",
-               xi, "-", "EN 1992-1-1 5.5(4)");
+               xi, "-", variant_ndp("EN 1992-1-1 5.5(4)", normal ? "k1, k2_factor" : "k3, k4_factor"));
         st.add("K'", "η (αcc/γc) λ ξ (1 − λ ξ/2)",
                num(m_.eta) + " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + " × " + num(m_.lambda) +
                    " × " + num(xi) + " × (1 − " + num(m_.lambda) + " × " + num(xi) + "/2)",
-               K_lim, "-", "EN 1992-1-1 5.5(4), 6.1");
+               K_lim, "-", variant_ndp("EN 1992-1-1 5.5(4), 6.1, 3.1.6(1)", "alpha_cc, gamma_c"));
         st.add("K", "M_Ed / (b d² fck)", num(K), K, "-", "EN 1992-1-1 6.1");
         return st.take();
       });
@@ -288,7 +297,10 @@ class Checker final : public SlabChecker {
 
     // Crack control (7.3.3)
     if (crack_check_needed(h))
-      run_check("cracking", [&] { crack_check(checks, g, phi, s, d, out.As_req_mm2, As_prov); });
+      run_check("cracking", [&] {
+        crack_check(checks, g, phi, s, d, out.As_req_mm2, As_prov);
+        min_crack_steel_check(checks, g, As_prov);
+      });
 
     // Cover (4.4.1), when the request gives it
     if (cover_given)
@@ -299,11 +311,18 @@ class Checker final : public SlabChecker {
       run_check("fire", [&] {
         const int t = *req_.fire.resistance_min;
         const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance(t);
-        checks.add("fire", g.where, "EN 1992-1-2 5.7.2 Table 5.8 (axis distance)", a_min, a, "mm", [&] {
+        // Column 3 (one-way slabs) for every span: 5.7.3 would allow
+        // column 4 for continuous slabs under conditions; it is not used.
+        const bool continuous = g.span_kind != SpanKind::simply_supported;
+        const char* clause = continuous ? "EN 1992-1-2 5.7.2 Table 5.8 column 3 (axis distance); "
+                                          "conservative for continuous slabs, 5.7.3 not used"
+                                        : "EN 1992-1-2 5.7.2 Table 5.8 column 3 (axis distance)";
+        checks.add("fire", g.where, clause, a_min, a, "mm", [&] {
           Steps st;
           st.add("a", "c_nom + φ/2", num(c_nom) + " + " + num(phi) + "/2", a, "mm", "EN 1992-1-2 5.7.2");
-          st.add("a_min", "Table 5.8, one-way slab", "REI " + std::to_string(t), a_min, "mm",
-                 "EN 1992-1-2 5.7.2 Table 5.8");
+          st.add("a_min", "Table 5.8 column 3, one-way slab", "REI " + std::to_string(t), a_min, "mm",
+                 continuous ? "EN 1992-1-2 5.7.2 Table 5.8 column 3 (5.7.3 column 4 not used)"
+                            : "EN 1992-1-2 5.7.2 Table 5.8 column 3");
           return st.take();
         });
       });
@@ -324,20 +343,27 @@ class Checker final : public SlabChecker {
       run_check("shear", [&] {
         const double rho_l = As_prov / (b * d);
         const double k = shear_depth_factor(d);
-        const double v_min = minimum_shear_strength(k, m_.fck, ndp_.v_min_factor);
+        const double fck_v = shear_strength_fck(m_.fck, ndp_.shear_fck_cap_MPa);
+        const double v_min = minimum_shear_strength(k, fck_v, ndp_.v_min_factor);
         const double C = ndp_.C_Rd_c_factor / ndp_.gamma_c;
-        so.V_Rd = shear_resistance_without_links(C, k, rho_l, m_.fck, v_min, b, d);
+        so.V_Rd = shear_resistance_without_links(C, k, rho_l, fck_v, v_min, b, d);
         support.add("shear", sup.where, "EN 1992-1-1 6.2.2(1)", sup.V_Ed * 1e-3, so.V_Rd * 1e-3, "kN", [&] {
           Steps st;
           st.add("k", "1 + √(200/d) ≤ 2", "1 + √(200/" + num(d) + ")", k, "-", "EN 1992-1-1 6.2.2(1)");
           st.add("ρl", "Asl/(b d) ≤ 0.02", num(As_prov) + "/(" + num(b) + " × " + num(d) + ")", rho_l, "-",
                  "EN 1992-1-1 6.2.2(1)");
-          st.add("v_min", "0.035 k^1.5 fck^0.5",
-                 num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " + num(m_.fck) + "^0.5", v_min, "MPa",
-                 "EN 1992-1-1 6.2.2(1) (6.3N)");
+          if (ndp_.shear_fck_cap_MPa)
+            st.add("fck,v", "min(fck, cap) for VRd,c and v_min",
+                   "min(" + num(m_.fck) + ", " + num(*ndp_.shear_fck_cap_MPa) + ")", fck_v, "MPa",
+                   variant_ndp("EN 1992-1-1 6.2.2(1)", "shear_fck_cap_MPa"));
+          st.add("CRd,c", "factor / γc", num(ndp_.C_Rd_c_factor) + " / " + num(ndp_.gamma_c), C, "-",
+                 variant_ndp("EN 1992-1-1 6.2.2(1)", "C_Rd_c_factor, gamma_c"));
+          st.add("v_min", num(ndp_.v_min_factor) + " k^1.5 fck^0.5",
+                 num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " + num(fck_v) + "^0.5", v_min, "MPa",
+                 variant_ndp("EN 1992-1-1 6.2.2(1) (6.3N)", "v_min_factor"));
           st.add("V_Rd,c", "max(CRd,c k (100 ρl fck)^(1/3), v_min) b d",
                  "max(" + num(C) + " × " + num(k) + " × (100 × " + num(std::min(rho_l, 0.02)) + " × " +
-                     num(m_.fck) + ")^(1/3), " + num(v_min) + ") × " + num(b) + " × " + num(d),
+                     num(fck_v) + ")^(1/3), " + num(v_min) + ") × " + num(b) + " × " + num(d),
                  so.V_Rd * 1e-3, "kN", "EN 1992-1-1 6.2.2(1) (6.2)");
           return st.take();
         });
@@ -354,9 +380,9 @@ class Checker final : public SlabChecker {
         const int t = *req_.fire.resistance_min;
         const double h_min = fire_min_thickness(t);
         std::vector<Step> st;
-        st.push_back({"h_s,min", "Table 5.8, one-way slab", "REI " + std::to_string(t), h_min, "mm",
-                      "EN 1992-1-2 5.7.2 Table 5.8"});
-        return make_check("fire", span_where, "EN 1992-1-2 5.7.2 Table 5.8 (thickness)", h_min,
+        st.push_back({"h_s,min", "Table 5.8 column 2", "REI " + std::to_string(t), h_min, "mm",
+                      "EN 1992-1-2 5.7.2 Table 5.8 column 2"});
+        return make_check("fire", span_where, "EN 1992-1-2 5.7.2 Table 5.8 column 2 (thickness)", h_min,
                           req_.slab.thickness_mm, "mm", std::move(st));
       }));
     }
@@ -411,6 +437,37 @@ class Checker final : public SlabChecker {
     return cover_of(phi);
   }
 
+  // A clause whose value here was set by the variant's data file, and the
+  // key that set it (Step text, free to carry the variant's name).
+  std::string variant_ndp(const char* clause, const std::string& key) const {
+    return std::string(clause) + "; " + ndp_.variant + " variant NDP " + key;
+  }
+
+  // 7.3.2(2): minimum steel for crack control, As,min σs = kc k fct,eff Act,
+  // with kc = 0.4 (rectangular section in bending), fct,eff = fctm,
+  // Act = b h/2 and σs = fyk. Checked where crack control applies (h >
+  // 200 mm, 7.3.3(1)).
+  void min_crack_steel_check(CheckCollector& checks, const RegionDemand& g, double As_prov) const {
+    const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
+    const double k = crack_control_depth_factor(h);
+    const double A_ct = tension_zone_area_rectangular_bending(b, h);
+    const double As_min = minimum_crack_control_steel(kc_bending_rectangular, k, m_.fctm, A_ct, m_.fyk);
+    checks.add("cracking", g.where, "EN 1992-1-1 7.3.2(2) (7.1) (minimum steel)", As_min, As_prov, "mm2", [&] {
+      Steps st;
+      st.add("kc", "0.4 (1 − σc/(k1 (h/h*) fct,eff)), rectangular section in bending", "0.4 × (1 − 0), σc = 0",
+             kc_bending_rectangular, "-", "EN 1992-1-1 7.3.2(2) (7.2)");
+      st.add("k", "1.0 for h ≤ 300, 0.65 for h ≥ 800, linear between", "h = " + num(h), k, "-",
+             "EN 1992-1-1 7.3.2(2)");
+      st.add("Act", "b h/2 (tension zone before cracking)", num(b) + " × " + num(h) + "/2", A_ct, "mm2",
+             "EN 1992-1-1 7.3.2(2)");
+      st.add("As,min", "kc k fct,eff Act / σs, fct,eff = fctm, σs = fyk",
+             num(kc_bending_rectangular) + " × " + num(k) + " × " + num(m_.fctm) + " × " + num(A_ct) + " / " +
+                 num(m_.fyk),
+             As_min, "mm2", "EN 1992-1-1 7.3.2(2) (7.1)");
+      return st.take();
+    });
+  }
+
   void crack_check(CheckCollector& checks, const RegionDemand& g, double phi, double s, double d,
                    double As_req, double As_prov) const {
     const double h = req_.slab.thickness_mm;
@@ -424,7 +481,11 @@ class Checker final : public SlabChecker {
     auto steps = [&] {
       Steps st;
       st.add("w_max", "Table 7.1N for the exposure class", exposure_, w_max_, "mm",
-             "EN 1992-1-1 7.3.1 Table 7.1N");
+             variant_ndp("EN 1992-1-1 7.3.1(5) Table 7.1N",
+                         exposure_ == "X0" || exposure_ == "XC1" ? "w_max_X0_XC1_mm" : "w_max_other_mm"));
+      st.add("ψ2", "quasi-permanent factor, category " + req_.loads.imposed_category,
+             "category " + req_.loads.imposed_category, psi_.psi2, "-",
+             variant_ndp("EN 1990 Table A1.1", "psi_factors." + req_.loads.imposed_category + ".psi2"));
       st.add("σs", "fyd (n_qp/n_uls)(As,req/As,prov)/δ",
              num(m_.fyd) + " × " + num(g.quasi_permanent_to_uls) + " × " + num(As_req) + "/" + num(As_prov) +
                  " / " + num(g.redistribution_delta),
@@ -455,9 +516,13 @@ class Checker final : public SlabChecker {
     const double basic = basic_span_depth_ratio(K, m_.fck, rho, 0.0);
     const double f_long = long_span_factor(g.span_mm);
     const double f_steel = steel_stress_factor(m_.fyk, As_prov, As_req, ndp_.steel_stress_factor_cap);
-    const double allowed = basic * f_long * f_steel;
+    const double modified = basic * f_long * f_steel;
+    const double allowed = capped_span_depth_ratio(modified, K, ndp_.span_depth_cap_K);
+    const bool capped = allowed < modified;
     const double actual = g.span_mm / d;
-    checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.2 (7.16), Table 7.4N", actual, allowed, "-", [&] {
+    const char* clause = capped ? "EN 1992-1-1 7.4.2 (7.16), Table 7.4N; l/d capped by variant NDP"
+                                : "EN 1992-1-1 7.4.2 (7.16), Table 7.4N";
+    checks.add("deflection", g.span_where, clause, actual, allowed, "-", [&] {
       Steps st;
       st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");
       st.add("ρ", "As,req/(b d)", num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho,
@@ -472,9 +537,19 @@ class Checker final : public SlabChecker {
       st.add("310/σs", "(500/fyk)(As,prov/As,req) ≤ cap",
              "(500/" + num(m_.fyk) + ")(" + num(As_prov) + "/" + num(As_req) + ") ≤ " +
                  num(ndp_.steel_stress_factor_cap),
-             f_steel, "-", "EN 1992-1-1 7.4.2(2) (7.17)");
-      st.add("l/d allowed", "l/d basic × F_l × 310/σs", num(basic) + " × " + num(f_long) + " × " + num(f_steel),
-             allowed, "-", "EN 1992-1-1 7.4.2");
+             f_steel, "-", variant_ndp("EN 1992-1-1 7.4.2(2) (7.17)", "steel_stress_factor_cap"));
+      if (ndp_.span_depth_cap_K) {
+        st.add("l/d modified", "l/d basic × F_l × 310/σs",
+               num(basic) + " × " + num(f_long) + " × " + num(f_steel), modified, "-", "EN 1992-1-1 7.4.2");
+        st.add("l/d cap", "cap × K", num(*ndp_.span_depth_cap_K) + " × " + num(K), *ndp_.span_depth_cap_K * K,
+               "-", variant_ndp("EN 1992-1-1 7.4.2(2), UK NA Table NA.5 note", "span_depth_cap_K"));
+        st.add("l/d allowed", "min(l/d modified, l/d cap)",
+               "min(" + num(modified) + ", " + num(*ndp_.span_depth_cap_K * K) + ")", allowed, "-",
+               "EN 1992-1-1 7.4.2");
+      } else {
+        st.add("l/d allowed", "l/d basic × F_l × 310/σs",
+               num(basic) + " × " + num(f_long) + " × " + num(f_steel), allowed, "-", "EN 1992-1-1 7.4.2");
+      }
       st.add("l/d actual", "leff/d", num(g.span_mm) + "/" + num(d), actual, "-", "EN 1992-1-1 7.4.2");
       return st.take();
     });
@@ -508,9 +583,15 @@ class Code final : public DesignCode {
 
   void validate(const Request& req, InputProblems& problems) const override {
     const auto& c = req.concrete;
-    if (c.strength_class && !fck_of_strength_class(*c.strength_class))
-      problems.add("concrete.class", "unknown strength class '" + *c.strength_class +
-                                         "'; EN 1992-1-1 Table 3.1 classes run C12/15 to C90/105");
+    if (c.strength_class && !fck_of_class(ndp_, *c.strength_class)) {
+      std::string extra;
+      for (const auto& [name, fck] : ndp_.extra_strength_classes) extra += (extra.empty() ? "" : ", ") + name;
+      problems.add("concrete.class",
+                   "unknown strength class '" + *c.strength_class +
+                       "'; EN 1992-1-1 Table 3.1 classes run C12/15 to C90/105" +
+                       (extra.empty() ? "" : " (the " + ndp_.variant + " variant adds " + extra + ")") +
+                       "; for another concrete give concrete.cylinder_strength_MPa (fck) instead");
+    }
     if (c.cylinder_strength_MPa && (*c.cylinder_strength_MPa < 12 || *c.cylinder_strength_MPa > 90))
       problems.add("concrete.cylinder_strength_MPa",
                    format_range(12, 90, "MPa") + " (EN 1992-1-1 3.1.2), got " +
@@ -533,7 +614,7 @@ class Code final : public DesignCode {
     } else {
       smallest_bar = 8.0;
     }
-    if (!psi_factors(req.loads.imposed_category))
+    if (!psi_of_category(ndp_, req.loads.imposed_category))
       problems.add("loads.imposed_category", "must be one of A to H (EN 1990 Table A1.1), got '" +
                                                  req.loads.imposed_category + "'");
     if (req.durability.exposure && !is_exposure_class(*req.durability.exposure))

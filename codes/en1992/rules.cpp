@@ -57,11 +57,9 @@ double design_compressive_strength(double fck, double alpha_cc, double gamma_c) 
 double design_yield_strength(double fyk, double gamma_s) { return fyk / gamma_s; }
 
 // ---- Actions ---------------------------------------------------------------
-std::optional<PsiFactors> psi_factors(const std::string& category) {
-  if (category == "A" || category == "B" || category == "G") return PsiFactors{0.7, 0.5, 0.3};
-  if (category == "C" || category == "D" || category == "F") return PsiFactors{0.7, 0.7, 0.6};
-  if (category == "E") return PsiFactors{1.0, 0.9, 0.8};
-  if (category == "H") return PsiFactors{0.0, 0.0, 0.0};
+std::optional<std::size_t> imposed_load_category_index(const std::string& category) {
+  for (std::size_t i = 0; i < imposed_load_categories.size(); ++i)
+    if (category == imposed_load_categories[i]) return i;
   return std::nullopt;
 }
 
@@ -185,9 +183,21 @@ std::optional<double> max_bar_spacing_table_7_3N(double sigma_s, double wk) {
 }
 
 double adjusted_max_bar_diameter(double phi_star, double fctm, double h, double d) {
-  constexpr double kc = 0.4;
+  constexpr double kc = kc_bending_rectangular;
   const double h_cr = h / 2.0;
   return phi_star * (fctm / 2.9) * kc * h_cr / (2.0 * (h - d));
+}
+
+double crack_control_depth_factor(double h) {
+  if (h <= 300.0) return 1.0;
+  if (h >= 800.0) return 0.65;
+  return 1.0 - 0.35 * (h - 300.0) / 500.0;
+}
+
+double tension_zone_area_rectangular_bending(double b, double h) { return b * h / 2.0; }
+
+double minimum_crack_control_steel(double kc, double k, double fct_eff, double A_ct, double sigma_s) {
+  return kc * k * fct_eff * A_ct / sigma_s;
 }
 
 // ---- Deflection ------------------------------------------------------------
@@ -213,6 +223,10 @@ double basic_span_depth_ratio(double K, double fck, double rho, double rho_compr
               root_fck * std::sqrt(rho_compression / rho0) / 12.0);
 }
 
+double capped_span_depth_ratio(double allowed, double K, std::optional<double> cap_K) {
+  return cap_K ? std::min(allowed, *cap_K * K) : allowed;
+}
+
 double long_span_factor(double span_mm) { return span_mm > 7000.0 ? 7000.0 / span_mm : 1.0; }
 
 double steel_stress_factor(double fyk, double As_prov, double As_req, double cap) {
@@ -221,6 +235,10 @@ double steel_stress_factor(double fyk, double As_prov, double As_req, double cap
 
 // ---- Shear -----------------------------------------------------------------
 double shear_depth_factor(double d) { return std::min(1.0 + std::sqrt(200.0 / d), 2.0); }
+
+double shear_strength_fck(double fck, std::optional<double> cap_MPa) {
+  return cap_MPa ? std::min(fck, *cap_MPa) : fck;
+}
 
 double minimum_shear_strength(double k, double fck, double v_min_factor) {
   return v_min_factor * k * std::sqrt(k) * std::sqrt(fck);  // k^1.5

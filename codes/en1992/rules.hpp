@@ -4,6 +4,7 @@
 // memory of the standards; see the tests for the check values).
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
@@ -26,8 +27,11 @@ double design_yield_strength(double fyk, double gamma_s);                       
 struct PsiFactors {
   double psi0, psi1, psi2;
 };
-// Table A1.1 by imposed load category A–H; nullopt for an unknown category.
-std::optional<PsiFactors> psi_factors(const std::string& category);
+// Categories of imposed load (EN 1991-1-1 6.3.1.1, 6.3.2.1, 6.3.4.1) that
+// EN 1990 Table A1.1 gives ψ for; the values are NDPs of each variant.
+constexpr std::array<const char*, 8> imposed_load_categories{"A", "B", "C", "D", "E", "F", "G", "H"};
+// Position of a category in imposed_load_categories; nullopt if none.
+std::optional<std::size_t> imposed_load_category_index(const std::string& category);
 
 // ---- Load arrangements (EN 1992-1-1 5.1.3) --------------------------------
 // (a) alternate spans loaded, both ways; (b) every pair of adjacent spans
@@ -70,8 +74,17 @@ double quasi_permanent_steel_stress(double fyd, double qp_to_uls, double As_req,
 // interpolation; below the first row the first row; nullopt past the table.
 std::optional<double> max_bar_diameter_table_7_2N(double sigma_s, double wk);
 std::optional<double> max_bar_spacing_table_7_3N(double sigma_s, double wk);
+// 7.3.2(2) (7.2): kc = 0.4 for bending of a rectangular section (σc = 0).
+constexpr double kc_bending_rectangular = 0.4;
 // (7.6N) with kc = 0.4, hcr = h/2: φs = φ*s (fctm/2.9) kc hcr / (2 (h − d)).
 double adjusted_max_bar_diameter(double phi_star, double fctm, double h, double d);
+// 7.3.2(2): k = 1.0 for h ≤ 300 mm, 0.65 for h ≥ 800 mm, linear between.
+double crack_control_depth_factor(double h);
+// 7.3.2(2): Act of a rectangular section in bending, the tension half b h/2
+// (uncracked, neutral axis at mid-depth, steel ignored).
+double tension_zone_area_rectangular_bending(double b, double h);
+// 7.3.2(2) (7.1): As,min = kc k fct,eff Act / σs.
+double minimum_crack_control_steel(double kc, double k, double fct_eff, double A_ct, double sigma_s);
 
 // ---- Deflection (EN 1992-1-1 7.4.2) ---------------------------------------
 enum class StructuralSystem { simply_supported, end_span, interior_span, cantilever };
@@ -80,11 +93,15 @@ double structural_system_factor(StructuralSystem s);   // Table 7.4N: K
 // (7.16a) for ρ ≤ ρ0, (7.16b) otherwise.
 double basic_span_depth_ratio(double K, double fck, double rho, double rho_compression);
 double long_span_factor(double span_mm);               // 7.4.2(2): 7/leff beyond 7 m
+// UK NA Table NA.5 note: l/d allowed ≤ cap_K × K; no cap when nullopt.
+double capped_span_depth_ratio(double allowed, double K, std::optional<double> cap_K);
 // 7.4.2(2), (7.17): 310/σs ≈ (500/fyk)(As,prov/As,req), capped.
 double steel_stress_factor(double fyk, double As_prov, double As_req, double cap);
 
 // ---- Shear (EN 1992-1-1 6.2.2) --------------------------------------------
 double shear_depth_factor(double d);                    // k = 1 + √(200/d) ≤ 2
+// UK NA to 6.2.2(1): fck used for VRd,c and vmin, min(fck, cap); fck when nullopt.
+double shear_strength_fck(double fck, std::optional<double> cap_MPa);
 double minimum_shear_strength(double k, double fck, double v_min_factor);  // (6.3N)
 // (6.2a)/(6.2b) without axial force: VRd,c in N for width b.
 double shear_resistance_without_links(double C_Rd_c, double k, double rho_l, double fck,

@@ -38,7 +38,7 @@ TEST_CASE("Table 3.1 above C50/60 and the stress block", "[en1992][materials]") 
   CHECK(stress_block_depth_factor(40) == Approx(0.8));
   CHECK(fck_of_strength_class("C30/37").value() == 30);
   CHECK(fck_of_strength_class("C90/105").value() == 90);
-  CHECK_FALSE(fck_of_strength_class("C32/40").has_value());
+  CHECK_FALSE(fck_of_strength_class("C32/40").has_value());  // UK adds it as data (test_en1992_ndp.cpp)
   CHECK_FALSE(fck_of_strength_class("c30/37").has_value());
 }
 
@@ -223,13 +223,59 @@ TEST_CASE("Table 5.8 fire cases, one-way slabs", "[en1992][fire]") {
   CHECK_THROWS(fire_min_thickness(45));
 }
 
-TEST_CASE("psi factors of EN 1990 Table A1.1", "[en1992][actions]") {
-  // EN 1990 Table A1.1 (value from memory).
-  CHECK(psi_factors("A")->psi2 == Approx(0.3));
-  CHECK(psi_factors("C")->psi1 == Approx(0.7));
-  CHECK(psi_factors("D")->psi2 == Approx(0.6));
-  CHECK(psi_factors("E")->psi0 == Approx(1.0));
-  CHECK(psi_factors("E")->psi2 == Approx(0.8));
-  CHECK(psi_factors("H")->psi0 == Approx(0.0));
-  CHECK_FALSE(psi_factors("I").has_value());
+TEST_CASE("Imposed-load categories of EN 1990 Table A1.1", "[en1992][actions]") {
+  // The ψ values are each variant's data (test_en1992_ndp.cpp); the
+  // categories are A to H (EN 1990 Table A1.1, value from memory).
+  CHECK(imposed_load_category_index("A") == 0u);
+  CHECK(imposed_load_category_index("H") == 7u);
+  CHECK_FALSE(imposed_load_category_index("I").has_value());
+  CHECK_FALSE(imposed_load_category_index("a").has_value());
+}
+
+TEST_CASE("UK l/d cap of 40 K as a pure function", "[en1992][deflection]") {
+  // UK NA to EN 1992-1-1 Table NA.5 note (value from memory): l/d ≤ 40 K.
+  // Interior span K = 1.5: 75.7 → 60; 55.0 stays; no cap leaves 75.7.
+  CHECK(capped_span_depth_ratio(75.7, 1.5, 40.0) == Approx(60.0));
+  CHECK(capped_span_depth_ratio(55.0, 1.5, 40.0) == Approx(55.0));
+  CHECK(capped_span_depth_ratio(75.7, 1.5, std::nullopt) == Approx(75.7));
+  // Cantilever K = 0.4: 40 × 0.4 = 16.
+  CHECK(capped_span_depth_ratio(18.2, 0.4, 40.0) == Approx(16.0));
+}
+
+TEST_CASE("UK shear fck cap of 50 MPa as a pure function", "[en1992][shear]") {
+  // UK NA to EN 1992-1-1 6.2.2(1) (value from memory): fck ≤ 50 in VRd,c.
+  CHECK(shear_strength_fck(70, 50.0) == 50);
+  CHECK(shear_strength_fck(40, 50.0) == 40);
+  CHECK(shear_strength_fck(70, std::nullopt) == 70);
+  // C70/85, ø12 @ 125 (904.8 mm²/m), d = 169 (EN 1992-1-1 (6.2a), (6.3N)):
+  //   fck 70: vmin = 0.035 × 2^1.5 × √70 = 0.8282 > 0.8033 → 140.0 kN;
+  //   fck 50: 0.12 × 2 × (100 × 0.005354 × 50)^(1/3) = 0.7177 > 0.7000 → 121.3 kN.
+  const double rho = 8 * 3.141592653589793 * 36 / (1000.0 * 169);
+  const double k = shear_depth_factor(169);
+  CHECK(k == 2.0);
+  for (auto [cap, expected] : {std::pair{std::optional<double>{}, 140.0}, std::pair{std::optional(50.0), 121.3}}) {
+    const double f = shear_strength_fck(70, cap);
+    CHECK(shear_resistance_without_links(0.12, k, rho, f, minimum_shear_strength(k, f, 0.035), 1000, 169) / 1000 ==
+          Approx(expected).margin(0.05));
+  }
+}
+
+TEST_CASE("7.3.2 minimum crack-control steel", "[en1992][cracking]") {
+  // EN 1992-1-1 7.3.2(2) (value from memory): k = 1.0 for h ≤ 300 mm,
+  // 0.65 for h ≥ 800 mm, linear between: h = 550 → 1 − 0.35 × 250/500 = 0.825.
+  CHECK(crack_control_depth_factor(150) == 1.0);
+  CHECK(crack_control_depth_factor(300) == 1.0);
+  CHECK(crack_control_depth_factor(550) == Approx(0.825));
+  CHECK(crack_control_depth_factor(800) == Approx(0.65));
+  CHECK(crack_control_depth_factor(1200) == Approx(0.65));
+  // kc = 0.4 for bending of a rectangular section (7.2 with σc = 0).
+  CHECK(kc_bending_rectangular == 0.4);
+  // Act of a rectangular section in bending: the tension half.
+  CHECK(tension_zone_area_rectangular_bending(1000, 250) == 125000);
+  // (7.1): 0.4 × 1.0 × 2.9 × 125000 / 500 = 290 mm²;
+  // h 550, C40/50 (fctm 3.5): 0.4 × 0.825 × 3.5 × 275000 / 500 = 635.25 mm².
+  CHECK(minimum_crack_control_steel(0.4, 1.0, 2.9, 125000, 500) == Approx(290.0));
+  CHECK(minimum_crack_control_steel(0.4, crack_control_depth_factor(550), 3.5,
+                                    tension_zone_area_rectangular_bending(1000, 550), 500) ==
+        Approx(635.25));
 }

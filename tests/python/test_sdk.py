@@ -172,6 +172,10 @@ def test_bad_data_variants_name_the_file_and_key(tmp_path):
     write_variant(tmp_path, "missing", variant="T2", gamma_c=None)
     write_variant(tmp_path, "range", variant="T3", alpha_cc=1.3)
     write_variant(tmp_path, "clash", variant="UK")
+    # A copied UK file that drops the l/d cap is refused, not read as "no cap".
+    write_variant(tmp_path, "nocap", variant="T4", span_depth_cap_K=None)
+    write_variant(tmp_path, "psi", variant="T5",
+                  psi_factors=dict(NDP_UK["psi_factors"], H={"psi0": 1.2, "psi1": 0.0, "psi2": 0.0}))
     failures, variants = run_python("""
 import json, armature
 en = next(c for c in armature.codes() if c["id"] == "EN1992-1-1")
@@ -182,4 +186,6 @@ print(json.dumps([armature.plugin_failures(), en["variants"]]))
     assert reasons["missing.en1992.json"] == "gamma_c: missing"
     assert reasons["range.en1992.json"].startswith("alpha_cc: must be between 0.8 and 1, got 1.3")
     assert "already defined" in reasons["clash.en1992.json"]
+    assert reasons["nocap.en1992.json"] == "span_depth_cap_K: missing (null for none)"
+    assert reasons["psi.en1992.json"] == "psi_factors.H.psi0: must be between 0 and 1, got 1.2"
     assert set(variants) == {"UK", "recommended"}  # the shipped variants still load
