@@ -118,7 +118,7 @@ TEST_CASE("Single span worked by hand, EN 1992-1-1 UK", "[design][worked]") {
   // The top bars sit at the widest spacing allowed (250/250 = 1.0), but a
   // passing spacing limit does not head the result: bending in the span
   // does (23.70 / 24.51 = 0.967).
-  CHECK(find_check(r, "spacing").utilisation == Approx(1.0));
+  CHECK(find_check(r, "spacing", "support 1").utilisation == Approx(1.0));
   CHECK(r.governing_check == "bending");
   CHECK(r.governing_where == "span 1");
   CHECK(r.max_utilisation == Approx(23.70 / 24.51).epsilon(1e-3));
