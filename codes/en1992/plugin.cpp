@@ -252,6 +252,7 @@ class Checker final : public SlabChecker {
           Steps st;
           st.add("δ", "1 − redistribution/100", "1 − " + num(req_.design.redistribution_percent) + "/100", delta,
                  "-", "EN 1992-1-1 5.5(4)");
+          st.add(k1, "national choice", ndp_.variant, k_a, "-", "EN 1992-1-1 5.5(4)");
           st.add(k2, num(factor) + " (0.6 + 0.0014/εcu2)",
                  num(factor) + " × (0.6 + 0.0014/" + num(m_.eps_cu2) + ")", k_b, "-", "EN 1992-1-1 5.5(4)");
           st.add("xu", "As,prov fyd / (λ η fcd b)",

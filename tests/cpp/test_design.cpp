@@ -339,8 +339,8 @@ TEST_CASE("Ductility at a redistributed support from the bars provided (5.5(4))"
   CHECK(xu_light->capacity == Approx(0.288).epsilon(1e-9));
   CHECK(xu_light->pass);
   REQUIRE(!xu_light->steps.empty());
-  CHECK(xu_light->steps[2].symbol == "xu");
-  CHECK(xu_light->steps[2].result == Approx(54.64).epsilon(2e-4));
+  CHECK(xu_light->steps[3].symbol == "xu");
+  CHECK(xu_light->steps[3].result == Approx(54.64).epsilon(2e-4));
   CHECK(check_with_clause(light, "bending", "6.1")->capacity == Approx(166.2).epsilon(5e-4));
 
   const auto heavy = support_outcome(request, 150.0, 0.8, "16", 75);
