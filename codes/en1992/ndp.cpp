@@ -43,6 +43,19 @@ const std::map<std::string, NumberSpec>& number_specs() {
   return specs;
 }
 
+// Numbers a variant may set to null (no such limit).
+struct OptionalNumberSpec {
+  std::optional<double> Ndp::*member;
+  double lo, hi;
+};
+
+const std::map<std::string, OptionalNumberSpec>& optional_number_specs() {
+  static const std::map<std::string, OptionalNumberSpec> specs{
+      {"redistribution_max_fyk_MPa", {&Ndp::redistribution_max_fyk_MPa, 400.0, 600.0}},
+  };
+  return specs;
+}
+
 std::string short_number(double v) {
   char buf[32];
   std::snprintf(buf, sizeof buf, "%g", v);
@@ -116,8 +129,10 @@ Ndp parse_ndp(const std::string& text, const std::string& where) {
   const std::vector<std::string> text_keys{"variant", "title", "pattern_loading",
                                            "durability_note"};
   const auto& others = other_keys();
+  const auto& optional_specs = optional_number_specs();
   for (auto it = j.begin(); it != j.end(); ++it)
-    if (!specs.count(it.key()) && std::find(others.begin(), others.end(), it.key()) == others.end())
+    if (!specs.count(it.key()) && !optional_specs.count(it.key()) &&
+        std::find(others.begin(), others.end(), it.key()) == others.end())
       fail(it.key(), "unknown parameter");
   for (const auto& [key, spec] : specs) {
     if (!j.contains(key)) fail(key, "missing");
@@ -127,6 +142,17 @@ Ndp parse_ndp(const std::string& text, const std::string& where) {
     if (!(x >= spec.lo && x <= spec.hi))
       fail(key, "must be between " + short_number(spec.lo) + " and " + short_number(spec.hi) +
                     ", got " + short_number(x));
+    ndp.*spec.member = x;
+  }
+  for (const auto& [key, spec] : optional_specs) {
+    if (!j.contains(key)) fail(key, "missing (null for none)");
+    const auto& v = j[key];
+    if (v.is_null()) continue;
+    if (!v.is_number()) fail(key, "must be a number or null");
+    const double x = v.get<double>();
+    if (!(x >= spec.lo && x <= spec.hi))
+      fail(key, "must be between " + short_number(spec.lo) + " and " + short_number(spec.hi) +
+                    " or null, got " + short_number(x));
     ndp.*spec.member = x;
   }
   for (const auto& key : text_keys) {

@@ -27,6 +27,9 @@ struct Ndp {
   double k2_factor = 0.0;        // k2 = k2_factor (0.6 + 0.0014/εcu2)
   double k3 = 0.0;
   double k4_factor = 0.0;
+  // 5.5(4): the largest fyk for which the variant states k1…k4; none
+  // (null in the file) when they hold for every grade.
+  std::optional<double> redistribution_max_fyk_MPa;
   std::string pattern_loading;   // 5.1.3(1)P: "adjacent_pairs" or "all_spans"
   double w_max_X0_XC1_mm = 0.0;  // Table 7.1N
   double w_max_other_mm = 0.0;   // Table 7.1N

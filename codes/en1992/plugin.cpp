@@ -8,6 +8,7 @@
 #include <cstdio>
 #include <numbers>
 
+#include "armature/analysis.hpp"
 #include "armature/plugin.hpp"
 #include "armature/steps.hpp"
 #include "ndp.hpp"
@@ -246,6 +247,34 @@ class Checker final : public SlabChecker {
         return st.take();
       });
     });
+
+    // At a redistributed support, 5.5(4) with the neutral axis of the bars
+    // provided: δ ≥ k1 + k2 xu/d, as xu/d ≤ (δ − k1)/k2.
+    if (delta < 1.0) {
+      run_check("ductility", [&] {
+        const double xu_lim = redistribution_neutral_axis_limit(delta, k_a, k_b);
+        const double xu = neutral_axis_depth(As_prov, m_.fyd, m_.fcd, m_.eta, m_.lambda, b);
+        const char* clause = normal ? "EN 1992-1-1 5.5(4) (5.10a)" : "EN 1992-1-1 5.5(4) (5.10b)";
+        checks.add("ductility", g.where, clause, xu / d, xu_lim, "-", [&] {
+          const std::string k1 = normal ? "k1" : "k3", k2 = normal ? "k2" : "k4";
+          const double factor = normal ? ndp_.k2_factor : ndp_.k4_factor;
+          Steps st;
+          st.add("δ", "1 − redistribution/100", "1 − " + num(req_.design.redistribution_percent) + "/100", delta,
+                 "-", "EN 1992-1-1 5.5(4)");
+          st.add(k1, "national choice", ndp_.variant, k_a, "-", "EN 1992-1-1 5.5(4)");
+          st.add(k2, num(factor) + " (0.6 + 0.0014/εcu2)",
+                 num(factor) + " × (0.6 + 0.0014/" + num(m_.eps_cu2) + ")", k_b, "-", "EN 1992-1-1 5.5(4)");
+          st.add("xu", "As,prov fyd / (λ η fcd b)",
+                 num(As_prov) + " × " + num(m_.fyd) + " / (" + num(m_.lambda) + " × " + num(m_.eta) + " × " +
+                     num(m_.fcd) + " × " + num(b) + ")",
+                 xu, "mm", "EN 1992-1-1 3.1.7(3), 6.1");
+          st.add("xu/d", "xu / d", num(xu) + " / " + num(d), xu / d, "-", "EN 1992-1-1 5.5(4)");
+          st.add("(xu/d)max", "(δ − " + k1 + ")/" + k2,
+                 "(" + num(delta) + " − " + num(k_a) + ")/" + num(k_b), xu_lim, "-", clause);
+          return st.take();
+        });
+      });
+    }
 
     // Minimum and maximum steel (9.2.1.1)
     run_check("min_steel", [&] {
@@ -626,12 +655,7 @@ class Code final : public DesignCode {
       problems.add("fire.resistance_min",
                    "must be 30, 60, 90, 120, 180 or 240 (EN 1992-1-2 Table 5.8), got " +
                        std::to_string(*req.fire.resistance_min));
-    const double max_percent = (1.0 - min_redistribution_ratio_class_B) * 100.0;
-    if (req.design.redistribution_percent > max_percent + 1e-9)
-      problems.add("design.redistribution_percent",
-                   "must be at most " + num(max_percent) +
-                       " % for this slab (EN 1992-1-1 5.5(4): δ ≥ 0.7 for class B and C "
-                       "reinforcement), got " + num(req.design.redistribution_percent));
+    if (req.design.redistribution_percent > 0.0) add_redistribution_problems(req, problems);
     if (const auto& comb = req.design.combination; comb && *comb != "6.10" && *comb != "6.10a/b")
       problems.add("design.combination", "must be \"6.10\" or \"6.10a/b\" (EN 1990 Table A1.2(B)), got '" +
                                              *comb + "'");
@@ -642,6 +666,46 @@ class Code final : public DesignCode {
   }
 
  private:
+  // The conditions of 5.5(4) under which moments may be redistributed
+  // without a check of rotation capacity; the neutral-axis condition
+  // depends on the bars and is the `ductility` check of each redistributed
+  // support.
+  void add_redistribution_problems(const Request& req, InputProblems& problems) const {
+    const double p = req.design.redistribution_percent;
+    const DuctilityClass ductility = req.reinforcement.ductility_class;
+    const double delta_min = minimum_redistribution_ratio(ductility);
+    const double max_percent = (1.0 - delta_min) * 100.0;
+    if (p > max_percent + 1e-9)
+      problems.add("design.redistribution_percent",
+                   "must be at most " + num(max_percent) + " % with class " + to_string(ductility) +
+                       " reinforcement (EN 1992-1-1 5.5(4): δ ≥ " + num(delta_min) + " for class " +
+                       to_string(ductility) + "; δ ≥ 0.7 for class B and C, 0.8 for class A), got " + num(p));
+    const double fyk = req.reinforcement.yield_strength_MPa.value_or(default_fyk);
+    if (const auto& fyk_max = ndp_.redistribution_max_fyk_MPa; fyk_max && fyk > *fyk_max + 1e-9)
+      problems.add("design.redistribution_percent",
+                   "must be 0 with fyk " + num(fyk) + " MPa: variant " + ndp_.variant +
+                       " gives the limits of EN 1992-1-1 5.5(4) (k1 to k4) for fyk up to " + num(*fyk_max) +
+                       " MPa only, got " + num(p));
+    // 5.5(4) b): the spans either side of each redistributed support. The
+    // pairs are numbered from the spans as parsed, so not when a span or
+    // an end was refused.
+    for (const auto& problem : problems.items())
+      if (problem.field.rfind("slab.", 0) == 0) return;
+    const StripModel model{req.slab.spans_mm, req.slab.ends[0], req.slab.ends[1]};
+    const auto nodes = redistributable_nodes(model);
+    for (std::size_t j = 1; j + 1 < nodes.size(); ++j) {
+      if (!nodes[j]) continue;
+      const double left = req.slab.spans_mm[j - 1], right = req.slab.spans_mm[j];
+      if (adjacent_span_ratio_allows_redistribution(left, right)) continue;
+      problems.add("design.redistribution_percent",
+                   "must be 0 for this strip: spans " + std::to_string(j) + " and " + std::to_string(j + 1) +
+                       " (" + num(left * 1e-3) + " m and " + num(right * 1e-3) + " m, ratio " +
+                       num(left / right) + ") meet at support " + std::to_string(j + 1) +
+                       ", whose moment would be redistributed; EN 1992-1-1 5.5(4) allows "
+                       "redistribution only between adjacent spans in the ratio 0.5 to 2, got " + num(p));
+    }
+  }
+
   Ndp ndp_;
   std::string label_6_10_;  // the same for every request of this variant
 };

@@ -75,13 +75,28 @@ std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacen
 }
 
 // ---- Bending ---------------------------------------------------------------
+double minimum_redistribution_ratio(DuctilityClass ductility) {
+  return ductility == DuctilityClass::A ? 0.8 : 0.7;
+}
+
+bool adjacent_span_ratio_allows_redistribution(double span_a, double span_b) {
+  const double ratio = span_a / span_b;
+  return ratio >= 0.5 * (1 - 1e-9) && ratio <= 2.0 * (1 + 1e-9);
+}
+
 double redistribution_coefficient(double factor, double eps_cu2) {
   return factor * (0.6 + 0.0014 / eps_cu2);
 }
 
+double redistribution_neutral_axis_limit(double delta, double k1, double k2) { return (delta - k1) / k2; }
+
 double limiting_neutral_axis_ratio(double delta, double k1, double k2, double fck) {
   const double cap = fck <= 50.0 ? 0.45 : 0.35;
-  return std::min((delta - k1) / k2, cap);
+  return std::min(redistribution_neutral_axis_limit(delta, k1, k2), cap);
+}
+
+double neutral_axis_depth(double As, double fyd, double fcd, double eta, double lambda, double b) {
+  return As * fyd / (lambda * eta * fcd * b);
 }
 
 double limiting_K(double eta, double alpha_cc, double gamma_c, double lambda, double xi) {

@@ -9,6 +9,8 @@
 #include <string>
 #include <vector>
 
+#include "armature/request.hpp"
+
 namespace armature::en1992 {
 
 // ---- Materials (EN 1992-1-1 3.1, 3.2) ------------------------------------
@@ -39,15 +41,24 @@ std::optional<std::size_t> imposed_load_category_index(const std::string& catego
 std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacent_pairs);
 // 9.3.1.2(2): top steel at simple supports for 25 % of the span moment.
 constexpr double partial_fixity_fraction = 0.25;
-// 5.5(4): δ ≥ 0.7 for ductility classes B and C (0.8 for class A).
-constexpr double min_redistribution_ratio_class_B = 0.7;
+// 5.5(4): δ ≥ k5 = 0.7 for ductility classes B and C, k6 = 0.8 for class A
+// (recommended values; the UK NA keeps them: value from memory).
+double minimum_redistribution_ratio(DuctilityClass ductility);
+// 5.5(4) b): adjacent spans in the ratio 0.5 to 2 (ends included).
+bool adjacent_span_ratio_allows_redistribution(double span_a, double span_b);
 
 // ---- Bending (EN 1992-1-1 6.1, 5.5) ---------------------------------------
 // 5.5(4): k2 or k4 = factor × (0.6 + 0.0014/εcu2).
 double redistribution_coefficient(double factor, double eps_cu2);
+// 5.5(4) (5.10a), (5.10b) rearranged: the largest xu/d at ratio δ,
+// (δ − k1)/k2 (k3, k4 above C50/60).
+double redistribution_neutral_axis_limit(double delta, double k1, double k2);
 // Limiting xu/d from δ ≥ k1 + k2 xu/d, capped (0.45 to C50/60, 0.35 above:
 // common practice).
 double limiting_neutral_axis_ratio(double delta, double k1, double k2, double fck);
+// 3.1.7(3), 6.1: neutral axis depth of As at fyd with the rectangular
+// block, xu = As fyd / (λ η fcd b).
+double neutral_axis_depth(double As, double fyd, double fcd, double eta, double lambda, double b);
 // K' = η (αcc/γc) λ ξ (1 − λ ξ / 2): limit of K for a singly reinforced section.
 double limiting_K(double eta, double alpha_cc, double gamma_c, double lambda, double xi);
 double moment_factor_K(double M_Nmm, double b, double d, double fck);  // K = M/(b d² fck)

@@ -127,6 +127,15 @@ const char* to_string(EndSupport end) {
   return "?";
 }
 
+const char* to_string(DuctilityClass ductility) {
+  switch (ductility) {
+    case DuctilityClass::A: return "A";
+    case DuctilityClass::B: return "B";
+    case DuctilityClass::C: return "C";
+  }
+  return "?";
+}
+
 const char* to_string(Face face) { return face == Face::bottom ? "bottom" : "top"; }
 
 }  // namespace armature

@@ -293,8 +293,14 @@ void read_concrete(const json& j, InputProblems& problems, ConcreteInput& c) {
 }
 
 void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInput& s) {
-  ObjectReader r(j, "reinforcement", problems, {"yield_strength_MPa", "bars"});
+  ObjectReader r(j, "reinforcement", problems, {"yield_strength_MPa", "bars", "ductility_class"});
   s.yield_strength_MPa = r.number("yield_strength_MPa");
+  if (auto c = r.text("ductility_class")) {
+    if (*c == "A") s.ductility_class = DuctilityClass::A;
+    else if (*c == "B") s.ductility_class = DuctilityClass::B;
+    else if (*c == "C") s.ductility_class = DuctilityClass::C;
+    else problems.add("reinforcement.ductility_class", "must be \"A\", \"B\" or \"C\", got \"" + *c + "\"");
+  }
   if (const json* bars = r.array("bars")) {
     if (bars->empty()) {
       problems.add("reinforcement.bars", "must list at least one bar");

@@ -320,3 +320,107 @@ TEST_CASE("Bar search tie-break: least area, then larger spacing, then smaller b
   CHECK(a.As_prov_mm2 == Approx(523.60).epsilon(1e-5));
   CHECK(b.As_prov_mm2 == Approx(502.65).epsilon(1e-5));
 }
+
+namespace {
+// The checks of one arrangement at a support region, as the code gives them.
+armature::RegionOutcome support_outcome(const json& request, double M_Ed_kNm, double delta, const char* bar,
+                                        double spacing_mm) {
+  armature::InputProblems problems;
+  const auto req = armature::request_from_json(request, problems);
+  REQUIRE(problems.empty());
+  const auto code = registry().open(req.code, req.variant.value_or(""));
+  code->validate(req, problems);
+  REQUIRE(problems.empty());
+  const auto checker = code->begin(req);
+  armature::RegionDemand g;
+  g.where = "support 2";
+  g.face = armature::Face::top;
+  g.M_Ed = M_Ed_kNm * 1e6;
+  g.quasi_permanent_to_uls = 0.6;
+  g.redistribution_delta = delta;
+  for (const auto& option : checker->bar_options())
+    if (option.designation == bar) return checker->check_region(g, option, spacing_mm, armature::Detail::steps);
+  throw std::runtime_error(std::string("no bar ") + bar);
+}
+
+const armature::Check* check_with_clause(const armature::RegionOutcome& out, const std::string& id,
+                                         const std::string& clause_part) {
+  for (const auto& c : out.checks)
+    if (c.id == id && std::string(c.clause).find(clause_part) != std::string::npos) return &c;
+  return nullptr;
+}
+}  // namespace
+
+TEST_CASE("Ductility at a redistributed support from the bars provided (5.5(4))", "[design][redistribution]") {
+  // EN 1992-1-1 5.5(4) (5.10a) with the neutral axis of the bars provided,
+  // rectangular block of 3.1.7(3); recommended values k1 = 0.44,
+  // k2 = 1.25 (0.6 + 0.0014/0.0035) = 1.25. Our own case, by hand: C30/37,
+  // h 250, cover 30 given, ø16 top bars, M_Ed 150 kNm, δ = 0.8.
+  //   d = 250 − 30 − 16/2 = 212 mm; fcd = 30/1.5 = 20; fyd = 500/1.15 = 434.78
+  //   xu/d ≤ (0.8 − 0.44)/1.25 = 0.288
+  //   ø16 @ 100: As = 2010.6, xu = 2010.6 × 434.78/(0.8 × 1.0 × 20 × 1000)
+  //              = 54.64 mm, xu/d = 0.2577 ≤ 0.288 passes
+  //   ø16 @ 75:  As = 2680.8, xu = 72.85 mm, xu/d = 0.3436 > 0.288 fails
+  //   Both carry the moment: K = 150e6/(1000 × 212² × 30) = 0.1112 ≤
+  //   K' = (1/1.5) × 0.8 × 0.288 × (1 − 0.4 × 0.288) = 0.1359, and
+  //   MRd(ø16 @ 100) = 2010.6 × 434.78 × (212 − 0.4 × 54.64) = 166.2 kNm.
+  const json request = {{"code", "EN1992-1-1"},
+                        {"variant", "recommended"},
+                        {"slab", {{"spans_m", {4.4, 4.4}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 250}}},
+                        {"concrete", {{"class", "C30/37"}}},
+                        {"reinforcement", {{"bars", {"16"}}}},
+                        {"loads", {{"dead_kPa", 1.2}, {"imposed_kPa", 3.5}}},
+                        {"durability", {{"cover_mm", 30}}}};
+  const auto light = support_outcome(request, 150.0, 0.8, "16", 100);
+  const auto* xu_light = check_with_clause(light, "ductility", "(5.10a)");
+  REQUIRE(xu_light != nullptr);
+  CHECK(xu_light->demand == Approx(0.2577).epsilon(2e-4));
+  CHECK(xu_light->capacity == Approx(0.288).epsilon(1e-9));
+  CHECK(xu_light->pass);
+  REQUIRE(!xu_light->steps.empty());
+  CHECK(xu_light->steps[3].symbol == "xu");
+  CHECK(xu_light->steps[3].result == Approx(54.64).epsilon(2e-4));
+  CHECK(check_with_clause(light, "bending", "6.1")->capacity == Approx(166.2).epsilon(5e-4));
+
+  const auto heavy = support_outcome(request, 150.0, 0.8, "16", 75);
+  const auto* xu_heavy = check_with_clause(heavy, "ductility", "(5.10a)");
+  REQUIRE(xu_heavy != nullptr);
+  CHECK(xu_heavy->demand == Approx(0.3436).epsilon(2e-4));
+  CHECK_FALSE(xu_heavy->pass);
+  CHECK_FALSE(heavy.verdict.all_pass);
+  // The bars carry the moment and K ≤ K': only the neutral axis fails.
+  CHECK(check_with_clause(heavy, "bending", "6.1")->pass);
+  const auto* k_check = check_with_clause(heavy, "ductility", "6.1");
+  REQUIRE(k_check != nullptr);
+  CHECK(k_check->demand == Approx(0.1112).epsilon(5e-4));
+  CHECK(k_check->capacity == Approx(0.1359).epsilon(5e-4));
+  CHECK(k_check->pass);
+
+  // No redistribution at the region: 5.5(4) has no neutral-axis condition.
+  CHECK(check_with_clause(support_outcome(request, 150.0, 1.0, "16", 75), "ductility", "5.5(4) (5.10") == nullptr);
+}
+
+TEST_CASE("Ductility above C50/60 takes k3 and k4 (5.10b)", "[design][redistribution]") {
+  // EN 1992-1-1 5.5(4) (5.10b), UK NA k3 = 0.4, k4 = 0.6 + 0.0014/εcu2
+  // (value from memory); εcu2 = 2.6 + 35 ((90 − 60)/100)^4 ‰ = 2.8835 ‰
+  // at C60/75 (Table 3.1); λ = 0.8 − (60 − 50)/400 = 0.775,
+  // η = 1 − (60 − 50)/200 = 0.95 (3.1.7(3)). Our own case, by hand: h 300,
+  // cover 35 given, ø20 @ 125, δ = 0.75, M_Ed 120 kNm.
+  //   k4 = 0.6 + 0.0014/0.0028835 = 1.08552; (xu/d)max = (0.75 − 0.4)/1.08552 = 0.32243
+  //   d = 300 − 35 − 10 = 255; As = 314.16 × 1000/125 = 2513.3
+  //   fcd = 0.85 × 60/1.5 = 34; xu = 2513.3 × 434.78/(0.775 × 0.95 × 34 × 1000) = 43.65 mm
+  //   xu/d = 0.17119
+  const json request = {{"code", "EN1992-1-1"},
+                        {"variant", "UK"},
+                        {"slab", {{"spans_m", {5.2, 5.6}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 300}}},
+                        {"concrete", {{"class", "C60/75"}}},
+                        {"reinforcement", {{"bars", {"20"}}}},
+                        {"loads", {{"dead_kPa", 1.2}, {"imposed_kPa", 3.5}}},
+                        {"durability", {{"cover_mm", 35}}}};
+  const auto out = support_outcome(request, 120.0, 0.75, "20", 125);
+  const auto* xu = check_with_clause(out, "ductility", "(5.10b)");
+  REQUIRE(xu != nullptr);
+  CHECK(xu->capacity == Approx(0.32243).epsilon(1e-4));
+  CHECK(xu->demand == Approx(0.17119).epsilon(1e-4));
+  CHECK(xu->pass);
+}

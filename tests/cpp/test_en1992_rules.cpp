@@ -6,6 +6,10 @@
 #include <cmath>
 #include <random>
 
+#include <fstream>
+#include <iterator>
+
+#include "en1992/ndp.hpp"
 #include "en1992/rules.hpp"
 
 using namespace armature::en1992;
@@ -52,6 +56,60 @@ TEST_CASE("K' for UK and recommended values at delta = 1", "[en1992][bending]") 
   const double xi_rec = limiting_neutral_axis_ratio(1.0, 0.44, redistribution_coefficient(1.25, e), 30);
   CHECK(xi_rec == Approx(0.448));  // (1 − 0.44)/1.25
   CHECK(limiting_K(1.0, 1.0, 1.5, 0.8, xi_rec) == Approx(0.196).margin(0.0005));
+}
+
+TEST_CASE("Redistribution conditions of 5.5(4)", "[en1992][redistribution]") {
+  // EN 1992-1-1 5.5(4), text and note as published (e.g. the clause page
+  // of usingeurocodes.com, "Eurocode 2 part 1-1 5.5(4)"): δ ≥ k5 = 0.7 for
+  // class B and C, δ ≥ k6 = 0.8 for class A (recommended values).
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::A) == Approx(0.8));
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::B) == Approx(0.7));
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::C) == Approx(0.7));
+  // Same clause, b): adjacent spans in the ratio 0.5 to 2, both ends allowed.
+  CHECK_FALSE(adjacent_span_ratio_allows_redistribution(2000, 5000));  // 0.4
+  CHECK(adjacent_span_ratio_allows_redistribution(2600, 5200));        // 0.5 exactly
+  CHECK(adjacent_span_ratio_allows_redistribution(5200, 2600));        // 2 exactly
+  CHECK_FALSE(adjacent_span_ratio_allows_redistribution(5300, 2600));  // 2.04
+  CHECK(adjacent_span_ratio_allows_redistribution(3900, 4600));
+  // (5.10a) rearranged with the recommended k1 = 0.44, k2 = 1.25 (C30/37,
+  // εcu2 = 0.0035): δ = 0.8 → xu/d ≤ (0.8 − 0.44)/1.25 = 0.288; UK NA
+  // k1 = 0.4, k2 = 1.0 (value from memory): δ = 0.9 → 0.5, beyond the 0.45
+  // cap that K' takes (common practice), which the clause itself has not.
+  CHECK(redistribution_neutral_axis_limit(0.8, 0.44, redistribution_coefficient(1.25, 0.0035)) == Approx(0.288));
+  CHECK(redistribution_neutral_axis_limit(0.9, 0.4, redistribution_coefficient(1.0, 0.0035)) == Approx(0.5));
+  CHECK(limiting_neutral_axis_ratio(0.9, 0.4, 1.0, 30) == Approx(0.45));
+  // Rectangular block (3.1.7(3)), λ = 0.8, η = 1, fcd = 30/1.5 = 20 MPa:
+  // ø16 @ 100 = 2010.6 mm²/m at fyd = 434.78 MPa, xu = 2010.6 × 434.78 /
+  // (0.8 × 1 × 20 × 1000) = 54.64 mm (by hand).
+  CHECK(neutral_axis_depth(2010.62, 500 / 1.15, 20, 1.0, 0.8, 1000) == Approx(54.64).epsilon(1e-4));
+}
+
+TEST_CASE("NDP redistribution_max_fyk_MPa is a number or null", "[en1992][ndp]") {
+  std::ifstream in(std::string(ARMATURE_CODE_DIR) + "/en1992/UK.json");
+  REQUIRE(in);
+  const std::string uk((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  // The UK NA states its k1 to k4 for fyk ≤ 500 MPa (value from memory; as
+  // P. Bhatt, T. J. MacGinley, B. S. Choo, Reinforced Concrete Design to
+  // Eurocodes, ch. 20 "U.K. National Annex", 20.2.1, also reports).
+  CHECK(parse_ndp(uk, "UK.json").redistribution_max_fyk_MPa.value() == Approx(500));
+  auto with = [&](const std::string& value) {
+    const std::string key = "\"redistribution_max_fyk_MPa\": 500";
+    std::string text = uk;
+    const auto at = text.find(key);
+    REQUIRE(at != std::string::npos);
+    return text.replace(at, key.size(), value);
+  };
+  const std::string null_text = with("\"redistribution_max_fyk_MPa\": null");
+  CHECK_FALSE(parse_ndp(null_text, "x").redistribution_max_fyk_MPa.has_value());
+  CHECK_THROWS_WITH(parse_ndp(with("\"redistribution_max_fyk_MPa\": \"500\""), "x"),
+                    "x: redistribution_max_fyk_MPa: must be a number or null");
+  CHECK_THROWS_WITH(parse_ndp(with("\"redistribution_max_fyk_MPa\": 700"), "x"),
+                    "x: redistribution_max_fyk_MPa: must be between 400 and 600 or null, got 700");
+  CHECK_THROWS_WITH(parse_ndp(with("\"unused\": 1"), "x"), "x: unused: unknown parameter");
+  std::string without = uk;
+  const std::string entry = "\"redistribution_max_fyk_MPa\": 500,";
+  without.erase(without.find(entry), entry.size());
+  CHECK_THROWS_WITH(parse_ndp(without, "x"), "x: redistribution_max_fyk_MPa: missing (null for none)");
 }
 
 TEST_CASE("Lever arm: the 0.95d cap and the UK root term", "[en1992][bending]") {

@@ -67,3 +67,125 @@ TEST_CASE("Code-specific ranges come from the code", "[request]") {
                          "concrete.cylinder_strength_MPa", "reinforcement.yield_strength_MPa",
                          "reinforcement.bars[1]", "durability.exposure", "durability.cover_mm"}));
 }
+
+namespace {
+// A three-span floor strip of a small workshop store (our own scenario).
+json continuous(std::vector<double> spans_m, double percent) {
+  json r = base();
+  r["variant"] = "recommended";
+  r["slab"]["spans_m"] = spans_m;
+  r["design"] = {{"redistribution_percent", percent}};
+  return r;
+}
+
+std::vector<std::string> messages_for(const std::vector<armature::InputProblem>& ps, const std::string& field) {
+  std::vector<std::string> out;
+  for (const auto& p : ps)
+    if (p.field == field) out.push_back(p.message);
+  return out;
+}
+}  // namespace
+
+TEST_CASE("Ductility class: A, B or C, default B", "[request][redistribution]") {
+  armature::InputProblems problems;
+  auto req = armature::request_from_json(base(), problems);
+  CHECK(req.reinforcement.ductility_class == armature::DuctilityClass::B);  // contract default
+  json r = base();
+  r["reinforcement"] = {{"ductility_class", "C"}};
+  req = armature::request_from_json(r, problems);
+  CHECK(problems.empty());
+  CHECK(req.reinforcement.ductility_class == armature::DuctilityClass::C);
+  r["reinforcement"]["ductility_class"] = "D";
+  auto ps = problems_of(r);
+  REQUIRE(ps.size() == 1);
+  CHECK(ps[0].text() == "reinforcement.ductility_class: must be \"A\", \"B\" or \"C\", got \"D\"");
+  r["reinforcement"]["ductility_class"] = 2;
+  ps = problems_of(r);
+  REQUIRE(ps.size() == 1);
+  CHECK(ps[0].field == "reinforcement.ductility_class");
+  CHECK(ps[0].message.find("must be a string") == 0);
+}
+
+TEST_CASE("Redistribution needs adjacent spans in the ratio 0.5 to 2 (5.5(4))", "[request][redistribution]") {
+  // EN 1992-1-1 5.5(4) b) (published clause text): adjacent spans 0.5 to 2.
+  // 2.0 m beside 5.0 m is 0.4: 30 % is refused, naming the field and the pair.
+  auto ps = problems_of(continuous({2.0, 5.0}, 30));
+  auto msgs = messages_for(ps, "design.redistribution_percent");
+  REQUIRE(ps.size() == 1);
+  REQUIRE(msgs.size() == 1);
+  CHECK(msgs[0].find("spans 1 and 2 (2 m and 5 m, ratio 0.4) meet at support 2") != std::string::npos);
+  CHECK(msgs[0].find("ratio 0.5 to 2") != std::string::npos);
+  // Without redistribution the same strip is a valid request.
+  CHECK(problems_of(continuous({2.0, 5.0}, 0)).empty());
+  // 2.6 m beside 5.2 m is exactly 0.5: allowed.
+  CHECK(problems_of(continuous({2.6, 5.2}, 30)).empty());
+  // Each pair is judged at its own support: spans 2 and 3 fail (4.6/2.2 = 2.09).
+  ps = problems_of(continuous({3.9, 4.6, 2.2}, 15));
+  msgs = messages_for(ps, "design.redistribution_percent");
+  REQUIRE(msgs.size() == 1);
+  CHECK(msgs[0].find("spans 2 and 3") != std::string::npos);
+  // A cantilever is no span of the continuous system: its root is never
+  // redistributed, so 4.4 m beside a 1.2 m cantilever does not count.
+  json r = continuous({4.0, 4.4, 1.2}, 20);
+  r["slab"]["ends"] = {"pinned", "free"};
+  CHECK(problems_of(r).empty());
+}
+
+TEST_CASE("Redistribution limit by ductility class (5.5(4))", "[request][redistribution]") {
+  // EN 1992-1-1 5.5(4), recommended k5 = 0.7 (class B, C), k6 = 0.8
+  // (class A): at most 30 % and 20 %.
+  json r = continuous({3.9, 4.6, 3.9}, 25);
+  r["reinforcement"] = {{"ductility_class", "A"}};
+  auto msgs = messages_for(problems_of(r), "design.redistribution_percent");
+  REQUIRE(msgs.size() == 1);
+  CHECK(msgs[0].find("must be at most 20 % with class A reinforcement") == 0);
+  r["design"]["redistribution_percent"] = 20;
+  CHECK(problems_of(r).empty());
+  r["design"]["redistribution_percent"] = 25;
+  r["reinforcement"]["ductility_class"] = "C";
+  CHECK(problems_of(r).empty());
+  r["design"]["redistribution_percent"] = 31;
+  msgs = messages_for(problems_of(r), "design.redistribution_percent");
+  REQUIRE(msgs.size() == 1);
+  CHECK(msgs[0].find("must be at most 30 % with class C reinforcement") == 0);
+}
+
+TEST_CASE("UK redistribution limits are stated for fyk up to 500 MPa", "[request][redistribution]") {
+  // UK NA to EN 1992-1-1, 5.5(4): k1 to k4 given for fyk ≤ 500 MPa (value
+  // from memory; also reported by Bhatt, MacGinley and Choo, Reinforced
+  // Concrete Design to Eurocodes, ch. 20, 20.2.1). Above it the UK variant
+  // refuses redistribution; the recommended values carry no such limit.
+  json r = continuous({3.9, 4.6, 3.9}, 10);
+  r["variant"] = "UK";
+  r["reinforcement"] = {{"yield_strength_MPa", 550}};
+  auto msgs = messages_for(problems_of(r), "design.redistribution_percent");
+  REQUIRE(msgs.size() == 1);
+  CHECK(msgs[0].find("must be 0 with fyk 550 MPa") == 0);
+  CHECK(msgs[0].find("fyk up to 500 MPa") != std::string::npos);
+  r["reinforcement"]["yield_strength_MPa"] = 500;
+  CHECK(problems_of(r).empty());
+  r["reinforcement"]["yield_strength_MPa"] = 550;
+  r["design"]["redistribution_percent"] = 0;
+  CHECK(problems_of(r).empty());
+  r["design"]["redistribution_percent"] = 10;
+  r["variant"] = "recommended";
+  CHECK(problems_of(r).empty());
+}
+
+TEST_CASE("ACI 318 ignores the ductility class", "[request][aci318]") {
+  // The class is an EN 1992 notion (Annex C); ACI 318 has none, so the
+  // design is that of the same request without it.
+  json r = {{"code", "ACI318-19"},
+            {"slab", {{"spans_m", {3.8}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 190}}},
+            {"concrete", {{"cylinder_strength_MPa", 28}}},
+            {"loads", {{"dead_kPa", 1.1}, {"imposed_kPa", 2.4}}}};
+  armature::Registry reg({ARMATURE_CODE_DIR});
+  const auto plain = armature::design(reg, r);
+  r["reinforcement"] = {{"ductility_class", "A"}};
+  const auto with_class = armature::design(reg, r);
+  REQUIRE(plain.regions.size() == with_class.regions.size());
+  for (std::size_t i = 0; i < plain.regions.size(); ++i) {
+    CHECK(plain.regions[i].bars.bar == with_class.regions[i].bars.bar);
+    CHECK(plain.regions[i].bars.spacing_mm == with_class.regions[i].bars.spacing_mm);
+  }
+}

@@ -24,6 +24,9 @@ struct Scanned {
   SearchCandidate pick;
   bool any_pass = false;
   bool any_strong = false;  // some arrangement passes bending and minimum steel
+  // Some arrangement passes every check but the neutral-axis condition of
+  // a redistributed support (EN 1992-1-1 5.5(4)), which caps the steel.
+  bool xu_rejects = false;
 };
 
 // Every bar at every spacing 75, 100, … up to the code's limit, each with
@@ -34,6 +37,7 @@ struct Scanned {
 Scanned exhaustive_choice(const armature::SlabChecker& checker, const armature::RegionDemand& g, double b) {
   std::optional<SearchCandidate> passing, strong, most;
   std::size_t strong_failures = 0;
+  bool xu_rejects = false;
   auto better = [](const std::optional<SearchCandidate>& best, const SearchCandidate& c) {
     return !best || armature::preferred(c, *best);
   };
@@ -42,18 +46,23 @@ Scanned exhaustive_choice(const armature::SlabChecker& checker, const armature::
     for (double s = 75.0; s <= s_max + 1e-9; s += 25.0) {
       const SearchCandidate c{bar, s, armature::provided_area_mm2(bar.area_mm2, s, b)};
       const auto out = checker.check_region(g, bar, s, armature::Detail::checks);
-      bool all = true, strength = true;
+      bool all = true, strength = true, others = true, xu = true;
       std::size_t failures = 0;
       auto take = [&](const std::vector<armature::Check>& checks) {
         for (const auto& k : checks) {
           all = all && k.pass;
           failures += k.pass ? 0 : 1;
           if (k.id == "bending" || k.id == "min_steel") strength = strength && k.pass;
+          if (k.id == "ductility" && std::string(k.clause).find("(5.10") != std::string::npos)
+            xu = xu && k.pass;
+          else
+            others = others && k.pass;
         }
       };
       take(out.checks);
       take(out.span_checks);
       for (const auto& sup : out.supports) take(sup.checks);
+      if (others && !xu) xu_rejects = true;
       if (all && better(passing, c)) passing = c;
       if (strength && (!strong || failures < strong_failures ||
                        (failures == strong_failures && better(strong, c)))) {
@@ -63,8 +72,8 @@ Scanned exhaustive_choice(const armature::SlabChecker& checker, const armature::
       if (!most || c.As_prov_mm2 > most->As_prov_mm2) most = c;
     }
   }
-  if (passing) return {*passing, true, true};
-  return {strong ? *strong : *most, false, strong.has_value()};
+  if (passing) return {*passing, true, true, xu_rejects};
+  return {strong ? *strong : *most, false, strong.has_value(), xu_rejects};
 }
 }  // namespace
 
@@ -75,7 +84,7 @@ TEST_CASE("bar search: the same choice as checking every candidate in full", "[s
   const std::vector<std::vector<std::string>> en_bars{
       {"8", "10", "12", "16", "20", "25"}, {"6"}, {"10", "16"}, {"12", "32", "40"}};
   const std::vector<std::vector<std::string>> aci_bars{{"#3", "#4", "#5", "#6"}, {"#3"}, {"#5", "#8", "#11"}};
-  int searched = 0, failing = 0;
+  int searched = 0, failing = 0, xu_rejecting = 0;
   for (int i = 0; i < 300; ++i) {
     const bool aci = i % 3 == 2;
     const double h = std::round(uniform(100, 900) / 5) * 5;
@@ -126,11 +135,15 @@ TEST_CASE("bar search: the same choice as checking every candidate in full", "[s
     CHECK(warnings.empty() == expected.any_strong);
     ++searched;
     if (!expected.any_pass) ++failing;
+    if (expected.xu_rejects) ++xu_rejecting;
   }
   // The sample reaches both outcomes.
   CHECK(searched > 200);
   CHECK(failing > 10);
   CHECK(searched - failing > 10);
+  // and regions where the bars provided at a redistributed support make
+  // xu/d too large for an arrangement that passes everything else.
+  CHECK(xu_rejecting > 5);
 }
 
 TEST_CASE("bar search: a code's minimum area is where its strength checks start to pass", "[search]") {

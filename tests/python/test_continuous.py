@@ -200,6 +200,79 @@ def test_redistribution_scales_support_moments_and_is_limited():
         armature.design(dict(req, design={"redistribution_percent": 35}))
 
 
+def _support_checks(res, where):
+    region = next(g for g in res["regions"] if g["where"] == where)
+    checks = [c for c in res["checks"] if c["where"] == where]
+    xu = next(c for c in checks if c["id"] == "ductility" and "(5.10a)" in c["clause"])
+    k = next(c for c in checks if c["id"] == "ductility" and c["clause"].endswith("6.1"))
+    bending = next(c for c in checks if c["id"] == "bending")
+    return region, xu, k, bending
+
+
+def test_redistributed_supports_check_xu_of_the_bars_provided():
+    """EN 1992-1-1 5.5(4) (5.10a), recommended k1 = 0.44, k2 = 1.25 (published
+    clause text): at 30 %, δ = 0.7 needs xu/d ≤ (0.7 − 0.44)/1.25 = 0.208, with
+    xu = As,prov fyd/(λ η fcd b), λ = 0.8, η = 1 (3.1.7(3)), fyd = 500/1.15,
+    from the bars the design reports (by hand)."""
+    # A workshop floor with light use: the support bars sit far inside the limit.
+    light = armature.design({
+        "code": "EN1992-1-1", "variant": "recommended",
+        "slab": {"spans_m": [4.4, 5.2, 4.4], "ends": ["pinned", "pinned"], "thickness_mm": 220},
+        "concrete": {"class": "C30/37"},
+        "loads": {"dead_kPa": 1.4, "imposed_kPa": 3.5},
+        "design": {"redistribution_percent": 30}})
+    for where in ("support 2", "support 3"):
+        region, xu, _, _ = _support_checks(light, where)
+        xu_mm = region["bars"]["As_prov_mm2"] * (500 / 1.15) / (0.8 * 1.0 * (30 / 1.5) * 1000)
+        assert xu["demand"] == pytest.approx(xu_mm / region["effective_depth_mm"], rel=1e-9)
+        assert xu["capacity"] == pytest.approx(0.208, rel=1e-9)
+        assert xu["pass"]
+    # ø10 @ 250 over d = 195 (the design's own choice): xu = 8.537 mm, xu/d = 0.0438.
+    assert _support_checks(light, "support 2")[1]["demand"] == pytest.approx(0.04378, abs=5e-5)
+    # The ends of the strip are not redistributed: no (5.10a) check there.
+    assert not any(c["id"] == "ductility" and "(5.10a)" in c["clause"] and c["where"] == "support 1"
+                   for c in light["checks"])
+
+    # A storage bay (C25/30, h 170, 7.5 kPa; bars 12 and 16): the moment needs
+    # ø12 @ 125 (904.8 mm², d = 170 − 25 − 6 = 139 with the computed cover)
+    # and K ≤ K' holds, yet xu = 904.8 × 434.78/(0.8 × 16.667 × 1000) = 29.50 mm,
+    # xu/d = 0.2123 > 0.208: the bars provided make the redistribution too large.
+    heavy = armature.design({
+        "code": "EN1992-1-1", "variant": "recommended",
+        "slab": {"spans_m": [5.4, 6.2, 5.4], "ends": ["pinned", "pinned"], "thickness_mm": 170},
+        "concrete": {"class": "C25/30"},
+        "reinforcement": {"bars": ["12", "16"]},
+        "loads": {"dead_kPa": 1.4, "imposed_kPa": 7.5},
+        "design": {"redistribution_percent": 30}})
+    region, xu, k, bending = _support_checks(heavy, "support 2")
+    assert (region["bars"]["bar"], region["bars"]["spacing_mm"], region["effective_depth_mm"]) == ("12", 125.0, 139.0)
+    assert bending["pass"] and k["pass"]
+    assert xu["demand"] == pytest.approx(0.2123, abs=5e-5)
+    assert not xu["pass"]
+    assert heavy["status"] == "fail"
+
+
+def test_redistribution_between_unequal_spans_is_refused():
+    """EN 1992-1-1 5.5(4) b): adjacent spans in the ratio 0.5 to 2. 2.0 m beside
+    5.0 m (0.4) at 30 % is refused on design.redistribution_percent."""
+    req = {"code": "EN1992-1-1",
+           "slab": {"spans_m": [2.0, 5.0], "ends": ["pinned", "pinned"], "thickness_mm": 200},
+           "concrete": {"class": "C30/37"},
+           "loads": {"dead_kPa": 1.4, "imposed_kPa": 3.5},
+           "design": {"redistribution_percent": 30}}
+    with pytest.raises(armature.InputError,
+                       match=r"design\.redistribution_percent: must be 0 for this strip: spans 1 and 2 "
+                             r"\(2 m and 5 m, ratio 0\.4\)"):
+        armature.design(req)
+    # Without redistribution the strip designs, support 2 for its elastic
+    # moment: both spans loaded, Clapeyron M = n (L1³ + L2³)/(8 (L1 + L2)),
+    # n = 1.35 (25 × 0.2 + 1.4) + 1.5 × 3.5 = 13.89 kPa → 32.99 kNm (by hand).
+    req["design"] = {"redistribution_percent": 0}
+    res = armature.design(req)
+    support = next(g for g in res["regions"] if g["where"] == "support 2")
+    assert support["design_moment_kNm"] == pytest.approx(13.89 * (2.0 ** 3 + 5.0 ** 3) / (8 * 7.0), rel=1e-9)
+
+
 def test_redistribution_without_an_interior_support_is_refused():
     req = dict(BALCONY, slab={"spans_m": [4.0, 1.6], "ends": ["pinned", "free"], "thickness_mm": 225},
                design={"redistribution_percent": 10})

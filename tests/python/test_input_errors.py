@@ -50,6 +50,8 @@ MALFORMED = [
     ("unknown bar", edit(["reinforcement", "bars"], ["10", "11"]), "reinforcement.bars[1]"),
     ("empty bar list", edit(["reinforcement", "bars"], []), "reinforcement.bars"),
     ("bar as number", edit(["reinforcement", "bars"], [12]), "reinforcement.bars[0]"),
+    ("unknown ductility class", edit(["reinforcement", "ductility_class"], "D"), "reinforcement.ductility_class"),
+    ("ductility class as number", edit(["reinforcement", "ductility_class"], 1), "reinforcement.ductility_class"),
     ("missing imposed load", edit(["loads", "imposed_kPa"], None), "loads.imposed_kPa"),
     ("negative imposed load", edit(["loads", "imposed_kPa"], -2.0), "loads.imposed_kPa"),
     ("unknown category", edit(["loads", "imposed_category"], "Z"), "loads.imposed_category"),

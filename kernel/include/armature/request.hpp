@@ -15,6 +15,12 @@ enum class EndSupport { pinned, fixed, free };
 
 const char* to_string(EndSupport end);
 
+// Ductility class of the reinforcement (A, B or C, as a steel is sold);
+// a code with no such notion ignores it.
+enum class DuctilityClass { A, B, C };
+
+const char* to_string(DuctilityClass ductility);
+
 struct SlabInput {
   std::vector<double> spans_mm;  // effective spans, left to right
   std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
@@ -32,6 +38,7 @@ struct ConcreteInput {
 struct ReinforcementInput {
   std::optional<double> yield_strength_MPa;       // code default when absent
   std::optional<std::vector<std::string>> bars;   // code default set when absent
+  DuctilityClass ductility_class = DuctilityClass::B;
 };
 
 struct LoadsInput {
