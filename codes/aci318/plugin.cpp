@@ -86,7 +86,8 @@ class Checker final : public SlabChecker {
   // no area passes when even a = d cannot carry Mu.
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
-    const double d = h - req_.durability.cover_mm.value_or(specified_cover(exposure_, bar.diameter_mm)) -
+    const double d = h - req_.durability.cover_mm.value_or(
+                             specified_cover(exposure_, std::max(bar.diameter_mm, g.cover_bar_mm))) -
                      bar.diameter_mm / 2.0;
     if (d <= 0.0) return 0.0;  // bending fails unless M_Ed = 0: left to the check
     const auto As_bending = required_flexural_steel(g.M_Ed, fc_, fy_, b, d);
@@ -101,12 +102,19 @@ class Checker final : public SlabChecker {
     CheckCollector checks(out.checks, out.verdict, detail);
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm, db = bar.diameter_mm;
     const double As = bar.area_mm2 * b / s;
-    const double c_req = specified_cover(exposure_, db);
+    // One cover per face: a computed cover is that of the largest bar the
+    // kernel has chosen on this face, when larger than this one; a given
+    // cover is checked against this bar's own requirement.
     const bool cover_given = req_.durability.cover_mm.has_value();
+    const double c_req = specified_cover(exposure_, cover_given ? db : std::max(db, g.cover_bar_mm));
     const double cover = req_.durability.cover_mm.value_or(c_req);
     auto cover_steps = [&] {
       StepRecorder st;
-      st.add("c", "Table 20.5.1.3.1 (" + exposure_ + ", bar " + bar.designation + ")", exposure_, c_req, "mm",
+      const bool face_bar = !cover_given && g.cover_bar_mm > db;
+      st.add("c",
+             "Table 20.5.1.3.1 (" + exposure_ + ", bar " +
+                 (face_bar ? "of " + num(g.cover_bar_mm) + " mm, the largest on this face)" : bar.designation + ")"),
+             exposure_, c_req, "mm",
              "ACI 318-19 20.5.1.3.1");
       return st.take();
     };

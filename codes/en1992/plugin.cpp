@@ -138,7 +138,8 @@ class Checker final : public SlabChecker {
   // As); no area passes when K > K'.
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
     const double b = req_.slab.strip_width_mm;
-    const double d = req_.slab.thickness_mm - cover_for(bar.diameter_mm).c_nom - bar.diameter_mm / 2.0;
+    const double d = req_.slab.thickness_mm - cover_for(std::max(bar.diameter_mm, g.cover_bar_mm)).c_nom -
+                     bar.diameter_mm / 2.0;
     if (d <= 0.0) return 0.0;  // bending fails unless M_Ed = 0: left to the check
     const double K = moment_factor_K(g.M_Ed, b, d, m_.fck);
     if (K > bending_limit(g.redistribution_delta).K_lim) return std::numeric_limits<double>::infinity();
@@ -159,9 +160,12 @@ class Checker final : public SlabChecker {
     // Cover (4.4.1)
     const int s_class = structural_class_;
     const double c_dur = c_min_dur_;
-    const CoverOf cover = cover_for(phi);
-    const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = cover.c_nom;
+    // One nominal cover per face (computed cover): that of the largest bar
+    // the kernel has chosen on this face, when larger than this one.
     const bool cover_given = req_.durability.cover_mm.has_value();
+    const double phi_cover = cover_given ? phi : std::max(phi, g.cover_bar_mm);
+    const CoverOf cover = cover_for(phi_cover);
+    const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = cover.c_nom;
     auto cover_steps = [&] {
       Steps st;
       st.add("S", "structural class (S4, life, slab geometry, strength)",
@@ -170,7 +174,10 @@ class Checker final : public SlabChecker {
              s_class, "-", "EN 1992-1-1 4.4.1.2 Table 4.3N");
       st.add("c_min,dur", "Table 4.4N (S, exposure)", "S" + std::to_string(s_class) + ", " + exposure_,
              c_dur, "mm", "EN 1992-1-1 4.4.1.2 Table 4.4N");
-      st.add("c_min,b", "φ (+5 if dg > 32)", num(phi) + " mm bar, dg " + num(dg), c_bond, "mm",
+      st.add("c_min,b", "φ (+5 if dg > 32)",
+             num(phi_cover) + (phi_cover > phi ? " mm bar (the largest on this face), dg " : " mm bar, dg ") +
+                 num(dg),
+             c_bond, "mm",
              "EN 1992-1-1 4.4.1.2 Table 4.2");
       st.add("c_min", "max(c_min,b, c_min,dur, 10)", "max(" + num(c_bond) + ", " + num(c_dur) + ", 10)",
              c_min, "mm", "EN 1992-1-1 4.4.1.2 (4.2)");

@@ -265,6 +265,53 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
   return d;
 }
 
+// The cover a region's chosen bars get from the code (at the search's
+// detail: no records are built).
+double cover_of_pick(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
+                     const SearchCandidate& pick) {
+  return call_code(code, "the bar search", [&] {
+    return checker.check_region(region, pick.bar, pick.spacing_mm, Detail::verdict).cover_mm;
+  });
+}
+
+// The bar search of every region with one nominal cover per face. A code
+// that works cover out from the bar size is told the largest bar chosen on
+// the face (RegionDemand::cover_bar_mm); a region whose cover that changes
+// is searched again, and so on until bars and covers agree. The largest bar
+// of a face never shrinks (its own region keeps its cover), so this ends
+// within as many rounds as there are bar sizes.
+std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker, const CodeIdentity& code,
+                                                     std::vector<RegionDemand>& demands, double width_mm,
+                                                     std::vector<std::string>& warnings) {
+  std::vector<SearchCandidate> picks;
+  std::vector<std::vector<std::string>> region_warnings(demands.size());
+  picks.reserve(demands.size());
+  for (std::size_t i = 0; i < demands.size(); ++i)
+    picks.push_back(search_bars(checker, code, demands[i], width_mm, region_warnings[i]));
+  const std::size_t rounds = checker.bar_options().size() + 1;
+  for (std::size_t round = 0; round < rounds; ++round) {
+    bool searched_again = false;
+    for (const Face face : {Face::bottom, Face::top}) {
+      double largest = 0.0;
+      for (std::size_t i = 0; i < demands.size(); ++i)
+        if (demands[i].face == face) largest = std::max(largest, picks[i].bar.diameter_mm);
+      for (std::size_t i = 0; i < demands.size(); ++i) {
+        RegionDemand& g = demands[i];
+        if (g.face != face || g.cover_bar_mm >= largest) continue;
+        const double before = cover_of_pick(checker, code, g, picks[i]);
+        g.cover_bar_mm = largest;
+        if (cover_of_pick(checker, code, g, picks[i]) == before) continue;
+        region_warnings[i].clear();
+        picks[i] = search_bars(checker, code, g, width_mm, region_warnings[i]);
+        searched_again = true;
+      }
+    }
+    if (!searched_again) break;
+  }
+  for (auto& w : region_warnings) warnings.insert(warnings.end(), w.begin(), w.end());
+  return picks;
+}
+
 // For a request that passed validation; `id` is the code's identity.
 DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Request& req, Detail detail);
 
@@ -456,8 +503,9 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   rec.project = req.project;
   rec.thickness_mm = req.slab.thickness_mm;
   const double fixity = call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
-  const auto demands = regions_of(model, env, fixity, delta, redistributed,
-                                  rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
+  auto demands = regions_of(model, env, fixity, delta, redistributed,
+                            rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
+  const std::vector<SearchCandidate> picks = search_with_face_covers(*checker, rec.code, demands, b, rec.warnings);
 
   std::vector<std::string> span_names, support_names;
   for (std::size_t e = 0; e < n; ++e) span_names.push_back(span_name(e));
@@ -468,8 +516,9 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   rec.spans.reserve(n);
   rec.supports.reserve(n + 1);
   double max_main_As = 0.0;
-  for (const auto& demand : demands) {
-    const SearchCandidate pick = search_bars(*checker, rec.code, demand, b, rec.warnings);
+  for (std::size_t i = 0; i < demands.size(); ++i) {
+    const RegionDemand& demand = demands[i];
+    const SearchCandidate& pick = picks[i];
     RegionOutcome out = call_code(
         rec.code, "the checks",
         [&] { return checker->check_region(demand, pick.bar, pick.spacing_mm, detail); }, demand.where);
@@ -507,8 +556,10 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, rec.warnings,
                                          distribution_ok);
 
-  rec.cover_mm = 0.0;
-  for (const auto& r : rec.regions) rec.cover_mm = std::max(rec.cover_mm, r.cover_mm);
+  for (const auto& r : rec.regions) {
+    double& c = rec.face_cover_mm[static_cast<std::size_t>(r.face)];
+    c = std::max(c, r.cover_mm);
+  }
 
   rec.pass = distribution_ok;
   rec.max_utilisation = 0.0;

@@ -72,7 +72,12 @@ std::string format_summary(const DesignRecord& r) {
        ", ULS " + fmt("%.2f", u.load(r.loads.uls)) + " " + u.load_unit() + " [" +
        r.loads.combination + "], quasi-permanent " + fmt("%.2f", u.load(r.loads.sls_quasi_permanent)) +
        " " + u.load_unit() + "\n";
-  o += "Cover      " + fmt(u.us ? "%.2f" : "%.0f", u.length(r.cover_mm)) + " " + L + "\n\n";
+  o += "Cover     ";
+  for (const Face face : {Face::top, Face::bottom})
+    if (r.cover_mm(face) > 0.0)
+      o += std::string(" ") + to_string(face) + " " + fmt(u.us ? "%.2f" : "%.0f", u.length(r.cover_mm(face))) +
+           " " + L + (face == Face::top && r.cover_mm(Face::bottom) > 0.0 ? "," : "");
+  o += "\n\n";
 
   o += pad("Region", 12) + pad("face", 8) + rpad(std::string("M_Ed ") + u.moment_unit(), 12) +
        rpad("d " + L, 8) + rpad("As,req", 9) + rpad("As,min", 9) + "   " + pad("bars", 14) +

@@ -1,6 +1,7 @@
 // Complete designs through the registry and the EN 1992 plug-in.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <random>
 
@@ -109,7 +110,8 @@ TEST_CASE("Single span worked by hand, EN 1992-1-1 UK", "[design][worked]") {
   CHECK(find_check(r, "cover").demand == Approx(20));
   CHECK(r.supports[0].checks.at(0).where == "support 1");
   CHECK(find_check(r, "cover").capacity == Approx(25));
-  CHECK(r.cover_mm == 25);
+  CHECK(r.cover_mm(armature::Face::bottom) == 25);
+  CHECK(r.cover_mm(armature::Face::top) == 25);
   CHECK_THROWS(find_check(r, "cracking"));  // h = 200: none (7.3.3(1))
   CHECK(r.distribution.As_req_mm2 == Approx(69.81).epsilon(1e-3));
   CHECK(r.distribution.bars.bar == "10");
@@ -163,14 +165,14 @@ TEST_CASE("Computed cover follows Tables 4.3N/4.4N and the bar", "[design][cover
     "durability": {"exposure": "XC3"}
   })");
   auto r = armature::design(registry(), req);
-  CHECK(r.cover_mm == 30);
+  CHECK(r.cover_mm(armature::Face::bottom) == 30);
   CHECK(find_region(r, "span 1").d_mm == Approx(180 - 30 - 6));
   // dg 40 > 32: cmin,b = 12 + 5 = 17 < 20, cover unchanged; with ø25 bars
   // cmin,b = 30 → 30 + 10 = 40 mm.
   req["reinforcement"]["bars"] = {"25"};
   req["concrete"]["aggregate_mm"] = 40;
   r = armature::design(registry(), req);
-  CHECK(r.cover_mm == 40);
+  CHECK(r.cover_mm(armature::Face::bottom) == 40);
 }
 
 // A long workshop span worked by hand (EN 1992-1-1 recommended values; our own case):
@@ -423,4 +425,41 @@ TEST_CASE("Ductility above C50/60 takes k3 and k4 (5.10b)", "[design][redistribu
   CHECK(xu->capacity == Approx(0.32243).epsilon(1e-4));
   CHECK(xu->demand == Approx(0.17119).epsilon(1e-4));
   CHECK(xu->pass);
+}
+
+TEST_CASE("One nominal cover per face, set by the largest bar chosen on it", "[design][cover]") {
+  // EN 1992-1-1 recommended, XC1, 50 years, C30/37: S4 − 1 (slab) − 1
+  // (C30/37 in XC1) = S2 → cmin,dur = 10 mm (Tables 4.3N, 4.4N, values from
+  // memory); cmin,b = φ (Table 4.2); cnom = cmin + Δcdev 10, rounded up to
+  // 5 mm: ø10 → 20 mm, ø12 → 22 → 25 mm. The interior supports take ø12,
+  // so the whole top face is covered for ø12, including the ø10 top bars
+  // at the pinned ends; the bottom face has ø10 only.
+  const json req = json::parse(R"({
+    "code": "EN1992-1-1", "variant": "recommended",
+    "slab": {"spans_m": [3.4, 6.0, 3.4], "ends": ["pinned", "pinned"], "thickness_mm": 200},
+    "concrete": {"class": "C30/37"},
+    "reinforcement": {"bars": ["10", "12"]},
+    "loads": {"dead_kPa": 1.2, "imposed_kPa": 3.0}
+  })");
+  const auto r = armature::design(registry(), req, armature::Detail::steps);
+  CHECK(find_region(r, "support 2").bars.bar == "12");
+  CHECK(find_region(r, "support 3").bars.bar == "12");
+  CHECK(r.cover_mm(armature::Face::top) == 25);
+  CHECK(r.cover_mm(armature::Face::bottom) == 20);
+  for (const auto& g : r.regions) {
+    INFO(g.where);
+    const double c = g.face == armature::Face::top ? 25.0 : 20.0;
+    CHECK(g.cover_mm == c);
+    CHECK(g.d_mm == Approx(200 - c - g.bars.diameter_mm / 2));
+  }
+  const auto& end = find_region(r, "support 1");
+  CHECK(end.bars.bar == "10");
+  CHECK(end.d_mm == Approx(200 - 25 - 5));
+  // Its derivation names the bar that set the cover.
+  const auto& bending = find_check(r, "bending", "support 1");
+  const auto step = std::find_if(bending.steps.begin(), bending.steps.end(),
+                                 [](const armature::Step& s) { return s.symbol == "c_min,b"; });
+  REQUIRE(step != bending.steps.end());
+  CHECK(step->result == 12);
+  CHECK(step->substituted.find("the largest on this face") != std::string::npos);
 }

@@ -31,6 +31,8 @@ def test_result_has_the_contract_keys(base_request):
     assert set(res["supports"][0]) == {"where", "design_shear_kN", "shear_resistance_kN", "checks"}
     assert set(res["distribution"]) == {"bar", "diameter_mm", "spacing_mm", "As_req_mm2", "As_prov_mm2"}
     assert set(res["loads"]) == {"self_weight_kPa", "uls_kPa", "sls_quasi_permanent_kPa", "combination"}
+    # One nominal cover per face with main bars (contract-v2 3): the given 25 mm.
+    assert res["cover_mm"] == {"top": 25.0, "bottom": 25.0}
     for c in res["checks"]:
         assert set(c) == CHECK_KEYS
         assert c["id"] in CHECK_IDS
@@ -148,3 +150,19 @@ def test_fire_checks_follow_table_5_8(base_request):
     assert not axis["pass"] and res["status"] == "fail"
     assert axis["where"] == "span 1"
     assert math.isclose(axis["capacity"], 25 + res["regions"][1]["bars"]["diameter_mm"] / 2)
+
+
+def test_cover_per_face_follows_the_largest_bar_on_the_face():
+    # EN 1992-1-1 recommended, XC1, C30/37 (S2: cmin,dur 10 mm; cmin,b = φ; Δcdev 10 mm;
+    # 4.4.1, values from memory): ø12 top bars at the interior supports set the top
+    # face's cover to 12 + 10 = 22 → 25 mm, the ø10 top bars at the ends included;
+    # the bottom face has ø10 only: 20 mm.
+    res = armature.design({"code": "EN1992-1-1", "variant": "recommended",
+                           "slab": {"spans_m": [3.4, 6.0, 3.4], "ends": ["pinned", "pinned"],
+                                    "thickness_mm": 200},
+                           "concrete": {"class": "C30/37"}, "reinforcement": {"bars": ["10", "12"]},
+                           "loads": {"dead_kPa": 1.2, "imposed_kPa": 3.0}})
+    assert res["cover_mm"] == {"top": 25.0, "bottom": 20.0}
+    for g in res["regions"]:
+        c = res["cover_mm"][g["face"]]
+        assert g["effective_depth_mm"] == pytest.approx(200 - c - g["bars"]["diameter_mm"] / 2), g["where"]

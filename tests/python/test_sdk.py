@@ -70,7 +70,7 @@ def test_house_rules_from_the_installed_cli(installed):
     # HR-4: 30 mm. EN's own cover is no more for the demo's bars (XC1, S2: cmin,dur 10 mm,
     # cmin,b = φ, + Δcdev 10 mm, up to 5 mm: 20 mm for ø8-ø10, 25 mm for ø12, 30 mm for ø16;
     # EN 1992-1-1 4.4.1, value from memory), so every region has d = 200 − 30 − φ/2.
-    assert res["cover_mm"] == 30
+    assert res["cover_mm"] == {"top": 30, "bottom": 30}
     for g in res["regions"]:
         assert g["effective_depth_mm"] == 200 - 30 - g["bars"]["diameter_mm"] / 2, g["where"]
     # The balcony root (support 4) is statically determinate: n L²/2 with

@@ -75,6 +75,10 @@ struct RegionDemand {
   std::vector<SupportDemand> supports;
   double quasi_permanent_to_uls = 0.0;  // ratio of SLS quasi-permanent to ULS moment
   double redistribution_delta = 1.0;    // δ of 5.5 at this region
+  // One nominal cover per face: where the code works cover out from the
+  // bar size, it uses bars of at least this diameter (the largest the
+  // kernel has chosen on this face; 0: each bar its own).
+  double cover_bar_mm = 0.0;
 };
 
 // How much a code reports for one bar arrangement: the bar search needs

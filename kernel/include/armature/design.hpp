@@ -71,7 +71,9 @@ struct DesignRecord {
   std::string governing_check;
   std::string governing_where;
   LoadTotals loads;
-  double cover_mm = 0.0;
+  // One nominal cover per face, indexed by Face (0: no bars on that face).
+  std::array<double, 2> face_cover_mm{0.0, 0.0};
+  double cover_mm(Face face) const { return face_cover_mm[static_cast<std::size_t>(face)]; }
   std::vector<RegionRecord> regions;
   std::vector<SupportRecord> supports;
   std::vector<SpanRecord> spans;

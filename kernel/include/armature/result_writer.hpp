@@ -99,7 +99,12 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
   w.key("sls_quasi_permanent_kPa"), w.value(r.loads.sls_quasi_permanent * kPa_per_MPa);
   w.key("combination"), w.value(r.loads.combination);
   w.end();
-  w.key("cover_mm"), w.value(r.cover_mm);
+  // One nominal cover per face that has main bars (contract-v2 3).
+  w.key("cover_mm");
+  w.begin_object();
+  for (const Face face : {Face::top, Face::bottom})
+    if (r.cover_mm(face) > 0.0) w.key(to_string(face)), w.value(r.cover_mm(face));
+  w.end();
   w.key("regions");
   w.begin_array();
   for (const auto& g : r.regions) {
