@@ -205,6 +205,13 @@ def test_compare_one_floor_across_codes():
         assert list(rows["where"]) == [g["where"] for g in res["regions"]]
         assert list(rows["As_prov_mm2"]) == [g["bars"]["As_prov_mm2"] for g in res["regions"]]
         assert list(rows["bar"]) == [g["bars"]["bar"] for g in res["regions"]]
+        # A region's governing check is its highest utilisation, passing spacing limits left
+        # out as in the result's own headline (the search works up to them).
+        for (_, row), g in zip(rows.iterrows(), res["regions"]):
+            headline = [c for c in g["checks"] if c["id"] != "spacing" or not c["pass"]]
+            worst = max(headline, key=lambda c: c["utilisation"])
+            assert (row["governing_check"], row["utilisation"]) == (worst["id"], worst["utilisation"])
+            assert row["governing_check"] != "spacing"
     # A field one code refuses names the code and the field.
     with pytest.raises(armature.InputError, match=r"ACI318-19: concrete\.class: "):
         armature.compare(dict(floor, concrete={"class": "C30/37"}), codes=["EN1992-1-1", "ACI318-19"])
