@@ -42,10 +42,10 @@ struct Ndp {
   // EN 1990 Table A1.1: ψ0, ψ1, ψ2 of imposed-load categories A–H, in
   // that order (imposed_load_categories).
   std::array<PsiFactors, 8> psi{};
-  // UK NA Table NA.5 note: allowed l/d ≤ cap × K (Table 7.4N K); none
+  // UK NA Table NA.5 Note 6 (A1:2009): allowed l/d ≤ cap × K (Table 7.4N K); none
   // when the variant sets no cap (JSON null).
   std::optional<double> span_depth_cap_K;
-  // UK NA to 6.2.2(1): fck in VRd,c and vmin taken as no more than this;
+  // UK NA to 3.1.2(2)P (from memory): fck in VRd,c and vmin taken as no more than this;
   // none when the variant sets no cap (JSON null).
   std::optional<double> shear_fck_cap_MPa;
   // Strength classes the variant adds to Table 3.1 ("C28/35" → 28); their

@@ -242,7 +242,7 @@ class Checker final : public SlabChecker {
     run_check("ductility", [&] {
       checks.add("ductility", g.where, "EN 1992-1-1 5.5(4), 6.1", K, K_lim, "-", [&] {
         Steps st;
-        st.add("ξ_lim", "min((δ − k1)/k2, 0.45 or 0.35)",
+        st.add("ξ_lim", normal ? "min((δ − k1)/k2, 0.45)" : "min((δ − k3)/k4, 0.35)",
                "min((" + num(delta) + " − " + num(k_a) + ")/" + num(k_b) + ", " + (normal ? "0.45" : "0.35") +
                    ")",
                xi, "-", variant_ndp("EN 1992-1-1 5.5(4)", normal ? "k1, k2_factor" : "k3, k4_factor"));
@@ -391,13 +391,15 @@ class Checker final : public SlabChecker {
           if (ndp_.shear_fck_cap_MPa)
             st.add("fck,v", "min(fck, cap) for VRd,c and v_min",
                    "min(" + num(m_.fck) + ", " + num(*ndp_.shear_fck_cap_MPa) + ")", fck_v, "MPa",
-                   variant_ndp("EN 1992-1-1 6.2.2(1)", "shear_fck_cap_MPa"));
+                   variant_ndp("EN 1992-1-1 6.2.2(1); NA to 3.1.2(2)P", "shear_fck_cap_MPa"));
           st.add("CRd,c", "factor / γc", num(ndp_.C_Rd_c_factor) + " / " + num(ndp_.gamma_c), C, "-",
                  variant_ndp("EN 1992-1-1 6.2.2(1)", "C_Rd_c_factor, gamma_c"));
-          st.add("v_min", num(ndp_.v_min_factor) + " k^1.5 fck^0.5",
+          const bool capped = ndp_.shear_fck_cap_MPa.has_value();
+          st.add("v_min", num(ndp_.v_min_factor) + (capped ? " k^1.5 fck,v^0.5" : " k^1.5 fck^0.5"),
                  num(ndp_.v_min_factor) + " × " + num(k) + "^1.5 × " + num(fck_v) + "^0.5", v_min, "MPa",
                  variant_ndp("EN 1992-1-1 6.2.2(1) (6.3N)", "v_min_factor"));
-          st.add("V_Rd,c", "max(CRd,c k (100 ρl fck)^(1/3), v_min) b d",
+          st.add("V_Rd,c", capped ? "max(CRd,c k (100 ρl fck,v)^(1/3), v_min) b d"
+                                  : "max(CRd,c k (100 ρl fck)^(1/3), v_min) b d",
                  "max(" + num(C) + " × " + num(k) + " × (100 × " + num(std::min(rho_l, 0.02)) + " × " +
                      num(fck_v) + ")^(1/3), " + num(v_min) + ") × " + num(b) + " × " + num(d),
                  so.V_Rd * 1e-3, "kN", "EN 1992-1-1 6.2.2(1) (6.2)");
@@ -578,7 +580,7 @@ class Checker final : public SlabChecker {
         st.add("l/d modified", "l/d basic × F_l × 310/σs",
                num(basic) + " × " + num(f_long) + " × " + num(f_steel), modified, "-", "EN 1992-1-1 7.4.2");
         st.add("l/d cap", "cap × K", num(*ndp_.span_depth_cap_K) + " × " + num(K), *ndp_.span_depth_cap_K * K,
-               "-", variant_ndp("EN 1992-1-1 7.4.2(2), UK NA Table NA.5 note", "span_depth_cap_K"));
+               "-", variant_ndp("EN 1992-1-1 7.4.2(2); NA Table NA.5 Note 6", "span_depth_cap_K"));
         st.add("l/d allowed", "min(l/d modified, l/d cap)",
                "min(" + num(modified) + ", " + num(*ndp_.span_depth_cap_K * K) + ")", allowed, "-",
                "EN 1992-1-1 7.4.2");

@@ -104,14 +104,14 @@ double structural_system_factor(StructuralSystem s);   // Table 7.4N: K
 // (7.16a) for ρ ≤ ρ0, (7.16b) otherwise.
 double basic_span_depth_ratio(double K, double fck, double rho, double rho_compression);
 double long_span_factor(double span_mm);               // 7.4.2(2): 7/leff beyond 7 m
-// UK NA Table NA.5 note: l/d allowed ≤ cap_K × K; no cap when nullopt.
+// UK NA Table NA.5 Note 6 (A1:2009): l/d allowed ≤ cap_K × K; no cap when nullopt.
 double capped_span_depth_ratio(double allowed, double K, std::optional<double> cap_K);
 // 7.4.2(2), (7.17): 310/σs ≈ (500/fyk)(As,prov/As,req), capped.
 double steel_stress_factor(double fyk, double As_prov, double As_req, double cap);
 
 // ---- Shear (EN 1992-1-1 6.2.2) --------------------------------------------
 double shear_depth_factor(double d);                    // k = 1 + √(200/d) ≤ 2
-// UK NA to 6.2.2(1): fck used for VRd,c and vmin, min(fck, cap); fck when nullopt.
+// UK NA to 3.1.2(2)P (from memory): fck used for VRd,c and vmin, min(fck, cap); fck when nullopt.
 double shear_strength_fck(double fck, std::optional<double> cap_MPa);
 double minimum_shear_strength(double k, double fck, double v_min_factor);  // (6.3N)
 // (6.2a)/(6.2b) without axial force: VRd,c in N for width b.

@@ -149,7 +149,8 @@ Trial fewest_failures(const SlabChecker& checker, const CodeIdentity& code, cons
                       double width_mm, double s_max, const Trial& least) {
   Trial best = least;
   std::size_t best_failures = failures_of(checker, code, region, *least.bar, least.spacing_mm);
-  const auto& bars = checker.bar_options();
+  const auto& bars = call_code(code, "bar options",
+                               [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const int steps = last_spacing_step(s_max);
   for (const auto& bar : bars) {
     const double floor =
@@ -220,7 +221,9 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
                       region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
   warnings.push_back(region.where + ": no candidate bar arrangement satisfies bending and "
                      "minimum steel; the arrangement with the most steel is reported");
-  return largest.candidate();
+  SearchCandidate most = largest.candidate();
+  most.strength_pass = false;
+  return most;
 }
 
 namespace {
@@ -265,42 +268,41 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
   return d;
 }
 
-// The cover a region's chosen bars get from the code (at the search's
-// detail: no records are built).
-double cover_of_pick(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
-                     const SearchCandidate& pick) {
-  return call_code(code, "the bar search", [&] {
-    return checker.check_region(region, pick.bar, pick.spacing_mm, Detail::verdict).cover_mm;
-  });
-}
-
-// The bar search of every region with one nominal cover per face. A code
-// that works cover out from the bar size is told the largest bar chosen on
-// the face (RegionDemand::cover_bar_mm); a region whose cover that changes
-// is searched again, and so on until bars and covers agree. The largest bar
-// of a face never shrinks (its own region keeps its cover), so this ends
-// within as many rounds as there are bar sizes.
+// The bar search of every region with one nominal cover per face. Where
+// the code works cover out from the bar size (no cover given), it is told
+// the largest bar chosen on the face (RegionDemand::cover_bar_mm), and each
+// region of the face whose cover bar that raises is searched again (its
+// smaller bars now have the larger cover too), until bars and covers
+// agree. The largest bar of a face never shrinks (its own region keeps its
+// cover), so this ends within as many rounds as there are bar sizes. A
+// region where no arrangement passes bending and minimum steel does not
+// set its face's cover: its heaviest bars would push every other region of
+// the face to a larger cover; it keeps its own, and a warning says so.
 std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker, const CodeIdentity& code,
                                                      std::vector<RegionDemand>& demands, double width_mm,
-                                                     std::vector<std::string>& warnings) {
+                                                     bool cover_given, std::vector<std::string>& warnings) {
   std::vector<SearchCandidate> picks;
   std::vector<std::vector<std::string>> region_warnings(demands.size());
   picks.reserve(demands.size());
   for (std::size_t i = 0; i < demands.size(); ++i)
     picks.push_back(search_bars(checker, code, demands[i], width_mm, region_warnings[i]));
-  const std::size_t rounds = checker.bar_options().size() + 1;
+  const std::size_t rounds =
+      cover_given ? 0
+                  : call_code(code, "bar options", [&]() -> const std::vector<BarOption>& {
+                      return checker.bar_options();
+                    }).size() + 1;
   for (std::size_t round = 0; round < rounds; ++round) {
     bool searched_again = false;
     for (const Face face : {Face::bottom, Face::top}) {
       double largest = 0.0;
       for (std::size_t i = 0; i < demands.size(); ++i)
-        if (demands[i].face == face) largest = std::max(largest, picks[i].bar.diameter_mm);
+        if (demands[i].face == face && picks[i].strength_pass)
+          largest = std::max(largest, picks[i].bar.diameter_mm);
       for (std::size_t i = 0; i < demands.size(); ++i) {
         RegionDemand& g = demands[i];
         if (g.face != face || g.cover_bar_mm >= largest) continue;
-        const double before = cover_of_pick(checker, code, g, picks[i]);
         g.cover_bar_mm = largest;
-        if (cover_of_pick(checker, code, g, picks[i]) == before) continue;
+        if (picks[i].bar.diameter_mm >= largest && picks[i].strength_pass) continue;  // it set the cover
         region_warnings[i].clear();
         picks[i] = search_bars(checker, code, g, width_mm, region_warnings[i]);
         searched_again = true;
@@ -308,7 +310,13 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
     }
     if (!searched_again) break;
   }
-  for (auto& w : region_warnings) warnings.insert(warnings.end(), w.begin(), w.end());
+  for (std::size_t i = 0; i < demands.size(); ++i) {
+    warnings.insert(warnings.end(), region_warnings[i].begin(), region_warnings[i].end());
+    if (!cover_given && !picks[i].strength_pass && picks[i].bar.diameter_mm > demands[i].cover_bar_mm)
+      warnings.push_back(demands[i].where + ": its bars' cover is not applied to the rest of the " +
+                         to_string(demands[i].face) + " face, since no arrangement there passes "
+                         "bending and minimum steel");
+  }
   return picks;
 }
 
@@ -505,7 +513,8 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   const double fixity = call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
   auto demands = regions_of(model, env, fixity, delta, redistributed,
                             rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
-  const std::vector<SearchCandidate> picks = search_with_face_covers(*checker, rec.code, demands, b, rec.warnings);
+  const std::vector<SearchCandidate> picks = search_with_face_covers(
+      *checker, rec.code, demands, b, req.durability.cover_mm.has_value(), rec.warnings);
 
   std::vector<std::string> span_names, support_names;
   for (std::size_t e = 0; e < n; ++e) span_names.push_back(span_name(e));

@@ -98,12 +98,12 @@ bool has_step(const armature::Check& c, const std::string& symbol) {
 TEST_CASE("Shipped NDP files: caps, psi table and UK classes", "[en1992][ndp]") {
   const Ndp uk = parse(shipped("UK"));
   const Ndp rec = parse(shipped("recommended"));
-  // UK NA to EN 1992-1-1 Table NA.5 note: l/d ≤ 40 K (value from memory);
+  // UK NA to EN 1992-1-1 Table NA.5 Note 6: l/d ≤ 40 K (value from memory);
   // none recommended.
   REQUIRE(uk.span_depth_cap_K.has_value());
   CHECK(*uk.span_depth_cap_K == 40);
   CHECK_FALSE(rec.span_depth_cap_K.has_value());
-  // UK NA to EN 1992-1-1 6.2.2(1): fck ≤ 50 MPa in VRd,c (value from memory).
+  // UK NA to EN 1992-1-1 3.1.2(2)P: fck ≤ 50 MPa in VRd,c (value from memory).
   REQUIRE(uk.shear_fck_cap_MPa.has_value());
   CHECK(*uk.shear_fck_cap_MPa == 50);
   CHECK_FALSE(rec.shear_fck_cap_MPa.has_value());
@@ -187,7 +187,7 @@ TEST_CASE("NDP files: the new keys are required and range-checked by name", "[en
 // ---- Designs -----------------------------------------------------------------
 
 TEST_CASE("UK l/d cap of 40 K fails a thin fixed-fixed slab", "[en1992][ndp][deflection]") {
-  // UK NA to EN 1992-1-1 Table NA.5 note (value from memory): l/d ≤ 40 K.
+  // UK NA to EN 1992-1-1 Table NA.5 Note 6 (value from memory): l/d ≤ 40 K.
   // C30/37, h 100, 5.5 m fixed–fixed (Table 7.4N K = 1.5), Qk 1.5 kPa
   // category A: cover 15 + 5 → 20 mm with ø8, d = 100 − 20 − 4 = 76 mm,
   // actual l/d = 5500/76 = 72.37. Without a cap ø8 @ 175 gives allowed
@@ -268,7 +268,7 @@ TEST_CASE("UK psi0 = 0.7 for category H roofs in 6.10a", "[en1992][ndp][actions]
 }
 
 TEST_CASE("UK shear with C70/85 takes fck as 50 MPa", "[en1992][ndp][shear]") {
-  // UK NA to EN 1992-1-1 6.2.2(1) (value from memory): VRd,c with fck ≤ 50.
+  // UK NA to EN 1992-1-1 3.1.2(2)P (value from memory): VRd,c with fck ≤ 50.
   // Simply supported 4.5 m, h 200, cover 25, ø12 → d = 169; Gk = 8.0,
   // Qk = 7.5 kPa: M = 22.05 × 4.5²/8 = 55.81 kNm → ø12 @ 125 (904.8 mm²).
   // EN 1992-1-1 (6.2a), (6.3N): k = 2.0, ρl = 904.8/169000 = 0.005354.

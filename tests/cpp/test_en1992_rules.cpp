@@ -291,7 +291,7 @@ TEST_CASE("Imposed-load categories of EN 1990 Table A1.1", "[en1992][actions]") 
 }
 
 TEST_CASE("UK l/d cap of 40 K as a pure function", "[en1992][deflection]") {
-  // UK NA to EN 1992-1-1 Table NA.5 note (value from memory): l/d ≤ 40 K.
+  // UK NA to EN 1992-1-1 Table NA.5 Note 6 (value from memory): l/d ≤ 40 K.
   // Interior span K = 1.5: 75.7 → 60; 55.0 stays; no cap leaves 75.7.
   CHECK(capped_span_depth_ratio(75.7, 1.5, 40.0) == Approx(60.0));
   CHECK(capped_span_depth_ratio(55.0, 1.5, 40.0) == Approx(55.0));

@@ -166,7 +166,7 @@ def test_cantilever_has_root_steel_and_its_own_deflection_check():
     # root: ρ = 248.21/195000 = 0.0012729 < ρ0 = 0.0054772, ρ0/ρ = 4.3030 (7.16a):
     # 0.4 [11 + 1.5√30 × 4.3030 + 3.2√30 × 3.3030^1.5] = 0.4 × 151.57 = 60.63;
     # × 310/σs = (500/500)(314.16/248.21) = 1.2657 (7.17, under the 1.5 cap) → 76.73,
-    # capped by the UK NA at 40 K = 40 × 0.4 = 16 (Table NA.5 note, value from memory).
+    # capped by the UK NA at 40 K = 40 × 0.4 = 16 (Table NA.5 Note 6, value from memory).
     assert defl["capacity"] == pytest.approx(16.0)
 
 

@@ -109,6 +109,7 @@ struct SearchCandidate {
   BarOption bar;
   double spacing_mm = 0.0;
   double As_prov_mm2 = 0.0;
+  bool strength_pass = true;  // false: no arrangement passes bending and minimum steel
 };
 // True when a is preferred to b on equal standing: least area, then the
 // larger spacing, then the smaller bar.
