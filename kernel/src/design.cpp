@@ -312,7 +312,11 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
   }
   for (std::size_t i = 0; i < demands.size(); ++i) {
     warnings.insert(warnings.end(), region_warnings[i].begin(), region_warnings[i].end());
-    if (!cover_given && !picks[i].strength_pass && picks[i].bar.diameter_mm > demands[i].cover_bar_mm)
+    const bool shares_face = std::any_of(demands.begin(), demands.end(), [&](const RegionDemand& o) {
+      return &o != &demands[i] && o.face == demands[i].face;
+    });
+    if (!cover_given && shares_face && !picks[i].strength_pass &&
+        picks[i].bar.diameter_mm > demands[i].cover_bar_mm)
       warnings.push_back(demands[i].where + ": its bars' cover is not applied to the rest of the " +
                          to_string(demands[i].face) + " face, since no arrangement there passes "
                          "bending and minimum steel");

@@ -463,3 +463,33 @@ TEST_CASE("One nominal cover per face, set by the largest bar chosen on it", "[d
   CHECK(step->result == 12);
   CHECK(step->substituted.find("the largest on this face") != std::string::npos);
 }
+
+TEST_CASE("A region that fails bending does not set its face's cover", "[design][cover]") {
+  // A 2.5 m balcony under 30 kPa on h 150: no bar carries the root moment
+  // (the heaviest, ø25 @ 75, is reported). Its bars would put the whole top
+  // face at 25 + 10 = 35 mm (EN 1992-1-1 4.4.1, values from memory); the
+  // end support's top bars keep the cover of their own ø12: 12 + 10 = 22
+  // → 25 mm, d = 150 − 25 − 6 = 119 mm, and a warning says so.
+  const json req = json::parse(R"({
+    "code": "EN1992-1-1", "variant": "recommended",
+    "slab": {"spans_m": [4.0, 2.5], "ends": ["pinned", "free"], "thickness_mm": 150},
+    "concrete": {"class": "C30/37"},
+    "loads": {"dead_kPa": 1.0, "imposed_kPa": 30.0}
+  })");
+  const auto r = armature::design(registry(), req);
+  CHECK_FALSE(r.pass);
+  const auto& root = find_region(r, "support 2");
+  CHECK(root.bars.bar == "25");
+  CHECK(root.cover_mm == 35);
+  const auto& end = find_region(r, "support 1");
+  CHECK(end.bars.bar == "12");
+  CHECK(end.cover_mm == 25);
+  CHECK(end.d_mm == Approx(119));
+  const auto said = [&](const std::string& text) {
+    return std::find(r.warnings.begin(), r.warnings.end(), text) != r.warnings.end();
+  };
+  CHECK(said("support 2: its bars' cover is not applied to the rest of the top face, since no "
+             "arrangement there passes bending and minimum steel"));
+  // The span is the only bottom region: nothing to say there.
+  for (const auto& w : r.warnings) CHECK(w.find("rest of the bottom face") == std::string::npos);
+}
