@@ -61,6 +61,7 @@ class Checker final : public SlabChecker {
     basis.uls.push_back({"5.3.1a: 1.4 D", dead_only_factor, 0.0, dead_only_factor});
     basis.uls.push_back({"5.3.1b: 1.2 D + 1.6 L", dead_factor, live_factor, dead_factor});
     basis.psi2 = 0.0;  // the sustained part of L is not defined here: D alone
+    basis.long_term_load_name = "sustained";  // ACI 318-19 24.2.4.1, Table 24.2.2
     return basis;
   }
 
@@ -270,6 +271,21 @@ class Checker final : public SlabChecker {
   }
 
   std::vector<std::string> warnings() const override { return warnings_; }
+
+  std::vector<InputDefault> defaults_used() const override {
+    std::string bars;
+    for (const auto& bar : bars_) bars += (bars.empty() ? "" : ", ") + bar.designation;
+    return {
+        {"concrete.density_kN_m3", num(req_.concrete.density_kN_m3.value_or(default_density_kN_m3)) + " kN/m³",
+         "150 lb/ft³ normal-weight concrete, common practice"},
+        {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm) + " mm", "armature default (25.2.1)"},
+        {"reinforcement.yield_strength_MPa", num(fy_) + " MPa", "Grade 420 (Grade 60), plug-in default"},
+        {"reinforcement.bars", bars, "plug-in default set"},
+        {"durability.exposure", exposure_, "plug-in default (not exposed to weather or ground)"},
+        {"durability.cover_mm", "from the exposure and each bar (see the bending steps)",
+         "ACI 318-19 20.5.1.3.1"},
+    };
+  }
 
  private:
   const Request& req_;  // kept alive by the caller of Code::begin

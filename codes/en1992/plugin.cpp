@@ -60,6 +60,17 @@ StructuralSystem system_of(SpanKind kind) {
   return StructuralSystem::simply_supported;
 }
 
+// The row of Table 7.4N, as the deflection derivation names it.
+const char* system_name(SpanKind kind) {
+  switch (kind) {
+    case SpanKind::simply_supported: return "simply supported span";
+    case SpanKind::end_span: return "end span";
+    case SpanKind::interior_span: return "interior span";
+    case SpanKind::cantilever: return "cantilever";
+  }
+  return "";
+}
+
 using Steps = StepRecorder;
 
 // "6.10: 1.35 Gk + 1.5 Qk"
@@ -104,6 +115,7 @@ class Checker final : public SlabChecker {
     LoadBasis basis;
     basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(default_density_kN_m3);
     basis.psi2 = psi_.psi2;
+    basis.long_term_load_name = "quasi-permanent";  // EN 1990 6.5.3 (6.16b)
     const double gG = ndp_.gamma_G, gQ = ndp_.gamma_Q;
     if (req_.design.combination.value_or("6.10") == "6.10") {
       basis.uls.push_back({label_6_10_, gG, gQ, gG});
@@ -183,8 +195,8 @@ class Checker final : public SlabChecker {
              c_min, "mm", "EN 1992-1-1 4.4.1.2 (4.2)");
       st.add("c_min + Δc_dev", "c_min + Δc_dev", num(c_min) + " + " + num(ndp_.delta_c_dev_mm), c_req,
              "mm", variant_ndp("EN 1992-1-1 4.4.1.3(1)P", "delta_c_dev_mm"));
-      st.add("c_nom", cover_given ? "given" : "c_min + Δc_dev rounded up to 5 mm", num(c_nom), c_nom,
-             "mm", "EN 1992-1-1 4.4.1.1");
+      st.add("c_nom", cover_given ? "given" : "c_min + Δc_dev rounded up to 5 mm",
+             cover_given ? "" : num(c_req) + " rounded up", c_nom, "mm", "EN 1992-1-1 4.4.1.1");
       return st.take();
     };
     out.cover_mm = c_nom;
@@ -208,6 +220,10 @@ class Checker final : public SlabChecker {
     const double M_lim = K_lim * m_.fck * b * d * d;
     const double M_Rd = std::min(moment_resistance(As_prov, m_.fyd, m_.fcd, m_.eta, b, d), M_lim);
 
+    // K's substitution, in bending and again in ductility.
+    auto K_substituted = [&] {
+      return num(g.M_Ed * 1e-6) + " × 10⁶ / (" + num(b) + " × " + num(d) + "² × " + num(m_.fck) + ")";
+    };
     run_check("bending", [&] {
       checks.add("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, M_Rd * 1e-6, "kNm", [&] {
         // A computed cover is no check of its own: its derivation leads the
@@ -221,15 +237,13 @@ class Checker final : public SlabChecker {
                m_.fcd, "MPa", variant_ndp("EN 1992-1-1 3.1.6(1), 2.4.2.4", "alpha_cc, gamma_c"));
         st.add("fyd", "fyk / γs", num(m_.fyk) + " / " + num(ndp_.gamma_s), m_.fyd, "MPa",
                variant_ndp("EN 1992-1-1 3.2.7(2), 2.4.2.4", "gamma_s"));
-        st.add("K", "M_Ed / (b d² fck)",
-               num(g.M_Ed * 1e-6) + "e6 / (" + num(b) + " × " + num(d) + "² × " + num(m_.fck) + ")", K,
-               "-", "EN 1992-1-1 6.1");
+        st.add("K", "M_Ed / (b d² fck)", K_substituted(), K, "-", "EN 1992-1-1 6.1");
         st.add("z", "d [0.5 + √(0.25 − K/(2η αcc/γc))] ≤ 0.95 d",
                num(d) + " [0.5 + √(0.25 − " + num(std::min(K, K_lim)) + "/(2 × " + num(m_.eta) + " × " +
                    num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + "))]",
                z, "mm", "EN 1992-1-1 6.1, 3.1.7(3)");
         st.add("As,req", "M_Ed / (fyd z)",
-               num(g.M_Ed * 1e-6) + "e6 / (" + num(m_.fyd) + " × " + num(z) + ")", out.As_req_mm2, "mm2",
+               num(g.M_Ed * 1e-6) + " × 10⁶ / (" + num(m_.fyd) + " × " + num(z) + ")", out.As_req_mm2, "mm2",
                "EN 1992-1-1 6.1");
         st.add("As,prov", "π φ²/4 × b/s", "π × " + num(phi) + "²/4 × " + num(b) + "/" + num(s), As_prov,
                "mm2", "");
@@ -250,7 +264,7 @@ class Checker final : public SlabChecker {
                num(m_.eta) + " × " + num(ndp_.alpha_cc) + "/" + num(ndp_.gamma_c) + " × " + num(m_.lambda) +
                    " × " + num(xi) + " × (1 − " + num(m_.lambda) + " × " + num(xi) + "/2)",
                K_lim, "-", variant_ndp("EN 1992-1-1 5.5(4), 6.1, 3.1.6(1)", "alpha_cc, gamma_c"));
-        st.add("K", "M_Ed / (b d² fck)", num(K), K, "-", "EN 1992-1-1 6.1");
+        st.add("K", "M_Ed / (b d² fck)", K_substituted(), K, "-", "EN 1992-1-1 6.1");
         return st.take();
       });
     });
@@ -288,7 +302,7 @@ class Checker final : public SlabChecker {
       checks.add("min_steel", g.where, "EN 1992-1-1 9.2.1.1(1), 9.3.1.1(1)", out.As_min_mm2, As_prov,
                  "mm2", [&] {
                    Steps st;
-                   st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", num(m_.fck),
+                   st.add("fctm", "0.30 fck^(2/3) (≤ C50/60), 2.12 ln(1 + fcm/10) above", "fck = " + num(m_.fck),
                           m_.fctm, "MPa", "EN 1992-1-1 Table 3.1");
                    st.add("As,min", "max(0.26 fctm/fyk, 0.0013) b d",
                           "max(0.26 × " + num(m_.fctm) + "/" + num(m_.fyk) + ", 0.0013) × " + num(b) +
@@ -432,6 +446,25 @@ class Checker final : public SlabChecker {
             max_distribution_bar_spacing_max_moment(req_.slab.thickness_mm)};
   }
 
+  std::vector<InputDefault> defaults_used() const override {
+    std::string bars;
+    for (const auto& bar : *bars_) bars += (bars.empty() ? "" : ", ") + bar.designation;
+    return {
+        {"design.combination", req_.design.combination.value_or("6.10"), "EN 1990 (6.10), plug-in default"},
+        {"concrete.density_kN_m3", num(req_.concrete.density_kN_m3.value_or(default_density_kN_m3)) + " kN/m³",
+         "EN 1991-1-1 Table A.1, normal-weight reinforced concrete"},
+        {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm) + " mm", "armature default"},
+        {"reinforcement.yield_strength_MPa", num(m_.fyk) + " MPa", "grade B500, plug-in default"},
+        {"reinforcement.bars", bars, "plug-in default set"},
+        {"reinforcement.ductility_class", to_string(req_.reinforcement.ductility_class), "armature default"},
+        {"loads.imposed_category", req_.loads.imposed_category, "armature default (EN 1990 Table A1.1)"},
+        {"durability.exposure", exposure_, "plug-in default (EN 1992-1-1 Table 4.1, dry inside buildings)"},
+        {"durability.design_life_years", num(req_.durability.design_life_years) + " years", "armature default"},
+        {"durability.cover_mm", "c_nom from the exposure and each bar (see the bending steps)",
+         "EN 1992-1-1 4.4.1"},
+    };
+  }
+
   std::vector<std::string> warnings() const override {
     if (ndp_.durability_note.empty()) return {};
     return {ndp_.durability_note};
@@ -565,7 +598,8 @@ class Checker final : public SlabChecker {
       st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");
       st.add("ρ", "As,req/(b d)", num(As_req) + "/(" + num(req_.slab.strip_width_mm) + " × " + num(d) + ")", rho,
              "-", "EN 1992-1-1 7.4.2(2)");
-      st.add("K", "Table 7.4N structural system", num(K), K, "-", "EN 1992-1-1 7.4.2 Table 7.4N");
+      st.add("K", "Table 7.4N structural system", system_name(g.span_kind), K, "-",
+             "EN 1992-1-1 7.4.2 Table 7.4N");
       st.add("l/d basic",
              rho <= rho0 ? "K[11 + 1.5√fck ρ0/ρ + 3.2√fck (ρ0/ρ − 1)^1.5]"
                          : "K[11 + 1.5√fck ρ0/(ρ − ρ') + √fck √(ρ'/ρ0)/12], ρ' = 0",

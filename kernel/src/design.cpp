@@ -81,6 +81,8 @@ LoadTotals total_loads(const LoadBasis& basis, const Request& req) {
     }
   }
   t.sls_quasi_permanent = t.Gk + basis.psi2 * t.Qk;
+  t.density_kN_m3 = basis.density_kN_m3;
+  t.long_term_load_name = basis.long_term_load_name;
   return t;
 }
 
@@ -490,6 +492,7 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
   if (basis.uls.empty()) throw DesignError(rec.code.id + ": the code gave no ULS expression");
   rec.loads = total_loads(basis, req);
+  rec.defaults_used = call_code(rec.code, "defaults", [&] { return checker->defaults_used(); });
 
   const double b = req.slab.strip_width_mm;
   const StripModel model{req.slab.spans_mm, req.slab.ends[0], req.slab.ends[1]};

@@ -14,17 +14,18 @@
 #include <nlohmann/json.hpp>
 
 #include "armature/errors.hpp"
+#include "armature/format.hpp"
+#include "armature/json_io.hpp"
 
 namespace armature {
 
 namespace {
 using nlohmann::json;
 
-std::string n4(double v) {
-  if (!std::isfinite(v)) return v > 0 ? "inf" : "-";
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
+// Every number of the record: four significant figures, plain notation.
+std::string n4(double v, double scale = 1.0) {
+  if (std::isinf(v) && v < 0) return "-";
+  return plain_number(v, scale);
 }
 
 std::string esc(const std::string& s) {
@@ -59,6 +60,57 @@ void flatten(const json& j, const std::string& path, std::vector<std::pair<std::
 
 // A unit as printed after a number: nothing for a pure number.
 std::string unit_text(const std::string& unit) { return unit == "-" ? std::string() : " " + unit; }
+
+// The substituted values of a step, or nothing when they would only repeat
+// its result (a value read from a table or given: "K = … = 0.006637").
+std::string substitution(const Step& s) {
+  const std::string result = n4(s.result);
+  if (s.substituted == result || s.substituted == result + unit_text(s.unit)) return {};
+  return s.substituted;
+}
+
+// A step's expression, or nothing when it only repeats the symbol.
+std::string expression_of(const Step& s) { return s.expression == s.symbol ? std::string() : s.expression; }
+
+// One derivation line: symbol [= expression] [= substituted] = result unit.
+std::string step_line(const Step& s) {
+  const std::string ex = expression_of(s), sub = substitution(s);
+  return s.symbol + (ex.empty() ? "" : " = " + ex) + (sub.empty() ? "" : " = " + sub) + " = " +
+         n4(s.result) + unit_text(s.unit);
+}
+
+// "quasi-permanent" → "Quasi-permanent load": the code's name for the
+// load of its long-term checks.
+std::string long_term_load_label(const LoadTotals& loads) {
+  std::string name = loads.long_term_load_name.empty() ? "long-term" : loads.long_term_load_name;
+  if (name[0] >= 'a' && name[0] <= 'z') name[0] = static_cast<char>(name[0] - 'a' + 'A');
+  return name + " load";
+}
+
+// The defaults the design took for fields the request left out: the
+// kernel's own (variant, strip width, superimposed dead load,
+// redistribution), then the code's (defaults_used), each field once.
+std::vector<InputDefault> defaults_left_out(const DesignRecord& r, const json& request) {
+  std::vector<InputDefault> all{
+      {"variant", r.code.variant, "the code's default variant"},
+      {"slab.strip_width_mm", n4(r.strip_width_mm) + " mm", "armature default"},
+      {"loads.dead_kPa", n4((r.loads.Gk - r.loads.self_weight) * 1e3, r.loads.Gk * 1e3) + " kPa",
+       "armature default (no superimposed dead load)"},
+      {"design.redistribution_percent", n4(r.redistribution_percent) + " %", "armature default"}};
+  all.insert(all.end(), r.defaults_used.begin(), r.defaults_used.end());
+  std::vector<InputDefault> out;
+  for (auto& d : all) {
+    if (request_gives(request, d.field)) continue;
+    if (std::any_of(out.begin(), out.end(), [&](const InputDefault& o) { return o.field == d.field; })) continue;
+    out.push_back(std::move(d));
+  }
+  return out;
+}
+
+// A check's demand or capacity: noise beside the larger of the two is 0.
+std::string check_number(const Check& c, double v) {
+  return n4(v, std::max(std::abs(c.demand), std::abs(c.capacity)));
+}
 
 const char* outcome(const Check& c) { return c.pass ? "satisfied" : "NOT SATISFIED"; }
 
@@ -210,7 +262,7 @@ std::string section_svg(const DesignRecord& r, const RegionRecord& g) {
   o += "<text x=\"" + n4(xd + 66) + "\" y=\"" + n4((tension_face + bar_face) / 2 + 3) + "\">cover " +
        n4(c) + " mm</text>";
   o += "<text x=\"" + n4(ox) + "\" y=\"14\">b = " + n4(b) + " mm, h = " + n4(h) + " mm, bars " +
-       esc(g.bars.bar) + " at " + n4(g.bars.spacing_mm) + " mm (" +
+       esc(bar_arrangement(g.bars.bar, g.bars.spacing_mm)) + " (" +
        (g.face == Face::bottom ? "bottom" : "top") + "), to scale</text>";
   o += "<text x=\"4\" y=\"" + n4(oy + H / 2 + 3) + "\">h = " + n4(h) + "</text>";
   return o + "</svg>";
@@ -247,8 +299,13 @@ Title title_of(const DesignRecord& r, const json& request, const std::string& da
 
 std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord& r) {
   std::vector<std::pair<std::string, std::string>> rows;
-  rows.push_back({"Self-weight", n4(r.loads.self_weight * 1e3) + " kPa"});
-  rows.push_back({"Gk (self-weight + superimposed)", n4(r.loads.Gk * 1e3) + " kPa"});
+  const double h_m = r.thickness_mm / 1000;
+  rows.push_back({"Self-weight", "density × h = " + n4(r.loads.density_kN_m3) + " kN/m³ × " + n4(h_m) +
+                                     " m = " + n4(r.loads.self_weight * 1e3) + " kPa"});
+  rows.push_back({"Gk (self-weight + superimposed)",
+                  n4(r.loads.self_weight * 1e3) + " + " +
+                      n4((r.loads.Gk - r.loads.self_weight) * 1e3, r.loads.Gk * 1e3) + " = " +
+                      n4(r.loads.Gk * 1e3) + " kPa"});
   rows.push_back({"Qk (imposed)", n4(r.loads.Qk * 1e3) + " kPa"});
   for (const auto& e : r.uls_expressions)
     rows.push_back({"ULS " + e.label, "loaded span " + n4(e.gamma_G_loaded) + " Gk + " + n4(e.gamma_Q) +
@@ -256,7 +313,7 @@ std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord&
                                           " kPa; unloaded span " + n4(e.gamma_G_unloaded) + " Gk = " +
                                           n4(e.gamma_G_unloaded * r.loads.Gk * 1e3) + " kPa"});
   rows.push_back({"Governing ULS load", n4(r.loads.uls * 1e3) + " kPa [" + r.loads.combination + "]"});
-  rows.push_back({"Quasi-permanent load", n4(r.loads.sls_quasi_permanent * 1e3) + " kPa"});
+  rows.push_back({long_term_load_label(r.loads), n4(r.loads.sls_quasi_permanent * 1e3) + " kPa"});
   rows.push_back({"Load arrangements", std::to_string(r.load_arrangements) + " per ULS expression (code's pattern rules)"});
   if (r.redistribution_percent > 0)
     rows.push_back({"Moment redistribution", n4(r.redistribution_percent) + " % at interior supports"});
@@ -270,7 +327,8 @@ std::vector<std::pair<std::string, std::string>> region_rows(const RegionRecord&
           {"As,req", n4(g.As_req_mm2) + " mm2"},
           {"As,min", n4(g.As_min_mm2) + " mm2"},
           {"As,max", n4(g.As_max_mm2) + " mm2"},
-          {"Bars", g.bars.bar + " at " + n4(g.bars.spacing_mm) + " mm, As,prov = " + n4(g.bars.As_prov_mm2) + " mm2"}};
+          {"Bars", bar_arrangement(g.bars.bar, g.bars.spacing_mm) + ", As,prov = " + n4(g.bars.As_prov_mm2) +
+                       " mm2"}};
 }
 
 const char* css =
@@ -301,7 +359,15 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   std::vector<std::pair<std::string, std::string>> inputs;
   flatten(request, "", inputs);
   for (const auto& [k, v] : inputs) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
-  o += "</table>\n";
+  o += "</table>\n<h3>Defaults used (fields the request left out)</h3>\n";
+  const auto defaults = defaults_left_out(r, request);
+  if (defaults.empty()) o += "<p>None.</p>\n";
+  else {
+    o += "<table>\n<tr><th>field</th><th>value used</th><th>from</th></tr>\n";
+    for (const auto& d : defaults)
+      o += "<tr><td>" + esc(d.field) + "</td><td>" + esc(d.value) + "</td><td>" + esc(d.basis) + "</td></tr>\n";
+    o += "</table>\n";
+  }
 
   o += "<h2>2 Actions and combinations</h2>\n<table>\n";
   for (const auto& [k, v] : action_rows(r)) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
@@ -323,18 +389,22 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
     for (const Check* c : part.checks) {
       o += "<div class=\"check\">\n<h4>" + esc(c->id) + " at " + esc(c->where) + ": " + esc(c->clause) + "</h4>\n";
       o += "<table class=\"steps\">\n";
-      for (const auto& s : c->steps)
-        o += "<tr><td>" + esc(s.symbol) + "</td><td>= " + esc(s.expression) + "</td><td>= " +
-             esc(s.substituted) + "</td><td class=\"num\">= " + esc(n4(s.result) + unit_text(s.unit)) +
-             "</td><td class=\"clause\">" + esc(s.clause) + "</td></tr>\n";
-      o += "</table>\n<p class=\"verdict\">demand " + esc(n4(c->demand) + unit_text(c->unit)) +
-           " against capacity " + esc(n4(c->capacity) + unit_text(c->unit)) + ": utilisation " +
+      for (const auto& s : c->steps) {
+        const std::string ex = expression_of(s), sub = substitution(s);
+        o += "<tr><td>" + esc(s.symbol) + "</td><td>" + (ex.empty() ? "" : "= " + esc(ex)) + "</td><td>" +
+             (sub.empty() ? "" : "= " + esc(sub)) + "</td><td class=\"num\">= " +
+             esc(n4(s.result) + unit_text(s.unit)) + "</td><td class=\"clause\">" + esc(s.clause) +
+             "</td></tr>\n";
+      }
+      o += "</table>\n<p class=\"verdict\">demand " + esc(check_number(*c, c->demand) + unit_text(c->unit)) +
+           " against capacity " + esc(check_number(*c, c->capacity) + unit_text(c->unit)) + ": utilisation " +
            esc(n4(c->utilisation)) + ", <span" + (c->pass ? "" : " class=\"no\"") + ">" + outcome(*c) +
            "</span></p>\n</div>\n";
     }
   }
-  o += "<h3>Distribution bars</h3>\n<p>" + esc(r.distribution.bars.bar) + " at " +
-       n4(r.distribution.bars.spacing_mm) + " mm: As,prov " + n4(r.distribution.bars.As_prov_mm2) +
+  o += "<h3>Distribution bars</h3>\n<p>" +
+       esc(bar_arrangement(r.distribution.bars.bar, r.distribution.bars.spacing_mm)) + ": As,prov " +
+       n4(r.distribution.bars.As_prov_mm2) +
        " mm2 against As,req " + n4(r.distribution.As_req_mm2) + " mm2.</p>\n";
 
   o += "<h2>5 Summary of checks</h2>\n<table>\n<tr><th>check</th><th>where</th><th>clause</th>"
@@ -342,7 +412,8 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
        "utilisation</th><th>outcome</th></tr>\n";
   for (const Check* c : r.all_checks())
     o += "<tr><td>" + esc(c->id) + "</td><td>" + esc(c->where) + "</td><td>" + esc(c->clause) +
-         "</td><td class=\"num\">" + esc(n4(c->demand)) + "</td><td class=\"num\">" + esc(n4(c->capacity)) +
+         "</td><td class=\"num\">" + esc(check_number(*c, c->demand)) + "</td><td class=\"num\">" +
+         esc(check_number(*c, c->capacity)) +
          "</td><td>" + esc(c->unit) + "</td><td class=\"num\">" + esc(n4(c->utilisation)) + "</td><td" +
          (c->pass ? "" : " class=\"no\"") + ">" + (c->pass ? "ok" : "fails") + "</td></tr>\n";
   o += "</table>\n";
@@ -365,14 +436,30 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
   std::vector<std::pair<std::string, std::string>> inputs;
   flatten(request, "", inputs);
   for (const auto& [k, v] : inputs) o += "| " + md(k) + " | " + md(v) + " |\n";
+  o += "\n### Defaults used (fields the request left out)\n\n";
+  const auto defaults = defaults_left_out(r, request);
+  if (defaults.empty()) o += "None.\n";
+  else {
+    o += "| field | value used | from |\n|---|---|---|\n";
+    for (const auto& d : defaults) o += "| " + md(d.field) + " | " + md(d.value) + " | " + md(d.basis) + " |\n";
+  }
   o += "\n## 2 Actions and combinations\n\n| item | value |\n|---|---|\n";
   for (const auto& [k, v] : action_rows(r)) o += "| " + md(k) + " | " + md(v) + " |\n";
   o += "\n## 3 Analysis\n\nEnvelopes of the strip (kNm, kN), sampled along each span:\n\n"
        "| x m | M max | M min | V max | V min |\n|---:|---:|---:|---:|---:|\n";
+  // Noise beside the envelope's largest value prints as 0.
+  double M_scale = 0, V_scale = 0;
+  for (const auto& span : r.diagrams)
+    for (const auto& p : span) {
+      M_scale = std::max({M_scale, std::abs(p.M_max), std::abs(p.M_min)});
+      V_scale = std::max({V_scale, std::abs(p.V_max), std::abs(p.V_min)});
+    }
+  M_scale *= 1e-6;
+  V_scale *= 1e-3;
   for (const auto& span : r.diagrams)
     for (const auto& p : span)
-      o += "| " + n4(p.x_mm / 1000) + " | " + n4(p.M_max * 1e-6) + " | " + n4(p.M_min * 1e-6) + " | " +
-           n4(p.V_max * 1e-3) + " | " + n4(p.V_min * 1e-3) + " |\n";
+      o += "| " + n4(p.x_mm / 1000) + " | " + n4(p.M_max * 1e-6, M_scale) + " | " + n4(p.M_min * 1e-6, M_scale) +
+           " | " + n4(p.V_max * 1e-3, V_scale) + " | " + n4(p.V_min * 1e-3, V_scale) + " |\n";
   o += "\n## 4 Design of regions, supports and spans\n";
   for (const auto& part : parts_of(r)) {
     o += "\n### " + part.title + "\n\n";
@@ -385,20 +472,20 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
     for (const Check* c : part.checks) {
       o += "\n**" + c->id + " at " + c->where + "** (" + c->clause + ")\n\n";
       for (const auto& s : c->steps)
-        o += "- " + s.symbol + " = " + s.expression + " = " + s.substituted + " = " + n4(s.result) +
-             unit_text(s.unit) + (s.clause.empty() ? "" : " (" + s.clause + ")") + "\n";
-      o += "- demand " + n4(c->demand) + unit_text(c->unit) + " against capacity " + n4(c->capacity) +
+        o += "- " + step_line(s) + (s.clause.empty() ? "" : " (" + s.clause + ")") + "\n";
+      o += "- demand " + check_number(*c, c->demand) + unit_text(c->unit) + " against capacity " +
+           check_number(*c, c->capacity) +
            unit_text(c->unit) + ": utilisation " + n4(c->utilisation) + ", " + outcome(*c) + "\n";
     }
   }
-  o += "\n### Distribution bars\n\n" + r.distribution.bars.bar + " at " + n4(r.distribution.bars.spacing_mm) +
-       " mm: As,prov " + n4(r.distribution.bars.As_prov_mm2) + " mm2 against As,req " +
+  o += "\n### Distribution bars\n\n" + bar_arrangement(r.distribution.bars.bar, r.distribution.bars.spacing_mm) +
+       ": As,prov " + n4(r.distribution.bars.As_prov_mm2) + " mm2 against As,req " +
        n4(r.distribution.As_req_mm2) + " mm2.\n";
   o += "\n## 5 Summary of checks\n\n| check | where | clause | demand | capacity | unit | utilisation | outcome |\n"
        "|---|---|---|---:|---:|---|---:|---|\n";
   for (const Check* c : r.all_checks())
-    o += "| " + c->id + " | " + c->where + " | " + md(c->clause) + " | " + n4(c->demand) + " | " +
-         n4(c->capacity) + " | " + c->unit + " | " + n4(c->utilisation) + " | " + (c->pass ? "ok" : "fails") + " |\n";
+    o += "| " + c->id + " | " + c->where + " | " + md(c->clause) + " | " + check_number(*c, c->demand) +
+         " | " + check_number(*c, c->capacity) + " | " + c->unit + " | " + n4(c->utilisation) + " | " + (c->pass ? "ok" : "fails") + " |\n";
   o += "\n## 6 Warnings\n\n";
   if (r.warnings.empty()) o += "None.\n";
   for (const auto& w : r.warnings) o += "- " + w + "\n";

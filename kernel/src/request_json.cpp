@@ -356,6 +356,26 @@ void read_design(const json& j, InputProblems& problems, DesignOptions& d) {
 
 }  // namespace
 
+bool request_gives(const json& j, const std::string& field) {
+  const json* at = &j;
+  std::size_t start = 0;
+  while (true) {
+    const std::size_t dot = field.find('.', start);
+    const std::string key = field.substr(start, dot == std::string::npos ? std::string::npos : dot - start);
+    if (!at->is_object()) return false;
+    if (dot == std::string::npos) {
+      if (at->contains(key)) return true;
+      for (const auto& a : plain_aliases())
+        if (key == a.canonical && at->contains(a.plain)) return true;
+      return false;
+    }
+    const auto it = at->find(key);
+    if (it == at->end()) return false;
+    at = &*it;
+    start = dot + 1;
+  }
+}
+
 Request request_from_json(const json& j, InputProblems& problems) {
   Request req;
   if (!j.is_object()) {

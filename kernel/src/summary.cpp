@@ -1,9 +1,11 @@
 #include "armature/summary.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <string>
 
+#include "armature/format.hpp"
 #include "armature/units.hpp"
 
 namespace armature {
@@ -23,7 +25,7 @@ std::string pad(std::string s, std::size_t width) {
   return s;
 }
 std::string rpad(const std::string& s, std::size_t width) {
-  return s.size() < width ? std::string(width - s.size(), ' ') + s : s;
+  return std::string(s.size() < width ? width - s.size() : 1, ' ') + s;
 }
 std::string util(double u) { return std::isfinite(u) ? fmt("%.2f", u) : std::string("inf"); }
 
@@ -51,11 +53,9 @@ struct Show {
     if (unit == "mm2") return {v / (mm_per_in * mm_per_in), "in2"};
     return {v, unit};
   }
+  // As the calculation record writes them: "ø12 @ 175 mm", "#4 @ 300 mm".
   std::string bars(const BarChoice& b) const {
-    // EN bars are named by diameter ("ø12"); catalogue names stay as they are ("#4").
-    const bool by_diameter = !b.bar.empty() && b.bar[0] >= '0' && b.bar[0] <= '9';
-    return (by_diameter ? "ø" : "") + b.bar + " @ " +
-           fmt(us ? "%.1f" : "%.0f", length(b.spacing_mm));
+    return bar_arrangement(b.bar, length(b.spacing_mm), length_unit());
   }
 };
 }  // namespace
@@ -70,7 +70,9 @@ std::string format_summary(const DesignRecord& r) {
   o += "\n";
   o += "Loads      self-weight " + fmt("%.2f", u.load(r.loads.self_weight)) + " " + u.load_unit() +
        ", ULS " + fmt("%.2f", u.load(r.loads.uls)) + " " + u.load_unit() + " [" +
-       r.loads.combination + "], quasi-permanent " + fmt("%.2f", u.load(r.loads.sls_quasi_permanent)) +
+       r.loads.combination + "], " +
+       (r.loads.long_term_load_name.empty() ? std::string("long-term") : r.loads.long_term_load_name) + " " +
+       fmt("%.2f", u.load(r.loads.sls_quasi_permanent)) +
        " " + u.load_unit() + "\n";
   o += "Cover     ";
   for (const Face face : {Face::top, Face::bottom})
@@ -80,13 +82,13 @@ std::string format_summary(const DesignRecord& r) {
   o += "\n\n";
 
   o += pad("Region", 12) + pad("face", 8) + rpad(std::string("M_Ed ") + u.moment_unit(), 12) +
-       rpad("d " + L, 8) + rpad("As,req", 9) + rpad("As,min", 9) + "   " + pad("bars", 14) +
+       rpad("d " + L, 8) + rpad("As,req", 9) + rpad("As,min", 9) + "   " + pad("bars", 16) +
        rpad("As,prov " + A, 12) + "\n";
   for (const auto& g : r.regions)
     o += pad(g.where, 12) + pad(to_string(g.face), 8) + rpad(fmt("%.2f", u.moment(g.M_Ed)), 12) +
          rpad(fmt(u.length_format(), u.length(g.d_mm)), 8) +
          rpad(fmt(u.area_format(), u.area(g.As_req_mm2)), 9) +
-         rpad(fmt(u.area_format(), u.area(g.As_min_mm2)), 9) + "   " + pad(u.bars(g.bars), 14) +
+         rpad(fmt(u.area_format(), u.area(g.As_min_mm2)), 9) + "   " + pad(u.bars(g.bars), 16) +
          rpad(fmt(u.area_format(), u.area(g.bars.As_prov_mm2)), 12) + "\n";
   for (const auto& s : r.supports)
     o += pad(s.where, 12) + "V_Ed " + fmt("%.1f", u.force(s.V_Ed)) + " " + u.force_unit() +
@@ -103,8 +105,9 @@ std::string format_summary(const DesignRecord& r) {
   for (const Check* c : r.all_checks()) {
     const auto [demand, unit] = u.check_value(c->demand, c->unit);
     const double capacity = u.check_value(c->capacity, c->unit).first;
-    o += pad(c->id, 12) + pad(c->where, 11) + rpad(fmt("%.3g", demand), 10) +
-         rpad(fmt("%.3g", capacity), 10) + "  " + pad(unit, 7) + rpad(util(c->utilisation), 6) +
+    const double scale = std::max(std::abs(demand), std::abs(capacity));  // noise beside it is 0
+    o += pad(c->id, 12) + pad(c->where, 11) + rpad(plain_number(demand, scale), 10) +
+         rpad(plain_number(capacity, scale), 10) + "  " + pad(unit, 7) + rpad(util(c->utilisation), 6) +
          "  " + pad(c->pass ? "ok" : "FAIL", 5) + c->clause + "\n";
   }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " +

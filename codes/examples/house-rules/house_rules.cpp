@@ -74,11 +74,11 @@ class Checker final : public SlabChecker {
       if (c.id == "deflection") c = scaled_deflection(std::move(c));
     out.checks.push_back(run_check("spacing", [&] {
       return make_check("spacing", g.where, "house rule HR-2", s, max_spacing, "mm",
-                        {{"s_max", "house limit", "200", max_spacing, "mm", "house rule HR-2"}});
+                        {{"s_max", "house limit", "", max_spacing, "mm", "house rule HR-2"}});
     }));
     out.checks.push_back(run_check("cover", [&] {
       return make_check("cover", g.where, "house rule HR-4", min_cover, out.cover_mm, "mm",
-                        {{"c_nom,min", "house minimum", "30", min_cover, "mm", "house rule HR-4"}});
+                        {{"c_nom,min", "house minimum", "", min_cover, "mm", "house rule HR-4"}});
     }));
     out.verdict = verdict_of(out);
     return out;
@@ -89,7 +89,7 @@ class Checker final : public SlabChecker {
     out.push_back(run_check("acoustic_thickness", [&] {
       return make_check("acoustic_thickness", span, "house rule HR-3", min_thickness,
                         req_.slab.thickness_mm, "mm",
-                        {{"h_min", "house minimum for acoustic separation", "175", min_thickness, "mm",
+                        {{"h_min", "house minimum for acoustic separation", "", min_thickness, "mm",
                           "house rule HR-3"}});
     }));
     return out;
@@ -102,6 +102,15 @@ class Checker final : public SlabChecker {
   }
 
   std::vector<std::string> warnings() const override { return inner_->warnings(); }
+
+  // EN's defaults, with HR-4's floor on a cover the request leaves out.
+  std::vector<InputDefault> defaults_used() const override {
+    auto out = inner_->defaults_used();
+    for (auto& d : out)
+      if (d.field == "durability.cover_mm")
+        d = {d.field, "EN's c_nom, at least " + step_number(min_cover) + " mm", "house rule HR-4"};
+    return out;
+  }
 
  private:
   const Request& req_;        // kept alive by the caller of Code::begin

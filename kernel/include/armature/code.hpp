@@ -38,6 +38,10 @@ struct LoadBasis {
   double density_kN_m3 = 0.0;             // for self-weight
   std::vector<UlsExpression> uls;          // envelope over all of them
   double psi2 = 0.0;                       // quasi-permanent factor on Qk
+  // What the code calls the load of its long-term checks (Gk + psi2 Qk),
+  // as the summary and the record name it: "quasi-permanent" (EN 1990),
+  // "sustained" (ACI 318). Empty: the kernel says "long-term".
+  std::string long_term_load_name;
 };
 
 // Combined loads of one request, per unit area (N/mm²).
@@ -48,6 +52,8 @@ struct LoadTotals {
   double uls = 0.0;             // governing ULS load, all spans loaded
   std::string combination;      // label of the governing expression
   double sls_quasi_permanent = 0.0;
+  double density_kN_m3 = 0.0;       // of the self-weight, from LoadBasis
+  std::string long_term_load_name;  // from LoadBasis
 };
 
 enum class Face { bottom, top };
@@ -129,6 +135,14 @@ struct DistributionNeed {
   double max_spacing_mm = 0.0;
 };
 
+// The value a design takes for a request field left out: "25 kN/m³" for
+// concrete.density_kN_m3, with where that value comes from.
+struct InputDefault {
+  std::string field;  // request path, as in InputProblems: "concrete.density_kN_m3"
+  std::string value;  // as the record prints it, with its unit: "25 kN/m³"
+  std::string basis;  // "EN 1991-1-1 Table A.1", "armature default"
+};
+
 class SlabChecker {
  public:
   virtual ~SlabChecker() = default;
@@ -158,6 +172,13 @@ class SlabChecker {
   virtual std::vector<Check> span_checks(const std::string& span_where) const = 0;
   virtual DistributionNeed distribution(double main_As_prov_mm2) const = 0;
   virtual std::vector<std::string> warnings() const = 0;
+  // For each field of the request that this code reads and that a request
+  // may leave out (the code's own defaults and the kernel's alike), the
+  // value this design takes for it: the default, when the request leaves
+  // it out. Listed whether or not the request gives the field (a code
+  // cannot tell a kernel default from a given value); the record shows
+  // those the request left out. A decorator forwards its inner code's list.
+  virtual std::vector<InputDefault> defaults_used() const { return {}; }
 };
 
 class DesignCode {

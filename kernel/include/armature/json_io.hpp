@@ -15,6 +15,10 @@ namespace armature {
 // added, never thrown.
 Request request_from_json(const nlohmann::json& j, InputProblems& problems);
 
+// True when the request gives `field` ("concrete.density_kN_m3"), under
+// that name or its plain-name alias ("concrete.density": "150 pcf").
+bool request_gives(const nlohmann::json& j, const std::string& field);
+
 // The result of contract.md. Steps are included only when asked for.
 nlohmann::json result_to_json(const DesignRecord& record, bool with_steps = false);
 // The same result as JSON text, written directly (keys in the schema's

@@ -46,7 +46,7 @@ std::ostream& operator<<(std::ostream& out, const Label& label);
 struct Step {
   std::string symbol;       // e.g. "K"
   std::string expression;   // e.g. "M_Ed / (b d² fck)"
-  std::string substituted;  // e.g. "15.2e6 / (1000 × 170² × 30)"
+  std::string substituted;  // e.g. "15.2 × 10⁶ / (1000 × 170² × 30)"; empty: nothing to substitute
   double result = 0.0;
   std::string unit;         // kernel or report unit of result, "-" if none
   std::string clause;       // e.g. "EN 1992-1-1 6.1"
