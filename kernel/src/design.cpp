@@ -492,7 +492,8 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
   if (basis.uls.empty()) throw DesignError(rec.code.id + ": the code gave no ULS expression");
   rec.loads = total_loads(basis, req);
-  rec.defaults_used = call_code(rec.code, "defaults", [&] { return checker->defaults_used(); });
+  if (detail == Detail::steps)  // only the calculation record lists them
+    rec.defaults_used = call_code(rec.code, "defaults", [&] { return checker->defaults_used(); });
 
   const double b = req.slab.strip_width_mm;
   const StripModel model{req.slab.spans_mm, req.slab.ends[0], req.slab.ends[1]};

@@ -89,7 +89,7 @@ struct DesignRecord {
   std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
   double redistribution_percent = 0.0;
   ProjectInfo project;
-  // The code's defaults_used(): the record lists those the request left out.
+  // The code's defaults_used() (at Detail::steps only): the record lists those the request left out.
   std::vector<InputDefault> defaults_used;
 
   // Every check of every region, support and span, in that order.
