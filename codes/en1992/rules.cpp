@@ -245,6 +245,8 @@ double capped_span_depth_ratio(double allowed, double K, std::optional<double> c
 double long_span_factor(double span_mm) { return span_mm > 7000.0 ? 7000.0 / span_mm : 1.0; }
 
 double steel_stress_factor(double fyk, double As_prov, double As_req, double cap) {
+  // No steel required (no moment): the steel is unstressed, the cap applies.
+  if (!(As_req > 0.0)) return cap;
   return std::min((500.0 / fyk) * (As_prov / As_req), cap);
 }
 

@@ -421,6 +421,9 @@ std::vector<std::vector<double>> load_cases(const LoadBasis& basis, const LoadTo
   return cases;
 }
 
+// x where positive, else +0 (never −0, whose reciprocal is −inf).
+double positive_part(double x) { return x > 0.0 ? x : 0.0; }
+
 // The regions of contract.md in order along the strip: a top region at each
 // support that carries hogging (and at pinned ends when the code asks for
 // partial-fixity steel), a bottom region in each span that is not a cantilever.
@@ -442,7 +445,7 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
       if (pinned_end) {
         if (fixity_fraction > 0.0) {
           const std::size_t e = j == 0 ? 0 : n - 1;
-          g.M_Ed = fixity_fraction * std::max(env.span_max_sagging[e], 0.0);
+          g.M_Ed = fixity_fraction * positive_part(env.span_max_sagging[e]);
           out.push_back(std::move(g));
         }
       } else {
@@ -466,7 +469,7 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
       if (env.span_max_sagging[j] <= 0.0)
         warnings.push_back(span_name(j) + ": no sagging moment under any arrangement; top bars "
                                           "must run through the span");
-      g.M_Ed = std::max(env.span_max_sagging[j], 0.0);
+      g.M_Ed = positive_part(env.span_max_sagging[j]);
       g.x_mm = m.node_position_mm(j) + env.span_x_max_sagging[j];
       g.span_where = span_name(j);
       g.span_mm = m.spans_mm[j];

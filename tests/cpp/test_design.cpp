@@ -493,3 +493,24 @@ TEST_CASE("A region that fails bending does not set its face's cover", "[design]
   // The span is the only bottom region: nothing to say there.
   for (const auto& w : r.warnings) CHECK(w.find("rest of the bottom face") == std::string::npos);
 }
+
+TEST_CASE("A short end span with no sagging moment gets a finite allowed l/d", "[design][deflection]") {
+  // Span 1 (1.61 m beside 6.1 m) hogs under every arrangement: M_Ed = 0,
+  // As,req = 0. 7.4.2(2): with no steel stress the 310/σs factor is its cap
+  // (1.5), so the allowed l/d is finite and positive (it was −inf).
+  const json req = json::parse(R"({
+    "code": "EN1992-1-1", "variant": "UK",
+    "slab": {"spans_m": [1.61, 6.1, 3.9, 3.77], "ends": ["pinned", "pinned"], "thickness_mm": 225,
+             "strip_width_mm": 2400},
+    "concrete": {"class": "C30/37"},
+    "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}
+  })");
+  const auto r = armature::design(registry(), req);
+  const auto& span = find_region(r, "span 1");
+  CHECK(span.M_Ed < 1.0);  // N·mm: no sagging beyond rounding
+  CHECK_FALSE(std::signbit(span.M_Ed));
+  const auto& defl = find_check(r, "deflection", "span 1");
+  CHECK(std::isfinite(defl.capacity));
+  CHECK(defl.capacity > 0.0);
+  CHECK(defl.pass);
+}

@@ -197,6 +197,10 @@ TEST_CASE("Table 7.4N ratios reproduced from (7.16)", "[en1992][deflection]") {
   CHECK(long_span_factor(6000) == Approx(1.0));
   CHECK(steel_stress_factor(500, 600, 400, 1.5) == Approx(1.5));  // capped
   CHECK(steel_stress_factor(500, 440, 400, 1.5) == Approx(1.1));  // (7.17)
+  // No steel required (a span with no sagging moment): the bars are
+  // unstressed, so the cap applies, for +0 and −0 alike (never −inf).
+  CHECK(steel_stress_factor(500, 440, 0.0, 1.5) == 1.5);
+  CHECK(steel_stress_factor(500, 440, -0.0, 1.5) == 1.5);
 }
 
 TEST_CASE("A thicker slab never gets a lower basic l/d", "[en1992][deflection][property]") {
