@@ -184,3 +184,194 @@ TEST_CASE("Random strips agree with the three-moment equation", "[analysis][prop
     ++checked;
   }
 }
+
+// ---- Every load shape: partial uniform and concentrated loads ----------------
+// Beam-table closed forms, values from memory (standard beam tables for
+// simple, fixed-ended, propped and two-span continuous beams); statics where
+// marked. Our own strip: 4.3 m span, P = 17.5 kN (a wall across the strip,
+// N for the strip's width), q = 9.4 N/mm.
+
+using armature::SpanLoading;
+using armature::concentrated_load;
+using armature::partial_uniform_load;
+
+namespace {
+constexpr double Ls = 4300.0, P = 17500.0, q = 9.4;
+constexpr double a = 1650.0, b = Ls - a;
+}  // namespace
+
+TEST_CASE("Simply supported point load: M = P a b / L under the load, reactions P b/L and P a/L", "[analysis][shapes]") {
+  // Beam tables, simple beam with a concentrated load at any point (from memory).
+  StripModel m{{Ls}, EndSupport::pinned, EndSupport::pinned};
+  const auto r = armature::analyse_loads(m, {SpanLoading{0.0, {concentrated_load(P, a)}}});
+  double x = 0;
+  CHECK(r.spans[0].max_moment(&x) == Approx(P * a * b / Ls));
+  CHECK(x == Approx(a));
+  CHECK(r.reactions[0] == Approx(P * b / Ls));
+  CHECK(r.reactions[1] == Approx(P * a / Ls));
+  CHECK(r.spans[0].M_left == Approx(0.0).margin(1e-9 * P * Ls));
+  CHECK(r.spans[0].M_right() == Approx(0.0).margin(1e-9 * P * Ls));
+  // The shear jumps by P under the load: P b/L to its left, −P a/L to its right.
+  CHECK(r.spans[0].shear_left_of(a) == Approx(P * b / Ls));
+  CHECK(r.spans[0].shear_at(a) == Approx(-P * a / Ls));
+  // The diagrams carry the point under the load twice, once each side.
+  const auto d = armature::envelope_diagrams(m, {r});
+  std::vector<armature::DiagramPoint> under;
+  for (const auto& p : d[0])
+    if (p.x_mm == a) under.push_back(p);
+  REQUIRE(under.size() == 2);
+  CHECK(under[0].M_max == Approx(P * a * b / Ls));
+  CHECK(under[0].V_max == Approx(P * b / Ls));
+  CHECK(under[1].V_min == Approx(-P * a / Ls));
+}
+
+TEST_CASE("Fixed-end moments of a point load: P a b²/L² and P a² b/L²", "[analysis][shapes]") {
+  // Beam tables, beam fixed at both ends, concentrated load at any point
+  // (from memory): reactions P b²(3a + b)/L³ and P a²(a + 3b)/L³; moment
+  // under the load 2 P a² b²/L³.
+  const auto f = armature::fixed_end_concentrated(Ls, P, a);
+  CHECK(f.M_left == Approx(-P * a * b * b / (Ls * Ls)));
+  CHECK(f.M_right == Approx(-P * a * a * b / (Ls * Ls)));
+  CHECK(f.R_left == Approx(P * b * b * (3 * a + b) / (Ls * Ls * Ls)));
+  CHECK(f.R_right == Approx(P * a * a * (a + 3 * b) / (Ls * Ls * Ls)));
+  StripModel m{{Ls}, EndSupport::fixed, EndSupport::fixed};
+  const auto r = armature::analyse_loads(m, {SpanLoading{0.0, {concentrated_load(P, a)}}});
+  CHECK(r.spans[0].M_left == Approx(-P * a * b * b / (Ls * Ls)));
+  CHECK(r.spans[0].M_right() == Approx(-P * a * a * b / (Ls * Ls)));
+  CHECK(r.reactions[0] == Approx(P * b * b * (3 * a + b) / (Ls * Ls * Ls)));
+  CHECK(r.spans[0].max_moment() == Approx(2 * P * a * a * b * b / (Ls * Ls * Ls)));
+}
+
+namespace {
+// Fixed-end moments (magnitudes) of a uniform load q over the first c of a
+// span L, beam tables (from memory):
+//   at the loaded end  q c² (6L² − 8cL + 3c²)/(12 L²),
+//   at the far end     q c³ (4L − 3c)/(12 L²).
+double fem_near(double l, double u, double c) { return u * c * c * (6 * l * l - 8 * c * l + 3 * c * c) / (12 * l * l); }
+double fem_far(double l, double u, double c) { return u * c * c * c * (4 * l - 3 * c) / (12 * l * l); }
+}  // namespace
+
+TEST_CASE("Fixed-end moments of a partial uniform load", "[analysis][shapes]") {
+  // Over the first 1.2 m: the table's forms directly.
+  const double c = 1200.0;
+  auto f = armature::fixed_end_partial_uniform(Ls, q, 0.0, c);
+  CHECK(f.M_left == Approx(-fem_near(Ls, q, c)));
+  CHECK(f.M_right == Approx(-fem_far(Ls, q, c)));
+  CHECK(f.R_left + f.R_right == Approx(q * c));
+  // Over the whole span the table gives wL²/12 at both ends.
+  f = armature::fixed_end_partial_uniform(Ls, q, 0.0, Ls);
+  CHECK(f.M_left == Approx(-q * Ls * Ls / 12));
+  CHECK(f.M_right == Approx(-q * Ls * Ls / 12));
+  // From 0.9 m to 3.1 m: the load over [0, 3.1] less the load over [0, 0.9]
+  // (superposition of the table's forms), and the mirror image from the
+  // right end.
+  const double s = 900.0, t = 3100.0;
+  f = armature::fixed_end_partial_uniform(Ls, q, s, t);
+  CHECK(f.M_left == Approx(-(fem_near(Ls, q, t) - fem_near(Ls, q, s))));
+  CHECK(f.M_right == Approx(-(fem_far(Ls, q, t) - fem_far(Ls, q, s))));
+  const auto mirror = armature::fixed_end_partial_uniform(Ls, q, Ls - t, Ls - s);
+  CHECK(mirror.M_left == Approx(f.M_right));
+  CHECK(mirror.R_left == Approx(f.R_right));
+  // The strip's analysis of a fixed-ended span takes the same moments.
+  StripModel m{{Ls}, EndSupport::fixed, EndSupport::fixed};
+  const auto r = armature::analyse_loads(m, {SpanLoading{0.0, {partial_uniform_load(q, s, t)}}});
+  CHECK(r.spans[0].M_left == Approx(f.M_left));
+  CHECK(r.spans[0].M_right() == Approx(f.M_right));
+}
+
+TEST_CASE("Simply supported partial uniform load: peak R1 (a + R1/2q) at a + R1/q", "[analysis][shapes]") {
+  // Beam tables, simple beam with a uniform load partially distributed
+  // (from memory): R1 = q c (2 e + c)/(2L), e = distance from the load's end
+  // to the right support; M max = R1 (s + R1/(2q)) at x = s + R1/q.
+  const double s = 700.0, c = 2100.0, e = Ls - s - c;
+  StripModel m{{Ls}, EndSupport::pinned, EndSupport::pinned};
+  const auto r = armature::analyse_loads(m, {SpanLoading{0.0, {partial_uniform_load(q, s, s + c)}}});
+  const double R1 = q * c * (2 * e + c) / (2 * Ls);
+  CHECK(r.reactions[0] == Approx(R1));
+  double x = 0;
+  CHECK(r.spans[0].max_moment(&x) == Approx(R1 * (s + R1 / (2 * q))));
+  CHECK(x == Approx(s + R1 / q));
+}
+
+TEST_CASE("Two equal spans, central point load on each: support 3PL/16", "[analysis][shapes]") {
+  // Beam tables, continuous beam of two equal spans, concentrated load at
+  // the centre of each (from memory): support −3PL/16, reactions 5P/16,
+  // 22P/16, 5P/16, moment under each load 5PL/32.
+  StripModel m{{Ls, Ls}, EndSupport::pinned, EndSupport::pinned};
+  const SpanLoading centre{0.0, {concentrated_load(P, Ls / 2)}};
+  const auto r = armature::analyse_loads(m, {centre, centre});
+  CHECK(r.spans[0].M_right() == Approx(-3 * P * Ls / 16));
+  CHECK(r.spans[1].M_left == Approx(-3 * P * Ls / 16));
+  CHECK(r.reactions[0] == Approx(5 * P / 16));
+  CHECK(r.reactions[1] == Approx(22 * P / 16));
+  CHECK(r.reactions[2] == Approx(5 * P / 16));
+  double x = 0;
+  CHECK(r.spans[1].max_moment(&x) == Approx(5 * P * Ls / 32));
+  CHECK(x == Approx(Ls / 2));
+  // Redistribution keeps the loads: support 0.85 · 3PL/16, and under the
+  // load PL/4 + M_support/2 (statics of the span).
+  const auto nodes = armature::redistributable_nodes(m);
+  const auto rd = armature::redistribute(m, r, nodes, 0.85);
+  CHECK(rd.spans[0].M_right() == Approx(-0.85 * 3 * P * Ls / 16));
+  CHECK(rd.spans[0].max_moment() == Approx(P * Ls / 4 - 0.85 * 3 * P * Ls / 16 / 2));
+  CHECK(rd.reactions[0] + rd.reactions[1] + rd.reactions[2] == Approx(2 * P));
+  // The envelope over this case and one with the second span unloaded
+  // (first span: support −3PL/32 alone, beam tables as above by
+  // superposition of one loaded span: 3PL/32; span peak P L/4 − 3PL/64).
+  const auto one = armature::analyse_loads(m, {centre, SpanLoading{}});
+  CHECK(one.spans[0].M_right() == Approx(-3 * P * Ls / 32));
+  const auto env = armature::envelope_of(m, {r, one});
+  CHECK(env.span_max_sagging[0] == Approx(P * Ls / 4 - 3 * P * Ls / 64));
+  CHECK(env.span_x_max_sagging[0] == Approx(Ls / 2));
+  CHECK(env.node_max_hogging[1] == Approx(3 * P * Ls / 16));
+  CHECK(env.node_max_shear[1] == Approx(11 * P / 16));
+}
+
+TEST_CASE("Propped cantilever with a point load", "[analysis][shapes]") {
+  // Beam tables, beam fixed at one end and supported at the other,
+  // concentrated load at any point (from memory): prop reaction
+  // P a² (3L − a)/(2L³), fixed-end moment −P a b (L + b)/(2L²), moment under
+  // the load R_prop · b.
+  StripModel m{{Ls}, EndSupport::fixed, EndSupport::pinned};
+  const auto r = armature::analyse_loads(m, {SpanLoading{0.0, {concentrated_load(P, a)}}});
+  const double R_prop = P * a * a * (3 * Ls - a) / (2 * Ls * Ls * Ls);
+  CHECK(r.reactions[1] == Approx(R_prop));
+  CHECK(r.reactions[0] == Approx(P - R_prop));
+  CHECK(r.spans[0].M_left == Approx(-P * a * b * (Ls + b) / (2 * Ls * Ls)));
+  double x = 0;
+  CHECK(r.spans[0].max_moment(&x) == Approx(R_prop * b));
+  CHECK(x == Approx(a));
+}
+
+TEST_CASE("Loads at a span's end act on the node", "[analysis][shapes]") {
+  // A parapet at a cantilever's tip: root moment −P Lc, root reaction P
+  // (statics). The same load on an interior support only adds to its
+  // reaction.
+  const double Lc = 1350.0;
+  StripModel c{{Lc}, EndSupport::fixed, EndSupport::free};
+  auto r = armature::analyse_loads(c, {SpanLoading{0.0, {concentrated_load(P, Lc)}}});
+  CHECK(r.spans[0].M_left == Approx(-P * Lc));
+  CHECK(r.spans[0].V_right() == Approx(P));
+  CHECK(r.reactions[0] == Approx(P));
+  StripModel back{{Lc, Ls}, EndSupport::free, EndSupport::pinned};
+  r = armature::analyse_loads(back, {SpanLoading{0.0, {concentrated_load(P, 0.0)}}, SpanLoading{}});
+  CHECK(r.spans[1].M_left == Approx(-P * Lc));
+  CHECK(r.reactions[1] + r.reactions[2] == Approx(P));
+  CHECK(r.reactions[2] == Approx(-P * Lc / Ls));  // the back span's far end lifts
+  StripModel two{{Ls, Ls}, EndSupport::pinned, EndSupport::pinned};
+  r = armature::analyse_loads(two, {SpanLoading{0.0, {concentrated_load(P, Ls)}}, SpanLoading{}});
+  CHECK(r.reactions[1] == Approx(P));
+  CHECK(r.spans[0].max_moment() == Approx(0.0).margin(1e-9 * P * Ls));
+  CHECK(r.spans[0].V_right() == Approx(0.0).margin(1e-9 * P));
+}
+
+TEST_CASE("Loads outside their span are refused", "[analysis][shapes]") {
+  StripModel m{{Ls}, EndSupport::pinned, EndSupport::pinned};
+  CHECK_THROWS_AS(armature::analyse_loads(m, {SpanLoading{0.0, {concentrated_load(P, Ls + 1)}}}),
+                  std::invalid_argument);
+  CHECK_THROWS_AS(armature::analyse_loads(m, {SpanLoading{0.0, {partial_uniform_load(q, -1, 900)}}}),
+                  std::invalid_argument);
+  CHECK_THROWS_AS(armature::analyse_loads(m, {SpanLoading{0.0, {partial_uniform_load(q, 900, 800)}}}),
+                  std::invalid_argument);
+  CHECK_THROWS_AS(armature::analyse_loads(m, {SpanLoading{NAN, {}}}), std::invalid_argument);
+}
