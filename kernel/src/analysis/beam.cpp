@@ -209,6 +209,15 @@ bool at_span_end(const SpanLoad& l, double L) {
   return l.shape == SpanLoad::Shape::concentrated && (l.a_mm <= 0.0 || l.a_mm >= L);
 }
 
+// Reactions: the loads on supported nodes go straight into them; a node
+// without a support has none.
+void add_node_loads(const StripModel& m, CaseResult& r) {
+  for (std::size_t j = 0; j < r.reactions.size(); ++j) {
+    if (!m.has_support(j)) r.reactions[j] = 0.0;
+    else if (!r.node_loads.empty()) r.reactions[j] += r.node_loads[j];
+  }
+}
+
 // A span from its end moments by statics: V_left is the simple-span left
 // reaction of the loads inside the span plus (M_right − M_left)/L.
 SpanForces span_by_statics(double L, double w, std::vector<SpanLoad> inside, double M_left, double M_right) {
@@ -373,8 +382,7 @@ std::vector<CaseResult> solve_cases(const StripModel& m, std::size_t n_cases, Lo
       r.reactions[e] += s.V_left;
       r.reactions[e + 1] -= s.V_right();
     }
-    for (std::size_t j = 0; j < n_nodes; ++j)
-      r.reactions[j] = !m.has_support(j) ? 0.0 : r.reactions[j] + (r.node_loads.empty() ? 0.0 : r.node_loads[j]);
+    add_node_loads(m, r);
   }
   return results;
 }
@@ -451,8 +459,7 @@ CaseResult redistribute(const StripModel& m, const CaseResult& elastic,
     r.reactions[e + 1] -= s.V_right();
     r.spans.push_back(std::move(s));
   }
-  for (std::size_t j = 0; j <= n; ++j)
-    r.reactions[j] = !m.has_support(j) ? 0.0 : r.reactions[j] + (r.node_loads.empty() ? 0.0 : r.node_loads[j]);
+  add_node_loads(m, r);
   return r;
 }
 
