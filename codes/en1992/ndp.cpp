@@ -32,6 +32,8 @@ const std::map<std::string, NumberSpec>& number_specs() {
       {"k2_factor", {&Ndp::k2_factor, 0.8, 1.5}},
       {"k3", {&Ndp::k3, 0.3, 0.7}},
       {"k4_factor", {&Ndp::k4_factor, 0.8, 1.5}},
+      {"k5", {&Ndp::k5, 0.5, 1.0}},
+      {"k6", {&Ndp::k6, 0.5, 1.0}},
       {"w_max_X0_XC1_mm", {&Ndp::w_max_X0_XC1_mm, 0.2, 0.4}},
       {"w_max_other_mm", {&Ndp::w_max_other_mm, 0.2, 0.4}},
       {"steel_stress_factor_cap", {&Ndp::steel_stress_factor_cap, 1.0, 2.0}},

@@ -27,6 +27,8 @@ struct Ndp {
   double k2_factor = 0.0;        // k2 = k2_factor (0.6 + 0.0014/εcu2)
   double k3 = 0.0;
   double k4_factor = 0.0;
+  double k5 = 0.0;               // 5.5(4): δ ≥ k5, ductility classes B and C
+  double k6 = 0.0;               // 5.5(4): δ ≥ k6, ductility class A
   // 5.5(4): the largest fyk for which the variant states k1…k4; none
   // (null in the file) when they hold for every grade.
   std::optional<double> redistribution_max_fyk_MPa;

@@ -716,13 +716,14 @@ class Code final : public DesignCode {
   void add_redistribution_problems(const Request& req, InputProblems& problems) const {
     const double p = req.design.redistribution_percent;
     const DuctilityClass ductility = req.reinforcement.ductility_class;
-    const double delta_min = minimum_redistribution_ratio(ductility);
+    const double delta_min = minimum_redistribution_ratio(ductility, ndp_.k5, ndp_.k6);
     const double max_percent = (1.0 - delta_min) * 100.0;
     if (p > max_percent + 1e-9)
       problems.add("design.redistribution_percent",
                    "must be at most " + num(max_percent) + " % with class " + to_string(ductility) +
                        " reinforcement (EN 1992-1-1 5.5(4): δ ≥ " + num(delta_min) + " for class " +
-                       to_string(ductility) + "; δ ≥ 0.7 for class B and C, 0.8 for class A), got " + num(p));
+                       to_string(ductility) + "; variant " + ndp_.variant + ": k5 = " + num(ndp_.k5) +
+                       " for class B and C, k6 = " + num(ndp_.k6) + " for class A), got " + num(p));
     const double fyk = req.reinforcement.yield_strength_MPa.value_or(default_fyk);
     if (const auto& fyk_max = ndp_.redistribution_max_fyk_MPa; fyk_max && fyk > *fyk_max + 1e-9)
       problems.add("design.redistribution_percent",

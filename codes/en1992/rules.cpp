@@ -75,8 +75,8 @@ std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacen
 }
 
 // ---- Bending ---------------------------------------------------------------
-double minimum_redistribution_ratio(DuctilityClass ductility) {
-  return ductility == DuctilityClass::A ? 0.8 : 0.7;
+double minimum_redistribution_ratio(DuctilityClass ductility, double k5, double k6) {
+  return ductility == DuctilityClass::A ? k6 : k5;
 }
 
 bool adjacent_span_ratio_allows_redistribution(double span_a, double span_b) {

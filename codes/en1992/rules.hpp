@@ -41,9 +41,9 @@ std::optional<std::size_t> imposed_load_category_index(const std::string& catego
 std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacent_pairs);
 // 9.3.1.2(2): top steel at simple supports for 25 % of the span moment.
 constexpr double partial_fixity_fraction = 0.25;
-// 5.5(4): δ ≥ k5 = 0.7 for ductility classes B and C, k6 = 0.8 for class A
-// (recommended values; the UK NA keeps them: value from memory).
-double minimum_redistribution_ratio(DuctilityClass ductility);
+// 5.5(4): δ ≥ k5 for ductility classes B and C, k6 for class A (NDPs;
+// recommended 0.7 and 0.8, which the UK NA keeps: value from memory).
+double minimum_redistribution_ratio(DuctilityClass ductility, double k5, double k6);
 // 5.5(4) b): adjacent spans in the ratio 0.5 to 2 (ends included).
 bool adjacent_span_ratio_allows_redistribution(double span_a, double span_b);
 

@@ -62,9 +62,21 @@ TEST_CASE("Redistribution conditions of 5.5(4)", "[en1992][redistribution]") {
   // EN 1992-1-1 5.5(4), text and note as published (e.g. the clause page
   // of usingeurocodes.com, "Eurocode 2 part 1-1 5.5(4)"): δ ≥ k5 = 0.7 for
   // class B and C, δ ≥ k6 = 0.8 for class A (recommended values).
-  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::A) == Approx(0.8));
-  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::B) == Approx(0.7));
-  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::C) == Approx(0.7));
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::A, 0.7, 0.8) == 0.8);
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::B, 0.7, 0.8) == 0.7);
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::C, 0.7, 0.8) == 0.7);
+  // A stricter annex's values are taken as given.
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::B, 0.75, 0.85) == 0.75);
+  CHECK(minimum_redistribution_ratio(armature::DuctilityClass::A, 0.75, 0.85) == 0.85);
+  // Both are NDPs: each shipped variant states them (the recommended values).
+  for (const char* variant : {"recommended", "UK"}) {
+    std::ifstream in(std::string(ARMATURE_CODE_DIR) + "/en1992/" + variant + ".json");
+    REQUIRE(in);
+    const std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+    const auto ndp = parse_ndp(text, variant);
+    CHECK(ndp.k5 == 0.7);
+    CHECK(ndp.k6 == 0.8);
+  }
   // Same clause, b): adjacent spans in the ratio 0.5 to 2, both ends allowed.
   CHECK_FALSE(adjacent_span_ratio_allows_redistribution(2000, 5000));  // 0.4
   CHECK(adjacent_span_ratio_allows_redistribution(2600, 5200));        // 0.5 exactly
