@@ -124,21 +124,25 @@ void keep_largest(Trial& largest, const Trial& c) {
   if (!largest.found() || c.As_prov_mm2 > largest.As_prov_mm2) largest = c;
 }
 
-// The number of checks an arrangement fails, all of them counted (the
-// record's detail: the verdict alone stops at the first failure).
-std::size_t failures_of(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
-                        const BarOption& bar, double spacing_mm) {
+// How an arrangement fares with all its checks counted (the record's
+// detail: the verdict alone stops at the first failure).
+struct Failures {
+  bool strength_pass = true;  // bending and minimum steel
+  std::size_t count = 0;      // checks failed
+};
+Failures failures_of(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
+                     const BarOption& bar, double spacing_mm) {
   const RegionOutcome out = call_code(code, "the bar search", [&] {
     return checker.check_region(region, bar, spacing_mm, Detail::checks);
   });
-  std::size_t n = 0;
+  Failures f{out.verdict.strength_pass, 0};
   auto count = [&](const std::vector<Check>& checks) {
-    for (const auto& c : checks) n += c.pass ? 0 : 1;
+    for (const auto& c : checks) f.count += c.pass ? 0 : 1;
   };
   count(out.checks);
   count(out.span_checks);
   for (const auto& s : out.supports) count(s.checks);
-  return n;
+  return f;
 }
 
 // When no arrangement passes: among those that pass bending and minimum
@@ -150,7 +154,7 @@ std::size_t failures_of(const SlabChecker& checker, const CodeIdentity& code, co
 Trial fewest_failures(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
                       double width_mm, double s_max, const Trial& least) {
   Trial best = least;
-  std::size_t best_failures = failures_of(checker, code, region, *least.bar, least.spacing_mm);
+  std::size_t best_failures = failures_of(checker, code, region, *least.bar, least.spacing_mm).count;
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const int steps = last_spacing_step(s_max);
@@ -161,11 +165,9 @@ Trial fewest_failures(const SlabChecker& checker, const CodeIdentity& code, cons
       const double s = first_spacing_mm + spacing_step_mm * k;
       const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       if (c.As_prov_mm2 < floor || (c.bar == best.bar && s == best.spacing_mm)) continue;
-      const RegionVerdict v = call_code(code, "the bar search", [&] {
-        return checker.check_region(region, bar, s, Detail::verdict).verdict;
-      });
-      if (!v.strength_pass) continue;
-      const std::size_t f = failures_of(checker, code, region, bar, s);
+      const Failures got = failures_of(checker, code, region, bar, s);
+      if (!got.strength_pass) continue;
+      const std::size_t f = got.count;
       if (f < best_failures || (f == best_failures && preferred_values(c.As_prov_mm2, s, bar.diameter_mm,
                                                                        best.As_prov_mm2, best.spacing_mm,
                                                                        best.bar->diameter_mm))) {
