@@ -1,5 +1,6 @@
 // The ACI 318-19 (SI) code plug-in for one-way solid slabs.
 #include <algorithm>
+#include <array>
 #include <limits>
 #include <cmath>
 
@@ -45,7 +46,8 @@ class Checker final : public SlabChecker {
     fc_ = *req.concrete.cylinder_strength_MPa;
     fy_ = req.reinforcement.yield_strength_MPa.value_or(default_fy);
     beta1_ = stress_block_factor_beta1(fc_);
-    exposure_ = req.durability.exposure.value_or("interior");
+    for (Face face : {Face::bottom, Face::top})
+      exposure_[static_cast<std::size_t>(face)] = req.durability.face(face).exposure.value_or("interior");
     for (const auto& name : req.reinforcement.bars.value_or(default_bars)) {
       const Bar bar = *find_bar(name);
       bars_.push_back({name, bar.diameter_mm, bar.area_mm2});
@@ -87,8 +89,8 @@ class Checker final : public SlabChecker {
   // no area passes when even a = d cannot carry Mu.
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
     const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
-    const double d = h - req_.durability.cover_mm.value_or(
-                             specified_cover(exposure_, std::max(bar.diameter_mm, g.cover_bar_mm))) -
+    const double d = h - req_.durability.face(g.face).cover_mm.value_or(specified_cover(
+                             exposure_of(g.face), std::max(bar.diameter_mm, g.cover_bar_mm))) -
                      bar.diameter_mm / 2.0;
     if (d <= 0.0) return 0.0;  // bending fails unless M_Ed = 0: left to the check
     const auto As_bending = required_flexural_steel(g.M_Ed, fc_, fy_, b, d);
@@ -106,16 +108,18 @@ class Checker final : public SlabChecker {
     // One cover per face: a computed cover is that of the largest bar the
     // kernel has chosen on this face, when larger than this one; a given
     // cover is checked against this bar's own requirement.
-    const bool cover_given = req_.durability.cover_mm.has_value();
-    const double c_req = specified_cover(exposure_, cover_given ? db : std::max(db, g.cover_bar_mm));
-    const double cover = req_.durability.cover_mm.value_or(c_req);
+    const std::string& exposure = exposure_of(g.face);
+    const auto& given_cover = req_.durability.face(g.face).cover_mm;
+    const bool cover_given = given_cover.has_value();
+    const double c_req = specified_cover(exposure, cover_given ? db : std::max(db, g.cover_bar_mm));
+    const double cover = given_cover.value_or(c_req);
     auto cover_steps = [&] {
       StepRecorder st;
       const bool face_bar = !cover_given && g.cover_bar_mm > db;
       st.add("c",
-             "Table 20.5.1.3.1 (" + exposure_ + ", bar " +
+             "Table 20.5.1.3.1 (" + exposure + ", bar " +
                  (face_bar ? "of " + num(g.cover_bar_mm) + " mm, the largest on this face)" : bar.designation + ")"),
-             exposure_, c_req, "mm",
+             exposure + " (" + to_string(g.face) + " face)", c_req, "mm",
              "ACI 318-19 20.5.1.3.1");
       return st.take();
     };
@@ -137,9 +141,21 @@ class Checker final : public SlabChecker {
     const double phi = strength_reduction_factor(eps_t, eps_ty);
     const double phi_Mn = phi * nominal_moment(As, fy_, d, a);
 
+    const bool at_face = g.support_face.width_mm > 0.0;
     run_check("bending", [&] {
-      checks.add("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, phi_Mn * 1e-6, "kNm", [&] {
+      checks.add("bending", g.where, at_face ? "ACI 318-19 22.2, 21.2.2; Mu at the face 7.4.1.3" : "ACI 318-19 22.2, 21.2.2",
+                 g.M_Ed * 1e-6, phi_Mn * 1e-6, "kNm", [&] {
         StepRecorder st;
+        if (at_face) {
+          const SupportFace& f = g.support_face;
+          const std::size_t i = governing_face_case(f);
+          st.add("t", "breadth of the support (built integrally)", "", f.width_mm, "mm", "ACI 318-19 7.4.1.3");
+          if (i < f.cases.size())
+            st.add("Mu,c", "at the centreline, governing load case", "", f.cases[i].M_centre * 1e-6, "kNm",
+                   "ACI 318-19 7.4.1.3");
+          st.add("Mu", "at the face of support, t/2 from the centreline (larger side)", "", g.M_Ed * 1e-6, "kNm",
+                 "ACI 318-19 7.4.1.3");
+        }
         if (!cover_given)
           for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
         st.add("d", "h − cover − db/2", num(h) + " − " + num(cover) + " − " + num(db) + "/2", d, "mm",
@@ -275,22 +291,46 @@ class Checker final : public SlabChecker {
   std::vector<InputDefault> defaults_used() const override {
     std::string bars;
     for (const auto& bar : bars_) bars += (bars.empty() ? "" : ", ") + bar.designation;
-    return {
+    std::vector<InputDefault> out{
         {"concrete.density_kN_m3", num(req_.concrete.density_kN_m3.value_or(default_density_kN_m3)) + " kN/m³",
          "150 lb/ft³ normal-weight concrete, common practice"},
         {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm) + " mm", "armature default (25.2.1)"},
         {"reinforcement.yield_strength_MPa", num(fy_) + " MPa", "Grade 420 (Grade 60), plug-in default"},
         {"reinforcement.bars", bars, "plug-in default set"},
-        {"durability.exposure", exposure_, "plug-in default (not exposed to weather or ground)"},
+        {exposure_of(Face::bottom) == exposure_of(Face::top) ? "durability.exposure" : "durability.bottom.exposure",
+         exposure_of(Face::bottom), "plug-in default (not exposed to weather or ground)"},
         {"durability.cover_mm", "from the exposure and each bar (see the bending steps)",
          "ACI 318-19 20.5.1.3.1"},
     };
+    if (exposure_of(Face::bottom) != exposure_of(Face::top))
+      out.insert(out.begin() + 5, {"durability.top.exposure", exposure_of(Face::top),
+                                   "plug-in default (not exposed to weather or ground)"});
+    return out;
+  }
+
+  // 7.4.1.3 (from memory): for slabs built integrally with supports, Mu at
+  // the support may be taken at the face of support. A support given a
+  // width is taken as built integrally (a slab resting on a wall that is
+  // not should be given no width there).
+  double support_design_moment(const RegionDemand& g) const override {
+    const SupportFace& f = g.support_face;
+    const std::size_t i = governing_face_case(f);
+    return i < f.cases.size() ? f.cases[i].M_face : f.M_centre;
   }
 
  private:
+  // The load case with the largest moment at a face (cases.size() when none).
+  static std::size_t governing_face_case(const SupportFace& f) {
+    std::size_t best = f.cases.size();
+    for (std::size_t i = 0; i < f.cases.size(); ++i)
+      if (best == f.cases.size() || f.cases[i].M_face > f.cases[best].M_face) best = i;
+    return best;
+  }
+  const std::string& exposure_of(Face face) const { return exposure_[static_cast<std::size_t>(face)]; }
+
   const Request& req_;  // kept alive by the caller of Code::begin
   double fc_ = 0.0, fy_ = 0.0, beta1_ = 0.0;
-  std::string exposure_;
+  std::array<std::string, 2> exposure_;  // by Face
   std::vector<BarOption> bars_;
   std::vector<std::string> warnings_;
 };
@@ -323,9 +363,14 @@ class Code final : public DesignCode {
                        "unknown bar '" + bars[i] + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)");
       }
     }
-    if (req.durability.exposure && !is_exposure(*req.durability.exposure))
-      problems.add("durability.exposure", "unknown exposure '" + *req.durability.exposure +
-                                              "'; ACI 318 uses interior, weather or ground");
+    for (Face face : {Face::bottom, Face::top}) {
+      const FaceDurability& fd = req.durability.face(face);
+      if (face == Face::top && fd.exposure_field == req.durability.face(Face::bottom).exposure_field)
+        continue;  // the plain form, judged once
+      if (fd.exposure && !is_exposure(*fd.exposure))
+        problems.add(fd.exposure_field,
+                     "unknown exposure '" + *fd.exposure + "'; ACI 318 uses interior, weather or ground");
+    }
     if (smallest_bar < 1e9) add_cover_fit_problems(req, smallest_bar, problems);
     if (req.design.combination)
       problems.add("design.combination", "ACI 318-19 has no choice of combination rule (5.3.1 "

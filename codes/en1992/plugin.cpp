@@ -1,6 +1,7 @@
 // The EN 1992-1-1 code plug-in: variants are NDP data files; every check
 // is drawn from the clause functions of rules.hpp.
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <cstring>
 #include <filesystem>
@@ -99,16 +100,21 @@ class Checker final : public SlabChecker {
           stress_block_depth_factor(fck),
           ultimate_compressive_strain(fck)};
     psi_ = *psi_of_category(ndp, req.loads.imposed_category);
-    exposure_ = req.durability.exposure.value_or("XC1");
-    w_max_ = (exposure_ == "X0" || exposure_ == "XC1") ? ndp.w_max_X0_XC1_mm : ndp.w_max_other_mm;
     if (req.reinforcement.bars) {
       own_bars_ = bar_options_of(*req.reinforcement.bars);
       bars_ = &own_bars_;
     }
-    structural_class_ = structural_class(req.durability.design_life_years, exposure_, m_.fck);
-    c_min_dur_ = minimum_cover_durability(structural_class_, exposure_);
-    covers_.reserve(bars_->size());
-    for (const auto& bar : *bars_) covers_.push_back({bar.diameter_mm, cover_of(bar.diameter_mm)});
+    // Each face by its own exposure: Table 4.3N, Table 4.4N and Table 7.1N.
+    for (Face face : {Face::bottom, Face::top}) {
+      FaceData& f = faces_[static_cast<std::size_t>(face)];
+      f.exposure = req.durability.face(face).exposure.value_or("XC1");
+      f.cover_mm = req.durability.face(face).cover_mm;
+      f.w_max = (f.exposure == "X0" || f.exposure == "XC1") ? ndp.w_max_X0_XC1_mm : ndp.w_max_other_mm;
+      f.structural_class = structural_class(req.durability.design_life_years, f.exposure, m_.fck);
+      f.c_min_dur = minimum_cover_durability(f.structural_class, f.exposure);
+      f.covers.reserve(bars_->size());
+      for (const auto& bar : *bars_) f.covers.push_back({bar.diameter_mm, cover_of(bar.diameter_mm, f)});
+    }
   }
 
   LoadBasis load_basis() const override {
@@ -150,8 +156,8 @@ class Checker final : public SlabChecker {
   // As); no area passes when K > K'.
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
     const double b = req_.slab.strip_width_mm;
-    const double d = req_.slab.thickness_mm - cover_for(std::max(bar.diameter_mm, g.cover_bar_mm)).c_nom -
-                     bar.diameter_mm / 2.0;
+    const double d = req_.slab.thickness_mm -
+                     cover_for(std::max(bar.diameter_mm, g.cover_bar_mm), g.face).c_nom - bar.diameter_mm / 2.0;
     if (d <= 0.0) return 0.0;  // bending fails unless M_Ed = 0: left to the check
     const double K = moment_factor_K(g.M_Ed, b, d, m_.fck);
     if (K > bending_limit(g.redistribution_delta).K_lim) return std::numeric_limits<double>::infinity();
@@ -159,6 +165,8 @@ class Checker final : public SlabChecker {
     const double As_bending = required_tension_steel(g.M_Ed, m_.fyd, z) * (1.0 - 1e-9);  // a rounding margin
     return std::max(minimum_tension_steel(m_.fctm, m_.fyk, b, d), As_bending);
   }
+
+  double support_design_moment(const RegionDemand& g) const override { return support_moment(g).M_Ed; }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
                              Detail detail) const override {
@@ -169,22 +177,25 @@ class Checker final : public SlabChecker {
     const double phi = bar.diameter_mm, dg = req_.concrete.aggregate_mm;
     const double As_prov = bar.area_mm2 * b / s;
 
-    // Cover (4.4.1)
-    const int s_class = structural_class_;
-    const double c_dur = c_min_dur_;
+    // Cover (4.4.1), by this face's exposure
+    const FaceData& fd = face_data(g.face);
+    const std::string& exposure = fd.exposure;
+    const int s_class = fd.structural_class;
+    const double c_dur = fd.c_min_dur;
     // One nominal cover per face (computed cover): that of the largest bar
     // the kernel has chosen on this face, when larger than this one.
-    const bool cover_given = req_.durability.cover_mm.has_value();
+    const bool cover_given = fd.cover_mm.has_value();
     const double phi_cover = cover_given ? phi : std::max(phi, g.cover_bar_mm);
-    const CoverOf cover = cover_for(phi_cover);
+    const CoverOf cover = cover_for(phi_cover, g.face);
     const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = cover.c_nom;
     auto cover_steps = [&] {
       Steps st;
       st.add("S", "structural class (S4, life, slab geometry, strength)",
-             "S" + std::to_string(s_class) + " for " + exposure_ + ", " +
+             "S" + std::to_string(s_class) + " for " + exposure + " (" + to_string(g.face) + " face), " +
                  num(req_.durability.design_life_years) + " years, fck " + num(m_.fck),
              s_class, "-", "EN 1992-1-1 4.4.1.2 Table 4.3N");
-      st.add("c_min,dur", "Table 4.4N (S, exposure)", "S" + std::to_string(s_class) + ", " + exposure_,
+      st.add("c_min,dur", "Table 4.4N (S, exposure)",
+             "S" + std::to_string(s_class) + ", " + exposure + " (" + to_string(g.face) + " face)",
              c_dur, "mm", "EN 1992-1-1 4.4.1.2 Table 4.4N");
       st.add("c_min,b", "φ (+5 if dg > 32)",
              num(phi_cover) + (phi_cover > phi ? " mm bar (the largest on this face), dg " : " mm bar, dg ") +
@@ -224,11 +235,19 @@ class Checker final : public SlabChecker {
     auto K_substituted = [&] {
       return num(g.M_Ed * 1e-6) + " × 10⁶ / (" + num(b) + " × " + num(d) + "² × " + num(m_.fck) + ")";
     };
+    // A support with a width: M_Ed at its face (5.3.2.2), derived at the
+    // head of the bending steps.
+    const bool at_face = g.support_face.width_mm > 0.0;
+    const SupportMoment face_moment = at_face && detail != Detail::verdict ? support_moment(g) : SupportMoment{};
+    const char* bending_clause = !at_face                  ? "EN 1992-1-1 6.1"
+                                 : face_moment.reduced_by_4 ? "EN 1992-1-1 6.1; M_Ed 5.3.2.2(4)"
+                                                            : "EN 1992-1-1 6.1; M_Ed at the face 5.3.2.2(3)";
     run_check("bending", [&] {
-      checks.add("bending", g.where, "EN 1992-1-1 6.1", g.M_Ed * 1e-6, M_Rd * 1e-6, "kNm", [&] {
+      checks.add("bending", g.where, bending_clause, g.M_Ed * 1e-6, M_Rd * 1e-6, "kNm", [&] {
         // A computed cover is no check of its own: its derivation leads the
         // bending steps, where it sets d.
         Steps st;
+        if (at_face) support_moment_steps(st, g, face_moment);
         if (!cover_given)
           for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
         st.add("d", "h − c_nom − φ/2", num(h) + " − " + num(c_nom) + " − " + num(phi) + "/2", d, "mm",
@@ -449,7 +468,7 @@ class Checker final : public SlabChecker {
   std::vector<InputDefault> defaults_used() const override {
     std::string bars;
     for (const auto& bar : *bars_) bars += (bars.empty() ? "" : ", ") + bar.designation;
-    return {
+    std::vector<InputDefault> out{
         {"design.combination", req_.design.combination.value_or("6.10"), "EN 1990 (6.10), plug-in default"},
         {"concrete.density_kN_m3", num(req_.concrete.density_kN_m3.value_or(default_density_kN_m3)) + " kN/m³",
          "EN 1991-1-1 Table A.1, normal-weight reinforced concrete"},
@@ -458,11 +477,23 @@ class Checker final : public SlabChecker {
         {"reinforcement.bars", bars, "plug-in default set"},
         {"reinforcement.ductility_class", to_string(req_.reinforcement.ductility_class), "armature default"},
         {"loads.imposed_category", req_.loads.imposed_category, "armature default (EN 1990 Table A1.1)"},
-        {"durability.exposure", exposure_, "plug-in default (EN 1992-1-1 Table 4.1, dry inside buildings)"},
+        exposure_default(Face::bottom),
         {"durability.design_life_years", num(req_.durability.design_life_years) + " years", "armature default"},
         {"durability.cover_mm", "c_nom from the exposure and each bar (see the bending steps)",
          "EN 1992-1-1 4.4.1"},
     };
+    if (face_data(Face::bottom).exposure != face_data(Face::top).exposure)
+      out.insert(out.begin() + 8, exposure_default(Face::top));
+    return out;
+  }
+
+  // The exposure each face takes; one entry (durability.exposure) when both
+  // faces take the same.
+  InputDefault exposure_default(Face face) const {
+    const bool same = face_data(Face::bottom).exposure == face_data(Face::top).exposure;
+    const char* basis = "plug-in default (EN 1992-1-1 Table 4.1, dry inside buildings)";
+    if (same) return {"durability.exposure", face_data(Face::bottom).exposure, basis};
+    return {std::string("durability.") + to_string(face) + ".exposure", face_data(face).exposure, basis};
   }
 
   std::vector<std::string> warnings() const override {
@@ -476,12 +507,81 @@ class Checker final : public SlabChecker {
   struct CoverOf {
     double c_bond, c_min, c_req, c_nom;
   };
-  CoverOf cover_of(double phi) const {
+  // 5.3.2.2 at a support with a width t, in the load case that governs:
+  // (3) at a monolithic support, the moment at the face, not below 0.65 of
+  // the full fixed-end moment; (4) over a support giving no rotational
+  // restraint, the centreline moment less F_Ed,sup t/8. A fixed end is
+  // built in: (3). An interior support or a cantilever's root may be
+  // either (the request does not say which): the larger of the two
+  // moments, i.e. the smaller reduction.
+  struct SupportMoment {
+    double M_Ed = 0.0;
+    std::size_t governing = 0;  // index of the load case
+    double by_3 = 0.0, by_4 = 0.0;  // of the governing case
+    bool reduced_by_4 = false;
+  };
+  SupportMoment support_moment(const RegionDemand& g) const {
+    const SupportFace& f = g.support_face;
+    SupportMoment out;
+    out.M_Ed = -std::numeric_limits<double>::infinity();
+    for (std::size_t i = 0; i < f.cases.size(); ++i) {
+      const SupportMomentCase& c = f.cases[i];
+      const double by_3 = monolithic_support_design_moment(c.M_face, c.M_fixed_end);
+      const double by_4 = c.M_centre - support_moment_reduction(c.reaction, f.width_mm);
+      const bool use_4 = !f.built_in && by_4 > by_3;
+      const double M = use_4 ? by_4 : by_3;
+      if (M > out.M_Ed) out = {M, i, by_3, by_4, use_4};
+    }
+    if (f.cases.empty()) out.M_Ed = f.M_centre;
+    return out;
+  }
+  void support_moment_steps(Steps& st, const RegionDemand& g, const SupportMoment& m) const {
+    const SupportFace& f = g.support_face;
+    if (f.cases.empty()) return;
+    const SupportMomentCase& c = f.cases[m.governing];
+    const char* kind = f.built_in ? "fixed end, built in (monolithic)"
+                                  : "support monolithic or giving no rotational restraint: the smaller reduction";
+    st.add("t", "breadth of the support", kind, f.width_mm, "mm", "EN 1992-1-1 5.3.2.2(3), (4)");
+    st.add("M_Ed,c", "hogging at the centreline, governing load case", "", c.M_centre * 1e-6, "kNm",
+           "EN 1992-1-1 5.3.2.2");
+    st.add("M_Ed,face", "hogging at the face, t/2 from the centreline (larger side)", "", c.M_face * 1e-6, "kNm",
+           "EN 1992-1-1 5.3.2.2(3)");
+    st.add("M_fe", "full fixed-end moment of the adjacent span (cantilever: its root moment)", "",
+           c.M_fixed_end * 1e-6, "kNm", "EN 1992-1-1 5.3.2.2(3) Note");
+    st.add("M_Ed,(3)", "max(M_Ed,face, 0.65 M_fe)",
+           "max(" + num(c.M_face * 1e-6) + ", 0.65 × " + num(c.M_fixed_end * 1e-6) + ")", m.by_3 * 1e-6, "kNm",
+           "EN 1992-1-1 5.3.2.2(3)");
+    if (!f.built_in) {
+      st.add("ΔM_Ed", "F_Ed,sup t/8", num(c.reaction * 1e-3) + " kN × " + num(f.width_mm) + " mm / 8",
+             support_moment_reduction(c.reaction, f.width_mm) * 1e-6, "kNm", "EN 1992-1-1 5.3.2.2(4) (5.9)");
+      st.add("M_Ed,(4)", "M_Ed,c − ΔM_Ed",
+             num(c.M_centre * 1e-6) + " − " + num(support_moment_reduction(c.reaction, f.width_mm) * 1e-6),
+             m.by_4 * 1e-6, "kNm", "EN 1992-1-1 5.3.2.2(4)");
+      st.add("M_Ed", "max(M_Ed,(3), M_Ed,(4)), the smaller reduction",
+             "max(" + num(m.by_3 * 1e-6) + ", " + num(m.by_4 * 1e-6) + ")", g.M_Ed * 1e-6, "kNm",
+             m.reduced_by_4 ? "EN 1992-1-1 5.3.2.2(4)" : "EN 1992-1-1 5.3.2.2(3)");
+    } else {
+      st.add("M_Ed", "M_Ed,(3)", "", g.M_Ed * 1e-6, "kNm", "EN 1992-1-1 5.3.2.2(3)");
+    }
+  }
+
+  // What depends on a face's exposure and cover (durability.top, .bottom).
+  struct FaceData {
+    std::string exposure;
+    std::optional<double> cover_mm;  // given
+    int structural_class = 0;        // Table 4.3N
+    double c_min_dur = 0.0;          // Table 4.4N
+    double w_max = 0.0;              // Table 7.1N
+    std::vector<std::pair<double, CoverOf>> covers;  // per candidate bar diameter
+  };
+  const FaceData& face_data(Face face) const { return faces_[static_cast<std::size_t>(face)]; }
+
+  CoverOf cover_of(double phi, const FaceData& f) const {
     CoverOf c;
     c.c_bond = minimum_cover_bond(phi, req_.concrete.aggregate_mm);
-    c.c_min = minimum_cover(c.c_bond, c_min_dur_);
+    c.c_min = minimum_cover(c.c_bond, f.c_min_dur);
     c.c_req = c.c_min + ndp_.delta_c_dev_mm;
-    c.c_nom = req_.durability.cover_mm ? *req_.durability.cover_mm : round_up_to_5(c.c_req);
+    c.c_nom = f.cover_mm ? *f.cover_mm : round_up_to_5(c.c_req);
     return c;
   }
 
@@ -502,10 +602,11 @@ class Checker final : public SlabChecker {
   }
 
   // cover_of, worked out once per candidate bar of the request.
-  CoverOf cover_for(double phi) const {
-    for (const auto& [diameter, cover] : covers_)
+  CoverOf cover_for(double phi, Face face) const {
+    const FaceData& f = face_data(face);
+    for (const auto& [diameter, cover] : f.covers)
       if (diameter == phi) return cover;
-    return cover_of(phi);
+    return cover_of(phi, f);
   }
 
   // A clause whose value here was set by the variant's data file, and the
@@ -545,15 +646,17 @@ class Checker final : public SlabChecker {
     const double sigma = quasi_permanent_steel_stress(m_.fyd, g.quasi_permanent_to_uls, As_req,
                                                       As_prov, g.redistribution_delta);
     // A limit past the end of its table is zero: that route cannot pass.
-    const auto s_lim = max_bar_spacing_table_7_3N(sigma, w_max_);
-    const auto phi_star = max_bar_diameter_table_7_2N(sigma, w_max_);
+    const FaceData& fd = face_data(g.face);
+    const auto s_lim = max_bar_spacing_table_7_3N(sigma, fd.w_max);
+    const auto phi_star = max_bar_diameter_table_7_2N(sigma, fd.w_max);
     const double s_limit = s_lim.value_or(0.0);
     const double phi_limit = phi_star ? adjusted_max_bar_diameter(*phi_star, m_.fctm, h, d) : 0.0;
     auto steps = [&] {
       Steps st;
-      st.add("w_max", "Table 7.1N for the exposure class", exposure_, w_max_, "mm",
+      st.add("w_max", "Table 7.1N for the exposure class", fd.exposure + " (" + to_string(g.face) + " face)",
+             fd.w_max, "mm",
              variant_ndp("EN 1992-1-1 7.3.1(5) Table 7.1N",
-                         exposure_ == "X0" || exposure_ == "XC1" ? "w_max_X0_XC1_mm" : "w_max_other_mm"));
+                         fd.exposure == "X0" || fd.exposure == "XC1" ? "w_max_X0_XC1_mm" : "w_max_other_mm"));
       st.add("ψ2", "quasi-permanent factor, category " + req_.loads.imposed_category,
              "category " + req_.loads.imposed_category, psi_.psi2, "-",
              variant_ndp("EN 1990 Table A1.1", "psi_factors." + req_.loads.imposed_category + ".psi2"));
@@ -632,13 +735,9 @@ class Checker final : public SlabChecker {
   const Request& req_;   // kept alive by the caller of Code::begin
   Materials m_{};
   PsiFactors psi_{};
-  std::string exposure_;
-  int structural_class_ = 0;   // Table 4.3N, for this request
-  double c_min_dur_ = 0.0;     // Table 4.4N, for this request
-  double w_max_ = 0.0;
   std::vector<BarOption> own_bars_;  // when the request names its bars
   const std::vector<BarOption>* bars_ = &default_bar_options();
-  std::vector<std::pair<double, CoverOf>> covers_;  // per candidate bar diameter
+  std::array<FaceData, 2> faces_{};  // by Face
 };
 
 std::string format_range(double lo, double hi, const char* unit) {
@@ -689,10 +788,14 @@ class Code final : public DesignCode {
     if (!psi_of_category(ndp_, req.loads.imposed_category))
       problems.add("loads.imposed_category", "must be one of A to H (EN 1990 Table A1.1), got '" +
                                                  req.loads.imposed_category + "'");
-    if (req.durability.exposure && !is_exposure_class(*req.durability.exposure))
-      problems.add("durability.exposure",
-                   "unknown exposure class '" + *req.durability.exposure +
-                       "'; use X0, XC1-XC4, XD1-XD3 or XS1-XS3 (EN 1992-1-1 Table 4.1)");
+    for (Face face : {Face::bottom, Face::top}) {
+      const FaceDurability& fd = req.durability.face(face);
+      if (face == Face::top && fd.exposure_field == req.durability.face(Face::bottom).exposure_field)
+        continue;  // the plain form, judged once
+      if (fd.exposure && !is_exposure_class(*fd.exposure))
+        problems.add(fd.exposure_field, "unknown exposure class '" + *fd.exposure +
+                                            "'; use X0, XC1-XC4, XD1-XD3 or XS1-XS3 (EN 1992-1-1 Table 4.1)");
+    }
     if (smallest_bar < 1e9) add_cover_fit_problems(req, smallest_bar, problems);
     if (req.fire.resistance_min && !is_tabulated_fire_resistance(*req.fire.resistance_min))
       problems.add("fire.resistance_min",

@@ -291,6 +291,12 @@ double strength_for_reduction(const std::string& e) {
 }
 }  // namespace
 
+double monolithic_support_design_moment(double M_face, double M_fixed_end) {
+  return std::max(M_face, face_moment_fixed_end_fraction * M_fixed_end);
+}
+
+double support_moment_reduction(double F_sup, double t) { return F_sup * t / 8.0; }
+
 bool is_exposure_class(const std::string& exposure) { return exposure_column(exposure) >= 0; }
 
 int structural_class(double design_life_years, const std::string& exposure, double fck) {

@@ -109,6 +109,16 @@ double capped_span_depth_ratio(double allowed, double K, std::optional<double> c
 // 7.4.2(2), (7.17): 310/σs ≈ (500/fyk)(As,prov/As,req), capped.
 double steel_stress_factor(double fyk, double As_prov, double As_req, double cap);
 
+// ---- Support moments (EN 1992-1-1 5.3.2.2) ---------------------------------
+// 5.3.2.2(3) Note (value from memory): the moment at the face of a monolithic
+// support is at least 0.65 of the full fixed-end moment.
+constexpr double face_moment_fixed_end_fraction = 0.65;
+// 5.3.2.2(3): monolithic support, design moment at the face, not below
+// 0.65 M_fixed_end (hogging magnitudes).
+double monolithic_support_design_moment(double M_face, double M_fixed_end);
+// 5.3.2.2(4) (5.9): ΔM_Ed = F_Ed,sup t/8, support giving no rotational restraint.
+double support_moment_reduction(double F_sup, double t);
+
 // ---- Shear (EN 1992-1-1 6.2.2) --------------------------------------------
 double shear_depth_factor(double d);                    // k = 1 + √(200/d) ≤ 2
 // UK NA to 3.1.2(2)P (from memory): fck used for VRd,c and vmin, min(fck, cap); fck when nullopt.

@@ -1,5 +1,6 @@
 // Helpers the kernel offers to code plug-ins (code.hpp): verdicts of
 // checks, geometry every code refuses, building blocks of load arrangements.
+#include <algorithm>
 #include <cstdio>
 #include <string>
 
@@ -23,19 +24,27 @@ RegionVerdict verdict_of(const RegionOutcome& o) {
 
 void add_cover_fit_problems(const Request& req, double smallest_bar_mm, InputProblems& problems) {
   const double h = req.slab.thickness_mm;
-  const auto& cover = req.durability.cover_mm;
-  if (!cover || h <= 0) return;
+  if (h <= 0) return;
   auto num = [](double v) {
     char buf[32];
     std::snprintf(buf, sizeof buf, "%.4g", v);
     return std::string(buf);
   };
-  if (*cover >= h / 2)
-    problems.add("durability.cover_mm", "must be less than half the slab thickness (" + num(h / 2) +
-                                            " mm), got " + num(*cover));
-  else if (*cover + smallest_bar_mm >= h)
+  // Each face's given cover, once per field (the plain form sets both).
+  double largest_fitting = -1.0;
+  for (Face face : {Face::bottom, Face::top}) {
+    const FaceDurability& fd = req.durability.face(face);
+    if (!fd.cover_mm) continue;
+    if (face == Face::top && req.durability.face(Face::bottom).cover_field == fd.cover_field) continue;
+    if (*fd.cover_mm >= h / 2)
+      problems.add(fd.cover_field, "must be less than half the slab thickness (" + num(h / 2) + " mm), got " +
+                                       num(*fd.cover_mm));
+    else
+      largest_fitting = std::max(largest_fitting, *fd.cover_mm);
+  }
+  if (largest_fitting >= 0.0 && largest_fitting + smallest_bar_mm >= h)
     problems.add("slab.thickness_mm", "must exceed cover plus the smallest bar (" +
-                                          num(*cover + smallest_bar_mm) + " mm), got " + num(h));
+                                          num(largest_fitting + smallest_bar_mm) + " mm), got " + num(h));
 }
 
 std::vector<std::vector<bool>> alternate_span_arrangements(std::size_t n) {

@@ -284,20 +284,23 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
 // the face to a larger cover; it keeps its own, and a warning says so.
 std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker, const CodeIdentity& code,
                                                      std::vector<RegionDemand>& demands, double width_mm,
-                                                     bool cover_given, std::vector<std::string>& warnings) {
+                                                     const DurabilityInput& durability,
+                                                     std::vector<std::string>& warnings) {
   std::vector<SearchCandidate> picks;
   std::vector<std::vector<std::string>> region_warnings(demands.size());
   picks.reserve(demands.size());
   for (std::size_t i = 0; i < demands.size(); ++i)
     picks.push_back(search_bars(checker, code, demands[i], width_mm, region_warnings[i]));
   const std::size_t rounds =
-      cover_given ? 0
-                  : call_code(code, "bar options", [&]() -> const std::vector<BarOption>& {
+      durability.cover_given(Face::bottom) && durability.cover_given(Face::top)
+          ? 0
+          : call_code(code, "bar options", [&]() -> const std::vector<BarOption>& {
                       return checker.bar_options();
                     }).size() + 1;
   for (std::size_t round = 0; round < rounds; ++round) {
     bool searched_again = false;
     for (const Face face : {Face::bottom, Face::top}) {
+      if (durability.cover_given(face)) continue;  // a given cover does not follow the bars
       double largest = 0.0;
       for (std::size_t i = 0; i < demands.size(); ++i)
         if (demands[i].face == face && picks[i].strength_pass)
@@ -319,7 +322,7 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
     const bool shares_face = std::any_of(demands.begin(), demands.end(), [&](const RegionDemand& o) {
       return &o != &demands[i] && o.face == demands[i].face;
     });
-    if (!cover_given && shares_face && !picks[i].strength_pass &&
+    if (!durability.cover_given(demands[i].face) && shares_face && !picks[i].strength_pass &&
         picks[i].bar.diameter_mm > demands[i].cover_bar_mm)
       warnings.push_back(demands[i].where + ": its bars' cover is not applied to the rest of the " +
                          to_string(demands[i].face) + " face, since no arrangement there passes "
@@ -487,6 +490,73 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
   return out;
 }
 
+// Hogging moment magnitude of a span at x (mm from its left end).
+double hogging_at(const SpanForces& s, double x) { return -s.moment_at(x); }
+
+// The moments of each load case at support j of width t (t > 0): at the
+// centreline, at the faces t/2 either side (the larger), the adjacent
+// spans' fixed-end moments there, and the reaction.
+std::vector<SupportMomentCase> support_moment_cases(const StripModel& m, const std::vector<CaseResult>& cases,
+                                                    std::size_t j, double t) {
+  const std::size_t n = m.span_count();
+  std::vector<SupportMomentCase> out;
+  out.reserve(cases.size());
+  for (const auto& c : cases) {
+    SupportMomentCase k;
+    k.M_centre = -INFINITY;
+    k.M_face = -INFINITY;
+    k.M_fixed_end = 0.0;
+    if (j > 0) {  // the span to the left ends here
+      const SpanForces& s = c.spans[j - 1];
+      k.M_centre = std::max(k.M_centre, hogging_at(s, s.L));
+      k.M_face = std::max(k.M_face, hogging_at(s, s.L - t / 2.0));
+      const double fe = m.is_cantilever(j - 1) ? hogging_at(s, s.L)
+                                               : -fixed_end_actions(s.L, SpanLoading{s.w, s.loads}).M_right;
+      k.M_fixed_end = std::max(k.M_fixed_end, fe);
+    }
+    if (j < n) {  // the span to the right starts here
+      const SpanForces& s = c.spans[j];
+      k.M_centre = std::max(k.M_centre, hogging_at(s, 0.0));
+      k.M_face = std::max(k.M_face, hogging_at(s, t / 2.0));
+      const double fe = m.is_cantilever(j) ? hogging_at(s, 0.0)
+                                           : -fixed_end_actions(s.L, SpanLoading{s.w, s.loads}).M_left;
+      k.M_fixed_end = std::max(k.M_fixed_end, fe);
+    }
+    k.reaction = c.reactions[j];
+    out.push_back(k);
+  }
+  return out;
+}
+
+// Support regions of a strip given support widths: the code's design
+// moment from the moments of every load case at the support's faces
+// (supports of width 0 keep the centreline moment, as without widths).
+void apply_support_widths(const SlabChecker& checker, const CodeIdentity& code, const StripModel& m,
+                          const std::vector<CaseResult>& cases, const std::vector<double>& widths,
+                          std::vector<RegionDemand>& demands) {
+  const std::size_t n = m.span_count();
+  for (std::size_t j = 0; j <= n; ++j) {
+    const double t = widths[j];
+    const bool end = j == 0 || j == n;
+    if (t <= 0.0 || !m.has_support(j) || (end && !m.is_restrained(j))) continue;  // pinned ends: no hogging
+    const std::string where = support_name(j);
+    for (auto& g : demands) {
+      if (g.where != where || g.face != Face::top) continue;
+      SupportFace& f = g.support_face;
+      f.width_mm = t;
+      f.built_in = end;  // a restrained end of the strip is a fixed end
+      f.cantilever_root = (j > 0 && m.is_cantilever(j - 1)) || (j < n && m.is_cantilever(j));
+      f.M_centre = g.M_Ed;
+      f.cases = support_moment_cases(m, cases, j, t);
+      const double M = call_code(code, "support design moment", [&] { return checker.support_design_moment(g); },
+                                 where);
+      if (!std::isfinite(M))
+        throw DesignError(code.id + " (" + code.variant + "): the design moment at " + where + " is not finite");
+      g.M_Ed = positive_part(M);
+    }
+  }
+}
+
 DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Request& req, Detail detail) {
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
@@ -526,8 +596,10 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   const double fixity = call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
   auto demands = regions_of(model, env, fixity, delta, redistributed,
                             rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
+  if (!req.slab.support_widths_mm.empty())
+    apply_support_widths(*checker, rec.code, model, cases, req.slab.support_widths_mm, demands);
   const std::vector<SearchCandidate> picks = search_with_face_covers(
-      *checker, rec.code, demands, b, req.durability.cover_mm.has_value(), rec.warnings);
+      *checker, rec.code, demands, b, req.durability, rec.warnings);
 
   std::vector<std::string> span_names, support_names;
   for (std::size_t e = 0; e < n; ++e) span_names.push_back(span_name(e));

@@ -224,8 +224,64 @@ class ObjectReader {
 
 constexpr std::size_t max_spans = 20;
 
+constexpr double max_support_width_mm = 3000.0;
+
+// slab.support_widths_mm: one breadth per support, n + 1 for n spans, 0 at a
+// free end (there is no support there); each face (t/2 from the support's
+// centreline) must fall inside the span, before the face of the next
+// support. The list is judged against the spans and ends only when those
+// were read without a problem (`geometry_ok`).
+void read_support_widths(const json& widths, InputProblems& problems, bool geometry_ok, SlabInput& slab) {
+  const std::string name = "slab.support_widths_mm";
+  std::vector<double> t;
+  bool values_ok = true;
+  for (std::size_t i = 0; i < widths.size(); ++i) {
+    const std::string f = name + "[" + std::to_string(i) + "]";
+    const json& v = widths[i];
+    if (!v.is_number()) {
+      problems.add(f, "must be a number (mm), got " + describe(v));
+      values_ok = false;
+      continue;
+    }
+    const double x = v.get<double>();
+    if (!std::isfinite(x) || x < 0.0 || x > max_support_width_mm) {
+      problems.add(f, "must be between 0 and " + format_number(max_support_width_mm) + " mm, got " +
+                          (std::isfinite(x) ? format_number(x) : std::string("a value that is not finite")));
+      values_ok = false;
+      continue;
+    }
+    t.push_back(x);
+  }
+  if (!geometry_ok) return;
+  const std::size_t n = slab.spans_mm.size();
+  if (widths.size() != n + 1) {
+    problems.add(name, "must list one width per support, " + std::to_string(n + 1) + " for " +
+                           std::to_string(n) + (n == 1 ? " span" : " spans") + " (0 at a free end), got " +
+                           std::to_string(widths.size()));
+    return;
+  }
+  if (!values_ok) return;
+  for (std::size_t k = 0; k < 2; ++k) {
+    const std::size_t j = k == 0 ? 0 : n;
+    if (slab.ends[k] == EndSupport::free && t[j] != 0.0)
+      problems.add(name + "[" + std::to_string(j) + "]",
+                   "must be 0: slab.ends[" + std::to_string(k) + "] is free, so there is no support there, got " +
+                       format_number(t[j]));
+  }
+  for (std::size_t e = 0; e < n; ++e) {
+    const double faces = t[e] / 2.0 + t[e + 1] / 2.0;
+    if (faces >= slab.spans_mm[e])
+      problems.add(name + "[" + std::to_string(t[e] >= t[e + 1] ? e : e + 1) + "]",
+                   "the support faces of span " + std::to_string(e + 1) + " (half of " + format_number(t[e]) +
+                       " mm and half of " + format_number(t[e + 1]) + " mm from the supports' centrelines) "
+                       "must leave part of its " + format_number(slab.spans_mm[e]) + " mm clear");
+  }
+  slab.support_widths_mm = std::move(t);
+}
+
 void read_slab(const json& j, InputProblems& problems, SlabInput& slab) {
-  ObjectReader r(j, "slab", problems, {"spans_m", "ends", "thickness_mm", "strip_width_mm"});
+  ObjectReader r(j, "slab", problems, {"spans_m", "ends", "thickness_mm", "strip_width_mm", "support_widths_mm"});
+  const std::size_t problems_before = problems.items().size();
   const PlainAlias* alias = nullptr;
   bool plain_given = false;
   const json* plain_spans = r.plain_form("spans_m", alias, plain_given);
@@ -274,6 +330,8 @@ void read_slab(const json& j, InputProblems& problems, SlabInput& slab) {
     slab.thickness_mm = *h;
   if (auto b = r.in_range(r.number("strip_width_mm"), "strip_width_mm", 100, 10000, "mm"))
     slab.strip_width_mm = *b;
+  if (const json* widths = r.array("support_widths_mm"))
+    read_support_widths(*widths, problems, problems.items().size() == problems_before, slab);
 }
 
 void read_concrete(const json& j, InputProblems& problems, ConcreteInput& c) {
@@ -328,10 +386,43 @@ void read_loads(const json& j, InputProblems& problems, LoadsInput& l) {
   if (auto c = r.text("imposed_category")) l.imposed_category = *c;
 }
 
+// The plain form (cover_mm, exposure) applies to both faces; a face object
+// (top, bottom: cover_mm, exposure) sets that face. One key given both ways
+// for the same face is an error on the face's field.
 void read_durability(const json& j, InputProblems& problems, DurabilityInput& d) {
-  ObjectReader r(j, "durability", problems, {"cover_mm", "exposure", "design_life_years"});
-  d.cover_mm = r.in_range(r.number("cover_mm"), "cover_mm", 0, 200, "mm", true);
-  d.exposure = r.text("exposure");
+  ObjectReader r(j, "durability", problems, {"cover_mm", "exposure", "design_life_years", "top", "bottom"});
+  const auto cover = r.in_range(r.number("cover_mm"), "cover_mm", 0, 200, "mm", true);
+  const auto exposure = r.text("exposure");
+  const std::string cover_name = "durability.cover_mm";
+  const bool cover_plain = r.find("cover_mm") || r.find("cover");
+  const bool exposure_plain = r.find("exposure") != nullptr;
+  for (Face face : {Face::bottom, Face::top}) {
+    FaceDurability& fd = d.face(face);
+    fd.cover_mm = cover;
+    fd.exposure = exposure;
+    fd.cover_field = cover_name;
+    fd.exposure_field = "durability.exposure";
+    const std::string path = std::string("durability.") + to_string(face);
+    const json* f = r.object(to_string(face));
+    if (!f) continue;
+    ObjectReader fr(*f, path, problems, {"cover_mm", "exposure"});
+    const bool face_cover = fr.find("cover_mm") || fr.find("cover");
+    const std::string face_cover_name = path + (fr.find("cover") ? ".cover" : ".cover_mm");
+    if (face_cover && cover_plain)
+      problems.add(face_cover_name, "give either " + cover_name + " (both faces) or " + face_cover_name +
+                                        ", not both");
+    else if (face_cover) {
+      fd.cover_mm = fr.in_range(fr.number("cover_mm"), "cover_mm", 0, 200, "mm", true);
+      fd.cover_field = face_cover_name;
+    }
+    if (fr.find("exposure") && exposure_plain)
+      problems.add(path + ".exposure",
+                   "give either durability.exposure (both faces) or " + path + ".exposure, not both");
+    else if (fr.find("exposure")) {
+      fd.exposure = fr.text("exposure");
+      fd.exposure_field = path + ".exposure";
+    }
+  }
   if (auto life = r.in_range(r.number("design_life_years"), "design_life_years", 1, 200, "years"))
     d.design_life_years = *life;
 }

@@ -37,9 +37,10 @@ class Checker final : public SlabChecker {
   // EN's checkers may refer to their requests: the request with the house
   // cover is kept here, beside the checker made for it.
   Checker(const DesignCode& en, const Request& req) : req_(req), inner_(en.begin(req)) {
-    if (!req.durability.cover_mm) {
+    if (!req.durability.cover_given(Face::bottom) || !req.durability.cover_given(Face::top)) {
       with_min_cover_ = req;
-      with_min_cover_.durability.cover_mm = min_cover;
+      for (auto& face : with_min_cover_.durability.faces)
+        if (!face.cover_mm) face.cover_mm = min_cover;
       min_cover_ = en.begin(with_min_cover_);
     }
   }
@@ -60,6 +61,8 @@ class Checker final : public SlabChecker {
     const double own = inner_->minimum_area_mm2(g, bar);
     return min_cover_ ? std::min(own, min_cover_->minimum_area_mm2(g, bar)) : own;
   }
+
+  double support_design_moment(const RegionDemand& g) const override { return inner_->support_design_moment(g); }
 
   RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
                              Detail detail) const override {

@@ -56,15 +56,35 @@ struct LoadTotals {
   std::string long_term_load_name;  // from LoadBasis
 };
 
-enum class Face { bottom, top };
-const char* to_string(Face face);
-
 // How a span is supported, for span/depth rules.
 enum class SpanKind { simply_supported, end_span, interior_span, cantilever };
 
 struct SupportDemand {
   std::string where;   // "support 1"
   double V_Ed = 0.0;   // N, for the strip width, at the support centreline
+};
+
+// The moments of one load case at a support given a width
+// (slab.support_widths_mm), from which the code takes its design hogging
+// moment there. Hogging moments are magnitudes (negative where the case
+// sags there).
+struct SupportMomentCase {
+  double M_centre = 0.0;      // N·mm, at the support's centreline
+  double M_face = 0.0;        // N·mm, the larger at the two faces, t/2 either side
+  double M_fixed_end = 0.0;   // N·mm, the largest of the adjacent spans' moments
+                              // at this support were they built in at both ends
+                              // (a cantilever: its root moment)
+  double reaction = 0.0;      // N, the support's reaction (upward)
+};
+
+// A support region's width and the moments the code needs to decide its
+// design moment; width 0: no width given, M_Ed is at the centreline.
+struct SupportFace {
+  double width_mm = 0.0;
+  bool built_in = false;      // a fixed end: the strip is built into this support
+  bool cantilever_root = false;
+  double M_centre = 0.0;      // N·mm, envelope at the centreline (what M_Ed was)
+  std::vector<SupportMomentCase> cases{};  // one per load case
 };
 
 // Everything the code needs to check one design region.
@@ -85,6 +105,9 @@ struct RegionDemand {
   // bar size, it uses bars of at least this diameter (the largest the
   // kernel has chosen on this face; 0: each bar its own).
   double cover_bar_mm = 0.0;
+  // Support regions of a strip given support widths: M_Ed is the code's
+  // support_design_moment() of these numbers.
+  SupportFace support_face{};
 };
 
 // How much a code reports for one bar arrangement: the bar search needs
@@ -164,6 +187,12 @@ class SlabChecker {
   // arrangements, so it must never exceed the true threshold. 0 when the
   // code gives none.
   virtual double minimum_area_mm2(const RegionDemand&, const BarOption&) const { return 0.0; }
+  // The design hogging moment (N·mm, magnitude) of a support region whose
+  // support has a width (region.support_face.width_mm > 0), from the
+  // moments the kernel gives per load case; called once per such region,
+  // before the bar search, and the result becomes region.M_Ed. Default:
+  // the centreline moment (no reduction).
+  virtual double support_design_moment(const RegionDemand& region) const { return region.support_face.M_centre; }
   // Every check of one arrangement, at the detail asked for (the verdict
   // is filled at every detail).
   virtual RegionOutcome check_region(const RegionDemand& region, const BarOption& bar,

@@ -21,11 +21,19 @@ enum class DuctilityClass { A, B, C };
 
 const char* to_string(DuctilityClass ductility);
 
+// The two faces of the slab (bottom: soffit, top: upper surface).
+enum class Face { bottom, top };
+const char* to_string(Face face);
+
 struct SlabInput {
   std::vector<double> spans_mm;  // effective spans, left to right
   std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
   double thickness_mm = 0.0;
   double strip_width_mm = 1000.0;
+  // Breadth of each support along the strip, left to right (n + 1 for n
+  // spans; 0 at a free end or a knife edge). Empty when not given: then
+  // every moment is taken at the support centrelines.
+  std::vector<double> support_widths_mm{};
 };
 
 struct ConcreteInput {
@@ -47,10 +55,26 @@ struct LoadsInput {
   std::string imposed_category = "B";
 };
 
-struct DurabilityInput {
-  std::optional<double> cover_mm;
+// Durability of one face: the per-face form (durability.top, .bottom) where
+// given, else the plain form (durability.cover_mm, .exposure), which applies
+// to both faces.
+struct FaceDurability {
+  std::optional<double> cover_mm;       // nominal cover given for this face
   std::optional<std::string> exposure;  // code default when absent
+  // The request paths the values came from, for the codes' input errors:
+  // "durability.top.exposure", or the plain "durability.exposure".
+  std::string cover_field = "durability.cover_mm";
+  std::string exposure_field = "durability.exposure";
+};
+
+struct DurabilityInput {
+  std::array<FaceDurability, 2> faces{};  // indexed by Face (bottom, top)
   double design_life_years = 50.0;
+
+  const FaceDurability& face(Face f) const { return faces[static_cast<std::size_t>(f)]; }
+  FaceDurability& face(Face f) { return faces[static_cast<std::size_t>(f)]; }
+  bool cover_given(Face f) const { return face(f).cover_mm.has_value(); }
+  bool any_cover_given() const { return cover_given(Face::bottom) || cover_given(Face::top); }
 };
 
 struct FireInput {
