@@ -38,6 +38,22 @@ HOSTILE = [
     ("boolean as number", with_(["slab", "thickness_mm"], True), "slab.thickness_mm"),
     ("null field", with_(["loads", "imposed_kPa"], None), "loads.imposed_kPa"),
     ("object for text", with_(["code"], {"id": "EN1992-1-1"}), "code"),
+    ("face exposure besides the plain one", with_(["durability", "top"], {"exposure": "XC3"}),
+     "durability.top.exposure"),
+    ("unknown face exposure", with_(["durability"], {"bottom": {"exposure": "XC9"}}), "durability.bottom.exposure"),
+    ("face cover above half the depth", with_(["durability"], {"top": {"cover_mm": 150}}), "durability.top.cover_mm"),
+    ("face cover besides the plain one", with_(["durability", "bottom"], {"cover_mm": 30}),
+     "durability.bottom.cover_mm"),
+    ("face not an object", with_(["durability", "top"], "XC3"), "durability.top"),
+    ("unknown key of a face", with_(["durability", "top"], {"colour": "grey"}), "durability.top.colour"),
+    ("support widths too few", with_(["slab", "support_widths_mm"], [300]), "slab.support_widths_mm"),
+    ("negative support width", with_(["slab", "support_widths_mm"], [300, -1]), "slab.support_widths_mm[1]"),
+    ("support width as text", with_(["slab", "support_widths_mm"], ["300", 300]), "slab.support_widths_mm[0]"),
+    ("support faces overlap", with_(["slab"], {"spans_m": [2.0], "ends": ["pinned", "pinned"], "thickness_mm": 200,
+                                              "support_widths_mm": [2500, 1600]}), "slab.support_widths_mm[0]"),
+    ("free end with a width", with_(["slab"], {"spans_m": [1.5, 4.0], "ends": ["free", "pinned"],
+                                               "thickness_mm": 200, "support_widths_mm": [200, 300, 200]}),
+     "slab.support_widths_mm[0]"),
 ]
 
 
@@ -60,6 +76,12 @@ def test_cli_refuses(name, request_, field):
 def test_python_non_finite_numbers(value):
     with pytest.raises(armature.InputError, match=r"slab\.spans_m\[0\]: must be a finite number"):
         armature.design(with_(["slab", "spans_m"], [value]))
+
+
+@pytest.mark.parametrize("value", [math.nan, math.inf])
+def test_python_non_finite_support_width(value):
+    with pytest.raises(armature.InputError, match=r"slab\.support_widths_mm\[1\]: must be between 0 and 3000 mm"):
+        armature.design(with_(["slab", "support_widths_mm"], [300, value]))
 
 
 def test_python_unpaired_surrogate_text():
