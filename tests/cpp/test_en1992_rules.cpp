@@ -353,3 +353,13 @@ TEST_CASE("7.3.2 minimum crack-control steel", "[en1992][cracking]") {
                                     tension_zone_area_rectangular_bending(1000, 550), 500) ==
         Approx(635.25));
 }
+
+// EN 1992-1-1 5.3.2.2 evaluated by hand: (5.9) ΔM_Ed = F_Ed,sup t/8, and
+// the (3) note's lower bound of 0.65 of the full fixed-end moment (value
+// from memory).
+TEST_CASE("Support moment at the face 5.3.2.2", "[en1992][rules]") {
+  using namespace armature::en1992;
+  CHECK(support_moment_reduction(70.5e3, 300.0) == Approx(2.64375e6));  // 70.5 kN × 0.3 m / 8
+  CHECK(monolithic_support_design_moment(14.728625e6, 18.8e6) == Approx(14.728625e6));
+  CHECK(monolithic_support_design_moment(4.418e6, 18.8e6) == Approx(12.22e6));  // 0.65 × 18.8
+}

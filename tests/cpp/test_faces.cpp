@@ -305,3 +305,25 @@ TEST_CASE("Bad durability per face and support widths are input errors naming th
   g["loads"]["imposed_kPa"] = -1;
   CHECK(fields(g) == S{"slab.support_widths_mm", "durability.top.exposure", "loads.imposed_kPa"});
 }
+
+// A 1.5 m cantilever built into a wall 300 mm thick (ends free, fixed):
+// the root is a fixed end, so 5.3.2.2(3). w = 14.1 kN/m as above; hand
+// statics of a cantilever under w, a from the root: M = w (L − a)²/2:
+//   centreline 14.1 × 1.5²/2 = 15.8625 kNm; face (a = 0.15 m)
+//   14.1 × 1.35²/2 = 12.848625 kNm ≥ 0.65 × 15.8625 = 10.31 → 12.848625.
+TEST_CASE("Support width EN cantilever built into a wall at the face", "[faces][widths][en]") {
+  json req = json::parse(R"({
+    "code": "EN1992-1-1",
+    "slab": {"spans_m": [1.5], "ends": ["free", "fixed"], "thickness_mm": 200,
+             "support_widths_mm": [0, 300]},
+    "concrete": {"class": "C30/37"},
+    "loads": {"dead_kPa": 1.0, "imposed_kPa": 4.0, "imposed_category": "C"}
+  })");
+  const auto r = design_steps(req);
+  const auto& g = find_region(r, "support 2");
+  CHECK(g.M_Ed * 1e-6 == Approx(12.848625).epsilon(1e-9));
+  const auto& bending = find_check(g, "bending");
+  CHECK(bending.clause.str() == "EN 1992-1-1 6.1; M_Ed at the face 5.3.2.2(3)");
+  CHECK(find_step(bending, "M_Ed,c").result == Approx(15.8625).epsilon(1e-9));
+  CHECK(find_step(bending, "M_fe").result == Approx(15.8625).epsilon(1e-9));
+}
