@@ -76,6 +76,11 @@ class Checker final : public SlabChecker {
   double pinned_end_fixity_fraction() const override { return 0.0; }
 
   const std::vector<BarOption>& bar_options() const override { return bars_; }
+  std::optional<BarOption> catalogue_bar(const std::string& designation) const override {
+    const auto bar = find_bar(designation);
+    if (!bar) return std::nullopt;
+    return BarOption{designation, bar->diameter_mm, bar->area_mm2};
+  }
 
   double max_spacing_mm(const RegionDemand&) const override {
     return max_flexural_bar_spacing(req_.slab.thickness_mm);
@@ -322,6 +327,14 @@ class Code final : public DesignCode {
           problems.add("reinforcement.bars[" + std::to_string(i) + "]",
                        "unknown bar '" + bars[i] + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)");
       }
+    }
+    // Bars given in check mode: any bar of the catalogue, whether or not
+    // it is a candidate of the search.
+    for (std::size_t i = 0; i < req.reinforcement.given.size(); ++i) {
+      const std::string& bar = req.reinforcement.given[i].bar;
+      if (!bar.empty() && !find_bar(bar))
+        problems.add("reinforcement.given[" + std::to_string(i) + "].bar",
+                     "unknown bar '" + bar + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)");
     }
     if (req.durability.exposure && !is_exposure(*req.durability.exposure))
       problems.add("durability.exposure", "unknown exposure '" + *req.durability.exposure +
