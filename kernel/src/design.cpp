@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <optional>
 #include <string_view>
 #include <numbers>
@@ -114,6 +115,20 @@ void keep_largest(Trial& largest, const Trial& c) {
   if (!largest.found() || c.As_prov_mm2 > largest.As_prov_mm2) largest = c;
 }
 
+// The last k of the grid a region's search tries: up to the code's largest
+// spacing, and at least the first spacing, which then fails the code's
+// spacing check (a min_spacing_mm above the code's limit is no input
+// error, like one below a code's minimum).
+std::string format_mm(double mm) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%g mm", mm);
+  return buf;
+}
+
+int searched_steps(const SpacingGrid& grid, double max_spacing_mm) {
+  return std::max(grid.last_step(max_spacing_mm), 0);
+}
+
 // How an arrangement fares with all its checks counted (the record's
 // detail: the verdict alone stops at the first failure).
 struct Failures {
@@ -147,7 +162,7 @@ Trial fewest_failures(const SlabChecker& checker, const CodeIdentity& code, cons
   std::size_t best_failures = failures_of(checker, code, region, *least.bar, least.spacing_mm).count;
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
-  const int steps = grid.last_step(s_max);
+  const int steps = searched_steps(grid, s_max);
   for (const auto& bar : bars) {
     const double floor =
         call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) * (1 - 1e-12);
@@ -187,7 +202,7 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   // arrangement already known to pass can never be chosen, so it is not
   // checked. Each bar is tried from its widest spacing (least steel) down.
   Trial passing, fallback, largest;
-  const int steps = grid.last_step(s_max);
+  const int steps = searched_steps(grid, s_max);
   for (const auto& bar : bars) {
     // Arrangements below the code's strength floor fail bending or minimum
     // steel: no verdict is needed (the margin keeps a rounding tie with the
@@ -237,7 +252,7 @@ SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentit
   double s_max = 0.0;
   for (const RegionDemand* g : regions)
     s_max = std::max(s_max, call_code(code, "maximum spacing", [&] { return checker.max_spacing_mm(*g); }));
-  const int steps = grid.last_step(s_max);
+  const int steps = searched_steps(grid, s_max);
   // As search_bars, every region at once: each bar from its widest spacing
   // down, none heavier than an arrangement known to pass everywhere.
   Trial passing, largest;
@@ -324,10 +339,13 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
       call_code(code, "distribution steel", [&] { return checker.distribution(main_As_prov); });
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
-  const int steps = grid.last_step(need.max_spacing_mm);
+  // The distribution bars have no spacing check of their own: when even
+  // the grid's first spacing is above the code's limit, the first is
+  // reported and the design fails with a warning.
+  const bool grid_fits = grid.last_step(need.max_spacing_mm) >= 0;
+  const int steps = searched_steps(grid, need.max_spacing_mm);
   Trial best, largest;
   for (const auto& bar : bars) {
-    if (steps < 0) break;
     // The closest spacing of the grid gives this bar's most steel.
     keep_largest(largest, {&bar, grid.first_mm, provided_area_mm2(bar.area_mm2, grid.first_mm, width_mm)});
     // Widest spacing on the grid whose area still meets the need.
@@ -340,7 +358,11 @@ DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIde
       }
     }
   }
-  ok = best.found();
+  ok = best.found() && grid_fits;
+  if (!grid_fits)
+    warnings.push_back("distribution steel: the least spacing of the search grid (reinforcement.min_spacing_mm, " +
+                       format_mm(grid.first_mm) + ") is above the code's largest distribution spacing (" +
+                       format_mm(need.max_spacing_mm) + "); the design fails until it is reduced");
   if (!largest.found())
     throw DesignError(code.id + " (" + code.variant + "): no distribution bar arrangement to try "
                       "(maximum spacing " + std::to_string(need.max_spacing_mm) + " mm)");

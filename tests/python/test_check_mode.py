@@ -301,3 +301,16 @@ def test_a_cantilever_has_no_bottom_region(floor):
     lines = _problems(_with(floor, given=[{"where": "span 2", "face": "bottom", "bar": "12", "spacing_mm": 150}]))
     assert lines == ["reinforcement.given[0].where: no region 'span 2' in this strip; its regions are "
                      "support 1 (top), span 1 (bottom), support 2 (top)"]
+
+
+def test_min_spacing_above_the_code_limit_fails_the_spacing_check(floor):
+    """min_spacing_mm 300 in a 120 mm slab: EN 1992-1-1 9.3.1.1(3) allows
+    min(2h, 250) = 240 mm, so every main region gets 300 mm and fails its
+    spacing check: a failed design, not an input error."""
+    floor["slab"]["thickness_mm"] = 120
+    res = armature.design(_with(floor, min_spacing_mm=300))
+    assert res["status"] == "fail"
+    for g in res["regions"]:
+        assert g["bars"]["spacing_mm"] == 300
+        limit = next(c for c in g["checks"] if c["id"] == "spacing" and "9.3.1.1" in c["clause"])
+        assert limit["capacity"] == pytest.approx(240.0) and not limit["pass"]
