@@ -78,6 +78,11 @@ class Checker final : public SlabChecker {
   double pinned_end_fixity_fraction() const override { return 0.0; }
 
   const std::vector<BarOption>& bar_options() const override { return bars_; }
+  std::optional<BarOption> catalogue_bar(const std::string& designation) const override {
+    const auto bar = find_bar(designation);
+    if (!bar) return std::nullopt;
+    return BarOption{designation, bar->diameter_mm, bar->area_mm2};
+  }
 
   double max_spacing_mm(const RegionDemand&) const override {
     return max_flexural_bar_spacing(req_.slab.thickness_mm);
@@ -370,6 +375,14 @@ class Code final : public DesignCode {
       if (fd.exposure && !is_exposure(*fd.exposure))
         problems.add(fd.exposure_field,
                      "unknown exposure '" + *fd.exposure + "'; ACI 318 uses interior, weather or ground");
+    }
+    // Bars given in check mode: any bar of the catalogue, whether or not
+    // it is a candidate of the search.
+    for (std::size_t i = 0; i < req.reinforcement.given.size(); ++i) {
+      const std::string& bar = req.reinforcement.given[i].bar;
+      if (!bar.empty() && !find_bar(bar))
+        problems.add("reinforcement.given[" + std::to_string(i) + "].bar",
+                     "unknown bar '" + bar + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)");
     }
     if (smallest_bar < 1e9) add_cover_fit_problems(req, smallest_bar, problems);
     if (req.design.combination)

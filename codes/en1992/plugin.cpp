@@ -145,6 +145,11 @@ class Checker final : public SlabChecker {
   double pinned_end_fixity_fraction() const override { return partial_fixity_fraction; }
 
   const std::vector<BarOption>& bar_options() const override { return *bars_; }
+  std::optional<BarOption> catalogue_bar(const std::string& designation) const override {
+    const auto phi = bar_diameter(designation);
+    if (!phi) return std::nullopt;
+    return BarOption{designation, *phi, bar_area(*phi)};
+  }
 
   double max_spacing_mm(const RegionDemand&) const override {
     return max_main_bar_spacing_max_moment(req_.slab.thickness_mm);
@@ -784,6 +789,14 @@ class Code final : public DesignCode {
       }
     } else {
       smallest_bar = 8.0;
+    }
+    // Bars given in check mode: any bar of the catalogue, whether or not
+    // it is a candidate of the search.
+    for (std::size_t i = 0; i < req.reinforcement.given.size(); ++i) {
+      const std::string& bar = req.reinforcement.given[i].bar;
+      if (!bar.empty() && !bar_diameter(bar))
+        problems.add("reinforcement.given[" + std::to_string(i) + "].bar",
+                     "unknown bar '" + bar + "'; EN 1992 bars are 6, 8, 10, 12, 16, 20, 25, 32, 40");
     }
     if (!psi_of_category(ndp_, req.loads.imposed_category))
       problems.add("loads.imposed_category", "must be one of A to H (EN 1990 Table A1.1), got '" +

@@ -1,10 +1,11 @@
 // The design driver. Loads are totalled from the code's factors, the strip is
-// analysed, each region gets the bar search of contract.md, and the code's
-// checks of the chosen arrangements make the design record.
+// analysed, each region gets the bar search of contract.md (design/search.cpp),
+// and the code's checks of the chosen arrangements make the design record.
 #include "armature/design.hpp"
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <optional>
 #include <string_view>
 #include <numbers>
@@ -12,6 +13,8 @@
 #include "armature/analysis.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
+#include "design/call_code.hpp"
+#include "design/search.hpp"
 
 #ifndef ARMATURE_VERSION
 #define ARMATURE_VERSION "0.0.0"
@@ -22,34 +25,6 @@ namespace armature {
 const char* version_string() { return ARMATURE_VERSION; }
 
 namespace {
-
-constexpr double first_spacing_mm = 75.0;
-constexpr double spacing_step_mm = 25.0;
-
-// Calls into a code plug-in; any failure becomes a DesignError that names
-// the code, the variant and the check or stage (with the place, if given).
-template <class Fn>
-auto call_code(const CodeIdentity& code, std::string_view stage, Fn&& fn,
-               std::string_view place = {}) -> decltype(fn()) {
-  // The message is built only on failure: this sits on the bar search's path.
-  auto who = [&] { return code.id + " (" + code.variant + ")"; };
-  auto during = [&] {
-    std::string s(stage);
-    if (!place.empty()) s.append(" of ").append(place);
-    return s;
-  };
-  try {
-    return fn();
-  } catch (const InputError&) {
-    throw;
-  } catch (const CheckError& e) {
-    throw DesignError(who() + ": check '" + e.check_id() + "' failed during " + during() + ": " + e.what());
-  } catch (const std::exception& e) {
-    throw DesignError(who() + ": failed during " + during() + ": " + e.what());
-  } catch (...) {
-    throw DesignError(who() + ": failed during " + during() + " with an unknown exception");
-  }
-}
 
 // Geometry the kernel cannot analyse, and redistribution where there is
 // no support to take it from.
@@ -86,264 +61,87 @@ LoadTotals total_loads(const LoadBasis& basis, const Request& req) {
   return t;
 }
 
-// Spacings of the search are first_spacing_mm + k spacing_step_mm for
-// k = 0 … this (−1 when even the first exceeds the limit).
-int last_spacing_step(double max_spacing_mm) {
-  if (!(max_spacing_mm >= first_spacing_mm)) return -1;
-  return static_cast<int>(std::floor((max_spacing_mm - first_spacing_mm) / spacing_step_mm + 1e-9));
-}
+// For a request that passed validation; `id` is the code's identity,
+// `checker` the code's checker for this request.
+DesignRecord design_validated(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail);
 
-// The tie rule of contract.md on plain values: least area, then the larger
-// spacing, then the smaller bar.
-bool preferred_values(double area_a, double s_a, double phi_a, double area_b, double s_b, double phi_b) {
-  const double tol = 1e-9 * std::max(area_a, area_b);
-  if (area_a < area_b - tol) return true;
-  if (area_a > area_b + tol) return false;
-  if (s_a != s_b) return s_a > s_b;
-  return phi_a < phi_b;
-}
+std::string span_name(std::size_t e) { return "span " + std::to_string(e + 1); }
+std::string support_name(std::size_t j) { return "support " + std::to_string(j + 1); }
 
-// One arrangement the search has seen, pointing at its bar in the
-// checker's list (which outlives the search); no bar: none yet.
-struct Trial {
-  const BarOption* bar = nullptr;
-  double spacing_mm = 0.0;
-  double As_prov_mm2 = 0.0;
-
-  bool found() const { return bar != nullptr; }
-  SearchCandidate candidate() const { return {*bar, spacing_mm, As_prov_mm2}; }
+// A design region by name and face, as regions_of makes them.
+struct RegionName {
+  std::string where;
+  Face face;
+  bool certain;  // false: a pinned end whose top region depends on the code's rule, not yet known
 };
 
-void consider(Trial& best, const Trial& c) {
-  if (!best.found() || preferred_values(c.As_prov_mm2, c.spacing_mm, c.bar->diameter_mm, best.As_prov_mm2,
-                                        best.spacing_mm, best.bar->diameter_mm))
-    best = c;
+// The regions of a strip, in order along it (as regions_of): a top region
+// at each support but a pinned end, which has one when the code asks for
+// partial-fixity steel (`pinned_end_steel`; unknown: listed as uncertain),
+// and a bottom region in each span that is not a cantilever.
+std::vector<RegionName> region_names(const StripModel& m, std::optional<bool> pinned_end_steel) {
+  std::vector<RegionName> out;
+  const std::size_t n = m.span_count();
+  for (std::size_t j = 0; j <= n; ++j) {
+    if (m.has_support(j)) {
+      const bool pinned_end = (j == 0 || j == n) && !m.is_restrained(j);
+      if (!pinned_end) out.push_back({support_name(j), Face::top, true});
+      else if (pinned_end_steel.value_or(true)) out.push_back({support_name(j), Face::top, pinned_end_steel.has_value()});
+    }
+    if (j < n && !m.is_cantilever(j)) out.push_back({span_name(j), Face::bottom, true});
+  }
+  return out;
 }
 
-void keep_largest(Trial& largest, const Trial& c) {
-  if (!largest.found() || c.As_prov_mm2 > largest.As_prov_mm2) largest = c;
-}
-
-// How an arrangement fares with all its checks counted (the record's
-// detail: the verdict alone stops at the first failure).
-struct Failures {
-  bool strength_pass = true;  // bending and minimum steel
-  std::size_t count = 0;      // checks failed
-};
-Failures failures_of(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
-                     const BarOption& bar, double spacing_mm) {
-  const RegionOutcome out = call_code(code, "the bar search", [&] {
-    return checker.check_region(region, bar, spacing_mm, Detail::checks);
-  });
-  Failures f{out.verdict.strength_pass, 0};
-  auto count = [&](const std::vector<Check>& checks) {
-    for (const auto& c : checks) f.count += c.pass ? 0 : 1;
-  };
-  count(out.checks);
-  count(out.span_checks);
-  for (const auto& s : out.supports) count(s.checks);
-  return f;
-}
-
-// When no arrangement passes: among those that pass bending and minimum
-// steel (at least `least`, the least-area one), the one failing the fewest
-// checks, then by the tie rule. Checks that fail whatever the bars (a
-// thickness limit, say) fail for every arrangement alike, so this keeps an
-// arrangement that passes every check the bars can satisfy where there is
-// one, and the failures shown are the real causes.
-Trial fewest_failures(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
-                      double width_mm, double s_max, const Trial& least) {
-  Trial best = least;
-  std::size_t best_failures = failures_of(checker, code, region, *least.bar, least.spacing_mm).count;
-  const auto& bars = call_code(code, "bar options",
-                               [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
-  const int steps = last_spacing_step(s_max);
-  for (const auto& bar : bars) {
-    const double floor =
-        call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) * (1 - 1e-12);
-    for (int k = steps; k >= 0 && best_failures > 0; --k) {
-      const double s = first_spacing_mm + spacing_step_mm * k;
-      const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      if (c.As_prov_mm2 < floor || (c.bar == best.bar && s == best.spacing_mm)) continue;
-      const Failures got = failures_of(checker, code, region, bar, s);
-      if (!got.strength_pass) continue;
-      const std::size_t f = got.count;
-      if (f < best_failures || (f == best_failures && preferred_values(c.As_prov_mm2, s, bar.diameter_mm,
-                                                                       best.As_prov_mm2, best.spacing_mm,
-                                                                       best.bar->diameter_mm))) {
-        best = c;
-        best_failures = f;
-      }
+// Each region of reinforcement.given must be one of the strip's, at its
+// face. `pinned_end_steel`: whether pinned ends carry top bars (the code's
+// rule; unknown until the request is valid, when such names pass here).
+void add_given_region_problems(const Request& req, std::optional<bool> pinned_end_steel, InputProblems& problems) {
+  const auto& given = req.reinforcement.given;
+  if (given.empty() || req.slab.spans_mm.empty()) return;
+  for (const auto& p : problems.items())
+    if (p.field.rfind("slab", 0) == 0) return;  // the strip itself is in doubt
+  const StripModel model{req.slab.spans_mm, req.slab.ends[0], req.slab.ends[1]};
+  const auto names = region_names(model, pinned_end_steel);
+  std::string listed;
+  for (const auto& r : names)
+    if (r.certain) listed += (listed.empty() ? "" : ", ") + r.where + " (" + to_string(r.face) + ")";
+  for (std::size_t i = 0; i < given.size(); ++i) {
+    const std::string path = "reinforcement.given[" + std::to_string(i) + "]";
+    if (given[i].where.empty()) continue;  // refused as it was read
+    const auto it = std::find_if(names.begin(), names.end(), [&](const RegionName& r) { return r.where == given[i].where; });
+    if (it == names.end()) {
+      const auto with_ends = region_names(model, true);
+      const bool pinned_support = pinned_end_steel.has_value() && !*pinned_end_steel &&
+                                  std::any_of(with_ends.begin(), with_ends.end(),
+                                              [&](const RegionName& r) { return r.where == given[i].where; });
+      problems.add(path + ".where",
+                   "no region '" + given[i].where + "' in this strip" +
+                       (pinned_support ? std::string(" (a pinned end carries no top bars under this code)") : "") +
+                       "; its regions are " + listed);
+    } else if (it->certain && it->face != given[i].face && !problems.has_field(path + ".face")) {
+      problems.add(path + ".face", "'" + it->where + "' is a " + to_string(it->face) + " region; got " +
+                                       to_string(given[i].face));
     }
   }
-  return best;
+}
+
+// Opens the code's checker for a request that passed every other check,
+// and checks the regions of reinforcement.given against the strip (which
+// needs the code's rule for pinned ends).
+std::unique_ptr<SlabChecker> begin_checked(const DesignCode& code, const CodeIdentity& id, const Request& req) {
+  auto checker = call_code(id, "set-up", [&] { return code.begin(req); });
+  if (!req.reinforcement.given.empty()) {
+    const double fixity =
+        call_code(id, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
+    InputProblems problems;
+    add_given_region_problems(req, fixity > 0.0, problems);
+    problems.raise_if_any();
+  }
+  return checker;
 }
 
 }  // namespace
-
-SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
-                            const RegionDemand& region, double width_mm,
-                            std::vector<std::string>& warnings) {
-  const auto& bars = call_code(code, "bar options",
-                               [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
-  const double s_max =
-      call_code(code, "maximum spacing", [&] { return checker.max_spacing_mm(region); });
-  // Every arrangement is a candidate, but one with more steel than an
-  // arrangement already known to pass can never be chosen, so it is not
-  // checked. Each bar is tried from its widest spacing (least steel) down.
-  Trial passing, fallback, largest;
-  const int steps = last_spacing_step(s_max);
-  for (const auto& bar : bars) {
-    // Arrangements below the code's strength floor fail bending or minimum
-    // steel: no verdict is needed (the margin keeps a rounding tie with the
-    // check's own ratio on the checked side). Asked for only when this bar
-    // has an arrangement left to check.
-    std::optional<double> floor;
-    for (int k = steps; k >= 0; --k) {
-      const double s = first_spacing_mm + spacing_step_mm * k;
-      const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      keep_largest(largest, c);
-      if (passing.found() && c.As_prov_mm2 > passing.As_prov_mm2 * (1 + 1e-9)) break;
-      if (!floor)
-        floor = call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) *
-                (1 - 1e-12);
-      if (c.As_prov_mm2 < *floor) continue;
-      const RegionVerdict v = call_code(code, "the bar search", [&] {
-        return checker.check_region(region, bar, s, Detail::verdict).verdict;
-      });
-      if (v.strength_pass) consider(fallback, c);
-      if (v.all_pass) {
-        consider(passing, c);
-        break;  // closer spacings of this bar carry more steel
-      }
-    }
-  }
-  if (passing.found()) return passing.candidate();
-  if (fallback.found()) return fewest_failures(checker, code, region, width_mm, s_max, fallback).candidate();
-  if (!largest.found())
-    throw DesignError(code.id + " (" + code.variant + "): no bar arrangement to try at " +
-                      region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
-  warnings.push_back(region.where + ": no candidate bar arrangement satisfies bending and "
-                     "minimum steel; the arrangement with the most steel is reported");
-  SearchCandidate most = largest.candidate();
-  most.strength_pass = false;
-  return most;
-}
-
-namespace {
-
-// Distribution bars: the least area that meets the need, at a spacing of
-// the search's grid within the code's limit; for each bar that is its
-// widest spacing providing the area, so one candidate per bar is compared.
-DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIdentity& code,
-                                       double main_As_prov, double width_mm,
-                                       std::vector<std::string>& warnings, bool& ok) {
-  DistributionNeed need =
-      call_code(code, "distribution steel", [&] { return checker.distribution(main_As_prov); });
-  const auto& bars = call_code(code, "bar options",
-                               [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
-  const int steps = last_spacing_step(need.max_spacing_mm);
-  Trial best, largest;
-  for (const auto& bar : bars) {
-    if (steps < 0) break;
-    // The closest spacing of the grid gives this bar's most steel.
-    keep_largest(largest, {&bar, first_spacing_mm, provided_area_mm2(bar.area_mm2, first_spacing_mm, width_mm)});
-    // Widest spacing on the grid whose area still meets the need.
-    for (int k = steps; k >= 0; --k) {
-      const double s = first_spacing_mm + spacing_step_mm * k;
-      const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      if (c.As_prov_mm2 >= need.As_req_mm2) {
-        consider(best, c);
-        break;
-      }
-    }
-  }
-  ok = best.found();
-  if (!largest.found())
-    throw DesignError(code.id + " (" + code.variant + "): no distribution bar arrangement to try "
-                      "(maximum spacing " + std::to_string(need.max_spacing_mm) + " mm)");
-  const SearchCandidate pick = best.found() ? best.candidate() : largest.candidate();
-  if (!best.found())
-    warnings.push_back("distribution steel: no candidate bar provides the required area; "
-                       "the design fails until larger bars are allowed");
-  DistributionRecord d;
-  d.As_req_mm2 = need.As_req_mm2;
-  d.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
-  return d;
-}
-
-// The bar search of every region with one nominal cover per face. Where
-// the code works cover out from the bar size (no cover given), it is told
-// the largest bar chosen on the face (RegionDemand::cover_bar_mm), and each
-// region of the face whose cover bar that raises is searched again (its
-// smaller bars now have the larger cover too), until bars and covers
-// agree. The largest bar of a face never shrinks (its own region keeps its
-// cover), so this ends within as many rounds as there are bar sizes. A
-// region where no arrangement passes bending and minimum steel does not
-// set its face's cover: its heaviest bars would push every other region of
-// the face to a larger cover; it keeps its own, and a warning says so.
-std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker, const CodeIdentity& code,
-                                                     std::vector<RegionDemand>& demands, double width_mm,
-                                                     const DurabilityInput& durability,
-                                                     std::vector<std::string>& warnings) {
-  std::vector<SearchCandidate> picks;
-  std::vector<std::vector<std::string>> region_warnings(demands.size());
-  picks.reserve(demands.size());
-  for (std::size_t i = 0; i < demands.size(); ++i)
-    picks.push_back(search_bars(checker, code, demands[i], width_mm, region_warnings[i]));
-  const std::size_t rounds =
-      durability.cover_given(Face::bottom) && durability.cover_given(Face::top)
-          ? 0
-          : call_code(code, "bar options", [&]() -> const std::vector<BarOption>& {
-                      return checker.bar_options();
-                    }).size() + 1;
-  for (std::size_t round = 0; round < rounds; ++round) {
-    bool searched_again = false;
-    for (const Face face : {Face::bottom, Face::top}) {
-      if (durability.cover_given(face)) continue;  // a given cover does not follow the bars
-      double largest = 0.0;
-      for (std::size_t i = 0; i < demands.size(); ++i)
-        if (demands[i].face == face && picks[i].strength_pass)
-          largest = std::max(largest, picks[i].bar.diameter_mm);
-      for (std::size_t i = 0; i < demands.size(); ++i) {
-        RegionDemand& g = demands[i];
-        if (g.face != face || g.cover_bar_mm >= largest) continue;
-        g.cover_bar_mm = largest;
-        if (picks[i].bar.diameter_mm >= largest && picks[i].strength_pass) continue;  // it set the cover
-        region_warnings[i].clear();
-        picks[i] = search_bars(checker, code, g, width_mm, region_warnings[i]);
-        searched_again = true;
-      }
-    }
-    if (!searched_again) break;
-  }
-  for (std::size_t i = 0; i < demands.size(); ++i) {
-    warnings.insert(warnings.end(), region_warnings[i].begin(), region_warnings[i].end());
-    const bool shares_face = std::any_of(demands.begin(), demands.end(), [&](const RegionDemand& o) {
-      return &o != &demands[i] && o.face == demands[i].face;
-    });
-    if (!durability.cover_given(demands[i].face) && shares_face && !picks[i].strength_pass &&
-        picks[i].bar.diameter_mm > demands[i].cover_bar_mm)
-      warnings.push_back(demands[i].where + ": its bars' cover is not applied to the rest of the " +
-                         to_string(demands[i].face) + " face, since no arrangement there passes "
-                         "bending and minimum steel");
-  }
-  return picks;
-}
-
-// For a request that passed validation; `id` is the code's identity.
-DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Request& req, Detail detail);
-
-}  // namespace
-
-double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm) {
-  return bar_area_mm2 * width_mm / spacing_mm;
-}
-
-bool preferred(const SearchCandidate& a, const SearchCandidate& b) {
-  return preferred_values(a.As_prov_mm2, a.spacing_mm, a.bar.diameter_mm, b.As_prov_mm2, b.spacing_mm,
-                          b.bar.diameter_mm);
-}
 
 std::vector<const Check*> DesignRecord::all_checks() const {
   std::size_t count = 0;
@@ -379,8 +177,13 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     call_code(id, "input validation", [&] { code->validate(req, problems); });
   }
   if (problems.empty()) add_scope_problems(req, problems);
+  // With other problems the code's checker cannot be opened: the regions
+  // given are checked against the strip alone, now, so that they are
+  // reported with the rest (pinned ends wait for a valid request).
+  if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
-  return design_validated(*code, std::move(id), req, detail);
+  const auto checker = begin_checked(*code, id, req);
+  return design_validated(*checker, std::move(id), req, detail);
 }
 
 DesignRecord design(const Registry& registry, const Request& req, Detail detail) {
@@ -390,14 +193,13 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
                               [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
   add_scope_problems(req, problems);
+  if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
-  return design_validated(*code, std::move(id), req, detail);
+  const auto checker = begin_checked(*code, id, req);
+  return design_validated(*checker, std::move(id), req, detail);
 }
 
 namespace {
-
-std::string span_name(std::size_t e) { return "span " + std::to_string(e + 1); }
-std::string support_name(std::size_t j) { return "support " + std::to_string(j + 1); }
 
 SpanKind span_kind_of(const StripModel& m, std::size_t e) {
   if (m.is_cantilever(e)) return SpanKind::cantilever;
@@ -557,13 +359,37 @@ void apply_support_widths(const SlabChecker& checker, const CodeIdentity& code, 
   }
 }
 
-DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Request& req, Detail detail) {
+// Which regions take given bars (reinforcement.given, by region name) and
+// which share one arrangement (rationalise: every bottom region not given).
+BarPlan plan_bars(const SlabChecker& checker, const CodeIdentity& code, const ReinforcementInput& r,
+                  const std::vector<RegionDemand>& demands, double width_mm) {
+  BarPlan plan;
+  plan.grid = {r.min_spacing_mm, r.spacing_step_mm};
+  plan.given.resize(demands.size());
+  for (const auto& g : r.given) {
+    const auto it = std::find_if(demands.begin(), demands.end(), [&](const RegionDemand& d) { return d.where == g.where; });
+    if (it == demands.end())  // validated against region_names: the two disagree
+      throw DesignError("reinforcement.given names " + g.where + ", which the design has no region for");
+    const auto bar = call_code(code, "catalogue bar", [&] { return checker.catalogue_bar(g.bar); });
+    if (!bar)
+      throw DesignError(code.id + " (" + code.variant + "): no catalogue bar '" + g.bar +
+                        "', which its input validation accepted");
+    plan.given[static_cast<std::size_t>(it - demands.begin())] =
+        SearchCandidate{*bar, g.spacing_mm, provided_area_mm2(bar->area_mm2, g.spacing_mm, width_mm)};
+  }
+  if (r.rationalise == Rationalise::uniform_bottom)
+    for (std::size_t i = 0; i < demands.size(); ++i)
+      if (demands[i].face == Face::bottom && !plan.given[i]) plan.common.push_back(i);
+  return plan;
+}
+
+DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Detail detail) {
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = std::move(id);
   rec.report_units = req.report_units;
   rec.strip_width_mm = req.slab.strip_width_mm;
-  const auto checker = call_code(rec.code, "set-up", [&] { return code.begin(req); });
+  const SlabChecker* const checker = &code_checker;
   LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
   if (basis.uls.empty()) throw DesignError(rec.code.id + ": the code gave no ULS expression");
   rec.loads = total_loads(basis, req);
@@ -598,8 +424,10 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
                             rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
   if (!req.slab.support_widths_mm.empty())
     apply_support_widths(*checker, rec.code, model, cases, req.slab.support_widths_mm, demands);
+  rec.rationalise = req.reinforcement.rationalise;
+  const BarPlan plan = plan_bars(*checker, rec.code, req.reinforcement, demands, b);
   const std::vector<SearchCandidate> picks = search_with_face_covers(
-      *checker, rec.code, demands, b, req.durability, rec.warnings);
+      *checker, rec.code, demands, b, req.durability, plan, rec.warnings);
 
   std::vector<std::string> span_names, support_names;
   for (std::size_t e = 0; e < n; ++e) span_names.push_back(span_name(e));
@@ -627,6 +455,7 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
     region.As_max_mm2 = out.As_max_mm2;
     region.cover_mm = out.cover_mm;
     region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
+    region.bars_given = plan.given[i].has_value();
     region.checks = std::move(out.checks);
     rec.regions.push_back(std::move(region));
     max_main_As = std::max(max_main_As, pick.As_prov_mm2);
@@ -647,7 +476,7 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
   }
 
   bool distribution_ok = true;
-  rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, rec.warnings,
+  rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, plan.grid, rec.warnings,
                                          distribution_ok);
 
   for (const auto& r : rec.regions) {

@@ -138,4 +138,12 @@ const char* to_string(DuctilityClass ductility) {
 
 const char* to_string(Face face) { return face == Face::bottom ? "bottom" : "top"; }
 
+const char* to_string(Rationalise rationalise) {
+  switch (rationalise) {
+    case Rationalise::none: return "none";
+    case Rationalise::uniform_bottom: return "uniform_bottom";
+  }
+  return "?";
+}
+
 }  // namespace armature

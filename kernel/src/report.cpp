@@ -320,7 +320,15 @@ std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord&
   return rows;
 }
 
-std::vector<std::pair<std::string, std::string>> region_rows(const RegionRecord& g) {
+// Where a region's bars come from, when not from its own bar search.
+std::string bars_source(const DesignRecord& r, const RegionRecord& g) {
+  if (g.bars_given) return " (given: the request's bars, checked, not searched)";
+  if (r.rationalise == Rationalise::uniform_bottom && g.face == Face::bottom)
+    return " (one arrangement for every span region not given: reinforcement.rationalise uniform_bottom)";
+  return "";
+}
+
+std::vector<std::pair<std::string, std::string>> region_rows(const DesignRecord& r, const RegionRecord& g) {
   return {{"Design moment M_Ed", n4(g.M_Ed * 1e-6) + " kNm at x = " + n4(g.x_mm / 1000) + " m"},
           {"Cover", n4(g.cover_mm) + " mm"},
           {"Effective depth d", n4(g.d_mm) + " mm"},
@@ -328,7 +336,7 @@ std::vector<std::pair<std::string, std::string>> region_rows(const RegionRecord&
           {"As,min", n4(g.As_min_mm2) + " mm2"},
           {"As,max", n4(g.As_max_mm2) + " mm2"},
           {"Bars", bar_arrangement(g.bars.bar, g.bars.spacing_mm) + ", As,prov = " + n4(g.bars.As_prov_mm2) +
-                       " mm2"}};
+                       " mm2" + bars_source(r, g)}};
 }
 
 const char* css =
@@ -382,7 +390,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
     o += "<h3>" + esc(part.title) + "</h3>\n";
     if (part.region) {
       o += "<table>\n";
-      for (const auto& [k, v] : region_rows(*part.region))
+      for (const auto& [k, v] : region_rows(r, *part.region))
         o += "<tr><td>" + esc(k) + "</td><td class=\"num\">" + esc(v) + "</td></tr>\n";
       o += "</table>\n" + section_svg(r, *part.region) + "\n";
     }
@@ -464,7 +472,7 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
   for (const auto& part : parts_of(r)) {
     o += "\n### " + part.title + "\n\n";
     if (part.region) {
-      for (const auto& [k, v] : region_rows(*part.region)) o += "- " + k + ": " + v + "\n";
+      for (const auto& [k, v] : region_rows(r, *part.region)) o += "- " + k + ": " + v + "\n";
       o += "- Section: h = " + n4(r.thickness_mm) + " mm, " +
            (part.region->face == Face::bottom ? "bottom" : "top") + " bars at d = " +
            n4(part.region->d_mm) + " mm from the compression face\n";

@@ -350,8 +350,57 @@ void read_concrete(const json& j, InputProblems& problems, ConcreteInput& c) {
     c.aggregate_mm = *dg;
 }
 
+// Check mode: reinforcement.given, one entry per region, kept in the
+// request's order (its index names it in later problems). Whether the
+// region exists and matches its face (design(), with the strip and the
+// code's rule for pinned ends) and whether the bar is in the catalogue
+// (the code's validate) are checked later; a field with a problem here is
+// left empty, and those checks pass over it.
+void read_given(const json& list, InputProblems& problems, std::vector<GivenBars>& out) {
+  for (std::size_t i = 0; i < list.size(); ++i) {
+    const std::string path = "reinforcement.given[" + std::to_string(i) + "]";
+    const json& entry = list[i];
+    GivenBars& g = out.emplace_back();
+    if (!entry.is_object()) {
+      problems.add(path, "must be an object {\"where\", \"face\", \"bar\", \"spacing_mm\"}, got " +
+                             describe(entry));
+      continue;
+    }
+    ObjectReader r(entry, path, problems, {"where", "face", "direction", "bar", "spacing_mm"});
+    if (auto where = r.text("where", true)) {
+      const auto same = std::find_if(out.begin(), out.end() - 1, [&](const GivenBars& o) { return o.where == *where; });
+      if (where->empty())
+        problems.add(path + ".where", "must name a region such as \"span 1\" or \"support 2\"");
+      else if (same != out.end() - 1)
+        problems.add(path + ".where", "the region '" + *where + "' is already listed in reinforcement.given[" +
+                                          std::to_string(same - out.begin()) + "]");
+      else
+        g.where = *where;
+    }
+    if (auto face = r.text("face", true)) {
+      if (*face == "bottom") g.face = Face::bottom;
+      else if (*face == "top") g.face = Face::top;
+      else problems.add(path + ".face", "must be \"top\" or \"bottom\", got \"" + *face + "\"");
+    }
+    // A one-way strip's main bars run along it (x, as the regions' x_m);
+    // its distribution bars are no design region.
+    if (auto direction = r.text("direction"); direction && *direction != "x")
+      problems.add(path + ".direction",
+                   "a one-way strip's main bars run along the strip: \"x\" (or leave it out), got \"" +
+                       *direction + "\"");
+    if (auto bar = r.text("bar", true)) {
+      if (bar->empty()) problems.add(path + ".bar", "must be a bar designation such as \"12\" or \"#4\"");
+      else g.bar = *bar;
+    }
+    if (auto s = r.in_range(r.number("spacing_mm", true), "spacing_mm", 0, 1000, "mm", true))
+      g.spacing_mm = *s;
+  }
+}
+
 void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInput& s) {
-  ObjectReader r(j, "reinforcement", problems, {"yield_strength_MPa", "bars", "ductility_class"});
+  ObjectReader r(j, "reinforcement", problems,
+                 {"yield_strength_MPa", "bars", "ductility_class", "spacing_step_mm", "min_spacing_mm",
+                  "given", "rationalise"});
   s.yield_strength_MPa = r.number("yield_strength_MPa");
   if (auto c = r.text("ductility_class")) {
     if (*c == "A") s.ductility_class = DuctilityClass::A;
@@ -359,6 +408,17 @@ void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInp
     else if (*c == "C") s.ductility_class = DuctilityClass::C;
     else problems.add("reinforcement.ductility_class", "must be \"A\", \"B\" or \"C\", got \"" + *c + "\"");
   }
+  if (auto step = r.in_range(r.number("spacing_step_mm"), "spacing_step_mm", 5, 100, "mm"))
+    s.spacing_step_mm = *step;
+  if (auto first = r.in_range(r.number("min_spacing_mm"), "min_spacing_mm", 20, 300, "mm"))
+    s.min_spacing_mm = *first;
+  if (auto how = r.text("rationalise")) {
+    if (*how == "none") s.rationalise = Rationalise::none;
+    else if (*how == "uniform_bottom") s.rationalise = Rationalise::uniform_bottom;
+    else problems.add("reinforcement.rationalise",
+                      "must be \"none\" or \"uniform_bottom\", got \"" + *how + "\"");
+  }
+  if (const json* given = r.array("given")) read_given(*given, problems, s.given);
   if (const json* bars = r.array("bars")) {
     if (bars->empty()) {
       problems.add("reinforcement.bars", "must list at least one bar");

@@ -81,15 +81,23 @@ std::string format_summary(const DesignRecord& r) {
            " " + L + (face == Face::top && r.cover_mm(Face::bottom) > 0.0 ? "," : "");
   o += "\n\n";
 
+  // Given bars are marked "given" beside them (a wider column then).
+  const bool any_given =
+      std::any_of(r.regions.begin(), r.regions.end(), [](const RegionRecord& g) { return g.bars_given; });
+  const std::size_t bars_width = any_given ? 22 : 16;
   o += pad("Region", 12) + pad("face", 8) + rpad(std::string("M_Ed ") + u.moment_unit(), 12) +
-       rpad("d " + L, 8) + rpad("As,req", 9) + rpad("As,min", 9) + "   " + pad("bars", 16) +
+       rpad("d " + L, 8) + rpad("As,req", 9) + rpad("As,min", 9) + "   " + pad("bars", bars_width) +
        rpad("As,prov " + A, 12) + "\n";
   for (const auto& g : r.regions)
     o += pad(g.where, 12) + pad(to_string(g.face), 8) + rpad(fmt("%.2f", u.moment(g.M_Ed)), 12) +
          rpad(fmt(u.length_format(), u.length(g.d_mm)), 8) +
          rpad(fmt(u.area_format(), u.area(g.As_req_mm2)), 9) +
-         rpad(fmt(u.area_format(), u.area(g.As_min_mm2)), 9) + "   " + pad(u.bars(g.bars), 16) +
+         rpad(fmt(u.area_format(), u.area(g.As_min_mm2)), 9) + "   " + pad(u.bars(g.bars) + (g.bars_given ? " given" : ""), bars_width) +
          rpad(fmt(u.area_format(), u.area(g.bars.As_prov_mm2)), 12) + "\n";
+  if (any_given)
+    o += "given: the request's bars (reinforcement.given), checked, not searched\n";
+  if (r.rationalise == Rationalise::uniform_bottom)
+    o += "Bottom bars: one arrangement for every span region not given (reinforcement.rationalise)\n";
   for (const auto& s : r.supports)
     o += pad(s.where, 12) + "V_Ed " + fmt("%.1f", u.force(s.V_Ed)) + " " + u.force_unit() +
          ", resistance " + fmt("%.1f", u.force(s.V_Rd)) + " " + u.force_unit() + "\n";

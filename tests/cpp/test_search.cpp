@@ -133,6 +133,13 @@ TEST_CASE("bar search: the same choice as checking every candidate in full", "[s
     CHECK(chosen.bar.designation == expected.pick.bar.designation);
     CHECK(chosen.spacing_mm == expected.pick.spacing_mm);
     CHECK(warnings.empty() == expected.any_strong);
+    // One arrangement shared by regions (rationalisation), over one region:
+    // the same rule, so the same choice as the full scan.
+    std::vector<std::string> common_warnings;
+    const SearchCandidate common = armature::search_common_bars(*checker, id, {&g}, 1000.0, common_warnings);
+    CHECK(common.bar.designation == expected.pick.bar.designation);
+    CHECK(common.spacing_mm == expected.pick.spacing_mm);
+    CHECK(common_warnings.empty() == expected.any_strong);
     ++searched;
     if (!expected.any_pass) ++failing;
     if (expected.xu_rejects) ++xu_rejecting;

@@ -16,7 +16,7 @@ CONTRACT_KEYS = {
 }
 REGION_KEYS = {
     "where", "face", "x_m", "design_moment_kNm", "effective_depth_mm", "As_req_mm2",
-    "As_min_mm2", "As_max_mm2", "bars", "checks",
+    "As_min_mm2", "As_max_mm2", "bars", "bars_given", "checks",
 }
 CHECK_KEYS = {"id", "where", "clause", "demand", "capacity", "unit", "utilisation", "pass"}
 CHECK_IDS = {"bending", "ductility", "min_steel", "max_steel", "spacing", "cracking",
@@ -27,6 +27,8 @@ def test_result_has_the_contract_keys(base_request):
     res = armature.design(base_request)
     assert set(res) == CONTRACT_KEYS
     assert set(res["regions"][0]) == REGION_KEYS
+    # contract-v2 3: no reinforcement.given, so every region's bars are searched
+    assert [g["bars_given"] for g in res["regions"]] == [False] * len(res["regions"])
     assert set(res["regions"][0]["bars"]) == {"bar", "diameter_mm", "spacing_mm", "As_prov_mm2"}
     assert set(res["supports"][0]) == {"where", "design_shear_kN", "shear_resistance_kN", "checks"}
     assert set(res["distribution"]) == {"bar", "diameter_mm", "spacing_mm", "As_req_mm2", "As_prov_mm2"}

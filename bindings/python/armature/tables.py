@@ -118,6 +118,7 @@ def compare(request, codes, overrides=None):
                 "As_req_mm2": g["As_req_mm2"],
                 "As_min_mm2": g["As_min_mm2"],
                 "As_prov_mm2": g["bars"]["As_prov_mm2"],
+                "bars_given": g["bars_given"],
                 "utilisation": worst["utilisation"],
                 "governing_check": worst["id"],
                 "thickness_check": span_check["utilisation"] if span_check else float("nan"),

@@ -51,6 +51,9 @@ class Checker final : public SlabChecker {
   }
   double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
   const std::vector<BarOption>& bar_options() const override { return inner_->bar_options(); }
+  std::optional<BarOption> catalogue_bar(const std::string& designation) const override {
+    return inner_->catalogue_bar(designation);
+  }
   double max_spacing_mm(const RegionDemand& g) const override {
     return std::min(inner_->max_spacing_mm(g), max_spacing);
   }

@@ -6,6 +6,7 @@
 #pragma once
 
 #include <memory>
+#include <optional>
 #include <string>
 #include <string_view>
 #include <utility>
@@ -179,6 +180,15 @@ class SlabChecker {
   // Candidate bars of the request (or the code's default set); the list
   // lives as long as the checker.
   virtual const std::vector<BarOption>& bar_options() const = 0;
+  // A bar of the code's catalogue by its designation (a bar given in check
+  // mode need not be a candidate of the search); none when the catalogue
+  // has no such bar. The code's validate() has refused unknown given bars
+  // (reinforcement.given[i].bar). By default: a candidate bar of that name.
+  virtual std::optional<BarOption> catalogue_bar(const std::string& designation) const {
+    for (const auto& bar : bar_options())
+      if (bar.designation == designation) return bar;
+    return std::nullopt;
+  }
   // Largest bar spacing the code allows in this region (mm).
   virtual double max_spacing_mm(const RegionDemand& region) const = 0;
   // An area (mm², for the strip width) below which this bar certainly

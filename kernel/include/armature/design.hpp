@@ -44,6 +44,7 @@ struct RegionRecord {
   double As_max_mm2 = 0.0;
   double cover_mm = 0.0;
   BarChoice bars;
+  bool bars_given = false;  // the request's bars (reinforcement.given), checked, not searched
   std::vector<Check> checks;
 };
 
@@ -88,6 +89,7 @@ struct DesignRecord {
   std::size_t load_arrangements = 0;                // per expression
   std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
   double redistribution_percent = 0.0;
+  Rationalise rationalise = Rationalise::none;  // as requested
   ProjectInfo project;
   // The code's defaults_used() (at Detail::steps only): the record lists those the request left out.
   std::vector<InputDefault> defaults_used;
@@ -106,6 +108,16 @@ DesignRecord design(const Registry& registry, const nlohmann::json& request,
 DesignRecord design(const Registry& registry, const Request& request,
                     Detail detail = Detail::checks);
 
+// The spacings the bar search tries (contract-v2 3): first_mm,
+// first_mm + step_mm, … up to the code's largest; distribution bars alike.
+struct SpacingGrid {
+  double first_mm = 75.0;  // reinforcement.min_spacing_mm
+  double step_mm = 25.0;   // reinforcement.spacing_step_mm
+  double at(int k) const { return first_mm + step_mm * k; }
+  // The k of the widest spacing within max_spacing_mm (−1: not even the first).
+  int last_step(double max_spacing_mm) const;
+};
+
 // Bar search of contract.md, exposed for tests: the chosen arrangement.
 struct SearchCandidate {
   BarOption bar;
@@ -122,6 +134,16 @@ double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm
 // chosen arrangement (a warning is added when none passes every check).
 SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
                             const RegionDemand& region, double width_mm,
-                            std::vector<std::string>& warnings);
+                            std::vector<std::string>& warnings, const SpacingGrid& grid = {});
+// One arrangement for several regions (reinforcement.rationalise): the
+// least area, by the tie rule of preferred(), that passes every check in
+// every region. When none does, the rule of a failed region applies across
+// them: among the arrangements passing bending and minimum steel in every
+// region, the fewest failed checks summed over the regions, then the tie
+// rule; when none passes those everywhere, the most steel (and a warning
+// naming the regions).
+SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentity& code,
+                                   const std::vector<const RegionDemand*>& regions, double width_mm,
+                                   std::vector<std::string>& warnings, const SpacingGrid& grid = {});
 
 }  // namespace armature

@@ -43,10 +43,32 @@ struct ConcreteInput {
   double aggregate_mm = 20.0;
 };
 
+// Check mode: the user's bars in one design region (no search there).
+struct GivenBars {
+  std::string where;       // a region of the member: "span 2", "support 3"
+  Face face = Face::bottom;
+  std::string bar;         // a designation of the code's catalogue
+  double spacing_mm = 0.0;
+};
+
+// How the bar search treats the regions together.
+enum class Rationalise {
+  none,            // each region its own least-area arrangement
+  uniform_bottom,  // one bottom arrangement for every span region
+};
+
+const char* to_string(Rationalise rationalise);
+
 struct ReinforcementInput {
   std::optional<double> yield_strength_MPa;       // code default when absent
   std::optional<std::vector<std::string>> bars;   // code default set when absent
   DuctilityClass ductility_class = DuctilityClass::B;
+  // The search's spacings: min_spacing_mm + k spacing_step_mm up to the
+  // code's largest (distribution bars alike).
+  double spacing_step_mm = 25.0;
+  double min_spacing_mm = 75.0;
+  std::vector<GivenBars> given;                   // in the request's order
+  Rationalise rationalise = Rationalise::none;
 };
 
 struct LoadsInput {

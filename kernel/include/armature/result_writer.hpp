@@ -121,6 +121,7 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
     w.begin_object();
     write_bars(w, g.bars);
     w.end();
+    w.key("bars_given"), w.value(g.bars_given);
     w.key("checks"), write_checks(w, g.checks, with_steps);
     w.end();
   }

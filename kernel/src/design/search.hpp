@@ -1,0 +1,35 @@
+// The kernel's bar search for the driver (design.cpp): the public parts
+// (search_bars, search_common_bars, SpacingGrid) are in armature/design.hpp.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "armature/design.hpp"
+
+namespace armature {
+
+// How each region gets its bars: searched on its own, given by the
+// request (checked, never searched), or one of the regions sharing one
+// arrangement (reinforcement.rationalise).
+struct BarPlan {
+  std::vector<std::optional<SearchCandidate>> given;  // per region
+  std::vector<std::size_t> common;                    // regions sharing one arrangement
+  SpacingGrid grid;
+};
+
+// Distribution bars: the least area meeting the code's need, on the grid
+// (`ok` false, with a warning, when none does).
+DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIdentity& code,
+                                       double main_As_prov, double width_mm, const SpacingGrid& grid,
+                                       std::vector<std::string>& warnings, bool& ok);
+
+// Every region's bars (given, shared or searched) with one nominal cover
+// per face; `demands` get the cover bar of their face.
+std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker, const CodeIdentity& code,
+                                                     std::vector<RegionDemand>& demands, double width_mm,
+                                                     const DurabilityInput& durability, const BarPlan& plan,
+                                                     std::vector<std::string>& warnings);
+
+}  // namespace armature
