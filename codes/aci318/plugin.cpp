@@ -5,6 +5,7 @@
 
 #include "armature/plugin.hpp"
 #include "armature/steps.hpp"
+#include "combinations.hpp"
 #include "rules.hpp"
 
 namespace armature::aci318 {
@@ -58,11 +59,12 @@ class Checker final : public SlabChecker {
   LoadBasis load_basis() const override {
     LoadBasis basis;
     basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(default_density_kN_m3);
-    basis.uls.push_back({"5.3.1a: 1.4 D", dead_only_factor, 0.0, dead_only_factor});
-    basis.uls.push_back({"5.3.1b: 1.2 D + 1.6 L", dead_factor, live_factor, dead_factor});
-    basis.psi2 = 0.0;  // the sustained part of L is not defined here: D alone
     basis.long_term_load_name = "sustained";  // ACI 318-19 24.2.4.1, Table 24.2.2
     return basis;
+  }
+
+  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
+    return aci_combinations(actions);
   }
 
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
