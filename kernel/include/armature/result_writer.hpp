@@ -21,6 +21,14 @@ inline constexpr double kN_per_N = 1e-3;
 inline constexpr double m_per_mm = 1e-3;
 }  // namespace result_units
 
+// A key that is not a string literal (an action's name): a writer that
+// keeps keys by address (the binding's) takes it through key_text.
+template <class W>
+void write_text_key(W& w, const std::string& k) {
+  if constexpr (requires { w.key_text(k); }) w.key_text(k);
+  else w.key(k.c_str());
+}
+
 // A writer may share one output object between the places a check appears
 // (the result lists each check twice: in its region, support or span, and
 // in the top-level list, as the same object) by offering reuse/remember.
@@ -132,14 +140,14 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
       w.key("factors");
       w.begin_object();
       for (std::size_t i = 0; i < c.factors.size() && i < r.actions.size(); ++i)
-        w.key(r.actions[i].name.c_str()), w.value(c.factors[i].loaded);
+        write_text_key(w, r.actions[i].name), w.value(c.factors[i].loaded);
       w.end();
       // Permanent actions on the spans an arrangement leaves unloaded
       // (EQU: the back span), where that factor differs.
       w.key("factors_unloaded_spans");
       w.begin_object();
       for (std::size_t i = 0; i < c.factors.size() && i < r.actions.size(); ++i)
-        if (!is_variable(r.actions[i].kind)) w.key(r.actions[i].name.c_str()), w.value(c.factors[i].unloaded);
+        if (!is_variable(r.actions[i].kind)) write_text_key(w, r.actions[i].name), w.value(c.factors[i].unloaded);
       w.end();
       w.end();
     }
