@@ -67,6 +67,30 @@ class Checker final : public SlabChecker {
     return aci_combinations(actions);
   }
 
+  // Uplift at the back span's far support under the 5.3.1 combinations
+  // with the live loads on the cantilever only (ACI 318-19 has no factor
+  // below 1.2 on D without W or E: 0.9D of (f), (g) is not used).
+  std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override {
+    std::vector<Check> out;
+    RegionVerdict verdict;
+    CheckCollector checks(out, verdict, detail == Detail::verdict ? Detail::checks : detail);
+    run_check("equilibrium", [&] {
+      checks.add("equilibrium", d.where, "ACI 318-19 5.3.1, L on the cantilever only", d.R_destabilising * 1e-3,
+                 d.R_stabilising * 1e-3, "kN", [&] {
+                   StepRecorder st;
+                   st.add("R,stb", "reaction from the loads off the cantilever", "", d.R_stabilising * 1e-3, "kN",
+                          "ACI 318-19 5.3.1");
+                   st.add("R,dst", "reaction taken away by the cantilever's loads", "", d.R_destabilising * 1e-3, "kN",
+                          "ACI 318-19 5.3.1");
+                   st.add("R,min", "R,stb − R,dst under " + d.combination + " (negative: uplift)",
+                          num(d.R_stabilising * 1e-3) + " − " + num(d.R_destabilising * 1e-3),
+                          (d.R_stabilising - d.R_destabilising) * 1e-3, "kN", "ACI 318-19 5.3.1");
+                   return st.take();
+                 });
+    });
+    return out;
+  }
+
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
     // 6.4.3.2: (a) the span and alternate spans loaded, both ways; (b) the
     // two spans adjacent to each support loaded.

@@ -119,6 +119,30 @@ class Checker final : public SlabChecker {
     return en1990_combinations(en1990_factors(ndp_), req_.design.combination.value_or("6.10") != "6.10", actions);
   }
 
+  // EN 1990 6.4.2(1) (6.7): Ed,dst ≤ Ed,stb, here as the reaction the
+  // cantilever's loads take from the back span's far support against the
+  // reaction the back span's loads give it (utilisation > 1: uplift).
+  std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override {
+    std::vector<Check> out;
+    RegionVerdict verdict;
+    CheckCollector checks(out, verdict, detail == Detail::verdict ? Detail::checks : detail);
+    run_check("equilibrium", [&] {
+      checks.add("equilibrium", d.where, "EN 1990 6.4.2(1) (6.7), Table A1.2(A)", d.R_destabilising * 1e-3,
+                 d.R_stabilising * 1e-3, "kN", [&] {
+                   Steps st;
+                   st.add("R,stb", "reaction from the loads off the cantilever (γG,inf)", "", d.R_stabilising * 1e-3,
+                          "kN", variant_ndp("EN 1990 6.4.2(1), Table A1.2(A)", "equ_gamma_G_inf"));
+                   st.add("R,dst", "reaction taken away by the cantilever's loads", "", d.R_destabilising * 1e-3,
+                          "kN", "EN 1990 6.4.2(1)");
+                   st.add("R,min", "R,stb − R,dst under " + d.combination + " (negative: uplift)",
+                          num(d.R_stabilising * 1e-3) + " − " + num(d.R_destabilising * 1e-3),
+                          (d.R_stabilising - d.R_destabilising) * 1e-3, "kN", "EN 1990 6.4.2(1) (6.7)");
+                   return st.take();
+                 });
+    });
+    return out;
+  }
+
   std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const override {
     return en1992::load_arrangements(span_count, ndp_.pattern_loading == "adjacent_pairs");
   }

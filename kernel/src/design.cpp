@@ -581,6 +581,56 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
   return out;
 }
 
+// Static equilibrium of each cantilever's back span (EQU combinations):
+// the cantilever alone loaded (permanent actions at the `loaded`,
+// unfavourable factor there, variable actions there only), the other spans
+// at the `unloaded`, favourable factor. The reaction at the far support of
+// the back span is split by superposition into what the other spans' loads
+// give and what the cantilever's loads take away; the combination with the
+// least reaction is checked by the code. A fixed far end is built in and
+// is not checked.
+void add_equilibrium_checks(const SlabChecker& checker, DesignRecord& rec, const StripModel& m, double b,
+                            Detail detail) {
+  const std::size_t n = m.span_count();
+  if (n < 2) return;
+  for (std::size_t c = 0; c < n; ++c) {
+    if (!m.is_cantilever(c)) continue;
+    const std::size_t far = c == 0 ? 2 : n - 2;  // the back span's other end
+    if (far > n || !m.has_support(far) || ((far == 0 || far == n) && m.is_restrained(far))) continue;
+    std::vector<bool> loaded(n, false);
+    loaded[c] = true;
+    std::vector<std::vector<SpanLoading>> cases;
+    std::vector<const Combination*> used;
+    for (const auto& k : rec.combinations) {
+      if (k.limit_state != LimitState::equilibrium) continue;
+      auto all = loading_of(rec.actions, k, loaded, rec.spans_mm, b);
+      std::vector<SpanLoading> stabilising = all, destabilising(n);
+      stabilising[c] = SpanLoading{};
+      destabilising[c] = all[c];
+      cases.push_back(std::move(stabilising));
+      cases.push_back(std::move(destabilising));
+      used.push_back(&k);
+    }
+    if (used.empty()) continue;
+    const auto results = analyse_load_cases(m, cases);
+    EquilibriumDemand worst;
+    double least = std::numeric_limits<double>::infinity();
+    for (std::size_t k = 0; k < used.size(); ++k) {
+      const double R_stb = results[2 * k].reactions[far], R_dst = -results[2 * k + 1].reactions[far];
+      if (R_stb - R_dst < least) {
+        least = R_stb - R_dst;
+        worst = {support_name(far), used[k]->label, R_stb, R_dst};
+      }
+    }
+    auto checks = call_code(rec.code, "equilibrium", [&] { return checker.equilibrium_checks(worst, detail); },
+                            worst.where);
+    auto s = std::find_if(rec.supports.begin(), rec.supports.end(),
+                          [&](const SupportRecord& r) { return r.where == worst.where; });
+    if (s == rec.supports.end()) continue;
+    for (auto& chk : checks) s->checks.push_back(std::move(chk));
+  }
+}
+
 DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Request& req, Detail detail) {
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
@@ -709,6 +759,10 @@ DesignRecord design_validated(const DesignCode& code, CodeIdentity id, const Req
     for (auto& c : extra) span.checks.push_back(std::move(c));
     rec.spans.push_back(std::move(span));
   }
+
+  // EQU of cantilevers, for requests that list their actions (a version 1
+  // request keeps its version 1 checks; DEVELOPERS.md).
+  if (req.loads.actions_given) add_equilibrium_checks(*checker, rec, model, b, detail);
 
   bool distribution_ok = true;
   rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, rec.warnings,

@@ -261,3 +261,46 @@ def test_aci_reads_kinds_as_D_L_Lr_S():
     assert labels == ["5.3.1a: 1.4 D", "5.3.1b: 1.2 D + 1.6 L + 0.5 S", "5.3.1c: 1.2 D + 1.6 S + 1 L"]
     sw = 23.6 * 0.2  # 150 lb/ft³ (common practice)
     assert res["loads"]["uls_kPa"] == pytest.approx(1.2 * sw + 1.6 * 4.0 + 0.5 * 1.0, rel=1e-12)
+
+
+# ---- EQU: uplift at the back span's far support --------------------------------
+
+def balcony(wall_kN_per_m):
+    """A 4 m back span pinned at its far end with a 1.5 m cantilever
+    balcony carrying a planter wall at its tip and 4 kPa category C."""
+    return request([{"name": "benches", "kind": "imposed", "category": "C", "kPa": 4.0},
+                    {"name": "planter wall", "kind": "permanent", "line_kN_per_m": wall_kN_per_m, "span": 2,
+                     "at_m": 1.5}], spans=(4.0, 1.5), ends=("pinned", "free"))
+
+
+def equilibrium_check(res):
+    found = [c for s in res["supports"] for c in s["checks"] if c["id"] == "equilibrium"]
+    assert len(found) == 1, found
+    return found[0]
+
+
+@pytest.mark.parametrize("wall,uplift", [(20.0, True), (2.0, False)])
+def test_cantilever_equilibrium_by_hand_statics(wall, uplift):
+    """EN 1990 Table A1.2(A) (recommended): γG,inf 0.90 on the back span,
+    γG,sup 1.10 and γQ 1.5 on the cantilever only. Moments about the
+    cantilever's root (statics): R_stb = 0.9 g L / 2; R_dst = (1.1 g Lc^2 / 2
+    + 1.1 P Lc + 1.5 q Lc^2 / 2) / L, g the self-weight."""
+    L, Lc, g, q = 4.0, 1.5, SELF_WEIGHT_KPA, 4.0
+    res = armature.design(balcony(wall))
+    c = equilibrium_check(res)
+    R_stb = 0.9 * g * L / 2
+    R_dst = (1.1 * g * Lc ** 2 / 2 + 1.1 * wall * Lc + 1.5 * q * Lc ** 2 / 2) / L
+    assert c["where"] == "support 1"
+    assert c["capacity"] == pytest.approx(R_stb, rel=1e-9)
+    assert c["demand"] == pytest.approx(R_dst, rel=1e-9)
+    assert c["pass"] is (not uplift)
+    assert (res["status"] == "fail") if uplift else True
+
+
+def test_equilibrium_is_not_checked_for_a_version_1_request():
+    """Version 1 requests keep their version 1 checks (the regression corpus)."""
+    r = copy.deepcopy(BASE)
+    r["slab"].update(spans_m=[4.0, 1.5], ends=["pinned", "free"])
+    r["loads"] = {"imposed_kPa": 4.0, "imposed_category": "C"}
+    res = armature.design(r)
+    assert not [c for s in res["supports"] for c in s["checks"] if c["id"] == "equilibrium"]
