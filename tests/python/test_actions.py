@@ -304,3 +304,27 @@ def test_equilibrium_is_not_checked_for_a_version_1_request():
     r["loads"] = {"imposed_kPa": 4.0, "imposed_category": "C"}
     res = armature.design(r)
     assert not [c for s in res["supports"] for c in s["checks"] if c["id"] == "equilibrium"]
+
+
+def test_aci_cantilever_equilibrium_by_hand_statics():
+    """ACI 318-19 5.3.1 (a) 1.4D and (b) 1.2D + 1.6L with L on the
+    cantilever only (D at one factor on every span; 0.9D goes only with W or
+    E): the least far-support reaction of the two, by moments about the root."""
+    L, Lc, P, q = 4.0, 1.5, 12.0, 4.0
+    r = balcony(P)
+    r["code"] = "ACI318-19"
+    del r["variant"]
+    r["concrete"] = {"cylinder_strength_MPa": 28}
+    r["reinforcement"] = {"yield_strength_MPa": 420}
+    r["durability"] = {"cover_mm": 20}
+    c = equilibrium_check(armature.design(r))
+    g = 23.6 * 0.2  # 150 lb/ft³ (common practice)
+    cases = []
+    for d, l in ((1.4, 0.0), (1.2, 1.6)):
+        stb = d * g * L / 2
+        dst = (d * g * Lc ** 2 / 2 + d * P * Lc + l * q * Lc ** 2 / 2) / L
+        cases.append((stb - dst, stb, dst))
+    _, stb, dst = min(cases)
+    assert c["capacity"] == pytest.approx(stb, rel=1e-9)
+    assert c["demand"] == pytest.approx(dst, rel=1e-9)
+    assert c["clause"] == "ACI 318-19 5.3.1, L on the cantilever only"
