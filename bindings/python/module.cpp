@@ -122,7 +122,15 @@ class PyWriter {
     return true;
   }
   void remember(const armature::Check* c) { made_[c] = last_closed_; }
-  void key(const char* k) { key_ = k; }
+  void key(const char* k) {
+    key_ = k;
+    text_key_.reset();
+  }
+  // A key that is not a literal (an action's name): not cached.
+  void key_text(const std::string& k) {
+    key_ = "";
+    text_key_ = py::str(k);
+  }
   void value(double v) { put(PyFloat_FromDouble(v)); }
   void value(bool v) { put(PyBool_FromLong(v)); }
   void value(const std::string& v) {
@@ -150,6 +158,7 @@ class PyWriter {
     }
     PyObject* top = stack_.back();
     if (PyList_Check(top)) PyList_Append(top, v);
+    else if (text_key_) PyDict_SetItem(top, text_key_->ptr(), v);
     else PyDict_SetItem(top, literal_key(key_), v);
     Py_DECREF(v);  // the container holds it now
     return v;
@@ -169,6 +178,7 @@ class PyWriter {
   PyObject* last_closed_ = nullptr;                           // borrowed
   std::unordered_map<const armature::Check*, PyObject*> made_;  // borrowed, owned by root_
   const char* key_ = "";
+  std::optional<py::str> text_key_;
 };
 
 // Keys are string literals of result_writer.hpp: cached by address.

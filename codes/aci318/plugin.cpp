@@ -6,6 +6,7 @@
 
 #include "armature/plugin.hpp"
 #include "armature/steps.hpp"
+#include "combinations.hpp"
 #include "rules.hpp"
 
 namespace armature::aci318 {
@@ -60,11 +61,36 @@ class Checker final : public SlabChecker {
   LoadBasis load_basis() const override {
     LoadBasis basis;
     basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(default_density_kN_m3);
-    basis.uls.push_back({"5.3.1a: 1.4 D", dead_only_factor, 0.0, dead_only_factor});
-    basis.uls.push_back({"5.3.1b: 1.2 D + 1.6 L", dead_factor, live_factor, dead_factor});
-    basis.psi2 = 0.0;  // the sustained part of L is not defined here: D alone
     basis.long_term_load_name = "sustained";  // ACI 318-19 24.2.4.1, Table 24.2.2
     return basis;
+  }
+
+  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
+    return aci_combinations(actions);
+  }
+
+  // Uplift at the back span's far support under the 5.3.1 combinations
+  // with the live loads on the cantilever only (ACI 318-19 has no factor
+  // below 1.2 on D without W or E: 0.9D of (f), (g) is not used).
+  std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override {
+    std::vector<Check> out;
+    RegionVerdict verdict;
+    CheckCollector checks(out, verdict, detail == Detail::verdict ? Detail::checks : detail);
+    run_check("equilibrium", [&] {
+      checks.add("equilibrium", d.where, "ACI 318-19 5.3.1, L on the cantilever only", d.R_destabilising * 1e-3,
+                 d.R_stabilising * 1e-3, "kN", [&] {
+                   StepRecorder st;
+                   st.add("R,stb", "reaction from the loads off the cantilever", "", d.R_stabilising * 1e-3, "kN",
+                          "ACI 318-19 5.3.1");
+                   st.add("R,dst", "reaction taken away by the cantilever's loads", "", d.R_destabilising * 1e-3, "kN",
+                          "ACI 318-19 5.3.1");
+                   st.add("R,min", "R,stb − R,dst under " + d.combination + " (negative: uplift)",
+                          num(d.R_stabilising * 1e-3) + " − " + num(d.R_destabilising * 1e-3),
+                          (d.R_stabilising - d.R_destabilising) * 1e-3, "kN", "ACI 318-19 5.3.1");
+                   return st.take();
+                 });
+    });
+    return out;
   }
 
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {

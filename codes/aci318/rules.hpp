@@ -66,8 +66,8 @@ double minimum_slab_thickness(double span, SupportCondition condition, double fy
 bool is_exposure(const std::string& exposure);            // interior, weather, ground
 double specified_cover(const std::string& exposure, double bar_diameter);
 
-// ---- Loads (5.3.1) ------------------------------------------------------------
-constexpr double dead_only_factor = 1.4;                  // (5.3.1a)
-constexpr double dead_factor = 1.2, live_factor = 1.6;    // (5.3.1b)
+// ---- Loads (5.3.1): combinations.hpp
+
+
 
 }  // namespace armature::aci318

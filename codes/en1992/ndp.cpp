@@ -28,6 +28,9 @@ const std::map<std::string, NumberSpec>& number_specs() {
       {"gamma_G", {&Ndp::gamma_G, 1.0, 1.6}},
       {"gamma_Q", {&Ndp::gamma_Q, 1.0, 1.8}},
       {"xi", {&Ndp::xi, 0.7, 1.0}},
+      {"equ_gamma_G_sup", {&Ndp::equ_gamma_G_sup, 1.0, 1.5}},
+      {"equ_gamma_G_inf", {&Ndp::equ_gamma_G_inf, 0.7, 1.0}},
+      {"equ_gamma_Q", {&Ndp::equ_gamma_Q, 1.0, 1.8}},
       {"k1", {&Ndp::k1, 0.3, 0.6}},
       {"k2_factor", {&Ndp::k2_factor, 0.8, 1.5}},
       {"k3", {&Ndp::k3, 0.3, 0.7}},
@@ -72,7 +75,7 @@ bool is_crack_width_column(double w) {
 const std::vector<std::string>& other_keys() {
   static const std::vector<std::string> keys{"variant",          "title",
                                              "pattern_loading",  "durability_note",
-                                             "psi_factors",      "span_depth_cap_K",
+                                             "psi_factors",      "psi_snow",         "span_depth_cap_K",
                                              "shear_fck_cap_MPa", "extra_strength_classes"};
   return keys;
 }
@@ -221,6 +224,30 @@ Ndp parse_ndp(const std::string& text, const std::string& where) {
                                     short_number(values[2]));
     ndp.psi[i] = {values[0], values[1], values[2]};
   }
+
+  // EN 1990 Table A1.1, snow: ψ0, ψ1, ψ2 in [0, 1], ψ2 ≤ ψ1.
+  if (!j.contains("psi_snow")) fail("psi_snow", "missing");
+  {
+    const auto& row = j["psi_snow"];
+    if (!row.is_object()) fail("psi_snow", "must be an object with psi0, psi1 and psi2");
+    for (auto it = row.begin(); it != row.end(); ++it)
+      if (it.key() != "psi0" && it.key() != "psi1" && it.key() != "psi2")
+        fail("psi_snow." + it.key(), "unknown parameter");
+    double values[3] = {0, 0, 0};
+    const char* names[3] = {"psi0", "psi1", "psi2"};
+    for (int k = 0; k < 3; ++k) {
+      const std::string key = std::string("psi_snow.") + names[k];
+      if (!row.contains(names[k])) fail(key, "missing");
+      if (!row[names[k]].is_number()) fail(key, "must be a number");
+      values[k] = in_range(key, row[names[k]].get<double>(), 0.0, 1.0);
+    }
+    if (values[2] > values[1])
+      fail("psi_snow.psi2", "must not exceed psi1 (" + short_number(values[1]) + "), got " + short_number(values[2]));
+    ndp.psi_snow = {values[0], values[1], values[2]};
+  }
+  if (ndp.equ_gamma_G_inf > ndp.equ_gamma_G_sup)
+    fail("equ_gamma_G_inf", "must not exceed equ_gamma_G_sup (" + short_number(ndp.equ_gamma_G_sup) + "), got " +
+                                short_number(ndp.equ_gamma_G_inf));
 
   // Strength classes the variant adds: "C<fck>/<fck,cube>": fck.
   if (!j.contains("extra_strength_classes")) fail("extra_strength_classes", "missing ({} for none)");

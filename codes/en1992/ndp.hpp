@@ -23,6 +23,9 @@ struct Ndp {
   double gamma_G = 0.0;          // EN 1990 Table A1.2(B)
   double gamma_Q = 0.0;          // EN 1990 Table A1.2(B)
   double xi = 0.0;               // EN 1990 Table A1.2(B), 6.10b
+  double equ_gamma_G_sup = 0.0;  // EN 1990 Table A1.2(A), permanent unfavourable
+  double equ_gamma_G_inf = 0.0;  // EN 1990 Table A1.2(A), permanent favourable
+  double equ_gamma_Q = 0.0;      // EN 1990 Table A1.2(A), variable unfavourable
   double k1 = 0.0;               // 5.5(4)
   double k2_factor = 0.0;        // k2 = k2_factor (0.6 + 0.0014/εcu2)
   double k3 = 0.0;
@@ -44,6 +47,8 @@ struct Ndp {
   // EN 1990 Table A1.1: ψ0, ψ1, ψ2 of imposed-load categories A–H, in
   // that order (imposed_load_categories).
   std::array<PsiFactors, 8> psi{};
+  // EN 1990 Table A1.1: ψ0, ψ1, ψ2 of snow (sites at altitude ≤ 1000 m).
+  PsiFactors psi_snow{0.0, 0.0, 0.0};
   // UK NA Table NA.5 Note 6 (A1:2009): allowed l/d ≤ cap × K (Table 7.4N K); none
   // when the variant sets no cap (JSON null).
   std::optional<double> span_depth_cap_K;

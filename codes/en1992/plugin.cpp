@@ -12,6 +12,7 @@
 #include "armature/analysis.hpp"
 #include "armature/plugin.hpp"
 #include "armature/steps.hpp"
+#include "en1990.hpp"
 #include "ndp.hpp"
 #include "rules.hpp"
 
@@ -74,10 +75,6 @@ const char* system_name(SpanKind kind) {
 
 using Steps = StepRecorder;
 
-// "6.10: 1.35 Gk + 1.5 Qk"
-std::string uls_label(const char* expression, double gamma_G, double gamma_Q) {
-  return std::string(expression) + ": " + num(gamma_G) + " Gk + " + num(gamma_Q) + " Qk";
-}
 
 struct Materials {
   double fck, fyk, fcd, fyd, fctm, eta, lambda, eps_cu2;
@@ -85,8 +82,8 @@ struct Materials {
 
 class Checker final : public SlabChecker {
  public:
-  Checker(const Ndp& ndp, const std::string& label_6_10, const Request& req)
-      : ndp_(ndp), label_6_10_(label_6_10), req_(req) {
+  Checker(const Ndp& ndp, const Request& req)
+      : ndp_(ndp), req_(req) {
     const double fck = req.concrete.cylinder_strength_MPa
                            ? *req.concrete.cylinder_strength_MPa
                            : *fck_of_class(ndp, *req.concrete.strength_class);
@@ -120,22 +117,36 @@ class Checker final : public SlabChecker {
   LoadBasis load_basis() const override {
     LoadBasis basis;
     basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(default_density_kN_m3);
-    basis.psi2 = psi_.psi2;
     basis.long_term_load_name = "quasi-permanent";  // EN 1990 6.5.3 (6.16b)
-    const double gG = ndp_.gamma_G, gQ = ndp_.gamma_Q;
-    if (req_.design.combination.value_or("6.10") == "6.10") {
-      basis.uls.push_back({label_6_10_, gG, gQ, gG});
-    } else {
-      // ψ0 and ξ are the variant's: the labels say so.
-      const double gQa = gQ * psi_.psi0, gGb = ndp_.xi * gG;
-      basis.uls.push_back({uls_label("6.10a", gG, gQa) + " (ψ0 = " + num(psi_.psi0) + " for category " +
-                               req_.loads.imposed_category + ", " + ndp_.variant + " variant NDP)",
-                           gG, gQa, gG});
-      basis.uls.push_back({uls_label("6.10b", gGb, gQ) + " (ξ = " + num(ndp_.xi) + ", " + ndp_.variant +
-                               " variant NDP)",
-                           gGb, gQ, gGb});
-    }
     return basis;
+  }
+
+  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
+    return en1990_combinations(en1990_factors(ndp_), req_.design.combination.value_or("6.10") != "6.10", actions);
+  }
+
+  // EN 1990 6.4.2(1) (6.7): Ed,dst ≤ Ed,stb, here as the reaction the
+  // cantilever's loads take from the back span's far support against the
+  // reaction the back span's loads give it (utilisation > 1: uplift).
+  std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override {
+    std::vector<Check> out;
+    RegionVerdict verdict;
+    CheckCollector checks(out, verdict, detail == Detail::verdict ? Detail::checks : detail);
+    run_check("equilibrium", [&] {
+      checks.add("equilibrium", d.where, "EN 1990 6.4.2(1) (6.7), Table A1.2(A)", d.R_destabilising * 1e-3,
+                 d.R_stabilising * 1e-3, "kN", [&] {
+                   Steps st;
+                   st.add("R,stb", "reaction from the loads off the cantilever (γG,inf)", "", d.R_stabilising * 1e-3,
+                          "kN", variant_ndp("EN 1990 6.4.2(1), Table A1.2(A)", "equ_gamma_G_inf"));
+                   st.add("R,dst", "reaction taken away by the cantilever's loads", "", d.R_destabilising * 1e-3,
+                          "kN", "EN 1990 6.4.2(1)");
+                   st.add("R,min", "R,stb − R,dst under " + d.combination + " (negative: uplift)",
+                          num(d.R_stabilising * 1e-3) + " − " + num(d.R_destabilising * 1e-3),
+                          (d.R_stabilising - d.R_destabilising) * 1e-3, "kN", "EN 1990 6.4.2(1) (6.7)");
+                   return st.take();
+                 });
+    });
+    return out;
   }
 
   std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const override {
@@ -736,7 +747,6 @@ class Checker final : public SlabChecker {
   }
 
   const Ndp& ndp_;       // of the Code, which outlives this checker
-  const std::string& label_6_10_;  // the Code's, as ndp_
   const Request& req_;   // kept alive by the caller of Code::begin
   Materials m_{};
   PsiFactors psi_{};
@@ -752,8 +762,7 @@ std::string format_range(double lo, double hi, const char* unit) {
 class Code final : public DesignCode {
  public:
   explicit Code(Ndp ndp)
-      : ndp_(std::move(ndp)),
-        label_6_10_(uls_label("6.10", ndp_.gamma_G, ndp_.gamma_Q)) {}
+      : ndp_(std::move(ndp)) {}
 
   CodeIdentity identity() const override { return {code_id, ndp_.variant, ndp_.title}; }
 
@@ -821,7 +830,7 @@ class Code final : public DesignCode {
   }
 
   std::unique_ptr<SlabChecker> begin(const Request& req) const override {
-    return std::make_unique<Checker>(ndp_, label_6_10_, req);
+    return std::make_unique<Checker>(ndp_, req);
   }
 
  private:
@@ -867,7 +876,6 @@ class Code final : public DesignCode {
   }
 
   Ndp ndp_;
-  std::string label_6_10_;  // the same for every request of this variant
 };
 
 // A firm's own national-annex variant: a file <name>.en1992.json in any

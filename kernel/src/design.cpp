@@ -8,6 +8,7 @@
 #include <cstdio>
 #include <optional>
 #include <string_view>
+#include <limits>
 #include <numbers>
 
 #include "armature/analysis.hpp"
@@ -39,26 +40,6 @@ void add_scope_problems(const Request& req, InputProblems& problems) {
                    "this strip has no interior support whose moment can be redistributed "
                    "(cantilever roots are statically determinate); the largest allowed value is 0");
   }
-}
-
-LoadTotals total_loads(const LoadBasis& basis, const Request& req) {
-  LoadTotals t;
-  // density kN/m³ = 1e-6 N/mm³; times h in mm gives N/mm².
-  t.self_weight = basis.density_kN_m3 * 1e-6 * req.slab.thickness_mm;
-  t.Gk = t.self_weight + req.loads.dead_MPa;
-  t.Qk = req.loads.imposed_MPa;
-  t.uls = -1.0;
-  for (const auto& e : basis.uls) {
-    double full = e.gamma_G_loaded * t.Gk + e.gamma_Q * t.Qk;
-    if (full > t.uls) {
-      t.uls = full;
-      t.combination = e.label;
-    }
-  }
-  t.sls_quasi_permanent = t.Gk + basis.psi2 * t.Qk;
-  t.density_kN_m3 = basis.density_kN_m3;
-  t.long_term_load_name = basis.long_term_load_name;
-  return t;
 }
 
 // For a request that passed validation; `id` is the code's identity,
@@ -209,23 +190,132 @@ SpanKind span_kind_of(const StripModel& m, std::size_t e) {
   return SpanKind::simply_supported;
 }
 
-// Load cases: every arrangement of every ULS expression, as line loads.
-std::vector<std::vector<double>> load_cases(const LoadBasis& basis, const LoadTotals& t,
-                                            const std::vector<std::vector<bool>>& arrangements,
-                                            double width_mm) {
-  std::vector<std::vector<double>> cases;
-  for (const auto& e : basis.uls) {
-    const double loaded = (e.gamma_G_loaded * t.Gk + e.gamma_Q * t.Qk) * width_mm;
-    const double unloaded = e.gamma_G_unloaded * t.Gk * width_mm;
+bool whole_strip_uniform(const Action& a) { return a.distribution == Distribution::uniform && !a.span; }
+
+// Uniform over the whole of span e (a whole-strip action, or one on that
+// span with no from/to).
+bool uniform_on_span(const Action& a, std::size_t e) {
+  return a.distribution == Distribution::uniform && (!a.span || (*a.span == e && !a.from_mm && !a.to_mm));
+}
+
+double factor_of(const Action& a, const ActionFactor& f, bool loaded) {
+  if (loaded) return f.loaded;
+  return is_variable(a.kind) ? 0.0 : f.unloaded;
+}
+
+// Σ factor × value over the actions `on` selects: the permanent ones summed
+// first and factored once per distinct factor, then each variable one, so
+// that G and Q alone give γG Gk + γQ Qk operation for operation (version 1).
+template <class On>
+double factored_sum(const std::vector<Action>& actions, const std::vector<ActionFactor>& f, bool loaded, On on) {
+  std::vector<std::pair<double, double>> groups;  // factor, Σ values
+  for (std::size_t i = 0; i < actions.size(); ++i) {
+    if (is_variable(actions[i].kind) || !on(actions[i])) continue;
+    const double k = factor_of(actions[i], f[i], loaded);
+    auto g = std::find_if(groups.begin(), groups.end(), [&](const auto& p) { return p.first == k; });
+    if (g == groups.end()) groups.emplace_back(k, actions[i].value);
+    else g->second += actions[i].value;
+  }
+  double total = 0.0;
+  bool first = true;
+  auto add = [&](double term) {
+    total = first ? term : total + term;
+    first = false;
+  };
+  for (const auto& [k, sum] : groups) add(k * sum);
+  for (std::size_t i = 0; i < actions.size(); ++i)
+    if (is_variable(actions[i].kind) && on(actions[i])) add(factor_of(actions[i], f[i], loaded) * actions[i].value);
+  return total;
+}
+
+// The loads of one combination and arrangement on the strip's spans, for
+// the strip width b: uniform actions over a whole span in `w`, partial
+// ones as partial loads, line loads (value × b) and point loads (value ×
+// b / effective width: the load per width of the loaded band) as
+// concentrated loads.
+std::vector<SpanLoading> loading_of(const std::vector<Action>& actions, const Combination& c,
+                                    const std::vector<bool>& loaded, const std::vector<double>& spans_mm,
+                                    double b) {
+  std::vector<SpanLoading> out(loaded.size());
+  for (std::size_t e = 0; e < loaded.size(); ++e) {
+    SpanLoading& s = out[e];
+    s.w = factored_sum(actions, c.factors, loaded[e], [e](const Action& a) { return uniform_on_span(a, e); }) * b;
+    for (std::size_t i = 0; i < actions.size(); ++i) {
+      const Action& a = actions[i];
+      if (!a.span || *a.span != e || uniform_on_span(a, e)) continue;
+      const double k = factor_of(a, c.factors[i], loaded[e]);
+      if (k == 0.0 || a.value == 0.0) continue;
+      switch (a.distribution) {
+        case Distribution::uniform:
+          s.loads.push_back(partial_uniform_load(k * a.value * b, a.from_mm.value_or(0.0),
+                                                 a.to_mm.value_or(spans_mm[e])));
+          break;
+        case Distribution::line: s.loads.push_back(concentrated_load(k * a.value * b, a.at_mm)); break;
+        case Distribution::point:
+          s.loads.push_back(concentrated_load(k * a.value * b / a.effective_width_mm, a.at_mm));
+          break;
+      }
+    }
+  }
+  return out;
+}
+
+bool same_loads(const std::vector<SpanLoading>& x, const std::vector<SpanLoading>& y) {
+  if (x.size() != y.size()) return false;
+  for (std::size_t e = 0; e < x.size(); ++e) {
+    if (x[e].w != y[e].w || x[e].loads.size() != y[e].loads.size()) return false;
+    for (std::size_t k = 0; k < x[e].loads.size(); ++k) {
+      const SpanLoad &p = x[e].loads[k], &q = y[e].loads[k];
+      if (p.shape != q.shape || p.value != q.value || p.a_mm != q.a_mm || p.b_mm != q.b_mm) return false;
+    }
+  }
+  return true;
+}
+
+// Load cases: every arrangement of every combination of one limit state.
+// The same loads twice (a single span's "alternate" and "all spans"
+// arrangements) add nothing to the envelope and are kept once.
+std::vector<std::vector<SpanLoading>> load_cases(const std::vector<Action>& actions,
+                                                 const std::vector<Combination>& combinations, LimitState state,
+                                                 const std::vector<std::vector<bool>>& arrangements,
+                                                 const std::vector<double>& spans_mm, double b) {
+  std::vector<std::vector<SpanLoading>> cases;
+  for (const auto& c : combinations) {
+    if (c.limit_state != state) continue;
     for (const auto& a : arrangements) {
-      std::vector<double> w(a.size());
-      for (std::size_t i = 0; i < a.size(); ++i) w[i] = a[i] ? loaded : unloaded;
-      // The same loads twice (a single span's "alternate" and "all spans"
-      // arrangements) add nothing to the envelope.
-      if (std::find(cases.begin(), cases.end(), w) == cases.end()) cases.push_back(std::move(w));
+      auto loads = loading_of(actions, c, a, spans_mm, b);
+      if (std::none_of(cases.begin(), cases.end(), [&](const auto& k) { return same_loads(k, loads); }))
+        cases.push_back(std::move(loads));
     }
   }
   return cases;
+}
+
+// Uniform totals of the whole-strip actions (the version 1 `loads`).
+LoadTotals total_loads(const LoadBasis& basis, const std::vector<Action>& actions,
+                       const std::vector<Combination>& combinations) {
+  LoadTotals t;
+  t.self_weight = actions.front().value;
+  const std::vector<ActionFactor> unit(actions.size(), ActionFactor{1.0, 1.0});
+  t.Gk = factored_sum(actions, unit, true,
+                      [](const Action& a) { return whole_strip_uniform(a) && !is_variable(a.kind); });
+  t.Qk = factored_sum(actions, unit, true,
+                      [](const Action& a) { return whole_strip_uniform(a) && is_variable(a.kind); });
+  t.uls = -1.0;
+  t.sls_quasi_permanent = -1.0;
+  for (const auto& c : combinations) {
+    if (c.limit_state != LimitState::uls && c.limit_state != LimitState::quasi_permanent) continue;
+    const double full = factored_sum(actions, c.factors, true, whole_strip_uniform);
+    if (c.limit_state == LimitState::uls && full > t.uls) {
+      t.uls = full;
+      t.combination = c.label;
+    }
+    if (c.limit_state == LimitState::quasi_permanent) t.sls_quasi_permanent = std::max(t.sls_quasi_permanent, full);
+  }
+  if (t.sls_quasi_permanent < 0.0) t.sls_quasi_permanent = t.Gk;
+  t.density_kN_m3 = basis.density_kN_m3;
+  t.long_term_load_name = basis.long_term_load_name;
+  return t;
 }
 
 // x where positive, else +0 (never −0, whose reciprocal is −inf).
@@ -234,9 +324,11 @@ double positive_part(double x) { return x > 0.0 ? x : 0.0; }
 // The regions of contract.md in order along the strip: a top region at each
 // support that carries hogging (and at pinned ends when the code asks for
 // partial-fixity steel), a bottom region in each span that is not a cantilever.
+// qp_to_uls(face, span or node, x from the span's left end (spans only)).
+template <class QpRatio>
 std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
                                      double fixity_fraction, double delta,
-                                     const std::vector<bool>& redistributed, double qp_to_uls,
+                                     const std::vector<bool>& redistributed, QpRatio qp_to_uls,
                                      std::vector<std::string>& warnings) {
   std::vector<RegionDemand> out;
   const std::size_t n = m.span_count();
@@ -248,14 +340,16 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
       g.where = support_name(j);
       g.face = Face::top;
       g.x_mm = m.node_position_mm(j);
-      g.quasi_permanent_to_uls = qp_to_uls;
       if (pinned_end) {
         if (fixity_fraction > 0.0) {
           const std::size_t e = j == 0 ? 0 : n - 1;
+          // Its moment is a fraction of the span's: the span's ratio.
+          g.quasi_permanent_to_uls = qp_to_uls(Face::bottom, e, env.span_x_max_sagging[e]);
           g.M_Ed = fixity_fraction * positive_part(env.span_max_sagging[e]);
           out.push_back(std::move(g));
         }
       } else {
+        g.quasi_permanent_to_uls = qp_to_uls(Face::top, j, 0.0);
         g.M_Ed = env.node_max_hogging[j];
         g.supports = {{support_name(j), env.node_max_shear[j]}};
         g.redistribution_delta = redistributed[j] ? delta : 1.0;
@@ -281,7 +375,7 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
       g.span_where = span_name(j);
       g.span_mm = m.spans_mm[j];
       g.span_kind = span_kind_of(m, j);
-      g.quasi_permanent_to_uls = qp_to_uls;
+      g.quasi_permanent_to_uls = qp_to_uls(Face::bottom, j, env.span_x_max_sagging[j]);
       // Pinned end supports rely on the bottom bars of their span.
       for (std::size_t k : {j, j + 1})
         if ((k == 0 || k == n) && m.has_support(k) && !m.is_restrained(k))
@@ -290,6 +384,56 @@ std::vector<RegionDemand> regions_of(const StripModel& m, const Envelope& env,
     }
   }
   return out;
+}
+
+// Static equilibrium of each cantilever's back span (EQU combinations):
+// the cantilever alone loaded (permanent actions at the `loaded`,
+// unfavourable factor there, variable actions there only), the other spans
+// at the `unloaded`, favourable factor. The reaction at the far support of
+// the back span is split by superposition into what the other spans' loads
+// give and what the cantilever's loads take away; the combination with the
+// least reaction is checked by the code. A fixed far end is built in and
+// is not checked.
+void add_equilibrium_checks(const SlabChecker& checker, DesignRecord& rec, const StripModel& m, double b,
+                            Detail detail) {
+  const std::size_t n = m.span_count();
+  if (n < 2) return;
+  for (std::size_t c = 0; c < n; ++c) {
+    if (!m.is_cantilever(c)) continue;
+    const std::size_t far = c == 0 ? 2 : n - 2;  // the back span's other end
+    if (far > n || !m.has_support(far) || ((far == 0 || far == n) && m.is_restrained(far))) continue;
+    std::vector<bool> loaded(n, false);
+    loaded[c] = true;
+    std::vector<std::vector<SpanLoading>> cases;
+    std::vector<const Combination*> used;
+    for (const auto& k : rec.combinations) {
+      if (k.limit_state != LimitState::equilibrium) continue;
+      auto all = loading_of(rec.actions, k, loaded, rec.spans_mm, b);
+      std::vector<SpanLoading> stabilising = all, destabilising(n);
+      stabilising[c] = SpanLoading{};
+      destabilising[c] = all[c];
+      cases.push_back(std::move(stabilising));
+      cases.push_back(std::move(destabilising));
+      used.push_back(&k);
+    }
+    if (used.empty()) continue;
+    const auto results = analyse_load_cases(m, cases);
+    EquilibriumDemand worst;
+    double least = std::numeric_limits<double>::infinity();
+    for (std::size_t k = 0; k < used.size(); ++k) {
+      const double R_stb = results[2 * k].reactions[far], R_dst = -results[2 * k + 1].reactions[far];
+      if (R_stb - R_dst < least) {
+        least = R_stb - R_dst;
+        worst = {support_name(far), used[k]->label, R_stb, R_dst};
+      }
+    }
+    auto checks = call_code(rec.code, "equilibrium", [&] { return checker.equilibrium_checks(worst, detail); },
+                            worst.where);
+    auto s = std::find_if(rec.supports.begin(), rec.supports.end(),
+                          [&](const SupportRecord& r) { return r.where == worst.where; });
+    if (s == rec.supports.end()) continue;
+    for (auto& chk : checks) s->checks.push_back(std::move(chk));
+  }
 }
 
 // Hogging moment magnitude of a span at x (mm from its left end).
@@ -390,9 +534,17 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   rec.report_units = req.report_units;
   rec.strip_width_mm = req.slab.strip_width_mm;
   const SlabChecker* const checker = &code_checker;
-  LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
-  if (basis.uls.empty()) throw DesignError(rec.code.id + ": the code gave no ULS expression");
-  rec.loads = total_loads(basis, req);
+  const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
+  rec.actions = all_actions(req, basis.density_kN_m3);
+  rec.list_actions = req.loads.actions_given;
+  rec.combinations = call_code(rec.code, "combinations", [&] { return checker->combinations(rec.actions); });
+  for (const auto& c : rec.combinations)
+    if (c.factors.size() != rec.actions.size())
+      throw DesignError(rec.code.id + ": combination '" + c.label + "' does not give a factor for every action");
+  if (std::none_of(rec.combinations.begin(), rec.combinations.end(),
+                   [](const Combination& c) { return c.limit_state == LimitState::uls; }))
+    throw DesignError(rec.code.id + ": the code gave no ULS combination");
+  rec.loads = total_loads(basis, rec.actions, rec.combinations);
   if (detail == Detail::steps)  // only the calculation record lists them
     rec.defaults_used = call_code(rec.code, "defaults", [&] { return checker->defaults_used(); });
 
@@ -407,21 +559,55 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
 
   const double delta = 1.0 - req.design.redistribution_percent / 100.0;
   const auto redistributed = redistributable_nodes(model);
-  std::vector<CaseResult> cases = analyse_cases(model, load_cases(basis, rec.loads, arrangements, b));
+  const auto uls_cases = load_cases(rec.actions, rec.combinations, LimitState::uls, arrangements, req.slab.spans_mm, b);
+  rec.load_cases = uls_cases.size();
+  std::vector<CaseResult> cases = analyse_load_cases(model, uls_cases);
   if (delta < 1.0)
     for (auto& c : cases) c = redistribute(model, c, redistributed, delta);
   const Envelope env = envelope_of(model, cases);
   if (detail == Detail::steps) rec.diagrams = envelope_diagrams(model, cases);  // for the record
   rec.spans_mm = req.slab.spans_mm;
-  rec.uls_expressions = std::move(basis.uls);  // basis is not used below
   rec.load_arrangements = arrangements.size();
   rec.ends = req.slab.ends;
   rec.redistribution_percent = req.design.redistribution_percent;
   rec.project = req.project;
   rec.thickness_mm = req.slab.thickness_mm;
   const double fixity = call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
-  auto demands = regions_of(model, env, fixity, delta, redistributed,
-                            rec.loads.sls_quasi_permanent / rec.loads.uls, rec.warnings);
+  // The ratio of the quasi-permanent moment to the ULS moment at a region.
+  // With every action uniform over the whole strip the moments are in the
+  // ratio of the loads, taken from the loads (as version 1, exactly).
+  // Otherwise both come from analyses with every span loaded: the
+  // quasi-permanent combination(s) and the ULS combination giving the
+  // largest moment of the region's sense there; bounded to [0, 1], and the
+  // load ratio where that ULS moment is nil or of the other sense.
+  const double load_ratio = rec.loads.sls_quasi_permanent / rec.loads.uls;
+  const bool all_uniform = std::all_of(rec.actions.begin(), rec.actions.end(), whole_strip_uniform);
+  std::vector<CaseResult> qp_all, uls_all;
+  if (!all_uniform) {
+    const std::vector<std::vector<bool>> all_loaded{all_spans_loaded(n)};
+    qp_all = analyse_load_cases(model, load_cases(rec.actions, rec.combinations, LimitState::quasi_permanent,
+                                                  all_loaded, req.slab.spans_mm, b));
+    uls_all = analyse_load_cases(
+        model, load_cases(rec.actions, rec.combinations, LimitState::uls, all_loaded, req.slab.spans_mm, b));
+  }
+  double longest = 0.0;
+  for (double L : req.slab.spans_mm) longest = std::max(longest, L);
+  const double nil_moment = 1e-9 * rec.loads.uls * b * longest * longest;
+  auto moment_in = [&](const CaseResult& c, Face face, std::size_t index, double x) {
+    const double M = face == Face::bottom ? c.spans[index].moment_at(x)
+                     : index < n          ? c.spans[index].M_left
+                                          : c.spans[n - 1].M_right();
+    return face == Face::bottom ? M : -M;
+  };
+  auto qp_ratio = [&](Face face, std::size_t index, double x) {
+    if (all_uniform || qp_all.empty()) return load_ratio;
+    double M_uls = -std::numeric_limits<double>::infinity(), M_qp = -std::numeric_limits<double>::infinity();
+    for (const auto& c : uls_all) M_uls = std::max(M_uls, moment_in(c, face, index, x));
+    for (const auto& c : qp_all) M_qp = std::max(M_qp, moment_in(c, face, index, x));
+    if (!(M_uls > nil_moment)) return load_ratio;
+    return std::clamp(M_qp / M_uls, 0.0, 1.0);
+  };
+  auto demands = regions_of(model, env, fixity, delta, redistributed, qp_ratio, rec.warnings);
   if (!req.slab.support_widths_mm.empty())
     apply_support_widths(*checker, rec.code, model, cases, req.slab.support_widths_mm, demands);
   rec.rationalise = req.reinforcement.rationalise;
@@ -474,6 +660,10 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     for (auto& c : extra) span.checks.push_back(std::move(c));
     rec.spans.push_back(std::move(span));
   }
+
+  // EQU of cantilevers, for requests that list their actions (a version 1
+  // request keeps its version 1 checks; DEVELOPERS.md).
+  if (req.loads.actions_given) add_equilibrium_checks(*checker, rec, model, b, detail);
 
   bool distribution_ok = true;
   rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, plan.grid, rec.warnings,

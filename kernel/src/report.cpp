@@ -87,6 +87,13 @@ std::string long_term_load_label(const LoadTotals& loads) {
   return name + " load";
 }
 
+// The superimposed dead load of the shorthand loads.dead_kPa (0: none).
+double shorthand_dead_MPa(const DesignRecord& r) {
+  for (const auto& a : r.actions)
+    if (a.source == ActionSource::shorthand && !is_variable(a.kind)) return a.value;
+  return 0.0;
+}
+
 // The defaults the design took for fields the request left out: the
 // kernel's own (variant, strip width, superimposed dead load,
 // redistribution), then the code's (defaults_used), each field once.
@@ -94,7 +101,7 @@ std::vector<InputDefault> defaults_left_out(const DesignRecord& r, const json& r
   std::vector<InputDefault> all{
       {"variant", r.code.variant, "the code's default variant"},
       {"slab.strip_width_mm", n4(r.strip_width_mm) + " mm", "armature default"},
-      {"loads.dead_kPa", n4((r.loads.Gk - r.loads.self_weight) * 1e3, r.loads.Gk * 1e3) + " kPa",
+      {"loads.dead_kPa", n4(shorthand_dead_MPa(r) * 1e3) + " kPa",
        "armature default (no superimposed dead load)"},
       {"design.redistribution_percent", n4(r.redistribution_percent) + " %", "armature default"}};
   all.insert(all.end(), r.defaults_used.begin(), r.defaults_used.end());
@@ -228,7 +235,7 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
     }
   }
   o += "<text x=\"4\" y=\"" + n4(f.height - 4) + "\">solid: largest, dashed: smallest of " +
-       std::to_string(r.uls_expressions.size() * r.load_arrangements) +
+       std::to_string(r.load_cases) +
        " load cases; dots: design values</text>";
   return o + "</svg>";
 }
@@ -297,6 +304,50 @@ Title title_of(const DesignRecord& r, const json& request, const std::string& da
   return t;
 }
 
+// "imposed, category C, 4 kPa over the whole strip"
+std::string action_text(const Action& a) {
+  std::string t = to_string(a.kind);
+  if (!a.category.empty()) t += ", category " + a.category;
+  t += ", ";
+  const std::string span = a.span ? "span " + std::to_string(*a.span + 1) : std::string();
+  switch (a.distribution) {
+    case Distribution::uniform:
+      t += n4(a.value * 1e3) + " kPa";
+      if (!a.span) t += " over the whole strip";
+      else if (!a.from_mm && !a.to_mm) t += " over " + span;
+      else
+        t += " on " + span + " from " + n4(a.from_mm.value_or(0.0) / 1e3) + " m" +
+             (a.to_mm ? " to " + n4(*a.to_mm / 1e3) + " m" : std::string(" to its end"));
+      break;
+    case Distribution::line:
+      t += n4(a.value) + " kN/m across the strip, " + span + " at " + n4(a.at_mm / 1e3) + " m";
+      break;
+    case Distribution::point:
+      t += n4(a.value * 1e-3) + " kN, " + span + " at " + n4(a.at_mm / 1e3) + " m, spread over " +
+           n4(a.effective_width_mm / 1e3) + " m (the strip takes P b/beff)";
+      break;
+  }
+  return t;
+}
+
+// The factor on each action; permanent actions on unloaded spans where
+// that differs; and the whole-strip uniform total on loaded spans.
+std::string combination_text(const DesignRecord& r, const Combination& c) {
+  std::string t;
+  double uniform = 0.0;
+  for (std::size_t i = 0; i < r.actions.size() && i < c.factors.size(); ++i) {
+    const Action& a = r.actions[i];
+    const ActionFactor& f = c.factors[i];
+    if (!t.empty()) t += "; ";
+    t += a.name + " × " + n4(f.loaded);
+    if (!is_variable(a.kind) && f.unloaded != f.loaded)
+      t += (c.limit_state == LimitState::equilibrium ? " (cantilever), × " : " (loaded spans), × ") +
+           n4(f.unloaded) + (c.limit_state == LimitState::equilibrium ? " (back span)" : " (unloaded spans)");
+    if (a.distribution == Distribution::uniform && !a.span) uniform += f.loaded * a.value;
+  }
+  return t + "; uniform over the whole strip " + n4(uniform * 1e3) + " kPa";
+}
+
 std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord& r) {
   std::vector<std::pair<std::string, std::string>> rows;
   const double h_m = r.thickness_mm / 1000;
@@ -307,14 +358,22 @@ std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord&
                       n4((r.loads.Gk - r.loads.self_weight) * 1e3, r.loads.Gk * 1e3) + " = " +
                       n4(r.loads.Gk * 1e3) + " kPa"});
   rows.push_back({"Qk (imposed)", n4(r.loads.Qk * 1e3) + " kPa"});
-  for (const auto& e : r.uls_expressions)
-    rows.push_back({"ULS " + e.label, "loaded span " + n4(e.gamma_G_loaded) + " Gk + " + n4(e.gamma_Q) +
-                                          " Qk = " + n4((e.gamma_G_loaded * r.loads.Gk + e.gamma_Q * r.loads.Qk) * 1e3) +
-                                          " kPa; unloaded span " + n4(e.gamma_G_unloaded) + " Gk = " +
-                                          n4(e.gamma_G_unloaded * r.loads.Gk * 1e3) + " kPa"});
+  for (const auto& a : r.actions) {
+    if (a.source == ActionSource::self_weight) continue;
+    rows.push_back({"Action: " + a.name, action_text(a)});
+  }
+  for (const auto& c : r.combinations) {
+    // The quasi-permanent combination under the code's own name.
+    const std::string state = c.limit_state == LimitState::quasi_permanent && !r.loads.long_term_load_name.empty()
+                                  ? "SLS " + r.loads.long_term_load_name
+                                  : to_string(c.limit_state);
+    rows.push_back({state + " " + c.label, combination_text(r, c)});
+  }
   rows.push_back({"Governing ULS load", n4(r.loads.uls * 1e3) + " kPa [" + r.loads.combination + "]"});
   rows.push_back({long_term_load_label(r.loads), n4(r.loads.sls_quasi_permanent * 1e3) + " kPa"});
-  rows.push_back({"Load arrangements", std::to_string(r.load_arrangements) + " per ULS expression (code's pattern rules)"});
+  rows.push_back({"Load arrangements", std::to_string(r.load_arrangements) +
+                                           " per ULS combination (code's pattern rules); " +
+                                           std::to_string(r.load_cases) + " distinct load cases"});
   if (r.redistribution_percent > 0)
     rows.push_back({"Moment redistribution", n4(r.redistribution_percent) + " % at interior supports"});
   return rows;

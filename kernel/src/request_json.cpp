@@ -438,12 +438,216 @@ void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInp
   }
 }
 
-void read_loads(const json& j, InputProblems& problems, LoadsInput& l) {
-  ObjectReader r(j, "loads", problems, {"dead_kPa", "imposed_kPa", "imposed_category"});
+// The largest characteristic value of an action of each distribution: a
+// bound against a mistyped unit, not an engineering limit.
+constexpr double max_action_kPa = 100.0;
+constexpr double max_action_line_kN_per_m = 1000.0;
+constexpr double max_action_point_kN = 10000.0;
+constexpr double max_effective_width_m = 100.0;
+
+bool is_imposed_category(const std::string& c) {
+  return c.size() == 1 && c[0] >= 'A' && c[0] <= 'H';
+}
+
+// One entry of loads.actions; nullopt when it has a problem (recorded).
+std::optional<Action> read_action(const json& e, const std::string& path, const std::vector<double>& spans_mm,
+                                  bool spans_known, InputProblems& problems) {
+  if (!e.is_object()) {
+    problems.add(path, "must be an object with name, kind and one of kPa, line_kN_per_m or point_kN, got " +
+                           describe(e));
+    return std::nullopt;
+  }
+  const std::size_t before = problems.items().size();
+  ObjectReader r(e, path, problems,
+                 {"name", "kind", "category", "kPa", "line_kN_per_m", "point_kN", "span", "from_m", "to_m",
+                  "at_m", "effective_width_m"});
+  Action a;
+  a.field = path;
+  if (auto name = r.text("name", true)) {
+    if (name->find_first_not_of(" \t") == std::string::npos)
+      problems.add(r.field("name"), "must not be empty");
+    else
+      a.name = *name;
+  }
+  if (auto kind = r.text("kind", true)) {
+    if (*kind == "permanent") a.kind = ActionKind::permanent;
+    else if (*kind == "imposed") a.kind = ActionKind::imposed;
+    else if (*kind == "snow") a.kind = ActionKind::snow;
+    else if (*kind == "roof") a.kind = ActionKind::roof;
+    else
+      problems.add(r.field("kind"), "must be \"permanent\", \"imposed\", \"snow\" or \"roof\", got \"" +
+                                        *kind + "\"");
+    if (auto cat = r.text("category")) {
+      if (a.kind == ActionKind::imposed) {
+        if (is_imposed_category(*cat)) a.category = *cat;
+        else
+          problems.add(r.field("category"), "must be an imposed-load category A to H (EN 1990 Table A1.1), got \"" +
+                                                *cat + "\"");
+      } else if (a.kind == ActionKind::roof) {
+        if (*cat != "H")
+          problems.add(r.field("category"), "a roof action is category H; leave category out or give \"H\", got \"" +
+                                                *cat + "\"");
+      } else {
+        problems.add(r.field("category"), "applies to imposed and roof actions only, not to " + *kind);
+      }
+    } else if (*kind == "imposed") {
+      problems.add(r.field("category"), "required for an imposed action: A to H (EN 1990 Table A1.1)");
+    }
+    if (a.kind == ActionKind::roof) a.category = "H";
+  }
+  // Exactly one distribution.
+  const bool uniform = r.find("kPa") != nullptr, line = r.find("line_kN_per_m") != nullptr,
+             point = r.find("point_kN") != nullptr;
+  const int shapes = int(uniform) + int(line) + int(point);
+  if (shapes == 0) {
+    problems.add(path, "give one of kPa (uniform), line_kN_per_m (line load) or point_kN (point load)");
+    return std::nullopt;
+  }
+  if (shapes > 1) {
+    problems.add(path, "give only one of kPa, line_kN_per_m and point_kN: one entry is one action "
+                       "of one distribution");
+    return std::nullopt;
+  }
+  auto value_in = [&](const char* key, double hi, const char* unit) -> std::optional<double> {
+    auto v = r.number(key);
+    if (v && *v < 0.0) {
+      problems.add(r.field(key), std::string("must not be negative (loads act downward), got ") + format_number(*v));
+      return std::nullopt;
+    }
+    return r.in_range(v, key, 0, hi, unit);
+  };
+  if (uniform) {
+    a.distribution = Distribution::uniform;
+    if (auto v = value_in("kPa", max_action_kPa, "kPa")) a.value = *v * 1e-3;
+  } else if (line) {
+    a.distribution = Distribution::line;
+    if (auto v = value_in("line_kN_per_m", max_action_line_kN_per_m, "kN/m")) a.value = *v;  // kN/m = N/mm
+  } else {
+    a.distribution = Distribution::point;
+    if (auto v = value_in("point_kN", max_action_point_kN, "kN")) a.value = *v * 1e3;
+  }
+  // The span, 1-based in the request.
+  std::optional<double> span_length_mm;
+  if (const json* sp = r.find("span")) {
+    if (!sp->is_number() || !std::isfinite(sp->get<double>()) || sp->get<double>() != std::floor(sp->get<double>())) {
+      problems.add(r.field("span"), "must be a whole span number (1 for the first span), got " + describe(*sp));
+    } else if (spans_known) {
+      const double k = sp->get<double>();
+      if (k < 1 || k > static_cast<double>(spans_mm.size()))
+        problems.add(r.field("span"), "must be a span number from 1 to " + std::to_string(spans_mm.size()) +
+                                          " (slab.spans_m), got " + format_number(k));
+      else {
+        a.span = static_cast<std::size_t>(k) - 1;
+        span_length_mm = spans_mm[*a.span];
+      }
+    }
+  } else if (line || point) {
+    problems.add(r.field("span"), std::string("required for a ") + (line ? "line" : "point") +
+                                      " load: the span it acts on (1 for the first span)");
+  }
+  // A position on the span, from its left support, in m.
+  auto position = [&](const char* key) -> std::optional<double> {
+    auto v = r.number(key);
+    if (!v) return std::nullopt;
+    if (*v < 0.0) {
+      problems.add(r.field(key), "must not be negative (measured from the span's left support), got " +
+                                     format_number(*v) + " m");
+      return std::nullopt;
+    }
+    if (span_length_mm && *v * 1000.0 > *span_length_mm * (1 + 1e-12)) {
+      problems.add(r.field(key), "must be within the span (0 to " + format_number(*span_length_mm / 1000.0) +
+                                     " m, from its left support), got " + format_number(*v) + " m");
+      return std::nullopt;
+    }
+    return std::min(*v * 1000.0, span_length_mm.value_or(*v * 1000.0));
+  };
+  auto not_with = [&](const char* key, const std::string& why) {
+    if (r.find(key)) problems.add(r.field(key), why);
+  };
+  if (uniform) {
+    not_with("at_m", "applies to line and point loads; a uniform load on part of a span takes from_m and to_m");
+    not_with("effective_width_m", "applies to point loads only");
+    if (!r.find("span")) {
+      not_with("from_m", "needs span: from_m and to_m place a uniform load within one span");
+      not_with("to_m", "needs span: from_m and to_m place a uniform load within one span");
+    } else {
+      a.from_mm = position("from_m");
+      a.to_mm = position("to_m");
+      if (span_length_mm && (r.find("from_m") || r.find("to_m"))) {
+        const double from = a.from_mm.value_or(0.0), to = a.to_mm.value_or(*span_length_mm);
+        const bool from_ok = !r.find("from_m") || a.from_mm, to_ok = !r.find("to_m") || a.to_mm;
+        if (from_ok && to_ok && !(from < to))
+          problems.add(r.field(r.find("to_m") ? "to_m" : "from_m"),
+                       "the loaded part must have a length: from_m (" + format_number(from / 1000.0) +
+                           " m) must be less than to_m (" + format_number(to / 1000.0) + " m)");
+      }
+    }
+  } else {
+    not_with("from_m", "applies to uniform loads (kPa) only");
+    not_with("to_m", "applies to uniform loads (kPa) only");
+    if (r.find("at_m")) {
+      if (auto at = position("at_m")) a.at_mm = *at;
+    } else {
+      problems.add(r.field("at_m"), "required: the load's position from the left support of its span, in m");
+    }
+    if (line) {
+      not_with("effective_width_m", "applies to point loads only (a line load acts across the strip's width)");
+    } else if (const json* w = r.find("effective_width_m")) {
+      auto v = r.number_value(*w, r.field("effective_width_m"));
+      if (v && (*v <= 0.0 || *v > max_effective_width_m))
+        problems.add(r.field("effective_width_m"), "must be greater than 0 m and at most " +
+                                                       format_number(max_effective_width_m) + " m, got " +
+                                                       format_number(*v));
+      else if (v)
+        a.effective_width_mm = *v * 1000.0;
+    } else {
+      problems.add(r.field("effective_width_m"),
+                   "required for a point load: neither EN 1992-1-1 nor ACI 318-19 gives the width over "
+                   "which a point load spreads in a one-way slab, so give the effective width (m)");
+    }
+  }
+  if (problems.items().size() != before) return std::nullopt;
+  return a;
+}
+
+void read_loads(const json& j, InputProblems& problems, LoadsInput& l, const std::vector<double>& spans_mm,
+                bool spans_known) {
+  ObjectReader r(j, "loads", problems, {"dead_kPa", "imposed_kPa", "imposed_category", "actions"});
+  const bool actions_given = r.find("actions") != nullptr;
   if (auto g = r.in_range(r.number("dead_kPa"), "dead_kPa", 0, 100, "kPa")) l.dead_MPa = *g * 1e-3;
-  if (auto q = r.in_range(r.number("imposed_kPa", true), "imposed_kPa", 0, 100, "kPa", true))
+  // The shorthand imposed load is required unless the actions are listed.
+  if (auto q = r.in_range(r.number("imposed_kPa", !actions_given), "imposed_kPa", 0, 100, "kPa", true))
     l.imposed_MPa = *q * 1e-3;
   if (auto c = r.text("imposed_category")) l.imposed_category = *c;
+  if (const json* list = r.array("actions")) {
+    l.actions_given = true;
+    std::vector<std::string> names{self_weight_action_name, dead_shorthand_action_name,
+                                   imposed_shorthand_action_name};
+    for (std::size_t i = 0; i < list->size(); ++i) {
+      const std::string path = "loads.actions[" + std::to_string(i) + "]";
+      const json& e = (*list)[i];
+      if (e.is_object())
+        if (auto it = e.find("name"); it != e.end() && it->is_string()) {
+          const std::string name = it->get<std::string>();
+          const auto found = std::find(names.begin(), names.end(), name);
+          if (!name.empty() && found != names.end()) {
+            const auto k = static_cast<std::size_t>(found - names.begin());
+            problems.add(path + ".name",
+                         "the name \"" + name + "\" is already taken" +
+                             (k < 3 ? std::string(" by the action the kernel makes for ") +
+                                          (k == 0 ? "the self-weight" : k == 1 ? "loads.dead_kPa" : "loads.imposed_kPa")
+                                    : " by loads.actions[" + std::to_string(k - 3) + "]") +
+                             "; names must be unique");
+          }
+          names.push_back(name);
+        } else {
+          names.push_back(std::string());
+        }
+      else
+        names.push_back(std::string());
+      if (auto a = read_action(e, path, spans_mm, spans_known, problems)) l.actions.push_back(std::move(*a));
+    }
+  }
 }
 
 // The plain form (cover_mm, exposure) applies to both faces; a face object
@@ -553,7 +757,14 @@ Request request_from_json(const json& j, InputProblems& problems) {
   if (const json* s = r.object("slab", true)) read_slab(*s, problems, req.slab);
   if (const json* c = r.object("concrete", true)) read_concrete(*c, problems, req.concrete);
   if (const json* s = r.object("reinforcement")) read_reinforcement(*s, problems, req.reinforcement);
-  if (const json* l = r.object("loads", true)) read_loads(*l, problems, req.loads);
+  if (const json* l = r.object("loads", true)) {
+    // Positions of actions are checked against the spans when those are good.
+    const bool spans_known = !req.slab.spans_mm.empty() && !problems.has_field("slab.spans_m") &&
+                             !problems.has_field("slab.spans") &&
+                             std::none_of(problems.items().begin(), problems.items().end(),
+                                          [](const InputProblem& p) { return p.field.rfind("slab.spans", 0) == 0; });
+    read_loads(*l, problems, req.loads, req.slab.spans_mm, spans_known);
+  }
   if (const json* d = r.object("durability")) read_durability(*d, problems, req.durability);
   if (const json* f = r.object("fire")) read_fire(*f, problems, req.fire);
   if (const json* d = r.object("design")) read_design(*d, problems, req.design);

@@ -46,6 +46,12 @@ class Checker final : public SlabChecker {
   }
 
   LoadBasis load_basis() const override { return inner_->load_basis(); }
+  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
+    return inner_->combinations(actions);
+  }
+  std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override {
+    return inner_->equilibrium_checks(d, detail);
+  }
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
     return inner_->load_arrangements(n);
   }

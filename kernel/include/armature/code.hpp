@@ -12,6 +12,7 @@
 #include <utility>
 #include <vector>
 
+#include "armature/combinations.hpp"
 #include "armature/errors.hpp"
 #include "armature/record.hpp"
 #include "armature/request.hpp"
@@ -24,34 +25,25 @@ struct CodeIdentity {
   std::string title;    // human-readable title of code and variant
 };
 
-// One ULS expression: its factors on the loaded and unloaded spans.
-// Design load on a loaded span = gamma_G_loaded Gk + gamma_Q Qk; on an
-// unloaded span = gamma_G_unloaded Gk.
-struct UlsExpression {
-  std::string label;  // "6.10: 1.35 Gk + 1.5 Qk"
-  double gamma_G_loaded = 0.0;
-  double gamma_Q = 0.0;
-  double gamma_G_unloaded = 0.0;
-};
-
-// What the code says about actions for one request.
+// What the code says about loads besides the combinations.
 struct LoadBasis {
   double density_kN_m3 = 0.0;             // for self-weight
-  std::vector<UlsExpression> uls;          // envelope over all of them
-  double psi2 = 0.0;                       // quasi-permanent factor on Qk
-  // What the code calls the load of its long-term checks (Gk + psi2 Qk),
-  // as the summary and the record name it: "quasi-permanent" (EN 1990),
-  // "sustained" (ACI 318). Empty: the kernel says "long-term".
+  // What the code calls the load of its long-term checks (the
+  // quasi-permanent combination), as the summary and the record name it:
+  // "quasi-permanent" (EN 1990), "sustained" (ACI 318). Empty: the kernel
+  // says "long-term".
   std::string long_term_load_name;
 };
 
-// Combined loads of one request, per unit area (N/mm²).
+// Combined loads of one request, per unit area (N/mm²): the actions
+// uniform over the whole strip (the self-weight, the shorthands and any
+// such action of loads.actions).
 struct LoadTotals {
   double self_weight = 0.0;
   double Gk = 0.0;
   double Qk = 0.0;
   double uls = 0.0;             // governing ULS load, all spans loaded
-  std::string combination;      // label of the governing expression
+  std::string combination;      // label of the ULS combination giving it
   double sls_quasi_permanent = 0.0;
   double density_kN_m3 = 0.0;       // of the self-weight, from LoadBasis
   std::string long_term_load_name;  // from LoadBasis
@@ -167,12 +159,28 @@ struct InputDefault {
   std::string basis;  // "EN 1991-1-1 Table A.1", "armature default"
 };
 
-class SlabChecker {
+// Static equilibrium of a strip with a cantilever under one EQU
+// combination: the reaction at the far support of the cantilever's back
+// span, split into what the loads that hold it down give (permanent
+// actions on the back span, favourable) and what the cantilever's loads
+// take away (permanent unfavourable and variable actions on it).
+struct EquilibriumDemand {
+  std::string where;               // "support 1"
+  std::string combination;         // label of the EQU combination
+  double R_stabilising = 0.0;      // N, upward reaction from the back span's loads
+  double R_destabilising = 0.0;    // N, the reduction the cantilever's loads cause
+};
+
+class SlabChecker : public CombinationRules {
  public:
   virtual ~SlabChecker() = default;
   virtual LoadBasis load_basis() const = 0;
-  // Load arrangements: each marks the spans carrying the full ULS load;
-  // the others carry the unloaded (permanent) value. Envelope over all.
+  // The check of static equilibrium (uplift at the support) for one EQU
+  // combination; none when the code checks none.
+  virtual std::vector<Check> equilibrium_checks(const EquilibriumDemand&, Detail) const { return {}; }
+  // Load arrangements: each marks the loaded spans (variable actions
+  // present, permanent actions at their `loaded` factor); the others carry
+  // the permanent actions at their `unloaded` factor. Envelope over all.
   virtual std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const = 0;
   // Top steel at pinned ends, as a fraction of the largest adjacent span
   // moment; 0 when the code asks for none.

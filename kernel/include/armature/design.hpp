@@ -85,8 +85,11 @@ struct DesignRecord {
   double thickness_mm = 0.0;
   std::vector<double> spans_mm;
   std::vector<std::vector<DiagramPoint>> diagrams;  // M and V envelopes per span (Detail::steps)
-  std::vector<UlsExpression> uls_expressions;       // every expression enveloped
-  std::size_t load_arrangements = 0;                // per expression
+  std::vector<Action> actions;                      // every action, self-weight first
+  std::vector<Combination> combinations;            // every combination the code gave
+  bool list_actions = false;                        // loads.actions given: the result lists both
+  std::size_t load_cases = 0;                       // distinct ULS load cases enveloped
+  std::size_t load_arrangements = 0;                // per combination
   std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
   double redistribution_percent = 0.0;
   Rationalise rationalise = Rationalise::none;  // as requested

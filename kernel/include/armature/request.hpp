@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "armature/actions.hpp"
 #include "armature/errors.hpp"
 
 namespace armature {
@@ -72,10 +73,19 @@ struct ReinforcementInput {
 };
 
 struct LoadsInput {
-  double dead_MPa = 0.0;      // superimposed permanent load, N/mm²
-  double imposed_MPa = 0.0;   // imposed load, N/mm²
+  double dead_MPa = 0.0;      // superimposed permanent load, N/mm² (shorthand)
+  double imposed_MPa = 0.0;   // imposed load, N/mm² (shorthand; 0: none)
   std::string imposed_category = "B";
+  std::vector<Action> actions;  // loads.actions, in the request's order
+  bool actions_given = false;   // loads.actions was in the request
 };
+
+// Names the kernel gives the actions it makes: the self-weight and the
+// shorthands loads.dead_kPa and loads.imposed_kPa.
+inline constexpr const char* self_weight_action_name = "self-weight";
+inline constexpr const char* dead_shorthand_action_name = "superimposed dead";
+inline constexpr const char* imposed_shorthand_action_name = "imposed";
+
 
 // Durability of one face: the per-face form (durability.top, .bottom) where
 // given, else the plain form (durability.cover_mm, .exposure), which applies
@@ -130,5 +140,10 @@ struct Request {
   ReportUnits report_units = ReportUnits::SI;
   ProjectInfo project;
 };
+
+// Every action of a request, in the order combinations refer to them: the
+// self-weight (density kN/m³ times the thickness), the shorthands that are
+// given (a value above 0), then loads.actions.
+std::vector<Action> all_actions(const Request& request, double density_kN_m3);
 
 }  // namespace armature

@@ -21,6 +21,14 @@ inline constexpr double kN_per_N = 1e-3;
 inline constexpr double m_per_mm = 1e-3;
 }  // namespace result_units
 
+// A key that is not a string literal (an action's name): a writer that
+// keeps keys by address (the binding's) takes it through key_text.
+template <class W>
+void write_text_key(W& w, const std::string& k) {
+  if constexpr (requires { w.key_text(k); }) w.key_text(k);
+  else w.key(k.c_str());
+}
+
 // A writer may share one output object between the places a check appears
 // (the result lists each check twice: in its region, support or span, and
 // in the top-level list, as the same object) by offering reuse/remember.
@@ -98,6 +106,53 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
   w.key("uls_kPa"), w.value(r.loads.uls * kPa_per_MPa);
   w.key("sls_quasi_permanent_kPa"), w.value(r.loads.sls_quasi_permanent * kPa_per_MPa);
   w.key("combination"), w.value(r.loads.combination);
+  // Listed when the request lists its actions (loads.actions): every
+  // action with its characteristic value, and every combination used.
+  if (r.list_actions) {
+    w.key("actions");
+    w.begin_array();
+    for (const auto& a : r.actions) {
+      w.begin_object();
+      w.key("name"), w.value(a.name);
+      w.key("kind"), w.value(to_string(a.kind));
+      if (!a.category.empty()) w.key("category"), w.value(a.category);
+      w.key("distribution"), w.value(to_string(a.distribution));
+      switch (a.distribution) {
+        case Distribution::uniform: w.key("kPa"), w.value(a.value * kPa_per_MPa); break;
+        case Distribution::line: w.key("line_kN_per_m"), w.value(a.value); break;  // N/mm = kN/m
+        case Distribution::point: w.key("point_kN"), w.value(a.value * kN_per_N); break;
+      }
+      if (a.span) w.key("span"), w.value(static_cast<double>(*a.span + 1));
+      if (a.from_mm) w.key("from_m"), w.value(*a.from_mm * m_per_mm);
+      if (a.to_mm) w.key("to_m"), w.value(*a.to_mm * m_per_mm);
+      if (a.distribution != Distribution::uniform) w.key("at_m"), w.value(a.at_mm * m_per_mm);
+      if (a.distribution == Distribution::point)
+        w.key("effective_width_m"), w.value(a.effective_width_mm * m_per_mm);
+      w.end();
+    }
+    w.end();
+    w.key("combinations");
+    w.begin_array();
+    for (const auto& c : r.combinations) {
+      w.begin_object();
+      w.key("label"), w.value(c.label);
+      w.key("limit_state"), w.value(to_string(c.limit_state));
+      w.key("factors");
+      w.begin_object();
+      for (std::size_t i = 0; i < c.factors.size() && i < r.actions.size(); ++i)
+        write_text_key(w, r.actions[i].name), w.value(c.factors[i].loaded);
+      w.end();
+      // Permanent actions on the spans an arrangement leaves unloaded
+      // (EQU: the back span), where that factor differs.
+      w.key("factors_unloaded_spans");
+      w.begin_object();
+      for (std::size_t i = 0; i < c.factors.size() && i < r.actions.size(); ++i)
+        if (!is_variable(r.actions[i].kind)) write_text_key(w, r.actions[i].name), w.value(c.factors[i].unloaded);
+      w.end();
+      w.end();
+    }
+    w.end();
+  }
   w.end();
   // One nominal cover per face that has main bars (contract-v2 3).
   w.key("cover_mm");

@@ -1,0 +1,45 @@
+// Combinations of actions, as a design code gives them: for each limit
+// state a list of combinations, each a label and a factor per action. The
+// code states the factors; the kernel applies them with the code's load
+// arrangements: a variable action is present on a span exactly when the
+// arrangement loads that span (factor `loaded`, otherwise 0); a permanent
+// action acts on every span, with `loaded` on loaded spans and `unloaded`
+// on the others.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "armature/actions.hpp"
+
+namespace armature {
+
+enum class LimitState {
+  uls,                  // strength, fundamental combinations
+  characteristic,       // serviceability, characteristic (ACI: service loads)
+  frequent,             // serviceability, frequent
+  quasi_permanent,      // serviceability, quasi-permanent (ACI: sustained)
+  equilibrium,          // static equilibrium (EQU)
+};
+const char* to_string(LimitState state);
+
+struct ActionFactor {
+  double loaded = 0.0;    // on spans the arrangement loads
+  double unloaded = 0.0;  // on the other spans (0 for a variable action)
+};
+
+struct Combination {
+  std::string label;                  // "6.10: 1.35 Gk + 1.5 Qk"
+  LimitState limit_state = LimitState::uls;
+  std::vector<ActionFactor> factors;  // one per action, in the actions' order
+};
+
+// What a code answers about combinations, for the actions of one request
+// (the self-weight first, then the shorthands, then the request's list).
+class CombinationRules {
+ public:
+  virtual ~CombinationRules() = default;
+  virtual std::vector<Combination> combinations(const std::vector<Action>& actions) const = 0;
+};
+
+}  // namespace armature
