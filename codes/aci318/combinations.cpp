@@ -40,12 +40,14 @@ struct Term {
 
 // A combination from its terms; a symbol left out has factor 0.
 Combination combination_of(const std::string& clause, LimitState state, const std::vector<Term>& terms,
-                           const std::vector<Action>& actions) {
+                           const std::vector<Action>& actions, CombinationLabels labels) {
   Combination c;
   c.limit_state = state;
-  c.label = clause + ": ";
+  const bool labelled = labels == CombinationLabels::all || state == LimitState::uls;
+  if (labelled) c.label = clause + ": ";
   bool first = true;
   for (const auto& t : terms) {
+    if (!labelled) break;
     c.label += (first ? "" : " + ") + (t.factor == 1.0 && state != LimitState::uls && state != LimitState::equilibrium
                                            ? std::string()
                                            : num(t.factor) + " ") +
@@ -62,7 +64,7 @@ Combination combination_of(const std::string& clause, LimitState state, const st
 
 }  // namespace
 
-std::vector<Combination> aci_combinations(const std::vector<Action>& actions) {
+std::vector<Combination> aci_combinations(const std::vector<Action>& actions, CombinationLabels labels) {
   bool has[4] = {false, false, false, false};
   for (const auto& a : actions) has[static_cast<int>(symbol_of(a))] = true;
   const bool L = has[1];
@@ -72,28 +74,28 @@ std::vector<Combination> aci_combinations(const std::vector<Action>& actions) {
   std::vector<Combination> out;
   for (const LimitState state : {LimitState::uls, LimitState::equilibrium}) {
     const std::string tag = state == LimitState::equilibrium ? " (equilibrium)" : "";
-    out.push_back(combination_of("5.3.1a" + tag, state, {{Symbol::D, factor_D_a}}, actions));
+    out.push_back(combination_of("5.3.1a" + tag, state, {{Symbol::D, factor_D_a}}, actions, labels));
     if (L) {
       if (others.empty())
-        out.push_back(combination_of("5.3.1b" + tag, state, {{Symbol::D, factor_D}, {Symbol::L, factor_L_b}}, actions));
+        out.push_back(combination_of("5.3.1b" + tag, state, {{Symbol::D, factor_D}, {Symbol::L, factor_L_b}}, actions, labels));
       for (Symbol x : others)
         out.push_back(combination_of("5.3.1b" + tag, state,
                                      {{Symbol::D, factor_D}, {Symbol::L, factor_L_b}, {x, factor_roof_or_snow_b}},
-                                     actions));
+                                     actions, labels));
     }
     for (Symbol x : others) {
       std::vector<Term> t{{Symbol::D, factor_D}, {x, factor_roof_or_snow_c}};
       if (L) t.push_back({Symbol::L, factor_L_c});
-      out.push_back(combination_of("5.3.1c" + tag, state, t, actions));
+      out.push_back(combination_of("5.3.1c" + tag, state, t, actions, labels));
     }
   }
   // Service loads (unfactored) and the sustained load.
   if (others.empty())
-    out.push_back(combination_of("service", LimitState::characteristic, {{Symbol::D, 1.0}, {Symbol::L, 1.0}}, actions));
+    out.push_back(combination_of("service", LimitState::characteristic, {{Symbol::D, 1.0}, {Symbol::L, 1.0}}, actions, labels));
   for (Symbol x : others)
     out.push_back(combination_of("service", LimitState::characteristic, {{Symbol::D, 1.0}, {Symbol::L, 1.0}, {x, 1.0}},
-                                 actions));
-  out.push_back(combination_of("sustained", LimitState::quasi_permanent, {{Symbol::D, 1.0}}, actions));
+                                 actions, labels));
+  out.push_back(combination_of("sustained", LimitState::quasi_permanent, {{Symbol::D, 1.0}}, actions, labels));
   return out;
 }
 

@@ -23,6 +23,7 @@ inline constexpr double factor_L_c = 1.0;                   // (5.3.1c): 1.0 L (
 // S); sustained (quasi-permanent): D (the sustained part of L is not
 // defined); EQU: the ULS combinations, the kernel placing the live loads
 // on the cantilever only.
-std::vector<Combination> aci_combinations(const std::vector<Action>& actions);
+std::vector<Combination> aci_combinations(const std::vector<Action>& actions,
+                                          CombinationLabels labels = CombinationLabels::all);
 
 }  // namespace armature::aci318

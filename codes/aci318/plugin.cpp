@@ -65,8 +65,9 @@ class Checker final : public SlabChecker {
     return basis;
   }
 
-  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
-    return aci_combinations(actions);
+  std::vector<Combination> combinations(const std::vector<Action>& actions,
+                                        CombinationLabels labels) const override {
+    return aci_combinations(actions, labels);
   }
 
   // Uplift at the back span's far support under the 5.3.1 combinations

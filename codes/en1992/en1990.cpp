@@ -1,6 +1,8 @@
 // Combinations of actions, EN 1990 Annex A1.
 #include "en1990.hpp"
 
+#include <string_view>
+
 #include "armature/steps.hpp"
 #include "ndp.hpp"
 
@@ -70,14 +72,16 @@ std::size_t variable_count(const std::vector<Action>& actions) {
 // included (as version 1 did).
 std::string terms(const std::string& permanent, const std::vector<Action>& actions,
                   const std::vector<ActionFactor>& factors, bool every_factor = false) {
-  std::string s = permanent;
+  std::string s;
+  s.reserve(64);
+  s += permanent;
   const bool one = variable_count(actions) == 1;
   for (std::size_t i = 0; i < actions.size(); ++i) {
     if (!is_variable(actions[i].kind)) continue;
     if (factors[i].loaded == 0.0 && !(one && every_factor)) continue;
-    const std::string k =
-        factors[i].loaded == 1.0 && !(one && every_factor) ? std::string() : num(factors[i].loaded) + " ";
-    s += " + " + k + (one ? std::string("Qk") : actions[i].name);
+    s += " + ";
+    if (factors[i].loaded != 1.0 || (one && every_factor)) s.append(num(factors[i].loaded)).append(" ");
+    s += one ? std::string_view("Qk") : std::string_view(actions[i].name);
   }
   return s;
 }
@@ -118,7 +122,7 @@ PsiFactors psi_of_action(const En1990Factors& f, const Action& a) {
 }
 
 std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_ten_ab,
-                                             const std::vector<Action>& actions) {
+                                             const std::vector<Action>& actions, CombinationLabels labels) {
   const auto choices = choices_of(actions);
   const std::size_t n = actions.size();
   // The single variable action, for the labels of 6.10a.
@@ -127,25 +131,33 @@ std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_te
     for (const auto& a : actions)
       if (is_variable(a.kind)) single = &a;
   std::vector<Combination> out;
-  auto add = [&](Combination c) {
+  out.reserve(7 * choices.size());  // 6.10 (or 6.10a and b), SLS ×3, EQU per choice
+  // Keeps a combination unless one of the same limit state has the same
+  // factors; returns it when it is to be labelled (kept, and its label
+  // asked for: the label is the costly part).
+  auto add = [&](Combination c) -> Combination* {
     for (const auto& o : out) {
       if (o.limit_state != c.limit_state) continue;
       bool same = true;
       for (std::size_t i = 0; i < n && same; ++i)
         same = o.factors[i].loaded == c.factors[i].loaded && o.factors[i].unloaded == c.factors[i].unloaded;
-      if (same) return;
+      if (same) return nullptr;
     }
     out.push_back(std::move(c));
+    Combination* kept = &out.back();
+    return labels == CombinationLabels::all || kept->limit_state == LimitState::uls ? kept : nullptr;
   };
   // Factors of one choice: permanent (loaded, unloaded), the leading
   // group's factor, and the accompanying factor of each other action.
+  std::vector<PsiFactors> psi_of(n);
+  for (std::size_t i = 0; i < n; ++i) psi_of[i] = psi_of_action(f, actions[i]);
   auto make = [&](LimitState state, const Choice& c, double g_loaded, double g_unloaded, auto lead, auto accompany) {
     Combination k;
     k.limit_state = state;
     k.factors.resize(n);
     for (std::size_t i = 0; i < n; ++i) {
       const Action& a = actions[i];
-      const PsiFactors psi = psi_of_action(f, a);
+      const PsiFactors psi = psi_of[i];
       if (!is_variable(a.kind)) k.factors[i] = {g_loaded, g_unloaded};
       else if (!c.acts[i]) k.factors[i] = {0.0, 0.0};
       else if (group_of(a) == c.leading) k.factors[i] = {lead(psi), 0.0};
@@ -159,57 +171,52 @@ std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_te
     if (!six_ten_ab) {  // (6.10)
       Combination k = make(LimitState::uls, c, gG, gG, [&](PsiFactors) { return gQ; },
                            [&](PsiFactors p) { return gQ * p.psi0; });
-      k.label = "6.10" + note + ": " + terms(num(gG) + " Gk", actions, k.factors, true);
-      add(std::move(k));
+      if (Combination* kept = add(std::move(k))) kept->label = "6.10" + note + ": " + terms(num(gG) + " Gk", actions, kept->factors, true);
     }
   }
   if (six_ten_ab) {
     for (const auto& c : choices) {  // (6.10a): every variable action with ψ0
       Combination k = make(LimitState::uls, c, gG, gG, [&](PsiFactors p) { return gQ * p.psi0; },
                            [&](PsiFactors p) { return gQ * p.psi0; });
-      k.label = "6.10a: " + terms(num(gG) + " Gk", actions, k.factors, true);
+      Combination* kept = add(std::move(k));
+      if (!kept) continue;  // a duplicate
+      kept->label = "6.10a: " + terms(num(gG) + " Gk", actions, kept->factors, true);
       if (single)
-        k.label += " (ψ0 = " + num(psi_of_action(f, *single).psi0) + " for " +
-                   (single->kind == ActionKind::snow ? std::string("snow") : "category " + single->category) +
-                   ", " + f.variant + " variant NDP)";
+        kept->label += " (ψ0 = " + num(psi_of_action(f, *single).psi0) + " for " +
+                       (single->kind == ActionKind::snow ? std::string("snow") : "category " + single->category) +
+                       ", " + f.variant + " variant NDP)";
       else
-        k.label += " (ψ0 by action, " + f.variant + " variant NDP)";
-      add(std::move(k));
+        kept->label += " (ψ0 by action, " + f.variant + " variant NDP)";
     }
     for (const auto& c : choices) {  // (6.10b): ξ γG, one leading action
       const double gGb = f.xi * gG;
       Combination k = make(LimitState::uls, c, gGb, gGb, [&](PsiFactors) { return gQ; },
                            [&](PsiFactors p) { return gQ * p.psi0; });
-      k.label = "6.10b" + leading_note(actions, c) + ": " + terms(num(gGb) + " Gk", actions, k.factors, true) +
+      if (Combination* kept = add(std::move(k))) kept->label = "6.10b" + leading_note(actions, c) + ": " + terms(num(gGb) + " Gk", actions, kept->factors, true) +
                 " (ξ = " + num(f.xi) + ", " + f.variant + " variant NDP)";
-      add(std::move(k));
     }
   }
   for (const auto& c : choices) {  // (6.14b)
     Combination k = make(LimitState::characteristic, c, 1.0, 1.0, [](PsiFactors) { return 1.0; },
                          [](PsiFactors p) { return p.psi0; });
-    k.label = "characteristic" + leading_note(actions, c) + ": " + terms("Gk", actions, k.factors);
-    add(std::move(k));
+    if (Combination* kept = add(std::move(k))) kept->label = "characteristic" + leading_note(actions, c) + ": " + terms("Gk", actions, kept->factors);
   }
   for (const auto& c : choices) {  // (6.15b)
     Combination k = make(LimitState::frequent, c, 1.0, 1.0, [](PsiFactors p) { return p.psi1; },
                          [](PsiFactors p) { return p.psi2; });
-    k.label = "frequent" + leading_note(actions, c) + ": " + terms("Gk", actions, k.factors);
-    add(std::move(k));
+    if (Combination* kept = add(std::move(k))) kept->label = "frequent" + leading_note(actions, c) + ": " + terms("Gk", actions, kept->factors);
   }
   for (const auto& c : choices) {  // (6.16b): no leading action
     Combination k = make(LimitState::quasi_permanent, c, 1.0, 1.0, [](PsiFactors p) { return p.psi2; },
                          [](PsiFactors p) { return p.psi2; });
-    k.label = "quasi-permanent: " + terms("Gk", actions, k.factors);
-    add(std::move(k));
+    if (Combination* kept = add(std::move(k))) kept->label = "quasi-permanent: " + terms("Gk", actions, kept->factors);
   }
   for (const auto& c : choices) {  // Table A1.2(A)
     Combination k = make(LimitState::equilibrium, c, f.gamma_G_sup_equ, f.gamma_G_inf_equ,
                          [&](PsiFactors) { return f.gamma_Q_equ; },
                          [&](PsiFactors p) { return f.gamma_Q_equ * p.psi0; });
-    k.label = "EQU" + leading_note(actions, c) + ": " +
-              terms(num(f.gamma_G_sup_equ) + " Gk,sup + " + num(f.gamma_G_inf_equ) + " Gk,inf", actions, k.factors);
-    add(std::move(k));
+    if (Combination* kept = add(std::move(k))) kept->label = "EQU" + leading_note(actions, c) + ": " +
+              terms(num(f.gamma_G_sup_equ) + " Gk,sup + " + num(f.gamma_G_inf_equ) + " Gk,inf", actions, kept->factors);
   }
   return out;
 }

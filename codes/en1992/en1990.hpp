@@ -37,6 +37,7 @@ PsiFactors psi_of_action(const En1990Factors& f, const Action& action);
 // combined with snow (EN 1991-1-1 3.3.2(1)). Combinations with the same
 // factors are listed once.
 std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_ten_ab,
-                                             const std::vector<Action>& actions);
+                                             const std::vector<Action>& actions,
+                                             CombinationLabels labels = CombinationLabels::all);
 
 }  // namespace armature::en1992

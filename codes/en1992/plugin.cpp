@@ -121,8 +121,10 @@ class Checker final : public SlabChecker {
     return basis;
   }
 
-  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
-    return en1990_combinations(en1990_factors(ndp_), req_.design.combination.value_or("6.10") != "6.10", actions);
+  std::vector<Combination> combinations(const std::vector<Action>& actions,
+                                        CombinationLabels labels) const override {
+    return en1990_combinations(en1990_factors(ndp_), req_.design.combination.value_or("6.10") != "6.10", actions,
+                               labels);
   }
 
   // EN 1990 6.4.2(1) (6.7): Ed,dst ≤ Ed,stb, here as the reaction the

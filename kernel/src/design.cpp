@@ -11,6 +11,8 @@
 #include <limits>
 #include <numbers>
 
+#include <boost/container/small_vector.hpp>
+
 #include "armature/analysis.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
@@ -208,7 +210,7 @@ double factor_of(const Action& a, const ActionFactor& f, bool loaded) {
 // that G and Q alone give γG Gk + γQ Qk operation for operation (version 1).
 template <class On>
 double factored_sum(const std::vector<Action>& actions, const std::vector<ActionFactor>& f, bool loaded, On on) {
-  std::vector<std::pair<double, double>> groups;  // factor, Σ values
+  boost::container::small_vector<std::pair<double, double>, 4> groups;  // factor, Σ values
   for (std::size_t i = 0; i < actions.size(); ++i) {
     if (is_variable(actions[i].kind) || !on(actions[i])) continue;
     const double k = factor_of(actions[i], f[i], loaded);
@@ -286,6 +288,27 @@ std::vector<std::vector<SpanLoading>> load_cases(const std::vector<Action>& acti
       auto loads = loading_of(actions, c, a, spans_mm, b);
       if (std::none_of(cases.begin(), cases.end(), [&](const auto& k) { return same_loads(k, loads); }))
         cases.push_back(std::move(loads));
+    }
+  }
+  return cases;
+}
+
+// The same for a strip whose actions are all uniform over the whole strip
+// (every version 1 request): one uniform load per span and case, the same
+// values as load_cases gives, for the uniform-load analysis (the design
+// path that must stay fastest).
+std::vector<std::vector<double>> uniform_load_cases(const std::vector<Action>& actions,
+                                                    const std::vector<Combination>& combinations, LimitState state,
+                                                    const std::vector<std::vector<bool>>& arrangements, double b) {
+  std::vector<std::vector<double>> cases;
+  for (const auto& c : combinations) {
+    if (c.limit_state != state) continue;
+    const double loaded = factored_sum(actions, c.factors, true, whole_strip_uniform) * b;
+    const double unloaded = factored_sum(actions, c.factors, false, whole_strip_uniform) * b;
+    for (const auto& a : arrangements) {
+      std::vector<double> w(a.size());
+      for (std::size_t i = 0; i < a.size(); ++i) w[i] = a[i] ? loaded : unloaded;
+      if (std::find(cases.begin(), cases.end(), w) == cases.end()) cases.push_back(std::move(w));
     }
   }
   return cases;
@@ -537,7 +560,15 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
   rec.actions = all_actions(req, basis.density_kN_m3);
   rec.list_actions = req.loads.actions_given;
-  rec.combinations = call_code(rec.code, "combinations", [&] { return checker->combinations(rec.actions); });
+  // Every label where the combinations are listed (the record, a result
+  // listing its actions) or an equilibrium check names its combination (a
+  // strip with a cantilever); otherwise a design needs the ULS labels alone.
+  const bool has_cantilever = req.slab.ends[0] == EndSupport::free || req.slab.ends[1] == EndSupport::free;
+  const CombinationLabels labels = rec.list_actions || detail == Detail::steps || has_cantilever
+                                       ? CombinationLabels::all
+                                       : CombinationLabels::strength;
+  rec.combinations =
+      call_code(rec.code, "combinations", [&] { return checker->combinations(rec.actions, labels); });
   for (const auto& c : rec.combinations)
     if (c.factors.size() != rec.actions.size())
       throw DesignError(rec.code.id + ": combination '" + c.label + "' does not give a factor for every action");
@@ -559,9 +590,18 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
 
   const double delta = 1.0 - req.design.redistribution_percent / 100.0;
   const auto redistributed = redistributable_nodes(model);
-  const auto uls_cases = load_cases(rec.actions, rec.combinations, LimitState::uls, arrangements, req.slab.spans_mm, b);
-  rec.load_cases = uls_cases.size();
-  std::vector<CaseResult> cases = analyse_load_cases(model, uls_cases);
+  const bool all_uniform = std::all_of(rec.actions.begin(), rec.actions.end(), whole_strip_uniform);
+  std::vector<CaseResult> cases;
+  if (all_uniform) {
+    const auto uls_cases = uniform_load_cases(rec.actions, rec.combinations, LimitState::uls, arrangements, b);
+    rec.load_cases = uls_cases.size();
+    cases = analyse_cases(model, uls_cases);
+  } else {
+    const auto uls_cases =
+        load_cases(rec.actions, rec.combinations, LimitState::uls, arrangements, req.slab.spans_mm, b);
+    rec.load_cases = uls_cases.size();
+    cases = analyse_load_cases(model, uls_cases);
+  }
   if (delta < 1.0)
     for (auto& c : cases) c = redistribute(model, c, redistributed, delta);
   const Envelope env = envelope_of(model, cases);
@@ -581,7 +621,6 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   // largest moment of the region's sense there; bounded to [0, 1], and the
   // load ratio where that ULS moment is nil or of the other sense.
   const double load_ratio = rec.loads.sls_quasi_permanent / rec.loads.uls;
-  const bool all_uniform = std::all_of(rec.actions.begin(), rec.actions.end(), whole_strip_uniform);
   std::vector<CaseResult> qp_all, uls_all;
   if (!all_uniform) {
     const std::vector<std::vector<bool>> all_loaded{all_spans_loaded(n)};

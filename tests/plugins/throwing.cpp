@@ -10,7 +10,7 @@ using namespace armature;
 class ThrowingChecker final : public SlabChecker {
  public:
   LoadBasis load_basis() const override { return {25.0, ""}; }
-  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
+  std::vector<Combination> combinations(const std::vector<Action>& actions, CombinationLabels) const override {
     return {{"all: 1.0 Gk + 1.0 Qk", LimitState::uls, std::vector<ActionFactor>(actions.size(), {1.0, 1.0})}};
   }
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {

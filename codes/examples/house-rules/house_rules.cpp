@@ -46,8 +46,9 @@ class Checker final : public SlabChecker {
   }
 
   LoadBasis load_basis() const override { return inner_->load_basis(); }
-  std::vector<Combination> combinations(const std::vector<Action>& actions) const override {
-    return inner_->combinations(actions);
+  std::vector<Combination> combinations(const std::vector<Action>& actions,
+                                        CombinationLabels labels) const override {
+    return inner_->combinations(actions, labels);
   }
   std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override {
     return inner_->equilibrium_checks(d, detail);

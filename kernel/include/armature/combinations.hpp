@@ -29,17 +29,28 @@ struct ActionFactor {
 };
 
 struct Combination {
-  std::string label;                  // "6.10: 1.35 Gk + 1.5 Qk"
+  std::string label;                  // "6.10: 1.35 Gk + 1.5 Qk" (see CombinationLabels)
   LimitState limit_state = LimitState::uls;
   std::vector<ActionFactor> factors;  // one per action, in the actions' order
 };
 
 // What a code answers about combinations, for the actions of one request
 // (the self-weight first, then the shorthands, then the request's list).
+// Which combinations a code labels: a design needs the label of its
+// governing strength combination only (the result's loads.combination);
+// the list of every combination (the calculation record, a result listing
+// its actions) needs them all. Labels are the costly part of a code's
+// answer, and a design asks for its combinations every time.
+enum class CombinationLabels {
+  strength,  // labels of the ULS combinations; the others may be empty
+  all,       // every label
+};
+
 class CombinationRules {
  public:
   virtual ~CombinationRules() = default;
-  virtual std::vector<Combination> combinations(const std::vector<Action>& actions) const = 0;
+  virtual std::vector<Combination> combinations(const std::vector<Action>& actions,
+                                                CombinationLabels labels) const = 0;
 };
 
 }  // namespace armature
