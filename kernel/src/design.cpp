@@ -700,9 +700,9 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     rec.spans.push_back(std::move(span));
   }
 
-  // EQU of cantilevers, for requests that list their actions (a version 1
-  // request keeps its version 1 checks; DEVELOPERS.md).
-  if (req.loads.actions_given) add_equilibrium_checks(*checker, rec, model, b, detail);
+  // EQU of every cantilever's back span (DEVELOPERS.md, "Actions and
+  // combinations").
+  add_equilibrium_checks(*checker, rec, model, b, detail);
 
   bool distribution_ok = true;
   rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, plan.grid, rec.warnings,

@@ -297,13 +297,22 @@ def test_cantilever_equilibrium_by_hand_statics(wall, uplift):
     assert (res["status"] == "fail") if uplift else True
 
 
-def test_equilibrium_is_not_checked_for_a_version_1_request():
-    """Version 1 requests keep their version 1 checks (the regression corpus)."""
+def test_equilibrium_is_checked_for_a_shorthand_request():
+    """A request of the shorthands alone (version 1 form) with a cantilever
+    gets the same EQU check: a 2.4 m cantilever on a 3.0 m back span lifts
+    off. EN 1990 Table A1.2(A) (recommended), moments about the root
+    (statics): R_stb = 0.9 (g + gd) L / 2, R_dst = (1.1 (g + gd) + 1.5 q) Lc^2 / (2 L)."""
     r = copy.deepcopy(BASE)
-    r["slab"].update(spans_m=[4.0, 1.5], ends=["pinned", "free"])
-    r["loads"] = {"imposed_kPa": 4.0, "imposed_category": "C"}
+    r["slab"].update(spans_m=[3.0, 2.4], ends=["pinned", "free"])
+    r["loads"] = {"dead_kPa": 1.0, "imposed_kPa": 4.0, "imposed_category": "C"}
     res = armature.design(r)
-    assert not [c for s in res["supports"] for c in s["checks"] if c["id"] == "equilibrium"]
+    c = equilibrium_check(res)
+    L, Lc, G, q = 3.0, 2.4, SELF_WEIGHT_KPA + 1.0, 4.0
+    assert c["where"] == "support 1"
+    assert c["capacity"] == pytest.approx(0.9 * G * L / 2, rel=1e-9)
+    assert c["demand"] == pytest.approx((1.1 * G + 1.5 * q) * Lc ** 2 / (2 * L), rel=1e-9)
+    assert c["pass"] is False and res["status"] == "fail"
+    assert "actions" not in res["loads"]  # the version 1 loads object
 
 
 def test_aci_cantilever_equilibrium_by_hand_statics():
