@@ -329,14 +329,12 @@ class Checker final : public SlabChecker {
         {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm) + " mm", "armature default (25.2.1)"},
         {"reinforcement.yield_strength_MPa", num(fy_) + " MPa", "Grade 420 (Grade 60), plug-in default"},
         {"reinforcement.bars", bars, "plug-in default set"},
-        {exposure_of(Face::bottom) == exposure_of(Face::top) ? "durability.exposure" : "durability.bottom.exposure",
-         exposure_of(Face::bottom), "plug-in default (not exposed to weather or ground)"},
-        {"durability.cover_mm", "from the exposure and each bar (see the bending steps)",
-         "ACI 318-19 20.5.1.3.1"},
     };
-    if (exposure_of(Face::bottom) != exposure_of(Face::top))
-      out.insert(out.begin() + 5, {"durability.top.exposure", exposure_of(Face::top),
-                                   "plug-in default (not exposed to weather or ground)"});
+    for (auto& d : durability_defaults(req_, {exposure_of(Face::bottom), exposure_of(Face::top)},
+                                       "plug-in default (not exposed to weather or ground)",
+                                       "from the exposure and each bar (see the bending steps)",
+                                       "ACI 318-19 20.5.1.3.1"))
+      out.push_back(std::move(d));
     return out;
   }
 

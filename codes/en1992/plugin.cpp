@@ -495,23 +495,14 @@ class Checker final : public SlabChecker {
         {"reinforcement.bars", bars, "plug-in default set"},
         {"reinforcement.ductility_class", to_string(req_.reinforcement.ductility_class), "armature default"},
         {"loads.imposed_category", req_.loads.imposed_category, "armature default (EN 1990 Table A1.1)"},
-        exposure_default(Face::bottom),
         {"durability.design_life_years", num(req_.durability.design_life_years) + " years", "armature default"},
-        {"durability.cover_mm", "c_nom from the exposure and each bar (see the bending steps)",
-         "EN 1992-1-1 4.4.1"},
     };
-    if (face_data(Face::bottom).exposure != face_data(Face::top).exposure)
-      out.insert(out.begin() + 8, exposure_default(Face::top));
+    for (auto& d : durability_defaults(req_, {face_data(Face::bottom).exposure, face_data(Face::top).exposure},
+                                       "plug-in default (EN 1992-1-1 Table 4.1, dry inside buildings)",
+                                       "c_nom from the exposure and each bar (see the bending steps)",
+                                       "EN 1992-1-1 4.4.1"))
+      out.push_back(std::move(d));
     return out;
-  }
-
-  // The exposure each face takes; one entry (durability.exposure) when both
-  // faces take the same.
-  InputDefault exposure_default(Face face) const {
-    const bool same = face_data(Face::bottom).exposure == face_data(Face::top).exposure;
-    const char* basis = "plug-in default (EN 1992-1-1 Table 4.1, dry inside buildings)";
-    if (same) return {"durability.exposure", face_data(Face::bottom).exposure, basis};
-    return {std::string("durability.") + to_string(face) + ".exposure", face_data(face).exposure, basis};
   }
 
   std::vector<std::string> warnings() const override {

@@ -70,3 +70,30 @@ std::vector<std::vector<bool>> adjacent_pair_arrangements(std::size_t n) {
 std::vector<bool> all_spans_loaded(std::size_t n) { return std::vector<bool>(n, true); }
 
 }  // namespace armature
+
+namespace armature {
+
+std::vector<InputDefault> durability_defaults(const Request& request, const std::array<std::string, 2>& exposure,
+                                              const std::string& exposure_basis, const std::string& cover,
+                                              const std::string& cover_basis) {
+  const DurabilityInput& d = request.durability;
+  std::vector<InputDefault> out;
+  auto face_field = [](Face f, const char* key) { return std::string("durability.") + to_string(f) + "." + key; };
+  const bool exposure_given[2] = {d.face(Face::bottom).exposure.has_value(), d.face(Face::top).exposure.has_value()};
+  if (!exposure_given[0] && !exposure_given[1] && exposure[0] == exposure[1]) {
+    out.push_back({"durability.exposure", exposure[0], exposure_basis});
+  } else {
+    for (const Face f : {Face::bottom, Face::top})
+      if (!exposure_given[static_cast<std::size_t>(f)])
+        out.push_back({face_field(f, "exposure"), exposure[static_cast<std::size_t>(f)], exposure_basis});
+  }
+  if (!d.any_cover_given()) {
+    out.push_back({"durability.cover_mm", cover, cover_basis});
+  } else {
+    for (const Face f : {Face::bottom, Face::top})
+      if (!d.cover_given(f)) out.push_back({face_field(f, "cover_mm"), cover, cover_basis});
+  }
+  return out;
+}
+
+}  // namespace armature

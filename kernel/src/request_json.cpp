@@ -326,12 +326,14 @@ void read_slab(const json& j, InputProblems& problems, SlabInput& slab) {
       }
     }
   }
+  // The widths are judged against the spans and ends alone: a problem in
+  // another field of the slab must not hide theirs.
+  const bool geometry_ok = problems.items().size() == problems_before;
   if (auto h = r.in_range(r.number("thickness_mm", true), "thickness_mm", 50, 1500, "mm"))
     slab.thickness_mm = *h;
   if (auto b = r.in_range(r.number("strip_width_mm"), "strip_width_mm", 100, 10000, "mm"))
     slab.strip_width_mm = *b;
-  if (const json* widths = r.array("support_widths_mm"))
-    read_support_widths(*widths, problems, problems.items().size() == problems_before, slab);
+  if (const json* widths = r.array("support_widths_mm")) read_support_widths(*widths, problems, geometry_ok, slab);
 }
 
 void read_concrete(const json& j, InputProblems& problems, ConcreteInput& c) {

@@ -8,6 +8,7 @@
 #include <cmath>
 #include <set>
 
+#include "armature/code.hpp"
 #include "armature/design.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
@@ -326,4 +327,30 @@ TEST_CASE("Support width EN cantilever built into a wall at the face", "[faces][
   CHECK(bending.clause.str() == "EN 1992-1-1 6.1; M_Ed at the face 5.3.2.2(3)");
   CHECK(find_step(bending, "M_Ed,c").result == Approx(15.8625).epsilon(1e-9));
   CHECK(find_step(bending, "M_fe").result == Approx(15.8625).epsilon(1e-9));
+}
+
+TEST_CASE("the durability defaults are named by the field a request leaves out", "[faces]") {
+  // The record lists the defaults a request leaves out, by field: a value
+  // given on one face only leaves the other face's field (not the plain
+  // one, which would read as if both faces took the default).
+  auto defaults_of = [](const json& durability) {
+    armature::InputProblems problems;
+    json j = {{"code", "EN1992-1-1"},
+              {"slab", {{"spans_m", {4.0}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 200}}},
+              {"concrete", {{"class", "C30/37"}}},
+              {"loads", {{"dead_kPa", 1.0}, {"imposed_kPa", 3.0}}}};
+    if (!durability.is_null()) j["durability"] = durability;
+    const armature::Request req = armature::request_from_json(j, problems);
+    REQUIRE(problems.empty());
+    std::set<std::string> fields;
+    for (const auto& d : armature::durability_defaults(req, {"XC1", "XC1"}, "basis", "cover", "basis"))
+      fields.insert(d.field);
+    return fields;
+  };
+  CHECK(defaults_of(json()) == std::set<std::string>{"durability.exposure", "durability.cover_mm"});
+  CHECK(defaults_of({{"top", {{"exposure", "XC1"}, {"cover_mm", 30}}}}) ==
+        std::set<std::string>{"durability.bottom.exposure", "durability.bottom.cover_mm"});
+  CHECK(defaults_of({{"top", {{"cover_mm", 30}}}, {"bottom", {{"cover_mm", 25}}}}) ==
+        std::set<std::string>{"durability.exposure"});
+  CHECK(defaults_of({{"exposure", "XC1"}, {"cover_mm", 25}}).empty());
 }

@@ -51,3 +51,17 @@ def test_support_width_gives_the_face_moment_aci():
     res = armature.design(req)
     support = [g for g in res["regions"] if g["where"] == "support 2"][0]
     assert support["design_moment_kNm"] == pytest.approx(21.70322, rel=1e-9)
+
+
+def test_a_bad_thickness_does_not_hide_a_bad_support_width_list():
+    """Every problem is reported together: the widths are judged against the
+    spans and ends alone, so a thickness out of range (contract.md: 50 to
+    1500 mm) and a widths list one entry short both name their fields."""
+    req = copy.deepcopy(BALCONY)
+    req["slab"]["thickness_mm"] = 20
+    req["slab"]["support_widths_mm"] = [0, 300]
+    with pytest.raises(armature.InputError) as err:
+        armature.design(req)
+    lines = str(err.value).splitlines()
+    assert any(line.startswith("slab.thickness_mm: ") for line in lines), lines
+    assert any(line.startswith("slab.support_widths_mm: ") for line in lines), lines

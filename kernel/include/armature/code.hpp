@@ -290,6 +290,16 @@ RegionVerdict verdict_of(const RegionOutcome& outcome);
 // a slab no thicker than cover plus the smallest candidate bar.
 void add_cover_fit_problems(const Request& request, double smallest_bar_mm, InputProblems& problems);
 
+// The defaults_used() entries of durability, named by the field a request
+// would give for them: one entry for both faces where neither face gives
+// the value (durability.exposure, durability.cover_mm), else one for each
+// face that leaves it out (durability.top.exposure, ...). `exposure` is
+// the exposure each face takes (indexed by Face); `cover` the text of the
+// cover the code works out where none is given.
+std::vector<InputDefault> durability_defaults(const Request& request, const std::array<std::string, 2>& exposure,
+                                              const std::string& exposure_basis, const std::string& cover,
+                                              const std::string& cover_basis);
+
 // Building blocks of load arrangements (each marks the loaded spans): the
 // code chooses which it uses.
 std::vector<std::vector<bool>> alternate_span_arrangements(std::size_t span_count);  // both ways
