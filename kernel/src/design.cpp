@@ -556,6 +556,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   rec.code = std::move(id);
   rec.report_units = req.report_units;
   rec.strip_width_mm = req.slab.strip_width_mm;
+  rec.support_widths_given = !req.slab.support_widths_mm.empty();
   const SlabChecker* const checker = &code_checker;
   const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
   rec.actions = all_actions(req, basis.density_kN_m3);

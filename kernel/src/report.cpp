@@ -363,11 +363,13 @@ std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord&
     rows.push_back({"Action: " + a.name, action_text(a)});
   }
   for (const auto& c : r.combinations) {
-    // The quasi-permanent combination under the code's own name.
-    const std::string state = c.limit_state == LimitState::quasi_permanent && !r.loads.long_term_load_name.empty()
-                                  ? "SLS " + r.loads.long_term_load_name
-                                  : to_string(c.limit_state);
-    rows.push_back({state + " " + c.label, combination_text(r, c)});
+    // The code's label names the combination ("6.10: ...", "characteristic:
+    // ...", "sustained: ...", "EQU: ..."); the row says which limit state
+    // it serves where the label does not.
+    const char* prefix = c.limit_state == LimitState::uls           ? "ULS "
+                         : c.limit_state == LimitState::equilibrium ? ""
+                                                                     : "SLS ";
+    rows.push_back({prefix + c.label, combination_text(r, c)});
   }
   rows.push_back({"Governing ULS load", n4(r.loads.uls * 1e3) + " kPa [" + r.loads.combination + "]"});
   rows.push_back({long_term_load_label(r.loads), n4(r.loads.sls_quasi_permanent * 1e3) + " kPa"});
@@ -441,7 +443,11 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   o += "</table>\n";
 
   o += "<h2>3 Analysis</h2>\n<p>Elastic continuous beam, uniform stiffness, knife-edge supports; moments and "
-       "shears at support centrelines, for the strip width of " + n4(r.strip_width_mm) + " mm.</p>\n";
+       "shears at support centrelines, for the strip width of " + n4(r.strip_width_mm) + " mm" +
+       (r.support_widths_given ? "; hogging design moments at the faces of supports given a width (see each "
+                                 "support's bending check)"
+                               : "") +
+       ".</p>\n";
   o += diagram_svg(r, true) + "\n" + diagram_svg(r, false) + "\n";
 
   o += "<h2>4 Design of regions, supports and spans</h2>\n";

@@ -82,6 +82,7 @@ struct DesignRecord {
   std::vector<std::string> warnings;
   ReportUnits report_units = ReportUnits::SI;  // of the summary, as requested
   double strip_width_mm = 1000.0;
+  bool support_widths_given = false;  // slab.support_widths_mm: hogging at the faces
   double thickness_mm = 0.0;
   std::vector<double> spans_mm;
   std::vector<std::vector<DiagramPoint>> diagrams;  // M and V envelopes per span (Detail::steps)
