@@ -16,8 +16,8 @@
 #include "armature/analysis.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
-#include "design/call_code.hpp"
-#include "design/search.hpp"
+#include "call_code.hpp"
+#include "search.hpp"
 
 #ifndef ARMATURE_VERSION
 #define ARMATURE_VERSION "0.0.0"
