@@ -29,9 +29,59 @@ const char* version_string() { return ARMATURE_VERSION; }
 
 namespace {
 
-// Geometry the kernel cannot analyse, and redistribution where there is
-// no support to take it from.
+std::string number_text(double v) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.6g", v);
+  return buf;
+}
+
+constexpr double max_support_width_mm = 3000.0;
+
+// slab.support_widths_mm against the strip, for every entry path (the JSON
+// reader makes the same checks; a Request built in C++ meets them here): one
+// width per support, n + 1 for n spans, each finite and from 0 to 3 m, 0 at
+// a free end, and each span's two faces (t/2 from the supports'
+// centrelines) leaving part of the span clear.
+void add_support_width_problems(const SlabInput& slab, InputProblems& problems) {
+  const auto& t = slab.support_widths_mm;
+  const std::string name = "slab.support_widths_mm";
+  if (t.empty()) return;
+  const std::size_t n = slab.spans_mm.size();
+  if (t.size() != n + 1) {
+    problems.add(name, "must list one width per support, " + std::to_string(n + 1) + " for " + std::to_string(n) +
+                           (n == 1 ? " span" : " spans") + " (0 at a free end), got " + std::to_string(t.size()));
+    return;
+  }
+  bool values_ok = true;
+  for (std::size_t j = 0; j < t.size(); ++j) {
+    if (std::isfinite(t[j]) && t[j] >= 0.0 && t[j] <= max_support_width_mm) continue;
+    problems.add(name + "[" + std::to_string(j) + "]",
+                 "must be between 0 and " + number_text(max_support_width_mm) + " mm, got " +
+                     (std::isfinite(t[j]) ? number_text(t[j]) : std::string("a value that is not finite")));
+    values_ok = false;
+  }
+  if (!values_ok) return;
+  for (std::size_t k = 0; k < 2; ++k) {
+    const std::size_t j = k == 0 ? 0 : n;
+    if (slab.ends[k] == EndSupport::free && t[j] != 0.0)
+      problems.add(name + "[" + std::to_string(j) + "]",
+                   "must be 0: slab.ends[" + std::to_string(k) + "] is free, so there is no support there, got " +
+                       number_text(t[j]));
+  }
+  for (std::size_t e = 0; e < n; ++e) {
+    const double faces = t[e] / 2.0 + t[e + 1] / 2.0;
+    if (faces >= slab.spans_mm[e])
+      problems.add(name + "[" + std::to_string(t[e] >= t[e + 1] ? e : e + 1) + "]",
+                   "the support faces of span " + std::to_string(e + 1) + " (half of " + number_text(t[e]) +
+                       " mm and half of " + number_text(t[e + 1]) + " mm from the supports' centrelines) "
+                       "must leave part of its " + number_text(slab.spans_mm[e]) + " mm clear");
+  }
+}
+
+// Geometry the kernel cannot analyse, redistribution where there is no
+// support to take it from, and support widths that do not fit the strip.
 void add_scope_problems(const Request& req, InputProblems& problems) {
+  add_support_width_problems(req.slab, problems);
   const StripModel model{req.slab.spans_mm, req.slab.ends[0], req.slab.ends[1]};
   if (const auto why = stability_problem(model); !why.empty())
     problems.add("slab.ends", why + " (the strip would be a mechanism)");
@@ -502,12 +552,17 @@ std::vector<SupportMomentCase> support_moment_cases(const StripModel& m, const s
 // (supports of width 0 keep the centreline moment, as without widths).
 void apply_support_widths(const SlabChecker& checker, const CodeIdentity& code, const StripModel& m,
                           const std::vector<CaseResult>& cases, const std::vector<double>& widths,
-                          std::vector<RegionDemand>& demands) {
+                          std::vector<RegionDemand>& demands, std::vector<std::string>& warnings) {
   const std::size_t n = m.span_count();
   for (std::size_t j = 0; j <= n; ++j) {
     const double t = widths[j];
     const bool end = j == 0 || j == n;
-    if (t <= 0.0 || !m.has_support(j) || (end && !m.is_restrained(j))) continue;  // pinned ends: no hogging
+    if (t <= 0.0 || !m.has_support(j)) continue;
+    if (end && !m.is_restrained(j)) {  // a pinned end carries no hogging moment to reduce
+      warnings.push_back(support_name(j) + ": the support width of " + number_text(t) +
+                         " mm is not used (pinned end: no hogging moment to reduce)");
+      continue;
+    }
     const std::string where = support_name(j);
     for (auto& g : demands) {
       if (g.where != where || g.face != Face::top) continue;
@@ -648,7 +703,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   };
   auto demands = regions_of(model, env, fixity, delta, redistributed, qp_ratio, rec.warnings);
   if (!req.slab.support_widths_mm.empty())
-    apply_support_widths(*checker, rec.code, model, cases, req.slab.support_widths_mm, demands);
+    apply_support_widths(*checker, rec.code, model, cases, req.slab.support_widths_mm, demands, rec.warnings);
   rec.rationalise = req.reinforcement.rationalise;
   const BarPlan plan = plan_bars(*checker, rec.code, req.reinforcement, demands, b);
   const std::vector<SearchCandidate> picks = search_with_face_covers(
