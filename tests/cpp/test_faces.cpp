@@ -354,3 +354,62 @@ TEST_CASE("the durability defaults are named by the field a request leaves out",
         std::set<std::string>{"durability.exposure"});
   CHECK(defaults_of({{"exposure", "XC1"}, {"cover_mm", 25}}).empty());
 }
+
+// The support-width checks hold for a Request built in C++ as for JSON
+// (the kernel's scope checks): every problem an input error naming
+// slab.support_widths_mm, nothing designed. Spans [1.5, 4.0], free left end.
+TEST_CASE("Support widths of a Request built in C++ are checked against the strip", "[faces][widths][input]") {
+  armature::InputProblems read;
+  const armature::Request base = armature::request_from_json(balcony_en(), read);
+  REQUIRE(read.empty());
+  using S = std::set<std::string>;
+  auto fields = [&](std::vector<double> widths) {
+    armature::Request req = base;
+    req.slab.support_widths_mm = std::move(widths);
+    S out;
+    try {
+      armature::design(registry(), req);
+    } catch (const armature::InputError& e) {
+      for (const auto& p : e.problems()) out.insert(p.field);
+    }
+    return out;
+  };
+  CHECK(fields({0, 300}) == S{"slab.support_widths_mm"});        // 2 entries for 2 spans: 3 needed
+  CHECK(fields({0, 300, 200, 0}) == S{"slab.support_widths_mm"});  // one too many
+  CHECK(fields({100, 300, 200}) == S{"slab.support_widths_mm[0]"});  // width at the free end
+  CHECK(fields({0, -300, NAN}) == S{"slab.support_widths_mm[1]", "slab.support_widths_mm[2]"});
+  CHECK(fields({0, INFINITY, 200}) == S{"slab.support_widths_mm[1]"});
+  CHECK(fields({0, 3000, 200}) == S{"slab.support_widths_mm[1]"});  // the root's face past the tip
+  CHECK(fields({0, 300, 200}).empty());  // the same widths accepted: a design
+}
+
+// A pinned end has no hogging moment for a width to reduce: a width given
+// there is not used, and the result says so (the pinned end of the
+// analysis carries no moment: common practice).
+TEST_CASE("A support width at a pinned end is not used and the result says so", "[faces][widths]") {
+  json req = json::parse(R"({
+    "code": "EN1992-1-1",
+    "slab": {"spans_m": [4.0, 4.0], "ends": ["pinned", "pinned"], "thickness_mm": 200,
+             "support_widths_mm": [200, 300, 250]},
+    "concrete": {"class": "C30/37"},
+    "loads": {"dead_kPa": 1.0, "imposed_kPa": 4.0, "imposed_category": "C"}
+  })");
+  const auto r = design_steps(req);
+  auto has = [](const armature::DesignRecord& rec, const std::string& text) {
+    return std::any_of(rec.warnings.begin(), rec.warnings.end(),
+                       [&](const std::string& w) { return w.find(text) != std::string::npos; });
+  };
+  CHECK(has(r, "support 1: the support width of 200 mm is not used (pinned end: no hogging moment to reduce)"));
+  CHECK(has(r, "support 3: the support width of 250 mm is not used (pinned end: no hogging moment to reduce)"));
+  CHECK_FALSE(has(r, "support 2: the support width"));
+  // The same design as with no width at the ends: nothing else changes.
+  req["slab"]["support_widths_mm"] = {0, 300, 0};
+  const auto inner = design_steps(req);
+  CHECK_FALSE(has(inner, "is not used (pinned end"));
+  REQUIRE(inner.regions.size() == r.regions.size());
+  for (std::size_t i = 0; i < r.regions.size(); ++i) {
+    CHECK(r.regions[i].M_Ed == inner.regions[i].M_Ed);
+    CHECK(r.regions[i].bars.spacing_mm == inner.regions[i].bars.spacing_mm);
+  }
+  CHECK(r.max_utilisation == inner.max_utilisation);
+}

@@ -1,4 +1,4 @@
-// The kernel's bar search for the driver (design.cpp): the public parts
+// The kernel's bar search for the driver (driver.cpp): the public parts
 // (search_bars, search_common_bars, SpacingGrid) are in armature/design.hpp.
 #pragma once
 

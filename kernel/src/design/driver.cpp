@@ -1,0 +1,326 @@
+// The design driver, on a Member and the code. Loads are totalled from the
+// code's factors, the member is analysed (members/), each of its regions
+// gets the bar search of contract.md (design/search.cpp), and the code's
+// checks of the chosen arrangements make the design record.
+#include "armature/design.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <optional>
+#include <string_view>
+#include <limits>
+#include <numbers>
+
+#include <boost/container/small_vector.hpp>
+
+#include "armature/analysis.hpp"
+#include "armature/member.hpp"
+#include "armature/json_io.hpp"
+#include "armature/registry.hpp"
+#include "call_code.hpp"
+#include "loads.hpp"
+#include "search.hpp"
+
+#ifndef ARMATURE_VERSION
+#define ARMATURE_VERSION "0.0.0"
+#endif
+
+namespace armature {
+
+const char* version_string() { return ARMATURE_VERSION; }
+
+namespace {
+
+// For a request that passed validation; `id` is the code's identity,
+// `checker` the code's checker for this request.
+DesignRecord design_validated(const SlabChecker& checker, CodeIdentity id, const Request& req, Member& member,
+                              Detail detail);
+
+// Each region of reinforcement.given must be one of the strip's, at its
+// face. `pinned_end_steel`: whether pinned ends carry top bars (the code's
+// rule; unknown until the request is valid, when such names pass here).
+void add_given_region_problems(const Request& req, std::optional<bool> pinned_end_steel, InputProblems& problems) {
+  const auto& given = req.reinforcement.given;
+  if (given.empty() || req.slab.spans_mm.empty()) return;
+  for (const auto& p : problems.items())
+    if (p.field.rfind("slab", 0) == 0) return;  // the strip itself is in doubt
+  const OneWayStrip member(req.slab, req.design.redistribution_percent);
+  const auto names = member.region_names(pinned_end_steel);
+  std::string listed;
+  for (const auto& r : names)
+    if (r.certain) listed += (listed.empty() ? "" : ", ") + r.where + " (" + to_string(r.face) + ")";
+  for (std::size_t i = 0; i < given.size(); ++i) {
+    const std::string path = "reinforcement.given[" + std::to_string(i) + "]";
+    if (given[i].where.empty()) continue;  // refused as it was read
+    const auto it = std::find_if(names.begin(), names.end(), [&](const RegionName& r) { return r.where == given[i].where; });
+    if (it == names.end()) {
+      const auto with_ends = member.region_names(true);
+      const bool pinned_support = pinned_end_steel.has_value() && !*pinned_end_steel &&
+                                  std::any_of(with_ends.begin(), with_ends.end(),
+                                              [&](const RegionName& r) { return r.where == given[i].where; });
+      problems.add(path + ".where",
+                   "no region '" + given[i].where + "' in this strip" +
+                       (pinned_support ? std::string(" (a pinned end carries no top bars under this code)") : "") +
+                       "; its regions are " + listed);
+    } else if (it->certain && it->face != given[i].face && !problems.has_field(path + ".face")) {
+      problems.add(path + ".face", "'" + it->where + "' is a " + to_string(it->face) + " region; got " +
+                                       to_string(given[i].face));
+    }
+  }
+}
+
+// Opens the code's checker for a request that passed every other check,
+// and checks the regions of reinforcement.given against the strip (which
+// needs the code's rule for pinned ends).
+std::unique_ptr<SlabChecker> begin_checked(const DesignCode& code, const CodeIdentity& id, const Request& req) {
+  auto checker = call_code(id, "set-up", [&] { return code.begin(req); });
+  if (!req.reinforcement.given.empty()) {
+    const double fixity =
+        call_code(id, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
+    InputProblems problems;
+    add_given_region_problems(req, fixity > 0.0, problems);
+    problems.raise_if_any();
+  }
+  return checker;
+}
+
+}  // namespace
+
+std::vector<const Check*> DesignRecord::all_checks() const {
+  std::size_t count = 0;
+  for (const auto& r : regions) count += r.checks.size();
+  for (const auto& s : supports) count += s.checks.size();
+  for (const auto& s : spans) count += s.checks.size();
+  std::vector<const Check*> out;
+  out.reserve(count);
+  for (const auto& r : regions)
+    for (const auto& c : r.checks) out.push_back(&c);
+  for (const auto& s : supports)
+    for (const auto& c : s.checks) out.push_back(&c);
+  for (const auto& s : spans)
+    for (const auto& c : s.checks) out.push_back(&c);
+  return out;
+}
+
+DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail detail) {
+  InputProblems problems;
+  Request req = request_from_json(j, problems);
+  std::shared_ptr<const DesignCode> code;
+  if (!problems.has_field("code")) {
+    try {
+      code = registry.open(req.code, req.variant.value_or(""));
+    } catch (const InputError& e) {
+      for (const auto& p : e.problems()) problems.add(p.field, p.message);
+    }
+  }
+  CodeIdentity id;
+  if (code) {
+    id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
+                   [&] { return code->identity(); });
+    call_code(id, "input validation", [&] { code->validate(req, problems); });
+  }
+  OneWayStrip member(req.slab, req.design.redistribution_percent);
+  if (problems.empty()) member.add_scope_problems(problems);
+  // With other problems the code's checker cannot be opened: the regions
+  // given are checked against the strip alone, now, so that they are
+  // reported with the rest (pinned ends wait for a valid request).
+  if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
+  problems.raise_if_any();
+  const auto checker = begin_checked(*code, id, req);
+  return design_validated(*checker, std::move(id), req, member, detail);
+}
+
+DesignRecord design(const Registry& registry, const Request& req, Detail detail) {
+  auto code = registry.open(req.code, req.variant.value_or(""));
+  InputProblems problems;
+  CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
+                              [&] { return code->identity(); });
+  call_code(id, "input validation", [&] { code->validate(req, problems); });
+  OneWayStrip member(req.slab, req.design.redistribution_percent);
+  member.add_scope_problems(problems);
+  if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
+  problems.raise_if_any();
+  const auto checker = begin_checked(*code, id, req);
+  return design_validated(*checker, std::move(id), req, member, detail);
+}
+
+namespace {
+
+// Which regions take given bars (reinforcement.given, by region name) and
+// which share one arrangement (rationalise: every bottom region not given).
+BarPlan plan_bars(const SlabChecker& checker, const CodeIdentity& code, const ReinforcementInput& r,
+                  const std::vector<RegionDemand>& demands, double width_mm) {
+  BarPlan plan;
+  plan.grid = {r.min_spacing_mm, r.spacing_step_mm};
+  plan.given.resize(demands.size());
+  for (const auto& g : r.given) {
+    const auto it = std::find_if(demands.begin(), demands.end(), [&](const RegionDemand& d) { return d.where == g.where; });
+    if (it == demands.end())  // validated against region_names: the two disagree
+      throw DesignError("reinforcement.given names " + g.where + ", which the design has no region for");
+    const auto bar = call_code(code, "catalogue bar", [&] { return checker.catalogue_bar(g.bar); });
+    if (!bar)
+      throw DesignError(code.id + " (" + code.variant + "): no catalogue bar '" + g.bar +
+                        "', which its input validation accepted");
+    plan.given[static_cast<std::size_t>(it - demands.begin())] =
+        SearchCandidate{*bar, g.spacing_mm, provided_area_mm2(bar->area_mm2, g.spacing_mm, width_mm)};
+  }
+  if (r.rationalise == Rationalise::uniform_bottom)
+    for (std::size_t i = 0; i < demands.size(); ++i)
+      if (demands[i].face == Face::bottom && !plan.given[i]) plan.common.push_back(i);
+  return plan;
+}
+
+DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Member& member,
+                              Detail detail) {
+  if (detail == Detail::verdict) detail = Detail::checks;
+  DesignRecord rec;
+  rec.code = std::move(id);
+  rec.report_units = req.report_units;
+  rec.strip_width_mm = req.slab.strip_width_mm;
+  rec.support_widths_given = !req.slab.support_widths_mm.empty();
+  const SlabChecker* const checker = &code_checker;
+  const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
+  rec.actions = all_actions(req, basis.density_kN_m3);
+  rec.list_actions = req.loads.actions_given;
+  // Every label where the combinations are listed (the record, a result
+  // listing its actions) or an equilibrium check names its combination (a
+  // strip with a cantilever); otherwise a design needs the ULS labels alone.
+  const bool has_cantilever = req.slab.ends[0] == EndSupport::free || req.slab.ends[1] == EndSupport::free;
+  const CombinationLabels labels = rec.list_actions || detail == Detail::steps || has_cantilever
+                                       ? CombinationLabels::all
+                                       : CombinationLabels::strength;
+  rec.combinations =
+      call_code(rec.code, "combinations", [&] { return checker->combinations(rec.actions, labels); });
+  for (const auto& c : rec.combinations)
+    if (c.factors.size() != rec.actions.size())
+      throw DesignError(rec.code.id + ": combination '" + c.label + "' does not give a factor for every action");
+  if (std::none_of(rec.combinations.begin(), rec.combinations.end(),
+                   [](const Combination& c) { return c.limit_state == LimitState::uls; }))
+    throw DesignError(rec.code.id + ": the code gave no ULS combination");
+  rec.loads = total_loads(basis, rec.actions, rec.combinations);
+  if (detail == Detail::steps)  // only the calculation record lists them
+    rec.defaults_used = call_code(rec.code, "defaults", [&] { return checker->defaults_used(); });
+
+  const double b = req.slab.strip_width_mm;
+  const std::size_t parts = member.pattern_count();
+  const auto arrangements =
+      call_code(rec.code, "load arrangements", [&] { return checker->load_arrangements(parts); });
+  for (const auto& a : arrangements)
+    if (a.size() != parts) throw DesignError(rec.code.id + ": a load arrangement does not match the spans");
+  if (arrangements.empty()) throw DesignError(rec.code.id + ": the code gave no load arrangement");
+
+  const MemberLoads loads{rec.actions, rec.combinations, arrangements, rec.loads};
+  rec.load_cases = member.analyse(loads);
+  if (detail == Detail::steps) rec.diagrams = member.diagrams();  // for the record
+  rec.spans_mm = req.slab.spans_mm;
+  rec.load_arrangements = arrangements.size();
+  rec.ends = req.slab.ends;
+  rec.redistribution_percent = req.design.redistribution_percent;
+  rec.project = req.project;
+  rec.thickness_mm = req.slab.thickness_mm;
+  RegionRules rules;
+  rules.pinned_end_fixity_fraction =
+      call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
+  rules.support_design_moment = [&](const RegionDemand& g) {
+    const double M =
+        call_code(rec.code, "support design moment", [&] { return checker->support_design_moment(g); }, g.where);
+    if (!std::isfinite(M))
+      throw DesignError(rec.code.id + " (" + rec.code.variant + "): the design moment at " + g.where +
+                        " is not finite");
+    return M;
+  };
+  auto demands = member.design_regions(rules, rec.warnings);
+  rec.rationalise = req.reinforcement.rationalise;
+  const BarPlan plan = plan_bars(*checker, rec.code, req.reinforcement, demands, b);
+  const std::vector<SearchCandidate> picks = search_with_face_covers(
+      *checker, rec.code, demands, b, req.durability, plan, rec.warnings);
+
+  const std::vector<std::string> span_names = member.span_names(), support_names = member.support_names();
+  const std::size_t n = span_names.size(), m = support_names.size();
+  std::vector<std::vector<Check>> span_checks(n);
+  std::vector<SupportRecord> supports(m);
+  rec.regions.reserve(demands.size());
+  rec.spans.reserve(n);
+  rec.supports.reserve(m);
+  double max_main_As = 0.0;
+  for (std::size_t i = 0; i < demands.size(); ++i) {
+    const RegionDemand& demand = demands[i];
+    const SearchCandidate& pick = picks[i];
+    RegionOutcome out = call_code(
+        rec.code, "the checks",
+        [&] { return checker->check_region(demand, pick.bar, pick.spacing_mm, detail); }, demand.where);
+    RegionRecord region;
+    region.where = demand.where;
+    region.face = demand.face;
+    region.x_mm = demand.x_mm;
+    region.M_Ed = demand.M_Ed;
+    region.d_mm = out.d_mm;
+    region.As_req_mm2 = out.As_req_mm2;
+    region.As_min_mm2 = out.As_min_mm2;
+    region.As_max_mm2 = out.As_max_mm2;
+    region.cover_mm = out.cover_mm;
+    region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
+    region.bars_given = plan.given[i].has_value();
+    region.checks = std::move(out.checks);
+    rec.regions.push_back(std::move(region));
+    max_main_As = std::max(max_main_As, pick.As_prov_mm2);
+    for (std::size_t e = 0; e < n; ++e)
+      if (demand.span_where == span_names[e])
+        for (auto& c : out.span_checks) span_checks[e].push_back(std::move(c));
+    for (auto& s : out.supports)
+      for (std::size_t j = 0; j < m; ++j)
+        if (s.where == support_names[j]) supports[j] = {s.where, s.V_Ed, s.V_Rd, std::move(s.checks)};
+  }
+  for (std::size_t j = 0; j < m; ++j)
+    if (!supports[j].where.empty()) rec.supports.push_back(std::move(supports[j]));
+  for (std::size_t e = 0; e < n; ++e) {
+    SpanRecord span{span_names[e], std::move(span_checks[e])};
+    auto extra = call_code(rec.code, "span checks", [&] { return checker->span_checks(span.where); });
+    for (auto& c : extra) span.checks.push_back(std::move(c));
+    rec.spans.push_back(std::move(span));
+  }
+
+  // EQU of every cantilever's back span (DEVELOPERS.md, "Actions and
+  // combinations").
+  for (const auto& worst : member.equilibrium_demands(loads)) {
+    auto checks = call_code(rec.code, "equilibrium", [&] { return checker->equilibrium_checks(worst, detail); },
+                            worst.where);
+    auto s = std::find_if(rec.supports.begin(), rec.supports.end(),
+                          [&](const SupportRecord& r) { return r.where == worst.where; });
+    if (s == rec.supports.end()) continue;
+    for (auto& chk : checks) s->checks.push_back(std::move(chk));
+  }
+
+  bool distribution_ok = true;
+  rec.distribution = choose_distribution(*checker, rec.code, max_main_As, b, plan.grid, rec.warnings,
+                                         distribution_ok);
+
+  for (const auto& r : rec.regions) {
+    double& c = rec.face_cover_mm[static_cast<std::size_t>(r.face)];
+    c = std::max(c, r.cover_mm);
+  }
+
+  rec.pass = distribution_ok;
+  rec.max_utilisation = 0.0;
+  bool first = true;
+  for (const Check* c : rec.all_checks()) {
+    if (!c->pass) rec.pass = false;
+    // The search takes the widest spacing allowed, so a passing spacing
+    // limit sits near 1 by construction and says nothing: it stays in the
+    // checks but heads the result only when it fails.
+    if (is_arrangement_limit(c->id.str()) && c->pass) continue;
+    if (first || c->utilisation > rec.max_utilisation) {
+      rec.max_utilisation = c->utilisation;
+      rec.governing_check = c->id;
+      rec.governing_where = c->where;
+      first = false;
+    }
+  }
+  auto code_warnings = call_code(rec.code, "warnings", [&] { return checker->warnings(); });
+  rec.warnings.insert(rec.warnings.begin(), code_warnings.begin(), code_warnings.end());
+  return rec;
+}
+}  // namespace
+
+}  // namespace armature
