@@ -17,7 +17,9 @@ enum class Symbol { D, L, Lr, S };
 Symbol symbol_of(const Action& a) {
   switch (a.kind) {
     case ActionKind::permanent: return Symbol::D;
-    case ActionKind::imposed: return Symbol::L;
+    // EN category H (roofs not accessible but for maintenance) is ACI's
+    // roof live load Lr, whichever kind the request names it by.
+    case ActionKind::imposed: return a.category == "H" ? Symbol::Lr : Symbol::L;
     case ActionKind::roof: return Symbol::Lr;
     case ActionKind::snow: return Symbol::S;
   }

@@ -494,9 +494,12 @@ class Checker final : public SlabChecker {
         {"reinforcement.yield_strength_MPa", num(m_.fyk) + " MPa", "grade B500, plug-in default"},
         {"reinforcement.bars", bars, "plug-in default set"},
         {"reinforcement.ductility_class", to_string(req_.reinforcement.ductility_class), "armature default"},
-        {"loads.imposed_category", req_.loads.imposed_category, "armature default (EN 1990 Table A1.1)"},
         {"durability.design_life_years", num(req_.durability.design_life_years) + " years", "armature default"},
     };
+    // The category of the shorthand imposed load, where there is one to use it.
+    if (req_.loads.imposed_MPa > 0.0)
+      out.insert(out.begin() + 6,
+                 {"loads.imposed_category", req_.loads.imposed_category, "armature default (EN 1990 Table A1.1)"});
     for (auto& d : durability_defaults(req_, {face_data(Face::bottom).exposure, face_data(Face::top).exposure},
                                        "plug-in default (EN 1992-1-1 Table 4.1, dry inside buildings)",
                                        "c_nom from the exposure and each bar (see the bending steps)",
@@ -666,9 +669,13 @@ class Checker final : public SlabChecker {
              fd.w_max, "mm",
              variant_ndp("EN 1992-1-1 7.3.1(5) Table 7.1N",
                          fd.exposure == "X0" || fd.exposure == "XC1" ? "w_max_X0_XC1_mm" : "w_max_other_mm"));
-      st.add("ψ2", "quasi-permanent factor, category " + req_.loads.imposed_category,
-             "category " + req_.loads.imposed_category, psi_.psi2, "-",
-             variant_ndp("EN 1990 Table A1.1", "psi_factors." + req_.loads.imposed_category + ".psi2"));
+      if (req_.loads.actions_given)  // the ratio comes from the combinations of the actions
+        st.add("n_qp/n_uls", "quasi-permanent over ULS moment at the region (combinations of the actions)",
+               "", g.quasi_permanent_to_uls, "-", "EN 1990 (6.16b), (6.10)");
+      else
+        st.add("ψ2", "quasi-permanent factor, category " + req_.loads.imposed_category,
+               "category " + req_.loads.imposed_category, psi_.psi2, "-",
+               variant_ndp("EN 1990 Table A1.1", "psi_factors." + req_.loads.imposed_category + ".psi2"));
       st.add("σs", "fyd (n_qp/n_uls)(As,req/As,prov)/δ",
              num(m_.fyd) + " × " + num(g.quasi_permanent_to_uls) + " × " + num(As_req) + "/" + num(As_prov) +
                  " / " + num(g.redistribution_delta),

@@ -2,6 +2,10 @@
 // combinations refer to (self-weight, shorthands, the request's actions).
 #include "armature/actions.hpp"
 
+#include <cmath>
+#include <string>
+
+
 #include "armature/combinations.hpp"
 #include "armature/request.hpp"
 
@@ -68,6 +72,47 @@ std::vector<Action> all_actions(const Request& req, double density_kN_m3) {
   }
   for (const auto& a : req.loads.actions) out.push_back(a);
   return out;
+}
+
+}  // namespace armature
+
+namespace armature {
+
+void add_action_problems(const Request& req, InputProblems& problems) {
+  const std::vector<double>& spans = req.slab.spans_mm;
+  for (std::size_t i = 0; i < req.loads.actions.size(); ++i) {
+    const Action& a = req.loads.actions[i];
+    const std::string at = "loads.actions[" + std::to_string(i) + "]";
+    if (a.name.empty()) problems.add(at + ".name", "must be a non-empty name");
+    if (!std::isfinite(a.value) || a.value < 0.0)
+      problems.add(at, "its value must be a finite number of 0 or more");
+    if (a.kind == ActionKind::imposed &&
+        (a.category.size() != 1 || a.category[0] < 'A' || a.category[0] > 'H'))
+      problems.add(at + ".category", "must be one of A to H (EN 1990 Table A1.1), got '" + a.category + "'");
+    if (!a.span) {
+      if (a.distribution != Distribution::uniform)
+        problems.add(at + ".span", "a line or point load needs the span it is in");
+      continue;
+    }
+    if (*a.span >= spans.size()) {
+      problems.add(at + ".span", "must be 1 to " + std::to_string(spans.size()) + " (1-based), got " +
+                                     std::to_string(*a.span + 1));
+      continue;
+    }
+    const double L = spans[*a.span];
+    auto within = [&](double x) { return std::isfinite(x) && x >= 0.0 && x <= L; };
+    if (a.distribution == Distribution::uniform) {
+      const double from = a.from_mm.value_or(0.0), to = a.to_mm.value_or(L);
+      if (!within(from)) problems.add(at + ".from_m", "must lie within the span");
+      if (!within(to)) problems.add(at + ".to_m", "must lie within the span");
+      if (within(from) && within(to) && !(from < to)) problems.add(at + ".to_m", "must be beyond from_m");
+    } else if (!within(a.at_mm)) {
+      problems.add(at + ".at_m", "must lie within the span");
+    }
+    if (a.distribution == Distribution::point &&
+        !(std::isfinite(a.effective_width_mm) && a.effective_width_mm > 0.0))
+      problems.add(at + ".effective_width_m", "must be a finite width greater than 0");
+  }
 }
 
 }  // namespace armature

@@ -413,3 +413,35 @@ TEST_CASE("A support width at a pinned end is not used and the result says so", 
   }
   CHECK(r.max_utilisation == inner.max_utilisation);
 }
+
+// loads.actions of a Request built in C++ are checked as the JSON reader
+// checks them: each bad field an input error naming it, nothing designed
+// (a point load spread over no width would divide by zero).
+TEST_CASE("Actions of a Request built in C++ are checked against the strip", "[actions][input]") {
+  armature::InputProblems read;
+  json j = balcony_en();
+  j["loads"]["actions"] = json::array({{{"name", "kiln"}, {"kind", "imposed"}, {"category", "E"},
+                                        {"point_kN", 8.0}, {"span", 2}, {"at_m", 2.0},
+                                        {"effective_width_m", 1.2}}});
+  const armature::Request base = armature::request_from_json(j, read);
+  REQUIRE(read.empty());
+  using S = std::set<std::string>;
+  auto fields = [&](auto edit) {
+    armature::Request req = base;
+    edit(req.loads.actions.at(0));
+    S out;
+    try {
+      armature::design(registry(), req);
+    } catch (const armature::InputError& e) {
+      for (const auto& p : e.problems()) out.insert(p.field);
+    }
+    return out;
+  };
+  CHECK(fields([](armature::Action& a) { a.effective_width_mm = 0.0; }) ==
+        S{"loads.actions[0].effective_width_m"});
+  CHECK(fields([](armature::Action& a) { a.span = 7; }) == S{"loads.actions[0].span"});
+  CHECK(fields([](armature::Action& a) { a.at_mm = 4500.0; }) == S{"loads.actions[0].at_m"});  // span 4.0 m
+  CHECK(fields([](armature::Action& a) { a.category = "Z"; }).count("loads.actions[0].category") == 1);
+  CHECK(fields([](armature::Action& a) { a.value = NAN; }) == S{"loads.actions[0]"});
+  CHECK(fields([](armature::Action&) {}).empty());  // as read: a design
+}

@@ -263,6 +263,22 @@ def test_aci_reads_kinds_as_D_L_Lr_S():
     assert res["loads"]["uls_kPa"] == pytest.approx(1.2 * sw + 1.6 * 4.0 + 0.5 * 1.0, rel=1e-12)
 
 
+def test_aci_reads_an_imposed_category_h_load_as_roof_live_load():
+    """EN 1990 category H (roofs not accessible but for maintenance) is
+    ACI 318-19's roof live load Lr: (b) 1.2 D + 0.5 Lr with no L (ACI
+    5.3.1, by equation), the same as kind "roof"."""
+    def labels(kind):
+        r = request([{"name": "maintenance", "kind": kind, "category": "H", "kPa": 0.6}])
+        r["code"] = "ACI318-19"
+        del r["variant"]
+        r["concrete"] = {"cylinder_strength_MPa": 28}
+        r["reinforcement"] = {"yield_strength_MPa": 420}
+        r["durability"] = {"cover_mm": 20}
+        return [c["label"] for c in armature.design(r)["loads"]["combinations"] if c["limit_state"] == "ULS"]
+    assert labels("imposed") == labels("roof")
+    assert any(label.endswith("1.6 Lr") for label in labels("imposed"))
+
+
 # ---- EQU: uplift at the back span's far support --------------------------------
 
 def balcony(wall_kN_per_m):
@@ -337,3 +353,64 @@ def test_aci_cantilever_equilibrium_by_hand_statics():
     assert c["capacity"] == pytest.approx(stb, rel=1e-9)
     assert c["demand"] == pytest.approx(dst, rel=1e-9)
     assert c["clause"] == "ACI 318-19 5.3.1, L on the cantilever only"
+
+
+def reactions_by_stiffness(spans, ends, w_per_span, elements=8):
+    """Support reactions (kN, upward) of a continuous beam under uniform
+    loads per span (kN/m), by a general stiffness solution with numpy
+    (Euler-Bernoulli elements with consistent loads; uniform EI); ends
+    "pinned" or "free". Independent of the project's analysis."""
+    np = pytest.importorskip("numpy")
+    xs = [0.0]
+    for L in spans:
+        xs += [xs[-1] + L * (i + 1) / elements for i in range(elements)]
+    nn = len(xs)
+    K = np.zeros((2 * nn, 2 * nn))
+    F = np.zeros(2 * nn)
+    for e in range(nn - 1):
+        span = e // elements
+        le = xs[e + 1] - xs[e]
+        k = np.array([[12, 6 * le, -12, 6 * le], [6 * le, 4 * le ** 2, -6 * le, 2 * le ** 2],
+                      [-12, -6 * le, 12, -6 * le], [6 * le, 2 * le ** 2, -6 * le, 4 * le ** 2]]) / le ** 3
+        dofs = [2 * e, 2 * e + 1, 2 * e + 2, 2 * e + 3]
+        K[np.ix_(dofs, dofs)] += k
+        w = w_per_span[span]
+        F[dofs] += -w * np.array([le / 2, le ** 2 / 12, le / 2, -le ** 2 / 12])
+    support_nodes = [i * elements for i in range(len(spans) + 1)]
+    if ends[0] == "free":
+        support_nodes = support_nodes[1:]
+    if ends[1] == "free":
+        support_nodes = support_nodes[:-1]
+    fixed = [2 * i for i in support_nodes]
+    free = [d for d in range(2 * nn) if d not in fixed]
+    u = np.zeros(2 * nn)
+    u[free] = np.linalg.solve(K[np.ix_(free, free)], F[free])
+    R = K @ u - F
+    return {i // elements: R[2 * i] for i in support_nodes}  # keyed by support index
+
+
+def test_equilibrium_counts_every_span_that_lifts_the_far_support():
+    """A 1.0 m cantilever on spans of 3, 3 and 6 m (200 mm slab, 5 kPa
+    category C): the far span's loads also lift support 3 (influence of a
+    reaction changes sign only at supports), so it takes γG,sup 1.1 and
+    γQ 1.5 like the cantilever; spans that hold support 3 down take γG,inf
+    0.9 (EN 1990 Table A1.2(A), recommended). Each span's share of the
+    reaction by an independent stiffness solution (numpy)."""
+    spans, ends, q = [1.0, 3.0, 3.0, 6.0], ["free", "pinned"], 5.0
+    r = copy.deepcopy(BASE)
+    r["slab"].update(spans_m=spans, ends=ends)
+    r["loads"] = {"imposed_kPa": q, "imposed_category": "C"}
+    c = equilibrium_check(armature.design(r))
+    g = SELF_WEIGHT_KPA
+    R_stb = R_dst = 0.0
+    for e in range(len(spans)):
+        unit = [1.0 if k == e else 0.0 for k in range(len(spans))]
+        share = reactions_by_stiffness(spans, ends, unit)[2]  # support 3, per kN/m on span e
+        if share < 0:
+            R_dst -= (1.1 * g + 1.5 * q) * share
+        else:
+            R_stb += 0.9 * g * share
+    assert c["where"] == "support 3"
+    assert c["capacity"] == pytest.approx(R_stb, rel=1e-6)
+    assert c["demand"] == pytest.approx(R_dst, rel=1e-6)
+    assert R_dst > R_stb and c["pass"] is False  # the far span's loads lift it too

@@ -146,4 +146,9 @@ struct Request {
 // given (a value above 0), then loads.actions.
 std::vector<Action> all_actions(const Request& request, double density_kN_m3);
 
+// The checks the JSON reader makes of loads.actions, for a Request built
+// in C++ (which does not pass through the reader): one problem per field
+// (loads.actions[i].span, .at_m, ...), none for a valid list.
+void add_action_problems(const Request& request, InputProblems& problems);
+
 }  // namespace armature

@@ -138,6 +138,7 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
                               [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
   OneWayStrip member(req.slab, req.design.redistribution_percent);
+  add_action_problems(req, problems);
   member.add_scope_problems(problems);
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
@@ -288,7 +289,8 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
                             worst.where);
     auto s = std::find_if(rec.supports.begin(), rec.supports.end(),
                           [&](const SupportRecord& r) { return r.where == worst.where; });
-    if (s == rec.supports.end()) continue;
+    if (s == rec.supports.end())  // the member names a support the design has no record of
+      throw DesignError("the equilibrium check names " + worst.where + ", which the design has no support for");
     for (auto& chk : checks) s->checks.push_back(std::move(chk));
   }
 

@@ -331,14 +331,16 @@ void OneWayStrip::apply_support_widths(const RegionRules& rules, std::vector<Reg
   }
 }
 
-// Static equilibrium of each cantilever's back span (EQU combinations):
-// the cantilever alone loaded (permanent actions at the `loaded`,
-// unfavourable factor there, variable actions there only), the other spans
-// at the `unloaded`, favourable factor. The reaction at the far support of
-// the back span is split by superposition into what the other spans' loads
-// give and what the cantilever's loads take away; the combination with the
-// least reaction is the demand. A fixed far end is built in and is not
-// checked.
+// Static equilibrium of each cantilever's back span (EQU combinations),
+// at the back span's far support (a fixed far end is built in and is not
+// checked). The reaction there is a sum over the spans (superposition),
+// and the influence of a load on it keeps one sign within a span: spans
+// whose loads lower it are destabilising and take the permanent actions at
+// the unfavourable factor (`loaded`) with the variable actions; the others
+// are stabilising and take the permanent actions at the favourable factor
+// (`unloaded`) alone. R_stabilising sums the second, R_destabilising what
+// the first take away; the combination with the largest ratio of the two
+// is the demand.
 std::vector<EquilibriumDemand> OneWayStrip::equilibrium_demands(const MemberLoads& loads) const {
   const StripModel& m = model_;
   const double b = width_mm_;
@@ -349,28 +351,37 @@ std::vector<EquilibriumDemand> OneWayStrip::equilibrium_demands(const MemberLoad
     if (!m.is_cantilever(c)) continue;
     const std::size_t far = c == 0 ? 2 : n - 2;  // the back span's other end
     if (far > n || !m.has_support(far) || ((far == 0 || far == n) && m.is_restrained(far))) continue;
-    std::vector<bool> loaded(n, false);
-    loaded[c] = true;
+    // Per combination, each span's loads alone: unfavourable, favourable.
     std::vector<std::vector<SpanLoading>> cases;
     std::vector<const Combination*> used;
     for (const auto& k : loads.combinations) {
       if (k.limit_state != LimitState::equilibrium) continue;
-      auto all = loading_of(loads.actions, k, loaded, m.spans_mm, b);
-      std::vector<SpanLoading> stabilising = all, destabilising(n);
-      stabilising[c] = SpanLoading{};
-      destabilising[c] = all[c];
-      cases.push_back(std::move(stabilising));
-      cases.push_back(std::move(destabilising));
+      const auto unfavourable = loading_of(loads.actions, k, std::vector<bool>(n, true), m.spans_mm, b);
+      const auto favourable = loading_of(loads.actions, k, std::vector<bool>(n, false), m.spans_mm, b);
+      for (std::size_t e = 0; e < n; ++e) {
+        std::vector<SpanLoading> one(n);
+        one[e] = unfavourable[e];
+        cases.push_back(one);
+        one[e] = favourable[e];
+        cases.push_back(std::move(one));
+      }
       used.push_back(&k);
     }
     if (used.empty()) continue;
     const auto results = analyse_load_cases(m, cases);
     EquilibriumDemand worst;
-    double least = std::numeric_limits<double>::infinity();
+    double worst_ratio = -std::numeric_limits<double>::infinity();
     for (std::size_t k = 0; k < used.size(); ++k) {
-      const double R_stb = results[2 * k].reactions[far], R_dst = -results[2 * k + 1].reactions[far];
-      if (R_stb - R_dst < least) {
-        least = R_stb - R_dst;
+      double R_stb = 0.0, R_dst = 0.0;
+      for (std::size_t e = 0; e < n; ++e) {
+        const double R_unfavourable = results[2 * (k * n + e)].reactions[far];
+        const double R_favourable = results[2 * (k * n + e) + 1].reactions[far];
+        if (R_unfavourable < 0.0 || R_favourable < 0.0) R_dst -= std::min(R_unfavourable, R_favourable);
+        else R_stb += R_favourable;
+      }
+      const double ratio = R_stb > 0.0 ? R_dst / R_stb : std::numeric_limits<double>::infinity();
+      if (ratio > worst_ratio) {
+        worst_ratio = ratio;
         worst = {support_name(far), used[k]->label, R_stb, R_dst};
       }
     }
