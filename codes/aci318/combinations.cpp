@@ -91,12 +91,16 @@ std::vector<Combination> aci_combinations(const std::vector<Action>& actions, Co
       out.push_back(combination_of("5.3.1c" + tag, state, t, actions, labels));
     }
   }
-  // Service loads (unfactored) and the sustained load.
-  if (others.empty())
-    out.push_back(combination_of("service", LimitState::characteristic, {{Symbol::D, 1.0}, {Symbol::L, 1.0}}, actions, labels));
-  for (Symbol x : others)
-    out.push_back(combination_of("service", LimitState::characteristic, {{Symbol::D, 1.0}, {Symbol::L, 1.0}, {x, 1.0}},
-                                 actions, labels));
+  // Service loads (unfactored; listed, not used by a design yet) and the
+  // sustained load.
+  if (labels == CombinationLabels::all) {
+    if (others.empty())
+      out.push_back(
+          combination_of("service", LimitState::characteristic, {{Symbol::D, 1.0}, {Symbol::L, 1.0}}, actions, labels));
+    for (Symbol x : others)
+      out.push_back(combination_of("service", LimitState::characteristic,
+                                   {{Symbol::D, 1.0}, {Symbol::L, 1.0}, {x, 1.0}}, actions, labels));
+  }
   out.push_back(combination_of("sustained", LimitState::quasi_permanent, {{Symbol::D, 1.0}}, actions, labels));
   return out;
 }

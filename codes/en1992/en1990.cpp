@@ -196,12 +196,15 @@ std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_te
                 " (ξ = " + num(f.xi) + ", " + f.variant + " variant NDP)";
     }
   }
+  const bool serviceability = labels == CombinationLabels::all;  // characteristic and frequent
   for (const auto& c : choices) {  // (6.14b)
+    if (!serviceability) break;
     Combination k = make(LimitState::characteristic, c, 1.0, 1.0, [](PsiFactors) { return 1.0; },
                          [](PsiFactors p) { return p.psi0; });
     if (Combination* kept = add(std::move(k))) kept->label = "characteristic" + leading_note(actions, c) + ": " + terms("Gk", actions, kept->factors);
   }
   for (const auto& c : choices) {  // (6.15b)
+    if (!serviceability) break;
     Combination k = make(LimitState::frequent, c, 1.0, 1.0, [](PsiFactors p) { return p.psi1; },
                          [](PsiFactors p) { return p.psi2; });
     if (Combination* kept = add(std::move(k))) kept->label = "frequent" + leading_note(actions, c) + ": " + terms("Gk", actions, kept->factors);

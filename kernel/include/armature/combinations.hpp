@@ -42,8 +42,11 @@ struct Combination {
 // its actions) needs them all. Labels are the costly part of a code's
 // answer, and a design asks for its combinations every time.
 enum class CombinationLabels {
-  strength,  // labels of the ULS combinations; the others may be empty
-  all,       // every label
+  // What a design uses: the ULS combinations labelled, the quasi-permanent
+  // and EQU ones (labels may be empty); the characteristic and frequent
+  // ones, which no check of a design reads yet, may be left out.
+  strength,
+  all,  // every combination, every label
 };
 
 class CombinationRules {
