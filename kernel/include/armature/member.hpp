@@ -5,6 +5,7 @@
 // number or a narrow callback given by the driver (RegionRules).
 #pragma once
 
+#include <array>
 #include <cstddef>
 #include <functional>
 #include <optional>
@@ -81,6 +82,14 @@ class Member {
 
 // A one-way strip: continuous spans on line supports, ends pinned, fixed
 // or free (cantilevers), of width `strip_width_mm`.
+// slab.support_widths_mm against a strip's spans and ends, for every entry
+// path (the JSON reader and a Request built in C++): one width per support,
+// n + 1 for n spans, each finite and from 0 to 3 m, 0 at a free end, each
+// span's two faces leaving part of it clear. Without a known geometry
+// (spans or ends in error) the values alone are judged.
+void add_support_width_problems(const std::vector<double>& spans_mm, const std::array<EndSupport, 2>& ends,
+                                const std::vector<double>& widths_mm, bool geometry_known, InputProblems& problems);
+
 class OneWayStrip final : public Member {
  public:
   OneWayStrip(const SlabInput& slab, double redistribution_percent);

@@ -8,6 +8,7 @@
 #include <string_view>
 
 #include "armature/json_io.hpp"
+#include "armature/member.hpp"
 #include "armature/units.hpp"
 
 namespace armature {
@@ -224,59 +225,28 @@ class ObjectReader {
 
 constexpr std::size_t max_spans = 20;
 
-constexpr double max_support_width_mm = 3000.0;
 
-// slab.support_widths_mm: one breadth per support, n + 1 for n spans, 0 at a
-// free end (there is no support there); each face (t/2 from the support's
-// centreline) must fall inside the span, before the face of the next
-// support. The list is judged against the spans and ends only when those
-// were read without a problem (`geometry_ok`).
+// slab.support_widths_mm: the numbers here; what they must be against the
+// strip (add_support_width_problems, member.hpp), judged against the spans
+// and ends only when those were read without a problem (`geometry_ok`).
 void read_support_widths(const json& widths, InputProblems& problems, bool geometry_ok, SlabInput& slab) {
   const std::string name = "slab.support_widths_mm";
   std::vector<double> t;
-  bool values_ok = true;
+  bool numbers = true;
   for (std::size_t i = 0; i < widths.size(); ++i) {
-    const std::string f = name + "[" + std::to_string(i) + "]";
     const json& v = widths[i];
     if (!v.is_number()) {
-      problems.add(f, "must be a number (mm), got " + describe(v));
-      values_ok = false;
+      problems.add(name + "[" + std::to_string(i) + "]", "must be a number (mm), got " + describe(v));
+      numbers = false;
+      t.push_back(0.0);  // a placeholder no check refuses, so the others are judged
       continue;
     }
-    const double x = v.get<double>();
-    if (!std::isfinite(x) || x < 0.0 || x > max_support_width_mm) {
-      problems.add(f, "must be between 0 and " + format_number(max_support_width_mm) + " mm, got " +
-                          (std::isfinite(x) ? format_number(x) : std::string("a value that is not finite")));
-      values_ok = false;
-      continue;
-    }
-    t.push_back(x);
+    t.push_back(v.get<double>());
   }
-  if (!geometry_ok) return;
-  const std::size_t n = slab.spans_mm.size();
-  if (widths.size() != n + 1) {
-    problems.add(name, "must list one width per support, " + std::to_string(n + 1) + " for " +
-                           std::to_string(n) + (n == 1 ? " span" : " spans") + " (0 at a free end), got " +
-                           std::to_string(widths.size()));
-    return;
-  }
-  if (!values_ok) return;
-  for (std::size_t k = 0; k < 2; ++k) {
-    const std::size_t j = k == 0 ? 0 : n;
-    if (slab.ends[k] == EndSupport::free && t[j] != 0.0)
-      problems.add(name + "[" + std::to_string(j) + "]",
-                   "must be 0: slab.ends[" + std::to_string(k) + "] is free, so there is no support there, got " +
-                       format_number(t[j]));
-  }
-  for (std::size_t e = 0; e < n; ++e) {
-    const double faces = t[e] / 2.0 + t[e + 1] / 2.0;
-    if (faces >= slab.spans_mm[e])
-      problems.add(name + "[" + std::to_string(t[e] >= t[e + 1] ? e : e + 1) + "]",
-                   "the support faces of span " + std::to_string(e + 1) + " (half of " + format_number(t[e]) +
-                       " mm and half of " + format_number(t[e + 1]) + " mm from the supports' centrelines) "
-                       "must leave part of its " + format_number(slab.spans_mm[e]) + " mm clear");
-  }
-  slab.support_widths_mm = std::move(t);
+  const std::size_t before = problems.items().size();
+  add_support_width_problems(slab.spans_mm, slab.ends, t, geometry_ok && numbers, problems);
+  if (!numbers) return;
+  if (problems.items().size() == before) slab.support_widths_mm = std::move(t);
 }
 
 void read_slab(const json& j, InputProblems& problems, SlabInput& slab) {

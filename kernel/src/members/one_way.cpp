@@ -25,47 +25,6 @@ std::string number_text(double v) {
 
 constexpr double max_support_width_mm = 3000.0;
 
-// slab.support_widths_mm against the strip, for every entry path (the JSON
-// reader makes the same checks; a Request built in C++ meets them here): one
-// width per support, n + 1 for n spans, each finite and from 0 to 3 m, 0 at
-// a free end, and each span's two faces (t/2 from the supports'
-// centrelines) leaving part of the span clear.
-void add_support_width_problems(const StripModel& m, const std::vector<double>& t, InputProblems& problems) {
-  const std::string name = "slab.support_widths_mm";
-  if (t.empty()) return;
-  const std::size_t n = m.span_count();
-  if (t.size() != n + 1) {
-    problems.add(name, "must list one width per support, " + std::to_string(n + 1) + " for " + std::to_string(n) +
-                           (n == 1 ? " span" : " spans") + " (0 at a free end), got " + std::to_string(t.size()));
-    return;
-  }
-  bool values_ok = true;
-  for (std::size_t j = 0; j < t.size(); ++j) {
-    if (std::isfinite(t[j]) && t[j] >= 0.0 && t[j] <= max_support_width_mm) continue;
-    problems.add(name + "[" + std::to_string(j) + "]",
-                 "must be between 0 and " + number_text(max_support_width_mm) + " mm, got " +
-                     (std::isfinite(t[j]) ? number_text(t[j]) : std::string("a value that is not finite")));
-    values_ok = false;
-  }
-  if (!values_ok) return;
-  const EndSupport ends[2] = {m.left, m.right};
-  for (std::size_t k = 0; k < 2; ++k) {
-    const std::size_t j = k == 0 ? 0 : n;
-    if (ends[k] == EndSupport::free && t[j] != 0.0)
-      problems.add(name + "[" + std::to_string(j) + "]",
-                   "must be 0: slab.ends[" + std::to_string(k) + "] is free, so there is no support there, got " +
-                       number_text(t[j]));
-  }
-  for (std::size_t e = 0; e < n; ++e) {
-    const double faces = t[e] / 2.0 + t[e + 1] / 2.0;
-    if (faces >= m.spans_mm[e])
-      problems.add(name + "[" + std::to_string(t[e] >= t[e + 1] ? e : e + 1) + "]",
-                   "the support faces of span " + std::to_string(e + 1) + " (half of " + number_text(t[e]) +
-                       " mm and half of " + number_text(t[e + 1]) + " mm from the supports' centrelines) "
-                       "must leave part of its " + number_text(m.spans_mm[e]) + " mm clear");
-  }
-}
-
 SpanKind span_kind_of(const StripModel& m, std::size_t e) {
   if (m.is_cantilever(e)) return SpanKind::cantilever;
   const bool left = m.is_restrained(e), right = m.is_restrained(e + 1);
@@ -117,6 +76,57 @@ std::vector<SupportMomentCase> support_moment_cases(const StripModel& m, const s
 
 }  // namespace
 
+// slab.support_widths_mm against the strip, for every entry path (the JSON
+// reader makes the same checks; a Request built in C++ meets them here): one
+// width per support, n + 1 for n spans, each finite and from 0 to 3 m, 0 at
+// a free end, and each span's two faces (t/2 from the supports'
+// centrelines) leaving part of the span clear.
+void add_support_width_problems(const std::vector<double>& spans_mm, const std::array<EndSupport, 2>& ends,
+                                const std::vector<double>& t, bool geometry_known, InputProblems& problems) {
+  const std::string name = "slab.support_widths_mm";
+  if (t.empty()) return;
+  const StripModel m{spans_mm, ends[0], ends[1]};
+  const std::size_t n = m.span_count();
+  if (!geometry_known) {  // the values alone
+    for (std::size_t j = 0; j < t.size(); ++j)
+      if (!(std::isfinite(t[j]) && t[j] >= 0.0 && t[j] <= max_support_width_mm))
+        problems.add(name + "[" + std::to_string(j) + "]",
+                     "must be between 0 and " + number_text(max_support_width_mm) + " mm, got " +
+                         (std::isfinite(t[j]) ? number_text(t[j]) : std::string("a value that is not finite")));
+    return;
+  }
+  if (t.size() != n + 1) {
+    problems.add(name, "must list one width per support, " + std::to_string(n + 1) + " for " + std::to_string(n) +
+                           (n == 1 ? " span" : " spans") + " (0 at a free end), got " + std::to_string(t.size()));
+    return;
+  }
+  bool values_ok = true;
+  for (std::size_t j = 0; j < t.size(); ++j) {
+    if (std::isfinite(t[j]) && t[j] >= 0.0 && t[j] <= max_support_width_mm) continue;
+    problems.add(name + "[" + std::to_string(j) + "]",
+                 "must be between 0 and " + number_text(max_support_width_mm) + " mm, got " +
+                     (std::isfinite(t[j]) ? number_text(t[j]) : std::string("a value that is not finite")));
+    values_ok = false;
+  }
+  if (!values_ok) return;
+  for (std::size_t k = 0; k < 2; ++k) {
+    const std::size_t j = k == 0 ? 0 : n;
+    if (ends[k] == EndSupport::free && t[j] != 0.0)
+      problems.add(name + "[" + std::to_string(j) + "]",
+                   "must be 0: slab.ends[" + std::to_string(k) + "] is free, so there is no support there, got " +
+                       number_text(t[j]));
+  }
+  for (std::size_t e = 0; e < n; ++e) {
+    const double faces = t[e] / 2.0 + t[e + 1] / 2.0;
+    if (faces >= m.spans_mm[e])
+      problems.add(name + "[" + std::to_string(t[e] >= t[e + 1] ? e : e + 1) + "]",
+                   "the support faces of span " + std::to_string(e + 1) + " (half of " + number_text(t[e]) +
+                       " mm and half of " + number_text(t[e + 1]) + " mm from the supports' centrelines) "
+                       "must leave part of its " + number_text(m.spans_mm[e]) + " mm clear");
+  }
+}
+
+
 OneWayStrip::OneWayStrip(const SlabInput& slab, double redistribution_percent)
     : model_{slab.spans_mm, slab.ends[0], slab.ends[1]},
       width_mm_(slab.strip_width_mm),
@@ -127,7 +137,7 @@ OneWayStrip::OneWayStrip(const SlabInput& slab, double redistribution_percent)
 // Geometry the strip cannot analyse, redistribution where there is no
 // support to take it from, and support widths that do not fit the strip.
 void OneWayStrip::add_scope_problems(InputProblems& problems) const {
-  add_support_width_problems(model_, support_widths_mm_, problems);
+  add_support_width_problems(model_.spans_mm, {model_.left, model_.right}, support_widths_mm_, true, problems);
   if (const auto why = stability_problem(model_); !why.empty())
     problems.add("slab.ends", why + " (the strip would be a mechanism)");
   if (redistribution_percent_ > 0.0) {
