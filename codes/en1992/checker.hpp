@@ -1,0 +1,141 @@
+// The EN 1992-1-1 checker of one request, private to the plug-in. Its
+// member functions are defined by topic: materials.cpp (what begin()
+// resolves), section.cpp (the checks of a section), members.cpp (the checks
+// of the member: deflection, fire, equilibrium, support design moment) and
+// plugin.cpp (loads, bars, defaults); the clause functions are in rules.hpp.
+#pragma once
+
+#include <array>
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "armature/code.hpp"
+#include "armature/steps.hpp"
+#include "ndp.hpp"
+#include "rules.hpp"
+
+namespace armature::en1992 {
+
+inline constexpr double default_fyk = 500.0;
+
+inline std::string num(double v) { return step_number(v); }
+
+// The bar catalogue (materials.cpp): nullopt for a designation not in it.
+std::optional<double> bar_diameter(const std::string& designation);
+double bar_area(double phi);
+std::vector<BarOption> bar_options_of(const std::vector<std::string>& names);
+const std::vector<BarOption>& default_bar_options();
+
+using Steps = StepRecorder;
+
+struct Materials {
+  double fck, fyk, fcd, fyd, fctm, eta, lambda, eps_cu2;
+};
+
+class Checker final : public SlabChecker {
+ public:
+  Checker(const Ndp& ndp, const Request& req);  // materials.cpp
+
+  // plugin.cpp
+  LoadBasis load_basis() const override;
+  std::vector<Combination> combinations(const std::vector<Action>& actions,
+                                        CombinationLabels labels) const override;
+  std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const override;
+  double pinned_end_fixity_fraction() const override;
+  const std::vector<BarOption>& bar_options() const override { return *bars_; }
+  std::optional<BarOption> catalogue_bar(const std::string& designation) const override;
+  std::vector<InputDefault> defaults_used() const override;
+  std::vector<std::string> warnings() const override;
+
+  // section.cpp
+  double max_spacing_mm(const RegionDemand&) const override;
+  double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override;
+  RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
+                             Detail detail) const override;
+  DistributionNeed distribution(double main_As_prov) const override;
+
+  // members.cpp
+  std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override;
+  double support_design_moment(const RegionDemand& g) const override;
+  std::vector<Check> span_checks(const std::string& span_where) const override;
+
+ private:
+  // Cover of bars of diameter phi (4.4.1): c_nom is the request's cover
+  // when given, else c_min + Δc_dev rounded up to 5 mm.
+  struct CoverOf {
+    double c_bond, c_min, c_req, c_nom;
+  };
+  // 5.3.2.2 at a support with a width t, in the load case that governs:
+  // (3) at a monolithic support, the moment at the face, not below 0.65 of
+  // the full fixed-end moment; (4) over a support giving no rotational
+  // restraint, the centreline moment less F_Ed,sup t/8. A fixed end is
+  // built in: (3). An interior support or a cantilever's root may be
+  // either (the request does not say which): the larger of the two
+  // moments, i.e. the smaller reduction.
+  struct SupportMoment {
+    double M_Ed = 0.0;
+    std::size_t governing = 0;  // index of the load case
+    double by_3 = 0.0, by_4 = 0.0;  // of the governing case
+    bool reduced_by_4 = false;
+  };
+  SupportMoment support_moment(const RegionDemand& g) const;  // members.cpp
+  void support_moment_steps(Steps& st, const RegionDemand& g, const SupportMoment& m) const;
+
+  // What depends on a face's exposure and cover (durability.top, .bottom).
+  struct FaceData {
+    std::string exposure;
+    std::optional<double> cover_mm;  // given
+    int structural_class = 0;        // Table 4.3N
+    double c_min_dur = 0.0;          // Table 4.4N
+    double w_max = 0.0;              // Table 7.1N
+    std::vector<std::pair<double, CoverOf>> covers;  // per candidate bar diameter
+  };
+  const FaceData& face_data(Face face) const { return faces_[static_cast<std::size_t>(face)]; }
+
+  CoverOf cover_of(double phi, const FaceData& f) const;  // materials.cpp
+
+  // The limit of bending without compression steel at redistribution
+  // ratio δ (5.5(4), 6.1).
+  struct BendingLimit {
+    bool normal;  // fck ≤ 50 MPa
+    double k_a, k_b, xi, K_lim;
+  };
+  BendingLimit bending_limit(double delta) const;  // section.cpp
+
+  // cover_of, worked out once per candidate bar of the request.
+  CoverOf cover_for(double phi, Face face) const {
+    const FaceData& f = face_data(face);
+    for (const auto& [diameter, cover] : f.covers)
+      if (diameter == phi) return cover;
+    return cover_of(phi, f);
+  }
+
+  // A clause whose value here was set by the variant's data file, and the
+  // key that set it (Step text, free to carry the variant's name).
+  std::string variant_ndp(const char* clause, const std::string& key) const {
+    return std::string(clause) + "; " + ndp_.variant + " variant NDP " + key;
+  }
+
+  // section.cpp
+  void min_crack_steel_check(CheckCollector& checks, const RegionDemand& g, double As_prov) const;
+  void crack_check(CheckCollector& checks, const RegionDemand& g, double phi, double s, double d,
+                   double As_req, double As_prov) const;
+
+  // members.cpp
+  void fire_axis_distance_check(CheckCollector& checks, const RegionDemand& g, double c_nom, double phi) const;
+  void deflection_check(CheckCollector& checks, const RegionDemand& g, double d, double As_req,
+                        double As_prov) const;
+
+  const Ndp& ndp_;       // of the Code, which outlives this checker
+  const Request& req_;   // kept alive by the caller of Code::begin
+  Materials m_{};
+  PsiFactors psi_{};
+  std::vector<BarOption> own_bars_;  // when the request names its bars
+  const std::vector<BarOption>* bars_ = &default_bar_options();
+  std::array<FaceData, 2> faces_{};  // by Face
+};
+
+}  // namespace armature::en1992
