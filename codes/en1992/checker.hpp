@@ -14,6 +14,7 @@
 
 #include "armature/code.hpp"
 #include "armature/steps.hpp"
+#include "en1990.hpp"
 #include "ndp.hpp"
 #include "rules.hpp"
 
@@ -37,7 +38,7 @@ struct Materials {
 
 class Checker final : public SlabChecker {
  public:
-  Checker(const Ndp& ndp, const Request& req);  // materials.cpp
+  Checker(const Ndp& ndp, const En1990Factors& en1990, const Request& req);  // materials.cpp
 
   // plugin.cpp
   LoadBasis load_basis() const override;
@@ -130,6 +131,7 @@ class Checker final : public SlabChecker {
                         double As_prov) const;
 
   const Ndp& ndp_;       // of the Code, which outlives this checker
+  const En1990Factors& en1990_;  // of the Code, likewise
   const Request& req_;   // kept alive by the caller of Code::begin
   Materials m_{};
   PsiFactors psi_{};

@@ -70,7 +70,15 @@ std::size_t variable_count(const std::vector<Action>& actions) {
 // 0.75 snow" with several (each by name, those acting).
 // ULS labels print every factor of a single variable action, 0 and 1
 // included (as version 1 did).
-std::string terms(const std::string& permanent, const std::vector<Action>& actions,
+// A factor as the labels print it: γG, γQ and ξ γG from those written
+// once, any other (ψ0 γQ, ...) now.
+std::string factor_text(const En1990Factors& f, double v) {
+  for (const auto& [value, text] : f.printed)
+    if (value == v) return text;
+  return num(v);
+}
+
+std::string terms(const En1990Factors& f, const std::string& permanent, const std::vector<Action>& actions,
                   const std::vector<ActionFactor>& factors, bool every_factor = false) {
   std::string s;
   s.reserve(64);
@@ -80,7 +88,7 @@ std::string terms(const std::string& permanent, const std::vector<Action>& actio
     if (!is_variable(actions[i].kind)) continue;
     if (factors[i].loaded == 0.0 && !(one && every_factor)) continue;
     s += " + ";
-    if (factors[i].loaded != 1.0 || (one && every_factor)) s.append(num(factors[i].loaded)).append(" ");
+    if (factors[i].loaded != 1.0 || (one && every_factor)) s.append(factor_text(f, factors[i].loaded)).append(" ");
     s += one ? std::string_view("Qk") : std::string_view(actions[i].name);
   }
   return s;
@@ -111,6 +119,7 @@ En1990Factors en1990_factors(const Ndp& ndp) {
   f.psi_imposed = ndp.psi;
   f.psi_snow = ndp.psi_snow;
   f.variant = ndp.variant;
+  f.printed = {{{f.gamma_G, num(f.gamma_G)}, {f.gamma_Q, num(f.gamma_Q)}, {f.xi * f.gamma_G, num(f.xi * f.gamma_G)}}};
   return f;
 }
 
@@ -171,7 +180,7 @@ std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_te
     if (!six_ten_ab) {  // (6.10)
       Combination k = make(LimitState::uls, c, gG, gG, [&](PsiFactors) { return gQ; },
                            [&](PsiFactors p) { return gQ * p.psi0; });
-      if (Combination* kept = add(std::move(k))) kept->label = "6.10" + note + ": " + terms(num(gG) + " Gk", actions, kept->factors, true);
+      if (Combination* kept = add(std::move(k))) kept->label = "6.10" + note + ": " + terms(f, factor_text(f, gG) + " Gk", actions, kept->factors, true);
     }
   }
   if (six_ten_ab) {
@@ -180,7 +189,7 @@ std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_te
                            [&](PsiFactors p) { return gQ * p.psi0; });
       Combination* kept = add(std::move(k));
       if (!kept) continue;  // a duplicate
-      kept->label = "6.10a: " + terms(num(gG) + " Gk", actions, kept->factors, true);
+      kept->label = "6.10a: " + terms(f, factor_text(f, gG) + " Gk", actions, kept->factors, true);
       if (single)
         kept->label += " (ψ0 = " + num(psi_of_action(f, *single).psi0) + " for " +
                        (single->kind == ActionKind::snow ? std::string("snow") : "category " + single->category) +
@@ -192,7 +201,7 @@ std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_te
       const double gGb = f.xi * gG;
       Combination k = make(LimitState::uls, c, gGb, gGb, [&](PsiFactors) { return gQ; },
                            [&](PsiFactors p) { return gQ * p.psi0; });
-      if (Combination* kept = add(std::move(k))) kept->label = "6.10b" + leading_note(actions, c) + ": " + terms(num(gGb) + " Gk", actions, kept->factors, true) +
+      if (Combination* kept = add(std::move(k))) kept->label = "6.10b" + leading_note(actions, c) + ": " + terms(f, factor_text(f, gGb) + " Gk", actions, kept->factors, true) +
                 " (ξ = " + num(f.xi) + ", " + f.variant + " variant NDP)";
     }
   }
@@ -201,25 +210,26 @@ std::vector<Combination> en1990_combinations(const En1990Factors& f, bool six_te
     if (!serviceability) break;
     Combination k = make(LimitState::characteristic, c, 1.0, 1.0, [](PsiFactors) { return 1.0; },
                          [](PsiFactors p) { return p.psi0; });
-    if (Combination* kept = add(std::move(k))) kept->label = "characteristic" + leading_note(actions, c) + ": " + terms("Gk", actions, kept->factors);
+    if (Combination* kept = add(std::move(k))) kept->label = "characteristic" + leading_note(actions, c) + ": " + terms(f, "Gk", actions, kept->factors);
   }
   for (const auto& c : choices) {  // (6.15b)
     if (!serviceability) break;
     Combination k = make(LimitState::frequent, c, 1.0, 1.0, [](PsiFactors p) { return p.psi1; },
                          [](PsiFactors p) { return p.psi2; });
-    if (Combination* kept = add(std::move(k))) kept->label = "frequent" + leading_note(actions, c) + ": " + terms("Gk", actions, kept->factors);
+    if (Combination* kept = add(std::move(k))) kept->label = "frequent" + leading_note(actions, c) + ": " + terms(f, "Gk", actions, kept->factors);
   }
   for (const auto& c : choices) {  // (6.16b): no leading action
     Combination k = make(LimitState::quasi_permanent, c, 1.0, 1.0, [](PsiFactors p) { return p.psi2; },
                          [](PsiFactors p) { return p.psi2; });
-    if (Combination* kept = add(std::move(k))) kept->label = "quasi-permanent: " + terms("Gk", actions, kept->factors);
+    if (Combination* kept = add(std::move(k))) kept->label = "quasi-permanent: " + terms(f, "Gk", actions, kept->factors);
   }
   for (const auto& c : choices) {  // Table A1.2(A)
     Combination k = make(LimitState::equilibrium, c, f.gamma_G_sup_equ, f.gamma_G_inf_equ,
                          [&](PsiFactors) { return f.gamma_Q_equ; },
                          [&](PsiFactors p) { return f.gamma_Q_equ * p.psi0; });
     if (Combination* kept = add(std::move(k))) kept->label = "EQU" + leading_note(actions, c) + ": " +
-              terms(num(f.gamma_G_sup_equ) + " Gk,sup + " + num(f.gamma_G_inf_equ) + " Gk,inf", actions, kept->factors);
+              terms(f, num(f.gamma_G_sup_equ) + " Gk,sup + " + num(f.gamma_G_inf_equ) + " Gk,inf", actions,
+                    kept->factors);
   }
   return out;
 }

@@ -4,6 +4,7 @@
 
 #include <array>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "armature/combinations.hpp"
@@ -21,6 +22,9 @@ struct En1990Factors {
   std::array<PsiFactors, 8> psi_imposed{};       // Table A1.1, categories A–H
   PsiFactors psi_snow{0.0, 0.0, 0.0};            // Table A1.1, snow (altitude ≤ 1000 m)
   std::string variant;                           // named in the labels of 6.10a/b
+  // γG, γQ and ξ γG as the labels print them, written once (a design asks
+  // for its combinations every time; the labels are the costly part).
+  std::array<std::pair<double, std::string>, 3> printed{};
 };
 En1990Factors en1990_factors(const Ndp& ndp);
 

@@ -40,8 +40,8 @@ const std::vector<BarOption>& default_bar_options() {
   return bars;
 }
 
-Checker::Checker(const Ndp& ndp, const Request& req)
-    : ndp_(ndp), req_(req) {
+Checker::Checker(const Ndp& ndp, const En1990Factors& en1990, const Request& req)
+    : ndp_(ndp), en1990_(en1990), req_(req) {
   const double fck = req.concrete.cylinder_strength_MPa
                          ? *req.concrete.cylinder_strength_MPa
                          : *fck_of_class(ndp, *req.concrete.strength_class);

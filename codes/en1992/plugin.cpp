@@ -32,8 +32,7 @@ LoadBasis Checker::load_basis() const {
 
 std::vector<Combination> Checker::combinations(const std::vector<Action>& actions,
                                                CombinationLabels labels) const {
-  return en1990_combinations(en1990_factors(ndp_), req_.design.combination.value_or("6.10") != "6.10", actions,
-                             labels);
+  return en1990_combinations(en1990_, req_.design.combination.value_or("6.10") != "6.10", actions, labels);
 }
 
 std::vector<std::vector<bool>> Checker::load_arrangements(std::size_t span_count) const {
@@ -87,7 +86,7 @@ std::string format_range(double lo, double hi, const char* unit) {
 class Code final : public DesignCode {
  public:
   explicit Code(Ndp ndp)
-      : ndp_(std::move(ndp)) {}
+      : ndp_(std::move(ndp)), en1990_(en1990_factors(ndp_)) {}
 
   CodeIdentity identity() const override { return {code_id, ndp_.variant, ndp_.title}; }
 
@@ -155,7 +154,7 @@ class Code final : public DesignCode {
   }
 
   std::unique_ptr<SlabChecker> begin(const Request& req) const override {
-    return std::make_unique<Checker>(ndp_, req);
+    return std::make_unique<Checker>(ndp_, en1990_, req);
   }
 
  private:
@@ -201,6 +200,7 @@ class Code final : public DesignCode {
   }
 
   Ndp ndp_;
+  En1990Factors en1990_;  // of ndp_, with the factors' printed texts: made once
 };
 
 // A firm's own national-annex variant: a file <name>.en1992.json in any
