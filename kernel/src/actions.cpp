@@ -5,7 +5,6 @@
 #include <cmath>
 #include <string>
 
-
 #include "armature/combinations.hpp"
 #include "armature/request.hpp"
 

@@ -80,8 +80,6 @@ class Member {
   virtual std::vector<EquilibriumDemand> equilibrium_demands(const MemberLoads& loads) const = 0;
 };
 
-// A one-way strip: continuous spans on line supports, ends pinned, fixed
-// or free (cantilevers), of width `strip_width_mm`.
 // slab.support_widths_mm against a strip's spans and ends, for every entry
 // path (the JSON reader and a Request built in C++): one width per support,
 // n + 1 for n spans, each finite and from 0 to 3 m, 0 at a free end, each
@@ -90,6 +88,8 @@ class Member {
 void add_support_width_problems(const std::vector<double>& spans_mm, const std::array<EndSupport, 2>& ends,
                                 const std::vector<double>& widths_mm, bool geometry_known, InputProblems& problems);
 
+// A one-way strip: continuous spans on line supports, ends pinned, fixed
+// or free (cantilevers), of width `strip_width_mm`.
 class OneWayStrip final : public Member {
  public:
   OneWayStrip(const SlabInput& slab, double redistribution_percent);
