@@ -32,7 +32,7 @@ const char* condition_name(SupportCondition c) {
 }  // namespace
 
 // Uplift at the back span's far support under the 5.3.1 combinations
-// with the live loads on the cantilever only (ACI 318-19 has no factor
+// with the live loads on the spans that lift it (ACI 318-19 has no factor
 // below 1.2 on D without W or E: 0.9D of (f), (g) is not used).
 std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detail detail) const {
   std::vector<Check> out;
@@ -42,9 +42,9 @@ std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detai
     checks.add("equilibrium", d.where, "ACI 318-19 5.3.1, L on the cantilever only", d.R_destabilising * 1e-3,
                d.R_stabilising * 1e-3, "kN", [&] {
                  StepRecorder st;
-                 st.add("R,stb", "reaction from the loads off the cantilever", "", d.R_stabilising * 1e-3, "kN",
+                 st.add("R,stb", "reaction from the spans that hold the support down", "", d.R_stabilising * 1e-3, "kN",
                         "ACI 318-19 5.3.1");
-                 st.add("R,dst", "reaction taken away by the cantilever's loads", "", d.R_destabilising * 1e-3, "kN",
+                 st.add("R,dst", "reaction taken away by the spans that lift it (with L)", "", d.R_destabilising * 1e-3, "kN",
                         "ACI 318-19 5.3.1");
                  st.add("R,min", "R,stb − R,dst under " + d.combination + " (negative: uplift)",
                         num(d.R_stabilising * 1e-3) + " − " + num(d.R_destabilising * 1e-3),

@@ -36,8 +36,9 @@ const char* system_name(SpanKind kind) {
 }  // namespace
 
 // EN 1990 6.4.2(1) (6.7): Ed,dst ≤ Ed,stb, here as the reaction the
-// cantilever's loads take from the back span's far support against the
-// reaction the back span's loads give it (utilisation > 1: uplift).
+// destabilising spans' loads (the cantilever's, and any other span whose
+// loads lift it) take from the back span's far support against the
+// reaction the other spans' loads give it (utilisation > 1: uplift).
 std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detail detail) const {
   std::vector<Check> out;
   RegionVerdict verdict;
@@ -46,9 +47,9 @@ std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detai
     checks.add("equilibrium", d.where, "EN 1990 6.4.2(1) (6.7), Table A1.2(A)", d.R_destabilising * 1e-3,
                d.R_stabilising * 1e-3, "kN", [&] {
                  Steps st;
-                 st.add("R,stb", "reaction from the loads off the cantilever (γG,inf)", "", d.R_stabilising * 1e-3,
+                 st.add("R,stb", "reaction from the spans that hold the support down (γG,inf)", "", d.R_stabilising * 1e-3,
                         "kN", variant_ndp("EN 1990 6.4.2(1), Table A1.2(A)", "equ_gamma_G_inf"));
-                 st.add("R,dst", "reaction taken away by the cantilever's loads", "", d.R_destabilising * 1e-3,
+                 st.add("R,dst", "reaction taken away by the spans that lift it (γG,sup, γQ)", "", d.R_destabilising * 1e-3,
                         "kN", "EN 1990 6.4.2(1)");
                  st.add("R,min", "R,stb − R,dst under " + d.combination + " (negative: uplift)",
                         num(d.R_stabilising * 1e-3) + " − " + num(d.R_destabilising * 1e-3),

@@ -167,8 +167,8 @@ struct InputDefault {
 struct EquilibriumDemand {
   std::string where;               // "support 1"
   std::string combination;         // label of the EQU combination
-  double R_stabilising = 0.0;      // N, upward reaction from the back span's loads
-  double R_destabilising = 0.0;    // N, the reduction the cantilever's loads cause
+  double R_stabilising = 0.0;      // N, upward reaction from the spans that hold the support down
+  double R_destabilising = 0.0;    // N, the reduction the other spans' loads (the cantilever's) cause
 };
 
 class SlabChecker : public CombinationRules {
