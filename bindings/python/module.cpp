@@ -22,6 +22,7 @@
 #include "armature/registry.hpp"
 #include "armature/report.hpp"
 #include "armature/result_writer.hpp"
+#include "armature/studies.hpp"
 
 namespace py = pybind11;
 using nlohmann::json;
@@ -244,23 +245,6 @@ py::object design(const py::handle& request) {
   return record_to_python(record, request);
 }
 
-// Runs fn(i, worker) for i in [0, n) on `threads` threads (0: all cores);
-// `worker` numbers the thread from 0. Call without the GIL.
-template <class Fn>
-void parallel_for(std::size_t n, unsigned threads, Fn&& fn) {
-  armature::Registry::shared();  // load plug-ins once, before the workers start
-  unsigned t = threads ? threads : std::max(1u, std::thread::hardware_concurrency());
-  t = static_cast<unsigned>(std::min<std::size_t>(t, std::max<std::size_t>(n, 1)));
-  std::atomic<std::size_t> next{0};
-  auto work = [&](unsigned worker) {
-    for (std::size_t i; (i = next.fetch_add(1)) < n;) fn(i, worker);
-  };
-  std::vector<std::thread> pool;
-  for (unsigned k = 1; k < t; ++k) pool.emplace_back(work, k);
-  work(0);
-  for (auto& th : pool) th.join();
-}
-
 armature::InputError indexed(const armature::InputError& e, const std::string& prefix) {
   std::vector<armature::InputProblem> ps;
   for (const auto& p : e.problems()) ps.push_back({prefix + " " + p.field, p.message});
@@ -422,121 +406,39 @@ py::list design_many(const py::sequence& requests, unsigned threads) {
   return out;
 }
 
-// Sets a value at a dotted path with list indices: "slab.spans_m[0]";
-// objects missing on the way are made (the Python twin is studies._set_path).
-void set_path(json& j, const std::string& path, const json& value) {
-  json* node = &j;
-  std::size_t i = 0;
-  auto fail = [&](const std::string& why) { throw armature::InputError({{path, why}}); };
-  while (i < path.size()) {
-    if (path[i] == '[') {
-      const std::size_t close = path.find(']', i);
-      if (close == std::string::npos) fail("unclosed [ in the axis path");
-      const std::size_t k = std::stoul(path.substr(i + 1, close - i - 1));
-      if (!node->is_array() || k >= node->size()) fail("the base request has no list entry " + std::to_string(k) + " here");
-      node = &(*node)[k];
-      i = close + 1;
-      if (i < path.size() && path[i] == '.') ++i;
-    } else {
-      std::size_t end = path.find_first_of(".[", i);
-      if (end == std::string::npos) end = path.size();
-      const std::string key = path.substr(i, end - i);
-      if (key.empty()) fail("empty name in the axis path");
-      if (node->is_null()) *node = json::object();  // "design.redistribution_percent" with no "design" yet
-      if (!node->is_object()) fail("'" + key + "' is not inside an object");
-      node = &(*node)[key];
-      i = end;
-      if (i < path.size() && path[i] == '.') ++i;
-    }
+// The axes of a study from Python: paths and lists of values.
+std::vector<armature::StudyAxis> study_axes(const std::vector<std::string>& paths,
+                                            const std::vector<py::list>& values) {
+  std::vector<armature::StudyAxis> axes;
+  for (std::size_t a = 0; a < values.size(); ++a) {
+    armature::StudyAxis axis{paths.at(a), {}};
+    for (std::size_t k = 0; k < py::len(values[a]); ++k)
+      axis.values.push_back(to_json(values[a][k], paths[a] + "[" + std::to_string(k) + "]"));
+    axes.push_back(std::move(axis));
   }
-  *node = value;
+  return axes;
 }
 
-// A sweep over the product of the axes (the first axis varies slowest),
-// designed on all cores, returned column by column.
-py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& paths,
-                       const std::vector<py::list>& values, unsigned threads) {
-  const json base_json = to_json(base, "");
-  std::vector<std::vector<json>> axis_values;
-  std::size_t total = 1;
-  for (std::size_t a = 0; a < values.size(); ++a) {
-    std::vector<json> vs;
-    for (std::size_t k = 0; k < py::len(values[a]); ++k)
-      vs.push_back(to_json(values[a][k], paths[a] + "[" + std::to_string(k) + "]"));
-    total *= vs.size();
-    axis_values.push_back(std::move(vs));
-  }
-  // Each worker keeps only the row of its design, not the whole record.
-  struct RegionCell {
-    std::string where, bar;
-    double spacing_mm, As_prov_mm2;
-  };
-  struct Row {
-    bool designed = false, pass = false;
-    double max_utilisation = NAN, steel = NAN, concrete = NAN;
-    std::string governing_check, governing_where, error;
-    std::vector<RegionCell> regions;
-  };
-  std::vector<Row> rows(total);
-  // One request per worker, copied from the base once: every axis field is
-  // set again for each combination, and nothing else changes.
-  std::vector<std::optional<json>> scratch(std::max(1u, threads ? threads : std::thread::hardware_concurrency()));
-  {
-    py::gil_scoped_release release;
-    parallel_for(total, threads, [&](std::size_t i, unsigned worker) {
-      Row& row = rows[i];
-      try {
-        if (!scratch[worker]) scratch[worker] = base_json;
-        json& req = *scratch[worker];
-        std::size_t rest = i;
-        for (std::size_t a = axis_values.size(); a-- > 0;) {
-          const std::size_t k = rest % axis_values[a].size();
-          rest /= axis_values[a].size();
-          const json& v = axis_values[a][k];
-          if (paths[a] == "code" && v.is_string()) {  // "ID" or "ID:variant"
-            // "ID" alone keeps the base's variant when the base is of that
-            // code, else takes the code's default (another code's variant
-            // means nothing to it).
-            const std::string spec = v.get<std::string>();
-            const auto colon = spec.find(':');
-            const std::string id = spec.substr(0, colon);
-            req["code"] = id;
-            if (colon != std::string::npos) req["variant"] = spec.substr(colon + 1);
-            else if (base_json.contains("variant") && base_json.value("code", json()) == id)
-              req["variant"] = base_json["variant"];
-            else req.erase("variant");
-          } else {
-            set_path(req, paths[a], v);
-          }
-        }
-        const auto r = armature::design(armature::Registry::shared(), req);
-        row.designed = true;
-        row.pass = r.pass;
-        row.max_utilisation = r.max_utilisation;
-        row.governing_check = r.governing_check;
-        row.governing_where = r.governing_where;
-        row.steel = armature::steel_mass_kg_per_m2(r);
-        row.concrete = armature::concrete_volume_m3_per_m2(r);
-        row.regions.reserve(r.regions.size());
-        for (const auto& g : r.regions)
-          row.regions.push_back({g.where, g.bars.bar, g.bars.spacing_mm, g.bars.As_prov_mm2});
-      } catch (const armature::InputError& e) {
-        row.error = e.what();
-      } catch (const std::exception& e) {
-        row.error = std::string("design error: ") + e.what();
-      }
-    });
-  }
-  CollectorPause pause;
+// A row's status: pass, fail, invalid (not a valid request), pruned (not designed).
+const char* status_of(const armature::StudyRow& r) { return !r.designed ? "invalid" : r.pass ? "pass" : "fail"; }
+const char* status_of(const armature::OptimiseRow& r) {
+  return r.pruned ? "pruned" : status_of(static_cast<const armature::StudyRow&>(r));
+}
+
+// The columns of a study's rows: each axis's values, then `status` and the
+// summary, then per region its bar, spacing and area, then `error`; `extra`
+// adds columns after the status (the optimiser's). Needs the GIL.
+template <class Row, class Extra>
+py::dict study_columns(const armature::Study& study, const std::vector<py::list>& values,
+                       const std::vector<Row>& rows, Extra&& extra) {
+  const std::size_t total = rows.size();
   py::dict cols;
-  for (std::size_t a = 0; a < paths.size(); ++a) {
-    py::list col;
-    for (std::size_t i = 0; i < total; ++i) {
-      std::size_t rest = i;
-      for (std::size_t b = axis_values.size(); b-- > a + 1;) rest /= axis_values[b].size();
-      col.append(values[a][rest % axis_values[a].size()]);
-    }
-    cols[py::str(paths[a])] = col;
+  for (std::size_t a = 0; a < study.axes().size(); ++a) {
+    py::list col(total);
+    for (std::size_t i = 0; i < total; ++i)
+      PyList_SET_ITEM(col.ptr(), static_cast<py::ssize_t>(i),
+                      py::object(values[a][study.value_index(i, a)]).release().ptr());
+    cols[py::str(study.axes()[a].path)] = col;
   }
   auto numeric = [&](auto&& get) {
     py::array_t<double> arr(static_cast<py::ssize_t>(total));
@@ -550,18 +452,19 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
       PyList_SET_ITEM(l.ptr(), static_cast<py::ssize_t>(i), key_object(get(rows[i])).inc_ref().ptr());
     return l;
   };
-  cols["status"] = text([](const Row& r) { return std::string(!r.designed ? "invalid" : r.pass ? "pass" : "fail"); });
+  cols["status"] = text([](const Row& r) { return std::string(status_of(r)); });
+  extra(cols, numeric);
   cols["max_utilisation"] = numeric([](const Row& r) { return r.max_utilisation; });
   cols["governing_check"] = text([](const Row& r) { return r.governing_check; });
   cols["governing_where"] = text([](const Row& r) { return r.governing_where; });
-  cols["steel_kg_m2"] = numeric([](const Row& r) { return r.steel; });
-  cols["concrete_m3_m2"] = numeric([](const Row& r) { return r.concrete; });
+  cols["steel_kg_m2"] = numeric([](const Row& r) { return r.steel_kg_m2; });
+  cols["concrete_m3_m2"] = numeric([](const Row& r) { return r.concrete_m3_m2; });
   std::vector<std::string> wheres;
   for (const auto& row : rows)
     for (const auto& g : row.regions)
       if (std::find(wheres.begin(), wheres.end(), g.where) == wheres.end()) wheres.push_back(g.where);
   for (const auto& w : wheres) {
-    auto find = [&](const Row& r) -> const RegionCell* {
+    auto find = [&](const Row& r) -> const armature::StudyRegion* {
       for (const auto& g : r.regions)
         if (g.where == w) return &g;
       return nullptr;
@@ -583,6 +486,58 @@ py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& p
   }
   cols["error"] = text([](const Row& r) { return r.error; });
   return cols;
+}
+
+// A sweep over the product of the axes (the first axis varies slowest),
+// designed by the kernel on all cores, returned column by column.
+py::dict sweep_columns(const py::handle& base, const std::vector<std::string>& paths,
+                       const std::vector<py::list>& values, unsigned threads) {
+  const armature::Study study(to_json(base, ""), study_axes(paths, values));
+  std::vector<armature::StudyRow> rows;
+  {
+    py::gil_scoped_release release;
+    rows = armature::sweep(armature::Registry::shared(), study, threads);
+  }
+  CollectorPause pause;
+  return study_columns(study, values, rows, [](py::dict&, auto&&) {});
+}
+
+// The optimiser's search of the product of the axes: the columns of every
+// candidate (with objective, pruned, Pareto front and choice) and the choice.
+py::dict optimise_columns(const py::handle& base, const std::vector<std::string>& paths,
+                          const std::vector<py::list>& values, const std::string& objective,
+                          const py::handle& rates, unsigned threads, bool prune) {
+  const armature::Study study(to_json(base, ""), study_axes(paths, values));
+  const json rates_json = to_json(rates, "rates");
+  armature::Optimisation found;
+  {
+    py::gil_scoped_release release;
+    found = armature::optimise(armature::Registry::shared(), study, objective, rates_json, threads, prune);
+  }
+  CollectorPause pause;
+  const std::size_t chosen = found.chosen;
+  py::dict cols = study_columns(study, values, found.rows, [&](py::dict& c, auto&& numeric) {
+    using Row = armature::OptimiseRow;
+    c["objective"] = numeric([](const Row& r) { return r.objective; });
+    c["thickness_mm"] = numeric([](const Row& r) { return r.thickness_mm; });
+    py::list pareto, picked;
+    for (std::size_t i = 0; i < found.rows.size(); ++i) {
+      pareto.append(py::bool_(found.rows[i].pareto));
+      picked.append(py::bool_(i == chosen));
+    }
+    c["pareto"] = pareto;
+    c["chosen"] = picked;
+  });
+  py::dict out;
+  out["columns"] = cols;
+  out["chosen"] = chosen;
+  out["chosen_passes"] = found.chosen_passes;
+  out["message"] = found.message;
+  out["designed"] = found.designed;
+  out["pruned"] = found.pruned;
+  out["invalid"] = found.invalid;
+  out["unit"] = armature::objective_unit(found.objective);
+  return out;
 }
 
 // The structural problems of a request (types, required and unknown
@@ -683,6 +638,9 @@ PYBIND11_MODULE(_core, m) {
         "Write the calculation record (.html or .md) of a request whose result is given.");
   m.def("sweep_columns", &sweep_columns, py::arg("base"), py::arg("paths"), py::arg("values"),
         py::arg("threads") = 0, "Design the product of the axes; columns of the results.");
+  m.def("optimise_columns", &optimise_columns, py::arg("base"), py::arg("paths"), py::arg("values"),
+        py::arg("objective"), py::arg("rates"), py::arg("threads") = 0, py::arg("prune") = true,
+        "Search the product of the axes for the best passing design under the objective.");
   m.def("request_problems", &request_problems, py::arg("request"),
         "Structural problems of a request as (field, message) pairs, without designing.");
   m.def("envelope_diagrams", &envelope_diagrams, py::arg("request"),
