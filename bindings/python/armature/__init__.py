@@ -50,7 +50,7 @@ def report(result, path):
 
 
 from .plots import add_caution, plot_envelopes, plot_study  # noqa: E402,F401
-from .studies import request_for, sweep  # noqa: E402,F401
+from .studies import Optimum, optimise, request_for, sweep  # noqa: E402,F401
 from .tables import compare, to_frame  # noqa: E402,F401
 
 __all__ = [
@@ -58,6 +58,8 @@ __all__ = [
     "add_caution",
     "DesignError",
     "InputError",
+    "Optimum",
+    "optimise",
     "codes",
     "compare",
     "design",

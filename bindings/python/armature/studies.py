@@ -1,10 +1,12 @@
 """Parametric studies: the product of a few input axes, designed on all
 cores by the kernel and returned as one DataFrame built column by column
 (no Python dict per design on this path)."""
+import collections
 import copy
+import warnings
 
 from . import _core
-from ._core import CAUTION
+from ._core import CAUTION, InputError
 from ._paths import _check_paths, _set_path
 from .tables import _pandas
 
@@ -37,6 +39,81 @@ def sweep(base_request, axes, threads=0):
     return frame
 
 
+Optimum = collections.namedtuple("Optimum", ["result", "table"])
+Optimum.__doc__ = """What `optimise` returns: the chosen design's full result and the table
+of every candidate."""
+
+OBJECTIVES = ("cost", "carbon", "depth", "steel_mass")
+
+
+def optimise(request, vary, objective="cost", rates=None, threads=0, prune=True):
+    """The best passing slab among every combination of `vary` applied to
+    `request`, under `objective`.
+
+    `vary` maps dotted field paths to sequences of values, as `sweep`'s
+    axes: ``{"slab.thickness_mm": range(150, 301, 10), "concrete.class":
+    ["C25/30", "C30/37"], "reinforcement.bars": [["10", "12"], ["12", "16"]]}``.
+    `objective` is "cost" (per m² of slab, in the currency of `rates`),
+    "carbon" (kgCO2e per m²), "depth" (mm) or "steel_mass" (kg/m², the
+    estimate of DEVELOPERS.md). `rates` are the user's; none is built in:
+    ``{"concrete_per_m3": ..., "steel_per_tonne": ..., "formwork_per_m2": ...,
+    "carbon": {"concrete_per_m3": {"C30/37": ...}, "steel_per_kg": ...}}``
+    (cost needs the first three, carbon the factors of every concrete class
+    searched). Bad axes, rates or objective raise InputError naming the
+    field, before anything is designed.
+
+    The search runs in the kernel on all cores. With `prune` (the default)
+    thicknesses are designed thinnest first and a candidate whose objective
+    with no steel already exceeds that of a passing candidate no thicker is
+    not designed (status "pruned"): the choice is the one an exhaustive
+    search makes.
+
+    Returns ``Optimum(result, table)``: the full result of the chosen
+    design (the least objective, then the thinner; when nothing passes, the
+    least-failing, whose status is "fail", with a warning saying so) and a
+    DataFrame of every candidate: the axis values, ``status`` (pass, fail,
+    invalid, pruned), ``objective``, ``thickness_mm``, ``pareto`` (on the
+    front of objective against thickness among passing candidates),
+    ``chosen``, and the columns of `sweep`. ``attrs`` holds the caution,
+    the base request, the axes, the objective, its unit and the message.
+    """
+    pd = _pandas()
+    if not hasattr(vary, "items") or not vary:
+        raise InputError("vary: give a mapping of field paths to lists of values, "
+                         "for example {\"slab.thickness_mm\": range(150, 301, 10)}")
+    if not isinstance(objective, str) or objective not in OBJECTIVES:
+        raise InputError(f"objective: must be one of {', '.join(OBJECTIVES)}, got {objective!r}")
+    paths = list(vary)
+    values = []
+    bad = []
+    for path in paths:
+        axis = vary[path]
+        if isinstance(axis, (str, bytes, dict)) or not hasattr(axis, "__iter__"):
+            bad.append(f"vary.{path}: must be a list of values, got {axis!r}")
+            continue
+        axis = list(axis)
+        if not axis:
+            bad.append(f"vary.{path}: has no values")
+        values.append(axis)
+    if bad:
+        raise InputError("\n".join(bad))
+    _check_paths(request, [(p, v[0]) for p, v in zip(paths, values)], "optimise axis")
+    found = _core.optimise_columns(request, paths, values, objective, rates, threads, prune)
+    frame = pd.DataFrame(found["columns"])
+    frame.attrs["caution"] = CAUTION
+    frame.attrs["base_request"] = copy.deepcopy(request)
+    frame.attrs["axes"] = paths
+    frame.attrs["objective"] = objective
+    frame.attrs["objective_unit"] = found["unit"]
+    frame.attrs["message"] = found["message"]
+    from . import design  # the package's design (a Result that keeps its request)
+
+    result = design(request_for(frame, found["chosen"]))
+    if not found["chosen_passes"]:
+        warnings.warn(found["message"], stacklevel=2)
+    return Optimum(result, frame)
+
+
 def _plain(value):
     """A value read back from a DataFrame as a plain Python object (numpy
     scalars to int, float, str, bool)."""
@@ -56,7 +133,7 @@ def request_for(study, row):
     base = study.attrs.get("base_request")
     paths = study.attrs.get("axes")
     if base is None or paths is None:
-        raise ValueError("request_for needs a DataFrame returned by armature.sweep "
+        raise ValueError("request_for needs a DataFrame returned by armature.sweep or armature.optimise "
                          "(its attrs keep the base request and the axes)")
     pd = _pandas()
     if not isinstance(row, pd.Series):

@@ -8,6 +8,7 @@
 #include <optional>
 
 #include "armature/format.hpp"
+#include "armature/json_io.hpp"
 #include "armature/registry.hpp"
 #include "armature/studies.hpp"
 
@@ -230,6 +231,32 @@ void check_axes(const Study& study, InputProblems& problems) {
   }
 }
 
+// An axis whose path is not a request field (a misspelling) would make
+// every candidate invalid: named once, before anything is designed. The
+// kernel's request parser judges, on the base with every axis at its first
+// value.
+void check_axis_fields(const Study& study, InputProblems& problems) {
+  json req = study.base();
+  for (const auto& axis : study.axes()) {
+    try {
+      set_axis_value(req, study.base(), axis.path, axis.values.front());
+    } catch (const InputError& e) {
+      problems.add("vary." + axis.path, e.problems().front().message);
+    }
+  }
+  if (!problems.empty()) return;
+  InputProblems parsed;
+  request_from_json(req, parsed);
+  for (const auto& axis : study.axes())
+    for (const auto& p : parsed.items()) {
+      const bool within = axis.path == p.field || axis.path.rfind(p.field + ".", 0) == 0 ||
+                          axis.path.rfind(p.field + "[", 0) == 0;
+      if (p.message == "unknown field" && within)
+        problems.add("vary." + axis.path, p.field == axis.path ? "not a request field"
+                                                                : "not a request field (" + p.field + " is unknown)");
+    }
+}
+
 // Passing rows not dominated by another passing row (no thicker and no
 // more objective, one of the two strictly less).
 void mark_pareto(std::vector<OptimiseRow>& rows) {
@@ -259,6 +286,7 @@ Optimisation optimise(const Registry& registry, const Study& study, const std::s
   InputProblems problems;
   const ObjectiveRates rates = objective_from_json(objective, rates_json, problems);
   check_axes(study, problems);
+  if (problems.empty()) check_axis_fields(study, problems);
   std::vector<std::string> keys;
   if (problems.empty()) {
     keys = concrete_keys(study);
