@@ -89,11 +89,13 @@ std::vector<StudyRow> sweep(const Registry& registry, const Study& study, unsign
 enum class Objective { cost, carbon, depth, steel_mass };
 
 // The user's rates (no rate or factor is built in). Cost: currency per m³
-// of concrete, per tonne of steel, per m² of formwork (soffit). Carbon:
-// kgCO2e per m³ of concrete by strength class, per kg of steel.
+// of concrete (one rate, or one per strength class), per tonne of steel,
+// per m² of formwork (soffit). Carbon: kgCO2e per m³ of concrete by
+// strength class, per kg of steel.
 struct ObjectiveRates {
   Objective objective = Objective::cost;
   double concrete_per_m3 = 0.0, steel_per_tonne = 0.0, formwork_per_m2 = 0.0;
+  std::map<std::string, double> concrete_per_m3_by_class;  // given: used instead of concrete_per_m3
   std::map<std::string, double> carbon_concrete_per_m3;
   double carbon_steel_per_kg = 0.0;
 };
@@ -111,7 +113,8 @@ ObjectiveRates objective_from_json(const std::string& objective, const nlohmann:
 
 // Cost per m² of slab: concrete (thickness × rate), steel (mass × rate),
 // formwork (one m² of soffit per m² of slab).
-double cost_per_m2(const ObjectiveRates& rates, double thickness_mm, double steel_kg_m2);
+double cost_per_m2(double concrete_per_m3, double steel_per_tonne, double formwork_per_m2, double thickness_mm,
+                   double steel_kg_m2);
 // kgCO2e per m² of slab: concrete (thickness × the class's factor) and steel.
 double carbon_per_m2(double concrete_kgCO2e_per_m3, double steel_kgCO2e_per_kg, double thickness_mm,
                      double steel_kg_m2);

@@ -67,7 +67,15 @@ void unknown_keys(const json& j, const std::vector<std::string>& known, const st
       problems.add(at + "." + it.key(), "unknown field");
 }
 
-std::string carbon_field(const std::string& key) { return "rates.carbon.concrete_per_m3[\"" + key + "\"]"; }
+
+// An object of concrete class (or "<fck> MPa") to a rate.
+void read_by_class(const json& j, const std::string& field, std::map<std::string, double>& out,
+                   InputProblems& problems) {
+  for (auto it = j.begin(); it != j.end(); ++it) {
+    const auto v = read_rate(j, it.key(), field + "[\"" + it.key() + "\"]", problems);
+    out[it.key()] = v.value_or(0.0);
+  }
+}
 
 }  // namespace
 
@@ -97,7 +105,11 @@ ObjectiveRates objective_from_json(const std::string& objective, const json& rat
   };
   const json none;
   const json& root = rates.is_object() ? rates : none;
-  r.concrete_per_m3 = need(root, "concrete_per_m3", "rates.concrete_per_m3", cost, "the rate for concrete per m3");
+  const auto by_class = root.is_object() ? root.find("concrete_per_m3") : root.end();
+  if (root.is_object() && by_class != root.end() && by_class->is_object())
+    read_by_class(*by_class, "rates.concrete_per_m3", r.concrete_per_m3_by_class, problems);
+  else
+    r.concrete_per_m3 = need(root, "concrete_per_m3", "rates.concrete_per_m3", cost, "the rate for concrete per m3");
   r.steel_per_tonne = need(root, "steel_per_tonne", "rates.steel_per_tonne", cost, "the rate for reinforcement per tonne");
   r.formwork_per_m2 = need(root, "formwork_per_m2", "rates.formwork_per_m2", cost, "the rate for soffit formwork per m2");
   const auto c = root.is_object() ? root.find("carbon") : root.end();
@@ -124,10 +136,7 @@ ObjectiveRates objective_from_json(const std::string& objective, const json& rat
       problems.add("rates.carbon.concrete_per_m3",
                    "must be an object of concrete class to kgCO2e per m3 ({\"C30/37\": ...}), got " + as_text(*k));
     } else {
-      for (auto it = k->begin(); it != k->end(); ++it) {
-        const auto v = read_rate(*k, it.key(), carbon_field(it.key()), problems);
-        r.carbon_concrete_per_m3[it.key()] = v.value_or(0.0);
-      }
+      read_by_class(*k, "rates.carbon.concrete_per_m3", r.carbon_concrete_per_m3, problems);
     }
   }
   return r;
@@ -135,8 +144,9 @@ ObjectiveRates objective_from_json(const std::string& objective, const json& rat
 
 // Concrete at the rate per m³ (m³ per m² of slab = thickness in m), steel at
 // the rate per tonne, and one m² of soffit formwork per m² of slab.
-double cost_per_m2(const ObjectiveRates& r, double thickness_mm, double steel_kg_m2) {
-  return r.concrete_per_m3 * thickness_mm * 1e-3 + r.steel_per_tonne * steel_kg_m2 * 1e-3 + r.formwork_per_m2;
+double cost_per_m2(double concrete_per_m3, double steel_per_tonne, double formwork_per_m2, double thickness_mm,
+                   double steel_kg_m2) {
+  return concrete_per_m3 * thickness_mm * 1e-3 + steel_per_tonne * steel_kg_m2 * 1e-3 + formwork_per_m2;
 }
 
 double carbon_per_m2(double concrete_kgCO2e_per_m3, double steel_kgCO2e_per_kg, double thickness_mm,
@@ -158,7 +168,14 @@ std::string concrete_key(const json& request) {
 double objective_value(const ObjectiveRates& r, const std::string& concrete, double thickness_mm,
                        double steel_kg_m2) {
   switch (r.objective) {
-    case Objective::cost: return cost_per_m2(r, thickness_mm, steel_kg_m2);
+    case Objective::cost: {
+      double concrete_rate = r.concrete_per_m3;
+      if (!r.concrete_per_m3_by_class.empty()) {
+        const auto it = r.concrete_per_m3_by_class.find(concrete);
+        concrete_rate = it == r.concrete_per_m3_by_class.end() ? not_known : it->second;
+      }
+      return cost_per_m2(concrete_rate, r.steel_per_tonne, r.formwork_per_m2, thickness_mm, steel_kg_m2);
+    }
     case Objective::carbon: {
       const auto it = r.carbon_concrete_per_m3.find(concrete);
       const double factor = it == r.carbon_concrete_per_m3.end() ? not_known : it->second;
@@ -290,21 +307,33 @@ Optimisation optimise(const Registry& registry, const Study& study, const std::s
   std::vector<std::string> keys;
   if (problems.empty()) {
     keys = concrete_keys(study);
+    // Rates by concrete: every concrete the study reaches needs its own.
+    const std::map<std::string, double>* by_class = nullptr;
+    std::string field;
     if (rates.objective == Objective::carbon) {
+      by_class = &rates.carbon_concrete_per_m3;
+      field = "rates.carbon.concrete_per_m3";
+    } else if (rates.objective == Objective::cost && !rates.concrete_per_m3_by_class.empty()) {
+      by_class = &rates.concrete_per_m3_by_class;
+      field = "rates.concrete_per_m3";
+    }
+    if (by_class) {
       std::vector<std::string> named;
       bool keyless = false;
       for (const auto& k : keys) {
         if (k.empty()) keyless = true;
-        else if (!rates.carbon_concrete_per_m3.count(k) && std::find(named.begin(), named.end(), k) == named.end())
+        else if (!by_class->count(k) && std::find(named.begin(), named.end(), k) == named.end())
           named.push_back(k);
       }
       if (keyless)
-        problems.add("rates.carbon.concrete_per_m3",
-                     "the carbon objective needs concrete.class (or concrete.cylinder_strength_MPa) in every "
-                     "candidate: its factors are per concrete");
+        problems.add(field, std::string("the ") + objective_name(rates.objective) +
+                                " objective needs concrete.class (or concrete.cylinder_strength_MPa) in every "
+                                "candidate: its rates are per concrete");
       for (const auto& k : named)
-        problems.add(carbon_field(k), "missing: the carbon objective needs the factor of concrete " + k +
-                                          " (kgCO2e per m3, no factor is built in)");
+        problems.add(field + "[\"" + k + "\"]", std::string("missing: the ") + objective_name(rates.objective) +
+                                                    " objective needs the rate of concrete " + k +
+                                                    (rates.objective == Objective::carbon ? " (kgCO2e per m3" : " (per m3") +
+                                                    ", no rate or factor is built in)");
     }
   }
   problems.raise_if_any();
