@@ -119,7 +119,7 @@ int check_report(const std::string& report, const std::string& file) {
   try {
     armature::record_format_for(report);
   } catch (const armature::InputError& e) {
-    return usage_error(e.problems().front().message);
+    return usage_error("--report: " + e.problems().front().message);
   }
   std::error_code ec;
   if (file != "-" && (std::filesystem::absolute(report) == std::filesystem::absolute(file) ||

@@ -21,13 +21,16 @@ def test_version():
     assert r.stdout.strip() == f"armature {armature.__version__}"
 
 
-@pytest.mark.parametrize("args", [["--help"], ["-h"], ["design", "--help"], ["codes", "-h"]])
+@pytest.mark.parametrize("args", [["--help"], ["-h"], ["design", "--help"], ["codes", "-h"],
+                                  ["optimise", "--help"]])
 def test_help_prints_usage_and_the_caution_on_stdout(args):
     r = run(args)
     assert r.returncode == 0 and r.stderr == ""
     assert r.stdout.startswith(f"armature {armature.__version__}: ")
-    usage = r.stdout.splitlines()[1:6]
+    usage = r.stdout.splitlines()[1:8]
     assert usage == ["usage: armature design FILE|- [--json] [--report RECORD.html|RECORD.md]",
+                     "       armature optimise FILE|- --vary PATH=VALUES [--vary ...] [--objective OBJECTIVE]",
+                     "                [--rates RATES.json] [--json] [--report RECORD.html|RECORD.md]",
                      "       armature codes", "       armature --version", "       armature --help", ""]
     assert r.stdout.rstrip().endswith("Caution: " + CAUTION)
 
