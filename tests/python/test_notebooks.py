@@ -62,3 +62,19 @@ def test_dask_sweep(kernel_name, tmp_path):
     assert result["rows"] == 8 * 7 * 4 * 4 * 2
     assert 0 < result["pass"] < result["rows"]
     assert result["same_as_local"]
+
+
+def test_optimise_floor(kernel_name, tmp_path):
+    result = run_notebook("optimise-floor.ipynb", kernel_name, tmp_path)
+    assert result["rows"] == 16 * 3 * 2
+    assert result["same_as_exhaustive"]
+    for objective in ("cost", "carbon"):
+        found = result[objective]
+        assert found["status"] == "pass"
+        assert found["pruned"] > 0
+        front = found["front"]
+        # Along a Pareto front a thicker slab is only there for a lower objective.
+        assert [h for h, _ in front] == sorted(h for h, _ in front)
+        assert all(b[1] < a[1] for a, b in zip(front, front[1:]) if b[0] > a[0])
+        # The choice is the front's least objective.
+        assert found["objective"] == min(o for _, o in front)
