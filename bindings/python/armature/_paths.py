@@ -23,7 +23,7 @@ def _path_tokens(path):
 
 def _set_path(request, path, value, base=None):
     """Sets `value` at the dotted `path` of the request dict, as the sweep of
-    the kernel does (bindings/python/module.cpp set_path): objects missing on
+    the kernel does (kernel/src/studies/sweep.cpp set_axis_value): objects missing on
     the way are made, list entries must exist. The path "code" takes "ID" or
     "ID:variant"; "ID" alone keeps the variant of `base` when `base` is of
     that code, else none (the code's default)."""
