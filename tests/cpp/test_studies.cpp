@@ -168,3 +168,25 @@ TEST_CASE("With no passing candidate the least-failing is returned, with status 
   CHECK(found.rows[found.chosen].max_utilisation == least);
   CHECK(found.message.rfind("no candidate passes every check: the least-failing is returned, with status fail", 0) == 0);
 }
+
+TEST_CASE("Sweeps and searches on several threads equal one thread", "[studies][threads]") {
+  auto& reg = armature::Registry::shared();
+  const auto study = hall_study({150, 170, 190, 210, 230}, {"C25/30", "C30/37", "C40/50"});
+  const auto one = armature::sweep(reg, study, 1);
+  const auto three = armature::sweep(reg, study, 3);
+  REQUIRE(one.size() == study.size());
+  for (std::size_t i = 0; i < one.size(); ++i) {
+    CHECK(one[i].designed == three[i].designed);
+    CHECK(one[i].pass == three[i].pass);
+    CHECK(one[i].steel_kg_m2 == three[i].steel_kg_m2);
+    CHECK(one[i].governing_check == three[i].governing_check);
+  }
+  const auto a = armature::optimise(reg, study, "carbon", invented_rates(), 1);
+  const auto b = armature::optimise(reg, study, "carbon", invented_rates(), 3);
+  CHECK(a.chosen == b.chosen);
+  CHECK(a.pruned == b.pruned);
+  for (std::size_t i = 0; i < a.rows.size(); ++i) {
+    CHECK(a.rows[i].pruned == b.rows[i].pruned);
+    CHECK((a.rows[i].pruned || a.rows[i].objective == b.rows[i].objective));
+  }
+}

@@ -7,7 +7,6 @@
 
 #include "armature/design.hpp"
 #include "armature/quantities.hpp"
-#include "armature/registry.hpp"
 #include "armature/studies.hpp"
 
 namespace armature {
@@ -19,7 +18,6 @@ unsigned worker_count(unsigned threads) {
 }
 
 void parallel_for(std::size_t n, unsigned threads, const std::function<void(std::size_t, unsigned)>& fn) {
-  Registry::shared();  // load plug-ins once, before the workers start
   const auto t = static_cast<unsigned>(std::min<std::size_t>(worker_count(threads), std::max<std::size_t>(n, 1)));
   std::atomic<std::size_t> next{0};
   auto work = [&](unsigned worker) {
