@@ -272,3 +272,21 @@ def test_cli_bad_rates_and_axes_are_input_errors_naming_the_field(tmp_path):
     rates.write_text("{not json")
     r = run(["optimise", str(request), "--vary", "slab.thickness_mm=150:200:10", "--rates", str(rates)])
     assert r.returncode == 2 and r.stderr.startswith("armature: (rates): not valid JSON")
+
+
+def test_a_floor_given_by_strength_keys_its_concrete_by_strength():
+    # The hall floor to ACI 318-19, concrete by f'c; the factors are invented.
+    aci = {"code": "ACI318-19", "slab": dict(HALL["slab"]), "concrete": {"cylinder_strength_MPa": 28},
+           "loads": {"dead_kPa": 1.5, "imposed_kPa": 4.0}}
+    rates = {"carbon": {"concrete_per_m3": {"28 MPa": 250.0, "35 MPa": 300.0}, "steel_per_kg": 1.5}}
+    vary = {"slab.thickness_mm": list(range(200, 301, 20)), "concrete.cylinder_strength_MPa": [28, 35]}
+    study = armature.sweep(aci, vary)
+    factor = {28: 250.0, 35: 300.0}
+    ranked = sorted(factor[row["concrete.cylinder_strength_MPa"]] * row["slab.thickness_mm"] / 1000
+                    + 1.5 * row["steel_kg_m2"] for _, row in study.iterrows() if row["status"] == "pass")
+    assert ranked
+    result, table = armature.optimise(aci, vary, objective="carbon", rates=rates)
+    assert table.loc[table["chosen"], "objective"].iloc[0] == pytest.approx(ranked[0], rel=1e-12)
+    with pytest.raises(armature.InputError, match=r'^rates\.carbon\.concrete_per_m3\["40 MPa"\]: missing'):
+        armature.optimise(aci, {"slab.thickness_mm": [200], "concrete.cylinder_strength_MPa": [28, 40]},
+                          objective="carbon", rates=rates)
