@@ -167,6 +167,8 @@ def test_no_passing_design_returns_the_least_failing_with_status_fail():
     ({"rates": dict(RATES, steel_per_tonne="dear")}, r"^rates\.steel_per_tonne: must be a number, got \"dear\"$"),
     ({"rates": dict(RATES, concrete_per_m3=-1)}, r"^rates\.concrete_per_m3: must be zero or more, got -1$"),
     ({"rates": dict(RATES, labour_per_m2=4)}, r"^rates\.labour_per_m2: unknown field$"),
+    ({"rates": dict(RATES, concrete_per_m3={})},
+     r"^rates\.concrete_per_m3: give the rate of at least one concrete class"),
     ({"objective": "carbon", "vary": {"slab.thickness_mm": [200], "concrete.class": ["C30/37", "C35/45"]}},
      r'^rates\.carbon\.concrete_per_m3\["C35/45"\]: missing: the carbon objective needs the rate of concrete C35/45'),
     ({"objective": "carbon", "rates": {"carbon": {"concrete_per_m3": {"C30/37": 260.0}}}},

@@ -71,6 +71,7 @@ void unknown_keys(const json& j, const std::vector<std::string>& known, const st
 // An object of concrete class (or "<fck> MPa") to a rate.
 void read_by_class(const json& j, const std::string& field, std::map<std::string, double>& out,
                    InputProblems& problems) {
+  if (j.empty()) problems.add(field, "give the rate of at least one concrete class ({\"C30/37\": ...})");
   for (auto it = j.begin(); it != j.end(); ++it) {
     const auto v = read_rate(j, it.key(), field + "[\"" + it.key() + "\"]", problems);
     out[it.key()] = v.value_or(0.0);
