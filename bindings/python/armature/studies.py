@@ -58,8 +58,10 @@ def optimise(request, vary, objective="cost", rates=None, threads=0, prune=True)
     estimate of DEVELOPERS.md). `rates` are the user's; none is built in:
     ``{"concrete_per_m3": ..., "steel_per_tonne": ..., "formwork_per_m2": ...,
     "carbon": {"concrete_per_m3": {"C30/37": ...}, "steel_per_kg": ...}}``
-    (cost needs the first three, carbon the factors of every concrete class
-    searched). Bad axes, rates or objective raise InputError naming the
+    (cost needs the first three, and ``concrete_per_m3`` may be an object by
+    concrete class; carbon needs the factors of every concrete class
+    searched, keyed by ``concrete.class``, or "28 MPa" for a request that
+    gives ``cylinder_strength_MPa``). Bad axes, rates or objective raise InputError naming the
     field, before anything is designed.
 
     The search runs in the kernel on all cores. With `prune` (the default)
