@@ -50,6 +50,7 @@ PracticeDefaults us_practice_defaults() {
   p.strip_width_mm = inch_pound::design_strip_in * mm_per_in;
   p.spacing_step_mm = inch_pound::spacing_step_in * mm_per_in;
   p.min_spacing_mm = inch_pound::first_spacing_in * mm_per_in;
+  p.aggregate_mm = inch_pound::aggregate_in * mm_per_in;
   p.report_units = ReportUnits::US;
   return p;
 }
@@ -109,7 +110,8 @@ std::vector<InputDefault> Checker::defaults_used() const {
     std::vector<InputDefault> out{
         {"concrete.density_kN_m3", num(inch_pound::normalweight_density_pcf) + " pcf",
          "normalweight concrete, common practice"},
-        {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm / mm_per_in) + " in", "armature default (25.2.1)"},
+        {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm / mm_per_in) + " in",
+         "3/4 in nominal maximum size, US variant, common practice (25.2.1)"},
         {"reinforcement.yield_strength_MPa", num(fy_ / MPa_per_psi / 1000.0) + " ksi", "Grade 60, plug-in default"},
         {"reinforcement.bars", bars, "plug-in default set for slabs (US variant)"},
         {"slab.strip_width_mm", num(practice.strip_width_mm / mm_per_in) + " in", "a foot of slab (US variant)"},

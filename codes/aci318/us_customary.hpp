@@ -29,6 +29,7 @@ constexpr double normalweight_density_pcf = 150.0;       // common practice
 constexpr double design_strip_in = 12.0;                 // a foot of slab, common practice
 constexpr double first_spacing_in = 3.0;                 // common practice
 constexpr double spacing_step_in = 0.5;                  // common practice
+constexpr double aggregate_in = 0.75;                    // nominal maximum size, common practice
 
 double stress_block_factor_beta1(double fc_psi);         // Table 22.2.2.4.3
 double yield_strain(double fy_psi);                      // 21.2.2.1: εty = fy/Es

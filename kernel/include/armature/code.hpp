@@ -45,7 +45,7 @@ struct LoadBasis {
 
 // The values the kernel takes for its own fields that a request leaves out
 // (slab.strip_width_mm, reinforcement.spacing_step_mm and .min_spacing_mm,
-// report_units), where a code's practice differs from the contract's
+// concrete.aggregate_mm, report_units), where a code's practice differs from the contract's
 // defaults: a variant drawn in inches designs a 12 in strip with bars at
 // half-inch steps. Read from the request's JSON only (a C++ Request states
 // every value it uses).
@@ -53,6 +53,7 @@ struct PracticeDefaults {
   double strip_width_mm = 1000.0;
   double spacing_step_mm = 25.0;
   double min_spacing_mm = 75.0;
+  double aggregate_mm = 20.0;
   ReportUnits report_units = ReportUnits::SI;
 };
 

@@ -86,13 +86,15 @@ std::unique_ptr<SlabChecker> begin_checked(const DesignCode& code, const CodeIde
 }
 
 // The code's practice defaults for the kernel's fields the request's JSON
-// leaves out (slab.strip_width_mm, the search grid, report_units).
+// leaves out (slab.strip_width_mm, the search grid, the aggregate size,
+// report_units).
 void apply_practice_defaults(const PracticeDefaults& practice, const nlohmann::json& j, Request& req) {
   if (!request_gives(j, "slab.strip_width_mm")) req.slab.strip_width_mm = practice.strip_width_mm;
   if (!request_gives(j, "reinforcement.spacing_step_mm"))
     req.reinforcement.spacing_step_mm = practice.spacing_step_mm;
   if (!request_gives(j, "reinforcement.min_spacing_mm"))
     req.reinforcement.min_spacing_mm = practice.min_spacing_mm;
+  if (!request_gives(j, "concrete.aggregate_mm")) req.concrete.aggregate_mm = practice.aggregate_mm;
   if (!request_gives(j, "report_units")) req.report_units = practice.report_units;
 }
 

@@ -366,7 +366,9 @@ std::string action_text(const DesignRecord& r, const Action& a) {
   const RecordUnits u = units_of(r);
   const std::string& kind_name = r.loads.action_kind_names[static_cast<std::size_t>(a.kind)];
   std::string t = kind_name.empty() ? std::string(to_string(a.kind)) : kind_name;
-  if (!a.category.empty()) t += ", category " + a.category;
+  // The category of EN 1991 (loads.imposed_category, an action's
+  // category) only where the code does not name the kinds itself.
+  if (!a.category.empty() && kind_name.empty()) t += ", category " + a.category;
   t += ", ";
   const std::string span = a.span ? "span " + std::to_string(*a.span + 1) : std::string();
   switch (a.distribution) {

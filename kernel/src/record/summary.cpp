@@ -114,13 +114,13 @@ std::string format_summary(const DesignRecord& r) {
   o += "\n";
 
   o += pad("Check", 12) + pad("where", 11) + rpad("demand", 10) + rpad("capacity", 10) + "  " +
-       pad("unit", 7) + rpad("util", 6) + "  " + pad("", 5) + "clause\n";
+       pad("unit", u.us ? 10 : 7) + rpad("util", 6) + "  " + pad("", 5) + "clause\n";
   for (const Check* c : r.all_checks()) {
     const auto [demand, unit] = u.check_value(c->demand, c->unit);
     const double capacity = u.check_value(c->capacity, c->unit).first;
     const double scale = std::max(std::abs(demand), std::abs(capacity));  // noise beside it is 0
     o += pad(c->id, 12) + pad(c->where, 11) + rpad(plain_number(demand, scale), 10) +
-         rpad(plain_number(capacity, scale), 10) + "  " + pad(unit, 7) + rpad(util(c->utilisation), 6) +
+         rpad(plain_number(capacity, scale), 10) + "  " + pad(unit, u.us ? 10 : 7) + rpad(util(c->utilisation), 6) +
          "  " + pad(c->pass ? "ok" : "FAIL", 5) + c->clause + "\n";
   }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " +
