@@ -51,6 +51,7 @@ PracticeDefaults us_practice_defaults() {
   p.spacing_step_mm = inch_pound::spacing_step_in * mm_per_in;
   p.min_spacing_mm = inch_pound::first_spacing_in * mm_per_in;
   p.aggregate_mm = inch_pound::aggregate_in * mm_per_in;
+  p.cylinder_strength_MPa = inch_pound::default_fc_psi * MPa_per_psi;
   p.report_units = ReportUnits::US;
   return p;
 }
@@ -108,6 +109,7 @@ std::vector<InputDefault> Checker::defaults_used() const {
   if (us_) {
     const PracticeDefaults practice = us_practice_defaults();
     std::vector<InputDefault> out{
+        {"concrete.cylinder_strength_MPa", num(fc_ / MPa_per_psi) + " psi", "US variant default, common practice"},
         {"concrete.density_kN_m3", num(inch_pound::normalweight_density_pcf) + " pcf",
          "normalweight concrete, common practice"},
         {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm / mm_per_in) + " in",

@@ -25,6 +25,7 @@ std::optional<Bar> find_bar(const std::string& number);  // "#3" to "#11" only
 
 constexpr double steel_modulus_psi = 29'000'000.0;       // 20.2.2.2
 constexpr double grade_60_psi = 60'000.0;                // Grade 60
+constexpr double default_fc_psi = 4000.0;                // common practice for floors
 constexpr double normalweight_density_pcf = 150.0;       // common practice
 constexpr double design_strip_in = 12.0;                 // a foot of slab, common practice
 constexpr double first_spacing_in = 3.0;                 // common practice

@@ -142,3 +142,20 @@ def test_bad_input_names_the_field():
     assert "reinforcement.bars[0]: 'No.13' is a bar of the SI variant" in str(info.value)
     with pytest.raises(armature.InputError, match=r"variant: code ACI318-19 has no variant 'USA'"):
         armature.design(dict(FLOOR, variant="USA"))
+
+
+def test_default_concrete_strength_of_the_us_variant():
+    # f'c 4000 psi when the request gives no concrete strength (US variant only).
+    bare = {k: v for k, v in FLOOR.items() if k != "concrete"}
+    default, given = armature.design(bare), armature.design(FLOOR)
+    assert [g["bars"] for g in default["regions"]] == [g["bars"] for g in given["regions"]]
+    for a, b in zip(default["regions"], given["regions"]):
+        # The same strength to the last digits of its conversion (4000 × 6.894757e-3 MPa).
+        assert a["As_req_mm2"] == pytest.approx(b["As_req_mm2"], rel=1e-12)
+    with pytest.raises(armature.InputError, match=r"concrete: required"):
+        armature.design(dict(bare, variant="SI"))
+    # A wrong type is still refused, and a class is refused by ACI 318.
+    with pytest.raises(armature.InputError, match=r"concrete: "):
+        armature.design(dict(bare, concrete=4000))
+    with pytest.raises(armature.InputError, match=r"concrete\.class: ACI 318-19 specifies concrete by f'c"):
+        armature.design(dict(bare, concrete={"class": "C30/37"}))

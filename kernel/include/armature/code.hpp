@@ -55,6 +55,9 @@ struct PracticeDefaults {
   double min_spacing_mm = 75.0;
   double aggregate_mm = 20.0;
   ReportUnits report_units = ReportUnits::SI;
+  // The concrete strength taken when the request gives neither a class nor
+  // a cylinder strength (none: the request must give one).
+  std::optional<double> cylinder_strength_MPa;
 };
 
 // Combined loads of one request, per unit area (N/mm²): the actions

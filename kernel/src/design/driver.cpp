@@ -98,6 +98,25 @@ void apply_practice_defaults(const PracticeDefaults& practice, const nlohmann::j
   if (!request_gives(j, "report_units")) req.report_units = practice.report_units;
 }
 
+// A code's default concrete strength for a request's JSON that gives none
+// (neither concrete.class nor a cylinder strength): the reader's
+// "required" problems of the concrete are withdrawn.
+void apply_default_strength(const PracticeDefaults& practice, const nlohmann::json& j, Request& req,
+                            InputProblems& problems) {
+  if (!practice.cylinder_strength_MPa || request_gives(j, "concrete.class") ||
+      request_gives(j, "concrete.cylinder_strength_MPa"))
+    return;
+  if (j.is_object() && j.contains("concrete") && !j["concrete"].is_object()) return;  // a wrong type stays an error
+  req.concrete.cylinder_strength_MPa = practice.cylinder_strength_MPa;
+  InputProblems kept;
+  for (const auto& p : problems.items()) {
+    const bool strength_required = (p.field == "concrete" && p.message == "required") ||
+                                   (p.field == "concrete.class" && p.message.rfind("required", 0) == 0);
+    if (!strength_required) kept.add(p.field, p.message);
+  }
+  problems = std::move(kept);
+}
+
 // Whether the result states its strip width (DesignRecord::state_strip_width).
 bool states_strip_width(const PracticeDefaults& practice) {
   return practice.strip_width_mm != PracticeDefaults{}.strip_width_mm;
@@ -139,6 +158,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
                    [&] { return code->identity(); });
     practice = call_code(id, "practice defaults", [&] { return code->practice_defaults(); });
     apply_practice_defaults(practice, j, req);
+    apply_default_strength(practice, j, req, problems);
     call_code(id, "input validation", [&] { code->validate(req, problems); });
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
