@@ -243,6 +243,14 @@ TEST_CASE("The same slab in the SI and US variants agrees where the editions agr
   const auto& d_us = check_at(us.spans[0].checks, "deflection", "ACI 318-19 7.3.1.1");
   CHECK(d_us.demand == Approx(6.0 * inch).epsilon(1e-12));
   CHECK(d_si.demand == Approx(6.0 * inch * (0.4 + 60000.0 * psi / 700.0)).epsilon(1e-12));
+  // The given 3/4 in cover: the in-lb Table 20.5.1.3.1 asks 3/4 in (passes), the SI
+  // one 20 mm (fails by 0.95 mm): the issue's "cover 0.787 vs 0.75 in FAIL".
+  const auto& c_us = check_at(us.regions[0].checks, "cover", "ACI 318-19 20.5.1.3.1");
+  const auto& c_si = check_at(si.regions[0].checks, "cover", "ACI 318-19 20.5.1.3.1");
+  CHECK(c_us.demand == Approx(0.75 * inch));
+  CHECK(c_us.pass);
+  CHECK(c_si.demand == Approx(20.0));
+  CHECK_FALSE(c_si.pass);
   // The result states the US strip; the SI variant's (a metre by practice) is not stated.
   CHECK(us.state_strip_width);
   CHECK_FALSE(si.state_strip_width);
