@@ -103,7 +103,8 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
       st.add("φ", "Table 21.2.2 from εt", "εt = " + num(eps_t) + ", εty = " + num(eps_ty), phi, "-",
              "ACI 318-19 21.2.2");
       st.add("φMn", "φ As fy (d − a/2)",
-             num(phi) + " × " + area(As) + " × " + stress(fy_) + " × (" + len(d) + " − " + len(a) + "/2)",
+             num(phi) + " × " + area(As) + " × " + stress(fy_) + " × (" + len(d) + " − " + len(a) + "/2)" +
+                 us_unit("lb-in"),
              moment_v(phi_Mn), moment_u(), "ACI 318-19 22.2");
       return st.take();
     });
