@@ -2,14 +2,16 @@
 # Sets up, builds and designs the demo slabs of a small community workshop
 # building: the first floor (shorthand loads) and its store room and
 # balcony strip (named actions: a partition wall, a kiln, stacked timber, a
-# planter; an exposed top face; support widths). Prints each summary and
+# planter; an exposed top face; support widths), and the first floor of its
+# US sister building (ACI 318-19, US variant: inches, psf, the summary and
+# record in US units). Prints each summary and
 # writes each result JSON and calculation record to out/.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 bash scripts/setup.sh
 mkdir -p out
 worst=0
-for name in workshop-first-floor workshop-store-and-balcony; do
+for name in workshop-first-floor workshop-store-and-balcony workshop-us-first-floor; do
   request="examples/$name.json"
   echo "=== $request"
   set +e

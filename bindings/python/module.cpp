@@ -552,6 +552,16 @@ py::list request_problems(const py::handle& request) {
   return out;
 }
 
+// The strip width a request gives (slab.strip_width_mm or its quantity
+// form "strip_width"), in mm; None where it leaves the width to the code.
+py::object given_strip_width_mm(const py::handle& request) {
+  const json req = to_json(request, "");
+  if (!armature::request_gives(req, "slab.strip_width_mm")) return py::none();
+  armature::InputProblems problems;
+  const armature::Request r = armature::request_from_json(req, problems);
+  return py::float_(r.slab.strip_width_mm);
+}
+
 // The M and V envelopes of a request, per span, in kN and m.
 py::list envelope_diagrams(const py::handle& request) {
   json req = to_json(request, "");
@@ -643,6 +653,8 @@ PYBIND11_MODULE(_core, m) {
         "Search the product of the axes for the best passing design under the objective.");
   m.def("request_problems", &request_problems, py::arg("request"),
         "Structural problems of a request as (field, message) pairs, without designing.");
+  m.def("given_strip_width_mm", &given_strip_width_mm, py::arg("request"),
+        "The strip width a request gives, in mm; None where the code's default applies.");
   m.def("envelope_diagrams", &envelope_diagrams, py::arg("request"),
         "M and V envelopes of a request along each span.");
   m.def("codes", &codes, "The loaded code plug-ins: id, title, variants, path.");

@@ -13,6 +13,7 @@
 
 #include "armature/code.hpp"
 #include "armature/steps.hpp"
+#include "armature/units.hpp"
 #include "rules.hpp"
 
 namespace armature::aci318 {
@@ -21,7 +22,8 @@ inline std::string num(double v) { return step_number(v); }
 
 class Checker final : public SlabChecker {
  public:
-  explicit Checker(const Request& req);  // plugin.cpp
+  // `us`: the US variant, following the in-lb edition (us_customary.hpp).
+  Checker(const Request& req, bool us);  // plugin.cpp
 
   // plugin.cpp
   LoadBasis load_basis() const override;
@@ -53,7 +55,43 @@ class Checker final : public SlabChecker {
 
   const std::string& exposure_of(Face face) const { return exposure_[static_cast<std::size_t>(face)]; }
 
+  // editions.cpp: the provisions whose SI and in-lb forms differ, in
+  // kernel units (mm, MPa, N) whichever edition computes them.
+  double yield_strain_of_steel() const;                        // 21.2.2.1
+  double slab_min_strain() const { return yield_strain_of_steel() + 0.003; }  // 7.3.3.1
+  double steel_at_slab_strain_limit(double b, double d) const;  // 7.3.3.1
+  double max_bar_spacing(double h) const;                       // 7.7.2.3
+  double min_clear_spacing(double db, double aggregate) const;  // 25.2.1
+  double crack_spacing(double fs, double clear_cover) const;    // 24.3.2
+  double max_distribution_spacing(double h) const;              // 24.4.3.3
+  double shear_size_factor(double d) const;                     // 22.5.5.1.3
+  double shear_strength(double lambda_s, double rho_w, double b, double d) const;  // 22.5.5.1
+  double min_thickness(double span, SupportCondition condition) const;            // 7.3.1.1
+  double cover_for(const std::string& exposure, double bar_diameter) const;       // 20.5.1.3.1
+  double root_fc_limited() const;                               // √f'c ≤ 8.3 MPa (100 psi), 22.5.3.1
+
+  // Numbers and units of the derivation steps: the SI variant prints the
+  // kernel's units, the US variant those of the in-lb edition.
+  std::string len(double mm) const { return num(us_ ? mm / mm_per_in : mm); }
+  double len_v(double mm) const { return us_ ? mm / mm_per_in : mm; }
+  const char* len_u() const { return us_ ? "in" : "mm"; }
+  std::string area(double mm2) const { return num(area_v(mm2)); }
+  double area_v(double mm2) const { return us_ ? mm2 / (mm_per_in * mm_per_in) : mm2; }
+  const char* area_u() const { return us_ ? "in2" : "mm2"; }
+  std::string stress(double MPa) const { return num(stress_v(MPa)); }
+  double stress_v(double MPa) const { return us_ ? MPa / MPa_per_psi : MPa; }
+  const char* stress_u() const { return us_ ? "psi" : "MPa"; }
+  std::string moment(double Nmm) const { return num(moment_v(Nmm)); }
+  double moment_v(double Nmm) const { return us_ ? Nmm * 1e-6 / kNm_per_kipft : Nmm * 1e-6; }
+  const char* moment_u() const { return us_ ? "kip-ft" : "kNm"; }
+  double force_v(double N) const { return us_ ? N * 1e-3 / kN_per_kip : N * 1e-3; }
+  std::string force(double N) const { return num(force_v(N)); }
+  const char* force_u() const { return us_ ? "kip" : "kN"; }
+  // " psi" after a substituted value in the US variant (the SI text names no unit there).
+  std::string us_unit(const char* unit) const { return us_ ? std::string(" ") + unit : std::string(); }
+
   const Request& req_;  // kept alive by the caller of Code::begin
+  bool us_ = false;
   double fc_ = 0.0, fy_ = 0.0, beta1_ = 0.0;
   std::array<std::string, 2> exposure_;  // by Face
   std::vector<BarOption> bars_;

@@ -42,13 +42,13 @@ std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detai
     checks.add("equilibrium", d.where, "ACI 318-19 5.3.1, L on the cantilever only", d.R_destabilising * 1e-3,
                d.R_stabilising * 1e-3, "kN", [&] {
                  StepRecorder st;
-                 st.add("R,stb", "reaction from the spans that hold the support down", "", d.R_stabilising * 1e-3, "kN",
-                        "ACI 318-19 5.3.1");
-                 st.add("R,dst", "reaction taken away by the spans that lift it (with L)", "", d.R_destabilising * 1e-3, "kN",
-                        "ACI 318-19 5.3.1");
+                 st.add("R,stb", "reaction from the spans that hold the support down", "", force_v(d.R_stabilising),
+                        force_u(), "ACI 318-19 5.3.1");
+                 st.add("R,dst", "reaction taken away by the spans that lift it (with L)", "",
+                        force_v(d.R_destabilising), force_u(), "ACI 318-19 5.3.1");
                  st.add("R,min", "R,stb − R,dst under " + d.combination + " (negative: uplift)",
-                        num(d.R_stabilising * 1e-3) + " − " + num(d.R_destabilising * 1e-3),
-                        (d.R_stabilising - d.R_destabilising) * 1e-3, "kN", "ACI 318-19 5.3.1");
+                        force(d.R_stabilising) + " − " + force(d.R_destabilising),
+                        force_v(d.R_stabilising - d.R_destabilising), force_u(), "ACI 318-19 5.3.1");
                  return st.take();
                });
   });
@@ -58,11 +58,13 @@ std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detai
 // 7.3.1.1: the minimum thickness of a solid one-way slab of this span.
 void Checker::deflection_check(CheckCollector& span, const RegionDemand& g, double h) const {
   const SupportCondition cond = condition_of(g.span_kind);
-  const double h_min = minimum_slab_thickness(g.span_mm, cond, fy_);
+  const double h_min = min_thickness(g.span_mm, cond);
   span.add("deflection", g.span_where, "ACI 318-19 7.3.1.1", h_min, h, "mm", [&] {
     StepRecorder st;
-    st.add("h_min", std::string("Table 7.3.1.1: ") + condition_name(cond) + ", × (0.4 + fy/700)",
-           "ℓ = " + num(g.span_mm) + ", fy = " + num(fy_), h_min, "mm", "ACI 318-19 7.3.1.1");
+    st.add("h_min",
+           std::string("Table 7.3.1.1: ") + condition_name(cond) + (us_ ? ", × (0.4 + fy/100 000)" : ", × (0.4 + fy/700)"),
+           "ℓ = " + len(g.span_mm) + us_unit(len_u()) + ", fy = " + stress(fy_) + us_unit(stress_u()), len_v(h_min),
+           len_u(), "ACI 318-19 7.3.1.1");
     return st.take();
   });
 }

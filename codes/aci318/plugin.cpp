@@ -1,4 +1,5 @@
-// The ACI 318-19 (SI) code plug-in for one-way solid slabs. This file holds
+// The ACI 318-19 code plug-in for one-way solid slabs, in two variants:
+// SI (the SI edition) and US (the in-lb edition, us_customary.hpp). This file holds
 // the Code, its validation, the entry point, and the parts of the checker
 // that are neither section nor member checks: materials, loads, bars,
 // defaults.
@@ -10,29 +11,61 @@
 #include "armature/plugin.hpp"
 #include "checker.hpp"
 #include "combinations.hpp"
+#include "us_customary.hpp"
 
 namespace armature::aci318 {
 
 namespace {
 
 constexpr const char* code_id = "ACI318-19";
-constexpr const char* variant_name = "SI";
+constexpr const char* variant_si = "SI";
+constexpr const char* variant_us = "US";
 const std::vector<std::string> default_bars{"#3", "#4", "#5", "#6", "#7", "#8"};
+const std::vector<std::string> default_bars_us{"#4", "#5", "#6"};  // common practice for slabs
 constexpr double default_density_kN_m3 = 23.6;  // 150 lb/ft³ (common practice)
 constexpr double default_fy = 420.0;             // Grade 60
+// The US variant's defaults, exactly in kernel units.
+constexpr double default_density_us_kN_m3 =
+    inch_pound::normalweight_density_pcf * N_per_lbf / (m_per_ft * m_per_ft * m_per_ft) * 1e-3;
+constexpr double default_fy_us = inch_pound::grade_60_psi * MPa_per_psi;
+
+// A bar of the variant's catalogue, in kernel units: the SI variant takes
+// either name of its metric-converted bars, the US variant the inch-pound
+// numbers with their nominal in-lb dimensions.
+std::optional<BarOption> variant_bar(const std::string& name, bool us) {
+  if (us) {
+    const auto bar = inch_pound::find_bar(name);
+    if (!bar) return std::nullopt;
+    return BarOption{name, bar->diameter_in * mm_per_in, bar->area_in2 * mm_per_in * mm_per_in};
+  }
+  const auto bar = find_bar(name);
+  if (!bar) return std::nullopt;
+  return BarOption{name, bar->diameter_mm, bar->area_mm2};
+}
+
+// The kernel's fields under the US variant: a 12 in design strip, bars
+// from 3 in at half-inch steps, records in US units (common practice).
+PracticeDefaults us_practice_defaults() {
+  PracticeDefaults p;
+  p.strip_width_mm = inch_pound::design_strip_in * mm_per_in;
+  p.spacing_step_mm = inch_pound::spacing_step_in * mm_per_in;
+  p.min_spacing_mm = inch_pound::first_spacing_in * mm_per_in;
+  p.aggregate_mm = inch_pound::aggregate_in * mm_per_in;
+  p.cylinder_strength_MPa = inch_pound::default_fc_psi * MPa_per_psi;
+  p.report_units = ReportUnits::US;
+  return p;
+}
 
 }  // namespace
 
-Checker::Checker(const Request& req) : req_(req) {
+Checker::Checker(const Request& req, bool us) : req_(req), us_(us) {
   fc_ = *req.concrete.cylinder_strength_MPa;
-  fy_ = req.reinforcement.yield_strength_MPa.value_or(default_fy);
-  beta1_ = stress_block_factor_beta1(fc_);
+  fy_ = req.reinforcement.yield_strength_MPa.value_or(us ? default_fy_us : default_fy);
+  beta1_ = us ? inch_pound::stress_block_factor_beta1(fc_ / MPa_per_psi) : stress_block_factor_beta1(fc_);
   for (Face face : {Face::bottom, Face::top})
     exposure_[static_cast<std::size_t>(face)] = req.durability.face(face).exposure.value_or("interior");
-  for (const auto& name : req.reinforcement.bars.value_or(default_bars)) {
-    const Bar bar = *find_bar(name);
-    bars_.push_back({name, bar.diameter_mm, bar.area_mm2});
-  }
+  for (const auto& name : req.reinforcement.bars.value_or(us ? default_bars_us : default_bars))
+    bars_.push_back(*variant_bar(name, us));
   if (req.fire.resistance_min)
     warnings_.push_back("fire resistance is not checked by this code: for US slabs it is set by "
                         "ACI/TMS 216.1, which armature does not implement");
@@ -40,8 +73,12 @@ Checker::Checker(const Request& req) : req_(req) {
 
 LoadBasis Checker::load_basis() const {
   LoadBasis basis;
-  basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(default_density_kN_m3);
+  basis.density_kN_m3 = req_.concrete.density_kN_m3.value_or(us_ ? default_density_us_kN_m3 : default_density_kN_m3);
   basis.long_term_load_name = "sustained";  // ACI 318-19 24.2.4.1, Table 24.2.2
+  // The names of 5.3.1 (D, L, Lr, S); imposed actions of category H are Lr.
+  basis.permanent_load_name = "D (self-weight + superimposed dead)";
+  basis.variable_load_name = "L, Lr, S (live, roof live, snow)";
+  basis.action_kind_names = {"D (dead)", "L (live)", "S (snow)", "Lr (roof live)"};
   return basis;
 }
 
@@ -61,9 +98,7 @@ std::vector<std::vector<bool>> Checker::load_arrangements(std::size_t n) const {
 double Checker::pinned_end_fixity_fraction() const { return 0.0; }
 
 std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) const {
-  const auto bar = find_bar(designation);
-  if (!bar) return std::nullopt;
-  return BarOption{designation, bar->diameter_mm, bar->area_mm2};
+  return variant_bar(designation, us_);
 }
 
 std::vector<std::string> Checker::warnings() const { return warnings_; }
@@ -71,6 +106,30 @@ std::vector<std::string> Checker::warnings() const { return warnings_; }
 std::vector<InputDefault> Checker::defaults_used() const {
   std::string bars;
   for (const auto& bar : bars_) bars += (bars.empty() ? "" : ", ") + bar.designation;
+  if (us_) {
+    const PracticeDefaults practice = us_practice_defaults();
+    std::vector<InputDefault> out{
+        {"concrete.cylinder_strength_MPa", num(fc_ / MPa_per_psi) + " psi", "US variant default, common practice"},
+        {"concrete.density_kN_m3", num(inch_pound::normalweight_density_pcf) + " pcf",
+         "normalweight concrete, common practice"},
+        {"concrete.aggregate_mm", num(req_.concrete.aggregate_mm / mm_per_in) + " in",
+         "3/4 in nominal maximum size, US variant, common practice (25.2.1)"},
+        {"reinforcement.yield_strength_MPa", num(fy_ / MPa_per_psi / 1000.0) + " ksi", "Grade 60, plug-in default"},
+        {"reinforcement.bars", bars, "plug-in default set for slabs (US variant)"},
+        {"slab.strip_width_mm", num(practice.strip_width_mm / mm_per_in) + " in", "a foot of slab (US variant)"},
+        {"reinforcement.min_spacing_mm", num(practice.min_spacing_mm / mm_per_in) + " in",
+         "US variant, common practice"},
+        {"reinforcement.spacing_step_mm", num(practice.spacing_step_mm / mm_per_in) + " in",
+         "half-inch steps, US variant, common practice"},
+        {"report_units", "US", "US variant"},
+    };
+    for (auto& d : durability_defaults(req_, {exposure_of(Face::bottom), exposure_of(Face::top)},
+                                       "plug-in default (not exposed to weather or ground)",
+                                       "from the exposure and each bar (see the bending steps)",
+                                       "ACI 318-19 20.5.1.3.1 (in-lb)"))
+      out.push_back(std::move(d));
+    return out;
+  }
   std::vector<InputDefault> out{
       {"concrete.density_kN_m3", num(req_.concrete.density_kN_m3.value_or(default_density_kN_m3)) + " kN/m³",
        "150 lb/ft³ normal-weight concrete, common practice"},
@@ -88,32 +147,56 @@ std::vector<InputDefault> Checker::defaults_used() const {
 
 namespace {
 
+// Why a bar name is refused under a variant.
+std::string unknown_bar_message(const std::string& name, bool us) {
+  if (us && find_bar(name))
+    return "'" + name + "' is a bar of the SI variant; the US variant (inch-pound bars) takes #3 to #11";
+  return us ? "unknown bar '" + name + "'; ACI 318 inch-pound bars are #3 to #11"
+            : "unknown bar '" + name + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)";
+}
+
 class Code final : public DesignCode {
  public:
+  explicit Code(bool us) : us_(us) {}
+
   CodeIdentity identity() const override {
-    return {code_id, variant_name, "ACI 318-19, SI units"};
+    return us_ ? CodeIdentity{code_id, variant_us, "ACI 318-19, inch-pound units (US customary)"}
+               : CodeIdentity{code_id, variant_si, "ACI 318-19, SI units"};
   }
+
+  PracticeDefaults practice_defaults() const override { return us_ ? us_practice_defaults() : PracticeDefaults{}; }
 
   void validate(const Request& req, InputProblems& problems) const override {
     if (req.concrete.strength_class)
       problems.add("concrete.class", "ACI 318-19 specifies concrete by f'c: give "
                                      "concrete.cylinder_strength_MPa instead");
-    if (const auto& fc = req.concrete.cylinder_strength_MPa; fc && (*fc < 17 || *fc > 100))
-      problems.add("concrete.cylinder_strength_MPa",
-                   "must be between 17 and 100 MPa (ACI 318-19 19.2.1.1), got " + num(*fc));
-    if (const auto& fy = req.reinforcement.yield_strength_MPa; fy && (*fy < 280 || *fy > 550))
-      problems.add("reinforcement.yield_strength_MPa",
-                   "must be between 280 and 550 MPa (ACI 318-19 20.2.2.4), got " + num(*fy));
-    double smallest_bar = 9.5;
+    const auto& fc = req.concrete.cylinder_strength_MPa;
+    const auto& fy = req.reinforcement.yield_strength_MPa;
+    if (us_) {
+      // 19.2.1.1: f'c at least 2500 psi; 20.2.2.4: Grades 40 to 80 (in-lb).
+      if (fc && (*fc < 2500 * MPa_per_psi * (1 - 1e-9) || *fc > 15000 * MPa_per_psi * (1 + 1e-9)))
+        problems.add("concrete.cylinder_strength_MPa", "must be between 2500 and 15 000 psi (ACI 318-19 "
+                                                       "19.2.1.1), got " + num(*fc / MPa_per_psi) + " psi");
+      if (fy && (*fy < 40000 * MPa_per_psi * (1 - 1e-9) || *fy > 80000 * MPa_per_psi * (1 + 1e-9)))
+        problems.add("reinforcement.yield_strength_MPa", "must be between 40 and 80 ksi (ACI 318-19 "
+                                                         "20.2.2.4), got " + num(*fy / MPa_per_psi / 1000) + " ksi");
+    } else {
+      if (fc && (*fc < 17 || *fc > 100))
+        problems.add("concrete.cylinder_strength_MPa",
+                     "must be between 17 and 100 MPa (ACI 318-19 19.2.1.1), got " + num(*fc));
+      if (fy && (*fy < 280 || *fy > 550))
+        problems.add("reinforcement.yield_strength_MPa",
+                     "must be between 280 and 550 MPa (ACI 318-19 20.2.2.4), got " + num(*fy));
+    }
+    double smallest_bar = us_ ? 0.375 * mm_per_in : 9.5;
     if (req.reinforcement.bars) {
       smallest_bar = 1e9;
       const auto& bars = *req.reinforcement.bars;
       for (std::size_t i = 0; i < bars.size(); ++i) {
-        if (auto bar = find_bar(bars[i]))
+        if (auto bar = variant_bar(bars[i], us_))
           smallest_bar = std::min(smallest_bar, bar->diameter_mm);
         else
-          problems.add("reinforcement.bars[" + std::to_string(i) + "]",
-                       "unknown bar '" + bars[i] + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)");
+          problems.add("reinforcement.bars[" + std::to_string(i) + "]", unknown_bar_message(bars[i], us_));
       }
     }
     for (Face face : {Face::bottom, Face::top}) {
@@ -128,9 +211,8 @@ class Code final : public DesignCode {
     // it is a candidate of the search.
     for (std::size_t i = 0; i < req.reinforcement.given.size(); ++i) {
       const std::string& bar = req.reinforcement.given[i].bar;
-      if (!bar.empty() && !find_bar(bar))
-        problems.add("reinforcement.given[" + std::to_string(i) + "].bar",
-                     "unknown bar '" + bar + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)");
+      if (!bar.empty() && !variant_bar(bar, us_))
+        problems.add("reinforcement.given[" + std::to_string(i) + "].bar", unknown_bar_message(bar, us_));
     }
     if (smallest_bar < 1e9) add_cover_fit_problems(req, smallest_bar, problems);
     if (req.design.combination)
@@ -143,20 +225,24 @@ class Code final : public DesignCode {
   }
 
   std::unique_ptr<SlabChecker> begin(const Request& req) const override {
-    return std::make_unique<Checker>(req);
+    return std::make_unique<Checker>(req, us_);
   }
+
+ private:
+  bool us_;
 };
 
 class Factory final : public CodeFactory {
  public:
   std::string id() const override { return code_id; }
-  std::string title() const override { return "Building Code Requirements for Structural Concrete (SI)"; }
+  std::string title() const override { return "Building Code Requirements for Structural Concrete"; }
   std::string edition() const override { return "ACI 318-19"; }
-  std::vector<std::string> variants() const override { return {variant_name}; }
-  std::string default_variant() const override { return variant_name; }
+  std::vector<std::string> variants() const override { return {variant_si, variant_us}; }
+  std::string default_variant() const override { return variant_si; }
   std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost&) const override {
-    if (variant != variant_name) throw std::invalid_argument("no ACI 318-19 variant '" + variant + "'");
-    return std::make_shared<Code>();
+    if (variant != variant_si && variant != variant_us)
+      throw std::invalid_argument("no ACI 318-19 variant '" + variant + "'");
+    return std::make_shared<Code>(variant == variant_us);
   }
 };
 

@@ -10,14 +10,8 @@
 
 namespace armature::aci318 {
 
-namespace {
-
-constexpr double lambda_normal_weight = 1.0;     // 19.2.4
-
-}  // namespace
-
 double Checker::max_spacing_mm(const RegionDemand&) const {
-  return max_flexural_bar_spacing(req_.slab.thickness_mm);
+  return max_bar_spacing(req_.slab.thickness_mm);
 }
 
 // Below this area the bar fails bending or minimum steel, as checked in
@@ -26,7 +20,7 @@ double Checker::max_spacing_mm(const RegionDemand&) const {
 // no area passes when even a = d cannot carry Mu.
 double Checker::minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const {
   const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
-  const double d = h - req_.durability.face(g.face).cover_mm.value_or(specified_cover(
+  const double d = h - req_.durability.face(g.face).cover_mm.value_or(cover_for(
                            exposure_of(g.face), std::max(bar.diameter_mm, g.cover_bar_mm))) -
                    bar.diameter_mm / 2.0;
   if (d <= 0.0) return 0.0;  // bending fails unless M_Ed = 0: left to the check
@@ -48,15 +42,16 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
   const std::string& exposure = exposure_of(g.face);
   const auto& given_cover = req_.durability.face(g.face).cover_mm;
   const bool cover_given = given_cover.has_value();
-  const double c_req = specified_cover(exposure, cover_given ? db : std::max(db, g.cover_bar_mm));
+  const double c_req = cover_for(exposure, cover_given ? db : std::max(db, g.cover_bar_mm));
   const double cover = given_cover.value_or(c_req);
   auto cover_steps = [&] {
     StepRecorder st;
     const bool face_bar = !cover_given && g.cover_bar_mm > db;
     st.add("c",
            "Table 20.5.1.3.1 (" + exposure + ", bar " +
-               (face_bar ? "of " + num(g.cover_bar_mm) + " mm, the largest on this face)" : bar.designation + ")"),
-           exposure + " (" + to_string(g.face) + " face)", c_req, "mm",
+               (face_bar ? "of " + len(g.cover_bar_mm) + " " + len_u() + ", the largest on this face)"
+                         : bar.designation + ")"),
+           exposure + " (" + to_string(g.face) + " face)", len_v(c_req), len_u(),
            "ACI 318-19 20.5.1.3.1");
     return st.take();
   };
@@ -68,13 +63,13 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
     checks.add("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, 0.0, "kNm", cover_steps);
     return out;
   }
-  out.As_max_mm2 = steel_at_strain_limit(fc_, fy_, b, d);
+  out.As_max_mm2 = steel_at_slab_strain_limit(b, d);
   const auto As_root = required_flexural_steel(g.M_Ed, fc_, fy_, b, d);
   out.As_req_mm2 = As_root.value_or(0.85 * fc_ * b * d / fy_);
   const double a = stress_block_depth(As, fy_, fc_, b);
   const double c = a / beta1_;
   const double eps_t = net_tensile_strain(d, c);
-  const double eps_ty = yield_strain(fy_);
+  const double eps_ty = yield_strain_of_steel();
   const double phi = strength_reduction_factor(eps_t, eps_ty);
   const double phi_Mn = phi * nominal_moment(As, fy_, d, a);
 
@@ -86,58 +81,62 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
       if (at_face) {
         const SupportFace& f = g.support_face;
         const std::size_t i = governing_face_case(f);
-        st.add("t", "breadth of the support (built integrally)", "", f.width_mm, "mm", "ACI 318-19 7.4.1.3");
+        st.add("t", "breadth of the support (built integrally)", "", len_v(f.width_mm), len_u(), "ACI 318-19 7.4.1.3");
         if (i < f.cases.size())
-          st.add("Mu,c", "at the centreline, governing load case", "", f.cases[i].M_centre * 1e-6, "kNm",
+          st.add("Mu,c", "at the centreline, governing load case", "", moment_v(f.cases[i].M_centre), moment_u(),
                  "ACI 318-19 7.4.1.3");
-        st.add("Mu", "at the face of support, t/2 from the centreline (larger side)", "", g.M_Ed * 1e-6, "kNm",
-               "ACI 318-19 7.4.1.3");
+        st.add("Mu", "at the face of support, t/2 from the centreline (larger side)", "", moment_v(g.M_Ed),
+               moment_u(), "ACI 318-19 7.4.1.3");
       }
       if (!cover_given)
         for (auto& x : cover_steps()) st.add(x.symbol, x.expression, x.substituted, x.result, x.unit, x.clause);
-      st.add("d", "h − cover − db/2", num(h) + " − " + num(cover) + " − " + num(db) + "/2", d, "mm",
+      st.add("d", "h − cover − db/2", len(h) + " − " + len(cover) + " − " + len(db) + "/2", len_v(d), len_u(),
              "ACI 318-19 22.2");
       st.add("As,req", "(0.85 f'c b/fy)(d − √(d² − 2Mu/(0.9 × 0.85 f'c b)))",
-             "Mu = " + num(g.M_Ed * 1e-6) + " kNm, f'c = " + num(fc_) + ", fy = " + num(fy_), out.As_req_mm2,
-             "mm2", "ACI 318-19 22.2.2");
-      st.add("As", "bar area × b/s", num(bar.area_mm2) + " × " + num(b) + "/" + num(s), As, "mm2", "");
+             "Mu = " + moment(g.M_Ed) + " " + moment_u() + ", f'c = " + stress(fc_) + us_unit(stress_u()) +
+                 ", fy = " + stress(fy_) + us_unit(stress_u()),
+             area_v(out.As_req_mm2), area_u(), "ACI 318-19 22.2.2");
+      st.add("As", "bar area × b/s", area(bar.area_mm2) + " × " + len(b) + "/" + len(s), area_v(As), area_u(), "");
       st.add("a", "As fy/(0.85 f'c b)",
-             num(As) + " × " + num(fy_) + "/(0.85 × " + num(fc_) + " × " + num(b) + ")", a, "mm",
+             area(As) + " × " + stress(fy_) + "/(0.85 × " + stress(fc_) + " × " + len(b) + ")", len_v(a), len_u(),
              "ACI 318-19 22.2.2.4.1");
       st.add("φ", "Table 21.2.2 from εt", "εt = " + num(eps_t) + ", εty = " + num(eps_ty), phi, "-",
              "ACI 318-19 21.2.2");
       st.add("φMn", "φ As fy (d − a/2)",
-             num(phi) + " × " + num(As) + " × " + num(fy_) + " × (" + num(d) + " − " + num(a) + "/2)",
-             phi_Mn * 1e-6, "kNm", "ACI 318-19 22.2");
+             num(phi) + " × " + area(As) + " × " + stress(fy_) + " × (" + len(d) + " − " + len(a) + "/2)" +
+                 us_unit("lb-in"),
+             moment_v(phi_Mn), moment_u(), "ACI 318-19 22.2");
       return st.take();
     });
   });
   run_check("ductility", [&] {
-    const double eps_min = slab_min_net_tensile_strain(fy_);
+    const double eps_min = slab_min_strain();
     checks.add("ductility", g.where, "ACI 318-19 7.3.3.1, 21.2.2", eps_min, As_root ? eps_t : 0.0, "-", [&] {
                  StepRecorder st;
-                 st.add("εty", "fy/Es", num(fy_) + "/" + num(steel_modulus_MPa), eps_ty, "-",
+                 st.add("εty", "fy/Es", stress(fy_) + "/" + (us_ ? std::string("29 000 000") : num(steel_modulus_MPa)),
+                        eps_ty, "-",
                         "ACI 318-19 21.2.2.1");
                  st.add("εt,min", "εty + 0.003 (slab tension-controlled)", num(eps_ty) + " + 0.003", eps_min, "-",
                         "ACI 318-19 7.3.3.1, Table 21.2.2");
-                 st.add("β1", "Table 22.2.2.4.3", "f'c = " + num(fc_), beta1_, "-", "ACI 318-19 22.2.2.4.3");
-                 st.add("c", "a/β1", num(a) + "/" + num(beta1_), c, "mm", "ACI 318-19 22.2.2.4.2");
-                 st.add("εt", "0.003 (d − c)/c", "0.003 × (" + num(d) + " − " + num(c) + ")/" + num(c), eps_t,
+                 st.add("β1", "Table 22.2.2.4.3", "f'c = " + stress(fc_) + us_unit(stress_u()), beta1_, "-",
+                        "ACI 318-19 22.2.2.4.3");
+                 st.add("c", "a/β1", len(a) + "/" + num(beta1_), len_v(c), len_u(), "ACI 318-19 22.2.2.4.2");
+                 st.add("εt", "0.003 (d − c)/c", "0.003 × (" + len(d) + " − " + len(c) + ")/" + len(c), eps_t,
                         "-", "ACI 318-19 22.2.1.2");
                  st.add("As,max", "0.85 f'c b β1 c_lim/fy, c_lim = 0.003 d/(0.003 + εt,min)",
-                        "f'c = " + num(fc_) + ", b = " + num(b) + ", β1 = " + num(beta1_) + ", d = " + num(d) +
-                            ", fy = " + num(fy_),
-                        out.As_max_mm2, "mm2", "ACI 318-19 7.3.3.1");
+                        "f'c = " + stress(fc_) + ", b = " + len(b) + ", β1 = " + num(beta1_) + ", d = " + len(d) +
+                            ", fy = " + stress(fy_),
+                        area_v(out.As_max_mm2), area_u(), "ACI 318-19 7.3.3.1");
                  if (!As_root)
                    st.add("As,req", "no real root: the section cannot reach Mu with φ = 0.9",
-                          num(g.M_Ed * 1e-6), 0.0, "mm2", "ACI 318-19 22.2.2");
+                          moment(g.M_Ed), 0.0, area_u(), "ACI 318-19 22.2.2");
                  return st.take();
                });
   });
   run_check("min_steel", [&] {
     checks.add("min_steel", g.where, "ACI 318-19 7.6.1.1", out.As_min_mm2, As, "mm2", [&] {
       StepRecorder st;
-      st.add("As,min", "0.0018 Ag", "0.0018 × " + num(b) + " × " + num(h), out.As_min_mm2, "mm2",
+      st.add("As,min", "0.0018 Ag", "0.0018 × " + len(b) + " × " + len(h), area_v(out.As_min_mm2), area_u(),
              "ACI 318-19 7.6.1.1");
       return st.take();
     });
@@ -146,31 +145,38 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
   // and minimum steel (its fallback) are known by now.
   if (checks.verdict_settled()) return out;
   run_check("spacing", [&] {
-    const double s_max = max_flexural_bar_spacing(h);
+    const double s_max = max_bar_spacing(h);
     checks.add("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", [&] {
       StepRecorder st;
-      st.add("s_max", "min(3h, 450)", "min(3 × " + num(h) + ", 450)", s_max, "mm", "ACI 318-19 7.7.2.3");
+      st.add("s_max", us_ ? "min(3h, 18 in)" : "min(3h, 450)",
+             "min(3 × " + len(h) + ", " + (us_ ? "18" : "450") + ")", len_v(s_max), len_u(), "ACI 318-19 7.7.2.3");
       return st.take();
     });
     const double dagg = req_.concrete.aggregate_mm;
-    const double clear_min = minimum_clear_bar_spacing(db, dagg);
+    const double clear_min = min_clear_spacing(db, dagg);
     checks.add("spacing", g.where, "ACI 318-19 25.2.1", clear_min, s - db, "mm", [&] {
       StepRecorder st;
-      st.add("s_clear,min", "max(25 mm, db, 4/3 dagg)",
-             "max(25, " + num(db) + ", 4/3 × " + num(dagg) + ")", clear_min, "mm", "ACI 318-19 25.2.1");
-      st.add("s_clear", "s − db", num(s) + " − " + num(db), s - db, "mm", "ACI 318-19 25.2.1");
+      st.add("s_clear,min", us_ ? "max(1 in, db, 4/3 dagg)" : "max(25 mm, db, 4/3 dagg)",
+             "max(" + std::string(us_ ? "1" : "25") + ", " + len(db) + ", 4/3 × " + len(dagg) + ")",
+             len_v(clear_min), len_u(), "ACI 318-19 25.2.1");
+      st.add("s_clear", "s − db", len(s) + " − " + len(db), len_v(s - db), len_u(), "ACI 318-19 25.2.1");
       return st.take();
     });
   });
   run_check("cracking", [&] {
     const double fs = service_steel_stress(fy_);
-    const double s_crack = crack_control_spacing(fs, cover);
+    const double s_crack = crack_spacing(fs, cover);
     checks.add("cracking", g.where, "ACI 318-19 24.3.2", s, s_crack, "mm", [&] {
       StepRecorder st;
-      st.add("fs", "2/3 fy", "2/3 × " + num(fy_), fs, "MPa", "ACI 318-19 24.3.2.1");
-      st.add("s", "min(380 (280/fs) − 2.5 cc, 300 (280/fs))",
-             "min(380 × 280/" + num(fs) + " − 2.5 × " + num(cover) + ", 300 × 280/" + num(fs) + ")", s_crack,
-             "mm", "ACI 318-19 24.3.2");
+      st.add("fs", "2/3 fy", "2/3 × " + stress(fy_), stress_v(fs), stress_u(), "ACI 318-19 24.3.2.1");
+      if (us_)
+        st.add("s", "min(15 (40 000/fs) − 2.5 cc, 12 (40 000/fs))",
+               "min(15 × 40 000/" + stress(fs) + " − 2.5 × " + len(cover) + ", 12 × 40 000/" + stress(fs) + ")",
+               len_v(s_crack), len_u(), "ACI 318-19 24.3.2");
+      else
+        st.add("s", "min(380 (280/fs) − 2.5 cc, 300 (280/fs))",
+               "min(380 × 280/" + num(fs) + " − 2.5 × " + num(cover) + ", 300 × 280/" + num(fs) + ")", s_crack,
+               "mm", "ACI 318-19 24.3.2");
       return st.take();
     });
   });
@@ -187,18 +193,22 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
     CheckCollector support(so.checks, out.verdict, detail);
     run_check("shear", [&] {
       const double rho_w = As / (b * d);
-      const double ls = size_effect_factor(d);
-      const double Vc = one_way_shear_strength(ls, lambda_normal_weight, rho_w, fc_, b, d);
+      const double ls = shear_size_factor(d);
+      const double Vc = shear_strength(ls, rho_w, b, d);
       so.V_Rd = shear_strength_reduction * Vc;
       support.add("shear", sup.where, "ACI 318-19 22.5.5.1", sup.V_Ed * 1e-3, so.V_Rd * 1e-3, "kN", [&] {
         StepRecorder st;
-        st.add("λs", "√(2/(1 + 0.004 d)) ≤ 1", "d = " + num(d), ls, "-", "ACI 318-19 22.5.5.1.3");
-        st.add("ρw", "As/(b d)", num(As) + "/(" + num(b) + " × " + num(d) + ")", rho_w, "-",
+        st.add("λs", us_ ? "√(2/(1 + d/10)) ≤ 1 (d in in)" : "√(2/(1 + 0.004 d)) ≤ 1",
+               "d = " + len(d) + us_unit(len_u()), ls, "-", "ACI 318-19 22.5.5.1.3");
+        st.add("ρw", "As/(b d)", area(As) + "/(" + len(b) + " × " + len(d) + ")", rho_w, "-",
                "ACI 318-19 22.5.5.1");
-        st.add("Vc", "0.66 λs λ ρw^(1/3) √f'c b d ≤ 0.42 λ √f'c b d",
-               "λs = " + num(ls) + ", √f'c = " + num(std::min(std::sqrt(fc_), 8.3)), Vc * 1e-3, "kN",
-               "ACI 318-19 22.5.5.1");
-        st.add("φVc", "0.75 Vc", "0.75 × " + num(Vc * 1e-3), so.V_Rd * 1e-3, "kN", "ACI 318-19 21.2.1");
+        st.add("Vc",
+               us_ ? "8 λs λ ρw^(1/3) √f'c b d ≤ 5 λ √f'c b d (psi, in, lb)"
+                   : "0.66 λs λ ρw^(1/3) √f'c b d ≤ 0.42 λ √f'c b d",
+               "λs = " + num(ls) + ", √f'c = " + num(root_fc_limited()) +
+                   (us_ ? ", b = " + len(b) + ", d = " + len(d) : std::string()),
+               force_v(Vc), force_u(), "ACI 318-19 22.5.5.1");
+        st.add("φVc", "0.75 Vc", "0.75 × " + force(Vc), force_v(so.V_Rd), force_u(), "ACI 318-19 21.2.1");
         return st.take();
       });
     });
@@ -209,7 +219,7 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
 
 DistributionNeed Checker::distribution(double) const {
   return {shrinkage_temperature_steel(req_.slab.strip_width_mm, req_.slab.thickness_mm),
-          max_shrinkage_bar_spacing(req_.slab.thickness_mm)};
+          max_distribution_spacing(req_.slab.thickness_mm)};
 }
 
 }  // namespace armature::aci318

@@ -68,7 +68,45 @@ def _check_overrides(request, codes, overrides):
             _check_paths(_with_code(request, spec), pairs, f"override for {spec}")
 
 
-def compare(request, codes, overrides=None):
+# Exact unit definitions (1 in = 25.4 mm, 1 ft = 0.3048 m, 1 lbf =
+# 4.4482216152605 N), for a table in US customary units.
+_MM_PER_IN = 25.4
+_MM_PER_FT = 304.8
+_KNM_PER_KIP_FT = 4.4482216152605 * 0.3048
+
+
+def _strip_width_mm(result, request):
+    """The design strip width of a result: as the result states it (a code
+    whose practice strip is not a metre), else as the request gives it,
+    else the contract's 1000 mm."""
+    from ._core import given_strip_width_mm
+
+    if "strip_width_mm" in result:
+        return result["strip_width_mm"]
+    given = given_strip_width_mm(request)
+    return 1000.0 if given is None else given
+
+
+def _us_row(row, strip_width_mm):
+    """A row of the comparison in US customary units, per foot of slab
+    (every moment and area of a result is for its strip width)."""
+    per_ft = _MM_PER_FT / strip_width_mm
+    out = {}
+    for key, value in row.items():
+        if key == "design_moment_kNm":
+            out["design_moment_kip_ft_per_ft"] = value / _KNM_PER_KIP_FT * per_ft
+        elif key == "effective_depth_mm":
+            out["effective_depth_in"] = value / _MM_PER_IN
+        elif key == "spacing_mm":
+            out["spacing_in"] = value / _MM_PER_IN
+        elif key in ("As_req_mm2", "As_min_mm2", "As_prov_mm2"):
+            out[key[:-4] + "_in2_per_ft"] = value / _MM_PER_IN ** 2 * per_ft
+        else:
+            out[key] = value
+    return out
+
+
+def compare(request, codes, overrides=None, units="SI"):
     """Design one request to several codes; one row per code and region.
 
     `codes` are ids with an optional variant: "EN1992-1-1:UK", "ACI318-19".
@@ -81,9 +119,13 @@ def compare(request, codes, overrides=None):
     naming it; so does a field that one code refuses, with the code.
     The DataFrame's ``attrs`` hold the caution and, under "requests", the
     request designed for each code (for `design` and `report`).
+    `units`: "SI" (each row for its strip width, kNm, mm, mm²) or "US"
+    (per foot of slab: kip-ft/ft, in, in²/ft), whichever code designed it.
     """
     from . import design
 
+    if units not in ("SI", "US"):
+        raise InputError(f'units: must be "SI" or "US", got {units!r}')
     overrides = {} if overrides is None else overrides
     codes = list(codes)
     _check_overrides(request, codes, overrides)
@@ -106,7 +148,7 @@ def compare(request, codes, overrides=None):
             headline = [c for c in g["checks"] if c["id"] != "spacing" or not c["pass"]] or g["checks"]
             worst = max(headline, key=lambda c: c["utilisation"])
             span_check = deflection.get(g["where"]) if g["face"] == "bottom" else None
-            rows.append({
+            row = {
                 "code": spec,
                 "variant": res["variant"],
                 "where": g["where"],
@@ -125,8 +167,10 @@ def compare(request, codes, overrides=None):
                 "status": res["status"],
                 "max_utilisation": res["max_utilisation"],
                 "governing": f'{res["governing"]["check"]} at {res["governing"]["where"]}',
-            })
+            }
+            rows.append(_us_row(row, _strip_width_mm(res, req)) if units == "US" else row)
     frame = pd.DataFrame(rows)
     frame.attrs["caution"] = CAUTION
+    frame.attrs["units"] = units
     frame.attrs["requests"] = requests
     return frame

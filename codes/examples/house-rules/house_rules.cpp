@@ -147,6 +147,8 @@ class Code final : public DesignCode {
     return std::make_unique<Checker>(*en_, req);
   }
 
+  PracticeDefaults practice_defaults() const override { return en_->practice_defaults(); }
+
  private:
   std::shared_ptr<const DesignCode> en_;
 };

@@ -5,6 +5,7 @@
 // factor, limit and clause.
 #pragma once
 
+#include <array>
 #include <memory>
 #include <optional>
 #include <string>
@@ -33,6 +34,30 @@ struct LoadBasis {
   // "quasi-permanent" (EN 1990), "sustained" (ACI 318). Empty: the kernel
   // says "long-term".
   std::string long_term_load_name;
+  // The code's names, as the record prints them, of the uniform permanent
+  // and variable loads ("D (self-weight + superimposed dead)") and of each
+  // action kind, indexed by ActionKind ("D (dead)"). Empty: the kernel's
+  // "Gk (self-weight + superimposed)", "Qk (imposed)" and the kind's name.
+  std::string permanent_load_name;
+  std::string variable_load_name;
+  std::array<std::string, 4> action_kind_names{};
+};
+
+// The values the kernel takes for its own fields that a request leaves out
+// (slab.strip_width_mm, reinforcement.spacing_step_mm and .min_spacing_mm,
+// concrete.aggregate_mm, report_units), where a code's practice differs from the contract's
+// defaults: a variant drawn in inches designs a 12 in strip with bars at
+// half-inch steps. Read from the request's JSON only (a C++ Request states
+// every value it uses).
+struct PracticeDefaults {
+  double strip_width_mm = 1000.0;
+  double spacing_step_mm = 25.0;
+  double min_spacing_mm = 75.0;
+  double aggregate_mm = 20.0;
+  ReportUnits report_units = ReportUnits::SI;
+  // The concrete strength taken when the request gives neither a class nor
+  // a cylinder strength (none: the request must give one).
+  std::optional<double> cylinder_strength_MPa;
 };
 
 // Combined loads of one request, per unit area (N/mm²): the actions
@@ -47,6 +72,9 @@ struct LoadTotals {
   double sls_quasi_permanent = 0.0;
   double density_kN_m3 = 0.0;       // of the self-weight, from LoadBasis
   std::string long_term_load_name;  // from LoadBasis
+  std::string permanent_load_name;  // from LoadBasis
+  std::string variable_load_name;   // from LoadBasis
+  std::array<std::string, 4> action_kind_names{};  // from LoadBasis
 };
 
 // How a span is supported, for span/depth rules.
@@ -238,6 +266,8 @@ class DesignCode {
   // request and to this code: the caller keeps both alive while the
   // checker lives.
   virtual std::unique_ptr<SlabChecker> begin(const Request& request) const = 0;
+  // The kernel fields' defaults under this code (see PracticeDefaults).
+  virtual PracticeDefaults practice_defaults() const { return {}; }
 };
 
 // Collects the checks of one arrangement at a detail: always the verdict,

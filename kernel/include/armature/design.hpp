@@ -82,6 +82,10 @@ struct DesignRecord {
   std::vector<std::string> warnings;
   ReportUnits report_units = ReportUnits::SI;  // of the summary, as requested
   double strip_width_mm = 1000.0;
+  // The result states strip_width_mm: the code's practice strip is not
+  // the contract's 1000 mm (a variant drawn in inches), so a reader of
+  // its results must not take them per metre.
+  bool state_strip_width = false;
   bool support_widths_given = false;  // slab.support_widths_mm: hogging at the faces
   double thickness_mm = 0.0;
   std::vector<double> spans_mm;

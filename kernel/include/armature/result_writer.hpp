@@ -92,6 +92,9 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
   w.begin_object();
   w.key("code"), w.value(r.code.id);
   w.key("variant"), w.value(r.code.variant);
+  // Every force, moment and area below is for this width (stated where the
+  // code's practice strip is not the 1000 mm of contract.md).
+  if (r.state_strip_width) w.key("strip_width_mm"), w.value(r.strip_width_mm);
   w.key("armature_version"), w.value(version_string());
   w.key("status"), w.value(r.pass ? "pass" : "fail");
   w.key("max_utilisation"), w.value(r.max_utilisation);

@@ -85,6 +85,43 @@ std::unique_ptr<SlabChecker> begin_checked(const DesignCode& code, const CodeIde
   return checker;
 }
 
+// The code's practice defaults for the kernel's fields the request's JSON
+// leaves out (slab.strip_width_mm, the search grid, the aggregate size,
+// report_units).
+void apply_practice_defaults(const PracticeDefaults& practice, const nlohmann::json& j, Request& req) {
+  if (!request_gives(j, "slab.strip_width_mm")) req.slab.strip_width_mm = practice.strip_width_mm;
+  if (!request_gives(j, "reinforcement.spacing_step_mm"))
+    req.reinforcement.spacing_step_mm = practice.spacing_step_mm;
+  if (!request_gives(j, "reinforcement.min_spacing_mm"))
+    req.reinforcement.min_spacing_mm = practice.min_spacing_mm;
+  if (!request_gives(j, "concrete.aggregate_mm")) req.concrete.aggregate_mm = practice.aggregate_mm;
+  if (!request_gives(j, "report_units")) req.report_units = practice.report_units;
+}
+
+// A code's default concrete strength for a request's JSON that gives none
+// (neither concrete.class nor a cylinder strength): the reader's
+// "required" problems of the concrete are withdrawn.
+void apply_default_strength(const PracticeDefaults& practice, const nlohmann::json& j, Request& req,
+                            InputProblems& problems) {
+  if (!practice.cylinder_strength_MPa || request_gives(j, "concrete.class") ||
+      request_gives(j, "concrete.cylinder_strength_MPa"))
+    return;
+  if (j.is_object() && j.contains("concrete") && !j["concrete"].is_object()) return;  // a wrong type stays an error
+  req.concrete.cylinder_strength_MPa = practice.cylinder_strength_MPa;
+  InputProblems kept;
+  for (const auto& p : problems.items()) {
+    const bool strength_required = (p.field == "concrete" && p.message == "required") ||
+                                   (p.field == "concrete.class" && p.message.rfind("required", 0) == 0);
+    if (!strength_required) kept.add(p.field, p.message);
+  }
+  problems = std::move(kept);
+}
+
+// Whether the result states its strip width (DesignRecord::state_strip_width).
+bool states_strip_width(const PracticeDefaults& practice) {
+  return practice.strip_width_mm != PracticeDefaults{}.strip_width_mm;
+}
+
 }  // namespace
 
 std::vector<const Check*> DesignRecord::all_checks() const {
@@ -115,9 +152,13 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     }
   }
   CodeIdentity id;
+  PracticeDefaults practice;
   if (code) {
     id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                    [&] { return code->identity(); });
+    practice = call_code(id, "practice defaults", [&] { return code->practice_defaults(); });
+    apply_practice_defaults(practice, j, req);
+    apply_default_strength(practice, j, req, problems);
     call_code(id, "input validation", [&] { code->validate(req, problems); });
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
@@ -128,7 +169,9 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  return design_validated(*checker, std::move(id), req, member, detail);
+  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail);
+  rec.state_strip_width = states_strip_width(practice);
+  return rec;
 }
 
 DesignRecord design(const Registry& registry, const Request& req, Detail detail) {
@@ -143,7 +186,10 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  return design_validated(*checker, std::move(id), req, member, detail);
+  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail);
+  rec.state_strip_width =
+      states_strip_width(call_code(rec.code, "practice defaults", [&] { return code->practice_defaults(); }));
+  return rec;
 }
 
 namespace {

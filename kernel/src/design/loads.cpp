@@ -115,6 +115,9 @@ LoadTotals total_loads(const LoadBasis& basis, const std::vector<Action>& action
   if (t.sls_quasi_permanent < 0.0) t.sls_quasi_permanent = t.Gk;
   t.density_kN_m3 = basis.density_kN_m3;
   t.long_term_load_name = basis.long_term_load_name;
+  t.permanent_load_name = basis.permanent_load_name;
+  t.variable_load_name = basis.variable_load_name;
+  t.action_kind_names = basis.action_kind_names;
   return t;
 }
 

@@ -16,6 +16,7 @@
 #include "armature/errors.hpp"
 #include "armature/format.hpp"
 #include "armature/json_io.hpp"
+#include "armature/units.hpp"
 
 namespace armature {
 
@@ -27,6 +28,49 @@ std::string n4(double v, double scale = 1.0) {
   if (std::isinf(v) && v < 0) return "-";
   return plain_number(v, scale);
 }
+
+// The units of the record's own tables and text (report_units); the
+// derivation steps are printed as the code wrote them, in the units of
+// its edition.
+struct RecordUnits {
+  bool us = false;
+  std::string load(double MPa) const { return us ? n4(MPa * 1e3 / kPa_per_psf) + " psf" : n4(MPa * 1e3) + " kPa"; }
+  double load_v(double MPa) const { return us ? MPa * 1e3 / kPa_per_psf : MPa * 1e3; }
+  const char* load_u() const { return us ? "psf" : "kPa"; }
+  std::string along(double mm) const { return us ? n4(mm * 1e-3 / m_per_ft) + " ft" : n4(mm / 1e3) + " m"; }
+  double along_v(double mm) const { return us ? mm * 1e-3 / m_per_ft : mm / 1e3; }
+  const char* along_u() const { return us ? "ft" : "m"; }
+  std::string length(double mm) const { return n4(length_v(mm)) + " " + length_u(); }
+  double length_v(double mm) const { return us ? mm / mm_per_in : mm; }
+  const char* length_u() const { return us ? "in" : "mm"; }
+  std::string area(double mm2) const { return n4(area_v(mm2)) + " " + area_u(); }
+  double area_v(double mm2) const { return us ? mm2 / (mm_per_in * mm_per_in) : mm2; }
+  const char* area_u() const { return us ? "in2" : "mm2"; }
+  double moment_v(double Nmm) const { return us ? Nmm * 1e-6 / kNm_per_kipft : Nmm * 1e-6; }
+  const char* moment_u() const { return us ? "kip-ft" : "kNm"; }
+  std::string moment(double Nmm) const { return n4(moment_v(Nmm)) + " " + moment_u(); }
+  double force_v(double N) const { return us ? N * 1e-3 / kN_per_kip : N * 1e-3; }
+  const char* force_u() const { return us ? "kip" : "kN"; }
+  std::string force(double N) const { return n4(force_v(N)) + " " + force_u(); }
+  std::string line(double N_per_mm) const {
+    return us ? n4(N_per_mm / kN_per_kip * m_per_ft) + " kip/ft" : n4(N_per_mm) + " kN/m";
+  }
+  std::string density(double kN_m3) const {
+    return us ? n4(kN_m3 * 1e3 / N_per_lbf * m_per_ft * m_per_ft * m_per_ft) + " pcf" : n4(kN_m3) + " kN/m³";
+  }
+  // A check's value in its kernel report unit (kNm, kN, mm, mm2), converted.
+  std::pair<double, std::string> check_value(double v, const std::string& unit) const {
+    if (!us) return {v, unit};
+    if (unit == "kNm") return {v / kNm_per_kipft, "kip-ft"};
+    if (unit == "kN") return {v / kN_per_kip, "kip"};
+    if (unit == "mm") return {v / mm_per_in, "in"};
+    if (unit == "mm2") return {v / (mm_per_in * mm_per_in), "in2"};
+    return {v, unit};
+  }
+  std::string bars(const BarChoice& b) const { return bar_arrangement(b.bar, length_v(b.spacing_mm), length_u()); }
+};
+
+RecordUnits units_of(const DesignRecord& r) { return RecordUnits{r.report_units == ReportUnits::US}; }
 
 std::string esc(const std::string& s) {
   std::string o;
@@ -98,12 +142,17 @@ double shorthand_dead_MPa(const DesignRecord& r) {
 // kernel's own (variant, strip width, superimposed dead load,
 // redistribution), then the code's (defaults_used), each field once.
 std::vector<InputDefault> defaults_left_out(const DesignRecord& r, const json& request) {
+  const RecordUnits u = units_of(r);
   std::vector<InputDefault> all{
       {"variant", r.code.variant, "the code's default variant"},
-      {"slab.strip_width_mm", n4(r.strip_width_mm) + " mm", "armature default"},
-      {"loads.dead_kPa", n4(shorthand_dead_MPa(r) * 1e3) + " kPa",
-       "armature default (no superimposed dead load)"},
+      {"slab.strip_width_mm", u.length(r.strip_width_mm), "armature default"},
+      {"loads.dead_kPa", u.load(shorthand_dead_MPa(r)), "armature default (no superimposed dead load)"},
       {"design.redistribution_percent", n4(r.redistribution_percent) + " %", "armature default"}};
+  // A code's own value for a kernel field (its practice) takes the
+  // kernel's place.
+  for (auto& d : all)
+    for (const auto& c : r.defaults_used)
+      if (c.field == d.field) d = c;
   all.insert(all.end(), r.defaults_used.begin(), r.defaults_used.end());
   std::vector<InputDefault> out;
   for (auto& d : all) {
@@ -115,9 +164,11 @@ std::vector<InputDefault> defaults_left_out(const DesignRecord& r, const json& r
 }
 
 // A check's demand or capacity: noise beside the larger of the two is 0.
-std::string check_number(const Check& c, double v) {
-  return n4(v, std::max(std::abs(c.demand), std::abs(c.capacity)));
+std::string check_number(const RecordUnits& u, const Check& c, double v) {
+  const double demand = u.check_value(c.demand, c.unit).first, capacity = u.check_value(c.capacity, c.unit).first;
+  return n4(u.check_value(v, c.unit).first, std::max(std::abs(demand), std::abs(capacity)));
 }
+std::string check_unit(const RecordUnits& u, const Check& c) { return u.check_value(0.0, c.unit).second; }
 
 const char* outcome(const Check& c) { return c.pass ? "satisfied" : "NOT SATISFIED"; }
 
@@ -202,8 +253,11 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
                   n4(f.height) + "\" viewBox=\"0 0 " + n4(f.width) + " " + n4(f.height) +
                   "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" aria-label=\"" +
                   (moment ? "bending moment envelope" : "shear force envelope") + "\">";
-  o += "<text x=\"4\" y=\"12\">" + std::string(moment ? "Bending moment envelope, kNm (sagging below the axis)"
-                                                      : "Shear force envelope, kN") + "</text>";
+  const RecordUnits u = units_of(r);
+  o += "<text x=\"4\" y=\"12\">" +
+       (moment ? "Bending moment envelope, " + std::string(u.moment_u()) + " (sagging below the axis)"
+               : "Shear force envelope, " + std::string(u.force_u())) +
+       "</text>";
   o += "<line x1=\"" + n4(f.sx(0)) + "\" y1=\"" + n4(f.sy(0, down)) + "\" x2=\"" + n4(f.sx(f.length)) +
        "\" y2=\"" + n4(f.sy(0, down)) + "\" stroke=\"#000\" stroke-width=\"1.2\"/>";
   o += supports_svg(r, f);
@@ -222,7 +276,7 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
       const double px = f.sx(g.x_mm), py = f.sy(v, down);
       o += "<circle cx=\"" + n4(px) + "\" cy=\"" + n4(py) + "\" r=\"2.5\" fill=\"#000\"/>";
       o += "<text x=\"" + n4(px + 3) + "\" y=\"" + n4(g.face == Face::bottom ? py + 12 : py - 5) +
-           "\">" + esc(n4(g.M_Ed * 1e-6)) + "</text>";
+           "\">" + esc(n4(u.moment_v(g.M_Ed))) + "</text>";
     }
   } else {
     for (const auto& s : r.supports) {
@@ -231,7 +285,7 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
       for (std::size_t k = 0; k < j && k < r.spans_mm.size(); ++k) x += r.spans_mm[k];
       const double px = f.sx(x), py = f.sy(s.V_Ed, down);
       o += "<circle cx=\"" + n4(px) + "\" cy=\"" + n4(py) + "\" r=\"2.5\" fill=\"#000\"/>";
-      o += "<text x=\"" + n4(px + 3) + "\" y=\"" + n4(py - 4) + "\">" + esc(n4(s.V_Ed * 1e-3)) + "</text>";
+      o += "<text x=\"" + n4(px + 3) + "\" y=\"" + n4(py - 4) + "\">" + esc(n4(u.force_v(s.V_Ed))) + "</text>";
     }
   }
   o += "<text x=\"4\" y=\"" + n4(f.height - 4) + "\">solid: largest, dashed: smallest of " +
@@ -261,17 +315,18 @@ std::string section_svg(const DesignRecord& r, const RegionRecord& g) {
   const double tension_face = g.face == Face::bottom ? oy + H : oy;
   o += "<line x1=\"" + n4(xd) + "\" y1=\"" + n4(face_y) + "\" x2=\"" + n4(xd) + "\" y2=\"" + n4(bar_y) +
        "\" stroke=\"#000\"/>";
-  o += "<text x=\"" + n4(xd + 4) + "\" y=\"" + n4((face_y + bar_y) / 2 + 3) + "\">d = " + n4(g.d_mm) +
-       " mm</text>";
+  const RecordUnits u = units_of(r);
+  o += "<text x=\"" + n4(xd + 4) + "\" y=\"" + n4((face_y + bar_y) / 2 + 3) + "\">d = " + u.length(g.d_mm) +
+       "</text>";
   const double bar_face = oy + (g.face == Face::bottom ? h - c : c) * scale;
   o += "<line x1=\"" + n4(xd + 60) + "\" y1=\"" + n4(tension_face) + "\" x2=\"" + n4(xd + 60) +
        "\" y2=\"" + n4(bar_face) + "\" stroke=\"#000\" stroke-width=\"2\"/>";
   o += "<text x=\"" + n4(xd + 66) + "\" y=\"" + n4((tension_face + bar_face) / 2 + 3) + "\">cover " +
-       n4(c) + " mm</text>";
-  o += "<text x=\"" + n4(ox) + "\" y=\"14\">b = " + n4(b) + " mm, h = " + n4(h) + " mm, bars " +
-       esc(bar_arrangement(g.bars.bar, g.bars.spacing_mm)) + " (" +
+       u.length(c) + "</text>";
+  o += "<text x=\"" + n4(ox) + "\" y=\"14\">b = " + u.length(b) + ", h = " + u.length(h) + ", bars " +
+       esc(u.bars(g.bars)) + " (" +
        (g.face == Face::bottom ? "bottom" : "top") + "), to scale</text>";
-  o += "<text x=\"4\" y=\"" + n4(oy + H / 2 + 3) + "\">h = " + n4(h) + "</text>";
+  o += "<text x=\"4\" y=\"" + n4(oy + H / 2 + 3) + "\">h = " + n4(u.length_v(h)) + "</text>";
   return o + "</svg>";
 }
 
@@ -287,12 +342,14 @@ Title title_of(const DesignRecord& r, const json& request, const std::string& da
   };
   add("Project", r.project.name);
   add("Reference", r.project.reference);
+  const RecordUnits u = units_of(r);
   std::string strip = std::to_string(r.spans_mm.size()) + (r.spans_mm.size() == 1 ? " span" : " spans") + ": ";
-  for (std::size_t i = 0; i < r.spans_mm.size(); ++i) strip += (i ? ", " : "") + n4(r.spans_mm[i] / 1000) + " m";
+  for (std::size_t i = 0; i < r.spans_mm.size(); ++i) strip += (i ? ", " : "") + u.along(r.spans_mm[i]);
   strip += "; ends " + std::string(to_string(r.ends[0])) + " / " + to_string(r.ends[1]) + "; h = " +
-           n4(r.thickness_mm) + " mm; strip width " + n4(r.strip_width_mm) + " mm";
+           u.length(r.thickness_mm) + "; strip width " + u.length(r.strip_width_mm);
   add("Slab strip", strip);
   add("Design code", r.code.id + " (" + r.code.variant + "): " + r.code.title);
+  if (u.us) add("Units", "US customary (the JSON result stays SI); derivations in the units of the code's edition");
   add("armature version", version_string());
   add("Date", date);
   add("Request fingerprint", request_fingerprint(request) + " (FNV-1a 64 of the request JSON)");
@@ -305,26 +362,30 @@ Title title_of(const DesignRecord& r, const json& request, const std::string& da
 }
 
 // "imposed, category C, 4 kPa over the whole strip"
-std::string action_text(const Action& a) {
-  std::string t = to_string(a.kind);
-  if (!a.category.empty()) t += ", category " + a.category;
+std::string action_text(const DesignRecord& r, const Action& a) {
+  const RecordUnits u = units_of(r);
+  const std::string& kind_name = r.loads.action_kind_names[static_cast<std::size_t>(a.kind)];
+  std::string t = kind_name.empty() ? std::string(to_string(a.kind)) : kind_name;
+  // The category of EN 1991 (loads.imposed_category, an action's
+  // category) only where the code does not name the kinds itself.
+  if (!a.category.empty() && kind_name.empty()) t += ", category " + a.category;
   t += ", ";
   const std::string span = a.span ? "span " + std::to_string(*a.span + 1) : std::string();
   switch (a.distribution) {
     case Distribution::uniform:
-      t += n4(a.value * 1e3) + " kPa";
+      t += u.load(a.value);
       if (!a.span) t += " over the whole strip";
       else if (!a.from_mm && !a.to_mm) t += " over " + span;
       else
-        t += " on " + span + " from " + n4(a.from_mm.value_or(0.0) / 1e3) + " m" +
-             (a.to_mm ? " to " + n4(*a.to_mm / 1e3) + " m" : std::string(" to its end"));
+        t += " on " + span + " from " + u.along(a.from_mm.value_or(0.0)) +
+             (a.to_mm ? " to " + u.along(*a.to_mm) : std::string(" to its end"));
       break;
     case Distribution::line:
-      t += n4(a.value) + " kN/m across the strip, " + span + " at " + n4(a.at_mm / 1e3) + " m";
+      t += u.line(a.value) + " across the strip, " + span + " at " + u.along(a.at_mm);
       break;
     case Distribution::point:
-      t += n4(a.value * 1e-3) + " kN, " + span + " at " + n4(a.at_mm / 1e3) + " m, spread over " +
-           n4(a.effective_width_mm / 1e3) + " m (the strip takes P b/beff)";
+      t += u.force(a.value) + ", " + span + " at " + u.along(a.at_mm) + ", spread over " +
+           u.along(a.effective_width_mm) + " (the strip takes P b/beff)";
       break;
   }
   return t;
@@ -345,22 +406,23 @@ std::string combination_text(const DesignRecord& r, const Combination& c) {
            n4(f.unloaded) + (c.limit_state == LimitState::equilibrium ? " (back span)" : " (unloaded spans)");
     if (a.distribution == Distribution::uniform && !a.span) uniform += f.loaded * a.value;
   }
-  return t + "; uniform over the whole strip " + n4(uniform * 1e3) + " kPa";
+  return t + "; uniform over the whole strip " + units_of(r).load(uniform);
 }
 
 std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord& r) {
   std::vector<std::pair<std::string, std::string>> rows;
-  const double h_m = r.thickness_mm / 1000;
-  rows.push_back({"Self-weight", "density × h = " + n4(r.loads.density_kN_m3) + " kN/m³ × " + n4(h_m) +
-                                     " m = " + n4(r.loads.self_weight * 1e3) + " kPa"});
-  rows.push_back({"Gk (self-weight + superimposed)",
-                  n4(r.loads.self_weight * 1e3) + " + " +
-                      n4((r.loads.Gk - r.loads.self_weight) * 1e3, r.loads.Gk * 1e3) + " = " +
-                      n4(r.loads.Gk * 1e3) + " kPa"});
-  rows.push_back({"Qk (imposed)", n4(r.loads.Qk * 1e3) + " kPa"});
+  const RecordUnits u = units_of(r);
+  rows.push_back({"Self-weight", "density × h = " + u.density(r.loads.density_kN_m3) + " × " +
+                                     (u.us ? u.along(r.thickness_mm) : n4(r.thickness_mm / 1000) + " m") + " = " +
+                                     u.load(r.loads.self_weight)});
+  rows.push_back({r.loads.permanent_load_name.empty() ? "Gk (self-weight + superimposed)" : r.loads.permanent_load_name,
+                  n4(u.load_v(r.loads.self_weight)) + " + " +
+                      n4(u.load_v(r.loads.Gk - r.loads.self_weight), u.load_v(r.loads.Gk)) + " = " +
+                      u.load(r.loads.Gk)});
+  rows.push_back({r.loads.variable_load_name.empty() ? "Qk (imposed)" : r.loads.variable_load_name, u.load(r.loads.Qk)});
   for (const auto& a : r.actions) {
     if (a.source == ActionSource::self_weight) continue;
-    rows.push_back({"Action: " + a.name, action_text(a)});
+    rows.push_back({"Action: " + a.name, action_text(r, a)});
   }
   for (const auto& c : r.combinations) {
     // The code's label names the combination ("6.10: ...", "characteristic:
@@ -371,8 +433,8 @@ std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord&
                                                                      : "SLS ";
     rows.push_back({prefix + c.label, combination_text(r, c)});
   }
-  rows.push_back({"Governing ULS load", n4(r.loads.uls * 1e3) + " kPa [" + r.loads.combination + "]"});
-  rows.push_back({long_term_load_label(r.loads), n4(r.loads.sls_quasi_permanent * 1e3) + " kPa"});
+  rows.push_back({"Governing ULS load", u.load(r.loads.uls) + " [" + r.loads.combination + "]"});
+  rows.push_back({long_term_load_label(r.loads), u.load(r.loads.sls_quasi_permanent)});
   rows.push_back({"Load arrangements", std::to_string(r.load_arrangements) +
                                            " per ULS combination (code's pattern rules); " +
                                            std::to_string(r.load_cases) + " distinct load cases"});
@@ -390,14 +452,14 @@ std::string bars_source(const DesignRecord& r, const RegionRecord& g) {
 }
 
 std::vector<std::pair<std::string, std::string>> region_rows(const DesignRecord& r, const RegionRecord& g) {
-  return {{"Design moment M_Ed", n4(g.M_Ed * 1e-6) + " kNm at x = " + n4(g.x_mm / 1000) + " m"},
-          {"Cover", n4(g.cover_mm) + " mm"},
-          {"Effective depth d", n4(g.d_mm) + " mm"},
-          {"As,req", n4(g.As_req_mm2) + " mm2"},
-          {"As,min", n4(g.As_min_mm2) + " mm2"},
-          {"As,max", n4(g.As_max_mm2) + " mm2"},
-          {"Bars", bar_arrangement(g.bars.bar, g.bars.spacing_mm) + ", As,prov = " + n4(g.bars.As_prov_mm2) +
-                       " mm2" + bars_source(r, g)}};
+  const RecordUnits u = units_of(r);
+  return {{"Design moment M_Ed", u.moment(g.M_Ed) + " at x = " + u.along(g.x_mm)},
+          {"Cover", u.length(g.cover_mm)},
+          {"Effective depth d", u.length(g.d_mm)},
+          {"As,req", u.area(g.As_req_mm2)},
+          {"As,min", u.area(g.As_min_mm2)},
+          {"As,max", u.area(g.As_max_mm2)},
+          {"Bars", u.bars(g.bars) + ", As,prov = " + u.area(g.bars.As_prov_mm2) + bars_source(r, g)}};
 }
 
 const char* css =
@@ -416,6 +478,7 @@ const char* css =
     "@page{margin:12mm}@media print{body{margin:0 auto}h2,h3,h4{break-after:avoid}.check{break-inside:avoid}}";
 
 std::string html_record(const DesignRecord& r, const json& request, const std::string& date) {
+  const RecordUnits u = units_of(r);
   std::string o = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>";
   o += esc("Calculation record: " + (r.project.reference.empty() ? r.code.id : r.project.reference)) +
        "</title>\n<style>" + css + "</style>\n</head>\n<body>\n";
@@ -443,7 +506,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   o += "</table>\n";
 
   o += "<h2>3 Analysis</h2>\n<p>Elastic continuous beam, uniform stiffness, knife-edge supports; moments and "
-       "shears at support centrelines, for the strip width of " + n4(r.strip_width_mm) + " mm" +
+       "shears at support centrelines, for the strip width of " + u.length(r.strip_width_mm) +
        (r.support_widths_given ? "; hogging design moments at the faces of supports given a width (see each "
                                  "support's bending check)"
                                : "") +
@@ -469,25 +532,23 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
              esc(n4(s.result) + unit_text(s.unit)) + "</td><td class=\"clause\">" + esc(s.clause) +
              "</td></tr>\n";
       }
-      o += "</table>\n<p class=\"verdict\">demand " + esc(check_number(*c, c->demand) + unit_text(c->unit)) +
-           " against capacity " + esc(check_number(*c, c->capacity) + unit_text(c->unit)) + ": utilisation " +
+      o += "</table>\n<p class=\"verdict\">demand " + esc(check_number(u, *c, c->demand) + unit_text(check_unit(u, *c))) +
+           " against capacity " + esc(check_number(u, *c, c->capacity) + unit_text(check_unit(u, *c))) + ": utilisation " +
            esc(n4(c->utilisation)) + ", <span" + (c->pass ? "" : " class=\"no\"") + ">" + outcome(*c) +
            "</span></p>\n</div>\n";
     }
   }
-  o += "<h3>Distribution bars</h3>\n<p>" +
-       esc(bar_arrangement(r.distribution.bars.bar, r.distribution.bars.spacing_mm)) + ": As,prov " +
-       n4(r.distribution.bars.As_prov_mm2) +
-       " mm2 against As,req " + n4(r.distribution.As_req_mm2) + " mm2.</p>\n";
+  o += "<h3>Distribution bars</h3>\n<p>" + esc(u.bars(r.distribution.bars)) + ": As,prov " +
+       u.area(r.distribution.bars.As_prov_mm2) + " against As,req " + u.area(r.distribution.As_req_mm2) + ".</p>\n";
 
   o += "<h2>5 Summary of checks</h2>\n<table>\n<tr><th>check</th><th>where</th><th>clause</th>"
        "<th class=\"num\">demand</th><th class=\"num\">capacity</th><th>unit</th><th class=\"num\">"
        "utilisation</th><th>outcome</th></tr>\n";
   for (const Check* c : r.all_checks())
     o += "<tr><td>" + esc(c->id) + "</td><td>" + esc(c->where) + "</td><td>" + esc(c->clause) +
-         "</td><td class=\"num\">" + esc(check_number(*c, c->demand)) + "</td><td class=\"num\">" +
-         esc(check_number(*c, c->capacity)) +
-         "</td><td>" + esc(c->unit) + "</td><td class=\"num\">" + esc(n4(c->utilisation)) + "</td><td" +
+         "</td><td class=\"num\">" + esc(check_number(u, *c, c->demand)) + "</td><td class=\"num\">" +
+         esc(check_number(u, *c, c->capacity)) +
+         "</td><td>" + esc(check_unit(u, *c)) + "</td><td class=\"num\">" + esc(n4(c->utilisation)) + "</td><td" +
          (c->pass ? "" : " class=\"no\"") + ">" + (c->pass ? "ok" : "fails") + "</td></tr>\n";
   o += "</table>\n";
 
@@ -503,6 +564,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
 }
 
 std::string markdown_record(const DesignRecord& r, const json& request, const std::string& date) {
+  const RecordUnits u = units_of(r);
   std::string o = "# Calculation record: one-way slab strip\n\n";
   for (const auto& [k, v] : title_of(r, request, date).rows) o += "- **" + k + ":** " + v + "\n";
   o += "\n> **Caution.** " + std::string(caution_text) + "\n\n## 1 Inputs\n\n| field | value |\n|---|---|\n";
@@ -518,8 +580,8 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
   }
   o += "\n## 2 Actions and combinations\n\n| item | value |\n|---|---|\n";
   for (const auto& [k, v] : action_rows(r)) o += "| " + md(k) + " | " + md(v) + " |\n";
-  o += "\n## 3 Analysis\n\nEnvelopes of the strip (kNm, kN), sampled along each span:\n\n"
-       "| x m | M max | M min | V max | V min |\n|---:|---:|---:|---:|---:|\n";
+  o += "\n## 3 Analysis\n\nEnvelopes of the strip (" + std::string(u.moment_u()) + ", " + u.force_u() +
+       "), sampled along each span:\n\n| x " + u.along_u() + " | M max | M min | V max | V min |\n|---:|---:|---:|---:|---:|\n";
   // Noise beside the envelope's largest value prints as 0.
   double M_scale = 0, V_scale = 0;
   for (const auto& span : r.diagrams)
@@ -527,38 +589,38 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
       M_scale = std::max({M_scale, std::abs(p.M_max), std::abs(p.M_min)});
       V_scale = std::max({V_scale, std::abs(p.V_max), std::abs(p.V_min)});
     }
-  M_scale *= 1e-6;
-  V_scale *= 1e-3;
+  M_scale = u.moment_v(M_scale);
+  V_scale = u.force_v(V_scale);
   for (const auto& span : r.diagrams)
     for (const auto& p : span)
-      o += "| " + n4(p.x_mm / 1000) + " | " + n4(p.M_max * 1e-6, M_scale) + " | " + n4(p.M_min * 1e-6, M_scale) +
-           " | " + n4(p.V_max * 1e-3, V_scale) + " | " + n4(p.V_min * 1e-3, V_scale) + " |\n";
+      o += "| " + n4(u.along_v(p.x_mm)) + " | " + n4(u.moment_v(p.M_max), M_scale) + " | " +
+           n4(u.moment_v(p.M_min), M_scale) + " | " + n4(u.force_v(p.V_max), V_scale) + " | " +
+           n4(u.force_v(p.V_min), V_scale) + " |\n";
   o += "\n## 4 Design of regions, supports and spans\n";
   for (const auto& part : parts_of(r)) {
     o += "\n### " + part.title + "\n\n";
     if (part.region) {
       for (const auto& [k, v] : region_rows(r, *part.region)) o += "- " + k + ": " + v + "\n";
-      o += "- Section: h = " + n4(r.thickness_mm) + " mm, " +
+      o += "- Section: h = " + u.length(r.thickness_mm) + ", " +
            (part.region->face == Face::bottom ? "bottom" : "top") + " bars at d = " +
-           n4(part.region->d_mm) + " mm from the compression face\n";
+           u.length(part.region->d_mm) + " from the compression face\n";
     }
     for (const Check* c : part.checks) {
       o += "\n**" + c->id + " at " + c->where + "** (" + c->clause + ")\n\n";
       for (const auto& s : c->steps)
         o += "- " + step_line(s) + (s.clause.empty() ? "" : " (" + s.clause + ")") + "\n";
-      o += "- demand " + check_number(*c, c->demand) + unit_text(c->unit) + " against capacity " +
-           check_number(*c, c->capacity) +
-           unit_text(c->unit) + ": utilisation " + n4(c->utilisation) + ", " + outcome(*c) + "\n";
+      o += "- demand " + check_number(u, *c, c->demand) + unit_text(check_unit(u, *c)) + " against capacity " +
+           check_number(u, *c, c->capacity) +
+           unit_text(check_unit(u, *c)) + ": utilisation " + n4(c->utilisation) + ", " + outcome(*c) + "\n";
     }
   }
-  o += "\n### Distribution bars\n\n" + bar_arrangement(r.distribution.bars.bar, r.distribution.bars.spacing_mm) +
-       ": As,prov " + n4(r.distribution.bars.As_prov_mm2) + " mm2 against As,req " +
-       n4(r.distribution.As_req_mm2) + " mm2.\n";
+  o += "\n### Distribution bars\n\n" + u.bars(r.distribution.bars) + ": As,prov " +
+       u.area(r.distribution.bars.As_prov_mm2) + " against As,req " + u.area(r.distribution.As_req_mm2) + ".\n";
   o += "\n## 5 Summary of checks\n\n| check | where | clause | demand | capacity | unit | utilisation | outcome |\n"
        "|---|---|---|---:|---:|---|---:|---|\n";
   for (const Check* c : r.all_checks())
-    o += "| " + c->id + " | " + c->where + " | " + md(c->clause) + " | " + check_number(*c, c->demand) +
-         " | " + check_number(*c, c->capacity) + " | " + c->unit + " | " + n4(c->utilisation) + " | " + (c->pass ? "ok" : "fails") + " |\n";
+    o += "| " + c->id + " | " + c->where + " | " + md(c->clause) + " | " + check_number(u, *c, c->demand) +
+         " | " + check_number(u, *c, c->capacity) + " | " + check_unit(u, *c) + " | " + n4(c->utilisation) + " | " + (c->pass ? "ok" : "fails") + " |\n";
   o += "\n## 6 Warnings\n\n";
   if (r.warnings.empty()) o += "None.\n";
   for (const auto& w : r.warnings) o += "- " + w + "\n";

@@ -29,28 +29,32 @@ std::string rpad(const std::string& s, std::size_t width) {
 }
 std::string util(double u) { return std::isfinite(u) ? fmt("%.2f", u) : std::string("inf"); }
 
-// Units of the summary: SI as the kernel's report units, or US customary.
+// Units of the summary: SI as the kernel's report units (for the strip
+// width), or US customary per foot of slab (the strip's moments, shears
+// and areas times 12 in/b).
 struct Show {
   bool us;
+  double per_ft = 1.0;  // 12 in / strip width (US)
   const char* load_unit() const { return us ? "psf" : "kPa"; }
-  const char* moment_unit() const { return us ? "kip-ft" : "kNm"; }
+  const char* moment_unit() const { return us ? "kip-ft/ft" : "kNm"; }
   const char* length_unit() const { return us ? "in" : "mm"; }
-  const char* area_unit() const { return us ? "in2" : "mm2"; }
-  const char* force_unit() const { return us ? "kip" : "kN"; }
+  const char* area_unit() const { return us ? "in2/ft" : "mm2"; }
+  const char* force_unit() const { return us ? "kip/ft" : "kN"; }
   double load(double MPa) const { return us ? MPa * 1e3 / kPa_per_psf : MPa * 1e3; }
-  double moment(double Nmm) const { return us ? Nmm * 1e-6 / kNm_per_kipft : Nmm * 1e-6; }
+  double moment(double Nmm) const { return us ? Nmm * 1e-6 / kNm_per_kipft * per_ft : Nmm * 1e-6; }
   double length(double mm) const { return us ? mm / mm_per_in : mm; }
-  double area(double mm2) const { return us ? mm2 / (mm_per_in * mm_per_in) : mm2; }
-  double force(double N) const { return us ? N * 1e-3 / kN_per_kip : N * 1e-3; }
+  double area(double mm2) const { return us ? mm2 / (mm_per_in * mm_per_in) * per_ft : mm2; }
+  double force(double N) const { return us ? N * 1e-3 / kN_per_kip * per_ft : N * 1e-3; }
   const char* length_format() const { return us ? "%.2f" : "%.1f"; }
   const char* area_format() const { return us ? "%.3f" : "%.1f"; }
-  // A check value in its report unit, converted.
+  // A check value in its report unit, converted (per foot where it is for
+  // the strip width).
   std::pair<double, std::string> check_value(double v, const std::string& unit) const {
     if (!us) return {v, unit};
-    if (unit == "kNm") return {v / kNm_per_kipft, "kip-ft"};
-    if (unit == "kN") return {v / kN_per_kip, "kip"};
+    if (unit == "kNm") return {v / kNm_per_kipft * per_ft, "kip-ft/ft"};
+    if (unit == "kN") return {v / kN_per_kip * per_ft, "kip/ft"};
     if (unit == "mm") return {v / mm_per_in, "in"};
-    if (unit == "mm2") return {v / (mm_per_in * mm_per_in), "in2"};
+    if (unit == "mm2") return {v / (mm_per_in * mm_per_in) * per_ft, "in2/ft"};
     return {v, unit};
   }
   // As the calculation record writes them: "ø12 @ 175 mm", "#4 @ 300 mm".
@@ -61,7 +65,8 @@ struct Show {
 }  // namespace
 
 std::string format_summary(const DesignRecord& r) {
-  const Show u{r.report_units == ReportUnits::US};
+  const bool us = r.report_units == ReportUnits::US;
+  const Show u{us, us ? m_per_ft * 1000.0 / r.strip_width_mm : 1.0};
   const std::string L = u.length_unit(), A = u.area_unit();
   std::string o;
   o += "armature " + std::string(version_string()) + " | " + r.code.id + " (" + r.code.variant +
@@ -104,18 +109,18 @@ std::string format_summary(const DesignRecord& r) {
   o += "Distribution bars " + u.bars(r.distribution.bars) + " (As,req " +
        fmt(u.area_format(), u.area(r.distribution.As_req_mm2)) + ", As,prov " +
        fmt(u.area_format(), u.area(r.distribution.bars.As_prov_mm2)) + " " + A + ")\n";
-  if (u.us) o += "Quantities are for the design strip width of " +
-                 fmt("%.1f", u.length(r.strip_width_mm)) + " in.\n";
+  if (u.us) o += "Quantities are per foot of slab (design strip " + fmt("%.1f", u.length(r.strip_width_mm)) +
+                 " in wide).\n";
   o += "\n";
 
   o += pad("Check", 12) + pad("where", 11) + rpad("demand", 10) + rpad("capacity", 10) + "  " +
-       pad("unit", 7) + rpad("util", 6) + "  " + pad("", 5) + "clause\n";
+       pad("unit", u.us ? 10 : 7) + rpad("util", 6) + "  " + pad("", 5) + "clause\n";
   for (const Check* c : r.all_checks()) {
     const auto [demand, unit] = u.check_value(c->demand, c->unit);
     const double capacity = u.check_value(c->capacity, c->unit).first;
     const double scale = std::max(std::abs(demand), std::abs(capacity));  // noise beside it is 0
     o += pad(c->id, 12) + pad(c->where, 11) + rpad(plain_number(demand, scale), 10) +
-         rpad(plain_number(capacity, scale), 10) + "  " + pad(unit, 7) + rpad(util(c->utilisation), 6) +
+         rpad(plain_number(capacity, scale), 10) + "  " + pad(unit, u.us ? 10 : 7) + rpad(util(c->utilisation), 6) +
          "  " + pad(c->pass ? "ok" : "FAIL", 5) + c->clause + "\n";
   }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " +

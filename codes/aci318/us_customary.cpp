@@ -1,0 +1,66 @@
+#include "us_customary.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+namespace armature::aci318::inch_pound {
+
+const std::vector<Bar>& bar_catalogue() {
+  static const std::vector<Bar> bars{{"#3", 0.375, 0.11}, {"#4", 0.500, 0.20}, {"#5", 0.625, 0.31},
+                                     {"#6", 0.750, 0.44}, {"#7", 0.875, 0.60}, {"#8", 1.000, 0.79},
+                                     {"#9", 1.128, 1.00}, {"#10", 1.270, 1.27}, {"#11", 1.410, 1.56}};
+  return bars;
+}
+
+std::optional<Bar> find_bar(const std::string& number) {
+  for (const auto& b : bar_catalogue())
+    if (number == b.number) return b;
+  return std::nullopt;
+}
+
+double stress_block_factor_beta1(double fc) {
+  if (fc <= 4000.0) return 0.85;
+  if (fc >= 8000.0) return 0.65;
+  return 0.85 - 0.05 * (fc - 4000.0) / 1000.0;
+}
+
+double yield_strain(double fy) { return fy / steel_modulus_psi; }
+
+double max_flexural_bar_spacing(double h) { return std::min(3.0 * h, 18.0); }
+
+double minimum_clear_bar_spacing(double db, double aggregate) {
+  return std::max({1.0, db, 4.0 / 3.0 * aggregate});
+}
+
+double crack_control_spacing(double fs, double clear_cover) {
+  return std::min(15.0 * (40000.0 / fs) - 2.5 * clear_cover, 12.0 * (40000.0 / fs));
+}
+
+double max_shrinkage_bar_spacing(double h) { return std::min(5.0 * h, 18.0); }
+
+double size_effect_factor(double d) { return std::min(std::sqrt(2.0 / (1.0 + d / 10.0)), 1.0); }
+
+double one_way_shear_strength(double lambda_s, double lambda, double rho_w, double fc, double b, double d) {
+  const double root_fc = std::min(std::sqrt(fc), 100.0);
+  const double vc = 8.0 * lambda_s * lambda * std::cbrt(rho_w) * root_fc;
+  return std::min(vc, 5.0 * lambda * root_fc) * b * d;
+}
+
+double minimum_slab_thickness(double span, SupportCondition condition, double fy) {
+  double divisor = 20.0;
+  switch (condition) {
+    case SupportCondition::simply_supported: divisor = 20.0; break;
+    case SupportCondition::one_end_continuous: divisor = 24.0; break;
+    case SupportCondition::both_ends_continuous: divisor = 28.0; break;
+    case SupportCondition::cantilever: divisor = 10.0; break;
+  }
+  return span / divisor * (0.4 + fy / 100000.0);
+}
+
+double specified_cover(const std::string& exposure, double bar_diameter) {
+  if (exposure == "ground") return 3.0;
+  if (exposure == "weather") return bar_diameter > 0.7 ? 2.0 : 1.5;  // #6 (0.750 in) and larger
+  return 0.75;  // interior slabs, #11 and smaller
+}
+
+}  // namespace armature::aci318::inch_pound
