@@ -107,6 +107,23 @@ def test_record_in_us_units_without_en_terms(tmp_path):
                 assert "a foot of slab (US variant)" in text
 
 
+def test_record_names_a_roof_imposed_load_lr(tmp_path):
+    # ACI 318-19 5.3.1: roof live load is Lr; an imposed action of EN
+    # category H (roofs) is combined as Lr, and the record names it so.
+    req = json.loads(json.dumps(FLOOR))
+    req["loads"] = {"dead": "15 psf", "actions": [
+        {"name": "roof access", "kind": "imposed", "category": "H", "kPa": 0.96},
+        {"name": "workshop floor", "kind": "imposed", "category": "B", "kPa": 2.0}]}
+    path = tmp_path / "roof.md"
+    run = _run(["design", "-", "--report", str(path)], req)
+    assert run.returncode in (0, 1), run.stderr
+    text = path.read_text()
+    roof = next(line for line in text.splitlines() if line.startswith("| Action: roof access"))
+    floor = next(line for line in text.splitlines() if line.startswith("| Action: workshop floor"))
+    assert "Lr (roof live)" in roof and "L (live)" not in roof
+    assert "L (live)" in floor
+
+
 def test_compare_in_us_units_per_foot():
     floor = {k: v for k, v in FLOOR.items() if k not in ("code", "variant")}
     si = armature.compare(floor, codes=["ACI318-19:SI", "ACI318-19:US"])

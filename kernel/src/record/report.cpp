@@ -364,7 +364,11 @@ Title title_of(const DesignRecord& r, const json& request, const std::string& da
 // "imposed, category C, 4 kPa over the whole strip"
 std::string action_text(const DesignRecord& r, const Action& a) {
   const RecordUnits u = units_of(r);
-  const std::string& kind_name = r.loads.action_kind_names[static_cast<std::size_t>(a.kind)];
+  // An imposed load of category H (roofs, EN 1991-1-1 Table 6.9) is a roof
+  // load: where the code names the kinds, it takes the roof kind's name.
+  const ActionKind named_kind =
+      a.kind == ActionKind::imposed && a.category == "H" ? ActionKind::roof : a.kind;
+  const std::string& kind_name = r.loads.action_kind_names[static_cast<std::size_t>(named_kind)];
   std::string t = kind_name.empty() ? std::string(to_string(a.kind)) : kind_name;
   // The category of EN 1991 (loads.imposed_category, an action's
   // category) only where the code does not name the kinds itself.
