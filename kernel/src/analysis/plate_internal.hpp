@@ -1,0 +1,94 @@
+// Private to the plate analysis (kernel/src/analysis/plate_*.cpp): the
+// mesh with its factorised stiffness matrix, the solution of a set of load
+// cases, and the element's shape functions. Eigen stays behind this header.
+#pragma once
+
+#include <array>
+#include <cstddef>
+#include <vector>
+
+#include <Eigen/SparseCholesky>
+#include <Eigen/SparseCore>
+
+#include "armature/plate.hpp"
+
+namespace armature::detail {
+
+constexpr std::size_t dofs_per_node = 4;  // w, w,x, w,y, w,xy
+enum Dof : std::size_t { dof_w = 0, dof_wx = 1, dof_wy = 2, dof_wxy = 3 };
+
+// ---- element (plate_element.cpp) ----------------------------------------------
+
+// The four cubic Hermite functions of a segment of length L at s = t/L in
+// [0, 1] (value at 0, slope at 0, value at L, slope at L) and their first
+// and second derivatives with respect to the physical coordinate.
+struct Hermite {
+  std::array<double, 4> N{}, dN{}, d2N{};
+};
+Hermite hermite(double s, double L);
+
+// The 16 shape functions of the element a × b at local (s, t) in [0, 1]²,
+// and the rows giving w,xx, w,yy and w,xy from the element's dofs.
+struct ElementShape {
+  std::array<double, 16> w{}, wxx{}, wyy{}, wxy{};
+};
+ElementShape element_shape(double a, double b, double s, double t);
+
+// Consistent nodal loads of the element a × b:
+//   a pressure p over the local rectangle [xa, xb] × [ya, yb] (mm from the
+//   element's corner), a line load q (N/mm) along x at local y from xa to
+//   xb, or along y at local x from ya to yb, and a force P at local (x, y).
+std::array<double, 16> element_patch_load(double a, double b, double xa, double xb, double ya,
+                                          double yb, double p);
+std::array<double, 16> element_line_load(double a, double b, PlanAxis runs_along, double at,
+                                         double from, double to, double q);
+std::array<double, 16> element_point_load(double a, double b, double x, double y, double P);
+
+// ---- mesh and solution (plate_mesh.cpp, plate_solve.cpp) -----------------------
+
+struct PlateMesh {
+  PlateGeometry geometry;
+  double D = 0.0;                       // flexural rigidity, N·mm
+  std::size_t nx = 0, ny = 0;           // bays
+  std::size_t n = 0;                    // elements per bay side
+  std::vector<double> x_grid, y_grid;   // bay grid lines
+  std::vector<double> node_x, node_y;   // node coordinates (nx·n + 1, ny·n + 1)
+  std::vector<std::array<double, 256>> bay_stiffness;  // element stiffness per bay
+
+  // Free dof number of each global dof, or −1 where the dof is held.
+  std::vector<long> free_index;
+  std::size_t free_count = 0;
+  std::vector<SupportLine> lines;
+  std::vector<std::vector<std::size_t>> line_nodes;  // nodes along each line, in order
+  std::vector<unsigned char> lines_through_node;     // supported lines through each node
+
+  Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>> factor;
+
+  std::size_t columns() const { return node_x.size(); }
+  std::size_t rows() const { return node_y.size(); }
+  std::size_t node(std::size_t ix, std::size_t iy) const { return ix + columns() * iy; }
+  std::size_t elements_x() const { return columns() - 1; }
+  std::size_t elements_y() const { return rows() - 1; }
+  std::size_t bay_of_element(std::size_t ex, std::size_t ey) const { return ex / n + nx * (ey / n); }
+  // Global dof numbers of element (ex, ey) in element order.
+  std::array<std::size_t, 16> element_dofs(std::size_t ex, std::size_t ey) const;
+  // Elements along one axis that contain the coordinate v: one, or two
+  // when v lies on an interior mesh line.
+  static std::vector<std::size_t> elements_containing(const std::vector<double>& grid, double v);
+};
+
+// Builds everything but the factorisation (plate_mesh.cpp).
+void build_mesh(PlateMesh& mesh);
+// Assembles and factorises the stiffness of the free dofs (plate_solve.cpp).
+void factorise(PlateMesh& mesh);
+
+struct PlateSolution {
+  std::size_t cases = 0;
+  std::size_t dofs = 0;
+  std::vector<double> u;  // displacements, dofs × cases (column-major)
+  std::vector<double> f;  // applied nodal loads, dofs × cases
+  const double* displacement(std::size_t c) const { return u.data() + c * dofs; }
+  const double* load(std::size_t c) const { return f.data() + c * dofs; }
+};
+
+}  // namespace armature::detail

@@ -1,0 +1,500 @@
+// The plate's stiffness assembled sparse and factorised once, load cases as
+// columns of one right-hand side, and what is read from the solution:
+// moments, bay and line peaks, reactions.
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <stdexcept>
+#include <string>
+
+#include "plate_internal.hpp"
+
+namespace armature {
+
+namespace detail {
+
+// Triplets of the free dofs from each element (one matrix per bay), the
+// lower triangle only (SimplicialLDLT reads that one).
+void factorise(PlateMesh& m) {
+  std::vector<Eigen::Triplet<double>> triplets;
+  triplets.reserve(m.elements_x() * m.elements_y() * 136);
+  for (std::size_t ey = 0; ey < m.elements_y(); ++ey) {
+    for (std::size_t ex = 0; ex < m.elements_x(); ++ex) {
+      const auto& k = m.bay_stiffness[m.bay_of_element(ex, ey)];
+      const auto dofs = m.element_dofs(ex, ey);
+      for (std::size_t r = 0; r < 16; ++r) {
+        const long fr = m.free_index[dofs[r]];
+        if (fr < 0) continue;
+        for (std::size_t c = 0; c < 16; ++c) {
+          const long fc = m.free_index[dofs[c]];
+          if (fc < 0 || fc > fr) continue;
+          triplets.emplace_back(static_cast<int>(fr), static_cast<int>(fc), k[16 * r + c]);
+        }
+      }
+    }
+  }
+  const auto size = static_cast<Eigen::Index>(m.free_count);
+  Eigen::SparseMatrix<double> K(size, size);
+  K.setFromTriplets(triplets.begin(), triplets.end());
+  m.factor.compute(K);
+  if (m.factor.info() != Eigen::Success)
+    throw std::runtime_error("the plate's stiffness matrix could not be factorised: the supports "
+                             "do not hold the slab (a mechanism)");
+}
+
+}  // namespace detail
+
+PlateModel::PlateModel(PlateGeometry geometry) {
+  InputProblems problems;
+  add_plate_problems(geometry, problems);
+  problems.raise_if_any();
+  auto mesh = std::make_shared<detail::PlateMesh>();
+  mesh->geometry = std::move(geometry);
+  detail::build_mesh(*mesh);
+  detail::factorise(*mesh);
+  mesh_ = std::move(mesh);
+}
+
+namespace {
+
+using detail::PlateMesh;
+
+void require(bool ok, std::size_t c, const std::string& what) {
+  if (!ok) throw std::invalid_argument("plate load case " + std::to_string(c + 1) + ": " + what);
+}
+
+bool finite(std::initializer_list<double> values) {
+  return std::all_of(values.begin(), values.end(), [](double v) { return std::isfinite(v); });
+}
+
+// Refuses what cannot be put on the plate (see PlateModel::solve).
+void check_case(const PlateMesh& m, const PlateLoadCase& lc, std::size_t c) {
+  const double Lx = m.x_grid.back(), Ly = m.y_grid.back();
+  const double tol = 1e-9 * std::max(Lx, Ly);
+  auto in_x = [&](double v) { return v >= -tol && v <= Lx + tol; };
+  auto in_y = [&](double v) { return v >= -tol && v <= Ly + tol; };
+  require(lc.bay_pressures_MPa.empty() || lc.bay_pressures_MPa.size() == m.nx * m.ny, c,
+          "one bay pressure per bay is needed");
+  for (double p : lc.bay_pressures_MPa) require(std::isfinite(p), c, "a bay pressure is not finite");
+  for (std::size_t i = 0; i < lc.patches.size(); ++i) {
+    const auto& p = lc.patches[i];
+    const std::string what = "patch " + std::to_string(i + 1);
+    require(finite({p.x0_mm, p.x1_mm, p.y0_mm, p.y1_mm, p.pressure_MPa}), c, what + " is not finite");
+    require(p.x0_mm < p.x1_mm && p.y0_mm < p.y1_mm, c, what + " has no area");
+    require(in_x(p.x0_mm) && in_x(p.x1_mm) && in_y(p.y0_mm) && in_y(p.y1_mm), c,
+            what + " is off the plate");
+  }
+  for (std::size_t i = 0; i < lc.lines.size(); ++i) {
+    const auto& l = lc.lines[i];
+    const std::string what = "line load " + std::to_string(i + 1);
+    require(finite({l.at_mm, l.from_mm, l.to_mm, l.N_per_mm}), c, what + " is not finite");
+    require(l.from_mm < l.to_mm, c, what + " has no length");
+    const bool along_x = l.runs_along == PlanAxis::x;
+    require(along_x ? in_y(l.at_mm) && in_x(l.from_mm) && in_x(l.to_mm)
+                    : in_x(l.at_mm) && in_y(l.from_mm) && in_y(l.to_mm),
+            c, what + " is off the plate");
+  }
+  for (std::size_t i = 0; i < lc.points.size(); ++i) {
+    const auto& p = lc.points[i];
+    const std::string what = "point load " + std::to_string(i + 1);
+    require(finite({p.x_mm, p.y_mm, p.force_N}), c, what + " is not finite");
+    require(in_x(p.x_mm) && in_y(p.y_mm), c, what + " is off the plate");
+  }
+}
+
+void scatter(const PlateMesh& m, std::size_t ex, std::size_t ey, const std::array<double, 16>& fe,
+             double* f) {
+  const auto dofs = m.element_dofs(ex, ey);
+  for (std::size_t k = 0; k < 16; ++k) f[dofs[k]] += fe[k];
+}
+
+// Elements whose span along one axis overlaps (lo, hi) with positive length.
+std::pair<std::size_t, std::size_t> overlapping(const std::vector<double>& nodes, double lo, double hi) {
+  const auto first = std::upper_bound(nodes.begin(), nodes.end(), lo);
+  const auto last = std::lower_bound(nodes.begin(), nodes.end(), hi);
+  std::size_t a = first == nodes.begin() ? 0 : static_cast<std::size_t>(first - nodes.begin()) - 1;
+  std::size_t b = static_cast<std::size_t>(last - nodes.begin());
+  b = std::min(b, nodes.size() - 1);
+  return {a, b};  // elements a .. b − 1
+}
+
+// Consistent nodal loads of one case over every dof.
+void assemble_loads(const PlateMesh& m, const PlateLoadCase& lc, double* f) {
+  const double side = static_cast<double>(m.n);
+  for (std::size_t bay = 0; bay < lc.bay_pressures_MPa.size(); ++bay) {
+    const double p = lc.bay_pressures_MPa[bay];
+    if (p == 0.0) continue;
+    const std::size_t i = bay % m.nx, j = bay / m.nx;
+    const double a = m.geometry.x_spans_mm[i] / side, b = m.geometry.y_spans_mm[j] / side;
+    const auto fe = detail::element_patch_load(a, b, 0.0, a, 0.0, b, p);
+    for (std::size_t ey = j * m.n; ey < (j + 1) * m.n; ++ey)
+      for (std::size_t ex = i * m.n; ex < (i + 1) * m.n; ++ex) scatter(m, ex, ey, fe, f);
+  }
+  for (const auto& p : lc.patches) {
+    const double x0 = std::max(p.x0_mm, 0.0), x1 = std::min(p.x1_mm, m.node_x.back());
+    const double y0 = std::max(p.y0_mm, 0.0), y1 = std::min(p.y1_mm, m.node_y.back());
+    const auto [ex0, ex1] = overlapping(m.node_x, x0, x1);
+    const auto [ey0, ey1] = overlapping(m.node_y, y0, y1);
+    for (std::size_t ey = ey0; ey < ey1; ++ey) {
+      for (std::size_t ex = ex0; ex < ex1; ++ex) {
+        const double xa = std::max(x0, m.node_x[ex]), xb = std::min(x1, m.node_x[ex + 1]);
+        const double ya = std::max(y0, m.node_y[ey]), yb = std::min(y1, m.node_y[ey + 1]);
+        if (xb <= xa || yb <= ya) continue;
+        const double ox = m.node_x[ex], oy = m.node_y[ey];
+        scatter(m, ex, ey,
+                detail::element_patch_load(m.node_x[ex + 1] - ox, m.node_y[ey + 1] - oy, xa - ox,
+                                           xb - ox, ya - oy, yb - oy, p.pressure_MPa),
+                f);
+      }
+    }
+  }
+  for (const auto& l : lc.lines) {
+    const bool along_x = l.runs_along == PlanAxis::x;
+    const auto& across_nodes = along_x ? m.node_y : m.node_x;
+    const auto& along_nodes = along_x ? m.node_x : m.node_y;
+    // On a mesh line both neighbours interpolate w alike: one is loaded.
+    const std::size_t e_across = PlateMesh::elements_containing(across_nodes, l.at_mm).front();
+    const double lo = std::max(l.from_mm, 0.0), hi = std::min(l.to_mm, along_nodes.back());
+    const auto [e0, e1] = overlapping(along_nodes, lo, hi);
+    for (std::size_t e = e0; e < e1; ++e) {
+      const double from = std::max(lo, along_nodes[e]), to = std::min(hi, along_nodes[e + 1]);
+      if (to <= from) continue;
+      const std::size_t ex = along_x ? e : e_across, ey = along_x ? e_across : e;
+      const double ox = m.node_x[ex], oy = m.node_y[ey];
+      const double a = m.node_x[ex + 1] - ox, b = m.node_y[ey + 1] - oy;
+      const double at = l.at_mm - (along_x ? oy : ox);
+      const double origin = along_x ? ox : oy;
+      scatter(m, ex, ey,
+              detail::element_line_load(a, b, l.runs_along, std::clamp(at, 0.0, along_x ? b : a),
+                                        from - origin, to - origin, l.N_per_mm),
+              f);
+    }
+  }
+  for (const auto& p : lc.points) {
+    const std::size_t ex = PlateMesh::elements_containing(m.node_x, p.x_mm).front();
+    const std::size_t ey = PlateMesh::elements_containing(m.node_y, p.y_mm).front();
+    const double ox = m.node_x[ex], oy = m.node_y[ey];
+    const double a = m.node_x[ex + 1] - ox, b = m.node_y[ey + 1] - oy;
+    scatter(m, ex, ey,
+            detail::element_point_load(a, b, std::clamp(p.x_mm - ox, 0.0, a),
+                                       std::clamp(p.y_mm - oy, 0.0, b), p.force_N),
+            f);
+  }
+}
+
+}  // namespace
+
+ForceResultant PlateModel::load_resultant(const PlateLoadCase& lc) const {
+  const auto& m = *mesh_;
+  ForceResultant r;
+  auto add = [&r](double F, double x, double y) {
+    r.force_N += F;
+    r.force_x_Nmm += F * x;
+    r.force_y_Nmm += F * y;
+  };
+  for (std::size_t bay = 0; bay < lc.bay_pressures_MPa.size(); ++bay) {
+    const std::size_t i = bay % m.nx, j = bay / m.nx;
+    add(lc.bay_pressures_MPa[bay] * m.geometry.x_spans_mm[i] * m.geometry.y_spans_mm[j],
+        0.5 * (m.x_grid[i] + m.x_grid[i + 1]), 0.5 * (m.y_grid[j] + m.y_grid[j + 1]));
+  }
+  for (const auto& p : lc.patches)
+    add(p.pressure_MPa * (p.x1_mm - p.x0_mm) * (p.y1_mm - p.y0_mm), 0.5 * (p.x0_mm + p.x1_mm),
+        0.5 * (p.y0_mm + p.y1_mm));
+  for (const auto& l : lc.lines) {
+    const double mid = 0.5 * (l.from_mm + l.to_mm);
+    const bool along_x = l.runs_along == PlanAxis::x;
+    add(l.N_per_mm * (l.to_mm - l.from_mm), along_x ? mid : l.at_mm, along_x ? l.at_mm : mid);
+  }
+  for (const auto& p : lc.points) add(p.force_N, p.x_mm, p.y_mm);
+  return r;
+}
+
+PlateField PlateModel::solve(const std::vector<PlateLoadCase>& cases) const {
+  const auto& m = *mesh_;
+  for (std::size_t c = 0; c < cases.size(); ++c) check_case(m, cases[c], c);
+  auto solution = std::make_shared<detail::PlateSolution>();
+  solution->cases = cases.size();
+  solution->dofs = m.free_index.size();
+  solution->f.assign(solution->dofs * cases.size(), 0.0);
+  solution->u.assign(solution->dofs * cases.size(), 0.0);
+
+  const auto free_count = static_cast<Eigen::Index>(m.free_count);
+  Eigen::MatrixXd F(free_count, static_cast<Eigen::Index>(cases.size()));
+  for (std::size_t c = 0; c < cases.size(); ++c) {
+    double* f = solution->f.data() + c * solution->dofs;
+    assemble_loads(m, cases[c], f);
+    for (std::size_t k = 0; k < solution->dofs; ++k)
+      if (m.free_index[k] >= 0) F(m.free_index[k], static_cast<Eigen::Index>(c)) = f[k];
+  }
+  if (!cases.empty()) {
+    const Eigen::MatrixXd U = m.factor.solve(F);
+    for (std::size_t c = 0; c < cases.size(); ++c) {
+      double* u = solution->u.data() + c * solution->dofs;
+      for (std::size_t k = 0; k < solution->dofs; ++k)
+        if (m.free_index[k] >= 0) u[k] = U(m.free_index[k], static_cast<Eigen::Index>(c));
+    }
+  }
+  return PlateField(mesh_, std::move(solution));
+}
+
+// ---- the field ---------------------------------------------------------------
+
+PlateField::PlateField(std::shared_ptr<const detail::PlateMesh> mesh,
+                       std::shared_ptr<const detail::PlateSolution> solution)
+    : mesh_(std::move(mesh)), solution_(std::move(solution)) {}
+
+std::size_t PlateField::case_count() const { return solution_->cases; }
+
+namespace {
+
+struct ElementValues {
+  double w = 0.0;
+  PlateMoments m{};
+};
+
+ElementValues element_values(const PlateMesh& m, const double* u, std::size_t ex, std::size_t ey,
+                             double x, double y) {
+  const double ox = m.node_x[ex], oy = m.node_y[ey];
+  const double a = m.node_x[ex + 1] - ox, b = m.node_y[ey + 1] - oy;
+  const auto shape = detail::element_shape(a, b, std::clamp((x - ox) / a, 0.0, 1.0),
+                                           std::clamp((y - oy) / b, 0.0, 1.0));
+  const auto dofs = m.element_dofs(ex, ey);
+  double w = 0, wxx = 0, wyy = 0, wxy = 0;
+  for (std::size_t k = 0; k < 16; ++k) {
+    const double d = u[dofs[k]];
+    w += shape.w[k] * d;
+    wxx += shape.wxx[k] * d;
+    wyy += shape.wyy[k] * d;
+    wxy += shape.wxy[k] * d;
+  }
+  const double nu = m.geometry.poisson_ratio;
+  return {w, {-m.D * (wxx + nu * wyy), -m.D * (wyy + nu * wxx), -m.D * (1.0 - nu) * wxy}};
+}
+
+ElementValues averaged_values(const PlateMesh& m, const double* u, double x, double y) {
+  const auto exs = PlateMesh::elements_containing(m.node_x, x);
+  const auto eys = PlateMesh::elements_containing(m.node_y, y);
+  if (exs.empty() || eys.empty())
+    throw std::invalid_argument("plate point (" + std::to_string(x) + ", " + std::to_string(y) +
+                                ") mm is off the plate");
+  ElementValues sum;
+  for (std::size_t ey : eys) {
+    for (std::size_t ex : exs) {
+      const auto v = element_values(m, u, ex, ey, x, y);
+      sum.w += v.w;
+      sum.m.mx += v.m.mx;
+      sum.m.my += v.m.my;
+      sum.m.mxy += v.m.mxy;
+    }
+  }
+  const double count = static_cast<double>(exs.size() * eys.size());
+  return {sum.w / count, {sum.m.mx / count, sum.m.my / count, sum.m.mxy / count}};
+}
+
+void check_case_index(std::size_t c, std::size_t cases) {
+  if (c >= cases)
+    throw std::out_of_range("plate load case " + std::to_string(c + 1) + " of " +
+                            std::to_string(cases));
+}
+
+// Upward reaction at every held dof (zero at free ones): f − K u, with
+// K u summed element by element at the held dofs.
+std::vector<double> held_reactions(const PlateMesh& m, const detail::PlateSolution& s, std::size_t c) {
+  const double* u = s.displacement(c);
+  const double* f = s.load(c);
+  std::vector<double> Ku(s.dofs, 0.0);
+  for (std::size_t ey = 0; ey < m.elements_y(); ++ey) {
+    for (std::size_t ex = 0; ex < m.elements_x(); ++ex) {
+      const auto dofs = m.element_dofs(ex, ey);
+      bool any_held = false;
+      for (std::size_t k : dofs) any_held = any_held || m.free_index[k] < 0;
+      if (!any_held) continue;
+      const auto& k = m.bay_stiffness[m.bay_of_element(ex, ey)];
+      for (std::size_t r = 0; r < 16; ++r) {
+        if (m.free_index[dofs[r]] >= 0) continue;
+        double sum = 0.0;
+        for (std::size_t col = 0; col < 16; ++col) sum += k[16 * r + col] * u[dofs[col]];
+        Ku[dofs[r]] += sum;
+      }
+    }
+  }
+  std::vector<double> R(s.dofs, 0.0);
+  for (std::size_t k = 0; k < s.dofs; ++k)
+    if (m.free_index[k] < 0) R[k] = f[k] - Ku[k];
+  return R;
+}
+
+}  // namespace
+
+double PlateField::deflection_at(std::size_t c, double x_mm, double y_mm) const {
+  check_case_index(c, solution_->cases);
+  return averaged_values(*mesh_, solution_->displacement(c), x_mm, y_mm).w;
+}
+
+PlateMoments PlateField::moments_at(std::size_t c, double x_mm, double y_mm) const {
+  check_case_index(c, solution_->cases);
+  return averaged_values(*mesh_, solution_->displacement(c), x_mm, y_mm).m;
+}
+
+std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  const double* u = solution_->displacement(c);
+  const std::size_t nodes = m.columns() * m.rows();
+  std::vector<PlateMoments> sum(nodes);
+  std::vector<unsigned char> count(nodes, 0);
+  const double nu = m.geometry.poisson_ratio, side = static_cast<double>(m.n);
+  // The corner shapes depend on the element's size only: once per bay.
+  std::vector<std::array<detail::ElementShape, 4>> corners(m.nx * m.ny);
+  for (std::size_t j = 0; j < m.ny; ++j)
+    for (std::size_t i = 0; i < m.nx; ++i)
+      for (std::size_t k = 0; k < 4; ++k)
+        corners[i + m.nx * j][k] = detail::element_shape(
+            m.geometry.x_spans_mm[i] / side, m.geometry.y_spans_mm[j] / side,
+            static_cast<double>(k % 2), static_cast<double>(k / 2));
+  for (std::size_t ey = 0; ey < m.elements_y(); ++ey) {
+    for (std::size_t ex = 0; ex < m.elements_x(); ++ex) {
+      const auto dofs = m.element_dofs(ex, ey);
+      const auto& shapes = corners[m.bay_of_element(ex, ey)];
+      for (std::size_t k = 0; k < 4; ++k) {
+        double wxx = 0, wyy = 0, wxy = 0;
+        for (std::size_t d = 0; d < 16; ++d) {
+          const double v = u[dofs[d]];
+          wxx += shapes[k].wxx[d] * v;
+          wyy += shapes[k].wyy[d] * v;
+          wxy += shapes[k].wxy[d] * v;
+        }
+        const std::size_t nd = m.node(ex + k % 2, ey + k / 2);
+        sum[nd].mx += -m.D * (wxx + nu * wyy);
+        sum[nd].my += -m.D * (wyy + nu * wxx);
+        sum[nd].mxy += -m.D * (1.0 - nu) * wxy;
+        ++count[nd];
+      }
+    }
+  }
+  for (std::size_t nd = 0; nd < nodes; ++nd) {
+    const double n = count[nd];
+    sum[nd] = {sum[nd].mx / n, sum[nd].my / n, sum[nd].mxy / n};
+  }
+  return sum;
+}
+
+std::vector<BaySagging> PlateField::bay_sagging(std::size_t c) const {
+  const auto& m = *mesh_;
+  const auto moments = node_moments(c);
+  std::vector<BaySagging> bays(m.nx * m.ny);
+  const double lowest = -std::numeric_limits<double>::infinity();
+  for (std::size_t j = 0; j < m.ny; ++j) {
+    for (std::size_t i = 0; i < m.nx; ++i) {
+      BaySagging& b = bays[i + m.nx * j];
+      b.mx.value = b.my.value = lowest;
+      for (std::size_t iy = j * m.n; iy <= (j + 1) * m.n; ++iy) {
+        for (std::size_t ix = i * m.n; ix <= (i + 1) * m.n; ++ix) {
+          const auto& mm = moments[m.node(ix, iy)];
+          if (mm.mx > b.mx.value) b.mx = {mm.mx, m.node_x[ix], m.node_y[iy]};
+          if (mm.my > b.my.value) b.my = {mm.my, m.node_x[ix], m.node_y[iy]};
+        }
+      }
+    }
+  }
+  return bays;
+}
+
+namespace {
+// Tributary length of node k of a line: half of each element beside it.
+double tributary(const std::vector<double>& along, std::size_t k) {
+  return 0.5 * ((k > 0 ? along[k] - along[k - 1] : 0.0) +
+                (k + 1 < along.size() ? along[k + 1] - along[k] : 0.0));
+}
+}  // namespace
+
+std::vector<std::vector<PlanPeak>> PlateField::line_hogging(std::size_t c) const {
+  const auto& m = *mesh_;
+  const auto moments = node_moments(c);
+  std::vector<double> R;
+  std::vector<std::vector<PlanPeak>> out;
+  for (std::size_t l = 0; l < m.lines.size(); ++l) {
+    const auto& line = m.lines[l];
+    const auto& nodes = m.line_nodes[l];
+    const bool along_y = line.runs_along == PlanAxis::y;
+    const auto& along = along_y ? m.node_y : m.node_x;
+    // At a fixed edge the moment is the edge's reaction moment per unit
+    // length (held slope across the edge over the node's tributary
+    // length): it converges faster than the elements' one-sided moments.
+    // The plate lies on the far side of an edge at 0, the near side of one
+    // at the far end, which sets the sign.
+    const bool fixed_edge = !line.interior && line.support == EndSupport::fixed;
+    if (fixed_edge && R.empty()) R = held_reactions(m, *solution_, c);
+    const double side = line.grid == 0 ? 1.0 : -1.0;
+    const std::size_t across_slope = along_y ? detail::dof_wx : detail::dof_wy;
+    std::vector<PlanPeak> segments(line.segment_count);
+    for (std::size_t s = 0; s < line.segment_count; ++s) {
+      PlanPeak& peak = segments[s];
+      peak.value = -std::numeric_limits<double>::infinity();
+      for (std::size_t k = s * m.n; k <= (s + 1) * m.n; ++k) {
+        const std::size_t nd = nodes[k];
+        const auto& mm = moments[nd];
+        const double hogging =
+            fixed_edge ? side * R[detail::dofs_per_node * nd + across_slope] / tributary(along, k)
+                       : (along_y ? -mm.mx : -mm.my);
+        if (hogging > peak.value)
+          peak = {hogging, m.node_x[nd % m.columns()], m.node_y[nd / m.columns()]};
+      }
+    }
+    out.push_back(std::move(segments));
+  }
+  return out;
+}
+
+std::vector<std::vector<LineReaction>> PlateField::line_reactions(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  const auto R = held_reactions(m, *solution_, c);
+  std::vector<std::vector<LineReaction>> out;
+  for (std::size_t l = 0; l < m.lines.size(); ++l) {
+    const auto& nodes = m.line_nodes[l];
+    const auto& along = m.lines[l].runs_along == PlanAxis::y ? m.node_y : m.node_x;
+    std::vector<LineReaction> line;
+    for (std::size_t k = 0; k < nodes.size(); ++k) {
+      const std::size_t nd = nodes[k];
+      if (m.lines_through_node[nd] >= 2) continue;
+      line.push_back({m.node_x[nd % m.columns()], m.node_y[nd / m.columns()],
+                      R[detail::dofs_per_node * nd + detail::dof_w] / tributary(along, k)});
+    }
+    out.push_back(std::move(line));
+  }
+  return out;
+}
+
+std::vector<PointReaction> PlateField::point_reactions(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  const auto R = held_reactions(m, *solution_, c);
+  std::vector<PointReaction> out;
+  for (std::size_t nd = 0; nd < m.lines_through_node.size(); ++nd)
+    if (m.lines_through_node[nd] >= 2)
+      out.push_back({m.node_x[nd % m.columns()], m.node_y[nd / m.columns()],
+                     R[detail::dofs_per_node * nd + detail::dof_w]});
+  return out;
+}
+
+// Σ over the held dofs of the reaction times the rigid-body motions
+// w = 1, w = x, w = y (whose dofs are (1, 0, 0, 0), (x, 1, 0, 0) and
+// (y, 0, 1, 0) at each node): by virtual work these equal the load's
+// resultant, whatever the mesh.
+ForceResultant PlateField::reaction_resultant(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  const auto R = held_reactions(m, *solution_, c);
+  ForceResultant r;
+  for (std::size_t nd = 0; nd < m.lines_through_node.size(); ++nd) {
+    const double* Rn = R.data() + detail::dofs_per_node * nd;
+    const double x = m.node_x[nd % m.columns()], y = m.node_y[nd / m.columns()];
+    r.force_N += Rn[detail::dof_w];
+    r.force_x_Nmm += Rn[detail::dof_w] * x + Rn[detail::dof_wx];
+    r.force_y_Nmm += Rn[detail::dof_w] * y + Rn[detail::dof_wy];
+  }
+  return r;
+}
+
+}  // namespace armature
