@@ -5,9 +5,11 @@
 
 #include <array>
 #include <cstddef>
+#include <memory>
 #include <vector>
 
 #include <Eigen/SparseCholesky>
+#include <Eigen/Dense>
 #include <Eigen/SparseCore>
 
 #include "armature/plate.hpp"
@@ -63,6 +65,14 @@ struct PlateMesh {
   std::vector<unsigned char> lines_through_node;     // supported lines through each node
 
   Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>> factor;
+  // Per support line, for a fixed outer edge only (else null): the mass
+  // matrix of the cubic Hermite interpolation along the edge (value and
+  // derivative at each node), with the values known to be zero held,
+  // factorised; the edge moment is recovered from the edge's reaction
+  // moments with it (plate_solve.cpp, node_moments).
+  std::vector<std::shared_ptr<Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>>>> edge_mass;
+  // Per support line: the rows of edge_mass held at zero.
+  std::vector<std::vector<unsigned char>> edge_mass_held;
 
   std::size_t columns() const { return node_x.size(); }
   std::size_t rows() const { return node_y.size(); }
