@@ -370,6 +370,20 @@ TEST_CASE("The corners of a simply supported square are held down by 2 mxy", "[p
     previous = hold_down;
   }
   CHECK(previous == Approx(corner).epsilon(0.06));
+  // Kirchhoff's corner force from the twist at the corner: close at the
+  // default mesh, at all four corners, holding down.
+  PlateModel model(bay(a, a, nu));
+  const auto forces = model.solve({uniform(model, q)}).corner_forces(0);
+  REQUIRE(forces.size() == 4);
+  for (const auto& f : forces) CHECK(f.force_N == Approx(-corner).epsilon(0.01));
+  // A fixed edge leaves no twist at its corners.
+  PlateGeometry g = bay(a, a, nu);
+  g.edges.x0 = EndSupport::fixed;
+  PlateModel fixed(g);
+  const auto some = fixed.solve({uniform(fixed, q)}).corner_forces(0);
+  REQUIRE(some.size() == 4);
+  CHECK(some[0].force_N == Approx(0.0).margin(1e-9 * q * a * a));
+  CHECK(some[1].force_N < -0.5 * corner);  // the far corners still lift
 }
 
 // ---- statics -------------------------------------------------------------------

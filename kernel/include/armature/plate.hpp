@@ -122,7 +122,9 @@ struct BaySagging {
   PlanPeak my{};
 };
 
-// A supported edge or an interior grid line. A line running along y lies
+// A supported edge or an interior grid line, in the model's order: the
+// lines running along y by grid line (edge x0 if supported, the interior
+// lines, edge x1), then those running along x. A line running along y lies
 // at x = x_grid_mm[grid] and has one segment per y span (segment j from
 // y_j to y_j+1); a line running along x likewise.
 struct SupportLine {
@@ -221,12 +223,19 @@ class PlateField {
  public:
   std::size_t case_count() const;
 
-  // Deflection (mm, downward) and moments at a plan point; on an element
-  // boundary the elements that share the point are averaged.
+  // Deflection (mm, downward) and moments at a plan point from the
+  // element's shape functions; on an element boundary the elements that
+  // share the point are averaged. At a node the recovered node_moments
+  // are the more accurate (the element's own moments at its corners are
+  // off by about the fixed-end moment of its load: +0.6 % at the centre
+  // of a simply supported square at the default mesh).
   double deflection_at(std::size_t c, double x_mm, double y_mm) const;
   PlateMoments moments_at(std::size_t c, double x_mm, double y_mm) const;
-  // Moments at every mesh node (index ix + (node_x count)·iy), the
-  // average of the elements around the node.
+  // Moments at every mesh node (index ix + (node_x count)·iy), recovered
+  // from the elements' Gauss points by patches of 2 × 2 elements in each
+  // bay beside the node (averaged across a support line), and along a
+  // fixed edge from the edge's reaction moments (DEVELOPERS.md, "Plate
+  // analysis").
   std::vector<PlateMoments> node_moments(std::size_t c) const;
 
   // Per bay (bay index): the largest mx and my over the bay's nodes.
@@ -239,8 +248,15 @@ class PlateField {
   // reactions): the node's vertical reaction over its tributary length.
   std::vector<std::vector<LineReaction>> line_reactions(std::size_t c) const;
   // Where two supported lines meet (corners of supported edges, grid lines
-  // crossing or meeting a supported edge): the node's whole reaction.
+  // crossing or meeting a supported edge): the node's whole reaction. It
+  // includes the line reactions of the node's tributary lengths, so at a
+  // corner it approaches Kirchhoff's corner force only as the mesh refines.
   std::vector<PointReaction> point_reactions(std::size_t c) const;
+  // Kirchhoff's corner force at each corner of the plate where two
+  // supported edges meet: 2 mxy nx ny upward (n the outward normals), mxy
+  // from the element's twist dof at the corner; negative where the corner
+  // would lift and the supports hold it down. Zero at a fixed edge's corner.
+  std::vector<PointReaction> corner_forces(std::size_t c) const;
   // Resultant of every support reaction (forces and, at fixed edges and
   // along lines, the reaction moments' contribution to the first moments).
   ForceResultant reaction_resultant(std::size_t c) const;

@@ -632,6 +632,25 @@ std::vector<PointReaction> PlateField::point_reactions(std::size_t c) const {
   return out;
 }
 
+std::vector<PointReaction> PlateField::corner_forces(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  const double* u = solution_->displacement(c);
+  const auto& e = m.geometry.edges;
+  std::vector<PointReaction> out;
+  for (std::size_t corner = 0; corner < 4; ++corner) {
+    const bool far_x = corner % 2 == 1, far_y = corner / 2 == 1;
+    const EndSupport ex = far_x ? e.x1 : e.x0, ey = far_y ? e.y1 : e.y0;
+    if (ex == EndSupport::free || ey == EndSupport::free) continue;
+    const std::size_t nd = m.node(far_x ? m.columns() - 1 : 0, far_y ? m.rows() - 1 : 0);
+    const double mxy = -m.D * (1.0 - m.geometry.poisson_ratio) *
+                       u[detail::dofs_per_node * nd + detail::dof_wxy];
+    const double nx = far_x ? 1.0 : -1.0, ny = far_y ? 1.0 : -1.0;
+    out.push_back({m.node_x[nd % m.columns()], m.node_y[nd / m.columns()], 2.0 * mxy * nx * ny});
+  }
+  return out;
+}
+
 // Σ over the held dofs of the reaction times the rigid-body motions
 // w = 1, w = x, w = y (whose dofs are (1, 0, 0, 0), (x, 1, 0, 0) and
 // (y, 0, 1, 0) at each node): by virtual work these equal the load's
