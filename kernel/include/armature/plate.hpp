@@ -215,7 +215,6 @@ class PlateModel {
 
  private:
   std::shared_ptr<const detail::PlateMesh> mesh_;
-  friend class PlateField;
 };
 
 // The solution of every load case; queries by case index.

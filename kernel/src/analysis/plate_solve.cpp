@@ -13,6 +13,8 @@ namespace armature {
 
 namespace detail {
 
+namespace {
+
 // ∫ Nᵢ Nⱼ ds of the cubic Hermite functions over each segment (value and
 // derivative at each node): L/420 [156 22L 54 −13L; 22L 4L² 13L −3L²;
 // 54 13L 156 −22L; −13L −3L² −22L 4L²], the beam's consistent mass matrix
@@ -74,6 +76,8 @@ void factorise_edge_masses(PlateMesh& m) {
     m.edge_mass_held[l] = std::move(held);
   }
 }
+
+}  // namespace
 
 // Triplets of the free dofs from each element (one matrix per bay), the
 // lower triangle only (SimplicialLDLT reads that one).
@@ -402,9 +406,6 @@ double tributary(const std::vector<double>& along, std::size_t k) {
   return 0.5 * ((k > 0 ? along[k] - along[k - 1] : 0.0) +
                 (k + 1 < along.size() ? along[k + 1] - along[k] : 0.0));
 }
-}  // namespace
-
-namespace {
 
 // Superconvergent patch recovery of the moments at the nodes (Zienkiewicz
 // and Zhu's patch recovery, 1992): inside each element the moments are
