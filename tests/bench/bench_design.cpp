@@ -115,9 +115,10 @@ void analyse_plate(benchmark::State& state, std::vector<double> x_spans, std::ve
     const auto field = model.solve(plate_cases(model));
     double sum = 0;
     for (std::size_t c = 0; c < field.case_count(); ++c) {
-      for (const auto& bay : field.bay_sagging(c)) sum += bay.mx.value + bay.my.value;
-      for (const auto& line : field.line_hogging(c)) sum += line[0].value;
-      for (const auto& line : field.line_reactions(c)) sum += line.front().N_per_mm;
+      const auto results = field.case_results(c);
+      for (const auto& bay : results.bays) sum += bay.mx.value + bay.my.value;
+      for (const auto& line : results.line_hogging) sum += line[0].value;
+      for (const auto& line : results.line_reactions) sum += line.front().N_per_mm;
     }
     benchmark::DoNotOptimize(sum);
   }

@@ -519,6 +519,15 @@ TEST_CASE("Plate reactions balance every load shape", "[plate]") {
     }
     for (const auto& p : field.point_reactions(c)) total += p.force_N;
     CHECK(total == Approx(load.force_N).epsilon(1e-9));
+    // The results of one case read at once are the same numbers.
+    const auto all = field.case_results(c);
+    CHECK(all.line_reactions.size() == per_line.size());
+    CHECK(all.point_reactions.size() == field.point_reactions(c).size());
+    const auto bays = field.bay_sagging(c);
+    for (std::size_t b = 0; b < bays.size(); ++b) CHECK(all.bays[b].mx.value == bays[b].mx.value);
+    const auto lines_hog = field.line_hogging(c);
+    for (std::size_t l = 0; l < lines_hog.size(); ++l)
+      CHECK(all.line_hogging[l][0].value == lines_hog[l][0].value);
   }
 }
 

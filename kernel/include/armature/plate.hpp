@@ -178,6 +178,17 @@ struct PlateSolution;
 
 class PlateField;
 
+// Everything the peaks and reactions of one load case give, read at once
+// (the node moments are recovered once for all of them).
+struct PlateCaseResults {
+  std::vector<PlateMoments> node_moments;
+  std::vector<BaySagging> bays;
+  std::vector<std::vector<PlanPeak>> line_hogging;
+  std::vector<std::vector<LineReaction>> line_reactions;
+  std::vector<PointReaction> point_reactions;
+  std::vector<PointReaction> corner_forces;
+};
+
 // The plate of one request: mesh, element matrices, supports and the
 // factorised stiffness matrix, built once; solve() for any load cases.
 class PlateModel {
@@ -259,6 +270,9 @@ class PlateField {
   // Resultant of every support reaction (forces and, at fixed edges and
   // along lines, the reaction moments' contribution to the first moments).
   ForceResultant reaction_resultant(std::size_t c) const;
+
+  // All of the above but the resultant for one case, each computed once.
+  PlateCaseResults case_results(std::size_t c) const;
 
  private:
   friend class PlateModel;

@@ -555,9 +555,9 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
   return out;
 }
 
-std::vector<BaySagging> PlateField::bay_sagging(std::size_t c) const {
-  const auto& m = *mesh_;
-  const auto moments = node_moments(c);
+namespace {
+
+std::vector<BaySagging> bay_peaks(const PlateMesh& m, const std::vector<PlateMoments>& moments) {
   std::vector<BaySagging> bays(m.nx * m.ny);
   const double lowest = -std::numeric_limits<double>::infinity();
   for (std::size_t j = 0; j < m.ny; ++j) {
@@ -576,9 +576,7 @@ std::vector<BaySagging> PlateField::bay_sagging(std::size_t c) const {
   return bays;
 }
 
-std::vector<std::vector<PlanPeak>> PlateField::line_hogging(std::size_t c) const {
-  const auto& m = *mesh_;
-  const auto moments = node_moments(c);
+std::vector<std::vector<PlanPeak>> line_peaks(const PlateMesh& m, const std::vector<PlateMoments>& moments) {
   std::vector<std::vector<PlanPeak>> out;
   for (std::size_t l = 0; l < m.lines.size(); ++l) {
     const auto& line = m.lines[l];
@@ -601,10 +599,7 @@ std::vector<std::vector<PlanPeak>> PlateField::line_hogging(std::size_t c) const
   return out;
 }
 
-std::vector<std::vector<LineReaction>> PlateField::line_reactions(std::size_t c) const {
-  check_case_index(c, solution_->cases);
-  const auto& m = *mesh_;
-  const auto R = held_reactions(m, *solution_, c);
+std::vector<std::vector<LineReaction>> line_values(const PlateMesh& m, const std::vector<double>& R) {
   std::vector<std::vector<LineReaction>> out;
   for (std::size_t l = 0; l < m.lines.size(); ++l) {
     const auto& nodes = m.line_nodes[l];
@@ -621,16 +616,45 @@ std::vector<std::vector<LineReaction>> PlateField::line_reactions(std::size_t c)
   return out;
 }
 
-std::vector<PointReaction> PlateField::point_reactions(std::size_t c) const {
-  check_case_index(c, solution_->cases);
-  const auto& m = *mesh_;
-  const auto R = held_reactions(m, *solution_, c);
+std::vector<PointReaction> point_values(const PlateMesh& m, const std::vector<double>& R) {
   std::vector<PointReaction> out;
   for (std::size_t nd = 0; nd < m.lines_through_node.size(); ++nd)
     if (m.lines_through_node[nd] >= 2)
       out.push_back({m.node_x[nd % m.columns()], m.node_y[nd / m.columns()],
                      R[detail::dofs_per_node * nd + detail::dof_w]});
   return out;
+}
+
+}  // namespace
+
+std::vector<BaySagging> PlateField::bay_sagging(std::size_t c) const {
+  return bay_peaks(*mesh_, node_moments(c));
+}
+
+std::vector<std::vector<PlanPeak>> PlateField::line_hogging(std::size_t c) const {
+  return line_peaks(*mesh_, node_moments(c));
+}
+
+std::vector<std::vector<LineReaction>> PlateField::line_reactions(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  return line_values(*mesh_, held_reactions(*mesh_, *solution_, c));
+}
+
+std::vector<PointReaction> PlateField::point_reactions(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  return point_values(*mesh_, held_reactions(*mesh_, *solution_, c));
+}
+
+PlateCaseResults PlateField::case_results(std::size_t c) const {
+  PlateCaseResults r;
+  r.node_moments = node_moments(c);
+  r.bays = bay_peaks(*mesh_, r.node_moments);
+  r.line_hogging = line_peaks(*mesh_, r.node_moments);
+  const auto R = held_reactions(*mesh_, *solution_, c);
+  r.line_reactions = line_values(*mesh_, R);
+  r.point_reactions = point_values(*mesh_, R);
+  r.corner_forces = corner_forces(c);
+  return r;
 }
 
 std::vector<PointReaction> PlateField::corner_forces(std::size_t c) const {
