@@ -102,8 +102,9 @@ Navier navier_point(double a, double b, double D, double nu, double P, double xi
 double D_of(double nu) { return armature::plate_flexural_rigidity(E, h, nu); }
 
 // The node moments at a mesh node's plan position.
-armature::PlateMoments at_node(const PlateModel& model, const std::vector<armature::PlateMoments>& nodes,
-                               double x, double y) {
+armature::PlateMoments at_node(const PlateModel& model,
+                               const std::vector<armature::PlateMoments>& nodes, double x,
+                               double y) {
   const auto& xs = model.node_x_mm();
   const auto& ys = model.node_y_mm();
   const auto ix = std::lower_bound(xs.begin(), xs.end(), x - 1e-6) - xs.begin();
@@ -123,7 +124,8 @@ TEST_CASE("Plate element stiffness is symmetric and rigid-body motions strain no
   const double a = 600.0, b = 450.0, nu = 0.2, D = D_of(nu);
   const auto k = armature::plate_element_stiffness(a, b, D, nu);
   for (std::size_t r = 0; r < 16; ++r)
-    for (std::size_t c = 0; c < 16; ++c) CHECK(k[16 * r + c] == Approx(k[16 * c + r]).margin(1e-6 * D / (a * b)));
+    for (std::size_t c = 0; c < 16; ++c)
+      CHECK(k[16 * r + c] == Approx(k[16 * c + r]).margin(1e-6 * D / (a * b)));
   // Rigid motions w = 1, w = x, w = y: dofs (w, w,x, w,y, w,xy) per node,
   // nodes (0,0), (a,0), (0,b), (a,b). Common practice (an element passes
   // only if it strains nothing under them).
@@ -143,7 +145,8 @@ TEST_CASE("Plate element stiffness is symmetric and rigid-body motions strain no
   }
 }
 
-TEST_CASE("Plate patch test: a constant-curvature field leaves no force at an inner node", "[plate]") {
+TEST_CASE("Plate patch test: a constant-curvature field leaves no force at an inner node",
+          "[plate]") {
   // Four unequal elements around the node (x = 500, y = 300) of a patch
   // [0, 1300] × [0, 700]; w = x² + 0.6 xy − 0.8 y², which the element
   // represents exactly. Constant moments: no load is needed inside, so the
@@ -152,7 +155,8 @@ TEST_CASE("Plate patch test: a constant-curvature field leaves no force at an in
   const double nu = 0.25, D = D_of(nu);
   const double xs[3] = {0, 500, 1300}, ys[3] = {0, 300, 700};
   auto field = [](double x, double y) {
-    return std::array<double, 4>{x * x + 0.6 * x * y - 0.8 * y * y, 2 * x + 0.6 * y, 0.6 * x - 1.6 * y, 0.6};
+    return std::array<double, 4>{x * x + 0.6 * x * y - 0.8 * y * y, 2 * x + 0.6 * y,
+                                 0.6 * x - 1.6 * y, 0.6};
   };
   std::array<double, 4> inner{};
   for (int ey = 0; ey < 2; ++ey) {
@@ -217,8 +221,8 @@ TEST_CASE("Plate solution against a dense solve assembled here", "[plate]") {
   for (std::size_t iy = 0; iy < rows; ++iy) {
     for (std::size_t ix = 0; ix < cols; ++ix) {
       const std::size_t base = 4 * (ix + cols * iy);
-      if (ix == 0 || ix == 2) held[base] = held[base + 2] = true;   // x0 pinned, line x = 3 m
-      if (iy == 0) held[base] = held[base + 1] = true;              // y0 pinned
+      if (ix == 0 || ix == 2) held[base] = held[base + 2] = true;  // x0 pinned, line x = 3 m
+      if (iy == 0) held[base] = held[base + 1] = true;             // y0 pinned
       if (ix == cols - 1) held[base] = held[base + 1] = held[base + 2] = held[base + 3] = true;
     }
   }
@@ -242,7 +246,8 @@ TEST_CASE("Plate solution against a dense solve assembled here", "[plate]") {
     for (std::size_t c = p + 1; c < dofs; ++c) sum -= K[p * dofs + c] * u[c];
     u[p] = sum / K[p * dofs + p];
   }
-  REQUIRE(model.unknown_count() == static_cast<std::size_t>(std::count(held.begin(), held.end(), false)));
+  REQUIRE(model.unknown_count() ==
+          static_cast<std::size_t>(std::count(held.begin(), held.end(), false)));
   for (std::size_t iy = 0; iy < rows; ++iy) {
     for (std::size_t ix = 0; ix < cols; ++ix) {
       INFO("node (" << xs[ix] << ", " << ys[iy] << ")");
@@ -260,7 +265,9 @@ TEST_CASE("Navier's series reproduces the published simply supported plate table
   // value from memory): w/(q a⁴/D), mx/(q a²), my/(q a²) at the centre, a
   // the short side along x.
   const double nu = 0.3, D = D_of(nu), a = 4000.0;
-  struct Row { double ratio, w, mx, my; };
+  struct Row {
+    double ratio, w, mx, my;
+  };
   const double to_D = 12 * (1 - nu * nu);  // α q b⁴/(E t³) = (α/to_D) q b⁴/D
   const Row rows[] = {{1.0, 0.0444 / to_D, 0.2874 / 6, 0.2874 / 6},
                       {1.5, 0.00772, 0.0812, 0.0498},
@@ -305,7 +312,8 @@ TEST_CASE("Simply supported rectangles at the default mesh match Navier within 1
   }
 }
 
-TEST_CASE("Plate moments converge as the mesh refines, the default within 1 % of the finest", "[plate]") {
+TEST_CASE("Plate moments converge as the mesh refines, the default within 1 % of the finest",
+          "[plate]") {
   const double nu = 0.3, D = D_of(nu), a = 4500.0, b = 6000.0;
   const auto exact = navier_uniform(a, b, D, nu, a / 2, b / 2);
   std::vector<double> error;
@@ -481,8 +489,8 @@ TEST_CASE("Plate reactions balance every load shape", "[plate]") {
   g.poisson_ratio = 0.2;
   PlateModel model(g);
   std::vector<PlateLoadCase> cases(5);
-  cases[0].bay_pressures_MPa = {0.004, 0.0, 0.0, 0.0035};  // checkerboard
-  cases[1].patches.push_back({1300, 6100, 2000, 5300, 0.0075});  // across a grid line
+  cases[0].bay_pressures_MPa = {0.004, 0.0, 0.0, 0.0035};         // checkerboard
+  cases[1].patches.push_back({1300, 6100, 2000, 5300, 0.0075});   // across a grid line
   cases[2].lines.push_back({PlanAxis::x, 2250, 700, 8800, 7.5});  // a wall along x
   cases[3].lines.push_back({PlanAxis::y, 7000, 0, 8100, 4.0});    // to the free edge
   cases[4].points.push_back({2333, 7777, 12000});
@@ -511,7 +519,8 @@ TEST_CASE("Plate reactions balance every load shape", "[plate]") {
       const auto& along = lines[l].runs_along == PlanAxis::y ? ys : xs;
       for (const auto& r : per_line[l]) {
         const double s = lines[l].runs_along == PlanAxis::y ? r.y_mm : r.x_mm;
-        const auto k = static_cast<std::size_t>(std::lower_bound(along.begin(), along.end(), s - 1e-6) - along.begin());
+        const auto k = static_cast<std::size_t>(
+            std::lower_bound(along.begin(), along.end(), s - 1e-6) - along.begin());
         const double trib = 0.5 * ((k > 0 ? along[k] - along[k - 1] : 0) +
                                    (k + 1 < along.size() ? along[k + 1] - along[k] : 0));
         total += r.N_per_mm * trib;
@@ -568,9 +577,12 @@ TEST_CASE("Plate results are symmetric where the floor is", "[plate]") {
   const auto field = model.solve({uniform(model, q)});
   const auto sag = field.bay_sagging(0);
   const double tol = 1e-9 * q * 6000 * 6000;
-  CHECK(sag[model.bay_index(0, 0)].mx.value == Approx(sag[model.bay_index(2, 0)].mx.value).margin(tol));
-  CHECK(sag[model.bay_index(0, 0)].my.value == Approx(sag[model.bay_index(0, 2)].my.value).margin(tol));
-  CHECK(sag[model.bay_index(1, 0)].mx.value == Approx(sag[model.bay_index(1, 2)].mx.value).margin(tol));
+  CHECK(sag[model.bay_index(0, 0)].mx.value ==
+        Approx(sag[model.bay_index(2, 0)].mx.value).margin(tol));
+  CHECK(sag[model.bay_index(0, 0)].my.value ==
+        Approx(sag[model.bay_index(0, 2)].my.value).margin(tol));
+  CHECK(sag[model.bay_index(1, 0)].mx.value ==
+        Approx(sag[model.bay_index(1, 2)].mx.value).margin(tol));
   const auto mirrored = field.node_moments(0);
   const std::size_t columns = model.node_x_mm().size(), rows = model.node_y_mm().size();
   for (std::size_t iy = 0; iy < rows; ++iy) {
@@ -617,7 +629,8 @@ TEST_CASE("Pattern loads on bays: one factorisation, superposition holds", "[pla
   const auto field = model.solve({first, second, both});
   for (double x : {1000.0, 4200.0, 7000.0}) {
     for (double y : {1200.0, 2400.0}) {
-      const auto a = field.moments_at(0, x, y), b = field.moments_at(1, x, y), c = field.moments_at(2, x, y);
+      const auto a = field.moments_at(0, x, y), b = field.moments_at(1, x, y),
+                 c = field.moments_at(2, x, y);
       CHECK(c.mx == Approx(a.mx + b.mx).margin(1e-9 * 4e3 * 5400 * 5400));
       CHECK(c.my == Approx(a.my + b.my).margin(1e-9 * 4e3 * 5400 * 5400));
       CHECK(field.deflection_at(2, x, y) ==

@@ -131,8 +131,8 @@ struct SupportLine {
   PlanAxis runs_along = PlanAxis::y;
   std::size_t grid = 0;
   double position_mm = 0.0;
-  bool interior = false;                   // an interior grid line
-  EndSupport support = EndSupport::pinned; // for an edge: pinned or fixed
+  bool interior = false;                    // an interior grid line
+  EndSupport support = EndSupport::pinned;  // for an edge: pinned or fixed
   std::size_t segment_count = 0;
 };
 

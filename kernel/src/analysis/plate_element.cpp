@@ -13,10 +13,10 @@ namespace {
 // Gauss–Legendre, 4 points on [0, 1]: exact for polynomials of degree 7,
 // which covers the element's stiffness (degree 6 in each direction) and
 // its loads (degree 3).
-constexpr std::array<double, 4> gauss_s{0.0694318442029737, 0.3300094782075719,
-                                        0.6699905217924281, 0.9305681557970263};
-constexpr std::array<double, 4> gauss_w{0.1739274225687269, 0.3260725774312731,
-                                        0.3260725774312731, 0.1739274225687269};
+constexpr std::array<double, 4> gauss_s{0.0694318442029737, 0.3300094782075719, 0.6699905217924281,
+                                        0.9305681557970263};
+constexpr std::array<double, 4> gauss_w{0.1739274225687269, 0.3260725774312731, 0.3260725774312731,
+                                        0.1739274225687269};
 
 // Element dof k = 4·node + d; node = p + 2q with p, q the x and y ends.
 // The x function of dof d at end p is hermite index 2p (value) or 2p + 1

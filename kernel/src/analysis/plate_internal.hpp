@@ -8,8 +8,8 @@
 #include <memory>
 #include <vector>
 
-#include <Eigen/SparseCholesky>
 #include <Eigen/Dense>
+#include <Eigen/SparseCholesky>
 #include <Eigen/SparseCore>
 
 #include "armature/plate.hpp"
@@ -50,11 +50,11 @@ std::array<double, 16> element_point_load(double a, double b, double x, double y
 
 struct PlateMesh {
   PlateGeometry geometry;
-  double D = 0.0;                       // flexural rigidity, N·mm
-  std::size_t nx = 0, ny = 0;           // bays
-  std::size_t n = 0;                    // elements per bay side
-  std::vector<double> x_grid, y_grid;   // bay grid lines
-  std::vector<double> node_x, node_y;   // node coordinates (nx·n + 1, ny·n + 1)
+  double D = 0.0;                                      // flexural rigidity, N·mm
+  std::size_t nx = 0, ny = 0;                          // bays
+  std::size_t n = 0;                                   // elements per bay side
+  std::vector<double> x_grid, y_grid;                  // bay grid lines
+  std::vector<double> node_x, node_y;                  // node coordinates (nx·n + 1, ny·n + 1)
   std::vector<std::array<double, 256>> bay_stiffness;  // element stiffness per bay
 
   // Free dof number of each global dof, or −1 where the dof is held.
@@ -79,7 +79,9 @@ struct PlateMesh {
   std::size_t node(std::size_t ix, std::size_t iy) const { return ix + columns() * iy; }
   std::size_t elements_x() const { return columns() - 1; }
   std::size_t elements_y() const { return rows() - 1; }
-  std::size_t bay_of_element(std::size_t ex, std::size_t ey) const { return ex / n + nx * (ey / n); }
+  std::size_t bay_of_element(std::size_t ex, std::size_t ey) const {
+    return ex / n + nx * (ey / n);
+  }
   // Global dof numbers of element (ex, ey) in element order.
   std::array<std::size_t, 16> element_dofs(std::size_t ex, std::size_t ey) const;
   // Elements along one axis that contain the coordinate v: one, or two

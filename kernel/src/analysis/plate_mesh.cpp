@@ -55,10 +55,9 @@ void add_plate_problems(const PlateGeometry& g, InputProblems& problems) {
   if (!std::isfinite(g.poisson_ratio) || g.poisson_ratio < 0.0 || g.poisson_ratio >= 0.5)
     problems.add("analysis.poisson_ratio", "must be at least 0 and less than 0.5");
   if (g.mesh_per_bay < min_mesh_per_bay || g.mesh_per_bay > max_mesh_per_bay) {
-    problems.add("analysis.mesh_per_bay", "must be a whole number from " +
-                                              std::to_string(min_mesh_per_bay) + " to " +
-                                              std::to_string(max_mesh_per_bay) + ", got " +
-                                              std::to_string(g.mesh_per_bay));
+    problems.add("analysis.mesh_per_bay",
+                 "must be a whole number from " + std::to_string(min_mesh_per_bay) + " to " +
+                     std::to_string(max_mesh_per_bay) + ", got " + std::to_string(g.mesh_per_bay));
   } else {
     const std::size_t n = static_cast<std::size_t>(g.mesh_per_bay);
     const std::size_t elements = g.x_spans_mm.size() * g.y_spans_mm.size() * n * n;
@@ -97,7 +96,8 @@ std::array<std::size_t, 16> PlateMesh::element_dofs(std::size_t ex, std::size_t 
   const std::size_t nodes[4] = {node(ex, ey), node(ex + 1, ey), node(ex, ey + 1),
                                 node(ex + 1, ey + 1)};
   for (std::size_t k = 0; k < 4; ++k)
-    for (std::size_t d = 0; d < dofs_per_node; ++d) dofs[dofs_per_node * k + d] = dofs_per_node * nodes[k] + d;
+    for (std::size_t d = 0; d < dofs_per_node; ++d)
+      dofs[dofs_per_node * k + d] = dofs_per_node * nodes[k] + d;
   return dofs;
 }
 
@@ -126,7 +126,8 @@ std::vector<double> node_lines(const std::vector<double>& grid, std::size_t n) {
   std::vector<double> nodes;
   for (std::size_t i = 0; i + 1 < grid.size(); ++i)
     for (std::size_t k = 0; k < n; ++k)
-      nodes.push_back(grid[i] + (grid[i + 1] - grid[i]) * static_cast<double>(k) / static_cast<double>(n));
+      nodes.push_back(grid[i] +
+                      (grid[i + 1] - grid[i]) * static_cast<double>(k) / static_cast<double>(n));
   nodes.push_back(grid.back());
   return nodes;
 }
@@ -147,8 +148,8 @@ void build_mesh(PlateMesh& m) {
   m.bay_stiffness.clear();
   for (std::size_t j = 0; j < m.ny; ++j)
     for (std::size_t i = 0; i < m.nx; ++i)
-      m.bay_stiffness.push_back(plate_element_stiffness(g.x_spans_mm[i] / side, g.y_spans_mm[j] / side,
-                                                        m.D, g.poisson_ratio));
+      m.bay_stiffness.push_back(plate_element_stiffness(
+          g.x_spans_mm[i] / side, g.y_spans_mm[j] / side, m.D, g.poisson_ratio));
 
   // Support lines: those running along y (x = const) by grid line, then
   // those running along x.

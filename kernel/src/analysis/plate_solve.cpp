@@ -67,7 +67,8 @@ void factorise_edge_masses(PlateMesh& m) {
     for (std::size_t k = 0; k < nodes.size(); ++k) {
       if (m.lines_through_node[nodes[k]] < 2) continue;
       held[2 * k] = 1;
-      if ((k == 0 && first == EndSupport::fixed) || (k + 1 == nodes.size() && last == EndSupport::fixed))
+      if ((k == 0 && first == EndSupport::fixed) ||
+          (k + 1 == nodes.size() && last == EndSupport::fixed))
         held[2 * k + 1] = 1;
     }
     auto factor = std::make_shared<Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>>>();
@@ -104,8 +105,9 @@ void factorise(PlateMesh& m) {
   K.setFromTriplets(triplets.begin(), triplets.end());
   m.factor.compute(K);
   if (m.factor.info() != Eigen::Success)
-    throw std::runtime_error("the plate's stiffness matrix could not be factorised: the supports "
-                             "do not hold the slab (a mechanism)");
+    throw std::runtime_error(
+        "the plate's stiffness matrix could not be factorised: the supports "
+        "do not hold the slab (a mechanism)");
   factorise_edge_masses(m);
 }
 
@@ -142,11 +144,13 @@ void check_case(const PlateMesh& m, const PlateLoadCase& lc, std::size_t c) {
   auto in_y = [&](double v) { return v >= -tol && v <= Ly + tol; };
   require(lc.bay_pressures_MPa.empty() || lc.bay_pressures_MPa.size() == m.nx * m.ny, c,
           "one bay pressure per bay is needed");
-  for (double p : lc.bay_pressures_MPa) require(std::isfinite(p), c, "a bay pressure is not finite");
+  for (double p : lc.bay_pressures_MPa)
+    require(std::isfinite(p), c, "a bay pressure is not finite");
   for (std::size_t i = 0; i < lc.patches.size(); ++i) {
     const auto& p = lc.patches[i];
     const std::string what = "patch " + std::to_string(i + 1);
-    require(finite({p.x0_mm, p.x1_mm, p.y0_mm, p.y1_mm, p.pressure_MPa}), c, what + " is not finite");
+    require(finite({p.x0_mm, p.x1_mm, p.y0_mm, p.y1_mm, p.pressure_MPa}), c,
+            what + " is not finite");
     require(p.x0_mm < p.x1_mm && p.y0_mm < p.y1_mm, c, what + " has no area");
     require(in_x(p.x0_mm) && in_x(p.x1_mm) && in_y(p.y0_mm) && in_y(p.y1_mm), c,
             what + " is off the plate");
@@ -169,9 +173,9 @@ void check_case(const PlateMesh& m, const PlateLoadCase& lc, std::size_t c) {
   }
 }
 
-
 // Elements whose span along one axis overlaps (lo, hi) with positive length.
-std::pair<std::size_t, std::size_t> overlapping(const std::vector<double>& nodes, double lo, double hi) {
+std::pair<std::size_t, std::size_t> overlapping(const std::vector<double>& nodes, double lo,
+                                                double hi) {
   const auto first = std::upper_bound(nodes.begin(), nodes.end(), lo);
   const auto last = std::lower_bound(nodes.begin(), nodes.end(), hi);
   std::size_t a = first == nodes.begin() ? 0 : static_cast<std::size_t>(first - nodes.begin()) - 1;
@@ -283,10 +287,11 @@ PlateField PlateModel::solve(const std::vector<PlateLoadCase>& cases) const {
   Eigen::MatrixXd F(free_count, static_cast<Eigen::Index>(cases.size()));
   for (std::size_t c = 0; c < cases.size(); ++c) {
     double* f = solution->f.data() + c * solution->dofs;
-    element_loads(m, cases[c], [&](std::size_t ex, std::size_t ey, const std::array<double, 16>& fe) {
-      const auto dofs = m.element_dofs(ex, ey);
-      for (std::size_t k = 0; k < 16; ++k) f[dofs[k]] += fe[k];
-    });
+    element_loads(m, cases[c],
+                  [&](std::size_t ex, std::size_t ey, const std::array<double, 16>& fe) {
+                    const auto dofs = m.element_dofs(ex, ey);
+                    for (std::size_t k = 0; k < 16; ++k) f[dofs[k]] += fe[k];
+                  });
     for (std::size_t k = 0; k < solution->dofs; ++k)
       if (m.free_index[k] >= 0) F(m.free_index[k], static_cast<Eigen::Index>(c)) = f[k];
   }
@@ -363,7 +368,8 @@ void check_case_index(std::size_t c, std::size_t cases) {
 
 // Upward reaction at every held dof (zero at free ones): f − K u, with
 // K u summed element by element at the held dofs.
-std::vector<double> held_reactions(const PlateMesh& m, const detail::PlateSolution& s, std::size_t c) {
+std::vector<double> held_reactions(const PlateMesh& m, const detail::PlateSolution& s,
+                                   std::size_t c) {
   const double* u = s.displacement(c);
   const double* f = s.load(c);
   std::vector<double> Ku(s.dofs, 0.0);
@@ -434,7 +440,8 @@ const Weights1D& patch_weights() {
     for (int t = 0; t < 3; ++t) {
       const Eigen::RowVector3d at(1.0, t, t * t);
       const Eigen::RowVector4d row = at * fit;
-      for (int i = 0; i < 4; ++i) w[static_cast<std::size_t>(t)][static_cast<std::size_t>(i)] = row(i);
+      for (int i = 0; i < 4; ++i)
+        w[static_cast<std::size_t>(t)][static_cast<std::size_t>(i)] = row(i);
     }
     return w;
   }();
@@ -442,7 +449,8 @@ const Weights1D& patch_weights() {
 }
 
 // Bays (along one axis) whose closed range holds mesh line k.
-std::array<std::size_t, 2> bays_beside(std::size_t k, std::size_t n, std::size_t bays, std::size_t* count) {
+std::array<std::size_t, 2> bays_beside(std::size_t k, std::size_t n, std::size_t bays,
+                                       std::size_t* count) {
   std::array<std::size_t, 2> out{};
   *count = 0;
   if (k % n == 0 && k > 0) out[(*count)++] = k / n - 1;
@@ -466,9 +474,9 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
   for (std::size_t j = 0; j < m.ny; ++j)
     for (std::size_t i = 0; i < m.nx; ++i)
       for (std::size_t k = 0; k < 4; ++k)
-        gauss[i + m.nx * j][k] = detail::element_shape(
-            m.geometry.x_spans_mm[i] / side, m.geometry.y_spans_mm[j] / side,
-            k % 2 == 0 ? g : 1 - g, k / 2 == 0 ? g : 1 - g);
+        gauss[i + m.nx * j][k] =
+            detail::element_shape(m.geometry.x_spans_mm[i] / side, m.geometry.y_spans_mm[j] / side,
+                                  k % 2 == 0 ? g : 1 - g, k / 2 == 0 ? g : 1 - g);
   std::vector<PlateMoments> samples(ex_count * ey_count * 4);
   for (std::size_t ey = 0; ey < ey_count; ++ey) {
     for (std::size_t ex = 0; ex < ex_count; ++ex) {
@@ -498,10 +506,12 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
       const auto ix_bays = bays_beside(ix, m.n, m.nx, &nx_beside);
       PlateMoments sum;
       for (std::size_t a = 0; a < nx_beside; ++a) {
-        const std::size_t bx = std::clamp(ix == 0 ? 0 : ix - 1, ix_bays[a] * m.n, (ix_bays[a] + 1) * m.n - 2);
+        const std::size_t bx =
+            std::clamp(ix == 0 ? 0 : ix - 1, ix_bays[a] * m.n, (ix_bays[a] + 1) * m.n - 2);
         const std::size_t px = ix - bx;
         for (std::size_t b = 0; b < ny_beside; ++b) {
-          const std::size_t by = std::clamp(iy == 0 ? 0 : iy - 1, jy[b] * m.n, (jy[b] + 1) * m.n - 2);
+          const std::size_t by =
+              std::clamp(iy == 0 ? 0 : iy - 1, jy[b] * m.n, (jy[b] + 1) * m.n - 2);
           const std::size_t py = iy - by;
           for (std::size_t ey = by; ey < by + 2; ++ey) {
             for (std::size_t ex = bx; ex < bx + 2; ++ex) {
@@ -544,7 +554,8 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
     for (std::size_t k = 0; k < nodes.size(); ++k) {
       const double* Rn = R.data() + detail::dofs_per_node * nodes[k];
       rhs(static_cast<Eigen::Index>(2 * k)) = held[2 * k] ? 0.0 : beyond * Rn[across];
-      rhs(static_cast<Eigen::Index>(2 * k + 1)) = held[2 * k + 1] ? 0.0 : beyond * Rn[detail::dof_wxy];
+      rhs(static_cast<Eigen::Index>(2 * k + 1)) =
+          held[2 * k + 1] ? 0.0 : beyond * Rn[detail::dof_wxy];
     }
     const Eigen::VectorXd hogging = m.edge_mass[l]->solve(rhs);
     for (std::size_t k = 0; k < nodes.size(); ++k) {
@@ -576,7 +587,8 @@ std::vector<BaySagging> bay_peaks(const PlateMesh& m, const std::vector<PlateMom
   return bays;
 }
 
-std::vector<std::vector<PlanPeak>> line_peaks(const PlateMesh& m, const std::vector<PlateMoments>& moments) {
+std::vector<std::vector<PlanPeak>> line_peaks(const PlateMesh& m,
+                                              const std::vector<PlateMoments>& moments) {
   std::vector<std::vector<PlanPeak>> out;
   for (std::size_t l = 0; l < m.lines.size(); ++l) {
     const auto& line = m.lines[l];
@@ -599,7 +611,8 @@ std::vector<std::vector<PlanPeak>> line_peaks(const PlateMesh& m, const std::vec
   return out;
 }
 
-std::vector<std::vector<LineReaction>> line_values(const PlateMesh& m, const std::vector<double>& R) {
+std::vector<std::vector<LineReaction>> line_values(const PlateMesh& m,
+                                                   const std::vector<double>& R) {
   std::vector<std::vector<LineReaction>> out;
   for (std::size_t l = 0; l < m.lines.size(); ++l) {
     const auto& nodes = m.line_nodes[l];
@@ -668,8 +681,8 @@ std::vector<PointReaction> PlateField::corner_forces(std::size_t c) const {
     const EndSupport ex = far_x ? e.x1 : e.x0, ey = far_y ? e.y1 : e.y0;
     if (ex == EndSupport::free || ey == EndSupport::free) continue;
     const std::size_t nd = m.node(far_x ? m.columns() - 1 : 0, far_y ? m.rows() - 1 : 0);
-    const double mxy = -m.D * (1.0 - m.geometry.poisson_ratio) *
-                       u[detail::dofs_per_node * nd + detail::dof_wxy];
+    const double mxy =
+        -m.D * (1.0 - m.geometry.poisson_ratio) * u[detail::dofs_per_node * nd + detail::dof_wxy];
     const double nx = far_x ? 1.0 : -1.0, ny = far_y ? 1.0 : -1.0;
     out.push_back({m.node_x[nd % m.columns()], m.node_y[nd / m.columns()], 2.0 * mxy * nx * ny});
   }
