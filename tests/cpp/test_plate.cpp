@@ -389,6 +389,38 @@ TEST_CASE("Two long bays over an interior line give the two-span strip's moments
   CHECK(sag[1].mx.x_mm == Approx(2 * l - 3 * l / 8));
 }
 
+TEST_CASE("Line and patch loads on a one-way plate against strip statics", "[plate]") {
+  // A 4.0 m span between pinned edges x0 and x1, 12 m wide, free along y0
+  // and y1: away from the free edges it bends as a strip (beam tables,
+  // from memory). A partition along y at mid-span, 4.5 N/mm: P l/4 at
+  // mid-span; a 7.5 kPa patch over the middle half of the span across the
+  // whole width: (q c / 2)(l/2) − q (c/2)²/2 with c = l/2.
+  const double l = 4000.0, B = 12000.0, p_line = 4.5, q_patch = 0.0075;
+  PlateGeometry g = bay(l, B, 0.2);
+  g.edges = {EndSupport::pinned, EndSupport::pinned, EndSupport::free, EndSupport::free};
+  PlateModel model(g);
+  PlateLoadCase line, patch, whole, pressure;
+  line.lines.push_back({PlanAxis::y, l / 2, 0.0, B, p_line});
+  patch.patches.push_back({l / 4, 3 * l / 4, 0.0, B, q_patch});
+  whole.patches.push_back({0.0, l, 0.0, B, q});
+  pressure.bay_pressures_MPa = {q};
+  const auto field = model.solve({line, patch, whole, pressure});
+  const auto at_middle = [&](std::size_t c) { return at_node(model, field.node_moments(c), l / 2, B / 2); };
+  CHECK(at_middle(0).mx == Approx(p_line * l / 4).epsilon(0.01));
+  const double c = l / 2;
+  CHECK(at_middle(1).mx == Approx(q_patch * c / 2 * l / 2 - q_patch * c * c / 8).epsilon(0.01));
+  CHECK(at_middle(3).mx == Approx(q * l * l / 8).epsilon(0.01));
+  // A patch over the whole bay is the bay's pressure.
+  CHECK(at_middle(2).mx == Approx(at_middle(3).mx).epsilon(1e-9));
+  CHECK(field.deflection_at(2, 1000, 2000) == Approx(field.deflection_at(3, 1000, 2000)).epsilon(1e-9));
+  // Each edge carries half of the load per metre of edge, away from the
+  // free corners (statics of the strip).
+  const auto reactions = field.line_reactions(0);
+  for (const auto& edge : reactions)
+    for (const auto& r : edge)
+      if (std::abs(r.y_mm - B / 2) < 1e-6) CHECK(r.N_per_mm == Approx(p_line / 2).epsilon(0.01));
+}
+
 TEST_CASE("Clamped square: centre 0.0231 q a², middle of an edge −0.0513 q a²", "[plate]") {
   // Timoshenko & Woinowsky-Krieger Table 35, ν = 0.3 (value from memory);
   // the table's centre value is given to three figures, and later series

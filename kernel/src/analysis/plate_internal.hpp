@@ -99,6 +99,7 @@ struct PlateSolution {
   std::size_t dofs = 0;
   std::vector<double> u;  // displacements, dofs × cases (column-major)
   std::vector<double> f;  // applied nodal loads, dofs × cases
+  std::vector<PlateLoadCase> load_cases;  // where their moments are kinked
   const double* displacement(std::size_t c) const { return u.data() + c * dofs; }
   const double* load(std::size_t c) const { return f.data() + c * dofs; }
 };

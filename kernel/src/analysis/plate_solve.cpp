@@ -279,6 +279,7 @@ PlateField PlateModel::solve(const std::vector<PlateLoadCase>& cases) const {
   for (std::size_t c = 0; c < cases.size(); ++c) check_case(m, cases[c], c);
   auto solution = std::make_shared<detail::PlateSolution>();
   solution->cases = cases.size();
+  solution->load_cases = cases;
   solution->dofs = m.free_index.size();
   solution->f.assign(solution->dofs * cases.size(), 0.0);
   solution->u.assign(solution->dofs * cases.size(), 0.0);
@@ -458,6 +459,55 @@ std::array<std::size_t, 2> bays_beside(std::size_t k, std::size_t n, std::size_t
   return out;
 }
 
+// The first element of each patch (two elements along one axis) for mesh
+// line k, in each bay beside it: centred on the line where the bay has
+// elements on both sides, unless the moment is kinked along the line (a
+// line or point load on it), where one patch on each side extrapolates
+// to the line rather than fitting across the kink.
+struct BlockStarts {
+  std::array<std::size_t, 4> start{};
+  std::size_t count = 0;
+};
+BlockStarts block_starts(std::size_t k, const std::array<std::size_t, 2>& bays, std::size_t bay_count,
+                         std::size_t n, bool kinked) {
+  BlockStarts out;
+  for (std::size_t a = 0; a < bay_count; ++a) {
+    const std::size_t first = bays[a] * n, last = (bays[a] + 1) * n - 2;  // patch starts
+    const bool before = k > bays[a] * n, after = k < (bays[a] + 1) * n;
+    if (before && after && !kinked) {
+      out.start[out.count++] = std::clamp(k - 1, first, last);
+      continue;
+    }
+    if (before) out.start[out.count++] = std::clamp(k < 2 ? 0 : k - 2, first, last);
+    if (after) out.start[out.count++] = std::clamp(k, first, last);
+  }
+  return out;
+}
+
+// Mesh lines along which a load case's moments are kinked: those a line
+// load runs along or a point load sits on (kinked_x: lines x = const).
+void kinked_lines(const PlateMesh& m, const PlateLoadCase& lc, std::vector<bool>& kinked_x,
+                  std::vector<bool>& kinked_y) {
+  kinked_x.assign(m.columns(), false);
+  kinked_y.assign(m.rows(), false);
+  const double tol = 1e-9 * std::max(m.node_x.back(), m.node_y.back());
+  auto mark = [tol](const std::vector<double>& nodes, double v, std::vector<bool>& kinked) {
+    const auto it = std::lower_bound(nodes.begin(), nodes.end(), v - tol);
+    if (it != nodes.end() && std::abs(*it - v) <= tol)
+      kinked[static_cast<std::size_t>(it - nodes.begin())] = true;
+  };
+  for (const auto& l : lc.lines) {
+    if (l.runs_along == PlanAxis::y)
+      mark(m.node_x, l.at_mm, kinked_x);
+    else
+      mark(m.node_y, l.at_mm, kinked_y);
+  }
+  for (const auto& p : lc.points) {
+    mark(m.node_x, p.x_mm, kinked_x);
+    mark(m.node_y, p.y_mm, kinked_y);
+  }
+}
+
 }  // namespace
 
 std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
@@ -497,22 +547,22 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
   }
 
   const auto& w = patch_weights();
+  std::vector<bool> kinked_x, kinked_y;
+  kinked_lines(m, solution_->load_cases[c], kinked_x, kinked_y);
   std::vector<PlateMoments> out(m.columns() * m.rows());
   for (std::size_t iy = 0; iy < m.rows(); ++iy) {
     std::size_t ny_beside = 0;
     const auto jy = bays_beside(iy, m.n, m.ny, &ny_beside);
+    const auto ys = block_starts(iy, jy, ny_beside, m.n, kinked_y[iy]);
     for (std::size_t ix = 0; ix < m.columns(); ++ix) {
       std::size_t nx_beside = 0;
       const auto ix_bays = bays_beside(ix, m.n, m.nx, &nx_beside);
       PlateMoments sum;
-      for (std::size_t a = 0; a < nx_beside; ++a) {
-        const std::size_t bx =
-            std::clamp(ix == 0 ? 0 : ix - 1, ix_bays[a] * m.n, (ix_bays[a] + 1) * m.n - 2);
-        const std::size_t px = ix - bx;
-        for (std::size_t b = 0; b < ny_beside; ++b) {
-          const std::size_t by =
-              std::clamp(iy == 0 ? 0 : iy - 1, jy[b] * m.n, (jy[b] + 1) * m.n - 2);
-          const std::size_t py = iy - by;
+      const auto xs = block_starts(ix, ix_bays, nx_beside, m.n, kinked_x[ix]);
+      for (std::size_t a = 0; a < xs.count; ++a) {
+        const std::size_t bx = xs.start[a], px = ix - bx;
+        for (std::size_t b = 0; b < ys.count; ++b) {
+          const std::size_t by = ys.start[b], py = iy - by;
           for (std::size_t ey = by; ey < by + 2; ++ey) {
             for (std::size_t ex = bx; ex < bx + 2; ++ex) {
               const PlateMoments* s = samples.data() + 4 * (ex + ex_count * ey);
@@ -526,7 +576,7 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
           }
         }
       }
-      const double count = static_cast<double>(nx_beside * ny_beside);
+      const double count = static_cast<double>(xs.count * ys.count);
       out[m.node(ix, iy)] = {sum.mx / count, sum.my / count, sum.mxy / count};
     }
   }
