@@ -572,6 +572,66 @@ TEST_CASE("Plate reactions balance every load shape", "[plate]") {
   }
 }
 
+TEST_CASE("Random floors and loads: reactions balance the load", "[plate]") {
+  // 40 floors of 1–3 by 1–3 bays (2.4–7.2 m), every edge condition that
+  // holds the slab, 2–6 elements per bay side, each with a random pattern
+  // of bay pressures, a patch, a line along each axis and a point load.
+  // Statics, as above: whatever the geometry, the reactions' resultant is
+  // the load's (virtual work with the rigid motions), and every reported
+  // value is finite.
+  std::mt19937 rng(1414);
+  std::uniform_real_distribution<double> unit(0.0, 1.0);
+  const EndSupport kinds[3] = {EndSupport::pinned, EndSupport::fixed, EndSupport::free};
+  int analysed = 0;
+  for (int trial = 0; trial < 40; ++trial) {
+    PlateGeometry g;
+    const auto count = [&] { return 1 + static_cast<std::size_t>(unit(rng) * 2.999); };
+    g.x_spans_mm.resize(count());
+    g.y_spans_mm.resize(count());
+    for (auto& L : g.x_spans_mm) L = 2400 + 4800 * unit(rng);
+    for (auto& L : g.y_spans_mm) L = 2400 + 4800 * unit(rng);
+    const auto kind = [&] { return kinds[static_cast<std::size_t>(unit(rng) * 2.999)]; };
+    g.edges = {kind(), kind(), kind(), kind()};
+    g.thickness_mm = 150 + 150 * unit(rng);
+    g.elastic_modulus_MPa = 30000;
+    g.poisson_ratio = 0.2 * unit(rng);
+    g.mesh_per_bay = 2 + static_cast<int>(unit(rng) * 4.999);
+    armature::InputProblems problems;
+    armature::add_plate_problems(g, problems);
+    if (!problems.empty()) continue;  // a mechanism: refused, tested above
+    PlateModel model(g);
+    const double Lx = model.x_grid_mm().back(), Ly = model.y_grid_mm().back();
+    PlateLoadCase lc;
+    for (std::size_t b = 0; b < model.bay_count(); ++b)
+      lc.bay_pressures_MPa.push_back(unit(rng) < 0.5 ? 0.0 : 0.003 + 0.004 * unit(rng));
+    const double x0 = Lx * unit(rng), y0 = Ly * unit(rng);
+    lc.patches.push_back({x0, x0 + (Lx - x0) * unit(rng) + 1.0, y0, y0 + (Ly - y0) * unit(rng) + 1.0, 0.006});
+    lc.patches.back().x1_mm = std::min(lc.patches.back().x1_mm, Lx);
+    lc.patches.back().y1_mm = std::min(lc.patches.back().y1_mm, Ly);
+    lc.lines.push_back({PlanAxis::x, Ly * unit(rng), 0.0, Lx * (0.2 + 0.8 * unit(rng)), 5.0});
+    lc.lines.push_back({PlanAxis::y, Lx * unit(rng), Ly * 0.3 * unit(rng), Ly, 3.0});
+    lc.points.push_back({Lx * unit(rng), Ly * unit(rng), 9000.0});
+    const auto field = model.solve({lc});
+    const auto load = model.load_resultant(lc);
+    const auto reaction = field.reaction_resultant(0);
+    INFO("trial " << trial);
+    CHECK(reaction.force_N == Approx(load.force_N).epsilon(1e-8));
+    CHECK(reaction.force_x_Nmm == Approx(load.force_x_Nmm).epsilon(1e-8));
+    CHECK(reaction.force_y_Nmm == Approx(load.force_y_Nmm).epsilon(1e-8));
+    const auto all = field.case_results(0);
+    bool finite = true;
+    for (const auto& m : all.node_moments)
+      finite = finite && std::isfinite(m.mx) && std::isfinite(m.my) && std::isfinite(m.mxy);
+    for (const auto& line : all.line_reactions)
+      for (const auto& r : line) finite = finite && std::isfinite(r.N_per_mm);
+    CHECK(finite);
+    CHECK(all.bays.size() == model.bay_count());
+    CHECK(all.line_hogging.size() == model.support_lines().size());
+    ++analysed;
+  }
+  CHECK(analysed > 25);
+}
+
 TEST_CASE("A plate cantilevered from one fixed edge carries q L²/2 at its root", "[plate]") {
   // A 1.5 m balcony 6.0 m wide, fixed along x0, free elsewhere. Statics:
   // the root carries the whole load and its moment, q L B and q L² B / 2;
