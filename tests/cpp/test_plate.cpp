@@ -421,6 +421,69 @@ TEST_CASE("Line and patch loads on a one-way plate against strip statics", "[pla
       if (std::abs(r.y_mm - B / 2) < 1e-6) CHECK(r.N_per_mm == Approx(p_line / 2).epsilon(0.01));
 }
 
+TEST_CASE("Mesh lines through the loads keep the moment's peak under them", "[plate]") {
+  // The one-way plate above with the partition at 0.45 of the span,
+  // between the default mesh's lines: P a b/l under it (beam tables) once
+  // a mesh line runs through it.
+  const double l = 4000.0, B = 12000.0, P = 4.5, a = 1800.0;
+  PlateGeometry g = bay(l, B, 0.2);
+  g.edges = {EndSupport::pinned, EndSupport::pinned, EndSupport::free, EndSupport::free};
+  g.mesh_lines_x_mm = {a};
+  PlateModel model(g);
+  const auto& xs = model.node_x_mm();
+  CHECK(std::count(xs.begin(), xs.end(), a) == 1);
+  CHECK(xs.size() == 10);  // 200 mm from the line at 2000: more than a quarter element, added
+  PlateLoadCase lc;
+  lc.lines.push_back({PlanAxis::y, a, 0.0, B, P});
+  const auto field = model.solve({lc});
+  const auto sag = field.bay_sagging(0)[0];
+  CHECK(sag.mx.x_mm == Approx(a));
+  CHECK(at_node(model, field.node_moments(0), a, B / 2).mx == Approx(P * a * (l - a) / l).epsilon(0.01));
+
+  // A position far from the uniform lines adds one; positions on a grid
+  // line add nothing; a position off the plate is refused.
+  PlateGeometry h = bay(4000, 4000, 0.2);
+  h.mesh_lines_x_mm = {1250.0, 4000.0};  // 1250 is midway between lines: added
+  h.mesh_lines_y_mm = {0.0, 2100.0};      // 2100 is 100 mm from 2000: moved
+  PlateModel added(h);
+  CHECK(added.node_x_mm().size() == 10);
+  CHECK(added.node_y_mm().size() == 9);
+  CHECK(added.node_y_mm()[4] == 2100.0);
+  h.mesh_lines_y_mm = {4200.0};
+  CHECK_THROWS_AS(PlateModel(h), std::invalid_argument);
+}
+
+TEST_CASE("A point load on mesh lines against Navier's series", "[plate]") {
+  // The 5 kN machine of the point-load test, mesh lines through it: the
+  // moments beside it follow Navier's series (the moments under a point
+  // load are singular: compared three elements away, along both lines).
+  const double nu = 0.2, D = D_of(nu), a = 4800.0, b = 6000.0, P = 5000.0;
+  const double xi = 1750.0, eta = 3400.0;
+  PlateGeometry g = bay(a, b, nu, 12);
+  g.mesh_lines_x_mm = {xi};
+  g.mesh_lines_y_mm = {eta};
+  PlateModel model(g);
+  PlateLoadCase lc;
+  lc.points.push_back({xi, eta, P});
+  const auto field = model.solve({lc});
+  CHECK(field.deflection_at(0, xi, eta) == Approx(navier_point(a, b, D, nu, P, xi, eta, xi, eta).w).epsilon(0.01));
+  const auto nodes = field.node_moments(0);
+  const auto& xs = model.node_x_mm();
+  const auto& ys = model.node_y_mm();
+  const auto ix = static_cast<std::size_t>(std::find(xs.begin(), xs.end(), xi) - xs.begin());
+  const auto iy = static_cast<std::size_t>(std::find(ys.begin(), ys.end(), eta) - ys.begin());
+  REQUIRE(ix + 3 < xs.size());
+  REQUIRE(iy + 3 < ys.size());
+  for (std::size_t d : {0u, 1u}) {
+    const double x = xs[ix + (d == 0 ? 3 : 0)], y = ys[iy + (d == 1 ? 3 : 0)];
+    const auto exact = navier_point(a, b, D, nu, P, xi, eta, x, y);
+    const auto m = at_node(model, nodes, x, y);
+    INFO("at (" << x << ", " << y << ")");
+    CHECK(m.mx == Approx(exact.mx).epsilon(0.03));
+    CHECK(m.my == Approx(exact.my).epsilon(0.03));
+  }
+}
+
 TEST_CASE("Clamped square: centre 0.0231 q a², middle of an edge −0.0513 q a²", "[plate]") {
   // Timoshenko & Woinowsky-Krieger Table 35, ν = 0.3 (value from memory);
   // the table's centre value is given to three figures, and later series
@@ -611,6 +674,11 @@ TEST_CASE("Random floors and loads: reactions balance the load", "[plate]") {
     lc.lines.push_back({PlanAxis::x, Ly * unit(rng), 0.0, Lx * (0.2 + 0.8 * unit(rng)), 5.0});
     lc.lines.push_back({PlanAxis::y, Lx * unit(rng), Ly * 0.3 * unit(rng), Ly, 3.0});
     lc.points.push_back({Lx * unit(rng), Ly * unit(rng), 9000.0});
+    if (trial % 2 == 0) {  // with mesh lines through the line and point loads
+      g.mesh_lines_x_mm = {lc.lines[1].at_mm, lc.points[0].x_mm};
+      g.mesh_lines_y_mm = {lc.lines[0].at_mm, lc.points[0].y_mm};
+      model = PlateModel(g);
+    }
     const auto field = model.solve({lc});
     const auto load = model.load_resultant(lc);
     const auto reaction = field.reaction_resultant(0);

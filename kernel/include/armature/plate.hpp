@@ -58,6 +58,15 @@ struct PlateGeometry {
   double elastic_modulus_MPa = 0.0;
   double poisson_ratio = 0.2;
   int mesh_per_bay = default_plate_mesh_per_bay;
+  // Positions (mm from x = 0, from y = 0) that mesh lines must pass
+  // through: where line loads run and point loads act, so that the node
+  // moments keep the peak under them. Each bay is divided into
+  // mesh_per_bay equal elements, then the mesh line nearest each position
+  // moves onto it (when within a quarter of an element) or a mesh line is
+  // added there. A position on a grid line needs nothing; one off the
+  // plate or not finite is refused (std::invalid_argument).
+  std::vector<double> mesh_lines_x_mm{};
+  std::vector<double> mesh_lines_y_mm{};
 };
 
 // What cannot be analysed, each problem named by its contract-v2 request

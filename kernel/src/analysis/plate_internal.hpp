@@ -50,12 +50,18 @@ std::array<double, 16> element_point_load(double a, double b, double x, double y
 
 struct PlateMesh {
   PlateGeometry geometry;
-  double D = 0.0;                                      // flexural rigidity, N·mm
-  std::size_t nx = 0, ny = 0;                          // bays
-  std::size_t n = 0;                                   // elements per bay side
-  std::vector<double> x_grid, y_grid;                  // bay grid lines
-  std::vector<double> node_x, node_y;                  // node coordinates (nx·n + 1, ny·n + 1)
-  std::vector<std::array<double, 256>> bay_stiffness;  // element stiffness per bay
+  double D = 0.0;                      // flexural rigidity, N·mm
+  std::size_t nx = 0, ny = 0;          // bays
+  std::vector<double> x_grid, y_grid;  // bay grid lines
+  std::vector<double> node_x, node_y;  // node coordinates
+  // Node index of each grid line along x and along y (nx + 1, ny + 1):
+  // bay i spans nodes grid_node_x[i] to grid_node_x[i + 1].
+  std::vector<std::size_t> grid_node_x, grid_node_y;
+  // Per element column (row): its bay, and its width (height) class; the
+  // element stiffness for class pair (cx, cy) is stiffness[cx + widths·cy].
+  std::vector<std::size_t> column_bay, row_bay, column_class, row_class;
+  std::vector<double> widths, heights;
+  std::vector<std::array<double, 256>> stiffness;
 
   // Free dof number of each global dof, or −1 where the dof is held.
   std::vector<long> free_index;
@@ -80,7 +86,14 @@ struct PlateMesh {
   std::size_t elements_x() const { return columns() - 1; }
   std::size_t elements_y() const { return rows() - 1; }
   std::size_t bay_of_element(std::size_t ex, std::size_t ey) const {
-    return ex / n + nx * (ey / n);
+    return column_bay[ex] + nx * row_bay[ey];
+  }
+  std::size_t element_class(std::size_t ex, std::size_t ey) const {
+    return column_class[ex] + widths.size() * row_class[ey];
+  }
+  std::size_t class_count() const { return widths.size() * heights.size(); }
+  const std::array<double, 256>& element_stiffness(std::size_t ex, std::size_t ey) const {
+    return stiffness[element_class(ex, ey)];
   }
   // Global dof numbers of element (ex, ey) in element order.
   std::array<std::size_t, 16> element_dofs(std::size_t ex, std::size_t ey) const;

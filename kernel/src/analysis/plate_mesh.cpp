@@ -2,6 +2,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <stdexcept>
 #include <string>
 
 #include "plate_internal.hpp"
@@ -122,14 +123,66 @@ std::vector<double> grid_lines(const std::vector<double>& spans) {
   return grid;
 }
 
-std::vector<double> node_lines(const std::vector<double>& grid, std::size_t n) {
+// Node coordinates along one axis: n equal elements per bay, then each
+// extra position inside a bay either takes the nearest interior node of
+// that bay (within a quarter of an element, if no other position has it)
+// or adds a node. grid_nodes gets the node index of each grid line.
+std::vector<double> node_lines(const std::vector<double>& grid, std::size_t n,
+                               const std::vector<double>& extra, const char* axis,
+                               std::vector<std::size_t>& grid_nodes) {
+  const double tol = 1e-9 * (grid.back() - grid.front());
+  for (double p : extra) {
+    if (!std::isfinite(p) || p < grid.front() - tol || p > grid.back() + tol)
+      throw std::invalid_argument(std::string("plate mesh line ") + axis + " = " +
+                                  std::to_string(p) + " mm is off the plate");
+  }
   std::vector<double> nodes;
-  for (std::size_t i = 0; i + 1 < grid.size(); ++i)
-    for (std::size_t k = 0; k < n; ++k)
-      nodes.push_back(grid[i] +
-                      (grid[i + 1] - grid[i]) * static_cast<double>(k) / static_cast<double>(n));
+  grid_nodes.clear();
+  for (std::size_t i = 0; i + 1 < grid.size(); ++i) {
+    const double g0 = grid[i], g1 = grid[i + 1], h = (g1 - g0) / static_cast<double>(n);
+    std::vector<double> bay;
+    std::vector<bool> taken(n + 1, false);
+    for (std::size_t k = 0; k <= n; ++k) bay.push_back(g0 + h * static_cast<double>(k));
+    bay.back() = g1;
+    std::vector<double> added;
+    for (double p : extra) {
+      if (p <= g0 + tol || p >= g1 - tol) continue;
+      const auto k = static_cast<std::size_t>(std::lround((p - g0) / h));
+      if (k >= 1 && k + 1 <= n && !taken[k] && std::abs(bay[k] - p) <= 0.25 * h) {
+        bay[k] = p;
+        taken[k] = true;
+      } else {
+        added.push_back(p);
+      }
+    }
+    bay.insert(bay.end(), added.begin(), added.end());
+    std::sort(bay.begin(), bay.end());
+    bay.erase(std::unique(bay.begin(), bay.end(), [tol](double a, double b) { return b - a <= tol; }),
+              bay.end());
+    grid_nodes.push_back(nodes.size());
+    nodes.insert(nodes.end(), bay.begin(), bay.end() - 1);
+  }
+  grid_nodes.push_back(nodes.size());
   nodes.push_back(grid.back());
   return nodes;
+}
+
+// Each element column's bay and size class (sizes equal to 1e-12 share one).
+void classify(const std::vector<double>& nodes, const std::vector<std::size_t>& grid_nodes,
+              std::vector<std::size_t>& bay_of, std::vector<std::size_t>& class_of,
+              std::vector<double>& sizes) {
+  bay_of.assign(nodes.size() - 1, 0);
+  class_of.assign(nodes.size() - 1, 0);
+  sizes.clear();
+  for (std::size_t b = 0; b + 1 < grid_nodes.size(); ++b)
+    for (std::size_t e = grid_nodes[b]; e < grid_nodes[b + 1]; ++e) bay_of[e] = b;
+  for (std::size_t e = 0; e + 1 < nodes.size(); ++e) {
+    const double size = nodes[e + 1] - nodes[e];
+    std::size_t c = 0;
+    while (c < sizes.size() && std::abs(sizes[c] - size) > 1e-12 * size) ++c;
+    if (c == sizes.size()) sizes.push_back(size);
+    class_of[e] = c;
+  }
 }
 }  // namespace
 
@@ -138,18 +191,17 @@ void build_mesh(PlateMesh& m) {
   m.D = plate_flexural_rigidity(g.elastic_modulus_MPa, g.thickness_mm, g.poisson_ratio);
   m.nx = g.x_spans_mm.size();
   m.ny = g.y_spans_mm.size();
-  m.n = static_cast<std::size_t>(g.mesh_per_bay);
+  const auto n = static_cast<std::size_t>(g.mesh_per_bay);
   m.x_grid = grid_lines(g.x_spans_mm);
   m.y_grid = grid_lines(g.y_spans_mm);
-  m.node_x = node_lines(m.x_grid, m.n);
-  m.node_y = node_lines(m.y_grid, m.n);
-
-  const double side = static_cast<double>(m.n);
-  m.bay_stiffness.clear();
-  for (std::size_t j = 0; j < m.ny; ++j)
-    for (std::size_t i = 0; i < m.nx; ++i)
-      m.bay_stiffness.push_back(plate_element_stiffness(
-          g.x_spans_mm[i] / side, g.y_spans_mm[j] / side, m.D, g.poisson_ratio));
+  m.node_x = node_lines(m.x_grid, n, g.mesh_lines_x_mm, "x", m.grid_node_x);
+  m.node_y = node_lines(m.y_grid, n, g.mesh_lines_y_mm, "y", m.grid_node_y);
+  classify(m.node_x, m.grid_node_x, m.column_bay, m.column_class, m.widths);
+  classify(m.node_y, m.grid_node_y, m.row_bay, m.row_class, m.heights);
+  m.stiffness.clear();
+  for (double b : m.heights)
+    for (double a : m.widths)
+      m.stiffness.push_back(plate_element_stiffness(a, b, m.D, g.poisson_ratio));
 
   // Support lines: those running along y (x = const) by grid line, then
   // those running along x.
@@ -169,9 +221,9 @@ void build_mesh(PlateMesh& m) {
     std::vector<std::size_t> nodes;
     const Dof along_slope = along == PlanAxis::y ? dof_wy : dof_wx;
     if (along == PlanAxis::y) {
-      for (std::size_t iy = 0; iy < m.rows(); ++iy) nodes.push_back(m.node(grid * m.n, iy));
+      for (std::size_t iy = 0; iy < m.rows(); ++iy) nodes.push_back(m.node(m.grid_node_x[grid], iy));
     } else {
-      for (std::size_t ix = 0; ix < m.columns(); ++ix) nodes.push_back(m.node(ix, grid * m.n));
+      for (std::size_t ix = 0; ix < m.columns(); ++ix) nodes.push_back(m.node(ix, m.grid_node_y[grid]));
     }
     for (std::size_t nd : nodes) {
       // w = 0 along the line makes the slope along it 0 too; a fixed edge

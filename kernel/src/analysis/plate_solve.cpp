@@ -87,7 +87,7 @@ void factorise(PlateMesh& m) {
   triplets.reserve(m.elements_x() * m.elements_y() * 136);
   for (std::size_t ey = 0; ey < m.elements_y(); ++ey) {
     for (std::size_t ex = 0; ex < m.elements_x(); ++ex) {
-      const auto& k = m.bay_stiffness[m.bay_of_element(ex, ey)];
+      const auto& k = m.element_stiffness(ex, ey);
       const auto dofs = m.element_dofs(ex, ey);
       for (std::size_t r = 0; r < 16; ++r) {
         const long fr = m.free_index[dofs[r]];
@@ -188,15 +188,27 @@ std::pair<std::size_t, std::size_t> overlapping(const std::vector<double>& nodes
 // scatter(ex, ey, element load vector).
 template <class Scatter>
 void element_loads(const PlateMesh& m, const PlateLoadCase& lc, Scatter&& scatter) {
-  const double side = static_cast<double>(m.n);
+  // A uniform pressure's element vector depends on the element's size:
+  // once per size class (for a unit pressure), then scaled.
+  std::vector<std::array<double, 16>> unit(m.class_count());
+  std::vector<bool> made(m.class_count(), false);
   for (std::size_t bay = 0; bay < lc.bay_pressures_MPa.size(); ++bay) {
     const double p = lc.bay_pressures_MPa[bay];
     if (p == 0.0) continue;
     const std::size_t i = bay % m.nx, j = bay / m.nx;
-    const double a = m.geometry.x_spans_mm[i] / side, b = m.geometry.y_spans_mm[j] / side;
-    const auto fe = detail::element_patch_load(a, b, 0.0, a, 0.0, b, p);
-    for (std::size_t ey = j * m.n; ey < (j + 1) * m.n; ++ey)
-      for (std::size_t ex = i * m.n; ex < (i + 1) * m.n; ++ex) scatter(ex, ey, fe);
+    for (std::size_t ey = m.grid_node_y[j]; ey < m.grid_node_y[j + 1]; ++ey) {
+      for (std::size_t ex = m.grid_node_x[i]; ex < m.grid_node_x[i + 1]; ++ex) {
+        const std::size_t cls = m.element_class(ex, ey);
+        if (!made[cls]) {
+          const double a = m.node_x[ex + 1] - m.node_x[ex], b = m.node_y[ey + 1] - m.node_y[ey];
+          unit[cls] = detail::element_patch_load(a, b, 0.0, a, 0.0, b, 1.0);
+          made[cls] = true;
+        }
+        std::array<double, 16> fe = unit[cls];
+        for (double& v : fe) v *= p;
+        scatter(ex, ey, fe);
+      }
+    }
   }
   for (const auto& p : lc.patches) {
     const double x0 = std::max(p.x0_mm, 0.0), x1 = std::min(p.x1_mm, m.node_x.back());
@@ -380,7 +392,7 @@ std::vector<double> held_reactions(const PlateMesh& m, const detail::PlateSoluti
       bool any_held = false;
       for (std::size_t k : dofs) any_held = any_held || m.free_index[k] < 0;
       if (!any_held) continue;
-      const auto& k = m.bay_stiffness[m.bay_of_element(ex, ey)];
+      const auto& k = m.element_stiffness(ex, ey);
       for (std::size_t r = 0; r < 16; ++r) {
         if (m.free_index[dofs[r]] >= 0) continue;
         double sum = 0.0;
@@ -425,61 +437,67 @@ double tributary(const std::vector<double>& along, std::size_t k) {
 // averaged: the moment is continuous across a line support but kinked,
 // so no fit spans one.
 //
-// In element units a block is [0, 2] on each axis with samples at
-// g, 1 − g, 1 + g, 2 − g (g = (1 − 1/√3)/2); the fit and the evaluation
-// factorise by axis, so the 1D weights of a quadratic least-squares fit
-// through those four points, evaluated at 0, 1 and 2, are all it takes.
-using Weights1D = std::array<std::array<double, 4>, 3>;
-const Weights1D& patch_weights() {
-  static const Weights1D weights = [] {
-    const double g = 0.5 - 0.5 / std::sqrt(3.0);
-    const double u[4] = {g, 1 - g, 1 + g, 2 - g};
-    Eigen::Matrix<double, 4, 3> A;
-    for (int i = 0; i < 4; ++i) A.row(i) << 1.0, u[i], u[i] * u[i];
-    const Eigen::Matrix<double, 3, 4> fit = (A.transpose() * A).inverse() * A.transpose();
-    Weights1D w{};
-    for (int t = 0; t < 3; ++t) {
-      const Eigen::RowVector3d at(1.0, t, t * t);
-      const Eigen::RowVector4d row = at * fit;
-      for (int i = 0; i < 4; ++i)
-        w[static_cast<std::size_t>(t)][static_cast<std::size_t>(i)] = row(i);
-    }
-    return w;
-  }();
-  return weights;
+// The fit and the evaluation factorise by axis: along one axis a patch
+// is two elements from node `start`, with samples at the two Gauss points
+// of each, and the weights of a quadratic least-squares fit through those
+// four points, evaluated at the node, are all it takes.
+std::array<double, 4> patch_weights(const std::vector<double>& nodes, std::size_t start,
+                                    std::size_t node) {
+  const double g = 0.5 - 0.5 / std::sqrt(3.0);
+  const double x0 = nodes[start], h = nodes[start + 1] - x0, h2 = nodes[start + 2] - nodes[start + 1];
+  // Coordinates in units of the first element, from its start.
+  const double u[4] = {g, 1 - g, 1 + g * h2 / h, 1 + (1 - g) * h2 / h};
+  Eigen::Matrix<double, 4, 3> A;
+  for (int i = 0; i < 4; ++i) A.row(i) << 1.0, u[i], u[i] * u[i];
+  const double t = (nodes[node] - x0) / h;
+  const Eigen::RowVector3d at(1.0, t, t * t);
+  const Eigen::RowVector4d row = at * (A.transpose() * A).inverse() * A.transpose();
+  return {row(0), row(1), row(2), row(3)};
 }
 
-// Bays (along one axis) whose closed range holds mesh line k.
-std::array<std::size_t, 2> bays_beside(std::size_t k, std::size_t n, std::size_t bays,
+// Bays (along one axis) whose closed range holds mesh line k (grid_nodes:
+// the node index of each grid line).
+std::array<std::size_t, 2> bays_beside(std::size_t k, const std::vector<std::size_t>& grid_nodes,
                                        std::size_t* count) {
   std::array<std::size_t, 2> out{};
   *count = 0;
-  if (k % n == 0 && k > 0) out[(*count)++] = k / n - 1;
-  if (k / n < bays) out[(*count)++] = k / n;
+  const auto above = std::upper_bound(grid_nodes.begin(), grid_nodes.end(), k);
+  const auto bay = static_cast<std::size_t>(above - grid_nodes.begin()) - 1;  // grid line ≤ k
+  if (grid_nodes[bay] == k && bay > 0) out[(*count)++] = bay - 1;
+  if (bay + 1 < grid_nodes.size()) out[(*count)++] = bay;
   return out;
 }
 
-// The first element of each patch (two elements along one axis) for mesh
-// line k, in each bay beside it: centred on the line where the bay has
-// elements on both sides, unless the moment is kinked along the line (a
-// line or point load on it), where one patch on each side extrapolates
-// to the line rather than fitting across the kink.
-struct BlockStarts {
+// The patches (two elements along one axis) for mesh line k, in each bay
+// beside it: centred on the line where the bay has elements on both
+// sides, unless the moment is kinked along the line (a line or point load
+// on it), where one patch on each side extrapolates to the line rather
+// than fitting across the kink. With their weights at the line.
+struct Patches {
   std::array<std::size_t, 4> start{};
+  std::array<std::array<double, 4>, 4> weight{};
   std::size_t count = 0;
 };
-BlockStarts block_starts(std::size_t k, const std::array<std::size_t, 2>& bays, std::size_t bay_count,
-                         std::size_t n, bool kinked) {
-  BlockStarts out;
+Patches patches_for(std::size_t k, const std::vector<double>& nodes,
+                    const std::vector<std::size_t>& grid_nodes, bool kinked) {
+  Patches out;
+  std::size_t bay_count = 0;
+  const auto bays = bays_beside(k, grid_nodes, &bay_count);
+  auto add = [&](std::size_t start) {
+    out.start[out.count] = start;
+    out.weight[out.count] = patch_weights(nodes, start, k);
+    ++out.count;
+  };
   for (std::size_t a = 0; a < bay_count; ++a) {
-    const std::size_t first = bays[a] * n, last = (bays[a] + 1) * n - 2;  // patch starts
-    const bool before = k > bays[a] * n, after = k < (bays[a] + 1) * n;
+    const std::size_t lo = grid_nodes[bays[a]], hi = grid_nodes[bays[a] + 1];
+    const std::size_t first = lo, last = hi - 2;  // patch starts within the bay
+    const bool before = k > lo, after = k < hi;
     if (before && after && !kinked) {
-      out.start[out.count++] = std::clamp(k - 1, first, last);
+      add(std::clamp(k - 1, first, last));
       continue;
     }
-    if (before) out.start[out.count++] = std::clamp(k < 2 ? 0 : k - 2, first, last);
-    if (after) out.start[out.count++] = std::clamp(k, first, last);
+    if (before) add(std::clamp(k < 2 ? 0 : k - 2, first, last));
+    if (after) add(std::clamp(k, first, last));
   }
   return out;
 }
@@ -514,24 +532,23 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
   check_case_index(c, solution_->cases);
   const auto& m = *mesh_;
   const double* u = solution_->displacement(c);
-  const double nu = m.geometry.poisson_ratio, side = static_cast<double>(m.n);
+  const double nu = m.geometry.poisson_ratio;
   const std::size_t ex_count = m.elements_x(), ey_count = m.elements_y();
 
   // Moments at each element's Gauss points (index gx + 2 gy); the shapes
-  // there depend on the element's size only, so once per bay.
+  // there depend on the element's size only, so once per size class.
   const double g = 0.5 - 0.5 / std::sqrt(3.0);
-  std::vector<std::array<detail::ElementShape, 4>> gauss(m.nx * m.ny);
-  for (std::size_t j = 0; j < m.ny; ++j)
-    for (std::size_t i = 0; i < m.nx; ++i)
+  std::vector<std::array<detail::ElementShape, 4>> gauss(m.class_count());
+  for (std::size_t cy = 0; cy < m.heights.size(); ++cy)
+    for (std::size_t cx = 0; cx < m.widths.size(); ++cx)
       for (std::size_t k = 0; k < 4; ++k)
-        gauss[i + m.nx * j][k] =
-            detail::element_shape(m.geometry.x_spans_mm[i] / side, m.geometry.y_spans_mm[j] / side,
-                                  k % 2 == 0 ? g : 1 - g, k / 2 == 0 ? g : 1 - g);
+        gauss[cx + m.widths.size() * cy][k] = detail::element_shape(
+            m.widths[cx], m.heights[cy], k % 2 == 0 ? g : 1 - g, k / 2 == 0 ? g : 1 - g);
   std::vector<PlateMoments> samples(ex_count * ey_count * 4);
   for (std::size_t ey = 0; ey < ey_count; ++ey) {
     for (std::size_t ex = 0; ex < ex_count; ++ex) {
       const auto dofs = m.element_dofs(ex, ey);
-      const auto& shapes = gauss[m.bay_of_element(ex, ey)];
+      const auto& shapes = gauss[m.element_class(ex, ey)];
       for (std::size_t k = 0; k < 4; ++k) {
         double wxx = 0, wyy = 0, wxy = 0;
         for (std::size_t d = 0; d < 16; ++d) {
@@ -546,28 +563,27 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
     }
   }
 
-  const auto& w = patch_weights();
   std::vector<bool> kinked_x, kinked_y;
   kinked_lines(m, solution_->load_cases[c], kinked_x, kinked_y);
+  std::vector<Patches> column_patches(m.columns());
+  for (std::size_t ix = 0; ix < m.columns(); ++ix)
+    column_patches[ix] = patches_for(ix, m.node_x, m.grid_node_x, kinked_x[ix]);
   std::vector<PlateMoments> out(m.columns() * m.rows());
   for (std::size_t iy = 0; iy < m.rows(); ++iy) {
-    std::size_t ny_beside = 0;
-    const auto jy = bays_beside(iy, m.n, m.ny, &ny_beside);
-    const auto ys = block_starts(iy, jy, ny_beside, m.n, kinked_y[iy]);
+    const Patches ys = patches_for(iy, m.node_y, m.grid_node_y, kinked_y[iy]);
     for (std::size_t ix = 0; ix < m.columns(); ++ix) {
-      std::size_t nx_beside = 0;
-      const auto ix_bays = bays_beside(ix, m.n, m.nx, &nx_beside);
+      const Patches& xs = column_patches[ix];
       PlateMoments sum;
-      const auto xs = block_starts(ix, ix_bays, nx_beside, m.n, kinked_x[ix]);
       for (std::size_t a = 0; a < xs.count; ++a) {
-        const std::size_t bx = xs.start[a], px = ix - bx;
+        const std::size_t bx = xs.start[a];
         for (std::size_t b = 0; b < ys.count; ++b) {
-          const std::size_t by = ys.start[b], py = iy - by;
+          const std::size_t by = ys.start[b];
           for (std::size_t ey = by; ey < by + 2; ++ey) {
             for (std::size_t ex = bx; ex < bx + 2; ++ex) {
               const PlateMoments* s = samples.data() + 4 * (ex + ex_count * ey);
               for (std::size_t k = 0; k < 4; ++k) {
-                const double weight = w[px][2 * (ex - bx) + k % 2] * w[py][2 * (ey - by) + k / 2];
+                const double weight =
+                    xs.weight[a][2 * (ex - bx) + k % 2] * ys.weight[b][2 * (ey - by) + k / 2];
                 sum.mx += weight * s[k].mx;
                 sum.my += weight * s[k].my;
                 sum.mxy += weight * s[k].mxy;
@@ -625,8 +641,8 @@ std::vector<BaySagging> bay_peaks(const PlateMesh& m, const std::vector<PlateMom
     for (std::size_t i = 0; i < m.nx; ++i) {
       BaySagging& b = bays[i + m.nx * j];
       b.mx.value = b.my.value = lowest;
-      for (std::size_t iy = j * m.n; iy <= (j + 1) * m.n; ++iy) {
-        for (std::size_t ix = i * m.n; ix <= (i + 1) * m.n; ++ix) {
+      for (std::size_t iy = m.grid_node_y[j]; iy <= m.grid_node_y[j + 1]; ++iy) {
+        for (std::size_t ix = m.grid_node_x[i]; ix <= m.grid_node_x[i + 1]; ++ix) {
           const auto& mm = moments[m.node(ix, iy)];
           if (mm.mx > b.mx.value) b.mx = {mm.mx, m.node_x[ix], m.node_y[iy]};
           if (mm.my > b.my.value) b.my = {mm.my, m.node_x[ix], m.node_y[iy]};
@@ -648,7 +664,8 @@ std::vector<std::vector<PlanPeak>> line_peaks(const PlateMesh& m,
     for (std::size_t s = 0; s < line.segment_count; ++s) {
       PlanPeak& peak = segments[s];
       peak.value = -std::numeric_limits<double>::infinity();
-      for (std::size_t k = s * m.n; k <= (s + 1) * m.n; ++k) {
+      const auto& ends = line.runs_along == PlanAxis::y ? m.grid_node_y : m.grid_node_x;
+      for (std::size_t k = ends[s]; k <= ends[s + 1]; ++k) {
         const std::size_t nd = nodes[k];
         const auto& mm = moments[nd];
         const double hogging = along_y ? -mm.mx : -mm.my;
