@@ -14,7 +14,8 @@
 //     at the node): the concentrated force there is reported, and may pull
 //     down (a lifting corner held by the supports).
 //   - Element: Bogner–Fox–Schmit rectangle (bicubic Hermite; w, w,x, w,y,
-//     w,xy at each node; conforming), mesh_per_bay × mesh_per_bay per bay.
+//     w,xy at each node; conforming), mesh_per_bay × mesh_per_bay per bay,
+//     with mesh lines moved or added through given positions (loads).
 //
 // Sign conventions (units N, mm, MPa, N·mm):
 //   - w and every load are positive downward (gravity).
