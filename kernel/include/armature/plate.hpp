@@ -203,7 +203,8 @@ struct PlateCaseResults {
 // factorised stiffness matrix, built once; solve() for any load cases.
 class PlateModel {
  public:
-  // Throws InputError (every problem of add_plate_problems).
+  // Throws InputError (every problem of add_plate_problems), and
+  // std::invalid_argument for a mesh line position off the plate.
   explicit PlateModel(PlateGeometry geometry);
   ~PlateModel();
   PlateModel(const PlateModel&);
