@@ -5,7 +5,7 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 
 PYTHON="${PYTHON:-/usr/bin/python3}"
-packages=(g++ cmake make pkg-config nlohmann-json3-dev libboost-dev catch2 pybind11-dev
+packages=(g++ cmake make pkg-config nlohmann-json3-dev libboost-dev libeigen3-dev catch2 pybind11-dev
           python3-dev python3-pybind11 python3-pytest python3-numpy python3-pandas
           python3-matplotlib python3-nbformat python3-nbclient python3-ipykernel
           python3-distributed python3-dask python3-venv python3-pip python3-setuptools)
