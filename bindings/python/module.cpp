@@ -460,9 +460,12 @@ py::dict study_columns(const armature::Study& study, const std::vector<py::list>
   cols["steel_kg_m2"] = numeric([](const Row& r) { return r.steel_kg_m2; });
   cols["concrete_m3_m2"] = numeric([](const Row& r) { return r.concrete_m3_m2; });
   std::vector<std::string> wheres;
+  bool any_given = false;  // check mode somewhere in the study: say which regions were given
   for (const auto& row : rows)
-    for (const auto& g : row.regions)
+    for (const auto& g : row.regions) {
       if (std::find(wheres.begin(), wheres.end(), g.where) == wheres.end()) wheres.push_back(g.where);
+      any_given = any_given || g.bars_given;
+    }
   for (const auto& w : wheres) {
     auto find = [&](const Row& r) -> const armature::StudyRegion* {
       for (const auto& g : r.regions)
@@ -483,6 +486,14 @@ py::dict study_columns(const armature::Study& study, const std::vector<py::list>
       const auto* g = find(r);
       return g ? g->As_prov_mm2 : NAN;
     });
+    if (any_given) {
+      py::list given;
+      for (const auto& row : rows) {
+        const auto* g = find(row);
+        given.append(g ? py::object(py::bool_(g->bars_given)) : py::object(py::none()));
+      }
+      cols[py::str(w + " bars_given")] = given;
+    }
   }
   cols["error"] = text([](const Row& r) { return r.error; });
   return cols;

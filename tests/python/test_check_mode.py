@@ -314,3 +314,19 @@ def test_min_spacing_above_the_code_limit_fails_the_spacing_check(floor):
         assert g["bars"]["spacing_mm"] == 300
         limit = next(c for c in g["checks"] if c["id"] == "spacing" and "9.3.1.1" in c["clause"])
         assert limit["capacity"] == pytest.approx(240.0) and not limit["pass"]
+
+
+def test_sweep_over_given_spacings_marks_the_given_region(floor):
+    """A sweep in check mode: the given region's column says bars_given,
+    its bar and spacing are the swept ones, and its provided area is
+    π φ²/4 × 1000/s (geometry); the other regions are designed."""
+    base = _with(floor, given=[{"where": "span 2", "face": "bottom", "bar": "12", "spacing_mm": 150}])
+    study = armature.sweep(base, {"reinforcement.given[0].spacing_mm": [125, 200, 300]})
+    assert list(study["span 2 bars_given"]) == [True, True, True]
+    assert list(study["span 1 bars_given"]) == [False, False, False]
+    assert list(study["span 2 spacing_mm"]) == [125, 200, 300]
+    for s, area in zip([125, 200, 300], study["span 2 As_prov_mm2"]):
+        assert area == pytest.approx(_area("12", s), rel=1e-9)
+    # Without check mode the study has no bars_given columns.
+    plain = armature.sweep(floor, {"slab.thickness_mm": [200]})
+    assert not [c for c in plain.columns if c.endswith("bars_given")]

@@ -67,6 +67,7 @@ class Study {
 struct StudyRegion {
   std::string where, bar;
   double spacing_mm = 0.0, As_prov_mm2 = 0.0;
+  bool bars_given = false;  // the request's bars (reinforcement.given), checked, not searched
 };
 inline constexpr double not_known = std::numeric_limits<double>::quiet_NaN();
 struct StudyRow {
