@@ -7,7 +7,8 @@
 
 #include <stdexcept>
 #include <string>
-#include <vector>
+
+#include <boost/container/small_vector.hpp>
 
 #include "armature/request.hpp"
 
@@ -42,7 +43,9 @@ struct SectionLayer {
 struct Section {
   double b_mm = 0.0;  // width (a strip's width)
   double h_mm = 0.0;  // thickness
-  std::vector<SectionLayer> layers;
+  // In place for up to four layers (a plate's two directions on each
+  // face): the bar search builds a section for every candidate.
+  boost::container::small_vector<SectionLayer, 4> layers;
 
   // The layer of a face nearest it (the first given on that face, which is
   // the outer one the kernel builds first). Throws std::invalid_argument

@@ -48,6 +48,14 @@ RegionOutcome check_arrangement(const SectionRules& section_rules, const MemberR
   return out;
 }
 
+RegionVerdict arrangement_verdict(const SectionRules& section_rules, const MemberRules& member_rules,
+                                  const Section& section, const RegionDemand& region) {
+  const SectionOutcome s = section_rules.check_section(section, region, Detail::verdict);
+  if (!s.verdict.all_pass || !(section.outer_layer(region.face).d_mm > 0.0)) return s.verdict;
+  const MemberSectionOutcome m = member_rules.check_with_section(section, region, s, Detail::verdict);
+  return {s.verdict.all_pass && m.verdict.all_pass, s.verdict.strength_pass && m.verdict.strength_pass};
+}
+
 RegionOutcome SlabChecker::check_region(const RegionDemand& region, const BarOption& bar, double spacing_mm,
                                         Detail detail) const {
   const SectionRules& rules = section_rules();

@@ -24,10 +24,9 @@ Section region_section(const SectionRules& rules, const RegionDemand& region, do
 RegionOutcome check_arrangement(const SectionRules& section_rules, const MemberRules& member_rules,
                                 const Section& section, const RegionDemand& region, Detail detail);
 
-// check_arrangement at Detail::verdict.
-inline RegionVerdict arrangement_verdict(const SectionRules& section_rules, const MemberRules& member_rules,
-                                         const Section& section, const RegionDemand& region) {
-  return check_arrangement(section_rules, member_rules, section, region, Detail::verdict).verdict;
-}
+// The verdict of check_arrangement at Detail::verdict, without putting
+// the outcomes together (the bar search's path).
+RegionVerdict arrangement_verdict(const SectionRules& section_rules, const MemberRules& member_rules,
+                                  const Section& section, const RegionDemand& region);
 
 }  // namespace armature

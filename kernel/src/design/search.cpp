@@ -41,14 +41,17 @@ class CandidateSection {
     section_.b_mm = width_mm;
     section_.h_mm = rules.thickness_mm;
     section_.layers.resize(1);
+    section_.layers[0].face = region.face;
+    section_.layers[0].direction = BarDirection::span;
   }
   // The bar of the candidates that follow, at its cover.
   void set_bar(const BarOption& bar) {
-    const double cover = call_code(code_, "nominal cover", [&] { return region_cover_mm(rules_.section, region_, bar); });
-    section_.layers[0] = outer_layer(section_, region_.face, BarDirection::span, bar, 0.0, cover);
+    SectionLayer& layer = section_.layers[0];
+    layer.cover_mm = call_code(code_, "nominal cover", [&] { return region_cover_mm(rules_.section, region_, bar); });
+    layer.bar = bar;
+    layer.d_mm = outer_layer_effective_depth_mm(section_.h_mm, layer.cover_mm, bar.diameter_mm);
   }
   void set_spacing(double spacing_mm) { section_.layers[0].spacing_mm = spacing_mm; }
-  const Section& get() const { return section_; }
 
   RegionVerdict verdict() const {
     return call_code(code_, "the bar search",
@@ -181,12 +184,14 @@ int SpacingGrid::last_step(double max_spacing_mm) const {
   return static_cast<int>(std::floor((max_spacing_mm - first_mm) / step_mm + 1e-9));
 }
 
-SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
-                            const RegionDemand& region, double width_mm,
-                            std::vector<std::string>& warnings, const SpacingGrid& grid) {
+namespace {
+
+// search_bars with the rules already fetched (once per design).
+SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
+                              const RegionDemand& region, double width_mm, std::vector<std::string>& warnings,
+                              const SpacingGrid& grid) {
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
-  const SearchRules rules = rules_of(checker, code);
   const double s_max =
       call_code(code, "maximum spacing", [&] { return rules.section.max_spacing_mm(region); });
   CandidateSection candidate(rules, code, region, width_mm);
@@ -237,15 +242,15 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   return most;
 }
 
-SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentity& code,
-                                   const std::vector<const RegionDemand*>& regions, double width_mm,
-                                   std::vector<std::string>& warnings, const SpacingGrid& grid) {
+// search_common_bars with the rules already fetched.
+SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
+                              const std::vector<const RegionDemand*>& regions, double width_mm,
+                              std::vector<std::string>& warnings, const SpacingGrid& grid) {
   if (regions.empty()) throw DesignError("no region for a common bar arrangement");
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   // The widest spacing any region allows: a wider one than a region's own
   // limit fails that region's spacing check, like any other check.
-  const SearchRules rules = rules_of(checker, code);
   double s_max = 0.0;
   for (const RegionDemand* g : regions)
     s_max = std::max(s_max, call_code(code, "maximum spacing", [&] { return rules.section.max_spacing_mm(*g); }));
@@ -339,6 +344,19 @@ SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentit
   return most;
 }
 
+}  // namespace
+
+SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
+                            double width_mm, std::vector<std::string>& warnings, const SpacingGrid& grid) {
+  return search_region(checker, rules_of(checker, code), code, region, width_mm, warnings, grid);
+}
+
+SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentity& code,
+                                   const std::vector<const RegionDemand*>& regions, double width_mm,
+                                   std::vector<std::string>& warnings, const SpacingGrid& grid) {
+  return search_shared(checker, rules_of(checker, code), code, regions, width_mm, warnings, grid);
+}
+
 // Distribution bars: the least area that meets the need, at a spacing of
 // the search's grid within the code's limit; for each bar that is its
 // widest spacing providing the area, so one candidate per bar is compared.
@@ -403,6 +421,7 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
                                                      std::vector<RegionDemand>& demands, double width_mm,
                                                      const DurabilityInput& durability, const BarPlan& plan,
                                                      std::vector<std::string>& warnings) {
+  const SearchRules rules = rules_of(checker, code);
   const std::size_t n = demands.size();
   std::vector<SearchCandidate> picks(n);
   std::vector<std::vector<std::string>> region_warnings(n);
@@ -414,12 +433,13 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
     std::vector<const RegionDemand*> regions;
     for (const std::size_t i : plan.common) regions.push_back(&demands[i]);
     common_warnings.clear();
-    const SearchCandidate pick = search_common_bars(checker, code, regions, width_mm, common_warnings, plan.grid);
+    const SearchCandidate pick = search_shared(checker, rules, code, regions, width_mm, common_warnings, plan.grid);
     for (const std::size_t i : plan.common) picks[i] = pick;
   };
   for (std::size_t i = 0; i < n; ++i) {
     if (is_given(i)) picks[i] = *plan.given[i];
-    else if (!in_common[i]) picks[i] = search_bars(checker, code, demands[i], width_mm, region_warnings[i], plan.grid);
+    else if (!in_common[i])
+      picks[i] = search_region(checker, rules, code, demands[i], width_mm, region_warnings[i], plan.grid);
   }
   if (!plan.common.empty()) search_common();
   const std::size_t rounds =
@@ -447,7 +467,7 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
           continue;
         }
         region_warnings[i].clear();
-        picks[i] = search_bars(checker, code, g, width_mm, region_warnings[i], plan.grid);
+        picks[i] = search_region(checker, rules, code, g, width_mm, region_warnings[i], plan.grid);
         searched_again = true;
       }
     }
