@@ -26,7 +26,9 @@ armature::Registry& registry() {
   return reg;
 }
 
-armature::BarOption bar(double phi) { return {std::to_string(static_cast<int>(phi)), phi, std::numbers::pi * phi * phi / 4}; }
+armature::BarOption bar(double phi) {
+  return {std::to_string(static_cast<int>(phi)), phi, std::numbers::pi * phi * phi / 4};
+}
 
 // The workshop's storeroom floor: two spans of 3.6 m, 200 mm thick.
 json storeroom(const std::string& code, const std::string& variant) {
@@ -82,8 +84,9 @@ TEST_CASE("Section: effective depth of one layer and of a layer laid on it", "[s
 
   // A plate's top face: x bars at the cover, y bars on them.
   armature::Section plate{1000, 250, {}};
-  plate.layers.push_back(armature::outer_layer(plate, armature::Face::top, armature::BarDirection::x, bar(16), 200, 30));
-  plate.layers.push_back(armature::inner_layer(plate, plate.layers[0], armature::BarDirection::y, bar(12), 200));
+  using armature::BarDirection;
+  plate.layers.push_back(armature::outer_layer(plate, armature::Face::top, BarDirection::x, bar(16), 200, 30));
+  plate.layers.push_back(armature::inner_layer(plate, plate.layers[0], BarDirection::y, bar(12), 200));
   CHECK(plate.layers[0].d_mm == Approx(250 - 30 - 8.0));       // 212
   CHECK(plate.layers[1].d_mm == Approx(250 - 30 - 16 - 6.0));  // 198
   CHECK(plate.layers[1].face == armature::Face::top);
@@ -146,7 +149,8 @@ TEST_CASE("Wrapping the member rules alone changes only member checks", "[sectio
   const auto en = design("EN1992-1-1", "recommended");
   const auto wrapped = design("TEST-WRAPS", "members");
   require_same_bars(wrapped, en);  // l/d is far inside EN's limit here, so the bars stay
-  for (std::size_t i = 0; i < en.regions.size(); ++i) require_same(wrapped.regions[i].checks, en.regions[i].checks);
+  for (std::size_t i = 0; i < en.regions.size(); ++i)
+    require_same(wrapped.regions[i].checks, en.regions[i].checks);
   for (std::size_t j = 0; j < en.supports.size(); ++j)
     require_same(wrapped.supports[j].checks, en.supports[j].checks);
   REQUIRE(wrapped.spans.size() == en.spans.size());

@@ -26,8 +26,9 @@ class SpacingSection final : public ForwardingSectionRules {
   SectionOutcome check_section(const Section& section, const RegionDemand& g, Detail detail) const override {
     SectionOutcome out = inner().check_section(section, g, detail == Detail::verdict ? Detail::checks : detail);
     const double s = section.outer_layer(g.face).spacing_mm;
-    out.checks.push_back(make_check("spacing", g.where, "test wrap: bars at most 300 mm apart", s, spacing_limit_mm,
-                                    "mm", {{"s_max", "wrapper's limit", "", spacing_limit_mm, "mm", "test wrap"}}));
+    out.checks.push_back(make_check("spacing", g.where, "test wrap: bars at most 300 mm apart", s,
+                                    spacing_limit_mm, "mm",
+                                    {{"s_max", "wrapper's limit", "", spacing_limit_mm, "mm", "test wrap"}}));
     out.verdict = verdict_of(out);
     return out;
   }
@@ -43,8 +44,8 @@ class TighterDeflection final : public ForwardingMemberRules {
         inner().check_with_section(section, g, outcome, detail == Detail::verdict ? Detail::checks : detail);
     for (auto& c : out.span_checks)
       if (c.id == "deflection")
-        c = make_check(c.id, c.where, c.clause + "; test wrap × 0.9", c.demand, c.capacity * span_depth_factor, c.unit,
-                       std::move(c.steps));
+        c = make_check(c.id, c.where, c.clause + "; test wrap × 0.9", c.demand,
+                       c.capacity * span_depth_factor, c.unit, std::move(c.steps));
     const RegionVerdict own = verdict_of(out.checks), span = verdict_of(out.span_checks);
     out.verdict = {own.all_pass && span.all_pass, own.strength_pass && span.strength_pass};
     return out;
@@ -55,7 +56,8 @@ class TighterDeflection final : public ForwardingMemberRules {
 class RaisedCombinations final : public CombinationRules {
  public:
   explicit RaisedCombinations(const CombinationRules& en) : en_(en) {}
-  std::vector<Combination> combinations(const std::vector<Action>& actions, CombinationLabels labels) const override {
+  std::vector<Combination> combinations(const std::vector<Action>& actions,
+                                        CombinationLabels labels) const override {
     auto out = en_.combinations(actions, labels);
     for (auto& c : out)
       if (c.limit_state == LimitState::uls) {
@@ -64,7 +66,9 @@ class RaisedCombinations final : public CombinationRules {
       }
     return out;
   }
-  std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override { return en_.load_arrangements(n); }
+  std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
+    return en_.load_arrangements(n);
+  }
 
  private:
   const CombinationRules& en_;
@@ -81,7 +85,9 @@ class Session final : public ForwardingSlabChecker {
   const SectionRules& section_rules() const override {
     return part_ == "section" ? section_ : inner().section_rules();
   }
-  const MemberRules& member_rules() const override { return part_ == "members" ? members_ : inner().member_rules(); }
+  const MemberRules& member_rules() const override {
+    return part_ == "members" ? members_ : inner().member_rules();
+  }
   const CombinationRules& combination_rules() const override {
     return part_ == "combinations" ? combinations_ : inner().combination_rules();
   }

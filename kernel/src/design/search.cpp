@@ -47,7 +47,8 @@ class CandidateSection {
   // The bar of the candidates that follow, at its cover.
   void set_bar(const BarOption& bar) {
     SectionLayer& layer = section_.layers[0];
-    layer.cover_mm = call_code(code_, "nominal cover", [&] { return region_cover_mm(rules_.section, region_, bar); });
+    layer.cover_mm =
+        call_code(code_, "nominal cover", [&] { return region_cover_mm(rules_.section, region_, bar); });
     layer.bar = bar;
     layer.d_mm = outer_layer_effective_depth_mm(section_.h_mm, layer.cover_mm, bar.diameter_mm);
   }
@@ -433,7 +434,8 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
     std::vector<const RegionDemand*> regions;
     for (const std::size_t i : plan.common) regions.push_back(&demands[i]);
     common_warnings.clear();
-    const SearchCandidate pick = search_shared(checker, rules, code, regions, width_mm, common_warnings, plan.grid);
+    const SearchCandidate pick =
+        search_shared(checker, rules, code, regions, width_mm, common_warnings, plan.grid);
     for (const std::size_t i : plan.common) picks[i] = pick;
   };
   for (std::size_t i = 0; i < n; ++i) {
