@@ -52,9 +52,12 @@ SectionOutcome Checker::check_section(const Section& sec, const RegionDemand& g,
   // kernel has chosen on this face, when larger than this one; a given
   // cover is checked against this bar's own requirement.
   const std::string& exposure = exposure_of(g.face);
-  const auto& given_cover = req_.durability.face(g.face).cover_mm;
-  const bool cover_given = given_cover.has_value();
-  const double c_req = specified_cover(exposure, cover_given ? db : std::max(db, g.cover_bar_mm));
+  // A section whose cover is not the one worked out here (the request's,
+  // or one a wrapping plug-in sets) is checked as a given cover.
+  const double db_face = std::max(db, g.cover_bar_mm);
+  const bool cover_given = req_.durability.face(g.face).cover_mm.has_value() ||
+                           layer.cover_mm != specified_cover(exposure, db_face);
+  const double c_req = specified_cover(exposure, cover_given ? db : db_face);
   const double cover = layer.cover_mm;  // the section's: given, else c_req
   auto cover_steps = [&] {
     StepRecorder st;

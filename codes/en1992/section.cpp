@@ -51,10 +51,12 @@ SectionOutcome Checker::check_section(const Section& sec, const RegionDemand& g,
   const int s_class = fd.structural_class;
   const double c_dur = fd.c_min_dur;
   // One nominal cover per face (computed cover): that of the largest bar
-  // the kernel has chosen on this face, when larger than this one. The
-  // section carries the nominal cover; its derivation is this bar's.
-  const bool cover_given = fd.cover_mm.has_value();
-  const double phi_cover = cover_given ? phi : std::max(phi, g.cover_bar_mm);
+  // the kernel has chosen on this face, when larger than this one. A
+  // section whose cover is not the one worked out here (the request's, or
+  // one a wrapping plug-in sets) is checked as a given cover.
+  const double phi_face = std::max(phi, g.cover_bar_mm);
+  const bool cover_given = fd.cover_mm.has_value() || layer.cover_mm != cover_for(phi_face, g.face).c_nom;
+  const double phi_cover = cover_given ? phi : phi_face;
   const CoverOf cover = cover_for(phi_cover, g.face);
   const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = layer.cover_mm;
   auto cover_steps = [&] {

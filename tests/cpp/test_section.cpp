@@ -9,6 +9,7 @@
 #include <numbers>
 #include <stdexcept>
 #include <string>
+#include <tuple>
 
 #include <nlohmann/json.hpp>
 
@@ -121,6 +122,42 @@ TEST_CASE("Section: the code checks the depth the kernel builds", "[section]") {
       d_step = true;
     }
   CHECK(d_step);
+}
+
+TEST_CASE("Section: a cover other than the code's own is checked as given", "[section]") {
+  for (const auto& [code_id, variant, bar_name] :
+       {std::tuple{"EN1992-1-1", "recommended", "12"}, std::tuple{"ACI318-19", "SI", "#4"}}) {
+    json req = storeroom(code_id, variant);
+    if (std::string(code_id) == "ACI318-19") req["concrete"] = {{"cylinder_strength_MPa", 28}};
+    armature::InputProblems problems;
+    const auto parsed = armature::request_from_json(req, problems);
+    REQUIRE(problems.empty());
+    const auto session = registry().open(code_id, variant)->begin(parsed);
+    const auto& rules = session->section_rules();
+    const auto b = *session->catalogue_bar(bar_name);
+    armature::RegionDemand g;
+    g.where = "span 1";
+    g.M_Ed = 10e6;
+    g.quasi_permanent_to_uls = 0.5;
+    const double own = rules.nominal_cover_mm(armature::Face::bottom, b.diameter_mm);
+    auto cover_checks = [&](double cover) {
+      const auto section = armature::one_layer_section(1000, 200, armature::Face::bottom, b, 150, cover);
+      const auto out = rules.check_section(section, g, armature::Detail::steps);
+      std::vector<armature::Check> found;
+      for (const auto& c : out.checks)
+        if (c.id == "cover") found.push_back(c);
+      return found;
+    };
+    // The code's own cover needs no check of its own (its derivation leads bending).
+    CHECK(cover_checks(own).empty());
+    // 15 mm more: checked against the code's requirement (EN 1992-1-1 4.4.1:
+    // c_min + Δc_dev; ACI 318-19 20.5.1.3.1: the specified cover), and passes.
+    const auto more = cover_checks(own + 15);
+    REQUIRE(more.size() == 1);
+    CHECK(more[0].capacity == own + 15);
+    CHECK(more[0].demand <= own);
+    CHECK(more[0].pass);
+  }
 }
 
 TEST_CASE("Wrapping the section rules alone changes only section checks", "[section][wrap]") {
