@@ -39,31 +39,29 @@ Check scaled_deflection(Check c) {
 // HR-2 and HR-4 change EN's section rules; everything else of them is EN's.
 class HouseSection final : public ForwardingSectionRules {
  public:
-  // `with_min_cover`: EN's rules for the request with HR-4's cover given
-  // on the faces that give none (none when both faces give a cover).
-  HouseSection(const SectionRules& en, const SectionRules* with_min_cover)
-      : ForwardingSectionRules(en), with_min_cover_(with_min_cover) {}
+  HouseSection(const SectionRules& en, const Request& req) : ForwardingSectionRules(en), req_(req) {}
 
-  // HR-4: where EN's own cover is less than 30 mm, 30 mm given.
+  // HR-4: where EN's own cover is less than 30 mm and the request gives
+  // none, 30 mm (EN checks a cover other than its own as a given one:
+  // that 30 mm meets its own minimum).
   double nominal_cover_mm(Face face, double bar_mm) const override {
-    return rules_for(face, bar_mm).nominal_cover_mm(face, bar_mm);
+    const double en = inner().nominal_cover_mm(face, bar_mm);
+    return raised(face, en) ? min_cover : en;
   }
   double max_spacing_mm(const RegionDemand& g) const override {
     return std::min(inner().max_spacing_mm(g), max_spacing);
   }
-  // EN's minimum steel, at the depth of whichever cover HR-4 leads to:
-  // the lesser of the two is a floor for both.
+  // EN's floor is worked out at EN's own cover; at HR-4's larger one the
+  // depth is less, and so may be the floor: none is given there.
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
-    const double own = inner().minimum_area_mm2(g, bar);
-    return with_min_cover_ ? std::min(own, with_min_cover_->minimum_area_mm2(g, bar)) : own;
+    const double cover_bar = std::max(bar.diameter_mm, g.cover_bar_mm);
+    return raised(g.face, inner().nominal_cover_mm(g.face, cover_bar)) ? 0.0 : inner().minimum_area_mm2(g, bar);
   }
   SectionOutcome check_section(const Section& section, const RegionDemand& g, Detail detail) const override {
-    // The house changes EN's checks, so it always asks for them. With
-    // HR-4's cover, EN checks that 30 mm meets its own minimum.
+    // The house adds checks to EN's, so it always asks for them.
     const Detail inner_detail = detail == Detail::steps ? Detail::steps : Detail::checks;
+    SectionOutcome out = inner().check_section(section, g, inner_detail);
     const SectionLayer& layer = section.outer_layer(g.face);
-    const double cover_bar = std::max(layer.bar.diameter_mm, g.cover_bar_mm);
-    SectionOutcome out = rules_for(g.face, cover_bar).check_section(section, g, inner_detail);
     out.checks.push_back(run_check("spacing", [&] {
       return make_check("spacing", g.where, "house rule HR-2", layer.spacing_mm, max_spacing, "mm",
                         {{"s_max", "house limit", "", max_spacing, "mm", "house rule HR-2"}});
@@ -82,10 +80,12 @@ class HouseSection final : public ForwardingSectionRules {
   }
 
  private:
-  const SectionRules& rules_for(Face face, double bar_mm) const {
-    return with_min_cover_ && inner().nominal_cover_mm(face, bar_mm) < min_cover ? *with_min_cover_ : inner();
+  // Whether HR-4 raises EN's cover on a face (a given cover is kept).
+  bool raised(Face face, double en_cover) const {
+    return !req_.durability.cover_given(face) && en_cover < min_cover;
   }
-  const SectionRules* with_min_cover_;
+
+  const Request& req_;  // kept alive by the caller of Code::begin
 };
 
 // HR-1 and HR-3 change EN's member rules; everything else of them is EN's.
@@ -118,27 +118,13 @@ class HouseMembers final : public ForwardingMemberRules {
   const Request& req_;  // kept alive by the caller of Code::begin
 };
 
-// EN's request with HR-4's cover on the faces that give none.
-Request with_house_cover(const Request& req) {
-  Request out = req;
-  for (auto& face : out.durability.faces)
-    if (!face.cover_mm) face.cover_mm = min_cover;
-  return out;
-}
-
 // EN's session with the house's section and member rules; EN's
 // combinations, loads, bars and warnings as they are.
 class Checker final : public ForwardingSlabChecker {
  public:
-  // EN's sessions may refer to their requests: the request with the house
-  // cover is kept here, beside the session made for it.
   Checker(const DesignCode& en, const Request& req)
       : ForwardingSlabChecker(en.begin(req)),
-        with_min_cover_(with_house_cover(req)),
-        min_cover_(req.durability.cover_given(Face::bottom) && req.durability.cover_given(Face::top)
-                       ? nullptr
-                       : en.begin(with_min_cover_)),
-        section_(inner().section_rules(), min_cover_ ? &min_cover_->section_rules() : nullptr),
+        section_(inner().section_rules(), req),
         members_(inner().member_rules(), req) {}
 
   const SectionRules& section_rules() const override { return section_; }
@@ -154,8 +140,6 @@ class Checker final : public ForwardingSlabChecker {
   }
 
  private:
-  Request with_min_cover_;                 // the request with HR-4's cover
-  std::unique_ptr<SlabChecker> min_cover_;  // EN's session for it, when a face gives no cover
   HouseSection section_;
   HouseMembers members_;
 };
