@@ -17,7 +17,7 @@ namespace armature {
 
 namespace {
 
-// What the search asks of the code's session, fetched once per search:
+// What the search asks of the code's session, fetched once per design:
 // the section rules, the member rules and the sections' thickness.
 struct SearchRules {
   const SectionRules& section;
