@@ -1,8 +1,10 @@
-// The ACI 318-19 checker of one request, private to the plug-in. Its
-// member functions are defined by topic: section.cpp (the checks of a
-// section), members.cpp (the checks of the member: deflection, equilibrium,
-// support design moment) and plugin.cpp (materials, loads, bars, defaults);
-// the clause functions are in rules.hpp.
+// The ACI 318-19 session of one request, private to the plug-in: one
+// object gives the code's combination, section and member rules (they
+// read the same resolved materials). Its member functions are defined by
+// topic: section.cpp (SectionRules: the checks of a section), members.cpp
+// (MemberRules: minimum thickness for deflection, equilibrium, support
+// design moment) and plugin.cpp (materials, combinations, loads, bars,
+// defaults); the clause functions are in rules.hpp.
 #pragma once
 
 #include <array>
@@ -20,33 +22,43 @@ namespace armature::aci318 {
 
 inline std::string num(double v) { return step_number(v); }
 
-class Checker final : public SlabChecker {
+class Checker final : public SlabChecker,
+                      private CombinationRules,
+                      private SectionRules,
+                      private MemberRules {
  public:
   // `us`: the US variant, following the in-lb edition (us_customary.hpp).
   Checker(const Request& req, bool us);  // plugin.cpp
+
+  const CombinationRules& combination_rules() const override { return *this; }
+  const SectionRules& section_rules() const override { return *this; }
+  const MemberRules& member_rules() const override { return *this; }
+  const Request& request() const override { return req_; }
 
   // plugin.cpp
   LoadBasis load_basis() const override;
   std::vector<Combination> combinations(const std::vector<Action>& actions,
                                         CombinationLabels labels) const override;
   std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override;
-  double pinned_end_fixity_fraction() const override;
   const std::vector<BarOption>& bar_options() const override { return bars_; }
   std::optional<BarOption> catalogue_bar(const std::string& designation) const override;
   std::vector<std::string> warnings() const override;
   std::vector<InputDefault> defaults_used() const override;
 
   // section.cpp
+  double nominal_cover_mm(Face face, double bar_diameter_mm) const override;
   double max_spacing_mm(const RegionDemand&) const override;
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override;
-  RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
-                             Detail detail) const override;
+  SectionOutcome check_section(const Section& sec, const RegionDemand& g, Detail detail) const override;
   DistributionNeed distribution(double) const override;
 
   // members.cpp
+  MemberSectionOutcome check_with_section(const Section& sec, const RegionDemand& g,
+                                          const SectionOutcome& outcome, Detail detail) const override;
   std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override;
   std::vector<Check> span_checks(const std::string&) const override;
   double support_design_moment(const RegionDemand& g) const override;
+  double pinned_end_fixity_fraction() const override;
 
  private:
   // members.cpp

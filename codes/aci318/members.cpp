@@ -1,6 +1,6 @@
-// ACI 318-19 checks of the member rather than of one section: minimum
-// thickness for deflection, equilibrium of a cantilever's back span, the
-// design moment at a support with a width.
+// ACI 318-19 member rules, the checks of the member rather than of one
+// section: minimum thickness for deflection, equilibrium of a cantilever's
+// back span, the design moment at a support with a width.
 #include <string>
 
 #include "checker.hpp"
@@ -69,7 +69,22 @@ void Checker::deflection_check(CheckCollector& span, const RegionDemand& g, doub
   });
 }
 
+// The check that reads a region's section: the minimum thickness of the
+// span these bars govern.
+MemberSectionOutcome Checker::check_with_section(const Section& sec, const RegionDemand& g, const SectionOutcome&,
+                                                 Detail detail) const {
+  MemberSectionOutcome out;
+  if (!g.span_where.empty()) {
+    CheckCollector span(out.span_checks, out.verdict, detail);
+    run_check("deflection", [&] { deflection_check(span, g, sec.h_mm); });
+  }
+  return out;
+}
+
 std::vector<Check> Checker::span_checks(const std::string&) const { return {}; }
+
+// Top steel at pinned ends: none asked for.
+double Checker::pinned_end_fixity_fraction() const { return 0.0; }
 
 // 7.4.1.3 (from memory): for slabs built integrally with supports, Mu at
 // the support may be taken at the face of support. A support given a

@@ -95,7 +95,6 @@ std::vector<std::vector<bool>> Checker::load_arrangements(std::size_t n) const {
   return out;
 }
 
-double Checker::pinned_end_fixity_fraction() const { return 0.0; }
 
 std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) const {
   return variant_bar(designation, us_);

@@ -1,6 +1,7 @@
-// ACI 318-19 section checks of a region for given bars: cover, bending,
-// ductility (tension-controlled), minimum steel, spacing, cracking, one-way
-// shear (and, from members.cpp, the deflection check they call).
+// ACI 318-19 section rules: the checks of a section under a region's
+// demand (cover, bending, ductility (tension-controlled), minimum steel,
+// spacing, cracking, one-way shear), the nominal cover, the search's
+// limits and the distribution (shrinkage and temperature) steel.
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -10,12 +11,16 @@
 
 namespace armature::aci318 {
 
+double Checker::nominal_cover_mm(Face face, double bar_diameter_mm) const {
+  return req_.durability.face(face).cover_mm.value_or(cover_for(exposure_of(face), bar_diameter_mm));
+}
+
 double Checker::max_spacing_mm(const RegionDemand&) const {
   return max_bar_spacing(req_.slab.thickness_mm);
 }
 
 // Below this area the bar fails bending or minimum steel, as checked in
-// check_region: the larger of As,min (7.6.1.1) and the As,req of bending
+// check_section: the larger of As,min (7.6.1.1) and the As,req of bending
 // at φ = 0.9 (φ never exceeds 0.9 and Mn grows with As below a = d);
 // no area passes when even a = d cannot carry Mu.
 double Checker::minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const {
@@ -29,21 +34,25 @@ double Checker::minimum_area_mm2(const RegionDemand& g, const BarOption& bar) co
   return std::max(minimum_flexural_steel(b, h), *As_bending * (1.0 - 1e-9));  // a rounding margin
 }
 
-RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar, double s,
-                                    Detail detail) const {
-  RegionOutcome out;
+SectionOutcome Checker::check_section(const Section& sec, const RegionDemand& g, Detail detail) const {
+  SectionOutcome out;
   if (detail != Detail::verdict) out.checks.reserve(8);  // as many as a region has, nearly always
   CheckCollector checks(out.checks, out.verdict, detail);
-  const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm, db = bar.diameter_mm;
+  const SectionLayer& layer = sec.outer_layer(g.face);
+  const BarOption& bar = layer.bar;
+  const double h = sec.h_mm, b = sec.b_mm, db = bar.diameter_mm, s = layer.spacing_mm;
   const double As = bar.area_mm2 * b / s;
   // One cover per face: a computed cover is that of the largest bar the
   // kernel has chosen on this face, when larger than this one; a given
   // cover is checked against this bar's own requirement.
   const std::string& exposure = exposure_of(g.face);
-  const auto& given_cover = req_.durability.face(g.face).cover_mm;
-  const bool cover_given = given_cover.has_value();
-  const double c_req = cover_for(exposure, cover_given ? db : std::max(db, g.cover_bar_mm));
-  const double cover = given_cover.value_or(c_req);
+  // A section whose cover is not the one worked out here (the request's,
+  // or one a wrapping plug-in sets) is checked as a given cover.
+  const double db_face = std::max(db, g.cover_bar_mm);
+  const bool cover_given = req_.durability.face(g.face).cover_mm.has_value() ||
+                           layer.cover_mm != cover_for(exposure, db_face);
+  const double c_req = cover_for(exposure, cover_given ? db : db_face);
+  const double cover = layer.cover_mm;  // the section's: given, else c_req
   auto cover_steps = [&] {
     StepRecorder st;
     const bool face_bar = !cover_given && g.cover_bar_mm > db;
@@ -55,9 +64,7 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
            "ACI 318-19 20.5.1.3.1");
     return st.take();
   };
-  out.cover_mm = cover;
-  out.d_mm = h - cover - db / 2.0;
-  const double d = out.d_mm;
+  const double d = layer.d_mm;
   out.As_min_mm2 = minimum_flexural_steel(b, h);
   if (d <= 0.0) {  // the bar does not fit: nothing can resist
     checks.add("bending", g.where, "ACI 318-19 22.2, 21.2.2", g.M_Ed * 1e-6, 0.0, "kNm", cover_steps);
@@ -182,10 +189,6 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
   });
   if (cover_given)
     run_check("cover", [&] { checks.add("cover", g.where, "ACI 318-19 20.5.1.3.1", c_req, cover, "mm", cover_steps); });
-  if (!g.span_where.empty()) {
-    CheckCollector span(out.span_checks, out.verdict, detail);
-    run_check("deflection", [&] { deflection_check(span, g, h); });
-  }
   for (const auto& sup : g.supports) {
     SupportOutcome so;
     so.where = sup.where;

@@ -1,8 +1,11 @@
-// The EN 1992-1-1 checker of one request, private to the plug-in. Its
-// member functions are defined by topic: materials.cpp (what begin()
-// resolves), section.cpp (the checks of a section), members.cpp (the checks
-// of the member: deflection, fire, equilibrium, support design moment) and
-// plugin.cpp (loads, bars, defaults); the clause functions are in rules.hpp.
+// The EN 1992-1-1 session of one request, private to the plug-in: one
+// object gives the code's combination, section and member rules (they
+// read the same resolved materials, covers and NDPs). Its member functions
+// are defined by topic: materials.cpp (what begin() resolves), section.cpp
+// (SectionRules: the checks of a section), members.cpp (MemberRules:
+// deflection, fire, equilibrium, support design moment) and plugin.cpp
+// (combinations, loads, bars, defaults); the clause functions are in
+// rules.hpp.
 #pragma once
 
 #include <array>
@@ -36,32 +39,42 @@ struct Materials {
   double fck, fyk, fcd, fyd, fctm, eta, lambda, eps_cu2;
 };
 
-class Checker final : public SlabChecker {
+class Checker final : public SlabChecker,
+                      private CombinationRules,
+                      private SectionRules,
+                      private MemberRules {
  public:
   Checker(const Ndp& ndp, const En1990Factors& en1990, const Request& req);  // materials.cpp
+
+  const CombinationRules& combination_rules() const override { return *this; }
+  const SectionRules& section_rules() const override { return *this; }
+  const MemberRules& member_rules() const override { return *this; }
+  const Request& request() const override { return req_; }
 
   // plugin.cpp
   LoadBasis load_basis() const override;
   std::vector<Combination> combinations(const std::vector<Action>& actions,
                                         CombinationLabels labels) const override;
   std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const override;
-  double pinned_end_fixity_fraction() const override;
   const std::vector<BarOption>& bar_options() const override { return *bars_; }
   std::optional<BarOption> catalogue_bar(const std::string& designation) const override;
   std::vector<InputDefault> defaults_used() const override;
   std::vector<std::string> warnings() const override;
 
   // section.cpp
+  double nominal_cover_mm(Face face, double bar_diameter_mm) const override;
   double max_spacing_mm(const RegionDemand&) const override;
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override;
-  RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
-                             Detail detail) const override;
+  SectionOutcome check_section(const Section& sec, const RegionDemand& g, Detail detail) const override;
   DistributionNeed distribution(double main_As_prov) const override;
 
   // members.cpp
+  MemberSectionOutcome check_with_section(const Section& sec, const RegionDemand& g,
+                                          const SectionOutcome& outcome, Detail detail) const override;
   std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override;
   double support_design_moment(const RegionDemand& g) const override;
   std::vector<Check> span_checks(const std::string& span_where) const override;
+  double pinned_end_fixity_fraction() const override;
 
  private:
   // Cover of bars of diameter phi (4.4.1): c_nom is the request's cover

@@ -1,6 +1,7 @@
-// EN 1992-1-1 checks of the member rather than of one section: span/depth
-// deflection, fire (EN 1992-1-2), equilibrium of a cantilever's back span
-// (EN 1990), the design moment at a support with a width.
+// EN 1992-1-1 member rules, the checks of the member rather than of one
+// section: span/depth deflection, fire (EN 1992-1-2), equilibrium of a
+// cantilever's back span (EN 1990), the design moment at a support with a
+// width, the top steel at pinned ends.
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -107,6 +108,28 @@ void Checker::support_moment_steps(Steps& st, const RegionDemand& g, const Suppo
     st.add("M_Ed", "M_Ed,(3)", "", g.M_Ed * 1e-6, "kNm", "EN 1992-1-1 5.3.2.2(3)");
   }
 }
+
+// The checks that read a region's section: the axis distance of bottom
+// bars in fire, and the span/depth ratio of the span these bars govern.
+MemberSectionOutcome Checker::check_with_section(const Section& sec, const RegionDemand& g,
+                                                 const SectionOutcome& outcome, Detail detail) const {
+  MemberSectionOutcome out;
+  const SectionLayer& layer = sec.outer_layer(g.face);
+  // Fire (EN 1992-1-2 Table 5.8): axis distance of the bottom bars
+  if (req_.fire.resistance_min && g.face == Face::bottom) {
+    CheckCollector checks(out.checks, out.verdict, detail);
+    run_check("fire", [&] { fire_axis_distance_check(checks, g, layer.cover_mm, layer.bar.diameter_mm); });
+  }
+  // Deflection (7.4.2) of the span these bars govern
+  if (!g.span_where.empty()) {
+    CheckCollector span(out.span_checks, out.verdict, detail);
+    run_check("deflection",
+              [&] { deflection_check(span, g, layer.d_mm, outcome.As_req_mm2, layer.area_mm2(sec.b_mm)); });
+  }
+  return out;
+}
+
+double Checker::pinned_end_fixity_fraction() const { return partial_fixity_fraction; }
 
 std::vector<Check> Checker::span_checks(const std::string& span_where) const {
   std::vector<Check> out;

@@ -39,8 +39,6 @@ std::vector<std::vector<bool>> Checker::load_arrangements(std::size_t span_count
   return en1992::load_arrangements(span_count, ndp_.pattern_loading == "adjacent_pairs");
 }
 
-double Checker::pinned_end_fixity_fraction() const { return partial_fixity_fraction; }
-
 std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) const {
   const auto phi = bar_diameter(designation);
   if (!phi) return std::nullopt;

@@ -1,6 +1,7 @@
-// EN 1992-1-1 section checks of a region for given bars: cover, bending,
-// ductility, minimum and maximum steel, spacing, cracking, shear without
-// links (and, from members.cpp, the fire and deflection checks they call).
+// EN 1992-1-1 section rules: the checks of a section under a region's
+// demand (cover, bending, ductility, minimum and maximum steel, spacing,
+// cracking, shear without links), the nominal cover, the search's limits
+// and the distribution steel.
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -10,12 +11,16 @@
 
 namespace armature::en1992 {
 
+double Checker::nominal_cover_mm(Face face, double bar_diameter_mm) const {
+  return cover_for(bar_diameter_mm, face).c_nom;
+}
+
 double Checker::max_spacing_mm(const RegionDemand&) const {
   return max_main_bar_spacing_max_moment(req_.slab.thickness_mm);
 }
 
 // Below this area the bar fails bending or minimum steel, as checked in
-// check_region: the larger of As,min (9.2.1.1) and the As,req of bending
+// check_section: the larger of As,min (9.2.1.1) and the As,req of bending
 // (6.1), where M_Rd = M_Ed (the same equilibrium, and M_Rd grows with
 // As); no area passes when K > K'.
 double Checker::minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const {
@@ -30,12 +35,13 @@ double Checker::minimum_area_mm2(const RegionDemand& g, const BarOption& bar) co
   return std::max(minimum_tension_steel(m_.fctm, m_.fyk, b, d), As_bending);
 }
 
-RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar, double s,
-                                    Detail detail) const {
-  RegionOutcome out;
+SectionOutcome Checker::check_section(const Section& sec, const RegionDemand& g, Detail detail) const {
+  SectionOutcome out;
   if (detail != Detail::verdict) out.checks.reserve(8);  // as many as a region has, nearly always
   CheckCollector checks(out.checks, out.verdict, detail);
-  const double h = req_.slab.thickness_mm, b = req_.slab.strip_width_mm;
+  const SectionLayer& layer = sec.outer_layer(g.face);
+  const BarOption& bar = layer.bar;
+  const double h = sec.h_mm, b = sec.b_mm, s = layer.spacing_mm;
   const double phi = bar.diameter_mm, dg = req_.concrete.aggregate_mm;
   const double As_prov = bar.area_mm2 * b / s;
 
@@ -45,11 +51,14 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
   const int s_class = fd.structural_class;
   const double c_dur = fd.c_min_dur;
   // One nominal cover per face (computed cover): that of the largest bar
-  // the kernel has chosen on this face, when larger than this one.
-  const bool cover_given = fd.cover_mm.has_value();
-  const double phi_cover = cover_given ? phi : std::max(phi, g.cover_bar_mm);
+  // the kernel has chosen on this face, when larger than this one. A
+  // section whose cover is not the one worked out here (the request's, or
+  // one a wrapping plug-in sets) is checked as a given cover.
+  const double phi_face = std::max(phi, g.cover_bar_mm);
+  const bool cover_given = fd.cover_mm.has_value() || layer.cover_mm != cover_for(phi_face, g.face).c_nom;
+  const double phi_cover = cover_given ? phi : phi_face;
   const CoverOf cover = cover_for(phi_cover, g.face);
-  const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = cover.c_nom;
+  const double c_bond = cover.c_bond, c_min = cover.c_min, c_req = cover.c_req, c_nom = layer.cover_mm;
   auto cover_steps = [&] {
     Steps st;
     st.add("S", "structural class (S4, life, slab geometry, strength)",
@@ -72,9 +81,7 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
            cover_given ? "" : num(c_req) + " rounded up", c_nom, "mm", "EN 1992-1-1 4.4.1.1");
     return st.take();
   };
-  out.cover_mm = c_nom;
-  out.d_mm = h - c_nom - phi / 2.0;
-  const double d = out.d_mm;
+  const double d = layer.d_mm;
   out.As_min_mm2 = minimum_tension_steel(m_.fctm, m_.fyk, b, d);
   out.As_max_mm2 = maximum_steel(b, h);
   if (d <= 0.0) {  // the bar does not fit: nothing can resist
@@ -236,16 +243,6 @@ RegionOutcome Checker::check_region(const RegionDemand& g, const BarOption& bar,
   // Cover (4.4.1), when the request gives it
   if (cover_given)
     run_check("cover", [&] { checks.add("cover", g.where, "EN 1992-1-1 4.4.1", c_req, c_nom, "mm", cover_steps); });
-
-  // Fire (EN 1992-1-2 Table 5.8): axis distance of the bottom bars
-  if (req_.fire.resistance_min && g.face == Face::bottom)
-    run_check("fire", [&] { fire_axis_distance_check(checks, g, c_nom, phi); });
-
-  // Deflection (7.4.2) of the span these bars govern
-  if (!g.span_where.empty()) {
-    CheckCollector span(out.span_checks, out.verdict, detail);
-    run_check("deflection", [&] { deflection_check(span, g, d, out.As_req_mm2, As_prov); });
-  }
 
   // Shear (6.2.2) at the supports where these bars are the tension steel
   for (const auto& sup : g.supports) {

@@ -8,17 +8,33 @@
 
 namespace armature {
 
+namespace {
+void take_verdict(RegionVerdict& v, const std::vector<Check>& checks) {
+  for (const auto& c : checks) {
+    v.all_pass = v.all_pass && c.pass;
+    if (is_strength_check(c.id.str())) v.strength_pass = v.strength_pass && c.pass;
+  }
+}
+}  // namespace
+
 RegionVerdict verdict_of(const RegionOutcome& o) {
   RegionVerdict v;
-  auto take = [&](const std::vector<Check>& checks) {
-    for (const auto& c : checks) {
-      v.all_pass = v.all_pass && c.pass;
-      if (is_strength_check(c.id.str())) v.strength_pass = v.strength_pass && c.pass;
-    }
-  };
-  take(o.checks);
-  take(o.span_checks);
-  for (const auto& s : o.supports) take(s.checks);
+  take_verdict(v, o.checks);
+  take_verdict(v, o.span_checks);
+  for (const auto& s : o.supports) take_verdict(v, s.checks);
+  return v;
+}
+
+RegionVerdict verdict_of(const SectionOutcome& o) {
+  RegionVerdict v;
+  take_verdict(v, o.checks);
+  for (const auto& s : o.supports) take_verdict(v, s.checks);
+  return v;
+}
+
+RegionVerdict verdict_of(const std::vector<Check>& checks) {
+  RegionVerdict v;
+  take_verdict(v, checks);
   return v;
 }
 

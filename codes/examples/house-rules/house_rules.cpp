@@ -5,9 +5,13 @@
 //   HR-2  bar spacing ≤ 200 mm
 //   HR-3  slab thickness ≥ 175 mm (acoustic separation between floors)
 //   HR-4  nominal cover ≥ 30 mm
-// No EN 1992 rule is copied here.
+// It wraps EN's section rules (HR-2, HR-4) and member rules (HR-1, HR-3)
+// and nothing else: EN's combinations, loads and bars pass through as
+// they are. No EN 1992 rule is copied here.
 #include <algorithm>
+#include <memory>
 #include <string>
+#include <utility>
 
 #include <armature/plugin.hpp>
 #include <armature/steps.hpp>
@@ -32,73 +36,75 @@ Check scaled_deflection(Check c) {
                     std::move(steps));
 }
 
-class Checker final : public SlabChecker {
+// HR-2 and HR-4 change EN's section rules; everything else of them is EN's.
+class HouseSection final : public ForwardingSectionRules {
  public:
-  // EN's checkers may refer to their requests: the request with the house
-  // cover is kept here, beside the checker made for it.
-  Checker(const DesignCode& en, const Request& req) : req_(req), inner_(en.begin(req)) {
-    if (!req.durability.cover_given(Face::bottom) || !req.durability.cover_given(Face::top)) {
-      with_min_cover_ = req;
-      for (auto& face : with_min_cover_.durability.faces)
-        if (!face.cover_mm) face.cover_mm = min_cover;
-      min_cover_ = en.begin(with_min_cover_);
-    }
-  }
+  HouseSection(const SectionRules& en, const Request& req) : ForwardingSectionRules(en), req_(req) {}
 
-  LoadBasis load_basis() const override { return inner_->load_basis(); }
-  std::vector<Combination> combinations(const std::vector<Action>& actions,
-                                        CombinationLabels labels) const override {
-    return inner_->combinations(actions, labels);
-  }
-  std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override {
-    return inner_->equilibrium_checks(d, detail);
-  }
-  std::vector<std::vector<bool>> load_arrangements(std::size_t n) const override {
-    return inner_->load_arrangements(n);
-  }
-  double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
-  const std::vector<BarOption>& bar_options() const override { return inner_->bar_options(); }
-  std::optional<BarOption> catalogue_bar(const std::string& designation) const override {
-    return inner_->catalogue_bar(designation);
+  // HR-4: where EN's own cover is less than 30 mm and the request gives
+  // none, 30 mm (EN checks a cover other than its own as a given one:
+  // that 30 mm meets its own minimum).
+  double nominal_cover_mm(Face face, double bar_mm) const override {
+    const double en = inner().nominal_cover_mm(face, bar_mm);
+    return raised(face, en) ? min_cover : en;
   }
   double max_spacing_mm(const RegionDemand& g) const override {
-    return std::min(inner_->max_spacing_mm(g), max_spacing);
+    return std::min(inner().max_spacing_mm(g), max_spacing);
   }
-
-  // EN's minimum steel, at the depth of whichever cover HR-4 leads to:
-  // the lesser of the two is a floor for both.
+  // EN's floor is worked out at EN's own cover; at HR-4's larger one the
+  // depth is less, and so may be the floor: none is given there.
   double minimum_area_mm2(const RegionDemand& g, const BarOption& bar) const override {
-    const double own = inner_->minimum_area_mm2(g, bar);
-    return min_cover_ ? std::min(own, min_cover_->minimum_area_mm2(g, bar)) : own;
+    const double cover_bar = std::max(bar.diameter_mm, g.cover_bar_mm);
+    return raised(g.face, inner().nominal_cover_mm(g.face, cover_bar)) ? 0.0 : inner().minimum_area_mm2(g, bar);
   }
-
-  double support_design_moment(const RegionDemand& g) const override { return inner_->support_design_moment(g); }
-
-  RegionOutcome check_region(const RegionDemand& g, const BarOption& bar, double s,
-                             Detail detail) const override {
-    // The house changes EN's checks, so it always asks for them.
+  SectionOutcome check_section(const Section& section, const RegionDemand& g, Detail detail) const override {
+    // The house adds checks to EN's, so it always asks for them.
     const Detail inner_detail = detail == Detail::steps ? Detail::steps : Detail::checks;
-    RegionOutcome out = inner_->check_region(g, bar, s, inner_detail);
-    // HR-4: where EN's own cover is less than 30 mm, design with 30 mm
-    // given (EN then checks that 30 mm meets its own minimum).
-    if (min_cover_ && out.cover_mm < min_cover)
-      out = min_cover_->check_region(g, bar, s, inner_detail);
-    for (auto& c : out.span_checks)
-      if (c.id == "deflection") c = scaled_deflection(std::move(c));
+    SectionOutcome out = inner().check_section(section, g, inner_detail);
+    const SectionLayer& layer = section.outer_layer(g.face);
     out.checks.push_back(run_check("spacing", [&] {
-      return make_check("spacing", g.where, "house rule HR-2", s, max_spacing, "mm",
+      return make_check("spacing", g.where, "house rule HR-2", layer.spacing_mm, max_spacing, "mm",
                         {{"s_max", "house limit", "", max_spacing, "mm", "house rule HR-2"}});
     }));
     out.checks.push_back(run_check("cover", [&] {
-      return make_check("cover", g.where, "house rule HR-4", min_cover, out.cover_mm, "mm",
+      return make_check("cover", g.where, "house rule HR-4", min_cover, layer.cover_mm, "mm",
                         {{"c_nom,min", "house minimum", "", min_cover, "mm", "house rule HR-4"}});
     }));
     out.verdict = verdict_of(out);
     return out;
   }
+  DistributionNeed distribution(double main_As) const override {
+    auto need = inner().distribution(main_As);
+    need.max_spacing_mm = std::min(need.max_spacing_mm, max_spacing);
+    return need;
+  }
 
+ private:
+  // Whether HR-4 raises EN's cover on a face (a given cover is kept).
+  bool raised(Face face, double en_cover) const {
+    return !req_.durability.cover_given(face) && en_cover < min_cover;
+  }
+
+  const Request& req_;  // kept alive by the caller of Code::begin
+};
+
+// HR-1 and HR-3 change EN's member rules; everything else of them is EN's.
+class HouseMembers final : public ForwardingMemberRules {
+ public:
+  HouseMembers(const MemberRules& en, const Request& req) : ForwardingMemberRules(en), req_(req) {}
+
+  MemberSectionOutcome check_with_section(const Section& section, const RegionDemand& g,
+                                          const SectionOutcome& outcome, Detail detail) const override {
+    const Detail inner_detail = detail == Detail::steps ? Detail::steps : Detail::checks;
+    MemberSectionOutcome out = inner().check_with_section(section, g, outcome, inner_detail);
+    for (auto& c : out.span_checks)
+      if (c.id == "deflection") c = scaled_deflection(std::move(c));
+    const RegionVerdict own = verdict_of(out.checks), span = verdict_of(out.span_checks);
+    out.verdict = {own.all_pass && span.all_pass, own.strength_pass && span.strength_pass};
+    return out;
+  }
   std::vector<Check> span_checks(const std::string& span) const override {
-    auto out = inner_->span_checks(span);
+    auto out = inner().span_checks(span);
     out.push_back(run_check("acoustic_thickness", [&] {
       return make_check("acoustic_thickness", span, "house rule HR-3", min_thickness,
                         req_.slab.thickness_mm, "mm",
@@ -108,17 +114,25 @@ class Checker final : public SlabChecker {
     return out;
   }
 
-  DistributionNeed distribution(double main_As) const override {
-    auto need = inner_->distribution(main_As);
-    need.max_spacing_mm = std::min(need.max_spacing_mm, max_spacing);
-    return need;
-  }
+ private:
+  const Request& req_;  // kept alive by the caller of Code::begin
+};
 
-  std::vector<std::string> warnings() const override { return inner_->warnings(); }
+// EN's session with the house's section and member rules; EN's
+// combinations, loads, bars and warnings as they are.
+class Checker final : public ForwardingSlabChecker {
+ public:
+  Checker(const DesignCode& en, const Request& req)
+      : ForwardingSlabChecker(en.begin(req)),
+        section_(inner().section_rules(), req),
+        members_(inner().member_rules(), req) {}
+
+  const SectionRules& section_rules() const override { return section_; }
+  const MemberRules& member_rules() const override { return members_; }
 
   // EN's defaults, with HR-4's floor on a cover the request leaves out.
   std::vector<InputDefault> defaults_used() const override {
-    auto out = inner_->defaults_used();
+    auto out = inner().defaults_used();
     for (auto& d : out)
       if (d.field == "durability.cover_mm")
         d = {d.field, "EN's c_nom, at least " + step_number(min_cover) + " mm", "house rule HR-4"};
@@ -126,9 +140,8 @@ class Checker final : public SlabChecker {
   }
 
  private:
-  const Request& req_;        // kept alive by the caller of Code::begin
-  Request with_min_cover_;    // req_ with HR-4's cover, when req_ gives none
-  std::unique_ptr<SlabChecker> inner_, min_cover_;
+  HouseSection section_;
+  HouseMembers members_;
 };
 
 class Code final : public DesignCode {

@@ -1,8 +1,12 @@
 // The interface between the kernel and a design code. A code plug-in
 // implements DesignCode (immutable, shareable across threads) and, for each
-// request, a SlabChecker holding that request's resolved materials.
-// The kernel owns loads, analysis and the bar search; the code owns every
-// factor, limit and clause.
+// request, a SlabChecker: the code's session for that request, holding its
+// resolved materials and giving the code's rules in three parts, each of
+// which a house plug-in can wrap on its own: CombinationRules
+// (combinations.hpp), SectionRules (the checks of a Section) and
+// MemberRules (the checks of a member that are not a section's).
+// The kernel owns loads, analysis, sections and the bar search; the code
+// owns every factor, limit and clause.
 #pragma once
 
 #include <array>
@@ -17,6 +21,7 @@
 #include "armature/errors.hpp"
 #include "armature/record.hpp"
 #include "armature/request.hpp"
+#include "armature/section.hpp"
 
 namespace armature {
 
@@ -145,12 +150,6 @@ inline bool is_strength_check(std::string_view id) { return id == "bending" || i
 // them, so they are left out of the governing check unless they fail.
 inline bool is_arrangement_limit(std::string_view id) { return id == "spacing"; }
 
-struct BarOption {
-  std::string designation;  // as in the request: "12", "#4"
-  double diameter_mm = 0.0;
-  double area_mm2 = 0.0;    // the catalogue's area of one bar
-};
-
 struct SupportOutcome {
   std::string where;
   double V_Ed = 0.0;  // N
@@ -158,9 +157,27 @@ struct SupportOutcome {
   std::vector<Check> checks;
 };
 
-// The code's verdict on one bar arrangement in one region. At
-// Detail::verdict only `verdict` counts; the records are filled from
-// Detail::checks on.
+// The section rules' verdict on one section under a region's demand. At
+// Detail::verdict only `verdict` counts (and As_req_mm2, which the member
+// rules read); the records are filled from Detail::checks on.
+struct SectionOutcome {
+  RegionVerdict verdict;       // always filled, at every detail
+  double As_req_mm2 = 0.0;
+  double As_min_mm2 = 0.0;
+  double As_max_mm2 = 0.0;
+  std::vector<Check> checks;             // section checks of the region
+  std::vector<SupportOutcome> supports;  // shear at the supports these bars anchor
+};
+
+// The member rules' checks that read a region's section.
+struct MemberSectionOutcome {
+  RegionVerdict verdict;          // always filled, at every detail
+  std::vector<Check> checks;      // of the region (its bars' fire axis distance, ...)
+  std::vector<Check> span_checks; // of region.span_where (deflection, ...)
+};
+
+// Every check of one bar arrangement in one region, as the kernel puts
+// the section's and the member's together (SlabChecker::check_region).
 struct RegionOutcome {
   RegionVerdict verdict;       // always filled, at every detail
   double cover_mm = 0.0;       // nominal cover used for these bars
@@ -168,7 +185,7 @@ struct RegionOutcome {
   double As_req_mm2 = 0.0;
   double As_min_mm2 = 0.0;
   double As_max_mm2 = 0.0;
-  std::vector<Check> checks;        // section checks of the region
+  std::vector<Check> checks;        // section checks of the region, then the member's
   std::vector<Check> span_checks;   // deflection etc. of span_where
   std::vector<SupportOutcome> supports;
 };
@@ -199,20 +216,76 @@ struct EquilibriumDemand {
   double R_destabilising = 0.0;    // N, the reduction the other spans' loads (the cantilever's) cause
 };
 
-class SlabChecker : public CombinationRules {
+// The code's checks of a section (section.hpp) under a region's demand,
+// and what the bar search needs to build and try sections.
+class SectionRules {
  public:
-  virtual ~SlabChecker() = default;
-  virtual LoadBasis load_basis() const = 0;
+  virtual ~SectionRules() = default;
+  // Nominal cover (mm) of bars of this diameter on a face. The kernel
+  // keeps one cover per face: it passes the largest bar it has chosen on
+  // the face where that is larger (RegionDemand::cover_bar_mm).
+  virtual double nominal_cover_mm(Face face, double bar_diameter_mm) const = 0;
+  // Largest bar spacing the code allows in this region (mm).
+  virtual double max_spacing_mm(const RegionDemand& region) const = 0;
+  // An area (mm², for the strip width) below which this bar certainly
+  // fails a strength check (bending or min_steel) in this region; +inf
+  // when no area of it passes. The bar search asks no verdict of such
+  // arrangements, so it must never exceed the true threshold. 0 when the
+  // code gives none.
+  virtual double minimum_area_mm2(const RegionDemand&, const BarOption&) const { return 0.0; }
+  // Every section check of a section under the region's demand, at the
+  // detail asked for (the verdict is filled at every detail): cover,
+  // bending, ductility, minimum and maximum steel, spacing, cracking, and
+  // the shear without links at region.supports, which rely on the bars of
+  // the region's face as tension steel. The section's bars on region.face
+  // are in tension.
+  virtual SectionOutcome check_section(const Section& section, const RegionDemand& region,
+                                       Detail detail) const = 0;
+  // Distribution (secondary) bars for main bars of this area.
+  virtual DistributionNeed distribution(double main_As_prov_mm2) const = 0;
+};
+
+// The code's checks of a member that are not a section's.
+class MemberRules {
+ public:
+  virtual ~MemberRules() = default;
+  // Checks of the member that read the section of a region: the span's
+  // deflection by span/depth ratio where the region governs a span
+  // (region.span_where not empty), the axis distance of its bars in fire.
+  // `section` is the region's outcome from the section rules (As_req).
+  // The kernel asks only for a section whose bars fit (d > 0).
+  virtual MemberSectionOutcome check_with_section(const Section& section, const RegionDemand& region,
+                                                  const SectionOutcome& outcome, Detail detail) const = 0;
+  // Checks of a span that do not depend on the bars (fire thickness, ...).
+  virtual std::vector<Check> span_checks(const std::string& span_where) const = 0;
   // The check of static equilibrium (uplift at the support) for one EQU
   // combination; none when the code checks none.
   virtual std::vector<Check> equilibrium_checks(const EquilibriumDemand&, Detail) const { return {}; }
-  // Load arrangements: each marks the loaded spans (variable actions
-  // present, permanent actions at their `loaded` factor); the others carry
-  // the permanent actions at their `unloaded` factor. Envelope over all.
-  virtual std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const = 0;
   // Top steel at pinned ends, as a fraction of the largest adjacent span
   // moment; 0 when the code asks for none.
   virtual double pinned_end_fixity_fraction() const = 0;
+  // The design hogging moment (N·mm, magnitude) of a support region whose
+  // support has a width (region.support_face.width_mm > 0), from the
+  // moments the kernel gives per load case; called once per such region,
+  // before the bar search, and the result becomes region.M_Ed. Default:
+  // the centreline moment (no reduction).
+  virtual double support_design_moment(const RegionDemand& region) const { return region.support_face.M_centre; }
+};
+
+// The code's session for one request: the request's resolved materials,
+// bars and defaults, and the code's rules in three parts. A house plug-in
+// wraps the part it changes and hands back the others as they are
+// (ForwardingSlabChecker and the Forwarding*Rules below do the forwarding).
+class SlabChecker {
+ public:
+  virtual ~SlabChecker() = default;
+  virtual const CombinationRules& combination_rules() const = 0;
+  virtual const SectionRules& section_rules() const = 0;
+  virtual const MemberRules& member_rules() const = 0;
+  // The request this session was opened for (Code::begin), whose slab
+  // gives the sections their width and thickness.
+  virtual const Request& request() const = 0;
+  virtual LoadBasis load_basis() const = 0;
   // Candidate bars of the request (or the code's default set); the list
   // lives as long as the checker.
   virtual const std::vector<BarOption>& bar_options() const = 0;
@@ -225,27 +298,6 @@ class SlabChecker : public CombinationRules {
       if (bar.designation == designation) return bar;
     return std::nullopt;
   }
-  // Largest bar spacing the code allows in this region (mm).
-  virtual double max_spacing_mm(const RegionDemand& region) const = 0;
-  // An area (mm², for the strip width) below which this bar certainly
-  // fails a strength check (bending or min_steel) in this region; +inf
-  // when no area of it passes. The bar search asks no verdict of such
-  // arrangements, so it must never exceed the true threshold. 0 when the
-  // code gives none.
-  virtual double minimum_area_mm2(const RegionDemand&, const BarOption&) const { return 0.0; }
-  // The design hogging moment (N·mm, magnitude) of a support region whose
-  // support has a width (region.support_face.width_mm > 0), from the
-  // moments the kernel gives per load case; called once per such region,
-  // before the bar search, and the result becomes region.M_Ed. Default:
-  // the centreline moment (no reduction).
-  virtual double support_design_moment(const RegionDemand& region) const { return region.support_face.M_centre; }
-  // Every check of one arrangement, at the detail asked for (the verdict
-  // is filled at every detail).
-  virtual RegionOutcome check_region(const RegionDemand& region, const BarOption& bar,
-                                     double spacing_mm, Detail detail) const = 0;
-  // Checks of a span that do not depend on the bars (fire thickness, ...).
-  virtual std::vector<Check> span_checks(const std::string& span_where) const = 0;
-  virtual DistributionNeed distribution(double main_As_prov_mm2) const = 0;
   virtual std::vector<std::string> warnings() const = 0;
   // For each field of the request that this code reads and that a request
   // may leave out (the code's own defaults and the kernel's alike), the
@@ -254,6 +306,98 @@ class SlabChecker : public CombinationRules {
   // cannot tell a kernel default from a given value); the record shows
   // those the request left out. A decorator forwards its inner code's list.
   virtual std::vector<InputDefault> defaults_used() const { return {}; }
+
+  // What the kernel asks of the rules, for callers holding a session (not
+  // virtual: a plug-in changes them through its rules).
+  double max_spacing_mm(const RegionDemand& region) const { return section_rules().max_spacing_mm(region); }
+  double minimum_area_mm2(const RegionDemand& region, const BarOption& bar) const {
+    return section_rules().minimum_area_mm2(region, bar);
+  }
+  DistributionNeed distribution(double main_As_prov_mm2) const {
+    return section_rules().distribution(main_As_prov_mm2);
+  }
+  // Every check of one arrangement in a region, as the bar search and the
+  // design record see it: the kernel builds the region's section (the
+  // face's cover from the section rules, one layer along the span), asks
+  // the section rules, then the member rules (only while the verdict is
+  // open at Detail::verdict, and only for bars that fit).
+  RegionOutcome check_region(const RegionDemand& region, const BarOption& bar, double spacing_mm,
+                             Detail detail) const;
+};
+
+// Bases for a house plug-in's rules: each forwards every call to the
+// rules it wraps, so a wrapper overrides only what it changes.
+class ForwardingSectionRules : public SectionRules {
+ public:
+  explicit ForwardingSectionRules(const SectionRules& inner) : inner_(&inner) {}
+  double nominal_cover_mm(Face face, double bar_diameter_mm) const override {
+    return inner_->nominal_cover_mm(face, bar_diameter_mm);
+  }
+  double max_spacing_mm(const RegionDemand& region) const override { return inner_->max_spacing_mm(region); }
+  double minimum_area_mm2(const RegionDemand& region, const BarOption& bar) const override {
+    return inner_->minimum_area_mm2(region, bar);
+  }
+  SectionOutcome check_section(const Section& section, const RegionDemand& region, Detail detail) const override {
+    return inner_->check_section(section, region, detail);
+  }
+  DistributionNeed distribution(double main_As_prov_mm2) const override {
+    return inner_->distribution(main_As_prov_mm2);
+  }
+
+ protected:
+  const SectionRules& inner() const { return *inner_; }
+
+ private:
+  const SectionRules* inner_;
+};
+
+class ForwardingMemberRules : public MemberRules {
+ public:
+  explicit ForwardingMemberRules(const MemberRules& inner) : inner_(&inner) {}
+  MemberSectionOutcome check_with_section(const Section& section, const RegionDemand& region,
+                                          const SectionOutcome& outcome, Detail detail) const override {
+    return inner_->check_with_section(section, region, outcome, detail);
+  }
+  std::vector<Check> span_checks(const std::string& span_where) const override {
+    return inner_->span_checks(span_where);
+  }
+  std::vector<Check> equilibrium_checks(const EquilibriumDemand& demand, Detail detail) const override {
+    return inner_->equilibrium_checks(demand, detail);
+  }
+  double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
+  double support_design_moment(const RegionDemand& region) const override {
+    return inner_->support_design_moment(region);
+  }
+
+ protected:
+  const MemberRules& inner() const { return *inner_; }
+
+ private:
+  const MemberRules* inner_;
+};
+
+// A session that forwards everything to the session it wraps (which it
+// owns); a house plug-in overrides the parts it changes.
+class ForwardingSlabChecker : public SlabChecker {
+ public:
+  explicit ForwardingSlabChecker(std::unique_ptr<SlabChecker> inner) : inner_(std::move(inner)) {}
+  const CombinationRules& combination_rules() const override { return inner_->combination_rules(); }
+  const SectionRules& section_rules() const override { return inner_->section_rules(); }
+  const MemberRules& member_rules() const override { return inner_->member_rules(); }
+  const Request& request() const override { return inner_->request(); }
+  LoadBasis load_basis() const override { return inner_->load_basis(); }
+  const std::vector<BarOption>& bar_options() const override { return inner_->bar_options(); }
+  std::optional<BarOption> catalogue_bar(const std::string& designation) const override {
+    return inner_->catalogue_bar(designation);
+  }
+  std::vector<std::string> warnings() const override { return inner_->warnings(); }
+  std::vector<InputDefault> defaults_used() const override { return inner_->defaults_used(); }
+
+ protected:
+  const SlabChecker& inner() const { return *inner_; }
+
+ private:
+  std::unique_ptr<SlabChecker> inner_;
 };
 
 class DesignCode {
@@ -315,6 +459,8 @@ class CheckCollector {
 
 // The verdict of an outcome's checks (for a decorator that changed them).
 RegionVerdict verdict_of(const RegionOutcome& outcome);
+RegionVerdict verdict_of(const SectionOutcome& outcome);
+RegionVerdict verdict_of(const std::vector<Check>& checks);
 
 // Geometry every code refuses: a given cover of half the slab or more, or
 // a slab no thicker than cover plus the smallest candidate bar.

@@ -7,6 +7,7 @@
 // on the others.
 #pragma once
 
+#include <cstddef>
 #include <string>
 #include <vector>
 
@@ -54,6 +55,11 @@ class CombinationRules {
   virtual ~CombinationRules() = default;
   virtual std::vector<Combination> combinations(const std::vector<Action>& actions,
                                                 CombinationLabels labels) const = 0;
+  // Load arrangements (pattern rules) over a member's span_count parts:
+  // each marks the loaded spans (variable actions present, permanent
+  // actions at their `loaded` factor); the others carry the permanent
+  // actions at their `unloaded` factor. Envelope over all.
+  virtual std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const = 0;
 };
 
 }  // namespace armature

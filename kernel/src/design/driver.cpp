@@ -77,7 +77,7 @@ std::unique_ptr<SlabChecker> begin_checked(const DesignCode& code, const CodeIde
   auto checker = call_code(id, "set-up", [&] { return code.begin(req); });
   if (!req.reinforcement.given.empty()) {
     const double fixity =
-        call_code(id, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
+        call_code(id, "end fixity", [&] { return checker->member_rules().pinned_end_fixity_fraction(); });
     InputProblems problems;
     add_given_region_problems(req, fixity > 0.0, problems);
     problems.raise_if_any();
@@ -228,6 +228,12 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   rec.support_widths_given = !req.slab.support_widths_mm.empty();
   const SlabChecker* const checker = &code_checker;
   const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker->load_basis(); });
+  // The code's rules, each asked for once: a plug-in may hand out its own
+  // for one of them and the inner code's for the others.
+  const CombinationRules& combination_rules = call_code(
+      rec.code, "combination rules", [&]() -> const CombinationRules& { return checker->combination_rules(); });
+  const MemberRules& member_rules =
+      call_code(rec.code, "member rules", [&]() -> const MemberRules& { return checker->member_rules(); });
   rec.actions = all_actions(req, basis.density_kN_m3);
   rec.list_actions = req.loads.actions_given;
   // Every label where the combinations are listed (the record, a result
@@ -238,7 +244,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
                                        ? CombinationLabels::all
                                        : CombinationLabels::strength;
   rec.combinations =
-      call_code(rec.code, "combinations", [&] { return checker->combinations(rec.actions, labels); });
+      call_code(rec.code, "combinations", [&] { return combination_rules.combinations(rec.actions, labels); });
   for (const auto& c : rec.combinations)
     if (c.factors.size() != rec.actions.size())
       throw DesignError(rec.code.id + ": combination '" + c.label + "' does not give a factor for every action");
@@ -252,7 +258,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   const double b = req.slab.strip_width_mm;
   const std::size_t parts = member.pattern_count();
   const auto arrangements =
-      call_code(rec.code, "load arrangements", [&] { return checker->load_arrangements(parts); });
+      call_code(rec.code, "load arrangements", [&] { return combination_rules.load_arrangements(parts); });
   for (const auto& a : arrangements)
     if (a.size() != parts) throw DesignError(rec.code.id + ": a load arrangement does not match the spans");
   if (arrangements.empty()) throw DesignError(rec.code.id + ": the code gave no load arrangement");
@@ -268,10 +274,10 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   rec.thickness_mm = req.slab.thickness_mm;
   RegionRules rules;
   rules.pinned_end_fixity_fraction =
-      call_code(rec.code, "end fixity", [&] { return checker->pinned_end_fixity_fraction(); });
+      call_code(rec.code, "end fixity", [&] { return member_rules.pinned_end_fixity_fraction(); });
   rules.support_design_moment = [&](const RegionDemand& g) {
     const double M =
-        call_code(rec.code, "support design moment", [&] { return checker->support_design_moment(g); }, g.where);
+        call_code(rec.code, "support design moment", [&] { return member_rules.support_design_moment(g); }, g.where);
     if (!std::isfinite(M))
       throw DesignError(rec.code.id + " (" + rec.code.variant + "): the design moment at " + g.where +
                         " is not finite");
@@ -323,7 +329,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     if (!supports[j].where.empty()) rec.supports.push_back(std::move(supports[j]));
   for (std::size_t e = 0; e < n; ++e) {
     SpanRecord span{span_names[e], std::move(span_checks[e])};
-    auto extra = call_code(rec.code, "span checks", [&] { return checker->span_checks(span.where); });
+    auto extra = call_code(rec.code, "span checks", [&] { return member_rules.span_checks(span.where); });
     for (auto& c : extra) span.checks.push_back(std::move(c));
     rec.spans.push_back(std::move(span));
   }
@@ -331,7 +337,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   // EQU of every cantilever's back span (DEVELOPERS.md, "Actions and
   // combinations").
   for (const auto& worst : member.equilibrium_demands(loads)) {
-    auto checks = call_code(rec.code, "equilibrium", [&] { return checker->equilibrium_checks(worst, detail); },
+    auto checks = call_code(rec.code, "equilibrium", [&] { return member_rules.equilibrium_checks(worst, detail); },
                             worst.where);
     auto s = std::find_if(rec.supports.begin(), rec.supports.end(),
                           [&](const SupportRecord& r) { return r.where == worst.where; });

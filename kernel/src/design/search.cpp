@@ -10,11 +10,66 @@
 #include <cstdio>
 #include <optional>
 
+#include "arrangement.hpp"
 #include "call_code.hpp"
 
 namespace armature {
 
 namespace {
+
+// What the search asks of the code's session, fetched once per design:
+// the section rules, the member rules and the sections' thickness.
+struct SearchRules {
+  const SectionRules& section;
+  const MemberRules& member;
+  double thickness_mm;
+};
+
+SearchRules rules_of(const SlabChecker& checker, const CodeIdentity& code) {
+  return {call_code(code, "section rules", [&]() -> const SectionRules& { return checker.section_rules(); }),
+          call_code(code, "member rules", [&]() -> const MemberRules& { return checker.member_rules(); }),
+          call_code(code, "the request", [&]() -> const Request& { return checker.request(); }).slab.thickness_mm};
+}
+
+// A region's section, made once per search and given each candidate's
+// bar (with the face's cover for it) and spacing in turn.
+class CandidateSection {
+ public:
+  CandidateSection(const SearchRules& rules, const CodeIdentity& code, const RegionDemand& region,
+                   double width_mm)
+      : rules_(rules), code_(code), region_(region) {
+    section_.b_mm = width_mm;
+    section_.h_mm = rules.thickness_mm;
+    section_.layers.resize(1);
+    section_.layers[0].face = region.face;
+    section_.layers[0].direction = BarDirection::span;
+  }
+  // The bar of the candidates that follow, at its cover.
+  void set_bar(const BarOption& bar) {
+    SectionLayer& layer = section_.layers[0];
+    layer.cover_mm =
+        call_code(code_, "nominal cover", [&] { return region_cover_mm(rules_.section, region_, bar); });
+    layer.bar = bar;
+    layer.d_mm = outer_layer_effective_depth_mm(section_.h_mm, layer.cover_mm, bar.diameter_mm);
+  }
+  void set_spacing(double spacing_mm) { section_.layers[0].spacing_mm = spacing_mm; }
+
+  RegionVerdict verdict() const {
+    return call_code(code_, "the bar search",
+                     [&] { return arrangement_verdict(rules_.section, rules_.member, section_, region_); });
+  }
+  RegionOutcome checks() const {
+    return call_code(code_, "the bar search", [&] {
+      return check_arrangement(rules_.section, rules_.member, section_, region_, Detail::checks);
+    });
+  }
+
+ private:
+  const SearchRules& rules_;
+  const CodeIdentity& code_;
+  const RegionDemand& region_;
+  Section section_;
+};
 
 // The tie rule of contract.md on plain values: least area, then the larger
 // spacing, then the smaller bar.
@@ -67,11 +122,8 @@ struct Failures {
   bool strength_pass = true;  // bending and minimum steel
   std::size_t count = 0;      // checks failed
 };
-Failures failures_of(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
-                     const BarOption& bar, double spacing_mm) {
-  const RegionOutcome out = call_code(code, "the bar search", [&] {
-    return checker.check_region(region, bar, spacing_mm, Detail::checks);
-  });
+Failures failures_of(const CandidateSection& candidate) {
+  const RegionOutcome out = candidate.checks();
   Failures f{out.verdict.strength_pass, 0};
   auto count = [&](const std::vector<Check>& checks) {
     for (const auto& c : checks) f.count += c.pass ? 0 : 1;
@@ -88,21 +140,31 @@ Failures failures_of(const SlabChecker& checker, const CodeIdentity& code, const
 // thickness limit, say) fail for every arrangement alike, so this keeps an
 // arrangement that passes every check the bars can satisfy where there is
 // one, and the failures shown are the real causes.
-Trial fewest_failures(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
-                      double width_mm, double s_max, const Trial& least, const SpacingGrid& grid) {
+Trial fewest_failures(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
+                      const RegionDemand& region, double width_mm, double s_max, const Trial& least,
+                      const SpacingGrid& grid) {
+  CandidateSection candidate(rules, code, region, width_mm);
   Trial best = least;
-  std::size_t best_failures = failures_of(checker, code, region, *least.bar, least.spacing_mm).count;
+  candidate.set_bar(*least.bar);
+  candidate.set_spacing(least.spacing_mm);
+  std::size_t best_failures = failures_of(candidate).count;
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const int steps = searched_steps(grid, s_max);
   for (const auto& bar : bars) {
     const double floor =
-        call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) * (1 - 1e-12);
+        call_code(code, "minimum area", [&] { return rules.section.minimum_area_mm2(region, bar); }) * (1 - 1e-12);
+    bool bar_set = false;
     for (int k = steps; k >= 0 && best_failures > 0; --k) {
       const double s = grid.at(k);
       const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       if (c.As_prov_mm2 < floor || (c.bar == best.bar && s == best.spacing_mm)) continue;
-      const Failures got = failures_of(checker, code, region, bar, s);
+      if (!bar_set) {
+        candidate.set_bar(bar);
+        bar_set = true;
+      }
+      candidate.set_spacing(s);
+      const Failures got = failures_of(candidate);
       if (!got.strength_pass) continue;
       const std::size_t f = got.count;
       if (f < best_failures || (f == best_failures && preferred_values(c.As_prov_mm2, s, bar.diameter_mm,
@@ -123,13 +185,17 @@ int SpacingGrid::last_step(double max_spacing_mm) const {
   return static_cast<int>(std::floor((max_spacing_mm - first_mm) / step_mm + 1e-9));
 }
 
-SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code,
-                            const RegionDemand& region, double width_mm,
-                            std::vector<std::string>& warnings, const SpacingGrid& grid) {
+namespace {
+
+// search_bars with the rules already fetched (once per design).
+SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
+                              const RegionDemand& region, double width_mm, std::vector<std::string>& warnings,
+                              const SpacingGrid& grid) {
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const double s_max =
-      call_code(code, "maximum spacing", [&] { return checker.max_spacing_mm(region); });
+      call_code(code, "maximum spacing", [&] { return rules.section.max_spacing_mm(region); });
+  CandidateSection candidate(rules, code, region, width_mm);
   // Every arrangement is a candidate, but one with more steel than an
   // arrangement already known to pass can never be chosen, so it is not
   // checked. Each bar is tried from its widest spacing (least steel) down.
@@ -141,18 +207,22 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
     // check's own ratio on the checked side). Asked for only when this bar
     // has an arrangement left to check.
     std::optional<double> floor;
+    bool bar_set = false;
     for (int k = steps; k >= 0; --k) {
       const double s = grid.at(k);
       const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       keep_largest(largest, c);
       if (passing.found() && c.As_prov_mm2 > passing.As_prov_mm2 * (1 + 1e-9)) break;
       if (!floor)
-        floor = call_code(code, "minimum area", [&] { return checker.minimum_area_mm2(region, bar); }) *
+        floor = call_code(code, "minimum area", [&] { return rules.section.minimum_area_mm2(region, bar); }) *
                 (1 - 1e-12);
       if (c.As_prov_mm2 < *floor) continue;
-      const RegionVerdict v = call_code(code, "the bar search", [&] {
-        return checker.check_region(region, bar, s, Detail::verdict).verdict;
-      });
+      if (!bar_set) {
+        candidate.set_bar(bar);
+        bar_set = true;
+      }
+      candidate.set_spacing(s);
+      const RegionVerdict v = candidate.verdict();
       if (v.strength_pass) consider(fallback, c);
       if (v.all_pass) {
         consider(passing, c);
@@ -162,7 +232,7 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   }
   if (passing.found()) return passing.candidate();
   if (fallback.found())
-    return fewest_failures(checker, code, region, width_mm, s_max, fallback, grid).candidate();
+    return fewest_failures(checker, rules, code, region, width_mm, s_max, fallback, grid).candidate();
   if (!largest.found())
     throw DesignError(code.id + " (" + code.variant + "): no bar arrangement to try at " +
                       region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
@@ -173,9 +243,10 @@ SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code
   return most;
 }
 
-SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentity& code,
-                                   const std::vector<const RegionDemand*>& regions, double width_mm,
-                                   std::vector<std::string>& warnings, const SpacingGrid& grid) {
+// search_common_bars with the rules already fetched.
+SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
+                              const std::vector<const RegionDemand*>& regions, double width_mm,
+                              std::vector<std::string>& warnings, const SpacingGrid& grid) {
   if (regions.empty()) throw DesignError("no region for a common bar arrangement");
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
@@ -183,14 +254,25 @@ SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentit
   // limit fails that region's spacing check, like any other check.
   double s_max = 0.0;
   for (const RegionDemand* g : regions)
-    s_max = std::max(s_max, call_code(code, "maximum spacing", [&] { return checker.max_spacing_mm(*g); }));
+    s_max = std::max(s_max, call_code(code, "maximum spacing", [&] { return rules.section.max_spacing_mm(*g); }));
   const int steps = searched_steps(grid, s_max);
+  // One section per region: the same bars, each at its own face's cover.
+  std::vector<CandidateSection> candidates;
+  candidates.reserve(regions.size());
+  for (const RegionDemand* g : regions) candidates.emplace_back(rules, code, *g, width_mm);
+  auto set_arrangement = [&](const BarOption& bar, double s) {
+    for (auto& candidate : candidates) {
+      candidate.set_bar(bar);
+      candidate.set_spacing(s);
+    }
+  };
   // As search_bars, every region at once: each bar from its widest spacing
   // down, none heavier than an arrangement known to pass everywhere.
   Trial passing, largest;
   bool any_strong = false;  // some arrangement passes bending and minimum steel in every region
   for (const auto& bar : bars) {
     std::optional<double> floor;  // below it, some region fails a strength check
+    bool bar_set = false;
     for (int k = steps; k >= 0; --k) {
       const double s = grid.at(k);
       const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
@@ -200,15 +282,18 @@ SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentit
         floor = 0.0;
         for (const RegionDemand* g : regions)
           floor = std::max(*floor, call_code(code, "minimum area",
-                                             [&] { return checker.minimum_area_mm2(*g, bar); }) *
+                                             [&] { return rules.section.minimum_area_mm2(*g, bar); }) *
                                        (1 - 1e-12));
       }
       if (c.As_prov_mm2 < *floor) continue;
+      if (!bar_set) {
+        for (auto& candidate : candidates) candidate.set_bar(bar);
+        bar_set = true;
+      }
       bool all = true, strong = true;
-      for (const RegionDemand* g : regions) {
-        const RegionVerdict v = call_code(code, "the bar search", [&] {
-          return checker.check_region(*g, bar, s, Detail::verdict).verdict;
-        });
+      for (auto& candidate : candidates) {
+        candidate.set_spacing(s);
+        const RegionVerdict v = candidate.verdict();
         all = all && v.all_pass;
         strong = strong && v.strength_pass;
         if (!strong) break;
@@ -233,8 +318,9 @@ SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentit
         const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
         std::size_t failed = 0;
         bool strong = true;
-        for (const RegionDemand* g : regions) {
-          const Failures f = failures_of(checker, code, *g, bar, s);
+        set_arrangement(bar, s);
+        for (const auto& candidate : candidates) {
+          const Failures f = failures_of(candidate);
           strong = strong && f.strength_pass;
           failed += f.count;
           if (!strong) break;
@@ -259,14 +345,27 @@ SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentit
   return most;
 }
 
+}  // namespace
+
+SearchCandidate search_bars(const SlabChecker& checker, const CodeIdentity& code, const RegionDemand& region,
+                            double width_mm, std::vector<std::string>& warnings, const SpacingGrid& grid) {
+  return search_region(checker, rules_of(checker, code), code, region, width_mm, warnings, grid);
+}
+
+SearchCandidate search_common_bars(const SlabChecker& checker, const CodeIdentity& code,
+                                   const std::vector<const RegionDemand*>& regions, double width_mm,
+                                   std::vector<std::string>& warnings, const SpacingGrid& grid) {
+  return search_shared(checker, rules_of(checker, code), code, regions, width_mm, warnings, grid);
+}
+
 // Distribution bars: the least area that meets the need, at a spacing of
 // the search's grid within the code's limit; for each bar that is its
 // widest spacing providing the area, so one candidate per bar is compared.
 DistributionRecord choose_distribution(const SlabChecker& checker, const CodeIdentity& code,
                                        double main_As_prov, double width_mm, const SpacingGrid& grid,
                                        std::vector<std::string>& warnings, bool& ok) {
-  DistributionNeed need =
-      call_code(code, "distribution steel", [&] { return checker.distribution(main_As_prov); });
+  DistributionNeed need = call_code(code, "distribution steel",
+                                    [&] { return checker.section_rules().distribution(main_As_prov); });
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   // The distribution bars have no spacing check of their own: when even
@@ -323,6 +422,7 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
                                                      std::vector<RegionDemand>& demands, double width_mm,
                                                      const DurabilityInput& durability, const BarPlan& plan,
                                                      std::vector<std::string>& warnings) {
+  const SearchRules rules = rules_of(checker, code);
   const std::size_t n = demands.size();
   std::vector<SearchCandidate> picks(n);
   std::vector<std::vector<std::string>> region_warnings(n);
@@ -334,12 +434,14 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
     std::vector<const RegionDemand*> regions;
     for (const std::size_t i : plan.common) regions.push_back(&demands[i]);
     common_warnings.clear();
-    const SearchCandidate pick = search_common_bars(checker, code, regions, width_mm, common_warnings, plan.grid);
+    const SearchCandidate pick =
+        search_shared(checker, rules, code, regions, width_mm, common_warnings, plan.grid);
     for (const std::size_t i : plan.common) picks[i] = pick;
   };
   for (std::size_t i = 0; i < n; ++i) {
     if (is_given(i)) picks[i] = *plan.given[i];
-    else if (!in_common[i]) picks[i] = search_bars(checker, code, demands[i], width_mm, region_warnings[i], plan.grid);
+    else if (!in_common[i])
+      picks[i] = search_region(checker, rules, code, demands[i], width_mm, region_warnings[i], plan.grid);
   }
   if (!plan.common.empty()) search_common();
   const std::size_t rounds =
@@ -367,7 +469,7 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
           continue;
         }
         region_warnings[i].clear();
-        picks[i] = search_bars(checker, code, g, width_mm, region_warnings[i], plan.grid);
+        picks[i] = search_region(checker, rules, code, g, width_mm, region_warnings[i], plan.grid);
         searched_again = true;
       }
     }
