@@ -22,7 +22,8 @@ inline constexpr double factor_L_c = 1.0;                   // (5.3.1c): 1.0 L (
 // or E: none of them is listed. Service (characteristic): D + L + (Lr or
 // S); sustained (quasi-permanent): D (the sustained part of L is not
 // defined); EQU: the ULS combinations, the kernel placing the live loads
-// on the cantilever only.
+// on the spans that lift the far support (D at the same factor on every
+// span).
 std::vector<Combination> aci_combinations(const std::vector<Action>& actions,
                                           CombinationLabels labels = CombinationLabels::all);
 

@@ -39,7 +39,7 @@ std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detai
   RegionVerdict verdict;
   CheckCollector checks(out, verdict, detail == Detail::verdict ? Detail::checks : detail);
   run_check("equilibrium", [&] {
-    checks.add("equilibrium", d.where, "ACI 318-19 5.3.1, L on the cantilever only", d.R_destabilising * 1e-3,
+    checks.add("equilibrium", d.where, "ACI 318-19 5.3.1, L on the spans that lift the support", d.R_destabilising * 1e-3,
                d.R_stabilising * 1e-3, "kN", [&] {
                  StepRecorder st;
                  st.add("R,stb", "reaction from the spans that hold the support down", "", force_v(d.R_stabilising),

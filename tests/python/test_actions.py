@@ -332,9 +332,10 @@ def test_equilibrium_is_checked_for_a_shorthand_request():
 
 
 def test_aci_cantilever_equilibrium_by_hand_statics():
-    """ACI 318-19 5.3.1 (a) 1.4D and (b) 1.2D + 1.6L with L on the
-    cantilever only (D at one factor on every span; 0.9D goes only with W or
-    E): the least far-support reaction of the two, by moments about the root."""
+    """ACI 318-19 5.3.1 (a) 1.4D and (b) 1.2D + 1.6L with L on the span
+    that lifts the far support, here the cantilever alone (D at one factor
+    on every span; 0.9D goes only with W or E): the least far-support
+    reaction of the two, by moments about the root."""
     L, Lc, P, q = 4.0, 1.5, 12.0, 4.0
     r = balcony(P)
     r["code"] = "ACI318-19"
@@ -352,7 +353,7 @@ def test_aci_cantilever_equilibrium_by_hand_statics():
     _, stb, dst = min(cases)
     assert c["capacity"] == pytest.approx(stb, rel=1e-9)
     assert c["demand"] == pytest.approx(dst, rel=1e-9)
-    assert c["clause"] == "ACI 318-19 5.3.1, L on the cantilever only"
+    assert c["clause"] == "ACI 318-19 5.3.1, L on the spans that lift the support"
 
 
 def reactions_by_stiffness(spans, ends, w_per_span, elements=8):
