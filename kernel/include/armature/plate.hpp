@@ -40,8 +40,9 @@
 namespace armature {
 
 // Elements per bay side when the request does not say: the bay moments of
-// the tests' plates are then within 1 % of the finest mesh (DEVELOPERS.md,
-// "Plate analysis").
+// the tests' plates, and the hogging on the interior lines of continuous
+// floors (the least accurate), are then within 1 % of a fine mesh
+// (DEVELOPERS.md, "Plate analysis").
 inline constexpr int default_plate_mesh_per_bay = 10;
 
 struct PlateEdges {
