@@ -624,11 +624,6 @@ TEST_CASE("Continuous floors: bay and line peaks at the default mesh within 1 % 
     // The peak between the nodes is at least the largest node value.
     CHECK(coarse.largest_hogging >= coarse.largest_node_hogging);
   }
-  // The 3 × 3 floor's corner bay against the 2 × 2 floor's: each has two
-  // continuous and two pinned sides, so the same sagging (symmetry of the
-  // bay's supports; a check that is independent of the mesh reference).
-  CHECK(floor_peaks(3, a, 16).corner_bay_mx ==
-        Approx(floor_peaks(2, a, 16).corner_bay_mx).epsilon(0.03));
 }
 
 TEST_CASE("A partition near a bay's side is read as P a b over l", "[plate]") {
@@ -683,7 +678,8 @@ TEST_CASE("A pinned edge ending at a free edge: corner force reported, per metre
       CHECK(v.y_mm < a);
     }
     bool end_is_point = false;
-    for (const auto& p : r.point_reactions) end_is_point = end_is_point || (p.x_mm == 0.0 && p.y_mm == a);
+    for (const auto& p : r.point_reactions)
+      end_is_point = end_is_point || (p.x_mm == 0.0 && p.y_mm == a);
     CHECK(end_is_point);
     return std::array<double, 3>{corner, near_end, largest};
   };
