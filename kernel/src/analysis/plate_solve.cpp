@@ -643,10 +643,10 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
 
 namespace {
 
-// The rise of the parabola through three values at positions xs[k − 1],
-// xs[k], xs[k + 1] above the middle one, and where its top is; none
-// (offset 0, rise 0) unless the middle value is the largest and the
-// parabola opens downward. The peak between mesh nodes is found so
+// The rise of the parabola through (x0, v0), (x1, v1), (x2, v2), x0 < x1 <
+// x2, above the middle value, and where its top is; none (at x1, rise 0)
+// unless the middle value is the largest and the parabola opens
+// downward. The peak between mesh nodes is found so
 // (common practice: three-point interpolation of a maximum).
 struct PeakShift {
   double at = 0.0;  // position of the top
