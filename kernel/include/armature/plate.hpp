@@ -40,9 +40,10 @@
 namespace armature {
 
 // Elements per bay side when the request does not say: the bay moments of
-// the tests' plates are then within 1 % of the finest mesh (DEVELOPERS.md,
-// "Plate analysis").
-inline constexpr int default_plate_mesh_per_bay = 8;
+// the tests' plates, and the hogging on the interior lines of continuous
+// floors (the least accurate), are then within 1 % of a fine mesh
+// (DEVELOPERS.md, "Plate analysis").
+inline constexpr int default_plate_mesh_per_bay = 10;
 
 struct PlateEdges {
   EndSupport x0 = EndSupport::pinned;
@@ -259,24 +260,34 @@ class PlateField {
   // analysis").
   std::vector<PlateMoments> node_moments(std::size_t c) const;
 
-  // Per bay (bay index): the largest mx and my over the bay's nodes.
+  // Per bay (bay index): the largest mx and my in the bay, found between
+  // the nodes (the largest node value, moved to the top of the parabola
+  // through it and its neighbours along each axis within the bay, except
+  // across a mesh line a line or point load kinks).
   std::vector<BaySagging> bay_sagging(std::size_t c) const;
   // Per support line (model order), per segment: the largest hogging
-  // moment about the line's axis over the segment's nodes.
+  // moment about the line's axis along the segment, found between the
+  // nodes likewise (along the line only).
   std::vector<std::vector<PlanPeak>> line_hogging(std::size_t c) const;
   // Per support line: the reaction per unit length at each of its nodes
-  // except where it meets another supported line (those are point
-  // reactions): the node's vertical reaction over its tributary length.
+  // except those with a point reaction: the node's vertical reaction over
+  // its tributary length. Within an element or two of a free edge these
+  // values depend on the mesh (the reaction is concentrated at the line's
+  // end), farther on they converge.
   std::vector<std::vector<LineReaction>> line_reactions(std::size_t c) const;
-  // Where two supported lines meet (corners of supported edges, grid lines
-  // crossing or meeting a supported edge): the node's whole reaction. It
-  // includes the line reactions of the node's tributary lengths, so at a
-  // corner it approaches Kirchhoff's corner force only as the mesh refines.
+  // The node's whole reaction where two supported lines meet (corners of
+  // supported edges, grid lines crossing or meeting a supported edge) and
+  // where a supported line ends at a free edge. It includes the line
+  // reactions of the node's tributary lengths, so at a corner it
+  // approaches Kirchhoff's corner force only as the mesh refines. Where
+  // interior lines cross, theory has no concentrated force: the small
+  // downward values there shrink as the mesh refines.
   std::vector<PointReaction> point_reactions(std::size_t c) const;
-  // Kirchhoff's corner force at each corner of the plate where two
-  // supported edges meet: 2 mxy nx ny upward (n the outward normals), mxy
-  // from the element's twist dof at the corner; negative where the corner
-  // would lift and the supports hold it down. Zero at a fixed edge's corner.
+  // Kirchhoff's corner force at each corner of the plate where a supported
+  // edge meets a supported or a free edge: 2 mxy nx ny upward (n the
+  // outward normals), mxy from the element's twist dof at the corner;
+  // negative where the corner would lift and the supports hold it down.
+  // Zero at a fixed edge's corner. None where two free edges meet.
   std::vector<PointReaction> corner_forces(std::size_t c) const;
   // Resultant of every support reaction (forces and, at fixed edges and
   // along lines, the reaction moments' contribution to the first moments).

@@ -472,7 +472,10 @@ std::array<std::size_t, 2> bays_beside(std::size_t k, const std::vector<std::siz
 // beside it: centred on the line where the bay has elements on both
 // sides, unless the moment is kinked along the line (a line or point load
 // on it), where one patch on each side extrapolates to the line rather
-// than fitting across the kink. With their weights at the line.
+// than fitting across the kink. A side with fewer than two elements
+// between the line and the bay's side has no room for a patch of its own
+// (moved into the bay it would straddle the kink): the other side alone
+// extrapolates. With their weights at the line.
 struct Patches {
   std::array<std::size_t, 4> start{};
   std::array<std::array<double, 4>, 4> weight{};
@@ -496,6 +499,12 @@ Patches patches_for(std::size_t k, const std::vector<double>& nodes,
       add(std::clamp(k - 1, first, last));
       continue;
     }
+    const bool room_before = before && k >= lo + 2, room_after = after && k + 2 <= hi;
+    if (room_before) add(k - 2);
+    if (room_after) add(k);
+    if (room_before || room_after) continue;
+    // Fewer than two elements on either side (a bay of two or three
+    // elements): the nearest patch within the bay.
     if (before) add(std::clamp(k < 2 ? 0 : k - 2, first, last));
     if (after) add(std::clamp(k, first, last));
   }
@@ -634,52 +643,134 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
 
 namespace {
 
-std::vector<BaySagging> bay_peaks(const PlateMesh& m, const std::vector<PlateMoments>& moments) {
+// The rise of the parabola through (x0, v0), (x1, v1), (x2, v2), x0 < x1 <
+// x2, above the middle value, and where its top is; none (at x1, rise 0)
+// unless the middle value is the largest and the parabola opens
+// downward. The peak between mesh nodes is found so
+// (common practice: three-point interpolation of a maximum).
+struct PeakShift {
+  double at = 0.0;  // position of the top
+  double rise = 0.0;
+};
+PeakShift parabola_top(double x0, double x1, double x2, double v0, double v1, double v2) {
+  if (v1 < v0 || v1 < v2) return {x1, 0.0};
+  const double f01 = (v1 - v0) / (x1 - x0), f12 = (v2 - v1) / (x2 - x1);
+  const double c = (f12 - f01) / (x2 - x0);  // half the second derivative
+  if (!(c < 0.0)) return {x1, 0.0};
+  const double at = std::clamp(0.5 * (x0 + x1) - f01 / (2.0 * c), x0, x2);
+  const double value = v0 + f01 * (at - x0) + c * (at - x0) * (at - x1);
+  return {at, std::max(value - v1, 0.0)};
+}
+
+// The peak of a node value v(ix, iy) at node (ix, iy), moved between the
+// nodes: along each axis where the node has neighbours on both sides
+// within [lo, hi] and none of the three lies on a kinked mesh line, the
+// parabola through the three; the rises along x and y add (a biquadratic
+// without its cross term, which the symmetric top of a bay's moment
+// hardly has).
+template <class Value>
+PlanPeak peak_between_nodes(const PlateMesh& m, Value&& v, std::size_t ix, std::size_t iy,
+                            std::array<std::size_t, 2> x_range, std::array<std::size_t, 2> y_range,
+                            const std::vector<bool>& kinked_x, const std::vector<bool>& kinked_y) {
+  PlanPeak peak{v(ix, iy), m.node_x[ix], m.node_y[iy]};
+  if (ix > x_range[0] && ix < x_range[1] && !kinked_x[ix - 1] && !kinked_x[ix] &&
+      !kinked_x[ix + 1]) {
+    const auto s = parabola_top(m.node_x[ix - 1], m.node_x[ix], m.node_x[ix + 1],
+                                v(ix - 1, iy), v(ix, iy), v(ix + 1, iy));
+    peak.value += s.rise;
+    peak.x_mm = s.at;
+  }
+  if (iy > y_range[0] && iy < y_range[1] && !kinked_y[iy - 1] && !kinked_y[iy] &&
+      !kinked_y[iy + 1]) {
+    const auto s = parabola_top(m.node_y[iy - 1], m.node_y[iy], m.node_y[iy + 1],
+                                v(ix, iy - 1), v(ix, iy), v(ix, iy + 1));
+    peak.value += s.rise;
+    peak.y_mm = s.at;
+  }
+  return peak;
+}
+
+std::vector<BaySagging> bay_peaks(const PlateMesh& m, const std::vector<PlateMoments>& moments,
+                                  const std::vector<bool>& kinked_x,
+                                  const std::vector<bool>& kinked_y) {
   std::vector<BaySagging> bays(m.nx * m.ny);
-  const double lowest = -std::numeric_limits<double>::infinity();
+  auto mx = [&](std::size_t ix, std::size_t iy) { return moments[m.node(ix, iy)].mx; };
+  auto my = [&](std::size_t ix, std::size_t iy) { return moments[m.node(ix, iy)].my; };
   for (std::size_t j = 0; j < m.ny; ++j) {
     for (std::size_t i = 0; i < m.nx; ++i) {
-      BaySagging& b = bays[i + m.nx * j];
-      b.mx.value = b.my.value = lowest;
-      for (std::size_t iy = m.grid_node_y[j]; iy <= m.grid_node_y[j + 1]; ++iy) {
-        for (std::size_t ix = m.grid_node_x[i]; ix <= m.grid_node_x[i + 1]; ++ix) {
-          const auto& mm = moments[m.node(ix, iy)];
-          if (mm.mx > b.mx.value) b.mx = {mm.mx, m.node_x[ix], m.node_y[iy]};
-          if (mm.my > b.my.value) b.my = {mm.my, m.node_x[ix], m.node_y[iy]};
+      const std::array<std::size_t, 2> xr{m.grid_node_x[i], m.grid_node_x[i + 1]};
+      const std::array<std::size_t, 2> yr{m.grid_node_y[j], m.grid_node_y[j + 1]};
+      std::size_t bx = xr[0], by = yr[0], cx = xr[0], cy = yr[0];
+      for (std::size_t iy = yr[0]; iy <= yr[1]; ++iy) {
+        for (std::size_t ix = xr[0]; ix <= xr[1]; ++ix) {
+          if (mx(ix, iy) > mx(bx, by)) bx = ix, by = iy;
+          if (my(ix, iy) > my(cx, cy)) cx = ix, cy = iy;
         }
       }
+      BaySagging& b = bays[i + m.nx * j];
+      b.mx = peak_between_nodes(m, mx, bx, by, xr, yr, kinked_x, kinked_y);
+      b.my = peak_between_nodes(m, my, cx, cy, xr, yr, kinked_x, kinked_y);
     }
   }
   return bays;
 }
 
 std::vector<std::vector<PlanPeak>> line_peaks(const PlateMesh& m,
-                                              const std::vector<PlateMoments>& moments) {
+                                              const std::vector<PlateMoments>& moments,
+                                              const std::vector<bool>& kinked_x,
+                                              const std::vector<bool>& kinked_y) {
   std::vector<std::vector<PlanPeak>> out;
+  const std::vector<bool> none_x(m.columns(), false), none_y(m.rows(), false);
   for (std::size_t l = 0; l < m.lines.size(); ++l) {
     const auto& line = m.lines[l];
-    const auto& nodes = m.line_nodes[l];
     const bool along_y = line.runs_along == PlanAxis::y;
+    // Hogging about the line's axis, read along the line only.
+    auto hogging = [&](std::size_t ix, std::size_t iy) {
+      const auto& mm = moments[m.node(ix, iy)];
+      return along_y ? -mm.mx : -mm.my;
+    };
+    const std::size_t fixed_index = along_y ? m.grid_node_x[line.grid] : m.grid_node_y[line.grid];
+    const auto& ends = along_y ? m.grid_node_y : m.grid_node_x;
     std::vector<PlanPeak> segments(line.segment_count);
     for (std::size_t s = 0; s < line.segment_count; ++s) {
-      PlanPeak& peak = segments[s];
-      peak.value = -std::numeric_limits<double>::infinity();
-      const auto& ends = line.runs_along == PlanAxis::y ? m.grid_node_y : m.grid_node_x;
+      std::size_t best = ends[s];
       for (std::size_t k = ends[s]; k <= ends[s + 1]; ++k) {
-        const std::size_t nd = nodes[k];
-        const auto& mm = moments[nd];
-        const double hogging = along_y ? -mm.mx : -mm.my;
-        if (hogging > peak.value)
-          peak = {hogging, m.node_x[nd % m.columns()], m.node_y[nd / m.columns()]};
+        const double v = along_y ? hogging(fixed_index, k) : hogging(k, fixed_index);
+        const double b = along_y ? hogging(fixed_index, best) : hogging(best, fixed_index);
+        if (v > b) best = k;
       }
+      const std::array<std::size_t, 2> along{ends[s], ends[s + 1]};
+      const std::array<std::size_t, 2> at{fixed_index, fixed_index};  // never across the line
+      segments[s] = along_y ? peak_between_nodes(m, hogging, fixed_index, best, at, along,
+                                                 none_x, kinked_y)
+                            : peak_between_nodes(m, hogging, best, fixed_index, along, at,
+                                                 kinked_x, none_y);
     }
     out.push_back(std::move(segments));
   }
   return out;
 }
 
+// Nodes whose reaction is a point reaction: where two supported lines
+// meet, and where a supported line ends at a free edge (Kirchhoff's
+// concentrated force there, 2 mxy at a plate corner, is in the node's
+// reaction and does not belong in a value per unit length).
+std::vector<bool> point_nodes(const PlateMesh& m) {
+  std::vector<bool> out(m.lines_through_node.size(), false);
+  for (std::size_t nd = 0; nd < out.size(); ++nd) out[nd] = m.lines_through_node[nd] >= 2;
+  const auto& e = m.geometry.edges;
+  for (std::size_t l = 0; l < m.lines.size(); ++l) {
+    const auto& nodes = m.line_nodes[l];
+    const bool along_y = m.lines[l].runs_along == PlanAxis::y;
+    if ((along_y ? e.y0 : e.x0) == EndSupport::free) out[nodes.front()] = true;
+    if ((along_y ? e.y1 : e.x1) == EndSupport::free) out[nodes.back()] = true;
+  }
+  return out;
+}
+
 std::vector<std::vector<LineReaction>> line_values(const PlateMesh& m,
                                                    const std::vector<double>& R) {
+  const auto points = point_nodes(m);
   std::vector<std::vector<LineReaction>> out;
   for (std::size_t l = 0; l < m.lines.size(); ++l) {
     const auto& nodes = m.line_nodes[l];
@@ -687,7 +778,7 @@ std::vector<std::vector<LineReaction>> line_values(const PlateMesh& m,
     std::vector<LineReaction> line;
     for (std::size_t k = 0; k < nodes.size(); ++k) {
       const std::size_t nd = nodes[k];
-      if (m.lines_through_node[nd] >= 2) continue;
+      if (points[nd]) continue;
       line.push_back({m.node_x[nd % m.columns()], m.node_y[nd / m.columns()],
                       R[detail::dofs_per_node * nd + detail::dof_w] / tributary(along, k)});
     }
@@ -697,9 +788,10 @@ std::vector<std::vector<LineReaction>> line_values(const PlateMesh& m,
 }
 
 std::vector<PointReaction> point_values(const PlateMesh& m, const std::vector<double>& R) {
+  const auto points = point_nodes(m);
   std::vector<PointReaction> out;
-  for (std::size_t nd = 0; nd < m.lines_through_node.size(); ++nd)
-    if (m.lines_through_node[nd] >= 2)
+  for (std::size_t nd = 0; nd < points.size(); ++nd)
+    if (points[nd])
       out.push_back({m.node_x[nd % m.columns()], m.node_y[nd / m.columns()],
                      R[detail::dofs_per_node * nd + detail::dof_w]});
   return out;
@@ -708,11 +800,17 @@ std::vector<PointReaction> point_values(const PlateMesh& m, const std::vector<do
 }  // namespace
 
 std::vector<BaySagging> PlateField::bay_sagging(std::size_t c) const {
-  return bay_peaks(*mesh_, node_moments(c));
+  const auto moments = node_moments(c);
+  std::vector<bool> kinked_x, kinked_y;
+  kinked_lines(*mesh_, solution_->load_cases[c], kinked_x, kinked_y);
+  return bay_peaks(*mesh_, moments, kinked_x, kinked_y);
 }
 
 std::vector<std::vector<PlanPeak>> PlateField::line_hogging(std::size_t c) const {
-  return line_peaks(*mesh_, node_moments(c));
+  const auto moments = node_moments(c);
+  std::vector<bool> kinked_x, kinked_y;
+  kinked_lines(*mesh_, solution_->load_cases[c], kinked_x, kinked_y);
+  return line_peaks(*mesh_, moments, kinked_x, kinked_y);
 }
 
 std::vector<std::vector<LineReaction>> PlateField::line_reactions(std::size_t c) const {
@@ -728,8 +826,10 @@ std::vector<PointReaction> PlateField::point_reactions(std::size_t c) const {
 PlateCaseResults PlateField::case_results(std::size_t c) const {
   PlateCaseResults r;
   r.node_moments = node_moments(c);
-  r.bays = bay_peaks(*mesh_, r.node_moments);
-  r.line_hogging = line_peaks(*mesh_, r.node_moments);
+  std::vector<bool> kinked_x, kinked_y;
+  kinked_lines(*mesh_, solution_->load_cases[c], kinked_x, kinked_y);
+  r.bays = bay_peaks(*mesh_, r.node_moments, kinked_x, kinked_y);
+  r.line_hogging = line_peaks(*mesh_, r.node_moments, kinked_x, kinked_y);
   const auto R = held_reactions(*mesh_, *solution_, c);
   r.line_reactions = line_values(*mesh_, R);
   r.point_reactions = point_values(*mesh_, R);
@@ -746,7 +846,7 @@ std::vector<PointReaction> PlateField::corner_forces(std::size_t c) const {
   for (std::size_t corner = 0; corner < 4; ++corner) {
     const bool far_x = corner % 2 == 1, far_y = corner / 2 == 1;
     const EndSupport ex = far_x ? e.x1 : e.x0, ey = far_y ? e.y1 : e.y0;
-    if (ex == EndSupport::free || ey == EndSupport::free) continue;
+    if (ex == EndSupport::free && ey == EndSupport::free) continue;
     const std::size_t nd = m.node(far_x ? m.columns() - 1 : 0, far_y ? m.rows() - 1 : 0);
     const double mxy =
         -m.D * (1.0 - m.geometry.poisson_ratio) * u[detail::dofs_per_node * nd + detail::dof_wxy];
