@@ -190,7 +190,7 @@ TEST_CASE("ACI 318 ignores the ductility class", "[request][aci318]") {
   }
 }
 
-TEST_CASE("serviceability: crack_width tables or calculated; deflection keys not built are refused",
+TEST_CASE("serviceability: crack_width tables or calculated, deflection keys not built are refused",
           "[request][crack_width]") {
   {
     armature::InputProblems problems;
