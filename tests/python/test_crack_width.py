@@ -161,3 +161,23 @@ def test_aci_refuses_a_calculated_crack_width():
     res = armature.design(req)
     assert all(c["id"] != "crack_width" for g in res["regions"] for c in g["checks"])
     assert any(c["clause"] == "ACI 318-19 24.3.2" for g in res["regions"] for c in g["checks"])
+
+
+def test_record_states_the_method_and_shows_the_steps(tmp_path):
+    """The record says the crack width is calculated, and the check's
+    derivation carries (7.8)–(7.11) with the caution kept."""
+    res = armature.design(copy.deepcopy(STORE))
+    out = tmp_path / "store.md"
+    armature.report(res, str(out))
+    text = out.read_text(encoding="utf-8")
+    assert "in place of the code's tables (serviceability.crack_width)" in text
+    assert "**crack_width at span 1**" in text
+    for symbol in ("hc,ef = min(2.5 (h − d), (h − x)/3, h/2)", "ρp,eff", "εsm − εcm", "sr,max", "wk = sr,max"):
+        assert symbol in text
+    [cw] = [c for c in region(res, "span 1")["checks"] if c["id"] == "crack_width"]
+    assert f"{cw['capacity']:g} mm" in text
+    assert res["caution"] and res["caution"].split("\n")[0] in text
+    base = copy.deepcopy(STORE)
+    del base["serviceability"]
+    armature.report(armature.design(base), str(tmp_path / "tables.md"))
+    assert "serviceability.crack_width" not in (tmp_path / "tables.md").read_text(encoding="utf-8")
