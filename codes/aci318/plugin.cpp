@@ -187,6 +187,12 @@ class Code final : public DesignCode {
         problems.add("reinforcement.yield_strength_MPa",
                      "must be between 280 and 550 MPa (ACI 318-19 20.2.2.4), got " + num(*fy));
     }
+    // 24.3.2 controls cracking by the spacing of the bars: the code gives no
+    // crack width to calculate.
+    if (req.serviceability.crack_width == CrackWidthMethod::calculated)
+      problems.add("serviceability.crack_width",
+                   "ACI 318-19 controls cracking by bar spacing (24.3.2) and gives no crack width to "
+                   "calculate: give \"tables\" or leave the field out");
     double smallest_bar = us_ ? 0.375 * mm_per_in : 9.5;
     if (req.reinforcement.bars) {
       smallest_bar = 1e9;

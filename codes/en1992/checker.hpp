@@ -137,6 +137,7 @@ class Checker final : public SlabChecker,
   void min_crack_steel_check(CheckCollector& checks, const RegionDemand& g, double As_prov) const;
   void crack_check(CheckCollector& checks, const RegionDemand& g, double phi, double s, double d,
                    double As_req, double As_prov) const;
+  void crack_width_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const;
 
   // members.cpp
   void fire_axis_distance_check(CheckCollector& checks, const RegionDemand& g, double c_nom, double phi) const;

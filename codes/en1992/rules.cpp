@@ -215,6 +215,35 @@ double minimum_crack_control_steel(double kc, double k, double fct_eff, double A
   return kc * k * fct_eff * A_ct / sigma_s;
 }
 
+double cracked_neutral_axis_depth(double alpha_e, double As, double b, double d) {
+  const double a = alpha_e * As / (b * d);
+  return d * (-a + std::sqrt(a * a + 2.0 * a));
+}
+
+double cracked_steel_stress(double M_Nmm, double As, double d, double x) { return M_Nmm / (As * (d - x / 3.0)); }
+
+double effective_tension_depth(double h, double d, double x) {
+  return std::min({2.5 * (h - d), (h - x) / 3.0, h / 2.0});
+}
+
+double effective_reinforcement_ratio(double As, double Ac_eff) { return As / Ac_eff; }
+
+double mean_strain_difference(double sigma_s, double kt, double fct_eff, double rho_p_eff, double alpha_e,
+                              double Es) {
+  const double full = (sigma_s - kt * fct_eff / rho_p_eff * (1.0 + alpha_e * rho_p_eff)) / Es;
+  return std::max(full, 0.6 * sigma_s / Es);
+}
+
+double max_crack_spacing(double k3, double c, double k1, double k2, double k4, double phi, double rho_p_eff) {
+  return k3 * c + k1 * k2 * k4 * phi / rho_p_eff;
+}
+
+double bonded_spacing_limit(double c, double phi) { return 5.0 * (c + phi / 2.0); }
+
+double max_crack_spacing_wide(double h, double x) { return 1.3 * (h - x); }
+
+double crack_width(double sr_max, double strain_difference) { return sr_max * strain_difference; }
+
 // ---- Deflection ------------------------------------------------------------
 double reference_reinforcement_ratio(double fck) { return std::sqrt(fck) * 1e-3; }
 

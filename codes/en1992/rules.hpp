@@ -97,6 +97,39 @@ double tension_zone_area_rectangular_bending(double b, double h);
 // 7.3.2(2) (7.1): As,min = kc k fct,eff Act / σs.
 double minimum_crack_control_steel(double kc, double k, double fct_eff, double A_ct, double sigma_s);
 
+// ---- Crack width by calculation (EN 1992-1-1 7.3.4) ------------------------
+// 3.2.7(4): design value of the modulus of elasticity of reinforcing steel.
+constexpr double steel_modulus_MPa = 200000.0;
+// 7.3.4(2): kt for long-term loading.
+constexpr double kt_long_term = 0.4;
+// 7.3.4(3): k1 for bars of high bond, k2 for bending.
+constexpr double k1_high_bond = 0.8;
+constexpr double k2_bending = 0.5;
+// 7.3.4(3) Note: recommended values of the NDPs k3 and k4 (the UK NA
+// keeps them: value from memory).
+constexpr double k3_crack_spacing = 3.4;
+constexpr double k4_crack_spacing = 0.425;
+// Cracked rectangular section, concrete in tension ignored, steel As at
+// depth d transformed by αe: x = d(−αe ρ + √((αe ρ)² + 2 αe ρ)), ρ = As/(b d).
+double cracked_neutral_axis_depth(double alpha_e, double As, double b, double d);
+// Steel stress of the cracked section under M: σs = M / (As (d − x/3)).
+double cracked_steel_stress(double M_Nmm, double As, double d, double x);
+// 7.3.2(3): hc,ef = min(2.5 (h − d), (h − x)/3, h/2).
+double effective_tension_depth(double h, double d, double x);
+// 7.3.4(2) (7.10): ρp,eff = As / Ac,eff (no prestressing steel).
+double effective_reinforcement_ratio(double As, double Ac_eff);
+// 7.3.4(2) (7.9): εsm − εcm = max((σs − kt fct,eff/ρp,eff (1 + αe ρp,eff))/Es, 0.6 σs/Es).
+double mean_strain_difference(double sigma_s, double kt, double fct_eff, double rho_p_eff, double alpha_e,
+                              double Es);
+// 7.3.4(3) (7.11): sr,max = k3 c + k1 k2 k4 φ / ρp,eff.
+double max_crack_spacing(double k3, double c, double k1, double k2, double k4, double phi, double rho_p_eff);
+// 7.3.4(3): (7.11) holds for a bonded spacing up to 5 (c + φ/2).
+double bonded_spacing_limit(double c, double phi);
+// 7.3.4(3) (7.14): sr,max = 1.3 (h − x) beyond that spacing.
+double max_crack_spacing_wide(double h, double x);
+// 7.3.4(1) (7.8): wk = sr,max (εsm − εcm).
+double crack_width(double sr_max, double strain_difference);
+
 // ---- Deflection (EN 1992-1-1 7.4.2) ---------------------------------------
 enum class StructuralSystem { simply_supported, end_span, interior_span, cantilever };
 double reference_reinforcement_ratio(double fck);      // ρ0 = √fck × 10⁻³

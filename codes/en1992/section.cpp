@@ -233,12 +233,17 @@ SectionOutcome Checker::check_section(const Section& sec, const RegionDemand& g,
 
   if (checks.verdict_settled()) return out;
 
-  // Crack control (7.3.3)
-  if (crack_check_needed(h))
+  // Crack control (7.3.3): by Tables 7.2N/7.3N, or the calculated crack
+  // width (7.3.4) in their place where the request asks for it; the
+  // minimum steel (7.3.2) either way.
+  if (crack_check_needed(h)) {
+    const bool calculated = req_.serviceability.crack_width == CrackWidthMethod::calculated;
+    if (calculated) run_check("crack_width", [&] { crack_width_check(checks, sec, g); });
     run_check("cracking", [&] {
-      crack_check(checks, g, phi, s, d, out.As_req_mm2, As_prov);
+      if (!calculated) crack_check(checks, g, phi, s, d, out.As_req_mm2, As_prov);
       min_crack_steel_check(checks, g, As_prov);
     });
+  }
 
   // Cover (4.4.1), when the request gives it
   if (cover_given)
@@ -369,5 +374,81 @@ void Checker::crack_check(CheckCollector& checks, const RegionDemand& g, double 
     checks.add("cracking", g.where, "EN 1992-1-1 7.3.3 Table 7.2N (bar diameter)", phi, phi_limit, "mm", steps);
 }
 
-}  // namespace armature::en1992
+// 7.3.4: the calculated crack width wk = sr,max (εsm − εcm) of the face's
+// outer layer under the quasi-permanent moment, against w_max. The
+// quasi-permanent moment is the one the tables check reads: the region's
+// quasi-permanent to ULS ratio times M_Ed, before redistribution (/δ).
+void Checker::crack_width_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const {
+  const SectionLayer& layer = sec.outer_layer(g.face);
+  const double h = sec.h_mm, b = sec.b_mm, d = layer.d_mm, s = layer.spacing_mm, c = layer.cover_mm;
+  const double phi = layer.bar.diameter_mm;
+  const double As = layer.area_mm2(b);
+  const double M_qp = g.quasi_permanent_to_uls * g.M_Ed / g.redistribution_delta;
+  const double Es = steel_modulus_MPa, Ecm = secant_modulus_MPa(m_.fck), alpha_e = Es / Ecm;
+  const double x = cracked_neutral_axis_depth(alpha_e, As, b, d);
+  const double sigma_s = cracked_steel_stress(M_qp, As, d, x);
+  const double hc_eff = effective_tension_depth(h, d, x);
+  const double Ac_eff = b * hc_eff;
+  const double rho_p_eff = effective_reinforcement_ratio(As, Ac_eff);
+  const double fct_eff = m_.fctm;
+  const double strain = mean_strain_difference(sigma_s, kt_long_term, fct_eff, rho_p_eff, alpha_e, Es);
+  const double s_bonded = bonded_spacing_limit(c, phi);
+  const bool wide = s > s_bonded;
+  const double sr_max = wide ? max_crack_spacing_wide(h, x)
+                             : max_crack_spacing(k3_crack_spacing, c, k1_high_bond, k2_bending, k4_crack_spacing,
+                                                 phi, rho_p_eff);
+  const double wk = crack_width(sr_max, strain);
+  const FaceData& fd = face_data(g.face);
+  const char* clause = wide ? "EN 1992-1-1 7.3.4 (7.8), (7.9), (7.14)" : "EN 1992-1-1 7.3.4 (7.8), (7.9), (7.11)";
+  checks.add("crack_width", g.where, clause, wk, fd.w_max, "mm", [&] {
+    Steps st;
+    st.add("w_max", "Table 7.1N for the exposure class", fd.exposure + " (" + to_string(g.face) + " face)",
+           fd.w_max, "mm",
+           variant_ndp("EN 1992-1-1 7.3.1(5) Table 7.1N",
+                       fd.exposure == "X0" || fd.exposure == "XC1" ? "w_max_X0_XC1_mm" : "w_max_other_mm"));
+    if (req_.loads.actions_given)
+      st.add("n_qp/n_uls", "quasi-permanent over ULS moment at the region (combinations of the actions)", "",
+             g.quasi_permanent_to_uls, "-", "EN 1990 (6.16b), (6.10)");
+    else
+      st.add("n_qp/n_uls", "quasi-permanent over ULS load, imposed category " + req_.loads.imposed_category,
+             "ψ2 = " + num(psi_.psi2), g.quasi_permanent_to_uls, "-",
+             variant_ndp("EN 1990 (6.16b), Table A1.1", "psi_factors." + req_.loads.imposed_category + ".psi2"));
+    st.add("M_qp", "(n_qp/n_uls) M_Ed / δ",
+           num(g.quasi_permanent_to_uls) + " × " + num(g.M_Ed * 1e-6) + " / " + num(g.redistribution_delta),
+           M_qp * 1e-6, "kNm", "EN 1990 (6.16b)");
+    st.add("Ecm", "22 (fcm/10)^0.3 GPa", "fcm = " + num(mean_compressive_strength(m_.fck)), Ecm, "MPa",
+           "EN 1992-1-1 Table 3.1");
+    st.add("αe", "Es / Ecm, Es = 200 GPa", num(Es) + " / " + num(Ecm), alpha_e, "-",
+           "EN 1992-1-1 7.3.4(2), 3.2.7(4)");
+    st.add("As,prov", "π φ²/4 × b/s", "π × " + num(phi) + "²/4 × " + num(b) + "/" + num(s), As, "mm2", "");
+    st.add("x", "d (−αe ρ + √((αe ρ)² + 2 αe ρ)), ρ = As/(b d) (cracked section)",
+           num(d) + " × (−αe ρ + √((αe ρ)² + 2 αe ρ)), αe ρ = " + num(alpha_e * As / (b * d)), x, "mm",
+           "EN 1992-1-1 7.3.4(2) (cracked section, concrete in tension ignored)");
+    st.add("σs", "M_qp / (As (d − x/3))",
+           num(M_qp * 1e-6) + " × 10⁶ / (" + num(As) + " × (" + num(d) + " − " + num(x) + "/3))", sigma_s, "MPa",
+           "EN 1992-1-1 7.3.4(2)");
+    st.add("hc,ef", "min(2.5 (h − d), (h − x)/3, h/2)",
+           "min(2.5 × (" + num(h) + " − " + num(d) + "), (" + num(h) + " − " + num(x) + ")/3, " + num(h) + "/2)",
+           hc_eff, "mm", "EN 1992-1-1 7.3.2(3)");
+    st.add("ρp,eff", "As / Ac,eff, Ac,eff = b hc,ef", num(As) + " / (" + num(b) + " × " + num(hc_eff) + ")",
+           rho_p_eff, "-", "EN 1992-1-1 7.3.4(2) (7.10)");
+    st.add("fct,eff", "fctm", "fck = " + num(m_.fck), fct_eff, "MPa", "EN 1992-1-1 7.3.4(2), Table 3.1");
+    st.add("εsm − εcm", "max((σs − kt fct,eff/ρp,eff (1 + αe ρp,eff))/Es, 0.6 σs/Es), kt = 0.4",
+           "max((" + num(sigma_s) + " − 0.4 × " + num(fct_eff) + "/" + num(rho_p_eff) + " × (1 + " + num(alpha_e) +
+               " × " + num(rho_p_eff) + "))/" + num(Es) + ", 0.6 × " + num(sigma_s) + "/" + num(Es) + ")",
+           strain, "-", "EN 1992-1-1 7.3.4(2) (7.9)");
+    st.add("5 (c + φ/2)", "largest spacing for (7.11)", "5 × (" + num(c) + " + " + num(phi) + "/2), s = " + num(s),
+           s_bonded, "mm", "EN 1992-1-1 7.3.4(3)");
+    if (wide)
+      st.add("sr,max", "1.3 (h − x), spacing over 5 (c + φ/2)", "1.3 × (" + num(h) + " − " + num(x) + ")", sr_max,
+             "mm", "EN 1992-1-1 7.3.4(3) (7.14)");
+    else
+      st.add("sr,max", "k3 c + k1 k2 k4 φ/ρp,eff, k1 = 0.8, k2 = 0.5, k3 = 3.4, k4 = 0.425",
+             "3.4 × " + num(c) + " + 0.8 × 0.5 × 0.425 × " + num(phi) + "/" + num(rho_p_eff), sr_max, "mm",
+             "EN 1992-1-1 7.3.4(3) (7.11); k3, k4 recommended values");
+    st.add("wk", "sr,max (εsm − εcm)", num(sr_max) + " × " + num(strain), wk, "mm", "EN 1992-1-1 7.3.4(1) (7.8)");
+    return st.take();
+  });
+}
 
+}  // namespace armature::en1992

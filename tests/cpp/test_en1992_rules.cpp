@@ -363,3 +363,66 @@ TEST_CASE("Support moment at the face 5.3.2.2", "[en1992][rules]") {
   CHECK(monolithic_support_design_moment(14.728625e6, 18.8e6) == Approx(14.728625e6));
   CHECK(monolithic_support_design_moment(4.418e6, 18.8e6) == Approx(12.22e6));  // 0.65 × 18.8
 }
+
+TEST_CASE("7.3.4 crack width clause by clause", "[en1992][crack_width]") {
+  // Hand evaluation of EN 1992-1-1 7.3.4 (7.8)–(7.11), (7.14) and 7.3.2(3)
+  // for one section of our own: b = 1000, h = 250, d = 214 mm, As = 750 mm²,
+  // c = 30 mm, φ = 12 mm, αe = 6, fct,eff = 2.9 MPa, Es = 200 000 MPa.
+  //   ρ = 750/(1000 × 214) = 0.0035047, αe ρ = 0.021028
+  //   x = 214 (−0.021028 + √(0.021028² + 2 × 0.021028)) = 214 × 0.185123 = 39.616 mm
+  const double x = cracked_neutral_axis_depth(6.0, 750.0, 1000.0, 214.0);
+  CHECK(x == Approx(39.616).epsilon(1e-4));
+  //   M_qp = 50 kNm: σs = 50e6 / (750 × (214 − 39.616/3)) = 50e6 / (750 × 200.795) = 332.01 MPa
+  const double sigma = cracked_steel_stress(50e6, 750.0, 214.0, x);
+  CHECK(sigma == Approx(332.01).epsilon(1e-4));
+  //   hc,ef = min(2.5 × 36, (250 − 39.616)/3, 125) = min(90, 70.128, 125) = 70.128 mm
+  const double hc = effective_tension_depth(250.0, 214.0, x);
+  CHECK(hc == Approx(70.128).epsilon(1e-4));
+  CHECK(effective_tension_depth(250.0, 240.0, x) == Approx(25.0));   // 2.5 (h − d) governs
+  CHECK(effective_tension_depth(250.0, 150.0, -200.0) == Approx(125.0));  // h/2 governs (x < 0)
+  //   ρp,eff = 750/(1000 × 70.128) = 0.010695 (7.10)
+  const double rho = effective_reinforcement_ratio(750.0, 1000.0 * hc);
+  CHECK(rho == Approx(0.010695).epsilon(1e-4));
+  //   (7.9): 0.4 × 2.9/0.010695 × (1 + 6 × 0.010695) = 115.42 MPa;
+  //   (332.01 − 115.42)/200 000 = 1.0829e-3 > 0.6 × 332.01/200 000 = 0.9960e-3
+  const double strain = mean_strain_difference(sigma, kt_long_term, 2.9, rho, 6.0, steel_modulus_MPa);
+  CHECK(strain == Approx(1.0829e-3).epsilon(1e-4));
+  //   at 40 kNm: σs = 265.61 MPa, (265.61 − 115.42)/2e5 = 0.7509e-3 < 0.6 × 265.61/2e5 = 0.7968e-3
+  CHECK(mean_strain_difference(265.61, 0.4, 2.9, rho, 6.0, 200000.0) == Approx(0.7968e-3).epsilon(1e-4));
+  //   (7.11): sr,max = 3.4 × 30 + 0.8 × 0.5 × 0.425 × 12/0.010695 = 102 + 190.75 = 292.75 mm
+  const double sr = max_crack_spacing(k3_crack_spacing, 30.0, k1_high_bond, k2_bending, k4_crack_spacing, 12.0, rho);
+  CHECK(sr == Approx(292.75).epsilon(1e-4));
+  //   (7.8): wk = 292.75 × 1.0829e-3 = 0.3170 mm
+  CHECK(crack_width(sr, strain) == Approx(0.3170).epsilon(1e-3));
+  //   7.3.4(3): (7.11) up to 5 (30 + 12/2) = 180 mm; beyond, (7.14) 1.3 (250 − 39.616) = 273.50 mm
+  CHECK(bonded_spacing_limit(30.0, 12.0) == Approx(180.0));
+  CHECK(max_crack_spacing_wide(250.0, x) == Approx(273.50).epsilon(1e-4));
+  // EN 1992-1-1 7.3.4(2), (3) (value from memory): kt = 0.4 long term,
+  // k1 = 0.8, k2 = 0.5, recommended k3 = 3.4, k4 = 0.425; Es = 200 GPa (3.2.7(4)).
+  CHECK(kt_long_term == 0.4);
+  CHECK(k1_high_bond == 0.8);
+  CHECK(k2_bending == 0.5);
+  CHECK(k3_crack_spacing == 3.4);
+  CHECK(k4_crack_spacing == 0.425);
+  CHECK(steel_modulus_MPa == 200000.0);
+}
+
+TEST_CASE("Cracked neutral axis, closed form and equilibrium", "[en1992][crack_width]") {
+  // Closed form x = d(−αe ρ + √((αe ρ)² + 2 αe ρ)) solves the first moment
+  // of the transformed cracked section about its neutral axis,
+  // b x²/2 = αe As (d − x) (elastic theory of a cracked rectangular section).
+  for (double As : {300.0, 754.0, 1571.0, 3000.0})
+    for (double alpha_e : {5.0, 6.1, 15.0}) {
+      const double b = 1000.0, d = 180.0;
+      const double x = cracked_neutral_axis_depth(alpha_e, As, b, d);
+      CHECK(b * x * x / 2.0 == Approx(alpha_e * As * (d - x)).epsilon(1e-9));
+      CHECK(x > 0.0);
+      CHECK(x < d);
+    }
+  // σs = M/(As z), z = d − x/3: the same stress as M (d − x) αe / I_II with
+  // I_II = b x³/3 + αe As (d − x)² (elastic theory of the cracked section).
+  const double b = 1000.0, d = 180.0, As = 754.0, ae = 6.1, M = 30e6;
+  const double x = cracked_neutral_axis_depth(ae, As, b, d);
+  const double I2 = b * x * x * x / 3.0 + ae * As * (d - x) * (d - x);
+  CHECK(cracked_steel_stress(M, As, d, x) == Approx(ae * M * (d - x) / I2).epsilon(1e-9));
+}

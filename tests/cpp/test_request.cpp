@@ -189,3 +189,53 @@ TEST_CASE("ACI 318 ignores the ductility class", "[request][aci318]") {
     CHECK(plain.regions[i].bars.spacing_mm == with_class.regions[i].bars.spacing_mm);
   }
 }
+
+TEST_CASE("serviceability: crack_width tables or calculated, deflection keys not built are refused",
+          "[request][crack_width]") {
+  {
+    armature::InputProblems problems;
+    auto req = armature::request_from_json(base(), problems);
+    CHECK(req.serviceability.crack_width == armature::CrackWidthMethod::tables);  // contract default
+  }
+  {
+    json r = base();
+    r["serviceability"] = {{"crack_width", "calculated"}, {"deflection", "span_depth"}};
+    armature::InputProblems problems;
+    auto req = armature::request_from_json(r, problems);
+    CHECK(problems.empty());
+    CHECK(req.serviceability.crack_width == armature::CrackWidthMethod::calculated);
+  }
+  json r = base();
+  r["serviceability"] = {{"crack_width", "measured"},     {"deflection", "calculated"},
+                         {"partitions", false},          {"creep_coefficient", 2.5},
+                         {"relative_humidity_percent", 50}, {"age_at_loading_days", 28},
+                         {"shrinkage_strain", nullptr},  {"cracks", 1}};
+  auto ps = problems_of(r);
+  std::vector<std::string> fields;
+  for (const auto& p : ps) fields.push_back(p.field);
+  CHECK_THAT(fields, Catch::UnorderedEquals(std::vector<std::string>{
+                         "serviceability.crack_width", "serviceability.deflection", "serviceability.partitions",
+                         "serviceability.creep_coefficient", "serviceability.relative_humidity_percent",
+                         "serviceability.age_at_loading_days", "serviceability.shrinkage_strain",
+                         "serviceability.cracks"}));
+  for (const auto& p : ps) {
+    if (p.field == "serviceability.deflection" || p.field == "serviceability.partitions")
+      CHECK(p.message.find("not available yet") != std::string::npos);
+    if (p.field == "serviceability.crack_width")
+      CHECK(p.message == "must be \"tables\" or \"calculated\", got \"measured\"");
+  }
+}
+
+TEST_CASE("ACI 318-19 gives no calculated crack width (24.3.2)", "[request][aci318][crack_width]") {
+  json r = base();
+  r["code"] = "ACI318-19";
+  r.erase("variant");
+  r["concrete"] = {{"cylinder_strength_MPa", 28}};
+  r["serviceability"] = {{"crack_width", "calculated"}};
+  auto ps = problems_of(r);
+  REQUIRE(ps.size() == 1);
+  CHECK(ps[0].field == "serviceability.crack_width");
+  CHECK(ps[0].message.find("24.3.2") != std::string::npos);
+  r["serviceability"] = {{"crack_width", "tables"}};
+  CHECK(problems_of(r).empty());
+}

@@ -222,3 +222,62 @@ TEST_CASE("Wrapping the combination rules alone changes only the loads", "[secti
     CHECK((clause.rfind("EN 1992-1-1", 0) == 0 || clause.rfind("EN 1990", 0) == 0));
   }
 }
+
+TEST_CASE("Section: the calculated crack width replaces the table check, in the verdict too",
+          "[section][crack_width]") {
+  json req = storeroom("EN1992-1-1", "recommended");
+  req["slab"]["thickness_mm"] = 250;  // crack control applies above 200 mm (EN 1992-1-1 7.3.3(1))
+  req["serviceability"] = {{"crack_width", "calculated"}};
+  armature::InputProblems problems;
+  const auto parsed = armature::request_from_json(req, problems);
+  REQUIRE(problems.empty());
+  const auto session = registry().open("EN1992-1-1", "recommended")->begin(parsed);
+  const auto& rules = session->section_rules();
+  const auto b12 = *session->catalogue_bar("12");
+  const double c = rules.nominal_cover_mm(armature::Face::top, 12);
+  armature::RegionDemand g;
+  g.where = "support 2";
+  g.face = armature::Face::top;
+  g.M_Ed = 40e6;
+  g.quasi_permanent_to_uls = 0.6;
+  g.redistribution_delta = 0.8;
+  auto crack_checks = [&](double spacing, armature::Detail detail) {
+    const auto section = armature::one_layer_section(1000, 250, armature::Face::top, b12, spacing, c);
+    return rules.check_section(section, g, detail);
+  };
+  const auto out = crack_checks(150, armature::Detail::steps);
+  int widths = 0;
+  for (const auto& k : out.checks) {
+    CHECK(k.clause.str().find("Table 7.") == std::string::npos);  // no table check
+    if (k.id != "crack_width") continue;
+    ++widths;
+    CHECK(k.unit == "mm");
+    CHECK(k.capacity == Approx(0.4));  // EN 1992-1-1 Table 7.1N, X0/XC1 (value from memory); XC1 by default
+    // M_qp = 0.6 × 40 / 0.8 = 30 kNm: the moment before redistribution,
+    // as the table check's stress estimate (hand arithmetic).
+    bool m_step = false;
+    for (const auto& st : k.steps)
+      if (st.symbol == "M_qp") {
+        CHECK(st.result == Approx(30.0));
+        m_step = true;
+      }
+    CHECK(m_step);
+  }
+  CHECK(widths == 1);
+  // The bar search's verdict agrees with the checks: 12 mm bars at 200 mm
+  // whose bending passes (M_Rd about 51 kNm against 45) crack too much
+  // under M_qp = 1.0 × 45 / 0.7 = 64 kNm, and the verdict sees it.
+  g.M_Ed = 45e6;
+  g.quasi_permanent_to_uls = 1.0;
+  g.redistribution_delta = 0.7;
+  const auto wide_checks = crack_checks(200, armature::Detail::checks);
+  bool failed = false, others_pass = true;
+  for (const auto& k : wide_checks.checks) {
+    if (k.id == "crack_width") failed = !k.pass;
+    else others_pass = others_pass && k.pass;
+  }
+  CHECK(failed);
+  CHECK(others_pass);
+  CHECK_FALSE(crack_checks(200, armature::Detail::verdict).verdict.all_pass);
+  CHECK_FALSE(wide_checks.verdict.all_pass);
+}

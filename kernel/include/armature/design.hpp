@@ -98,6 +98,7 @@ struct DesignRecord {
   std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
   double redistribution_percent = 0.0;
   Rationalise rationalise = Rationalise::none;  // as requested
+  CrackWidthMethod crack_width = CrackWidthMethod::tables;  // serviceability.crack_width
   ProjectInfo project;
   // The code's defaults_used() (at Detail::steps only): the record lists those the request left out.
   std::vector<InputDefault> defaults_used;

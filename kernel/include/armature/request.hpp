@@ -118,6 +118,17 @@ struct DesignOptions {
   double redistribution_percent = 0.0;
 };
 
+// How the serviceability checks are made (serviceability of the request).
+// The crack width: by the code's tables (bar size and spacing against the
+// steel stress) or calculated from the cracked section.
+enum class CrackWidthMethod { tables, calculated };
+
+const char* to_string(CrackWidthMethod method);
+
+struct ServiceabilityInput {
+  CrackWidthMethod crack_width = CrackWidthMethod::tables;
+};
+
 // Title-block information of the calculation record (all optional).
 struct ProjectInfo {
   std::string name, reference, designer, checker;
@@ -137,6 +148,7 @@ struct Request {
   DurabilityInput durability;
   FireInput fire;
   DesignOptions design;
+  ServiceabilityInput serviceability;
   ReportUnits report_units = ReportUnits::SI;
   ProjectInfo project;
 };

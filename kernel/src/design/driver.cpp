@@ -270,6 +270,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   rec.load_arrangements = arrangements.size();
   rec.ends = req.slab.ends;
   rec.redistribution_percent = req.design.redistribution_percent;
+  rec.crack_width = req.serviceability.crack_width;
   rec.project = req.project;
   rec.thickness_mm = req.slab.thickness_mm;
   RegionRules rules;

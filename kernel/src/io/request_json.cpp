@@ -681,6 +681,34 @@ void read_design(const json& j, InputProblems& problems, DesignOptions& d) {
     d.redistribution_percent = *p;
 }
 
+// serviceability (contract-v2 section 4). Only the crack width's choice is
+// built; the calculated deflection's keys are refused, not ignored.
+void read_serviceability(const json& j, InputProblems& problems, ServiceabilityInput& s) {
+  ObjectReader r(j, "serviceability", problems,
+                 {"deflection", "partitions", "creep_coefficient", "relative_humidity_percent",
+                  "age_at_loading_days", "shrinkage_strain", "crack_width"});
+  if (auto deflection = r.text("deflection")) {
+    if (*deflection == "calculated" || *deflection == "both")
+      problems.add("serviceability.deflection",
+                   "\"" + *deflection + "\": the calculated deflection is not available yet; give "
+                   "\"span_depth\" or leave the field out");
+    else if (*deflection != "span_depth")
+      problems.add("serviceability.deflection",
+                   "must be \"span_depth\", \"calculated\" or \"both\", got \"" + *deflection + "\"");
+  }
+  for (const char* key : {"partitions", "creep_coefficient", "relative_humidity_percent", "age_at_loading_days",
+                          "shrinkage_strain"})
+    if (r.find(key))
+      problems.add(std::string("serviceability.") + key,
+                   "belongs to the calculated deflection, which is not available yet; leave the field out");
+  if (auto method = r.text("crack_width")) {
+    if (*method == "tables") s.crack_width = CrackWidthMethod::tables;
+    else if (*method == "calculated") s.crack_width = CrackWidthMethod::calculated;
+    else problems.add("serviceability.crack_width",
+                      "must be \"tables\" or \"calculated\", got \"" + *method + "\"");
+  }
+}
+
 }  // namespace
 
 bool request_gives(const json& j, const std::string& field) {
@@ -711,7 +739,7 @@ Request request_from_json(const json& j, InputProblems& problems) {
   }
   ObjectReader r(j, "", problems,
                  {"code", "variant", "slab", "concrete", "reinforcement", "loads", "durability",
-                  "fire", "design", "report_units", "project"});
+                  "fire", "design", "serviceability", "report_units", "project"});
   if (const json* p = r.object("project")) {
     ObjectReader pr(*p, "project", problems, {"name", "reference", "designer", "checker"});
     req.project.name = pr.text("name").value_or("");
@@ -740,6 +768,7 @@ Request request_from_json(const json& j, InputProblems& problems) {
   if (const json* d = r.object("durability")) read_durability(*d, problems, req.durability);
   if (const json* f = r.object("fire")) read_fire(*f, problems, req.fire);
   if (const json* d = r.object("design")) read_design(*d, problems, req.design);
+  if (const json* s = r.object("serviceability")) read_serviceability(*s, problems, req.serviceability);
   return req;
 }
 

@@ -146,4 +146,8 @@ const char* to_string(Rationalise rationalise) {
   return "?";
 }
 
+const char* to_string(CrackWidthMethod method) {
+  return method == CrackWidthMethod::tables ? "tables" : "calculated";
+}
+
 }  // namespace armature

@@ -444,6 +444,9 @@ std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord&
                                            std::to_string(r.load_cases) + " distinct load cases"});
   if (r.redistribution_percent > 0)
     rows.push_back({"Moment redistribution", n4(r.redistribution_percent) + " % at interior supports"});
+  if (r.crack_width == CrackWidthMethod::calculated)
+    rows.push_back({"Crack width", "calculated from the cracked section under the quasi-permanent moment, in "
+                                   "place of the code's tables (serviceability.crack_width)"});
   return rows;
 }
 
