@@ -71,8 +71,15 @@ std::vector<InputDefault> Checker::defaults_used() const {
 }
 
 std::vector<std::string> Checker::warnings() const {
-  if (ndp_.durability_note.empty()) return {};
-  return {ndp_.durability_note};
+  std::vector<std::string> out;
+  if (!ndp_.durability_note.empty()) out.push_back(ndp_.durability_note);
+  // A calculated crack width asked for where 7.3.3(1) asks for no crack
+  // control: said, so that the record's "calculated" is not read as checked.
+  if (req_.serviceability.crack_width == CrackWidthMethod::calculated && !crack_check_needed(req_.slab.thickness_mm))
+    out.push_back("serviceability.crack_width is \"calculated\", but the slab is " + num(req_.slab.thickness_mm) +
+                  " mm thick: EN 1992-1-1 7.3.3(1) asks for no crack control in slabs of 200 mm or less "
+                  "(with 9.3 satisfied), so no crack width is checked");
+  return out;
 }
 
 namespace {

@@ -214,3 +214,16 @@ def test_light_bars_can_need_more_than_the_tables():
     t = region(armature.design(copy.deepcopy(base)), "span 1")["bars"]
     k = region(armature.design(designed), "span 1")["bars"]
     assert k["As_prov_mm2"] > t["As_prov_mm2"]
+
+
+def test_a_thin_slab_says_no_crack_width_is_checked():
+    """EN 1992-1-1 7.3.3(1): no crack control for slabs of h ≤ 200 mm (with
+    9.3 satisfied); a calculated crack width asked for there is not checked,
+    and the design says so rather than implying it was."""
+    thin = copy.deepcopy(STORE)
+    thin["slab"]["thickness_mm"] = 200
+    res = armature.design(thin)
+    assert not [c for g in res["regions"] for c in g["checks"] if c["id"] == "crack_width"]
+    assert any("7.3.3(1)" in w and "no crack width is checked" in w for w in res["warnings"])
+    thick = armature.design(copy.deepcopy(STORE))  # 260 mm: checked, no such warning
+    assert not any("no crack width is checked" in w for w in thick["warnings"])
