@@ -12,6 +12,7 @@
 #include <boost/dll/shared_library.hpp>
 
 #include "armature/plugin.hpp"
+#include "record/label_cache.hpp"
 
 #ifndef ARMATURE_BUILD_CODE_DIR
 #define ARMATURE_BUILD_CODE_DIR ""
@@ -72,7 +73,15 @@ struct Registry::Impl {
 
 void Registry::Impl::load_file(const fs::path& file) {
   auto fail = [&](const std::string& reason) { failures.push_back({file.string(), reason}); };
-  auto library = std::make_shared<boost::dll::shared_library>();
+  // Labels remember string literals by address: they forget them before
+  // the library is unloaded, as a later library may reuse its addresses
+  // (and again after, for a label its static destructors may have made).
+  std::shared_ptr<boost::dll::shared_library> library(new boost::dll::shared_library(),
+                                                      [](boost::dll::shared_library* unloading) {
+                                                        forget_remembered_literals();
+                                                        delete unloading;
+                                                        forget_remembered_literals();
+                                                      });
   try {
     library->load(file, boost::dll::load_mode::rtld_now | boost::dll::load_mode::rtld_local);
   } catch (const std::exception& e) {

@@ -11,6 +11,7 @@
 #include "armature/design.hpp"
 #include "armature/plugin.hpp"
 #include "armature/registry.hpp"
+#include "../../kernel/src/record/label_cache.hpp"
 
 namespace fs = std::filesystem;
 using armature::Registry;
@@ -142,4 +143,56 @@ TEST_CASE("The first plug-in on the path wins and a second copy is reported", "[
   CHECK(fs::path(reg.failures()[0].path) == fs::weakly_canonical(copy));
   CHECK_THAT(reg.failures()[0].reason, Catch::Contains("code 'ACI318-19' is already provided by") &&
                                            Catch::Contains("this file is ignored"));
+}
+
+// Labels remember string literals by address. A library's literals vanish
+// when it is unloaded and another library may put other text at the same
+// address: the registry makes labels forget what they remembered first.
+TEST_CASE("A label made at a remembered address after forgetting has the new text", "[registry][labels]") {
+  // Stands for a plug-in's literal: text at a fixed address.
+  static char text[] = "first text";
+  CHECK(armature::Label(static_cast<const char*>(text)).str() == "first text");
+  CHECK(armature::Label(static_cast<const char*>(text)).str() == "first text");  // remembered
+  // The library "unloads" and another puts its own text at that address.
+  armature::forget_remembered_literals();
+  std::copy_n("other text", sizeof text, text);
+  CHECK(armature::Label(static_cast<const char*>(text)).str() == "other text");
+  CHECK(armature::Label(static_cast<const char*>(text)) == armature::Label(std::string("other text")));
+}
+
+TEST_CASE("Labels stay right when plug-ins are unloaded and others loaded", "[registry][labels]") {
+  const auto aci_request = nlohmann::json{
+      {"code", "ACI318-19"},
+      {"slab", {{"spans_m", {4.0}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 200}}},
+      {"concrete", {{"cylinder_strength_MPa", 28}}},
+      {"loads", {{"imposed_kPa", 2.5}}}};
+  // Every check cites its own code (a text from the other would show a
+  // label taken from a forgotten address).
+  auto clauses_cite = [](const armature::DesignRecord& rec, const std::string& code) {
+    std::size_t n = 0;
+    for (const auto* c : rec.all_checks()) {
+      ++n;
+      if (c->clause.str().find(code) == std::string::npos) {
+        FAIL_CHECK("check " << c->id.str() << " at " << c->where << " cites '" << c->clause.str() << "'");
+        return false;
+      }
+    }
+    return n > 0;
+  };
+  // Each round loads the plug-ins afresh (a registry of its own, dropped at
+  // the end of the round, unloads them), designs with one code, then the
+  // other: their literals come and go at addresses the other may reuse.
+  for (int round = 0; round < 3; ++round) {
+    {
+      Registry reg({ARMATURE_CODE_DIR});
+      const auto rec = armature::design(reg, simple_request("EN1992-1-1"));
+      CHECK(clauses_cite(rec, "EN 199"));
+      CHECK(rec.regions.at(1).where == "span 1");
+    }
+    {
+      Registry reg({ARMATURE_CODE_DIR});
+      const auto rec = armature::design(reg, aci_request);
+      CHECK(clauses_cite(rec, "ACI 318"));
+    }
+  }
 }

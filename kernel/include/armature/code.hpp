@@ -435,16 +435,9 @@ class CheckCollector {
     verdict_.all_pass = verdict_.all_pass && pass;
     if (is_strength_check(id)) verdict_.strength_pass = verdict_.strength_pass && pass;
     if (detail_ == Detail::verdict) return;
-    Check& c = out_.emplace_back();
-    c.id = id;
-    c.where = where;
-    c.clause = clause;
-    c.demand = demand;
-    c.capacity = capacity;
-    c.unit = unit;
-    c.utilisation = utilisation;
-    c.pass = pass;
-    if (detail_ == Detail::steps) c.steps = make_steps();
+    // Made in place with every field: no default labels to overwrite.
+    out_.emplace_back(Label(id), where, Label(clause), demand, capacity, Label(unit), utilisation, pass,
+                      detail_ == Detail::steps ? make_steps() : std::vector<Step>{});
   }
   void add(const char* id, const std::string& where, const char* clause, double demand,
            double capacity, const char* unit) {

@@ -17,6 +17,9 @@ namespace armature {
 class Label {
  public:
   Label();
+  // For string literals (and other text that keeps its address and its
+  // characters while its library is loaded): the text is remembered by
+  // address. Text in a buffer or a std::string goes by string_view.
   Label(const char* text);  // NOLINT: implicit, as a string would be
   Label(std::string_view text);
   Label(const std::string& text) : Label(std::string_view(text)) {}  // NOLINT

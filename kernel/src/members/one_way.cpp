@@ -3,6 +3,7 @@
 // their analysis (one factorisation for all), the design regions with their
 // demands, support faces and the equilibrium of cantilevers' back spans.
 #include <algorithm>
+#include <charconv>
 #include <cmath>
 #include <cstdio>
 #include <limits>
@@ -14,8 +15,17 @@ namespace armature {
 
 namespace {
 
-std::string span_name(std::size_t e) { return "span " + std::to_string(e + 1); }
-std::string support_name(std::size_t j) { return "support " + std::to_string(j + 1); }
+// "span 2", "support 3": written with to_chars straight into the text
+// (these names are made many times in each design).
+std::string numbered_name(std::string_view word, std::size_t number) {
+  char text[40];
+  const std::size_t n = word.copy(text, 16);
+  text[n] = ' ';
+  const auto end = std::to_chars(text + n + 1, text + sizeof text, number).ptr;
+  return std::string(text, end);
+}
+std::string span_name(std::size_t e) { return numbered_name("span", e + 1); }
+std::string support_name(std::size_t j) { return numbered_name("support", j + 1); }
 
 std::string number_text(double v) {
   char buf[64];

@@ -1,15 +1,20 @@
 #include "armature/record.hpp"
 
+#include <atomic>
 #include <cstdint>
 #include <cstring>
 #include <limits>
+#include <memory>
 #include <mutex>
 #include <ostream>
+#include <unordered_map>
 #include <unordered_set>
+#include <vector>
 
 #include "armature/code.hpp"
 #include "armature/errors.hpp"
 #include "armature/request.hpp"
+#include "label_cache.hpp"
 
 namespace armature {
 
@@ -33,44 +38,90 @@ const std::string* stored_text(std::string_view text) {
   return &*store.texts.emplace(text).first;
 }
 
-// Labels are mostly made from string literals, again and again: each
-// thread remembers, by address, the stored text of the literals it has
-// seen. The text is compared on every hit, so a different text at a
-// remembered address (a plug-in unloaded and another loaded) is looked up
-// afresh, never mistaken.
-struct LiteralCache {
-  static constexpr std::size_t size = 512;  // 2^9 slots
-  const char* address[size] = {};
-  const std::string* text[size] = {};
+// Labels are mostly made from string literals, again and again: one
+// table for the whole process remembers, by address, the stored text of
+// the literals seen. It is read without a lock (one atomic load per probe;
+// a per-thread table cost a `__tls_get_addr` per label), so a slot holds a
+// pointer to an entry that is never changed or freed once published.
+// A literal's address keeps its text for as long as its library is
+// loaded; the registry calls `forget_remembered_literals` before it
+// unloads a plug-in, so a text at a reused address is never mistaken.
+struct LiteralEntry {
+  const char* address;
+  const std::string* text;
 };
 
-const std::string* text_of_literal(const char* literal) {
-  thread_local LiteralCache cache;
-  // Literals sit side by side at any alignment: a multiplicative hash
-  // spreads neighbouring addresses over the slots, and a few neighbouring
-  // slots are tried so that two literals rarely take turns at one.
+// The slots are a constant-initialised array (no start-up guard to test
+// on each look-up; trivially destroyed, so usable from static destructors).
+constexpr std::size_t literal_slot_count = 512;  // 2^9 slots
+constinit std::atomic<const LiteralEntry*> literal_slots[literal_slot_count] = {};
+
+struct LiteralTable {
+  // Owns every entry ever published (guarded by the label store's mutex).
+  // Entries are not freed when forgotten: a reader may still hold one.
+  std::vector<std::unique_ptr<LiteralEntry>> entries;
+  // The entry of each address remembered since the last forgetting, so a
+  // literal that lost its slot to another comes back without a new entry.
+  std::unordered_map<const char*, const LiteralEntry*> by_address;
+};
+LiteralTable& literal_table() {
+  static auto* table = new LiteralTable();  // never destroyed, as the store
+  return *table;
+}
+
+// Literals sit side by side at any alignment: a multiplicative hash
+// spreads neighbouring addresses over the slots, and a few neighbouring
+// slots are tried so that two literals rarely take turns at one.
+std::size_t home_slot(const char* literal) {
   const std::uint64_t address = reinterpret_cast<std::uintptr_t>(literal);
-  const std::size_t home = static_cast<std::size_t>((address * 0x9E3779B97F4A7C15ull) >> 55);  // 9 bits
-  std::size_t free_slot = home;
-  for (std::size_t probe = 0; probe < 4; ++probe) {
-    const std::size_t slot = (home + probe) % LiteralCache::size;
-    if (cache.address[slot] == literal) {
-      if (std::strcmp(cache.text[slot]->c_str(), literal) == 0) return cache.text[slot];
-      free_slot = slot;  // another text at a remembered address: replace it
-      break;
-    }
-    if (!cache.address[slot]) {
-      free_slot = slot;
+  return static_cast<std::size_t>((address * 0x9E3779B97F4A7C15ull) >> 55);  // 9 bits
+}
+constexpr std::size_t literal_probes = 4;
+
+// A literal not remembered: store its text and publish its entry, under
+// the lock. Kept out of line so that the look-up stays a few instructions.
+[[gnu::noinline]] const std::string* remember_literal(const char* literal, std::size_t home) {
+  auto& table = literal_table();
+  auto& store = label_store();
+  std::lock_guard<std::mutex> lock(store.mutex);
+  const LiteralEntry*& known = table.by_address[literal];
+  if (!known) {
+    const std::string* text = &*store.texts.emplace(literal).first;
+    table.entries.push_back(std::make_unique<LiteralEntry>(LiteralEntry{literal, text}));
+    known = table.entries.back().get();
+  }
+  // The first free slot of the probe sequence, or the home slot if all
+  // are taken (the literal it held is looked up afresh next time).
+  std::size_t chosen = home;
+  for (std::size_t probe = 0; probe < literal_probes; ++probe) {
+    const std::size_t slot = (home + probe) % literal_slot_count;
+    const LiteralEntry* e = literal_slots[slot].load(std::memory_order_relaxed);
+    if (!e || e == known) {
+      chosen = slot;
       break;
     }
   }
-  const std::string* stored = stored_text(literal);
-  cache.address[free_slot] = literal;
-  cache.text[free_slot] = stored;
-  return stored;
+  literal_slots[chosen].store(known, std::memory_order_release);
+  return known->text;
+}
+
+const std::string* text_of_literal(const char* literal) {
+  const std::size_t home = home_slot(literal);
+  for (std::size_t probe = 0; probe < literal_probes; ++probe) {
+    const LiteralEntry* e = literal_slots[(home + probe) % literal_slot_count].load(std::memory_order_acquire);
+    if (!e) break;
+    if (e->address == literal) return e->text;
+  }
+  return remember_literal(literal, home);
 }
 
 }  // namespace
+
+void forget_remembered_literals() {
+  std::lock_guard<std::mutex> lock(label_store().mutex);
+  for (auto& slot : literal_slots) slot.store(nullptr, std::memory_order_release);
+  literal_table().by_address.clear();
+}
 
 Label::Label() {
   static const std::string* const empty = stored_text("");
