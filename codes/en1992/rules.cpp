@@ -7,6 +7,7 @@
 #include <cmath>
 #include <cstdio>
 #include <stdexcept>
+#include <string_view>
 
 namespace armature::en1992 {
 
@@ -14,7 +15,7 @@ namespace armature::en1992 {
 std::optional<double> fck_of_strength_class(const std::string& name) {
   // Table 3.1 strength classes: C fck / fck,cube.
   struct Class {
-    const char* name;
+    std::string_view name;  // compared by length first: few text compares
     double fck;
   };
   static constexpr Class classes[] = {{"C12/15", 12}, {"C16/20", 16}, {"C20/25", 20}, {"C25/30", 25},
