@@ -8,6 +8,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "armature/code.hpp"
 #include "armature/design.hpp"
 #include "armature/plugin.hpp"
 #include "armature/registry.hpp"
@@ -195,4 +196,23 @@ TEST_CASE("Labels stay right when plug-ins are unloaded and others loaded", "[re
       CHECK(clauses_cite(rec, "ACI 318"));
     }
   }
+}
+
+// A clause built at run time is given to CheckCollector::add as a
+// std::string: its label is looked up by its text, never by the address of
+// a buffer that the next clause reuses.
+TEST_CASE("Checks with clauses built at run time keep their own texts", "[labels]") {
+  std::vector<armature::Check> out;
+  armature::RegionVerdict verdict;
+  armature::CheckCollector checks(out, verdict, armature::Detail::checks);
+  std::string clause;
+  for (int rule = 1; rule <= 3; ++rule) {
+    clause = "house rule HR-" + std::to_string(rule);  // the same buffer each time (short-string storage)
+    checks.add("spacing", "span 1", clause, 100.0, 150.0 + rule, "mm");
+  }
+  REQUIRE(out.size() == 3);
+  CHECK(out[0].clause.str() == "house rule HR-1");
+  CHECK(out[1].clause.str() == "house rule HR-2");
+  CHECK(out[2].clause.str() == "house rule HR-3");
+  CHECK(out[2].capacity == 153.0);
 }

@@ -426,10 +426,33 @@ class CheckCollector {
   // strength checks are in and something has failed.
   bool verdict_settled() const { return detail_ == Detail::verdict && !verdict_.all_pass; }
 
-  // Records the requirement demand ≤ capacity.
+  // Records the requirement demand ≤ capacity. The id, the clause and
+  // the unit given as `const char*` must be string literals (their labels
+  // are remembered by address, record.hpp); a clause built at run time is
+  // given as a std::string (its label is looked up by its text).
   template <class StepsFn>
   void add(const char* id, const std::string& where, const char* clause, double demand,
            double capacity, const char* unit, StepsFn&& make_steps) {
+    record(id, where, clause, demand, capacity, unit, std::forward<StepsFn>(make_steps));
+  }
+  template <class StepsFn>
+  void add(const char* id, const std::string& where, const std::string& clause, double demand,
+           double capacity, const char* unit, StepsFn&& make_steps) {
+    record(id, where, clause, demand, capacity, unit, std::forward<StepsFn>(make_steps));
+  }
+  void add(const char* id, const std::string& where, const char* clause, double demand,
+           double capacity, const char* unit) {
+    record(id, where, clause, demand, capacity, unit, [] { return std::vector<Step>{}; });
+  }
+  void add(const char* id, const std::string& where, const std::string& clause, double demand,
+           double capacity, const char* unit) {
+    record(id, where, clause, demand, capacity, unit, [] { return std::vector<Step>{}; });
+  }
+
+ private:
+  template <class ClauseText, class StepsFn>
+  void record(const char* id, const std::string& where, const ClauseText& clause, double demand,
+              double capacity, const char* unit, StepsFn&& make_steps) {
     const double utilisation = utilisation_of(demand, capacity);
     const bool pass = utilisation <= 1.0;
     verdict_.all_pass = verdict_.all_pass && pass;
@@ -439,12 +462,7 @@ class CheckCollector {
     out_.emplace_back(Label(id), where, Label(clause), demand, capacity, Label(unit), utilisation, pass,
                       detail_ == Detail::steps ? make_steps() : std::vector<Step>{});
   }
-  void add(const char* id, const std::string& where, const char* clause, double demand,
-           double capacity, const char* unit) {
-    add(id, where, clause, demand, capacity, unit, [] { return std::vector<Step>{}; });
-  }
 
- private:
   std::vector<Check>& out_;
   RegionVerdict& verdict_;
   Detail detail_;
