@@ -76,22 +76,30 @@ double max_shrinkage_bar_spacing(double h) { return std::min(5.0 * h, 450.0); }
 
 double size_effect_factor(double d) { return std::min(std::sqrt(2.0 / (1.0 + 0.004 * d)), 1.0); }
 
+double one_way_shear_strength(const OneWayShearConstants& form, double lambda_s, double lambda,
+                              double rho_w, double fc, double b, double d) {
+  const double root_fc = std::min(std::sqrt(fc), form.root_fc_cap);
+  const double vc = form.k * lambda_s * lambda * std::cbrt(rho_w) * root_fc;
+  return std::min(vc, form.k_max * lambda * root_fc) * b * d;
+}
+
 double one_way_shear_strength(double lambda_s, double lambda, double rho_w, double fc, double b,
                               double d) {
-  const double root_fc = std::min(std::sqrt(fc), 8.3);
-  const double vc = 0.66 * lambda_s * lambda * std::cbrt(rho_w) * root_fc;
-  return std::min(vc, 0.42 * lambda * root_fc) * b * d;
+  return one_way_shear_strength({0.66, 0.42, 8.3}, lambda_s, lambda, rho_w, fc, b, d);
+}
+
+double minimum_thickness_divisor(SupportCondition condition) {
+  switch (condition) {
+    case SupportCondition::simply_supported: return 20.0;
+    case SupportCondition::one_end_continuous: return 24.0;
+    case SupportCondition::both_ends_continuous: return 28.0;
+    case SupportCondition::cantilever: return 10.0;
+  }
+  return 20.0;
 }
 
 double minimum_slab_thickness(double span, SupportCondition condition, double fy) {
-  double divisor = 20.0;
-  switch (condition) {
-    case SupportCondition::simply_supported: divisor = 20.0; break;
-    case SupportCondition::one_end_continuous: divisor = 24.0; break;
-    case SupportCondition::both_ends_continuous: divisor = 28.0; break;
-    case SupportCondition::cantilever: divisor = 10.0; break;
-  }
-  return span / divisor * (0.4 + fy / 700.0);
+  return span / minimum_thickness_divisor(condition) * (0.4 + fy / 700.0);
 }
 
 bool is_exposure(const std::string& e) { return e == "interior" || e == "weather" || e == "ground"; }

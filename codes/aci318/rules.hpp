@@ -52,6 +52,15 @@ double max_shrinkage_bar_spacing(double h);               // 24.4.3.3: min(5h, 4
 
 // ---- Shear (22.5.5.1) ----------------------------------------------------------
 double size_effect_factor(double d);                      // λs = √(2/(1 + 0.004 d)) ≤ 1
+// The form of 22.5.5.1 in either unit system: Vc = k λs λ ρw^(1/3) √f'c b d
+// ≤ k_max λ √f'c b d, with √f'c capped (22.5.3.1).
+struct OneWayShearConstants {
+  double k;             // 0.66 (MPa) or 8 (psi)
+  double k_max;         // 0.42 (MPa) or 5 (psi)
+  double root_fc_cap;   // 8.3 MPa or 100 psi
+};
+double one_way_shear_strength(const OneWayShearConstants& form, double lambda_s, double lambda,
+                              double rho_w, double fc, double b, double d);
 // Vc = 0.66 λs λ ρw^(1/3) √f'c b d ≤ 0.42 λ √f'c b d, √f'c ≤ 8.3 MPa (22.5.3.1).
 double one_way_shear_strength(double lambda_s, double lambda, double rho_w, double fc, double b,
                               double d);
@@ -59,7 +68,9 @@ constexpr double shear_strength_reduction = 0.75;         // 21.2.1
 
 // ---- Deflection by minimum thickness (Table 7.3.1.1) -----------------------
 enum class SupportCondition { simply_supported, one_end_continuous, both_ends_continuous, cantilever };
-// ℓ/20, ℓ/24, ℓ/28, ℓ/10, times (0.4 + fy/700) (7.3.1.1.1).
+// The divisor of Table 7.3.1.1: ℓ/20, ℓ/24, ℓ/28, ℓ/10 (both unit systems).
+double minimum_thickness_divisor(SupportCondition condition);
+// ℓ/divisor × (0.4 + fy/700) (7.3.1.1.1).
 double minimum_slab_thickness(double span, SupportCondition condition, double fy);
 
 // ---- Cover (20.5.1.3.1) -----------------------------------------------------

@@ -41,20 +41,11 @@ double max_shrinkage_bar_spacing(double h) { return std::min(5.0 * h, 18.0); }
 double size_effect_factor(double d) { return std::min(std::sqrt(2.0 / (1.0 + d / 10.0)), 1.0); }
 
 double one_way_shear_strength(double lambda_s, double lambda, double rho_w, double fc, double b, double d) {
-  const double root_fc = std::min(std::sqrt(fc), 100.0);
-  const double vc = 8.0 * lambda_s * lambda * std::cbrt(rho_w) * root_fc;
-  return std::min(vc, 5.0 * lambda * root_fc) * b * d;
+  return aci318::one_way_shear_strength({8.0, 5.0, 100.0}, lambda_s, lambda, rho_w, fc, b, d);
 }
 
 double minimum_slab_thickness(double span, SupportCondition condition, double fy) {
-  double divisor = 20.0;
-  switch (condition) {
-    case SupportCondition::simply_supported: divisor = 20.0; break;
-    case SupportCondition::one_end_continuous: divisor = 24.0; break;
-    case SupportCondition::both_ends_continuous: divisor = 28.0; break;
-    case SupportCondition::cantilever: divisor = 10.0; break;
-  }
-  return span / divisor * (0.4 + fy / 100000.0);
+  return span / minimum_thickness_divisor(condition) * (0.4 + fy / 100000.0);
 }
 
 double specified_cover(const std::string& exposure, double bar_diameter) {
