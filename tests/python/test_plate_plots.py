@@ -179,6 +179,14 @@ def test_plot_plate_errors_name_the_argument():
     bad["plate"]["field"]["mx"]["max"] = bad["plate"]["field"]["mx"]["max"][:-1]
     with pytest.raises(ValueError, match=r"plate\.field\.mx\.max"):
         armature.plot_plate(bad, "mx")
+    bad = plate_result()
+    del bad["plate"]["bays"][0]["x1_m"]
+    with pytest.raises(ValueError, match=r"plate\.bays\[0\]\.x1_m"):
+        armature.plot_plan(bad)
+    bad = plate_result()
+    del bad["plate"]["field"]["y_m"]
+    with pytest.raises(ValueError, match=r"plate\.field\.y_m"):
+        armature.plot_plate(bad, "mxy")
     plt.close("all")
 
 

@@ -137,6 +137,10 @@ def _plate_of(result, caller):
     for name in ("x0", "x1", "y0", "y1"):
         if edges.get(name) not in EDGE_CONDITIONS:
             problems.append(f"plate.edges.{name}: {edges.get(name)!r} is not one of {', '.join(EDGE_CONDITIONS)}")
+    for k, bay in enumerate(plate.get("bays", [])):
+        for key in ("name", "x0_m", "x1_m", "y0_m", "y1_m"):
+            if key not in bay:
+                problems.append(f"plate.bays[{k}].{key}: missing")
     if problems:
         raise ValueError("; ".join(problems))
     return plate
@@ -278,6 +282,9 @@ def plot_plate(result, quantity="mx", envelope="max", ax=None):
         path, values = f"plate.field.design.{quantity}", field.get("design", {}).get(quantity)
     if values is None:
         raise ValueError(f"{path}: missing from the result")
+    for key in ("x_m", "y_m"):
+        if not field.get(key):
+            raise ValueError(f"plate.field.{key}: missing from the result")
     x, y = np.asarray(field["x_m"], dtype=float), np.asarray(field["y_m"], dtype=float)
     values = np.asarray(values, dtype=float)
     if values.shape != (y.size, x.size):

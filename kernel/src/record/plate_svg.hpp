@@ -14,17 +14,9 @@
 #include <string>
 #include <vector>
 
-#include "armature/request.hpp"
+#include "armature/plate.hpp"
 
 namespace armature {
-
-// The four outer edges: x0 at x = 0, x1 at the largest x, y0, y1 likewise.
-struct PlanEdges {
-  EndSupport x0 = EndSupport::pinned;
-  EndSupport x1 = EndSupport::pinned;
-  EndSupport y0 = EndSupport::pinned;
-  EndSupport y1 = EndSupport::pinned;
-};
 
 // One bay: its name as the record writes it ("bay 1,1"), its extent, and
 // the bottom bars of each direction as printed ("ø12 @ 200 mm"), empty
@@ -48,7 +40,7 @@ struct PlanMark {
 struct PlatePlan {
   std::vector<double> x_lines;  // grid lines along x, ascending, the first 0
   std::vector<double> y_lines;
-  PlanEdges edges{};
+  PlateEdges edges{};  // the analysis's own: x0 at x = 0, x1 at the largest x, y0, y1
   std::vector<PlanBay> bays{};
   std::vector<PlanMark> marks{};
   std::string length_unit = "m";
