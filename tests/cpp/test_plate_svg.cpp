@@ -343,3 +343,53 @@ TEST_CASE("Plate drawings refuse a map whose sizes disagree and a grid that does
   plan.x_lines = {0, 4.2, 4.2};
   CHECK_THROWS_AS(armature::plate_plan_svg(plan), std::invalid_argument);
 }
+
+TEST_CASE("Plate map over a bay fixed on one edge and free on another draws those edges and finds the hogging at the fixed edge",
+          "[plate][record]") {
+  // The workshop bay with x1 fixed (a wall built in) and y1 free (a
+  // balcony edge), the rest pinned: mx hogs along the fixed edge, most at
+  // its middle part, and nowhere else as much (a propped plate; common
+  // practice, as the one-way propped cantilever's support moment).
+  armature::PlateGeometry g;
+  g.x_spans_mm = {4200};
+  g.y_spans_mm = {5400};
+  g.edges = {EndSupport::pinned, EndSupport::fixed, EndSupport::pinned, EndSupport::free};
+  g.thickness_mm = 200;
+  g.elastic_modulus_MPa = 30000;
+  g.poisson_ratio = 0.2;
+  const armature::PlateModel model(g);
+  armature::PlateLoadCase lc;
+  lc.bay_pressures_MPa = {0.0148};
+  const auto nodes = model.solve({lc}).node_moments(0);
+  armature::PlatePlan plan;
+  plan.x_lines = {0, 4.2};
+  plan.y_lines = {0, 5.4};
+  plan.edges = g.edges;
+  plan.bays = {{"bay 1,1", 0, 4.2, 0, 5.4}};
+  armature::ScalarMap map;
+  for (double x : model.node_x_mm()) map.x.push_back(x / 1000);
+  for (double y : model.node_y_mm()) map.y.push_back(y / 1000);
+  for (const auto& m : nodes) map.values.push_back(m.mx * 1e-3);
+  const std::string svg = armature::plate_map_svg(plan, map, "mx", "kNm/m");
+  std::string why;
+  INFO(why);
+  REQUIRE(well_formed(svg, why));
+  CHECK(count(svg, "<g class=\"edge pinned\" data-edge=\"x0\"") == 1);
+  CHECK(count(svg, "<g class=\"edge fixed\" data-edge=\"x1\"") == 1);
+  CHECK(count(svg, "<g class=\"edge pinned\" data-edge=\"y0\"") == 1);
+  CHECK(count(svg, "<g class=\"edge free\" data-edge=\"y1\"") == 1);
+  CHECK(count(svg, "<g class=\"legend\"") == 3);
+  for (const char* c : {"fixed", "pinned", "free"})
+    CHECK(count(svg, std::string("<g class=\"legend\" data-condition=\"") + c + "\"") == 1);
+  const auto [lo, hi] = std::minmax_element(map.values.begin(), map.values.end());
+  REQUIRE(*lo < 0);
+  CHECK(texts_after(svg, "class=\"scale-min\"").at(0) == "min " + armature::plain_number(*lo));
+  const std::string min_label = texts_after(svg, "<g class=\"peak-min\"").at(0);
+  const std::string prefix = "min " + armature::plain_number(*lo) + " kNm/m at x = 4.2, y = ";
+  CHECK(min_label.rfind(prefix, 0) == 0);
+  // ... and away from the corners, where the fixed edge meets the others.
+  const double y_min = std::stod(min_label.substr(prefix.size()));
+  CHECK(y_min > 0.5);
+  CHECK(y_min < 5.4 - 0.5);
+  CHECK(texts_after(svg, "class=\"scale-max\"").at(0) == "max " + armature::plain_number(*hi));
+}
