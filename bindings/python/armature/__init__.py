@@ -49,7 +49,7 @@ def report(result, path):
     return _core.write_record(request, os.fspath(path), dict(result))
 
 
-from .plots import add_caution, plot_envelopes, plot_study  # noqa: E402,F401
+from .plots import add_caution, plot_envelopes, plot_plan, plot_plate, plot_study  # noqa: E402,F401
 from .studies import Optimum, optimise, request_for, sweep  # noqa: E402,F401
 from .tables import compare, to_frame  # noqa: E402,F401
 
@@ -65,6 +65,8 @@ __all__ = [
     "design",
     "design_many",
     "plot_envelopes",
+    "plot_plan",
+    "plot_plate",
     "plot_study",
     "plugin_failures",
     "report",
