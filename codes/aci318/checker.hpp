@@ -16,6 +16,7 @@
 #include "armature/code.hpp"
 #include "armature/steps.hpp"
 #include "armature/units.hpp"
+#include "punching_rules.hpp"
 #include "rules.hpp"
 
 namespace armature::aci318 {
@@ -25,7 +26,8 @@ inline std::string num(double v) { return step_number(v); }
 class Checker final : public SlabChecker,
                       private CombinationRules,
                       private SectionRules,
-                      private MemberRules {
+                      private MemberRules,
+                      private PunchingRules {
  public:
   // `us`: the US variant, following the in-lb edition (us_customary.hpp).
   Checker(const Request& req, bool us);  // plugin.cpp
@@ -33,6 +35,7 @@ class Checker final : public SlabChecker,
   const CombinationRules& combination_rules() const override { return *this; }
   const SectionRules& section_rules() const override { return *this; }
   const MemberRules& member_rules() const override { return *this; }
+  const PunchingRules& punching_rules() const override { return *this; }
   const Request& request() const override { return req_; }
 
   // plugin.cpp
@@ -59,6 +62,10 @@ class Checker final : public SlabChecker,
   std::vector<Check> span_checks(const std::string&) const override;
   double support_design_moment(const RegionDemand& g) const override;
   double pinned_end_fixity_fraction() const override;
+
+  // punching.cpp (PunchingRules: ACI 318-19 22.6, 8.4.4.2)
+  double steel_ratio_width_mm(const PunchingDemand&, bool) const override { return 0.0; }
+  PunchingOutcome check_punching(const PunchingDemand& p, Detail detail) const override;
 
  private:
   // members.cpp

@@ -19,6 +19,7 @@
 #include "armature/steps.hpp"
 #include "en1990.hpp"
 #include "ndp.hpp"
+#include "punching_rules.hpp"
 #include "rules.hpp"
 
 namespace armature::en1992 {
@@ -42,13 +43,15 @@ struct Materials {
 class Checker final : public SlabChecker,
                       private CombinationRules,
                       private SectionRules,
-                      private MemberRules {
+                      private MemberRules,
+                      private PunchingRules {
  public:
   Checker(const Ndp& ndp, const En1990Factors& en1990, const Request& req);  // materials.cpp
 
   const CombinationRules& combination_rules() const override { return *this; }
   const SectionRules& section_rules() const override { return *this; }
   const MemberRules& member_rules() const override { return *this; }
+  const PunchingRules& punching_rules() const override { return *this; }
   const Request& request() const override { return req_; }
 
   // plugin.cpp
@@ -75,6 +78,10 @@ class Checker final : public SlabChecker,
   double support_design_moment(const RegionDemand& g) const override;
   std::vector<Check> span_checks(const std::string& span_where) const override;
   double pinned_end_fixity_fraction() const override;
+
+  // punching.cpp (PunchingRules: EN 1992-1-1 6.4)
+  double steel_ratio_width_mm(const PunchingDemand& p, bool along_x) const override;
+  PunchingOutcome check_punching(const PunchingDemand& p, Detail detail) const override;
 
  private:
   // Cover of bars of diameter phi (4.4.1): c_nom is the request's cover

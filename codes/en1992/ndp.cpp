@@ -43,6 +43,7 @@ const std::map<std::string, NumberSpec>& number_specs() {
       {"C_Rd_c_factor", {&Ndp::C_Rd_c_factor, 0.1, 0.2}},
       {"v_min_factor", {&Ndp::v_min_factor, 0.02, 0.05}},
       {"k1_shear", {&Ndp::k1_shear, 0.0, 0.3}},
+      {"punching_v_max_factor", {&Ndp::punching_v_max_factor, 0.3, 0.6}},
       {"delta_c_dev_mm", {&Ndp::delta_c_dev_mm, 0.0, 20.0}},
   };
   return specs;

@@ -42,6 +42,7 @@ struct Ndp {
   double C_Rd_c_factor = 0.0;    // 6.2.2(1): CRd,c = factor / γc
   double v_min_factor = 0.0;     // 6.2.2(1): vmin = factor k^1.5 fck^0.5
   double k1_shear = 0.0;         // 6.2.2(1)
+  double punching_v_max_factor = 0.0;  // 6.4.5(3): vRd,max = factor ν fcd (0.4 recommended, UK NA 0.5)
   double delta_c_dev_mm = 0.0;   // 4.4.1.3(1)P
   std::string durability_note;   // warning given with every design, "" for none
   // EN 1990 Table A1.1: ψ0, ψ1, ψ2 of imposed-load categories A–H, in

@@ -10,12 +10,14 @@ using namespace armature;
 class ThrowingChecker final : public SlabChecker,
                               private CombinationRules,
                               private SectionRules,
-                              private MemberRules {
+                              private MemberRules,
+                              private PunchingRules {
  public:
   explicit ThrowingChecker(const Request& req) : req_(req) {}
   const CombinationRules& combination_rules() const override { return *this; }
   const SectionRules& section_rules() const override { return *this; }
   const MemberRules& member_rules() const override { return *this; }
+  const PunchingRules& punching_rules() const override { return *this; }
   const Request& request() const override { return req_; }
   LoadBasis load_basis() const override { return {25.0, ""}; }
   const std::vector<BarOption>& bar_options() const override { return bars_; }
@@ -44,6 +46,10 @@ class ThrowingChecker final : public SlabChecker,
   }
   std::vector<Check> span_checks(const std::string&) const override { return {}; }
   double pinned_end_fixity_fraction() const override { return 0.0; }
+  double steel_ratio_width_mm(const PunchingDemand&, bool) const override { return 0.0; }
+  PunchingOutcome check_punching(const PunchingDemand&, Detail) const override {
+    throw std::runtime_error("deliberate failure: this code has no punching rules");
+  }
 
   const Request& req_;
   std::vector<BarOption> bars_{{"10", 10.0, 78.5}};

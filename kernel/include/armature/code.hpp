@@ -19,6 +19,7 @@
 
 #include "armature/combinations.hpp"
 #include "armature/errors.hpp"
+#include "armature/punching.hpp"
 #include "armature/record.hpp"
 #include "armature/request.hpp"
 #include "armature/section.hpp"
@@ -272,6 +273,41 @@ class MemberRules {
   virtual double support_design_moment(const RegionDemand& region) const { return region.support_face.M_centre; }
 };
 
+// The code's punching shear rules at a column of a flat slab
+// (punching.hpp): the perimeters, stresses and resistances, and the shear
+// reinforcement where the concrete alone does not do.
+class PunchingRules {
+ public:
+  virtual ~PunchingRules() = default;
+  // The width (mm) over which the code takes the top steel ratio of bars
+  // running in the direction asked (along_x: the bars along x), for a
+  // member working out PunchingDemand::rho_x and rho_y; 0 when the code's
+  // punching resistance does not read the steel ratio.
+  virtual double steel_ratio_width_mm(const PunchingDemand& demand, bool along_x) const = 0;
+  // The punching checks at one column, at the detail asked for (the
+  // numbers and pass are filled at every detail). Throws
+  // std::invalid_argument naming the demand's field when it lacks what
+  // the code needs.
+  virtual PunchingOutcome check_punching(const PunchingDemand& demand, Detail detail) const = 0;
+};
+
+class ForwardingPunchingRules : public PunchingRules {
+ public:
+  explicit ForwardingPunchingRules(const PunchingRules& inner) : inner_(&inner) {}
+  double steel_ratio_width_mm(const PunchingDemand& demand, bool along_x) const override {
+    return inner_->steel_ratio_width_mm(demand, along_x);
+  }
+  PunchingOutcome check_punching(const PunchingDemand& demand, Detail detail) const override {
+    return inner_->check_punching(demand, detail);
+  }
+
+ protected:
+  const PunchingRules& inner() const { return *inner_; }
+
+ private:
+  const PunchingRules* inner_;
+};
+
 // The code's session for one request: the request's resolved materials,
 // bars and defaults, and the code's rules in three parts. A house plug-in
 // wraps the part it changes and hands back the others as they are
@@ -282,6 +318,7 @@ class SlabChecker {
   virtual const CombinationRules& combination_rules() const = 0;
   virtual const SectionRules& section_rules() const = 0;
   virtual const MemberRules& member_rules() const = 0;
+  virtual const PunchingRules& punching_rules() const = 0;
   // The request this session was opened for (Code::begin), whose slab
   // gives the sections their width and thickness.
   virtual const Request& request() const = 0;
@@ -384,6 +421,7 @@ class ForwardingSlabChecker : public SlabChecker {
   const CombinationRules& combination_rules() const override { return inner_->combination_rules(); }
   const SectionRules& section_rules() const override { return inner_->section_rules(); }
   const MemberRules& member_rules() const override { return inner_->member_rules(); }
+  const PunchingRules& punching_rules() const override { return inner_->punching_rules(); }
   const Request& request() const override { return inner_->request(); }
   LoadBasis load_basis() const override { return inner_->load_basis(); }
   const std::vector<BarOption>& bar_options() const override { return inner_->bar_options(); }
