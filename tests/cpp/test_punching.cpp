@@ -269,7 +269,7 @@ TEST_CASE("EN internal column, recommended values: vEd, vRd,c, vRd,max and links
   CHECK_FALSE(check_named(out, "punching_max").steps.empty());
 }
 
-TEST_CASE("EN: a lighter column passes without links; links refused, it fails", "[punching][en1992]") {
+TEST_CASE("EN: a lighter column passes without links, refused links fail", "[punching][en1992]") {
   const auto s = en("recommended");
   const auto& rules = s.checker->punching_rules();
   // vEd = 1.15 × 450 000/(4113.27 × 200) = 0.6291 ≤ 0.69228.
@@ -425,7 +425,7 @@ TEST_CASE("ACI internal column with moment transfer: vu, φvc, stirrups and the 
   CHECK_THROWS_WITH(s.checker->punching_rules().check_punching(p, armature::Detail::verdict), Catch::Contains("M_x_Nmm"));
 }
 
-TEST_CASE("ACI edge and corner columns: b0 and αs; a light column passes", "[punching][aci318]") {
+TEST_CASE("ACI edge and corner columns: b0 and αs, a light column passes", "[punching][aci318]") {
   const auto s = aci("SI", 28);
   auto p = workshop_column(150);
   p.free = {true, false, true, false};
