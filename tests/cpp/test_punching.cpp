@@ -37,7 +37,7 @@ struct Session {
 };
 
 Session session(const std::string& code, const std::string& variant, const nlohmann::json& concrete) {
-  static armature::Registry reg({ARMATURE_CODE_DIR});
+  static armature::Registry reg({ARMATURE_TEST_PLUGIN_DIR, ARMATURE_CODE_DIR});
   Session out;
   armature::InputProblems problems;
   const nlohmann::json req{{"code", code},
@@ -354,6 +354,25 @@ TEST_CASE("EN internal column with unbalanced moments: (6.39) with Table 6.1 and
   auto edge = workshop_column(1);
   edge.free.y0 = true;
   CHECK(s.checker->punching_rules().steel_ratio_width_mm(edge, true) == Approx(400 + 600));
+}
+
+TEST_CASE("A house plug-in wraps the punching rules alone through the forwarding base", "[punching][wrap]") {
+  // tests/plugins/wraps.cpp, variant "punching": EN recommended with no
+  // punching links; variant "section" leaves punching as EN has it.
+  const auto plain = en("recommended");
+  const auto wrapped = session("TEST-WRAPS", "punching", {{"class", "C30/37"}});
+  const auto other = session("TEST-WRAPS", "section", {{"class", "C30/37"}});
+  const auto p = workshop_column(600);
+  const auto a = plain.checker->punching_rules().check_punching(p, armature::Detail::checks);
+  const auto b = wrapped.checker->punching_rules().check_punching(p, armature::Detail::checks);
+  const auto c = other.checker->punching_rules().check_punching(p, armature::Detail::checks);
+  CHECK(a.pass);
+  CHECK(a.reinforcement.has_value());
+  CHECK_FALSE(b.pass);  // vEd 0.83875 > vRd,c 0.69228 and no links
+  CHECK_FALSE(b.reinforcement.has_value());
+  CHECK(b.v_MPa == Approx(a.v_MPa));
+  CHECK(c.pass);
+  CHECK(c.reinforcement->area_per_perimeter_mm2 == Approx(a.reinforcement->area_per_perimeter_mm2));
 }
 
 // ---- ACI 318-19 22.6 --------------------------------------------------------------

@@ -1,6 +1,7 @@
 // A plug-in that wraps EN 1992-1-1 (recommended) in one part only, by
 // variant: "section" adds a section check of its own, "members" tightens
-// the span/depth ratio, "combinations" raises every ULS factor. Each wraps
+// the span/depth ratio, "combinations" raises every ULS factor, "punching"
+// refuses punching shear reinforcement. Each wraps
 // one interface through the kernel's forwarding bases and copies nothing
 // else (tests/cpp/test_section.cpp holds each to changing only its part).
 #include <memory>
@@ -74,6 +75,17 @@ class RaisedCombinations final : public CombinationRules {
   const CombinationRules& en_;
 };
 
+// EN's punching rules, with no shear reinforcement at any column.
+class NoPunchingLinks final : public ForwardingPunchingRules {
+ public:
+  using ForwardingPunchingRules::ForwardingPunchingRules;
+  PunchingOutcome check_punching(const PunchingDemand& demand, Detail detail) const override {
+    PunchingDemand without = demand;
+    without.shear_reinforcement_allowed = false;
+    return inner().check_punching(without, detail);
+  }
+};
+
 class Session final : public ForwardingSlabChecker {
  public:
   Session(std::unique_ptr<SlabChecker> en, const std::string& part)
@@ -81,7 +93,8 @@ class Session final : public ForwardingSlabChecker {
         part_(part),
         section_(inner().section_rules()),
         members_(inner().member_rules()),
-        combinations_(inner().combination_rules()) {}
+        combinations_(inner().combination_rules()),
+        punching_(inner().punching_rules()) {}
   const SectionRules& section_rules() const override {
     return part_ == "section" ? section_ : inner().section_rules();
   }
@@ -91,12 +104,16 @@ class Session final : public ForwardingSlabChecker {
   const CombinationRules& combination_rules() const override {
     return part_ == "combinations" ? combinations_ : inner().combination_rules();
   }
+  const PunchingRules& punching_rules() const override {
+    return part_ == "punching" ? punching_ : inner().punching_rules();
+  }
 
  private:
   std::string part_;
   SpacingSection section_;
   TighterDeflection members_;
   RaisedCombinations combinations_;
+  NoPunchingLinks punching_;
 };
 
 class Code final : public DesignCode {
@@ -118,10 +135,10 @@ class Factory final : public CodeFactory {
   std::string id() const override { return "TEST-WRAPS"; }
   std::string title() const override { return "EN 1992-1-1 wrapped in one part"; }
   std::string edition() const override { return "test"; }
-  std::vector<std::string> variants() const override { return {"section", "members", "combinations"}; }
+  std::vector<std::string> variants() const override { return {"section", "members", "combinations", "punching"}; }
   std::string default_variant() const override { return "section"; }
   std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost& host) const override {
-    if (variant != "section" && variant != "members" && variant != "combinations")
+    if (variant != "section" && variant != "members" && variant != "combinations" && variant != "punching")
       throw std::invalid_argument("no TEST-WRAPS variant '" + variant + "'");
     return std::make_shared<Code>(host.open("EN1992-1-1", "recommended"), variant);
   }
