@@ -189,6 +189,8 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
     r.design_strength_MPa = effective_link_strength(d, m_.fyd);
     r.area_per_perimeter_mm2 = required_links_per_perimeter(v_Ed, v_Rdc, u1.length_mm, r.spacing_mm,
                                                             r.design_strength_MPa);
+    const double st_max = max_link_tangential_spacing(d);
+    r.min_leg_area_mm2 = min_link_leg_area(m_.fck, m_.fyk, r.spacing_mm, st_max);
     const double v_Rdcs = punching_resistance_with_links(v_Rdc, d, r.spacing_mm, r.area_per_perimeter_mm2,
                                                          r.design_strength_MPa, u1.length_mm);
     const double u_out = outer_perimeter_length(beta, V, v_Rdc, d);
@@ -216,6 +218,10 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
                "(" + num(v_Ed) + " − 0.75 × " + num(v_Rdc) + ") × " + num(u1.length_mm) + " × " + num(r.spacing_mm) +
                    "/(1.5 × " + num(r.design_strength_MPa) + ")",
                r.area_per_perimeter_mm2, "mm2", "EN 1992-1-1 6.4.5(1) (6.52)");
+        st.add("Asw,min", "0.08 √fck sr st/(1.5 fyk), st = 1.5 d",
+               "0.08 × √" + num(m_.fck) + " × " + num(r.spacing_mm) + " × " + num(st_max) + "/(1.5 × " +
+                   num(m_.fyk) + ")",
+               r.min_leg_area_mm2, "mm2", "EN 1992-1-1 9.4.3(1), (2) (9.11)");
         st.add("vRd,cs", "0.75 vRd,c + 1.5 (d/sr) Asw fywd,ef/(u1 d)", "", v_Rdcs, "MPa", "EN 1992-1-1 6.4.5(1) (6.52)");
         st.add("uout,ef", "β VEd/(vRd,c d)",
                num(beta) + " × " + num(V) + "/(" + num(v_Rdc) + " × " + num(d) + ")", u_out, "mm",

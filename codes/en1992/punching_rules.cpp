@@ -67,6 +67,12 @@ double required_links_per_perimeter(double v_Ed, double v_Rd_c, double u1, doubl
   return std::max(v_Ed - 0.75 * v_Rd_c, 0.0) * u1 * sr / (1.5 * fywd_ef);
 }
 
+double min_link_leg_area(double fck, double fyk, double sr, double st) {
+  return 0.08 * std::sqrt(fck) * sr * st / (1.5 * fyk);
+}
+
+double max_link_tangential_spacing(double d) { return 1.5 * d; }
+
 double outer_perimeter_length(double beta, double V, double v_Rd_c, double d) { return beta * V / (v_Rd_c * d); }
 
 }  // namespace armature::en1992

@@ -53,6 +53,11 @@ double max_link_perimeter_spacing(double d);
 double punching_resistance_with_links(double v_Rd_c, double d, double sr, double Asw, double fywd_ef, double u1);
 // (6.52) solved for Asw per perimeter: (vEd − 0.75 vRd,c) u1 sr /(1.5 fywd,ef), ≥ 0.
 double required_links_per_perimeter(double v_Ed, double v_Rd_c, double u1, double sr, double fywd_ef);
+// 9.4.3(2) (9.11) with vertical links (α = 90°): the least area of one
+// leg, Asw,min = 0.08 √fck sr st/(1.5 fyk).
+double min_link_leg_area(double fck, double fyk, double sr, double st);
+// 9.4.3(1): tangential spacing of legs within the basic control perimeter ≤ 1.5 d.
+double max_link_tangential_spacing(double d);
 // 6.4.5(4) (6.54): uout,ef = β VEd/(vRd,c d).
 double outer_perimeter_length(double beta, double V, double v_Rd_c, double d);
 // 6.4.5(4): the outermost perimeter of links no further than k d inside

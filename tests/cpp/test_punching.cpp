@@ -256,6 +256,9 @@ TEST_CASE("EN internal column, recommended values: vEd, vRd,c, vRd,max and links
   const double Asw = (v_Ed - 0.75 * v_Rdc) * u1 * 150 / (1.5 * 300);
   CHECK(r.area_per_perimeter_mm2 == Approx(Asw));
   CHECK(r.area_per_perimeter_mm2 == Approx(438.1).epsilon(1e-3));
+  // One leg at least 0.08 √30 × 150 × 300/(1.5 × 500) = 26.29 mm² (9.11, st = 1.5 d by 9.4.3(1)).
+  CHECK(r.min_leg_area_mm2 == Approx(0.08 * std::sqrt(30.0) * 150 * 300 / 750));
+  CHECK(r.min_leg_area_mm2 == Approx(26.29).epsilon(1e-3));
   // uout,ef = β VEd/(vRd,c d) (6.54) = 2(cx + cy) + 2π a: a = 538.5 mm;
   // outermost links at most 1.5 d inside (6.4.5(4)).
   const double u_out = 1.15 * 600e3 / (v_Rdc * 200);

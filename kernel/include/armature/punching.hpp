@@ -121,6 +121,7 @@ struct PunchingReinforcement {
   double spacing_mm = 0.0;                 // between perimeters (lines) of reinforcement
   double area_per_perimeter_mm2 = 0.0;     // required on each perimeter (line)
   double design_strength_MPa = 0.0;        // the reinforcement's stress in the code's rule
+  double min_leg_area_mm2 = 0.0;           // least area of one leg the code allows (0: none given)
   double outer_perimeter_distance_mm = 0.0;  // the perimeter where reinforcement is no longer needed
   double outermost_line_distance_mm = 0.0;   // the outermost line of reinforcement, at most
 };
