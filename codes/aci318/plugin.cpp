@@ -100,7 +100,18 @@ std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) 
   return variant_bar(designation, us_);
 }
 
-std::vector<std::string> Checker::warnings() const { return warnings_; }
+std::vector<std::string> Checker::warnings() const {
+  std::vector<std::string> out = warnings_;
+  // 7.3.1.1 (value from memory): the minimum thicknesses are for slabs not
+  // supporting or attached to partitions likely to be damaged by large
+  // deflections.
+  if (req_.serviceability.partitions)
+    out.push_back("serviceability.partitions is true, but the minimum thickness of ACI 318-19 Table 7.3.1.1 is "
+                  "for slabs not supporting or attached to partitions likely to be damaged by large deflections, "
+                  "and the calculated deflection (24.2) is not built here: the deflection is not checked for the "
+                  "partitions");
+  return out;
+}
 
 std::vector<InputDefault> Checker::defaults_used() const {
   std::string bars;
@@ -154,6 +165,28 @@ std::string unknown_bar_message(const std::string& name, bool us) {
             : "unknown bar '" + name + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)";
 }
 
+// The calculated deflection of 24.2 is not built for this code: the
+// request's keys of it are refused, not ignored.
+void add_deflection_input_problems(const ServiceabilityInput& s, InputProblems& problems) {
+  if (s.calculated_deflection())
+    problems.add("serviceability.deflection",
+                 std::string("\"") + to_string(s.deflection_method()) +
+                     "\": the calculated deflection (ACI 318-19 24.2) is not available yet; give "
+                     "\"span_depth\" (minimum thickness, 7.3.1.1) or leave the field out");
+  const std::pair<const char*, bool> keys[] = {
+      {"creep_coefficient", s.creep_coefficient.has_value()},
+      {"shrinkage_strain", s.shrinkage_strain.has_value()},
+      {"relative_humidity_percent", s.relative_humidity_percent.has_value()},
+      {"age_at_loading_days", s.age_at_loading_days.has_value()},
+      {"partitions_age_days", s.partitions_age_days.has_value()},
+      {"cement_class", s.cement_class.has_value()}};
+  for (const auto& [key, given] : keys)
+    if (given)
+      problems.add(std::string("serviceability.") + key,
+                   "belongs to the calculated deflection, which ACI 318-19 here does not build yet; leave the "
+                   "field out");
+}
+
 class Code final : public DesignCode {
  public:
   explicit Code(bool us) : us_(us) {}
@@ -193,6 +226,7 @@ class Code final : public DesignCode {
       problems.add("serviceability.crack_width",
                    "ACI 318-19 controls cracking by bar spacing (24.3.2) and gives no crack width to "
                    "calculate: give \"tables\" or leave the field out");
+    add_deflection_input_problems(req.serviceability, problems);
     double smallest_bar = us_ ? 0.375 * mm_per_in : 9.5;
     if (req.reinforcement.bars) {
       smallest_bar = 1e9;

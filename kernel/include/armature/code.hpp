@@ -17,6 +17,7 @@
 #include <utility>
 #include <vector>
 
+#include "armature/analysis.hpp"
 #include "armature/combinations.hpp"
 #include "armature/errors.hpp"
 #include "armature/record.hpp"
@@ -134,6 +135,12 @@ struct RegionDemand {
   // Support regions of a strip given support widths: M_Ed is the code's
   // support_design_moment() of these numbers.
   SupportFace support_face{};
+  // For a calculated deflection (request.serviceability), span regions
+  // only: the span's internal forces under the code's long-term load
+  // (quasi-permanent) on every span, with no redistribution; x from the
+  // span's left support. None when the request asks for no calculated
+  // deflection.
+  std::optional<SpanForces> long_term_span{};
 };
 
 // How much a code reports for one bar arrangement: the bar search needs
@@ -460,7 +467,7 @@ class CheckCollector {
     if (detail_ == Detail::verdict) return;
     // Made in place with every field: no default labels to overwrite.
     out_.emplace_back(Label(id), where, Label(clause), demand, capacity, Label(unit), utilisation, pass,
-                      detail_ == Detail::steps ? make_steps() : std::vector<Step>{});
+                      detail_ == Detail::steps ? make_steps() : std::vector<Step>{}, Label());
   }
 
   std::vector<Check>& out_;

@@ -263,7 +263,8 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     if (a.size() != parts) throw DesignError(rec.code.id + ": a load arrangement does not match the spans");
   if (arrangements.empty()) throw DesignError(rec.code.id + ": the code gave no load arrangement");
 
-  const MemberLoads loads{rec.actions, rec.combinations, arrangements, rec.loads};
+  const MemberLoads loads{rec.actions, rec.combinations, arrangements, rec.loads,
+                          req.serviceability.calculated_deflection()};
   rec.load_cases = member.analyse(loads);
   if (detail == Detail::steps) rec.diagrams = member.diagrams();  // for the record
   rec.spans_mm = req.slab.spans_mm;
