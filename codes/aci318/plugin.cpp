@@ -105,11 +105,10 @@ std::vector<std::string> Checker::warnings() const {
   // 7.3.1.1 (value from memory): the minimum thicknesses are for slabs not
   // supporting or attached to partitions likely to be damaged by large
   // deflections.
-  if (req_.serviceability.partitions)
+  if (req_.serviceability.partitions && req_.serviceability.deflection_method() == DeflectionMethod::span_depth)
     out.push_back("serviceability.partitions is true, but the minimum thickness of ACI 318-19 Table 7.3.1.1 is "
-                  "for slabs not supporting or attached to partitions likely to be damaged by large deflections, "
-                  "and the calculated deflection (24.2) is not built here: the deflection is not checked for the "
-                  "partitions");
+                  "for slabs not supporting or attached to partitions likely to be damaged by large deflections: "
+                  "give serviceability.deflection \"calculated\" or \"both\" (24.2, Table 24.2.2 ℓ/480)");
   return out;
 }
 
@@ -165,14 +164,18 @@ std::string unknown_bar_message(const std::string& name, bool us) {
             : "unknown bar '" + name + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)";
 }
 
-// The calculated deflection of 24.2 is not built for this code: the
-// request's keys of it are refused, not ignored.
-void add_deflection_input_problems(const ServiceabilityInput& s, InputProblems& problems) {
+// The calculated deflection (24.2) is built for spans between supports;
+// its creep and shrinkage inputs are EN's (24.2.4 takes ξ of Table
+// 24.2.4.1.3 instead): refused, not ignored.
+void add_deflection_input_problems(const Request& req, InputProblems& problems) {
+  const auto& s = req.serviceability;
   if (s.calculated_deflection())
-    problems.add("serviceability.deflection",
-                 std::string("\"") + to_string(s.deflection_method()) +
-                     "\": the calculated deflection (ACI 318-19 24.2) is not available yet; give "
-                     "\"span_depth\" (minimum thickness, 7.3.1.1) or leave the field out");
+    for (std::size_t k = 0; k < 2; ++k)
+      if (req.slab.ends[k] == EndSupport::free)
+        problems.add("serviceability.deflection",
+                     "the calculated deflection is built for spans between supports; slab.ends[" +
+                         std::to_string(k) + "] is free (a cantilever), whose deflection is not calculated yet: "
+                         "give \"span_depth\"");
   const std::pair<const char*, bool> keys[] = {
       {"creep_coefficient", s.creep_coefficient.has_value()},
       {"shrinkage_strain", s.shrinkage_strain.has_value()},
@@ -183,8 +186,8 @@ void add_deflection_input_problems(const ServiceabilityInput& s, InputProblems& 
   for (const auto& [key, given] : keys)
     if (given)
       problems.add(std::string("serviceability.") + key,
-                   "belongs to the calculated deflection, which ACI 318-19 here does not build yet; leave the "
-                   "field out");
+                   "is not used by ACI 318-19, whose long-term deflection takes ξ of Table 24.2.4.1.3 "
+                   "(24.2.4.1); leave the field out");
 }
 
 class Code final : public DesignCode {
@@ -226,7 +229,7 @@ class Code final : public DesignCode {
       problems.add("serviceability.crack_width",
                    "ACI 318-19 controls cracking by bar spacing (24.3.2) and gives no crack width to "
                    "calculate: give \"tables\" or leave the field out");
-    add_deflection_input_problems(req.serviceability, problems);
+    add_deflection_input_problems(req, problems);
     double smallest_bar = us_ ? 0.375 * mm_per_in : 9.5;
     if (req.reinforcement.bars) {
       smallest_bar = 1e9;

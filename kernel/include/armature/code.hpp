@@ -141,6 +141,8 @@ struct RegionDemand {
   // span's left support. None when the request asks for no calculated
   // deflection.
   std::optional<SpanForces> long_term_span{};
+  // The same under the code's service load (characteristic: ACI D + L).
+  std::optional<SpanForces> service_span{};
 };
 
 // How much a code reports for one bar arrangement: the bar search needs

@@ -35,9 +35,10 @@ struct MemberLoads {
   const std::vector<Combination>& combinations;
   const std::vector<std::vector<bool>>& arrangements;
   const LoadTotals& totals;
-  // The code's long-term (quasi-permanent) load on every span is analysed
-  // as well, and each span region carries its forces
-  // (RegionDemand::long_term_span), for a calculated deflection.
+  // The code's long-term (quasi-permanent) and service (characteristic)
+  // loads on every span are analysed as well, and each span region carries
+  // their forces (RegionDemand::long_term_span, service_span), for a
+  // calculated deflection.
   bool long_term_moments = false;
 };
 
@@ -128,6 +129,7 @@ class OneWayStrip final : public Member {
   Envelope env_;
   std::vector<CaseResult> qp_all_, uls_all_;  // every span loaded (located loads only)
   std::vector<CaseResult> long_term_;  // quasi-permanent, every span loaded, when asked for
+  std::vector<CaseResult> service_;    // characteristic, every span loaded, when asked for
   double load_ratio_ = 0.0, nil_moment_ = 0.0;
 };
 

@@ -238,9 +238,12 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   rec.list_actions = req.loads.actions_given;
   // Every label where the combinations are listed (the record, a result
   // listing its actions) or an equilibrium check names its combination (a
-  // strip with a cantilever); otherwise a design needs the ULS labels alone.
+  // strip with a cantilever), and every combination where a calculated
+  // deflection reads the service ones; otherwise a design needs the ULS
+  // labels alone.
   const bool has_cantilever = req.slab.ends[0] == EndSupport::free || req.slab.ends[1] == EndSupport::free;
-  const CombinationLabels labels = rec.list_actions || detail == Detail::steps || has_cantilever
+  const CombinationLabels labels = rec.list_actions || detail == Detail::steps || has_cantilever ||
+                                           req.serviceability.calculated_deflection()
                                        ? CombinationLabels::all
                                        : CombinationLabels::strength;
   rec.combinations =
