@@ -100,6 +100,7 @@ class Checker final : public SlabChecker,
                                           const SectionOutcome& outcome, Detail detail) const override;
   std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override;
   double support_design_moment(const RegionDemand& g) const override;
+  std::optional<SpanDeflection> deflection_diagram(const Section& sec, const RegionDemand& g) const override;
   std::vector<Check> span_checks(const std::string& span_where) const override;
   double pinned_end_fixity_fraction() const override;
 

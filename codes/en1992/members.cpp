@@ -203,6 +203,17 @@ CreepShrinkage creep_shrinkage_of(const ServiceabilityInput& s, double fck, doub
   return c;
 }
 
+std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, const RegionDemand& g) const {
+  if (!req_.serviceability.calculated_deflection() || !g.long_term_span || g.span_kind == SpanKind::cantilever)
+    return std::nullopt;
+  const SectionLayer& layer = sec.outer_layer(Face::bottom);
+  const double b = sec.b_mm;
+  const LongTermSection total = long_term_section(b, sec.h_mm, layer.area_mm2(b), layer.d_mm,
+                                                  secant_modulus_MPa(m_.fck), m_.fctm, long_term_.phi_inf,
+                                                  long_term_.eps_cs_inf);
+  return span_deflection(*g.long_term_span, [&](double M) { return total.curvature(M); });
+}
+
 void Checker::calculated_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const {
   const SectionLayer& layer = sec.outer_layer(Face::bottom);
   const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);

@@ -313,3 +313,21 @@ def test_aci_refuses_the_en_creep_inputs_and_warns_on_partitions():
     req["serviceability"] = {"partitions": True}
     res = armature.design(req)
     assert any("Table 7.3.1.1" in w and "partitions" in w for w in res["warnings"])
+
+
+def test_html_record_draws_the_curvature_and_deflection(tmp_path):
+    """The record's analysis section draws the long-term curvature and
+    deflection along the strip; the largest deflection printed on it is
+    the check's demand."""
+    res = armature.design(copy.deepcopy(HALL))
+    out = tmp_path / "hall.html"
+    armature.report(res, str(out))
+    text = out.read_text(encoding="utf-8")
+    assert 'aria-label="long-term curvature"' in text and 'aria-label="long-term deflection"' in text
+    [total, _] = deflection_checks(res, "span 1")
+    assert f">{total['demand']:.4g}</text>" in text
+    assert res["caution"].split("\n")[0] in text
+    plain = copy.deepcopy(HALL)
+    plain["serviceability"] = {"deflection": "span_depth"}
+    armature.report(armature.design(plain), str(tmp_path / "plain.html"))
+    assert "long-term curvature" not in (tmp_path / "plain.html").read_text(encoding="utf-8")

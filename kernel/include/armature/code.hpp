@@ -19,6 +19,7 @@
 
 #include "armature/analysis.hpp"
 #include "armature/combinations.hpp"
+#include "armature/deflection.hpp"
 #include "armature/errors.hpp"
 #include "armature/record.hpp"
 #include "armature/request.hpp"
@@ -279,6 +280,13 @@ class MemberRules {
   // before the bar search, and the result becomes region.M_Ed. Default:
   // the centreline moment (no reduction).
   virtual double support_design_moment(const RegionDemand& region) const { return region.support_face.M_centre; }
+  // For the record: the curvature and deflection along the span a region
+  // governs (region.long_term_span), as the code's calculated deflection
+  // integrates them for this section (the long-term total); none where
+  // the code calculates none.
+  virtual std::optional<SpanDeflection> deflection_diagram(const Section&, const RegionDemand&) const {
+    return std::nullopt;
+  }
 };
 
 // The code's session for one request: the request's resolved materials,
@@ -332,6 +340,9 @@ class SlabChecker {
   // open at Detail::verdict, and only for bars that fit).
   RegionOutcome check_region(const RegionDemand& region, const BarOption& bar, double spacing_mm,
                              Detail detail) const;
+  // The member rules' deflection_diagram for the section check_region builds.
+  std::optional<SpanDeflection> deflection_diagram(const RegionDemand& region, const BarOption& bar,
+                                                   double spacing_mm) const;
 };
 
 // Bases for a house plug-in's rules: each forwards every call to the
@@ -376,6 +387,9 @@ class ForwardingMemberRules : public MemberRules {
   double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
   double support_design_moment(const RegionDemand& region) const override {
     return inner_->support_design_moment(region);
+  }
+  std::optional<SpanDeflection> deflection_diagram(const Section& section, const RegionDemand& region) const override {
+    return inner_->deflection_diagram(section, region);
   }
 
  protected:

@@ -308,6 +308,16 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     RegionOutcome out = call_code(
         rec.code, "the checks",
         [&] { return checker->check_region(demand, pick.bar, pick.spacing_mm, detail); }, demand.where);
+    if (detail == Detail::steps && demand.long_term_span && !demand.span_where.empty()) {
+      auto diagram = call_code(
+          rec.code, "the deflection diagram",
+          [&] { return checker->deflection_diagram(demand, pick.bar, pick.spacing_mm); }, demand.where);
+      if (diagram) {
+        double x0 = 0.0;
+        for (std::size_t e = 0; e < n && span_names[e] != demand.span_where; ++e) x0 += req.slab.spans_mm[e];
+        rec.deflection_diagrams.push_back({demand.span_where, x0, std::move(*diagram)});
+      }
+    }
     RegionRecord region;
     region.where = demand.where;
     region.face = demand.face;
