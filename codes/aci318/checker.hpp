@@ -70,6 +70,7 @@ class Checker final : public SlabChecker,
  private:
   // members.cpp
   void deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
+  void calculated_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const;
   static std::size_t governing_face_case(const SupportFace& f);
 
   const std::string& exposure_of(Face face) const { return exposure_[static_cast<std::size_t>(face)]; }
@@ -88,6 +89,9 @@ class Checker final : public SlabChecker,
   double min_thickness(double span, SupportCondition condition) const;            // 7.3.1.1
   double cover_for(const std::string& exposure, double bar_diameter) const;       // 20.5.1.3.1
   double root_fc_limited() const;                               // √f'c ≤ 8.3 MPa (100 psi), 22.5.3.1
+  double concrete_modulus() const;                              // 19.2.2.1: Ec, MPa
+  double rupture_modulus() const;                               // 19.2.3.1: fr, MPa
+  double reinforcement_modulus() const;                         // 20.2.2.2: Es, MPa
 
   // Numbers and units of the derivation steps: the SI variant prints the
   // kernel's units, the US variant those of the in-lb edition.

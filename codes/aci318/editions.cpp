@@ -70,4 +70,18 @@ double Checker::cover_for(const std::string& exposure, double bar_diameter) cons
              : specified_cover(exposure, bar_diameter);
 }
 
+// 19.2.2.1, 19.2.3.1, 20.2.2.2 (normalweight concrete, λ = 1).
+double Checker::concrete_modulus() const {
+  return us_ ? inch_pound::modulus_of_elasticity(fc_ / MPa_per_psi) * MPa_per_psi : modulus_of_elasticity(fc_);
+}
+
+double Checker::rupture_modulus() const {
+  return us_ ? inch_pound::modulus_of_rupture(fc_ / MPa_per_psi, lambda_normal_weight) * MPa_per_psi
+             : modulus_of_rupture(fc_, lambda_normal_weight);
+}
+
+double Checker::reinforcement_modulus() const {
+  return us_ ? inch_pound::steel_modulus_psi * MPa_per_psi : steel_modulus_MPa;
+}
+
 }  // namespace armature::aci318

@@ -1,8 +1,10 @@
 // ACI 318-19 member rules, the checks of the member rather than of one
 // section: minimum thickness for deflection, equilibrium of a cantilever's
 // back span, the design moment at a support with a width.
+#include <cmath>
 #include <string>
 
+#include "armature/deflection.hpp"
 #include "checker.hpp"
 
 namespace armature::aci318 {
@@ -76,9 +78,107 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
   MemberSectionOutcome out;
   if (!g.span_where.empty()) {
     CheckCollector span(out.span_checks, out.verdict, detail);
-    run_check("deflection", [&] { deflection_check(span, g, sec.h_mm); });
+    // Minimum thickness (7.3.1.1), calculated (24.2), or both; a check
+    // carries its method only when the request names one.
+    const auto& sv = req_.serviceability;
+    const bool calculated = sv.calculated_deflection() && g.long_term_span && g.span_kind != SpanKind::cantilever;
+    if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
+      const std::size_t before = out.span_checks.size();
+      run_check("deflection", [&] { deflection_check(span, g, sec.h_mm); });
+      if (sv.deflection)
+        for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "span_depth";
+    }
+    if (calculated && !span.verdict_settled()) {
+      const std::size_t before = out.span_checks.size();
+      run_check("deflection", [&] { calculated_deflection_check(span, sec, g); });
+      for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "calculated";
+    }
   }
   return out;
+}
+
+// 24.2 (values from memory of ACI 318-19): immediate deflections under D
+// and D + L with Ie of Table 24.2.3.5, each load level's Ie from its own
+// largest positive moment in the span (the midspan section, 24.2.3.6),
+// constant along the span, integrated over the span's moment diagram by
+// the kernel; the live part by difference; long term by 24.2.4.1 with
+// ρ' = 0. The sustained load is the plug-in's sustained combination (D).
+void Checker::calculated_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const {
+  const SectionLayer& layer = sec.outer_layer(Face::bottom);
+  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
+  const double Ec = concrete_modulus(), fr = rupture_modulus(), Es = reinforcement_modulus(), n = Es / Ec;
+  const double Ig = gross_moment_of_inertia(b, h);
+  const double Mcr = cracking_moment(fr, Ig, h / 2.0);
+  const CrackedSection cr = cracked_section(b, As, d, n);
+  const SpanForces& sustained = *g.long_term_span;
+  const SpanForces& service = g.service_span ? *g.service_span : sustained;
+  struct Level {
+    double Ma, Ie, delta;
+  };
+  auto level_of = [&](const SpanForces& f) {
+    Level l;
+    l.Ma = std::max(f.max_moment(), 0.0);
+    l.Ie = effective_moment_of_inertia(l.Ma, Mcr, Ig, cr.Icr);
+    const double EI = Ec * l.Ie;
+    l.delta = span_deflection(f, [EI](double M) { return M / EI; }).max_mm;
+    return l;
+  };
+  const Level sus = level_of(sustained), all = level_of(service);
+  const double live = all.delta - sus.delta;
+  const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
+  const double long_term = lambda_delta * sus.delta + live;
+  const bool damageable = req_.serviceability.partitions;
+  const double ratio = damageable ? after_attachment_damageable_span_ratio : after_attachment_span_ratio;
+  const double L = g.span_mm;
+  auto common_steps = [&](StepRecorder& st) {
+    st.add("Ec", us_ ? "57 000 √f'c" : "4700 √f'c", "√" + stress(fc_), stress_v(Ec), stress_u(),
+           "ACI 318-19 19.2.2.1");
+    st.add("fr", us_ ? "7.5 λ √f'c, λ = 1" : "0.62 λ √f'c, λ = 1", "√" + stress(fc_), stress_v(fr), stress_u(),
+           "ACI 318-19 19.2.3.1");
+    st.add("Ig", "b h³/12", "b = " + len(b) + ", h = " + len(h), us_ ? Ig / std::pow(mm_per_in, 4) : Ig * 1e-6,
+           us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 24.2.3.5");
+    st.add("Mcr", "fr Ig/yt, yt = h/2", "", moment_v(Mcr), moment_u(), "ACI 318-19 24.2.3.5");
+    st.add("n", "Es/Ec", "", n, "-", "ACI 318-19 20.2.2.2");
+    st.add("x", "b x²/2 = n As (d − x)", "As = " + area(As) + ", d = " + len(d), len_v(cr.x), len_u(),
+           "ACI 318-19 24.2.3.5");
+    st.add("Icr", "b x³/3 + n As (d − x)²", "", us_ ? cr.Icr / std::pow(mm_per_in, 4) : cr.Icr * 1e-6,
+           us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 24.2.3.5");
+    for (const auto& [name, l] : {std::pair<const char*, const Level&>{"D (sustained)", sus}, {"D + L", all}}) {
+      const std::string tag = std::string(" (") + name + ")";
+      st.add("Ma" + tag, "largest positive moment of the span, all spans loaded", "", moment_v(l.Ma), moment_u(),
+             "ACI 318-19 24.2.3.6");
+      st.add("Ie" + tag, l.Ma > 2.0 / 3.0 * Mcr ? "Icr/(1 − ((2/3) Mcr/Ma)² (1 − Icr/Ig))" : "Ig (Ma ≤ (2/3) Mcr)", "",
+             us_ ? l.Ie / std::pow(mm_per_in, 4) : l.Ie * 1e-6, us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 Table 24.2.3.5");
+      st.add("Δ" + tag, "double integration of M/(Ec Ie) between the supports", "", len_v(l.delta), len_u(),
+             "ACI 318-19 24.2.3.1");
+    }
+  };
+  span.add("deflection", g.span_where, "ACI 318-19 24.2.3, Table 24.2.2 (immediate live, ℓ/360)", live,
+           L / immediate_live_span_ratio, "mm", [&] {
+             StepRecorder st;
+             common_steps(st);
+             st.add("ΔL", "Δ(D + L) − Δ(D)", len(all.delta) + " − " + len(sus.delta), len_v(live), len_u(),
+                    "ACI 318-19 24.2.3");
+             st.add("Δ_lim", "ℓ/360", len(L) + "/360", len_v(L / immediate_live_span_ratio), len_u(),
+                    "ACI 318-19 Table 24.2.2");
+             return st.take();
+           });
+  if (span.verdict_settled()) return;
+  span.add("deflection", g.span_where,
+           damageable ? "ACI 318-19 24.2.4, Table 24.2.2 (after attachment, damageable, ℓ/480)"
+                      : "ACI 318-19 24.2.4, Table 24.2.2 (after attachment, ℓ/240)",
+           long_term, L / ratio, "mm", [&] {
+             StepRecorder st;
+             common_steps(st);
+             st.add("λΔ", "ξ/(1 + 50 ρ'), ξ = 2.0 (5 years), ρ' = 0", "", lambda_delta, "-",
+                    "ACI 318-19 24.2.4.1.1, Table 24.2.4.1.3");
+             st.add("Δ", "λΔ Δ(D) + (Δ(D + L) − Δ(D))",
+                    num(lambda_delta) + " × " + len(sus.delta) + " + " + len(live), len_v(long_term), len_u(),
+                    "ACI 318-19 24.2.4.1");
+             st.add("Δ_lim", damageable ? "ℓ/480 (partitions likely to be damaged)" : "ℓ/240",
+                    len(L) + (damageable ? "/480" : "/240"), len_v(L / ratio), len_u(), "ACI 318-19 Table 24.2.2");
+             return st.take();
+           });
 }
 
 std::vector<Check> Checker::span_checks(const std::string&) const { return {}; }

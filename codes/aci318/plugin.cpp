@@ -100,7 +100,17 @@ std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) 
   return variant_bar(designation, us_);
 }
 
-std::vector<std::string> Checker::warnings() const { return warnings_; }
+std::vector<std::string> Checker::warnings() const {
+  std::vector<std::string> out = warnings_;
+  // 7.3.1.1 (value from memory): the minimum thicknesses are for slabs not
+  // supporting or attached to partitions likely to be damaged by large
+  // deflections.
+  if (req_.serviceability.partitions && req_.serviceability.deflection_method() == DeflectionMethod::span_depth)
+    out.push_back("serviceability.partitions is true, but the minimum thickness of ACI 318-19 Table 7.3.1.1 is "
+                  "for slabs not supporting or attached to partitions likely to be damaged by large deflections: "
+                  "give serviceability.deflection \"calculated\" or \"both\" (24.2, Table 24.2.2 ℓ/480)");
+  return out;
+}
 
 std::vector<InputDefault> Checker::defaults_used() const {
   std::string bars;
@@ -154,6 +164,32 @@ std::string unknown_bar_message(const std::string& name, bool us) {
             : "unknown bar '" + name + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)";
 }
 
+// The calculated deflection (24.2) is built for spans between supports;
+// its creep and shrinkage inputs are EN's (24.2.4 takes ξ of Table
+// 24.2.4.1.3 instead): refused, not ignored.
+void add_deflection_input_problems(const Request& req, InputProblems& problems) {
+  const auto& s = req.serviceability;
+  if (s.calculated_deflection())
+    for (std::size_t k = 0; k < 2; ++k)
+      if (req.slab.ends[k] == EndSupport::free)
+        problems.add("serviceability.deflection",
+                     "the calculated deflection is built for spans between supports; slab.ends[" +
+                         std::to_string(k) + "] is free (a cantilever), whose deflection is not calculated yet: "
+                         "give \"span_depth\"");
+  const std::pair<const char*, bool> keys[] = {
+      {"creep_coefficient", s.creep_coefficient.has_value()},
+      {"shrinkage_strain", s.shrinkage_strain.has_value()},
+      {"relative_humidity_percent", s.relative_humidity_percent.has_value()},
+      {"age_at_loading_days", s.age_at_loading_days.has_value()},
+      {"partitions_age_days", s.partitions_age_days.has_value()},
+      {"cement_class", s.cement_class.has_value()}};
+  for (const auto& [key, given] : keys)
+    if (given)
+      problems.add(std::string("serviceability.") + key,
+                   "is not used by ACI 318-19, whose long-term deflection takes ξ of Table 24.2.4.1.3 "
+                   "(24.2.4.1); leave the field out");
+}
+
 class Code final : public DesignCode {
  public:
   explicit Code(bool us) : us_(us) {}
@@ -193,6 +229,7 @@ class Code final : public DesignCode {
       problems.add("serviceability.crack_width",
                    "ACI 318-19 controls cracking by bar spacing (24.3.2) and gives no crack width to "
                    "calculate: give \"tables\" or leave the field out");
+    add_deflection_input_problems(req, problems);
     double smallest_bar = us_ ? 0.375 * mm_per_in : 9.5;
     if (req.reinforcement.bars) {
       smallest_bar = 1e9;

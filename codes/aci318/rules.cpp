@@ -110,4 +110,28 @@ double specified_cover(const std::string& exposure, double bar_diameter) {
   return 20.0;  // interior slabs, No.36 and smaller
 }
 
+// ---- Calculated deflection (24.2) -------------------------------------------
+double gross_moment_of_inertia(double b, double h) { return b * h * h * h / 12.0; }  // 24.2.3.5
+
+double cracking_moment(double fr, double Ig, double yt) { return fr * Ig / yt; }  // 24.2.3.5(b)
+
+CrackedSection cracked_section(double b, double As, double d, double n) {
+  const double a = n * As / (b * d);
+  CrackedSection s;
+  s.x = d * (-a + std::sqrt(a * a + 2.0 * a));
+  s.Icr = b * s.x * s.x * s.x / 3.0 + n * As * (d - s.x) * (d - s.x);
+  return s;
+}
+
+double effective_moment_of_inertia(double Ma, double Mcr, double Ig, double Icr) {  // Table 24.2.3.5
+  const double m = std::abs(Ma);
+  if (m <= 2.0 / 3.0 * Mcr) return Ig;
+  const double r = (2.0 / 3.0) * Mcr / m;
+  return Icr / (1.0 - r * r * (1.0 - Icr / Ig));
+}
+
+double long_term_multiplier(double xi, double rho_compression) {  // 24.2.4.1.1
+  return xi / (1.0 + 50.0 * rho_compression);
+}
+
 }  // namespace armature::aci318

@@ -77,6 +77,30 @@ double minimum_slab_thickness(double span, SupportCondition condition, double fy
 bool is_exposure(const std::string& exposure);            // interior, weather, ground
 double specified_cover(const std::string& exposure, double bar_diameter);
 
+// ---- Calculated deflection (24.2; values from memory of ACI 318-19) --------
+// 24.2.3.5: Ig of the gross section, b h³/12 (yt = h/2).
+double gross_moment_of_inertia(double b, double h);
+// 24.2.3.5(b): Mcr = fr Ig / yt.
+double cracking_moment(double fr, double Ig, double yt);
+// Cracked transformed section, n As at d: x from b x²/2 = n As (d − x),
+// Icr = b x³/3 + n As (d − x)².
+struct CrackedSection {
+  double x = 0.0, Icr = 0.0;
+};
+CrackedSection cracked_section(double b, double As, double d, double n);
+// Table 24.2.3.5: Ie = Ig for Ma ≤ (2/3) Mcr, else
+// Icr / (1 − ((2/3) Mcr/Ma)² (1 − Icr/Ig)).
+double effective_moment_of_inertia(double Ma, double Mcr, double Ig, double Icr);
+// 24.2.4.1.1: λΔ = ξ/(1 + 50 ρ'); Table 24.2.4.1.3: ξ = 2.0 at five years or more.
+constexpr double time_dependent_factor_five_years = 2.0;
+double long_term_multiplier(double xi, double rho_compression);
+// Table 24.2.2: ℓ/360 immediate live (floors); after the attachment of
+// non-structural elements, ℓ/480 where they are likely to be damaged by
+// large deflections, ℓ/240 where not.
+constexpr double immediate_live_span_ratio = 360.0;
+constexpr double after_attachment_damageable_span_ratio = 480.0;
+constexpr double after_attachment_span_ratio = 240.0;
+
 // ---- Loads (5.3.1): combinations.hpp
 
 

@@ -26,6 +26,10 @@ double stress_block_factor_beta1(double fc) {
 
 double yield_strain(double fy) { return fy / steel_modulus_psi; }
 
+double modulus_of_elasticity(double fc) { return 57000.0 * std::sqrt(fc); }  // 19.2.2.1
+
+double modulus_of_rupture(double fc, double lambda) { return 7.5 * lambda * std::sqrt(fc); }  // 19.2.3.1
+
 double max_flexural_bar_spacing(double h) { return std::min(3.0 * h, 18.0); }
 
 double minimum_clear_bar_spacing(double db, double aggregate) {

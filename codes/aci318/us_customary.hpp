@@ -33,6 +33,8 @@ constexpr double spacing_step_in = 0.5;                  // common practice
 constexpr double aggregate_in = 0.75;                    // nominal maximum size, common practice
 
 double stress_block_factor_beta1(double fc_psi);         // Table 22.2.2.4.3
+double modulus_of_elasticity(double fc_psi);             // 19.2.2.1: 57 000 √f'c psi
+double modulus_of_rupture(double fc_psi, double lambda); // 19.2.3.1: 7.5 λ √f'c psi
 double yield_strain(double fy_psi);                      // 21.2.2.1: εty = fy/Es
 double max_flexural_bar_spacing(double h_in);            // 7.7.2.3: min(3h, 18 in)
 // 25.2.1: clear spacing ≥ max(1 in, db, 4/3 dagg).

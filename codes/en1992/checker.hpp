@@ -10,6 +10,7 @@
 
 #include <array>
 #include <cstddef>
+#include <mutex>
 #include <optional>
 #include <string>
 #include <utility>
@@ -39,6 +40,32 @@ using Steps = StepRecorder;
 struct Materials {
   double fck, fyk, fcd, fyd, fctm, eta, lambda, eps_cu2;
 };
+
+// Defaults of the calculated deflection's inputs (serviceability): an
+// indoor floor (3.1.4(5) Note: indoor RH 50 %), loaded at 28 days, normal
+// cement (3.1.2(6) class N), partitions built at 90 days (common
+// practice), drying from 7 days, the end of curing (common practice).
+inline constexpr double default_relative_humidity = 50.0;
+inline constexpr double default_age_at_loading_days = 28.0;
+inline constexpr double default_partitions_age_days = 90.0;
+inline constexpr double drying_start_days = 7.0;
+
+// Creep coefficient and shrinkage strain of the request's calculated
+// deflection at two ages: the long term (t = ∞) and when the partitions go
+// in (t_p); given, or by 3.1.4 and Annex B (members.cpp).
+struct CreepShrinkage {
+  bool creep_given = false, shrinkage_given = false;
+  Cement cement = Cement::N;
+  double RH = 0.0, t0 = 0.0, t0_adj = 0.0, t_p = 0.0, h0 = 0.0, fcm = 0.0;
+  double phi_RH = 0.0, beta_fcm = 0.0, beta_t0 = 0.0, phi0 = 0.0, beta_H = 0.0, beta_c_p = 0.0;
+  double kh = 0.0, eps_cd0 = 0.0, eps_cd_inf = 0.0, eps_ca_inf = 0.0, beta_ds_p = 0.0, beta_as_p = 0.0;
+  double eps_cs_calc_inf = 0.0, eps_cs_calc_p = 0.0;
+  double phi_inf = 0.0, phi_p = 0.0;        // used
+  double eps_cs_inf = 0.0, eps_cs_p = 0.0;  // used
+};
+CreepShrinkage creep_shrinkage_of(const ServiceabilityInput& s, double fck, double h);
+
+
 
 class Checker final : public SlabChecker,
                       private CombinationRules,
@@ -76,6 +103,7 @@ class Checker final : public SlabChecker,
                                           const SectionOutcome& outcome, Detail detail) const override;
   std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override;
   double support_design_moment(const RegionDemand& g) const override;
+  std::optional<SpanDeflection> deflection_diagram(const Section& sec, const RegionDemand& g) const override;
   std::vector<Check> span_checks(const std::string& span_where) const override;
   double pinned_end_fixity_fraction() const override;
 
@@ -150,6 +178,7 @@ class Checker final : public SlabChecker,
   void fire_axis_distance_check(CheckCollector& checks, const RegionDemand& g, double c_nom, double phi) const;
   void deflection_check(CheckCollector& checks, const RegionDemand& g, double d, double As_req,
                         double As_prov) const;
+  void calculated_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const;
 
   const Ndp& ndp_;       // of the Code, which outlives this checker
   const En1990Factors& en1990_;  // of the Code, likewise
@@ -159,6 +188,14 @@ class Checker final : public SlabChecker,
   std::vector<BarOption> own_bars_;  // when the request names its bars
   const std::vector<BarOption>* bars_ = &default_bar_options();
   std::array<FaceData, 2> faces_{};  // by Face
+  CreepShrinkage long_term_{};       // when the deflection is calculated
+  // Spans whose allowed l/d (7.4.2) exceeds the range the rule was
+  // calibrated for, noted as the checks are recorded (Detail::checks and
+  // on) for warnings(); only when the request names
+  // serviceability.deflection (a version 1 result is unchanged).
+  mutable std::mutex span_depth_notes_mutex_;
+  mutable std::vector<std::pair<std::string, std::string>> span_depth_notes_;  // span, note
+  void note_span_depth_range(const RegionDemand& g, double allowed, double K) const;  // members.cpp
 };
 
 }  // namespace armature::en1992

@@ -70,6 +70,8 @@ Checker::Checker(const Ndp& ndp, const En1990Factors& en1990, const Request& req
     f.covers.reserve(bars_->size());
     for (const auto& bar : *bars_) f.covers.push_back({bar.diameter_mm, cover_of(bar.diameter_mm, f)});
   }
+  if (req.serviceability.calculated_deflection())
+    long_term_ = creep_shrinkage_of(req.serviceability, m_.fck, req.slab.thickness_mm);
 }
 
 Checker::CoverOf Checker::cover_of(double phi, const FaceData& f) const {

@@ -7,6 +7,7 @@
 #include <limits>
 #include <string>
 
+#include "armature/deflection.hpp"
 #include "checker.hpp"
 
 namespace armature::en1992 {
@@ -120,13 +121,217 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     CheckCollector checks(out.checks, out.verdict, detail);
     run_check("fire", [&] { fire_axis_distance_check(checks, g, layer.cover_mm, layer.bar.diameter_mm); });
   }
-  // Deflection (7.4.2) of the span these bars govern
+  // Deflection of the span these bars govern: by span/depth (7.4.2),
+  // calculated (7.4.3), or both. A check carries its method only when the
+  // request names one (a version 1 request's result is unchanged).
   if (!g.span_where.empty()) {
     CheckCollector span(out.span_checks, out.verdict, detail);
-    run_check("deflection",
-              [&] { deflection_check(span, g, layer.d_mm, outcome.As_req_mm2, layer.area_mm2(sec.b_mm)); });
+    const auto& sv = req_.serviceability;
+    const bool calculated = sv.calculated_deflection() && g.long_term_span && g.span_kind != SpanKind::cantilever;
+    if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
+      const std::size_t before = out.span_checks.size();
+      run_check("deflection",
+                [&] { deflection_check(span, g, layer.d_mm, outcome.As_req_mm2, layer.area_mm2(sec.b_mm)); });
+      if (sv.deflection)
+        for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "span_depth";
+    }
+    if (calculated && !span.verdict_settled()) {
+      const std::size_t before = out.span_checks.size();
+      run_check("deflection", [&] { calculated_deflection_check(span, sec, g); });
+      for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "calculated";
+    }
   }
   return out;
+}
+
+// The allowed l/d above 40 K is outside the range the span/depth rule was
+// calibrated for: the bound is the cap of UK NA Table NA.5 Note 6 (value
+// from memory), given as a warning where the variant does not cap.
+void Checker::note_span_depth_range(const RegionDemand& g, double allowed, double K) const {
+  constexpr double calibrated_K_multiple = 40.0;
+  if (allowed <= calibrated_K_multiple * K) return;
+  const std::string note = g.span_where + ": the allowed span/depth ratio " + num(allowed) +
+                           " (EN 1992-1-1 7.4.2) exceeds 40 K = " + num(calibrated_K_multiple * K) +
+                           ", beyond the range the rule was calibrated for (the cap of UK NA Table NA.5 Note 6): "
+                           "calculate the deflection (serviceability.deflection \"calculated\")";
+  const std::lock_guard<std::mutex> lock(span_depth_notes_mutex_);
+  // One note per span, of the arrangement last recorded (the design's).
+  for (auto& [where, text] : span_depth_notes_)
+    if (where == g.span_where) {
+      text = note;
+      return;
+    }
+  span_depth_notes_.emplace_back(g.span_where, note);
+}
+
+// ---- Deflection by calculation (7.4.3) --------------------------------------
+
+CreepShrinkage creep_shrinkage_of(const ServiceabilityInput& s, double fck, double h) {
+  CreepShrinkage c;
+  c.cement = s.cement_class == CementClass::S ? Cement::S : s.cement_class == CementClass::R ? Cement::R : Cement::N;
+  c.RH = s.relative_humidity_percent.value_or(default_relative_humidity);
+  c.t0 = s.age_at_loading_days.value_or(default_age_at_loading_days);
+  c.t_p = s.partitions_age_days.value_or(default_partitions_age_days);
+  c.fcm = mean_compressive_strength(fck);
+  // A slab strip dries from both faces: Ac = b h, u = 2 b (its edges are
+  // inside the floor), so h0 = h.
+  c.h0 = notional_size(h * 1000.0, 2.0 * 1000.0);
+  // Creep, Annex B: φ(∞, t0) = φ0; at t_p, φ0 βc(t_p, t0).
+  c.t0_adj = cement_adjusted_age(c.t0, c.cement);
+  c.phi_RH = creep_humidity_factor(c.RH, c.h0, c.fcm);
+  c.beta_fcm = creep_strength_factor(c.fcm);
+  c.beta_t0 = creep_loading_age_factor(c.t0_adj);
+  c.phi0 = notional_creep_coefficient(c.phi_RH, c.beta_fcm, c.beta_t0);
+  c.beta_H = creep_humidity_time_factor(c.RH, c.h0, c.fcm);
+  c.beta_c_p = creep_development(c.t_p, c.t0, c.beta_H);
+  // Shrinkage, 3.1.4(6): drying kh εcd,0 βds and autogenous εca(∞) βas.
+  c.kh = shrinkage_size_factor(c.h0);
+  c.eps_cd0 = basic_drying_shrinkage(c.fcm, c.RH, c.cement);
+  c.eps_cd_inf = c.kh * c.eps_cd0;
+  c.eps_ca_inf = final_autogenous_shrinkage(fck);
+  c.beta_ds_p = drying_shrinkage_development(c.t_p, std::min(drying_start_days, c.t0), c.h0);
+  c.beta_as_p = autogenous_shrinkage_development(c.t_p);
+  c.eps_cs_calc_inf = c.eps_cd_inf + c.eps_ca_inf;
+  c.eps_cs_calc_p = c.beta_ds_p * c.eps_cd_inf + c.beta_as_p * c.eps_ca_inf;
+  // A given final value develops as the calculated one does.
+  c.creep_given = s.creep_coefficient.has_value();
+  c.shrinkage_given = s.shrinkage_strain.has_value();
+  c.phi_inf = c.creep_given ? *s.creep_coefficient : c.phi0;
+  c.phi_p = c.phi_inf * c.beta_c_p;
+  c.eps_cs_inf = c.shrinkage_given ? *s.shrinkage_strain : c.eps_cs_calc_inf;
+  c.eps_cs_p = c.eps_cs_calc_inf > 0.0 ? c.eps_cs_inf * c.eps_cs_calc_p / c.eps_cs_calc_inf : 0.0;
+  return c;
+}
+
+std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, const RegionDemand& g) const {
+  if (!req_.serviceability.calculated_deflection() || !g.long_term_span || g.span_kind == SpanKind::cantilever)
+    return std::nullopt;
+  const SectionLayer& layer = sec.outer_layer(Face::bottom);
+  const double b = sec.b_mm;
+  const LongTermSection total = long_term_section(b, sec.h_mm, layer.area_mm2(b), layer.d_mm,
+                                                  secant_modulus_MPa(m_.fck), m_.fctm, long_term_.phi_inf,
+                                                  long_term_.eps_cs_inf);
+  return span_deflection(*g.long_term_span, [&](double M) { return total.curvature(M); });
+}
+
+void Checker::calculated_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const {
+  const SectionLayer& layer = sec.outer_layer(Face::bottom);
+  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
+  const double Ecm = secant_modulus_MPa(m_.fck);
+  const SpanForces& qp = *g.long_term_span;
+  const CreepShrinkage& c = long_term_;
+  const LongTermSection total = long_term_section(b, h, As, d, Ecm, m_.fctm, c.phi_inf, c.eps_cs_inf);
+  const SpanDeflection w = span_deflection(qp, [&](double M) { return total.curvature(M); });
+  const double limit = g.span_mm / total_deflection_span_ratio;
+  double x_crit = 0.0;
+  const double M_crit = qp.max_moment(&x_crit);
+  auto section_steps = [&](Steps& st, const LongTermSection& s, const char* when) {
+    const std::string tag = when;
+    st.add("Ec,eff" + tag, "Ecm/(1 + φ)", num(Ecm) + "/(1 + " + num(s.Ec_eff > 0 ? Ecm / s.Ec_eff - 1.0 : 0.0) + ")",
+           s.Ec_eff, "MPa", "EN 1992-1-1 7.4.3(5) (7.20)");
+    st.add("αe" + tag, "Es/Ec,eff", num(steel_modulus_MPa) + "/" + num(s.Ec_eff), s.alpha_e, "-",
+           "EN 1992-1-1 7.4.3(5)");
+    st.add("x_I" + tag, "uncracked: b h plus (αe − 1) As at d", "", s.uncracked.x, "mm", "EN 1992-1-1 7.4.3");
+    st.add("I_I" + tag, "uncracked transformed section", "", s.uncracked.I * 1e-6, "10⁶ mm⁴", "EN 1992-1-1 7.4.3");
+    st.add("x_II" + tag, "b x²/2 = αe As (d − x)", "", s.cracked.x, "mm", "EN 1992-1-1 7.4.3");
+    st.add("I_II" + tag, "b x³/3 + αe As (d − x)²", "", s.cracked.I * 1e-6, "10⁶ mm⁴", "EN 1992-1-1 7.4.3");
+    st.add("Mcr" + tag, "fctm I_I/(h − x_I)",
+           num(m_.fctm) + " × " + num(s.uncracked.I * 1e-6) + " × 10⁶/(" + num(h) + " − " + num(s.uncracked.x) + ")",
+           s.Mcr * 1e-6, "kNm", "EN 1992-1-1 7.4.3(3)");
+    st.add("1/r_cs,I" + tag, "εcs αe S_I/I_I, S_I = As (d − x_I)", "", s.kcs_I * 1e6, "1/km",
+           "EN 1992-1-1 7.4.3(6) (7.21)");
+    st.add("1/r_cs,II" + tag, "εcs αe S_II/I_II, S_II = As (d − x_II)", "", s.kcs_II * 1e6, "1/km",
+           "EN 1992-1-1 7.4.3(6) (7.21)");
+  };
+  auto creep_steps = [&](Steps& st) {
+    if (c.creep_given) {
+      st.add("φ(∞,t0)", "given (serviceability.creep_coefficient)", "", c.phi_inf, "-", "EN 1992-1-1 3.1.4(2)");
+    } else {
+      st.add("h0", "2 Ac/u, both faces drying", "2 × " + num(h) + " × b/(2 b)", c.h0, "mm", "EN 1992-1-1 3.1.4(5), (B.6)");
+      st.add("fcm", "fck + 8", num(m_.fck) + " + 8", c.fcm, "MPa", "EN 1992-1-1 3.1.2 Table 3.1");
+      st.add("φRH", c.fcm <= 35.0 ? "1 + (1 − RH/100)/(0.1 h0^(1/3))" : "[1 + (1 − RH/100)/(0.1 h0^(1/3)) α1] α2",
+             "RH = " + num(c.RH) + " %, h0 = " + num(c.h0), c.phi_RH, "-",
+             c.fcm <= 35.0 ? "EN 1992-1-1 Annex B (B.3a)" : "EN 1992-1-1 Annex B (B.3b)");
+      st.add("β(fcm)", "16.8/√fcm", "16.8/√" + num(c.fcm), c.beta_fcm, "-", "EN 1992-1-1 Annex B (B.4)");
+      st.add("t0", "t0,T (9/(2 + t0,T^1.2) + 1)^α ≥ 0.5, cement " +
+                       std::string(c.cement == Cement::S ? "S" : c.cement == Cement::N ? "N" : "R"),
+             "t0,T = " + num(c.t0) + " days", c.t0_adj, "days", "EN 1992-1-1 Annex B (B.9)");
+      st.add("β(t0)", "1/(0.1 + t0^0.20)", "1/(0.1 + " + num(c.t0_adj) + "^0.20)", c.beta_t0, "-",
+             "EN 1992-1-1 Annex B (B.5)");
+      st.add("φ(∞,t0)", "φ0 = φRH β(fcm) β(t0)",
+             num(c.phi_RH) + " × " + num(c.beta_fcm) + " × " + num(c.beta_t0), c.phi_inf, "-",
+             "EN 1992-1-1 Annex B (B.1), (B.2)");
+    }
+    if (c.shrinkage_given) {
+      st.add("εcs(∞)", "given (serviceability.shrinkage_strain)", "", c.eps_cs_inf * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6)");
+    } else {
+      if (c.creep_given) st.add("h0", "2 Ac/u, both faces drying", "", c.h0, "mm", "EN 1992-1-1 3.1.4(5)");
+      st.add("εcd,0", "0.85 [(220 + 110 αds1) exp(−αds2 fcm/10)] 10⁻⁶ βRH", "fcm = " + num(c.fcm) + ", RH = " + num(c.RH) + " %",
+             c.eps_cd0 * 1e6, "10⁻⁶", "EN 1992-1-1 Annex B (B.11), (B.12)");
+      st.add("kh", "Table 3.3 at h0", "h0 = " + num(c.h0), c.kh, "-", "EN 1992-1-1 3.1.4(6) Table 3.3");
+      st.add("εcd,∞", "kh εcd,0", num(c.kh) + " × " + num(c.eps_cd0 * 1e6), c.eps_cd_inf * 1e6, "10⁻⁶",
+             "EN 1992-1-1 3.1.4(6) (3.9)");
+      st.add("εca(∞)", "2.5 (fck − 10) 10⁻⁶", "2.5 × (" + num(m_.fck) + " − 10)", c.eps_ca_inf * 1e6, "10⁻⁶",
+             "EN 1992-1-1 3.1.4(6) (3.12)");
+      st.add("εcs(∞)", "εcd,∞ + εca(∞)", num(c.eps_cd_inf * 1e6) + " + " + num(c.eps_ca_inf * 1e6),
+             c.eps_cs_inf * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6) (3.8)");
+    }
+  };
+  const double zeta_crit = distribution_coefficient(M_crit, total.Mcr, beta_sustained);
+  checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(4) (span/250)", w.max_mm, limit, "mm", [&] {
+    Steps st;
+    creep_steps(st);
+    section_steps(st, total, "");
+    st.add("M_qp", "largest quasi-permanent moment of the span, all spans loaded",
+           "at " + num(x_crit * 1e-3) + " m from its left support", M_crit * 1e-6, "kNm", "EN 1990 (6.16b)");
+    st.add("ζ", M_crit > total.Mcr ? "1 − β (Mcr/M)², β = 0.5" : "0 (M ≤ Mcr)",
+           "Mcr = " + num(total.Mcr * 1e-6) + ", M = " + num(M_crit * 1e-6), zeta_crit, "-",
+           "EN 1992-1-1 7.4.3(3) (7.19)");
+    st.add("1/r", "ζ (1/r)II + (1 − ζ) (1/r)I, load and shrinkage", "at M_qp", total.curvature(M_crit) * 1e6,
+           "1/km", "EN 1992-1-1 7.4.3(3) (7.18), (7.21)");
+    st.add("n", "equal segments, ζ at every section, converged to 0.5 %",
+           "change " + num(w.change * 100.0) + " %", static_cast<double>(w.segments), "-", "EN 1992-1-1 7.4.3(7)");
+    st.add("δ", "double integration of 1/r between the supports",
+           "largest at " + num(w.x_at_mm * 1e-3) + " m", w.max_mm, "mm", "EN 1992-1-1 7.4.3(7)");
+    st.add("δ_lim", "span/250", num(g.span_mm) + "/250", limit, "mm", "EN 1992-1-1 7.4.1(4)");
+    return st.take();
+  });
+  if (!req_.serviceability.partitions || checks.verdict_settled()) return;
+  // The part after the partitions: the long-term total less the deflection
+  // when they are built (creep and shrinkage developed to t_p).
+  const LongTermSection early = long_term_section(b, h, As, d, Ecm, m_.fctm, c.phi_p, c.eps_cs_p);
+  const SpanDeflection w_p = span_deflection(qp, [&](double M) { return early.curvature(M); });
+  const double increment = w.max_mm - w_p.max_mm;
+  const double limit_p = g.span_mm / partitions_deflection_span_ratio;
+  checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(5) (span/500 after the partitions)", increment,
+             limit_p, "mm", [&] {
+               Steps st;
+               st.add("t_p", "age when the partitions are built", "", c.t_p, "days", "serviceability.partitions_age_days");
+               {
+                 st.add("βH", c.fcm <= 35.0 ? "1.5 [1 + (0.012 RH)^18] h0 + 250 ≤ 1500"
+                                          : "1.5 [1 + (0.012 RH)^18] h0 + 250 α3 ≤ 1500 α3",
+                        "RH = " + num(c.RH) + " %, h0 = " + num(c.h0), c.beta_H, "-",
+                        c.fcm <= 35.0 ? "EN 1992-1-1 Annex B (B.8a)" : "EN 1992-1-1 Annex B (B.8b)");
+                 st.add("βc(t_p,t0)", "((t_p − t0)/(βH + t_p − t0))^0.3",
+                        "((" + num(c.t_p) + " − " + num(c.t0) + ")/(" + num(c.beta_H) + " + " + num(c.t_p) + " − " +
+                            num(c.t0) + "))^0.3",
+                        c.beta_c_p, "-", "EN 1992-1-1 Annex B (B.7)");
+               }
+               st.add("φ(t_p,t0)", "φ(∞,t0) βc(t_p,t0)", num(c.phi_inf) + " × " + num(c.beta_c_p), c.phi_p, "-",
+                      "EN 1992-1-1 Annex B (B.1)");
+               st.add("βds(t_p,ts)", "(t_p − ts)/((t_p − ts) + 0.04 √h0³), ts = " + num(std::min(drying_start_days, c.t0)) + " days",
+                      "", c.beta_ds_p, "-", "EN 1992-1-1 3.1.4(6) (3.10)");
+               st.add("βas(t_p)", "1 − exp(−0.2 t_p^0.5)", "", c.beta_as_p, "-", "EN 1992-1-1 3.1.4(6) (3.13)");
+               st.add("εcs(t_p)", "εcs(∞) (βds εcd,∞ + βas εca,∞)/(εcd,∞ + εca,∞)", "", c.eps_cs_p * 1e6, "10⁻⁶",
+                      "EN 1992-1-1 3.1.4(6) (3.8)");
+               section_steps(st, early, " (t_p)");
+               st.add("δ(t_p)", "double integration of 1/r at t_p", "", w_p.max_mm, "mm", "EN 1992-1-1 7.4.3(7)");
+               st.add("δ(∞)", "long-term total", "", w.max_mm, "mm", "EN 1992-1-1 7.4.3(7)");
+               st.add("Δδ", "δ(∞) − δ(t_p)", num(w.max_mm) + " − " + num(w_p.max_mm), increment, "mm",
+                      "EN 1992-1-1 7.4.1(5)");
+               st.add("δ_lim", "span/500", num(g.span_mm) + "/500", limit_p, "mm", "EN 1992-1-1 7.4.1(5)");
+               return st.take();
+             });
 }
 
 double Checker::pinned_end_fixity_fraction() const { return partial_fixity_fraction; }
@@ -184,6 +389,7 @@ void Checker::deflection_check(CheckCollector& checks, const RegionDemand& g, do
   const double actual = g.span_mm / d;
   const char* clause = capped ? "EN 1992-1-1 7.4.2 (7.16), Table 7.4N; l/d capped by variant NDP"
                               : "EN 1992-1-1 7.4.2 (7.16), Table 7.4N";
+  if (checks.detail() != Detail::verdict && req_.serviceability.deflection) note_span_depth_range(g, allowed, K);
   checks.add("deflection", g.span_where, clause, actual, allowed, "-", [&] {
     Steps st;
     st.add("ρ0", "√fck × 10⁻³", "√" + num(m_.fck) + " × 10⁻³", rho0, "-", "EN 1992-1-1 7.4.2(2)");

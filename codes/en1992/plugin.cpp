@@ -79,6 +79,16 @@ std::vector<std::string> Checker::warnings() const {
     out.push_back("serviceability.crack_width is \"calculated\", but the slab is " + num(req_.slab.thickness_mm) +
                   " mm thick: EN 1992-1-1 7.3.3(1) asks for no crack control in slabs of 200 mm or less "
                   "(with 9.3 satisfied), so no crack width is checked");
+  // Span/depth alone on a slab carrying partitions: 7.4.2 gives no check of
+  // the part of the deflection after they are built (7.4.1(5)).
+  if (req_.serviceability.partitions && req_.serviceability.deflection_method() == DeflectionMethod::span_depth)
+    out.push_back("serviceability.partitions is true, but the deflection is checked by the span/depth ratio "
+                  "(EN 1992-1-1 7.4.2) alone, which does not check the part after the partitions are built "
+                  "(7.4.1(5), span/500): give serviceability.deflection \"calculated\" or \"both\"");
+  {
+    const std::lock_guard<std::mutex> lock(span_depth_notes_mutex_);
+    for (const auto& [where, note] : span_depth_notes_) out.push_back(note);
+  }
   return out;
 }
 
@@ -86,6 +96,40 @@ namespace {
 
 std::string format_range(double lo, double hi, const char* unit) {
   return "must be between " + num(lo) + " and " + num(hi) + " " + unit;
+}
+
+// The calculated deflection's inputs against the strip: built for spans
+// between supports (a cantilever's needs its back span's root rotation,
+// not built), the partitions after the loading. Creep, shrinkage and
+// humidity ranges are the request reader's.
+void add_deflection_input_problems(const Request& req, InputProblems& problems) {
+  const auto& s = req.serviceability;
+  if (!s.calculated_deflection()) {
+    const std::pair<const char*, bool> keys[] = {
+        {"creep_coefficient", s.creep_coefficient.has_value()},
+        {"shrinkage_strain", s.shrinkage_strain.has_value()},
+        {"relative_humidity_percent", s.relative_humidity_percent.has_value()},
+        {"age_at_loading_days", s.age_at_loading_days.has_value()},
+        {"partitions_age_days", s.partitions_age_days.has_value()},
+        {"cement_class", s.cement_class.has_value()}};
+    for (const auto& [key, given] : keys)
+      if (given)
+        problems.add(std::string("serviceability.") + key,
+                     "belongs to the calculated deflection: give serviceability.deflection \"calculated\" or "
+                     "\"both\", or leave the field out");
+    return;
+  }
+  for (std::size_t k = 0; k < 2; ++k)
+    if (req.slab.ends[k] == EndSupport::free)
+      problems.add("serviceability.deflection",
+                   "the calculated deflection is built for spans between supports; slab.ends[" + std::to_string(k) +
+                       "] is free (a cantilever), whose deflection is not calculated yet: give \"span_depth\"");
+  const double t0 = s.age_at_loading_days.value_or(default_age_at_loading_days);
+  const double tp = s.partitions_age_days.value_or(default_partitions_age_days);
+  if (s.partitions && tp <= t0)
+    problems.add(s.partitions_age_days ? "serviceability.partitions_age_days" : "serviceability.age_at_loading_days",
+                 "the partitions (at " + num(tp) + " days" + (s.partitions_age_days ? "" : ", the default") +
+                     ") must be built after the loading (at " + num(t0) + " days)");
 }
 
 class Code final : public DesignCode {
@@ -96,6 +140,7 @@ class Code final : public DesignCode {
   CodeIdentity identity() const override { return {code_id, ndp_.variant, ndp_.title}; }
 
   void validate(const Request& req, InputProblems& problems) const override {
+    add_deflection_input_problems(req, problems);
     const auto& c = req.concrete;
     if (c.strength_class && !fck_of_class(ndp_, *c.strength_class)) {
       std::string extra;

@@ -382,4 +382,126 @@ bool is_tabulated_fire_resistance(int minutes) {
 double fire_min_thickness(int minutes) { return fire_row(minutes).h; }
 double fire_min_axis_distance(int minutes) { return fire_row(minutes).a; }
 
+// ---- Deflection by calculation (EN 1992-1-1 7.4.3) ------------------------
+double effective_modulus(double Ecm, double phi) { return Ecm / (1.0 + phi); }  // (7.20)
+
+TransformedSection uncracked_section(double b, double h, double As, double d, double alpha_e) {
+  const double As_extra = (alpha_e - 1.0) * As;
+  const double A = b * h + As_extra;
+  TransformedSection s;
+  s.x = (b * h * h / 2.0 + As_extra * d) / A;
+  s.I = b * h * h * h / 12.0 + b * h * (h / 2.0 - s.x) * (h / 2.0 - s.x) + As_extra * (d - s.x) * (d - s.x);
+  s.S = As * (d - s.x);
+  return s;
+}
+
+TransformedSection cracked_section(double b, double As, double d, double alpha_e) {
+  TransformedSection s;
+  s.x = cracked_neutral_axis_depth(alpha_e, As, b, d);
+  s.I = b * s.x * s.x * s.x / 3.0 + alpha_e * As * (d - s.x) * (d - s.x);
+  s.S = As * (d - s.x);
+  return s;
+}
+
+double cracking_moment(double fctm, const TransformedSection& uncracked, double h) {  // 7.4.3(3)
+  return fctm * uncracked.I / (h - uncracked.x);
+}
+
+double distribution_coefficient(double M, double Mcr, double beta) {  // (7.19)
+  const double m = std::abs(M);
+  if (m <= Mcr) return 0.0;
+  return 1.0 - beta * (Mcr / m) * (Mcr / m);
+}
+
+double interpolated_parameter(double zeta, double cracked, double uncracked) {  // (7.18)
+  return zeta * cracked + (1.0 - zeta) * uncracked;
+}
+
+double shrinkage_curvature(double eps_cs, double alpha_e, const TransformedSection& s) {  // (7.21)
+  return eps_cs * alpha_e * s.S / s.I;
+}
+
+LongTermSection long_term_section(double b, double h, double As, double d, double Ecm, double fctm, double phi,
+                                  double eps_cs) {
+  LongTermSection s;
+  s.Ec_eff = effective_modulus(Ecm, phi);
+  s.alpha_e = steel_modulus_MPa / s.Ec_eff;
+  s.eps_cs = eps_cs;
+  s.uncracked = uncracked_section(b, h, As, d, s.alpha_e);
+  s.cracked = cracked_section(b, As, d, s.alpha_e);
+  s.Mcr = cracking_moment(fctm, s.uncracked, h);
+  s.kcs_I = shrinkage_curvature(eps_cs, s.alpha_e, s.uncracked);
+  s.kcs_II = shrinkage_curvature(eps_cs, s.alpha_e, s.cracked);
+  return s;
+}
+
+double LongTermSection::curvature(double M) const {
+  const double zeta = distribution_coefficient(M, Mcr, beta_sustained);
+  const double k_load = interpolated_parameter(zeta, M / (Ec_eff * cracked.I), M / (Ec_eff * uncracked.I));
+  return k_load + interpolated_parameter(zeta, kcs_II, kcs_I);
+}
+
+// ---- Creep and shrinkage (EN 1992-1-1 3.1.4, Annex B) -----------------------
+double notional_size(double Ac, double u) { return 2.0 * Ac / u; }  // (B.6)
+
+double creep_humidity_factor(double RH, double h0, double fcm) {  // (B.3a), (B.3b)
+  const double base = (1.0 - RH / 100.0) / (0.1 * std::cbrt(h0));
+  if (fcm <= 35.0) return 1.0 + base;
+  const double a1 = std::pow(35.0 / fcm, 0.7), a2 = std::pow(35.0 / fcm, 0.2);
+  return (1.0 + base * a1) * a2;
+}
+
+double creep_strength_factor(double fcm) { return 16.8 / std::sqrt(fcm); }  // (B.4)
+
+double creep_loading_age_factor(double t0) { return 1.0 / (0.1 + std::pow(t0, 0.20)); }  // (B.5)
+
+double cement_adjusted_age(double t0_T, Cement cement) {  // (B.9)
+  const double alpha = cement == Cement::S ? -1.0 : cement == Cement::N ? 0.0 : 1.0;
+  return std::max(t0_T * std::pow(9.0 / (2.0 + std::pow(t0_T, 1.2)) + 1.0, alpha), 0.5);
+}
+
+double notional_creep_coefficient(double phi_RH, double beta_fcm, double beta_t0) {  // (B.2)
+  return phi_RH * beta_fcm * beta_t0;
+}
+
+double creep_humidity_time_factor(double RH, double h0, double fcm) {  // (B.8a), (B.8b)
+  const double base = 1.5 * (1.0 + std::pow(0.012 * RH, 18.0)) * h0;
+  if (fcm <= 35.0) return std::min(base + 250.0, 1500.0);
+  const double a3 = std::sqrt(35.0 / fcm);
+  return std::min(base + 250.0 * a3, 1500.0 * a3);
+}
+
+double creep_development(double t, double t0, double beta_H) {  // (B.7)
+  if (t <= t0) return 0.0;
+  return std::pow((t - t0) / (beta_H + t - t0), 0.3);
+}
+
+double basic_drying_shrinkage(double fcm, double RH, Cement cement) {  // (B.11), (B.12)
+  const double a1 = cement == Cement::S ? 3.0 : cement == Cement::N ? 4.0 : 6.0;
+  const double a2 = cement == Cement::S ? 0.13 : cement == Cement::N ? 0.12 : 0.11;
+  const double beta_RH = 1.55 * (1.0 - std::pow(RH / 100.0, 3.0));
+  return 0.85 * ((220.0 + 110.0 * a1) * std::exp(-a2 * fcm / 10.0)) * 1e-6 * beta_RH;
+}
+
+double shrinkage_size_factor(double h0) {  // Table 3.3
+  constexpr std::array<std::pair<double, double>, 4> rows{{{100.0, 1.0}, {200.0, 0.85}, {300.0, 0.75}, {500.0, 0.70}}};
+  if (h0 <= rows.front().first) return rows.front().second;
+  for (std::size_t i = 1; i < rows.size(); ++i)
+    if (h0 <= rows[i].first) {
+      const auto [x0, y0] = rows[i - 1];
+      const auto [x1, y1] = rows[i];
+      return y0 + (y1 - y0) * (h0 - x0) / (x1 - x0);
+    }
+  return rows.back().second;
+}
+
+double drying_shrinkage_development(double t, double ts, double h0) {  // (3.10)
+  if (t <= ts) return 0.0;
+  return (t - ts) / ((t - ts) + 0.04 * std::sqrt(h0 * h0 * h0));
+}
+
+double final_autogenous_shrinkage(double fck) { return std::max(2.5 * (fck - 10.0) * 1e-6, 0.0); }  // (3.12)
+
+double autogenous_shrinkage_development(double t) { return 1.0 - std::exp(-0.2 * std::sqrt(t)); }  // (3.13)
+
 }  // namespace armature::en1992

@@ -142,6 +142,76 @@ double capped_span_depth_ratio(double allowed, double K, std::optional<double> c
 // 7.4.2(2), (7.17): 310/σs ≈ (500/fyk)(As,prov/As,req), capped.
 double steel_stress_factor(double fyk, double As_prov, double As_req, double cap);
 
+// ---- Deflection by calculation (EN 1992-1-1 7.4.3) ------------------------
+// 7.4.3(5) (7.20): Ec,eff = Ecm / (1 + φ(∞, t0)).
+double effective_modulus(double Ecm, double phi);
+// A rectangular section b × h with one layer As at depth d transformed by
+// αe (concrete in tension ignored or not); x from the compression face, I
+// about the centroid, S = As (d − x) the steel's first moment about it.
+struct TransformedSection {
+  double x = 0.0, I = 0.0, S = 0.0;
+};
+// Uncracked: b h plus (αe − 1) As at d.
+TransformedSection uncracked_section(double b, double h, double As, double d, double alpha_e);
+// Fully cracked: x from b x²/2 = αe As (d − x), I = b x³/3 + αe As (d − x)².
+TransformedSection cracked_section(double b, double As, double d, double alpha_e);
+// 7.4.3(3): cracking moment Mcr = fctm I_I / (h − x_I) (fctm, not fctm,fl).
+double cracking_moment(double fctm, const TransformedSection& uncracked, double h);
+// 7.4.3(3) (7.19): ζ = 1 − β (Mcr/M)², 0 for M ≤ Mcr; β = 0.5 sustained.
+constexpr double beta_sustained = 0.5;
+double distribution_coefficient(double M, double Mcr, double beta);
+// 7.4.3(3) (7.18): α = ζ αII + (1 − ζ) αI.
+double interpolated_parameter(double zeta, double cracked, double uncracked);
+// 7.4.3(6) (7.21): 1/r_cs = εcs αe S / I.
+double shrinkage_curvature(double eps_cs, double alpha_e, const TransformedSection& s);
+// 7.4.1(4), (5): span/250 for the total, span/500 after the partitions.
+constexpr double total_deflection_span_ratio = 250.0;
+constexpr double partitions_deflection_span_ratio = 500.0;
+
+// 7.4.3: the section of a span for its long-term curvature under one creep
+// coefficient and shrinkage strain (7.4.3): both states, Mcr, the
+// shrinkage curvatures.
+struct LongTermSection {
+  double Ec_eff = 0.0, alpha_e = 0.0, eps_cs = 0.0;
+  TransformedSection uncracked, cracked;
+  double Mcr = 0.0, kcs_I = 0.0, kcs_II = 0.0;
+  // 1/r (1/mm, sagging positive) under M (N·mm, sagging positive); the
+  // span's bottom bars wherever the moment acts (their own and the
+  // shrinkage curvature keep the sagging sense), ζ at each section.
+  double curvature(double M) const;
+};
+LongTermSection long_term_section(double b, double h, double As, double d, double Ecm, double fctm, double phi,
+                                  double eps_cs);
+
+// ---- Creep and shrinkage (EN 1992-1-1 3.1.4, Annex B) -----------------------
+enum class Cement { S, N, R };
+// 3.1.4(5), (B.6): h0 = 2 Ac / u.
+double notional_size(double Ac, double u);
+// (B.3a), (B.3b): φRH.
+double creep_humidity_factor(double RH, double h0, double fcm);
+// (B.4): β(fcm) = 16.8 / √fcm.
+double creep_strength_factor(double fcm);
+// (B.5): β(t0) = 1 / (0.1 + t0^0.20).
+double creep_loading_age_factor(double t0);
+// (B.9): t0 adjusted for the cement class, ≥ 0.5 days (α = −1, 0, 1).
+double cement_adjusted_age(double t0_T, Cement cement);
+// (B.2): φ0 = φRH β(fcm) β(t0).
+double notional_creep_coefficient(double phi_RH, double beta_fcm, double beta_t0);
+// (B.8a), (B.8b): βH.
+double creep_humidity_time_factor(double RH, double h0, double fcm);
+// (B.7): βc(t, t0) = ((t − t0)/(βH + t − t0))^0.3.
+double creep_development(double t, double t0, double beta_H);
+// (B.11), (B.12): εcd,0 (positive).
+double basic_drying_shrinkage(double fcm, double RH, Cement cement);
+// Table 3.3: kh by h0, linear between the rows.
+double shrinkage_size_factor(double h0);
+// (3.10): βds(t, ts) = (t − ts) / ((t − ts) + 0.04 √(h0³)).
+double drying_shrinkage_development(double t, double ts, double h0);
+// (3.12): εca(∞) = 2.5 (fck − 10) × 10⁻⁶.
+double final_autogenous_shrinkage(double fck);
+// (3.13): βas(t) = 1 − exp(−0.2 t^0.5).
+double autogenous_shrinkage_development(double t);
+
 // ---- Support moments (EN 1992-1-1 5.3.2.2) ---------------------------------
 // 5.3.2.2(3) Note (value from memory): the moment at the face of a monolithic
 // support is at least 0.65 of the full fixed-end moment.

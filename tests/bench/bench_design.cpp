@@ -52,6 +52,28 @@ void five_span_design(benchmark::State& state) {
 }
 ARMATURE_BENCHMARK(five_span_design);
 
+// The same single and five-span designs with the deflection calculated
+// (EN 1992-1-1 7.4.3, creep and shrinkage by Annex B and 3.1.4, the
+// partitions' check too), against the span/depth designs above.
+nlohmann::json calculated(nlohmann::json j) {
+  j["serviceability"] = {{"deflection", "calculated"}, {"partitions", true}};
+  return j;
+}
+
+void single_span_calculated_deflection_design(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(calculated(single_span));
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(single_span_calculated_deflection_design);
+
+void five_span_calculated_deflection_design(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(calculated(five_spans));
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(five_span_calculated_deflection_design);
+
 // The parts of the JSON route, apart: text to Request, and record to text.
 void json_request_parse(benchmark::State& state) {
   const std::string text = single_span.dump();

@@ -299,3 +299,31 @@ TEST_CASE("Ductility 7.3.3.1: a section at εt 0.0044 now fails, As,max by hand"
   REQUIRE(bending.size() == 1);
   CHECK(bending[0].capacity == Approx(0.8400 * 6800 * 420 * (347.3 - 60.0) * 1e-6).epsilon(1e-3));
 }
+
+TEST_CASE("ACI 318-19 24.2: Ie of Table 24.2.3.5, Mcr, Icr and the long-term multiplier", "[aci318][deflection]") {
+  // Our own 1 m strip, 200 mm, 28 MPa, No.13 at 200 (645 mm²), d = 167.5 mm.
+  const double b = 1000.0, h = 200.0, As = 645.0, d = 167.5, fc = 28.0;
+  const double Ec = armature::aci318::modulus_of_elasticity(fc);
+  const double fr = armature::aci318::modulus_of_rupture(fc, 1.0);
+  CHECK(Ec == Approx(4700.0 * std::sqrt(28.0)));  // 19.2.2.1 (value from memory)
+  CHECK(fr == Approx(0.62 * std::sqrt(28.0)));    // 19.2.3.1 (value from memory)
+  const double Ig = armature::aci318::gross_moment_of_inertia(b, h);
+  CHECK(Ig == Approx(b * h * h * h / 12.0));
+  const double Mcr = armature::aci318::cracking_moment(fr, Ig, h / 2.0);
+  CHECK(Mcr == Approx(fr * Ig / 100.0));
+  const double n = 200000.0 / Ec;
+  const auto cr = armature::aci318::cracked_section(b, As, d, n);
+  CHECK(b * cr.x * cr.x / 2.0 == Approx(n * As * (d - cr.x)).epsilon(1e-9));  // first moments balance
+  CHECK(cr.Icr == Approx(b * cr.x * cr.x * cr.x / 3.0 + n * As * (d - cr.x) * (d - cr.x)));
+  // Table 24.2.3.5 (value from memory): Ig up to (2/3) Mcr; above, the
+  // 318-19 form, continuous at (2/3) Mcr and tending to Icr.
+  using armature::aci318::effective_moment_of_inertia;
+  CHECK(effective_moment_of_inertia(0.5 * Mcr, Mcr, Ig, cr.Icr) == Ig);
+  CHECK(effective_moment_of_inertia(2.0 / 3.0 * Mcr * (1.0 + 1e-9), Mcr, Ig, cr.Icr) == Approx(Ig).epsilon(1e-6));
+  CHECK(effective_moment_of_inertia(1e3 * Mcr, Mcr, Ig, cr.Icr) == Approx(cr.Icr).epsilon(1e-5));
+  const double Ma = 2.0 * Mcr;  // (2/3 Mcr/Ma)² = 1/9
+  CHECK(effective_moment_of_inertia(Ma, Mcr, Ig, cr.Icr) == Approx(cr.Icr / (1.0 - (1.0 / 9.0) * (1.0 - cr.Icr / Ig))));
+  // 24.2.4.1.1: λΔ = ξ/(1 + 50 ρ'), ξ = 2.0 at five years (Table 24.2.4.1.3).
+  CHECK(armature::aci318::long_term_multiplier(armature::aci318::time_dependent_factor_five_years, 0.0) == 2.0);
+  CHECK(armature::aci318::long_term_multiplier(2.0, 0.01) == Approx(2.0 / 1.5));
+}

@@ -426,3 +426,135 @@ TEST_CASE("Cracked neutral axis, closed form and equilibrium", "[en1992][crack_w
   const double I2 = b * x * x * x / 3.0 + ae * As * (d - x) * (d - x);
   CHECK(cracked_steel_stress(M, As, d, x) == Approx(ae * M * (d - x) / I2).epsilon(1e-9));
 }
+
+// ---- Calculated deflection (EN 1992-1-1 7.4.3) against closed forms ---------
+// The kernel's double integration of the plug-in's curvature, on strips of
+// our own (the workshop's 200 mm floor, 1 m strip, H12 at 150, d = 169 mm).
+#include "armature/analysis.hpp"
+#include "armature/deflection.hpp"
+
+namespace {
+
+constexpr double kB = 1000.0, kH = 200.0, kD = 169.0;
+const double kAs = M_PI * 12.0 * 12.0 / 4.0 * 1000.0 / 150.0;  // 754 mm²/m
+
+// Uncracked transformed section by hand (parallel axis theorem), the
+// steel's extra (αe − 1) As at d.
+double hand_I_uncracked(double alpha_e) {
+  const double extra = (alpha_e - 1.0) * kAs;
+  const double x = (kB * kH * kH / 2.0 + extra * kD) / (kB * kH + extra);
+  return kB * kH * kH * kH / 12.0 + kB * kH * (kH / 2.0 - x) * (kH / 2.0 - x) + extra * (kD - x) * (kD - x);
+}
+
+}  // namespace
+
+TEST_CASE("7.4.3 uncracked simply supported strip: 5 q L^4 / (384 Ec,eff I)", "[en1992][deflection]") {
+  // Closed form of an elastic simply supported beam under uniform load
+  // (any structural handbook; value from memory). Light load: the largest
+  // moment stays below Mcr, so ζ = 0 at every section; no shrinkage.
+  const double Ecm = secant_modulus_MPa(30.0), phi = 2.0, L = 4000.0;
+  const LongTermSection s = long_term_section(kB, kH, kAs, kD, Ecm, mean_tensile_strength(30.0), phi, 0.0);
+  const double Ec_eff = Ecm / (1.0 + phi);
+  CHECK(s.Ec_eff == Approx(Ec_eff));
+  CHECK(s.uncracked.I == Approx(hand_I_uncracked(200000.0 / Ec_eff)).epsilon(1e-12));
+  const double q = 3.0;  // N/mm on the 1 m strip (3 kPa)
+  const auto span = armature::span_from_end_moments(L, q, 0.0, 0.0);
+  REQUIRE(span.max_moment() < s.Mcr);
+  const auto w = armature::span_deflection(span, [&](double M) { return s.curvature(M); });
+  const double closed = 5.0 * q * std::pow(L, 4) / (384.0 * Ec_eff * s.uncracked.I);
+  CHECK(w.max_mm == Approx(closed).epsilon(0.005));  // converged to 0.5 %
+  CHECK(w.x_at_mm == Approx(L / 2.0).margin(L / static_cast<double>(w.segments)));
+}
+
+TEST_CASE("7.4.3 fully cracked limit: the same closed form with I_II", "[en1992][deflection]") {
+  // fctm = 0: Mcr = 0, so ζ = 1 − 0.5 (0/M)² = 1 at every loaded section
+  // (7.19) and the curvature is M/(Ec,eff I_II).
+  const double Ecm = secant_modulus_MPa(30.0), phi = 2.5, L = 5000.0, q = 8.0;
+  const LongTermSection s = long_term_section(kB, kH, kAs, kD, Ecm, 0.0, phi, 0.0);
+  const double Ec_eff = Ecm / (1.0 + phi), ae = 200000.0 / Ec_eff;
+  // Cracked neutral axis x = d(−αe ρ + √((αe ρ)² + 2 αe ρ)) (the issue's
+  // form, any reinforced concrete text), and I_II = b x³/3 + αe As (d − x)².
+  const double rho = kAs / (kB * kD);
+  const double x = kD * (-ae * rho + std::sqrt(ae * rho * ae * rho + 2.0 * ae * rho));
+  CHECK(s.cracked.x == Approx(x).epsilon(1e-12));
+  // x balances the first moments: b x²/2 = αe As (d − x).
+  CHECK(kB * x * x / 2.0 == Approx(ae * kAs * (kD - x)).epsilon(1e-9));
+  const double I_II = kB * x * x * x / 3.0 + ae * kAs * (kD - x) * (kD - x);
+  CHECK(s.cracked.I == Approx(I_II).epsilon(1e-12));
+  const auto span = armature::span_from_end_moments(L, q, 0.0, 0.0);
+  const auto w = armature::span_deflection(span, [&](double M) { return s.curvature(M); });
+  CHECK(w.max_mm == Approx(5.0 * q * std::pow(L, 4) / (384.0 * Ec_eff * I_II)).epsilon(0.005));
+}
+
+TEST_CASE("7.4.3 uncracked two-span strip: w L^4 (39 + 55 sqrt 33)/65536 / (E I)", "[en1992][deflection]") {
+  // Two equal spans under uniform load on both: each span is a propped
+  // cantilever, largest deflection (39 + 55√33)/65536 w L⁴/(E I) ≈
+  // w L⁴/(184.6 E I) at 0.4215 L from the end support (closed form of the
+  // propped cantilever, value from memory).
+  const double Ecm = secant_modulus_MPa(30.0), phi = 1.5, L = 4500.0, q = 2.0;
+  const LongTermSection s = long_term_section(kB, kH, kAs, kD, Ecm, mean_tensile_strength(30.0), phi, 0.0);
+  const armature::StripModel model{{L, L}, armature::EndSupport::pinned, armature::EndSupport::pinned};
+  const auto result = armature::analyse(model, {q, q});
+  const auto& span = result.spans[0];
+  REQUIRE(-span.M_right() < s.Mcr);  // uncracked over the support too
+  const auto w = armature::span_deflection(span, [&](double M) { return s.curvature(M); });
+  const double EI = Ecm / (1.0 + phi) * s.uncracked.I;
+  CHECK(w.max_mm == Approx((39.0 + 55.0 * std::sqrt(33.0)) / 65536.0 * q * std::pow(L, 4) / EI).epsilon(0.005));
+  CHECK(w.x_at_mm / L == Approx(0.4215).margin(0.02));
+}
+
+TEST_CASE("7.4.3 shrinkage curvature (7.21) and zeta (7.19)", "[en1992][deflection]") {
+  const double Ecm = secant_modulus_MPa(30.0), phi = 2.0, eps = 400e-6;
+  const LongTermSection s = long_term_section(kB, kH, kAs, kD, Ecm, mean_tensile_strength(30.0), phi, eps);
+  const double ae = 200000.0 / (Ecm / 3.0);
+  // (7.21): 1/r_cs = εcs αe S/I with S = As (d − x) of each state.
+  CHECK(s.kcs_I == Approx(eps * ae * kAs * (kD - s.uncracked.x) / s.uncracked.I));
+  CHECK(s.kcs_II == Approx(eps * ae * kAs * (kD - s.cracked.x) / s.cracked.I));
+  // ζ = 1 − 0.5 (Mcr/M)²: at M = 2 Mcr, 0.875; zero at and below Mcr.
+  CHECK(distribution_coefficient(2.0 * s.Mcr, s.Mcr, beta_sustained) == Approx(0.875));
+  CHECK(distribution_coefficient(s.Mcr, s.Mcr, beta_sustained) == 0.0);
+  CHECK(distribution_coefficient(-3.0 * s.Mcr, s.Mcr, beta_sustained) == Approx(1.0 - 0.5 / 9.0));
+  // Curvature at 2 Mcr: the two states by ζ, load and shrinkage alike (7.18).
+  const double M = 2.0 * s.Mcr, Ec = Ecm / 3.0;
+  const double expected = 0.875 * (M / (Ec * s.cracked.I) + s.kcs_II) + 0.125 * (M / (Ec * s.uncracked.I) + s.kcs_I);
+  CHECK(s.curvature(M) == Approx(expected).epsilon(1e-12));
+  // Mcr = fctm I_I / (h − x_I) (fctm, not fctm,fl).
+  CHECK(s.Mcr == Approx(mean_tensile_strength(30.0) * s.uncracked.I / (kH - s.uncracked.x)));
+}
+
+TEST_CASE("Annex B creep and 3.1.4 shrinkage against hand evaluation", "[en1992][creep]") {
+  // C30/37 (fcm = 38 MPa > 35: (B.3b), (B.8b)), RH 50 %, h0 = 200 mm,
+  // loaded at 28 days, cement N. Hand evaluation of the clauses (value
+  // from memory of EN 1992-1-1:2004 Annex B and 3.1.4):
+  //   α1 = (35/38)^0.7 = 0.94406, α2 = (35/38)^0.2 = 0.98369, α3 = (35/38)^0.5 = 0.95971
+  //   φRH = [1 + 0.5/(0.1 × 200^(1/3)) × 0.94406] × 0.98369 = 1.7777
+  //   β(fcm) = 16.8/√38 = 2.7253;  β(t0) = 1/(0.1 + 28^0.2) = 0.48845
+  //   φ0 = 1.7777 × 2.7253 × 0.48845 = 2.3664
+  //   βH = 1.5 (1 + (0.6)^18) × 200 + 250 × 0.95971 = 539.96
+  //   εcd,0 = 0.85 (220 + 440) e^(−0.12 × 3.8) × 1.55 × (1 − 0.125) = 482.24 × 10⁻⁶
+  //   kh(200) = 0.85 (Table 3.3); εca(∞) = 2.5 × 20 × 10⁻⁶ = 50 × 10⁻⁶
+  CHECK(creep_humidity_factor(50.0, 200.0, 38.0) == Approx(1.7777).epsilon(1e-4));
+  CHECK(creep_strength_factor(38.0) == Approx(2.7253).epsilon(1e-4));
+  CHECK(creep_loading_age_factor(28.0) == Approx(0.48845).epsilon(1e-4));
+  CHECK(notional_creep_coefficient(1.7777, 2.7253, 0.48845) == Approx(2.3664).epsilon(1e-4));
+  CHECK(creep_humidity_time_factor(50.0, 200.0, 38.0) == Approx(539.96).epsilon(1e-4));
+  CHECK(basic_drying_shrinkage(38.0, 50.0, Cement::N) * 1e6 == Approx(482.24).epsilon(1e-4));
+  CHECK(shrinkage_size_factor(200.0) == Approx(0.85));
+  CHECK(shrinkage_size_factor(250.0) == Approx(0.80));  // linear between the rows
+  CHECK(shrinkage_size_factor(800.0) == Approx(0.70));
+  CHECK(shrinkage_size_factor(80.0) == Approx(1.0));
+  CHECK(final_autogenous_shrinkage(30.0) == Approx(50e-6));
+  // (B.9): cement N leaves t0 as it is; S makes it younger, R older.
+  CHECK(cement_adjusted_age(28.0, Cement::N) == Approx(28.0));
+  CHECK(cement_adjusted_age(28.0, Cement::S) == Approx(28.0 / (9.0 / (2.0 + std::pow(28.0, 1.2)) + 1.0)));
+  CHECK(cement_adjusted_age(28.0, Cement::R) > 28.0);
+  // (B.7) and (3.10), (3.13): development from nothing at loading to 1.
+  CHECK(creep_development(28.0, 28.0, 540.0) == 0.0);
+  CHECK(creep_development(90.0, 28.0, 540.0) == Approx(std::pow(62.0 / 602.0, 0.3)));
+  CHECK(drying_shrinkage_development(90.0, 7.0, 200.0) == Approx(83.0 / (83.0 + 0.04 * std::sqrt(8.0e6))));
+  CHECK(autogenous_shrinkage_development(90.0) == Approx(1.0 - std::exp(-0.2 * std::sqrt(90.0))));
+  // fcm ≤ 35: (B.3a) and (B.8a).
+  CHECK(creep_humidity_factor(70.0, 150.0, 33.0) == Approx(1.0 + 0.3 / (0.1 * std::cbrt(150.0))));
+  CHECK(creep_humidity_time_factor(70.0, 150.0, 33.0) ==
+        Approx(1.5 * (1.0 + std::pow(0.84, 18.0)) * 150.0 + 250.0));
+}

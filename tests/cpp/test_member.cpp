@@ -45,7 +45,7 @@ TEST_CASE("OneWayStrip regions and demands under central line loads on two spans
   armature::LoadTotals totals;
   totals.uls = 1.0;
   totals.sls_quasi_permanent = 0.5;
-  const armature::MemberLoads loads{actions, combinations, arrangements, totals};
+  const armature::MemberLoads loads{actions, combinations, arrangements, totals, false};
   CHECK(strip.analyse(loads) == 1);
 
   armature::RegionRules rules;

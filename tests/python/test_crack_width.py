@@ -134,15 +134,15 @@ def test_calculated_crack_width_against_the_tables():
 
 def test_bad_serviceability_input_is_named():
     req = copy.deepcopy(STORE)
-    req["serviceability"] = {"crack_width": "estimated", "deflection": "both", "partitions": True,
-                             "shrinkage_strain": 0.0004}
+    req["serviceability"] = {"crack_width": "estimated", "deflection": "all", "partitions": "yes",
+                             "shrinkage_strain": -0.0004}
     with pytest.raises(armature.InputError) as e:
         armature.design(req)
     text = str(e.value)
     assert 'serviceability.crack_width: must be "tables" or "calculated", got "estimated"' in text
-    assert "serviceability.deflection" in text and "not available yet" in text
-    assert "serviceability.partitions" in text
-    assert "serviceability.shrinkage_strain" in text
+    assert 'serviceability.deflection: must be "span_depth", "calculated" or "both", got "all"' in text
+    assert "serviceability.partitions: must be true or false" in text
+    assert "serviceability.shrinkage_strain: must be between 0 and 0.002" in text
 
 
 def test_aci_refuses_a_calculated_crack_width():

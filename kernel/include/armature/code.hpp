@@ -17,7 +17,9 @@
 #include <utility>
 #include <vector>
 
+#include "armature/analysis.hpp"
 #include "armature/combinations.hpp"
+#include "armature/deflection.hpp"
 #include "armature/errors.hpp"
 #include "armature/punching.hpp"
 #include "armature/record.hpp"
@@ -135,6 +137,14 @@ struct RegionDemand {
   // Support regions of a strip given support widths: M_Ed is the code's
   // support_design_moment() of these numbers.
   SupportFace support_face{};
+  // For a calculated deflection (request.serviceability), span regions
+  // only: the span's internal forces under the code's long-term load
+  // (quasi-permanent) on every span, with no redistribution; x from the
+  // span's left support. None when the request asks for no calculated
+  // deflection.
+  std::optional<SpanForces> long_term_span{};
+  // The same under the code's service load (characteristic: ACI D + L).
+  std::optional<SpanForces> service_span{};
 };
 
 // How much a code reports for one bar arrangement: the bar search needs
@@ -271,6 +281,13 @@ class MemberRules {
   // before the bar search, and the result becomes region.M_Ed. Default:
   // the centreline moment (no reduction).
   virtual double support_design_moment(const RegionDemand& region) const { return region.support_face.M_centre; }
+  // For the record: the curvature and deflection along the span a region
+  // governs (region.long_term_span), as the code's calculated deflection
+  // integrates them for this section (the long-term total); none where
+  // the code calculates none.
+  virtual std::optional<SpanDeflection> deflection_diagram(const Section&, const RegionDemand&) const {
+    return std::nullopt;
+  }
 };
 
 // The code's punching shear rules at a column of a flat slab
@@ -360,6 +377,9 @@ class SlabChecker {
   // open at Detail::verdict, and only for bars that fit).
   RegionOutcome check_region(const RegionDemand& region, const BarOption& bar, double spacing_mm,
                              Detail detail) const;
+  // The member rules' deflection_diagram for the section check_region builds.
+  std::optional<SpanDeflection> deflection_diagram(const RegionDemand& region, const BarOption& bar,
+                                                   double spacing_mm) const;
 };
 
 // Bases for a house plug-in's rules: each forwards every call to the
@@ -404,6 +424,9 @@ class ForwardingMemberRules : public MemberRules {
   double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
   double support_design_moment(const RegionDemand& region) const override {
     return inner_->support_design_moment(region);
+  }
+  std::optional<SpanDeflection> deflection_diagram(const Section& section, const RegionDemand& region) const override {
+    return inner_->deflection_diagram(section, region);
   }
 
  protected:
@@ -498,7 +521,7 @@ class CheckCollector {
     if (detail_ == Detail::verdict) return;
     // Made in place with every field: no default labels to overwrite.
     out_.emplace_back(Label(id), where, Label(clause), demand, capacity, Label(unit), utilisation, pass,
-                      detail_ == Detail::steps ? make_steps() : std::vector<Step>{});
+                      detail_ == Detail::steps ? make_steps() : std::vector<Step>{}, Label());
   }
 
   std::vector<Check>& out_;

@@ -45,7 +45,8 @@ struct Combination {
 enum class CombinationLabels {
   // What a design uses: the ULS combinations labelled, the quasi-permanent
   // and EQU ones (labels may be empty); the characteristic and frequent
-  // ones, which no check of a design reads yet, may be left out.
+  // ones may be left out (only a calculated deflection reads them, and it
+  // asks for `all`).
   strength,
   all,  // every combination, every label
 };

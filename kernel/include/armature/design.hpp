@@ -90,6 +90,14 @@ struct DesignRecord {
   double thickness_mm = 0.0;
   std::vector<double> spans_mm;
   std::vector<std::vector<DiagramPoint>> diagrams;  // M and V envelopes per span (Detail::steps)
+  // Long-term curvature and deflection along each span whose deflection
+  // the code calculates (Detail::steps), x from the strip's left end.
+  struct DeflectionDiagram {
+    std::string where;   // "span 2"
+    double x0_mm = 0.0;  // the span's left support along the strip
+    SpanDeflection span;
+  };
+  std::vector<DeflectionDiagram> deflection_diagrams;
   std::vector<Action> actions;                      // every action, self-weight first
   std::vector<Combination> combinations;            // every combination the code gave
   bool list_actions = false;                        // loads.actions given: the result lists both

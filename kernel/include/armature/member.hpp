@@ -35,6 +35,11 @@ struct MemberLoads {
   const std::vector<Combination>& combinations;
   const std::vector<std::vector<bool>>& arrangements;
   const LoadTotals& totals;
+  // The code's long-term (quasi-permanent) and service (characteristic)
+  // loads on every span are analysed as well, and each span region carries
+  // their forces (RegionDemand::long_term_span, service_span), for a
+  // calculated deflection.
+  bool long_term_moments = false;
 };
 
 // What the code decides about a member's regions, passed in by the driver.
@@ -123,6 +128,8 @@ class OneWayStrip final : public Member {
   std::vector<CaseResult> cases_;  // ULS cases, redistributed
   Envelope env_;
   std::vector<CaseResult> qp_all_, uls_all_;  // every span loaded (located loads only)
+  std::vector<CaseResult> long_term_;  // quasi-permanent, every span loaded, when asked for
+  std::vector<CaseResult> service_;    // characteristic, every span loaded, when asked for
   double load_ratio_ = 0.0, nil_moment_ = 0.0;
 };
 

@@ -66,6 +66,10 @@ struct Check {
   double utilisation = 0.0;  // demand / capacity
   bool pass = false;
   std::vector<Step> steps;
+  // How the requirement was worked out where a check id has more than one
+  // way (deflection: "span_depth", "calculated"); empty otherwise, and
+  // left out of the result.
+  Label method{};
 };
 
 // utilisation = demand / capacity; a capacity of zero or less gives +inf

@@ -125,8 +125,30 @@ enum class CrackWidthMethod { tables, calculated };
 
 const char* to_string(CrackWidthMethod method);
 
+// The deflection: by the code's span/depth rule, calculated from the
+// curvature along the spans, or both reported.
+enum class DeflectionMethod { span_depth, calculated, both };
+
+const char* to_string(DeflectionMethod method);
+
+// Cement class of EN 1992-1-1 3.1.2(6) for creep and shrinkage: S (slow),
+// N (normal), R (rapid).
+enum class CementClass { S, N, R };
+
 struct ServiceabilityInput {
   CrackWidthMethod crack_width = CrackWidthMethod::tables;
+  // Not given: span/depth, and its checks carry no "method" (as version 1).
+  std::optional<DeflectionMethod> deflection;
+  bool partitions = false;                 // non-structural partitions the deflection could damage
+  std::optional<double> creep_coefficient;  // final φ; none: the code's method
+  std::optional<double> shrinkage_strain;   // final total εcs (positive); none: the code's method
+  std::optional<double> relative_humidity_percent;
+  std::optional<double> age_at_loading_days;
+  std::optional<double> partitions_age_days;  // age of the slab when partitions are built
+  std::optional<CementClass> cement_class;
+
+  DeflectionMethod deflection_method() const { return deflection.value_or(DeflectionMethod::span_depth); }
+  bool calculated_deflection() const { return deflection_method() != DeflectionMethod::span_depth; }
 };
 
 // Title-block information of the calculation record (all optional).

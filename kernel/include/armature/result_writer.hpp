@@ -52,6 +52,7 @@ void write_check(W& w, const Check& c, bool with_steps) {
   w.key("unit"), w.value(c.unit);
   w.key("utilisation"), w.value(c.utilisation);
   w.key("pass"), w.value(c.pass);
+  if (!c.method.empty()) w.key("method"), w.value(c.method);
   if (with_steps) {
     w.key("steps");
     w.begin_array();

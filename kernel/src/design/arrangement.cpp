@@ -64,4 +64,13 @@ RegionOutcome SlabChecker::check_region(const RegionDemand& region, const BarOpt
   return check_arrangement(rules, member_rules(), section, region, detail);
 }
 
+std::optional<SpanDeflection> SlabChecker::deflection_diagram(const RegionDemand& region, const BarOption& bar,
+                                                              double spacing_mm) const {
+  const SectionRules& rules = section_rules();
+  const SlabInput& slab = request().slab;
+  const Section section = region_section(rules, region, slab.strip_width_mm, slab.thickness_mm, bar, spacing_mm);
+  if (!(section.outer_layer(region.face).d_mm > 0.0)) return std::nullopt;
+  return member_rules().deflection_diagram(section, region);
+}
+
 }  // namespace armature

@@ -238,9 +238,12 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   rec.list_actions = req.loads.actions_given;
   // Every label where the combinations are listed (the record, a result
   // listing its actions) or an equilibrium check names its combination (a
-  // strip with a cantilever); otherwise a design needs the ULS labels alone.
+  // strip with a cantilever), and every combination where a calculated
+  // deflection reads the service ones; otherwise a design needs the ULS
+  // labels alone.
   const bool has_cantilever = req.slab.ends[0] == EndSupport::free || req.slab.ends[1] == EndSupport::free;
-  const CombinationLabels labels = rec.list_actions || detail == Detail::steps || has_cantilever
+  const CombinationLabels labels = rec.list_actions || detail == Detail::steps || has_cantilever ||
+                                           req.serviceability.calculated_deflection()
                                        ? CombinationLabels::all
                                        : CombinationLabels::strength;
   rec.combinations =
@@ -263,7 +266,8 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     if (a.size() != parts) throw DesignError(rec.code.id + ": a load arrangement does not match the spans");
   if (arrangements.empty()) throw DesignError(rec.code.id + ": the code gave no load arrangement");
 
-  const MemberLoads loads{rec.actions, rec.combinations, arrangements, rec.loads};
+  const MemberLoads loads{rec.actions, rec.combinations, arrangements, rec.loads,
+                          req.serviceability.calculated_deflection()};
   rec.load_cases = member.analyse(loads);
   if (detail == Detail::steps) rec.diagrams = member.diagrams();  // for the record
   rec.spans_mm = req.slab.spans_mm;
@@ -304,6 +308,16 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     RegionOutcome out = call_code(
         rec.code, "the checks",
         [&] { return checker->check_region(demand, pick.bar, pick.spacing_mm, detail); }, demand.where);
+    if (detail == Detail::steps && demand.long_term_span && !demand.span_where.empty()) {
+      auto diagram = call_code(
+          rec.code, "the deflection diagram",
+          [&] { return checker->deflection_diagram(demand, pick.bar, pick.spacing_mm); }, demand.where);
+      if (diagram) {
+        double x0 = 0.0;
+        for (std::size_t e = 0; e < n && span_names[e] != demand.span_where; ++e) x0 += req.slab.spans_mm[e];
+        rec.deflection_diagrams.push_back({demand.span_where, x0, std::move(*diagram)});
+      }
+    }
     RegionRecord region;
     region.where = demand.where;
     region.face = demand.face;

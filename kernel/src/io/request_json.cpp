@@ -681,26 +681,50 @@ void read_design(const json& j, InputProblems& problems, DesignOptions& d) {
     d.redistribution_percent = *p;
 }
 
-// serviceability (contract-v2 section 4). Only the crack width's choice is
-// built; the calculated deflection's keys are refused, not ignored.
+// serviceability (contract-v2 section 4): the deflection's method and the
+// creep and shrinkage inputs of the calculated deflection, the crack
+// width's method. A null creep coefficient or shrinkage strain is the
+// code's method, as if left out. Whether a code builds the calculated
+// deflection is the code's to say (its validate).
 void read_serviceability(const json& j, InputProblems& problems, ServiceabilityInput& s) {
   ObjectReader r(j, "serviceability", problems,
                  {"deflection", "partitions", "creep_coefficient", "relative_humidity_percent",
-                  "age_at_loading_days", "shrinkage_strain", "crack_width"});
+                  "age_at_loading_days", "partitions_age_days", "cement_class", "shrinkage_strain",
+                  "crack_width"});
   if (auto deflection = r.text("deflection")) {
-    if (*deflection == "calculated" || *deflection == "both")
-      problems.add("serviceability.deflection",
-                   "\"" + *deflection + "\": the calculated deflection is not available yet; give "
-                   "\"span_depth\" or leave the field out");
-    else if (*deflection != "span_depth")
-      problems.add("serviceability.deflection",
-                   "must be \"span_depth\", \"calculated\" or \"both\", got \"" + *deflection + "\"");
+    if (*deflection == "span_depth") s.deflection = DeflectionMethod::span_depth;
+    else if (*deflection == "calculated") s.deflection = DeflectionMethod::calculated;
+    else if (*deflection == "both") s.deflection = DeflectionMethod::both;
+    else problems.add("serviceability.deflection",
+                      "must be \"span_depth\", \"calculated\" or \"both\", got \"" + *deflection + "\"");
   }
-  for (const char* key : {"partitions", "creep_coefficient", "relative_humidity_percent", "age_at_loading_days",
-                          "shrinkage_strain"})
-    if (r.find(key))
-      problems.add(std::string("serviceability.") + key,
-                   "belongs to the calculated deflection, which is not available yet; leave the field out");
+  if (const json* p = r.find("partitions")) {
+    if (p->is_boolean()) s.partitions = p->get<bool>();
+    else problems.add("serviceability.partitions", "must be true or false, got " + describe(*p));
+  }
+  auto optional_number = [&](const char* key) -> std::optional<double> {
+    const json* v = r.find(key);
+    if (!v || v->is_null()) return std::nullopt;
+    return r.number(key);
+  };
+  s.creep_coefficient = r.in_range(optional_number("creep_coefficient"), "creep_coefficient", 0, 6, "");
+  s.shrinkage_strain = r.in_range(optional_number("shrinkage_strain"), "shrinkage_strain", 0, 0.002, "");
+  s.relative_humidity_percent =
+      r.in_range(r.number("relative_humidity_percent"), "relative_humidity_percent", 40, 100, "%");
+  s.age_at_loading_days = r.in_range(r.number("age_at_loading_days"), "age_at_loading_days", 1, 3650, "days");
+  s.partitions_age_days = r.in_range(r.number("partitions_age_days"), "partitions_age_days", 1, 36500, "days");
+  if (s.age_at_loading_days && s.partitions_age_days && *s.partitions_age_days <= *s.age_at_loading_days) {
+    problems.add("serviceability.partitions_age_days",
+                 "must be later than serviceability.age_at_loading_days (" +
+                     format_number(*s.age_at_loading_days) + " days), got " + format_number(*s.partitions_age_days));
+    s.partitions_age_days.reset();
+  }
+  if (auto cement = r.text("cement_class")) {
+    if (*cement == "S") s.cement_class = CementClass::S;
+    else if (*cement == "N") s.cement_class = CementClass::N;
+    else if (*cement == "R") s.cement_class = CementClass::R;
+    else problems.add("serviceability.cement_class", "must be \"S\", \"N\" or \"R\", got \"" + *cement + "\"");
+  }
   if (auto method = r.text("crack_width")) {
     if (*method == "tables") s.crack_width = CrackWidthMethod::tables;
     else if (*method == "calculated") s.crack_width = CrackWidthMethod::calculated;

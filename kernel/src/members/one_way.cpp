@@ -232,6 +232,14 @@ std::size_t OneWayStrip::analyse(const MemberLoads& loads) {
     uls_all_ = analyse_load_cases(
         model, load_cases(loads.actions, loads.combinations, LimitState::uls, all_loaded, model.spans_mm, b));
   }
+  long_term_.clear();
+  service_.clear();
+  if (loads.long_term_moments) {
+    long_term_ = analyse_load_cases(model, load_cases(loads.actions, loads.combinations, LimitState::quasi_permanent,
+                                                      {all_spans_loaded(n)}, model.spans_mm, b));
+    service_ = analyse_load_cases(model, load_cases(loads.actions, loads.combinations, LimitState::characteristic,
+                                                    {all_spans_loaded(n)}, model.spans_mm, b));
+  }
   double longest = 0.0;
   for (double L : model.spans_mm) longest = std::max(longest, L);
   nil_moment_ = 1e-9 * loads.totals.uls * b * longest * longest;
@@ -310,6 +318,12 @@ std::vector<RegionDemand> OneWayStrip::design_regions(const RegionRules& rules,
       g.span_mm = m.spans_mm[j];
       g.span_kind = span_kind_of(m, j);
       g.quasi_permanent_to_uls = qp_ratio(Face::bottom, j, env.span_x_max_sagging[j]);
+      // The long-term case with the largest sagging moment in this span.
+      for (const auto& c : long_term_)
+        if (!g.long_term_span || c.spans[j].max_moment() > g.long_term_span->max_moment())
+          g.long_term_span = c.spans[j];
+      for (const auto& c : service_)
+        if (!g.service_span || c.spans[j].max_moment() > g.service_span->max_moment()) g.service_span = c.spans[j];
       // Pinned end supports rely on the bottom bars of their span.
       for (std::size_t k : {j, j + 1})
         if ((k == 0 || k == n) && m.has_support(k) && !m.is_restrained(k))

@@ -197,6 +197,15 @@ const char* to_string(Rationalise rationalise) {
   return "?";
 }
 
+const char* to_string(DeflectionMethod method) {
+  switch (method) {
+    case DeflectionMethod::span_depth: return "span_depth";
+    case DeflectionMethod::calculated: return "calculated";
+    case DeflectionMethod::both: return "both";
+  }
+  return "span_depth";
+}
+
 const char* to_string(CrackWidthMethod method) {
   return method == CrackWidthMethod::tables ? "tables" : "calculated";
 }

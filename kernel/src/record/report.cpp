@@ -295,6 +295,48 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
 }
 
 // Cross-section of the strip, to scale, with the region's bars.
+// Long-term curvature (1/km) or deflection along the spans whose
+// deflection the code calculates, in the style of the envelopes: sagging
+// curvature and downward deflection drawn below the axis.
+std::string deflection_svg(const DesignRecord& r, bool curvature) {
+  Frame f;
+  for (double L : r.spans_mm) f.length += L;
+  f.length -= 1;
+  f.extent = 1e-12;
+  for (const auto& d : r.deflection_diagrams)
+    for (const auto& p : d.span.points)
+      f.extent = std::max(f.extent, std::abs(curvature ? p.curvature : p.deflection_mm));
+  const RecordUnits u = units_of(r);
+  std::string o = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" + n4(f.width) + "\" height=\"" +
+                  n4(f.height) + "\" viewBox=\"0 0 " + n4(f.width) + " " + n4(f.height) +
+                  "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" aria-label=\"" +
+                  (curvature ? "long-term curvature" : "long-term deflection") + "\">";
+  o += "<text x=\"4\" y=\"12\">" +
+       (curvature ? std::string("Long-term curvature, 1/km (sagging below the axis)")
+                  : "Long-term deflection, " + std::string(u.length_u()) + " (downward below the axis)") +
+       "</text>";
+  o += "<line x1=\"" + n4(f.sx(0)) + "\" y1=\"" + n4(f.sy(0, true)) + "\" x2=\"" + n4(f.sx(f.length)) +
+       "\" y2=\"" + n4(f.sy(0, true)) + "\" stroke=\"#000\" stroke-width=\"1.2\"/>";
+  o += supports_svg(r, f);
+  for (const auto& d : r.deflection_diagrams) {
+    std::vector<std::pair<double, double>> pts;
+    for (const auto& p : d.span.points)
+      pts.push_back({f.sx(d.x0_mm + p.x_mm), f.sy(curvature ? p.curvature : p.deflection_mm, true)});
+    o += polyline(pts, "stroke=\"#000\" stroke-width=\"1\"");
+    if (!curvature) {
+      const double px = f.sx(d.x0_mm + d.span.x_at_mm), py = f.sy(d.span.max_mm, true);
+      o += "<circle cx=\"" + n4(px) + "\" cy=\"" + n4(py) + "\" r=\"2.5\" fill=\"#000\"/>";
+      o += "<text x=\"" + n4(px + 3) + "\" y=\"" + n4(py + 12) + "\">" + esc(n4(u.length_v(d.span.max_mm))) +
+           "</text>";
+    }
+  }
+  o += "<text x=\"" + n4(4) + "\" y=\"" + n4(f.height - 4) + "\">" +
+       (curvature ? std::string("the long-term load on every span, ζ at every section, shrinkage included")
+                  : std::string("double integration of the curvature between the supports; dots: largest")) +
+       "</text>";
+  return o + "</svg>";
+}
+
 std::string section_svg(const DesignRecord& r, const RegionRecord& g) {
   const double b = r.strip_width_mm, h = r.thickness_mm;
   const double scale = std::min(500.0 / b, 160.0 / h);
@@ -519,6 +561,10 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
                                : "") +
        ".</p>\n";
   o += diagram_svg(r, true) + "\n" + diagram_svg(r, false) + "\n";
+  if (!r.deflection_diagrams.empty())
+    o += "<p>Calculated deflection: the long-term curvature and deflection of each span with the bars chosen "
+         "(see each span's deflection check).</p>\n" +
+         deflection_svg(r, true) + "\n" + deflection_svg(r, false) + "\n";
 
   o += "<h2>4 Design of regions, supports and spans</h2>\n";
   for (const auto& part : parts_of(r)) {

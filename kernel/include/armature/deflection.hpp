@@ -1,0 +1,45 @@
+// Deflection of a span by double integration of curvature (code
+// independent): the code gives the curvature of the section under a
+// moment; the kernel integrates it along the span between its supports.
+#pragma once
+
+#include <cstddef>
+#include <functional>
+#include <vector>
+
+#include "armature/analysis.hpp"
+
+namespace armature {
+
+struct DeflectionPoint {
+  double x_mm = 0.0;          // from the span's left support
+  double moment = 0.0;        // N·mm, sagging positive
+  double curvature = 0.0;     // 1/mm, sagging positive
+  double deflection_mm = 0.0; // downward positive
+};
+
+struct SpanDeflection {
+  double max_mm = 0.0;         // the largest downward deflection along the span
+  double x_at_mm = 0.0;        // where it occurs
+  std::size_t segments = 0;    // equal segments of the converged integration
+  double change = 0.0;         // relative change of max_mm from half as many segments
+  std::vector<DeflectionPoint> points;  // at every segment end of the converged integration
+};
+
+// Curvature (1/mm, sagging positive) of the span's section under a moment
+// (N·mm, sagging positive).
+using CurvatureOfMoment = std::function<double(double)>;
+
+// A span between two supports (zero deflection at both): curvature at the
+// ends of equal segments from the span's moment diagram, integrated twice
+// by the trapezoidal rule; the segments double from 16 until the largest
+// deflection changes by no more than `tolerance` (relative) or 2^16
+// segments are reached.
+SpanDeflection span_deflection(const SpanForces& span, const CurvatureOfMoment& curvature,
+                               double tolerance = 0.005);
+
+// The same integration on a given number of segments (no convergence).
+SpanDeflection span_deflection_fixed(const SpanForces& span, const CurvatureOfMoment& curvature,
+                                     std::size_t segments);
+
+}  // namespace armature
