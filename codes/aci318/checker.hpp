@@ -25,7 +25,8 @@ inline std::string num(double v) { return step_number(v); }
 class Checker final : public SlabChecker,
                       private CombinationRules,
                       private SectionRules,
-                      private MemberRules {
+                      private MemberRules,
+                      private DetailingRules {
  public:
   // `us`: the US variant, following the in-lb edition (us_customary.hpp).
   Checker(const Request& req, bool us);  // plugin.cpp
@@ -33,7 +34,15 @@ class Checker final : public SlabChecker,
   const CombinationRules& combination_rules() const override { return *this; }
   const SectionRules& section_rules() const override { return *this; }
   const MemberRules& member_rules() const override { return *this; }
+  const DetailingRules* detailing_rules() const override { return this; }
   const Request& request() const override { return req_; }
+
+  // detailing.cpp
+  DetailLength shift(const BarDetailDemand& bar) const override;
+  DetailLength anchorage(const BarDetailDemand& bar) const override;
+  DetailLength end_support_anchorage(const BarDetailDemand& bar) const override;
+  DetailLength interior_support_embedment(const BarDetailDemand& bar) const override;
+  DetailLength lap(const BarDetailDemand& bar) const override;
 
   // plugin.cpp
   LoadBasis load_basis() const override;
@@ -81,6 +90,11 @@ class Checker final : public SlabChecker,
   double min_thickness(double span, SupportCondition condition) const;            // 7.3.1.1
   double cover_for(const std::string& exposure, double bar_diameter) const;       // 20.5.1.3.1
   double root_fc_limited() const;                               // √f'c ≤ 8.3 MPa (100 psi), 22.5.3.1
+
+  // detailing.cpp: ld of 25.4.2 (the smaller of 25.4.2.3 and 25.4.2.4,
+  // not less than 300 mm / 12 in), with its steps.
+  double development_length(StepRecorder& st, const BarDetailDemand& bar) const;
+  double support_embedment() const;
 
   // Numbers and units of the derivation steps: the SI variant prints the
   // kernel's units, the US variant those of the in-lb edition.
