@@ -273,10 +273,6 @@ class MemberRules {
 };
 
 // ---- Detailing: the lengths of bars (DetailingRules) ----------------------
-// The bond condition a request asks for (detailing.bond): the code's rule
-// by the bar's position ("auto"), or good or poor throughout.
-enum class BondChoice { automatic, good, poor };
-
 // One bar of a region as the detailing rules see it: its size, spacing,
 // position in the section and the demand where it is anchored.
 struct BarDetailDemand {
