@@ -336,3 +336,89 @@ def test_stock_shorter_than_the_laps_is_refused():
     with pytest.raises(armature.InputError) as info:
         armature.design(req)
     assert any(line.startswith("detailing.stock_length_m: ") for line in str(info.value).splitlines())
+
+
+def test_schedule_dataframe_matches_the_result():
+    req = workshop([1.2, 4.2, 3.6], ["free", "pinned"])
+    r = armature.design(req)
+    frame = armature.schedule(r)
+    assert list(frame.columns) == ["mark", "bar", "count", "length_mm", "shape", "mass_kg"]
+    assert len(frame) == len(r["detailing"]["schedule"])
+    # mass = count × length × 0.00617 d² (common practice), total = sum.
+    for (_, row), src in zip(frame.iterrows(), r["detailing"]["schedule"]):
+        assert row["mark"] == src["mark"] and row["count"] == src["count"]
+        assert row["mass_kg"] == pytest.approx(row["count"] * row["length_mm"] / 1000 * UNIT_MASS *
+                                               src["diameter_mm"] ** 2)
+    assert frame["mass_kg"].sum() == pytest.approx(frame.attrs["total_mass_kg"])
+    assert frame.attrs["caution"] == armature.CAUTION
+    with pytest.raises(armature.InputError):
+        armature.schedule(armature.design(copy.deepcopy(BASE_REQUEST)))
+
+
+def test_cli_writes_the_schedule_as_csv(tmp_path):
+    import csv
+    import json
+    import subprocess
+    from conftest import CLI
+    req = workshop([3.6, 4.2], ["pinned", "fixed"], width=5.0)
+    path = tmp_path / "bars.csv"
+    run = subprocess.run([str(CLI), "design", "-", "--schedule", str(path)], input=json.dumps(req),
+                         capture_output=True, text=True)
+    assert run.returncode in (0, 1), run.stderr
+    lines = path.read_text().splitlines()
+    assert lines[0] == "# " + armature.CAUTION
+    rows = list(csv.DictReader(lines[1:]))
+    expected = armature.design(req)["detailing"]["schedule"]
+    assert [r_["mark"] for r_ in rows] == [e["mark"] for e in expected]
+    for r_, e in zip(rows, expected):
+        assert int(r_["count"]) == e["count"] and float(r_["length_mm"]) == e["length_mm"]
+        assert r_["shape"] == "straight" and r_["bar"] == e["bar"]
+        assert float(r_["mass_kg"]) == pytest.approx(int(r_["count"]) * float(r_["length_mm"]) / 1000 * UNIT_MASS *
+                                                     e["diameter_mm"] ** 2, abs=5e-4)
+    # Without detailing: refused, exit 2.
+    plain = copy.deepcopy(req)
+    del plain["detailing"]
+    run = subprocess.run([str(CLI), "design", "-", "--schedule", str(tmp_path / "none.csv")],
+                         input=json.dumps(plain), capture_output=True, text=True)
+    assert run.returncode == 2 and "--schedule" in run.stderr
+
+
+def test_sweep_takes_its_steel_from_the_schedule():
+    req = workshop([4.2, 3.6], ["pinned", "pinned"], width=6.0)
+    frame = armature.sweep(req, {"slab.thickness_mm": [200, 240]})
+    for _, row in frame.iterrows():
+        one = copy.deepcopy(req)
+        one["slab"]["thickness_mm"] = int(row["slab.thickness_mm"])
+        assert row["steel_kg_m2"] == pytest.approx(armature.design(one)["detailing"]["mass_per_area_kg_m2"])
+
+
+def test_record_draws_every_bar_and_derives_every_length(tmp_path):
+    import json
+    import re
+    import subprocess
+    from conftest import CLI
+    req = workshop([1.2, 4.2, 3.6], ["free", "pinned"], width=6.0, stock_length_m=3.0)
+    html, md = tmp_path / "record.html", tmp_path / "record.md"
+    for path in (html, md):
+        run = subprocess.run([str(CLI), "design", "-", "--report", str(path)], input=json.dumps(req),
+                             capture_output=True, text=True)
+        assert run.returncode in (0, 1), run.stderr
+    r = armature.design(req)
+    d = r["detailing"]
+    text = html.read_text()
+    svg = re.search(r'<svg[^>]*aria-label="bar layout in elevation".*?</svg>', text, re.S).group(0)
+    mains = main_bars(d)
+    # One thin line per main bar, one heavy line per lap, the mark of each bar.
+    assert len(re.findall(r'<line[^>]*stroke-width="1"/>', svg)) == len(mains)
+    assert len(re.findall(r'<line[^>]*stroke-width="3"/>', svg)) == sum(len(b["laps"]) for b in mains)
+    assert sorted(re.findall(r"<text[^>]*>(\d\d)</text>", svg)) == sorted(b["mark"] for b in mains)
+    # Every derivation with its clause; the schedule; the caution.
+    for dv in d["derivations"]:
+        assert f'{dv["what"]} of {dv["where"]}: {dv["clause"]}' in text
+    assert len(re.findall(r"<h4>(shift|anchorage|lap|end support anchorage|interior support embedment)", text)) == \
+        len(d["derivations"])
+    assert "<h4>Bar schedule</h4>" in text and armature.CAUTION in text
+    mtext = md.read_text()
+    for row in d["schedule"]:
+        assert f'| {row["mark"]} | {row["bar"]} | {int(row["count"])} |' in mtext
+    assert armature.CAUTION in mtext
