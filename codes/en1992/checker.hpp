@@ -59,6 +59,7 @@ class Checker final : public SlabChecker,
   DetailLength end_support_anchorage(const BarDetailDemand& bar) const override;
   DetailLength interior_support_embedment(const BarDetailDemand& bar) const override;
   DetailLength lap(const BarDetailDemand& bar) const override;
+  DetailLength end_top_bar_extent(const BarDetailDemand& bar, double span_mm) const override;
 
   // plugin.cpp
   LoadBasis load_basis() const override;

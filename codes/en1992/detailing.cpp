@@ -110,6 +110,14 @@ DetailLength Checker::interior_support_embedment(const BarDetailDemand& bar) con
   return {l, "EN 1992-1-1 9.2.1.5", st.take()};
 }
 
+DetailLength Checker::end_top_bar_extent(const BarDetailDemand&, double span_mm) const {
+  Steps st;
+  const double l = partial_fixity_bar_extent(span_mm);
+  st.add("l", "0.2 × the adjacent span (from the support line: no width given)", "0.2 × " + num(span_mm), l, "mm",
+         "EN 1992-1-1 9.3.1.2(2)");
+  return {l, "EN 1992-1-1 9.3.1.2(2)", st.take()};
+}
+
 DetailLength Checker::lap(const BarDetailDemand& bar) const {
   Steps st;
   st.add("σsd", "fyd (the bar at its design strength)", "", m_.fyd, "MPa", "EN 1992-1-1 8.4.3(2)");

@@ -437,4 +437,6 @@ double end_support_tensile_force(double V_Ed, double al, double z) { return std:
 
 double interior_support_minimum_embedment(double phi) { return 10.0 * phi; }
 
+double partial_fixity_bar_extent(double span) { return 0.2 * span; }
+
 }  // namespace armature::en1992

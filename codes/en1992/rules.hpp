@@ -111,6 +111,9 @@ double end_support_tensile_force(double V_Ed, double al, double z);
 // 9.2.1.5(1): bottom bars at an interior support run at least 10 φ past
 // the face (straight bars).
 double interior_support_minimum_embedment(double phi);
+// 9.3.1.2(2): top steel at a simple end support runs at least 0.2 of the
+// adjacent span from the face of the support.
+double partial_fixity_bar_extent(double span);
 
 // ---- Crack control (EN 1992-1-1 7.3) --------------------------------------
 bool crack_check_needed(double h);  // 7.3.3(1): none for h ≤ 200 mm

@@ -289,3 +289,14 @@ TEST_CASE("ACI detailing rules of a session, SI and US variants", "[detailing][a
   CHECK(usr->anchorage(u).length_mm / 25.4 == Approx(18.50).epsilon(0.002));
   CHECK(usr->end_support_anchorage(u).length_mm == Approx(6 * 25.4));
 }
+
+TEST_CASE("EN 9.3.1.2(2) top bars at a simple end run 0.2 of the span", "[detailing][en1992]") {
+  CHECK(armature::en1992::partial_fixity_bar_extent(4200) == Approx(840));
+  const Session s = session_of(workshop_en(200, "C30/37"));
+  const auto l = s.checker->detailing_rules()->end_top_bar_extent(bar12(armature::Face::top, 25), 4200);
+  CHECK(l.length_mm == Approx(840));
+  CHECK(l.clause == "EN 1992-1-1 9.3.1.2(2)");
+  // The forwarding base passes it on.
+  const armature::ForwardingDetailingRules fwd(*s.checker->detailing_rules());
+  CHECK(fwd.end_top_bar_extent(bar12(armature::Face::top, 25), 3000).length_mm == Approx(600));
+}

@@ -227,6 +227,12 @@ def test_end_support_anchorage_of_a_simple_span():
     assert b["start_m"] == pytest.approx(-expected / 1000, abs=1e-9)
     assert b["end_m"] >= 4.2 + expected / 1000 - 1e-9
     assert b["clause"].endswith("9.2.1.4, 9.3.1.2")
+    # 9.3.1.2(2): the top bars at each simple end run at least 0.2 × 4.2 = 0.84 m into the span.
+    tops = sorted((b for b in main_bars(r["detailing"]) if b["face"] == "top"), key=lambda b: b["start_m"])
+    assert len(tops) == 2
+    assert tops[0]["end_m"] >= 0.84 - 1e-9 and tops[1]["start_m"] <= 4.2 - 0.84 + 1e-9
+    assert any(dv["what"] == "extent into the span" and dv["length_mm"] == pytest.approx(840)
+               for dv in r["detailing"]["derivations"])
 
 
 def test_poor_bond_lengthens_anchorage_by_1_over_0_7():
@@ -415,7 +421,7 @@ def test_record_draws_every_bar_and_derives_every_length(tmp_path):
     # Every derivation with its clause; the schedule; the caution.
     for dv in d["derivations"]:
         assert f'{dv["what"]} of {dv["where"]}: {dv["clause"]}' in text
-    assert len(re.findall(r"<h4>(shift|anchorage|lap|end support anchorage|interior support embedment)", text)) == \
+    assert len(re.findall(r"<h4>(shift|anchorage|lap|end support anchorage|interior support embedment|extent into the span)", text)) == \
         len(d["derivations"])
     assert "<h4>Bar schedule</h4>" in text and armature.CAUTION in text
     mtext = md.read_text()

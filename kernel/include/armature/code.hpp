@@ -321,6 +321,11 @@ class DetailingRules {
   // Lap length of bars in tension, bar.lapped_share of them lapped at one
   // section.
   virtual DetailLength lap(const BarDetailDemand& bar) const = 0;
+  // How far past the line of an end support that the design takes as
+  // simple the top bars there (the code's steel for partial fixity) run
+  // into the span of length span_mm at least; none (0) when the code sets
+  // no such length (the shift and anchorage then govern).
+  virtual DetailLength end_top_bar_extent(const BarDetailDemand&, double /*span_mm*/) const { return {}; }
 };
 
 class ForwardingDetailingRules : public DetailingRules {
@@ -335,6 +340,9 @@ class ForwardingDetailingRules : public DetailingRules {
     return inner_->interior_support_embedment(bar);
   }
   DetailLength lap(const BarDetailDemand& bar) const override { return inner_->lap(bar); }
+  DetailLength end_top_bar_extent(const BarDetailDemand& bar, double span_mm) const override {
+    return inner_->end_top_bar_extent(bar, span_mm);
+  }
 
  protected:
   const DetailingRules& inner() const { return *inner_; }

@@ -111,7 +111,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     return b;
   };
   auto derive = [&](const std::string& where, const char* what, const DetailLength& l) {
-    out.derivations.push_back({where, what, l});
+    if (l.length_mm != 0.0 || !l.clause.empty()) out.derivations.push_back({where, what, l});  // none: no rule
     return l.length_mm;
   };
   auto ask = [&](const char* stage, const std::string& where, auto&& fn) {
@@ -228,6 +228,12 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       } else {
         run.start = (hog ? zl : X[j]) - al - lbd;
         run.anch_start = lbd;
+        if (j == n && !hog && n > 0) {  // an end support taken as simple: the code's least extent into the span
+          const double ext = derive(label, "extent into the span",
+                                    ask("detailing end top bars", where,
+                                        [&] { return rules.end_top_bar_extent(run.demand, spans[n - 1]); }));
+          run.start = std::min(run.start, X[j] - ext);
+        }
       }
     }
     // Rightwards.
@@ -247,6 +253,12 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       } else {
         run.end = (hog ? zr : X[j]) + al + lbd;
         run.anch_end = lbd;
+        if (j == 0 && !hog && n > 0) {  // an end support taken as simple: the code's least extent into the span
+          const double ext = derive(label, "extent into the span",
+                                    ask("detailing end top bars", where,
+                                        [&] { return rules.end_top_bar_extent(run.demand, spans[0]); }));
+          run.end = std::max(run.end, X[j] + ext);
+        }
       }
     }
     // A bar cannot pass a free end: it stops at the tip less the cover.
