@@ -27,7 +27,8 @@ class Checker final : public SlabChecker,
                       private CombinationRules,
                       private SectionRules,
                       private MemberRules,
-                      private PunchingRules {
+                      private PunchingRules,
+                      private DetailingRules {
  public:
   // `us`: the US variant, following the in-lb edition (us_customary.hpp).
   Checker(const Request& req, bool us);  // plugin.cpp
@@ -36,7 +37,15 @@ class Checker final : public SlabChecker,
   const SectionRules& section_rules() const override { return *this; }
   const MemberRules& member_rules() const override { return *this; }
   const PunchingRules& punching_rules() const override { return *this; }
+  const DetailingRules* detailing_rules() const override { return this; }
   const Request& request() const override { return req_; }
+
+  // detailing.cpp
+  DetailLength shift(const BarDetailDemand& bar) const override;
+  DetailLength anchorage(const BarDetailDemand& bar) const override;
+  DetailLength end_support_anchorage(const BarDetailDemand& bar) const override;
+  DetailLength interior_support_embedment(const BarDetailDemand& bar) const override;
+  DetailLength lap(const BarDetailDemand& bar) const override;
 
   // plugin.cpp
   LoadBasis load_basis() const override;
@@ -92,6 +101,11 @@ class Checker final : public SlabChecker,
   double concrete_modulus() const;                              // 19.2.2.1: Ec, MPa
   double rupture_modulus() const;                               // 19.2.3.1: fr, MPa
   double reinforcement_modulus() const;                         // 20.2.2.2: Es, MPa
+
+  // detailing.cpp: ld of 25.4.2 (the smaller of 25.4.2.3 and 25.4.2.4,
+  // not less than 300 mm / 12 in), with its steps.
+  double development_length(StepRecorder& st, const BarDetailDemand& bar) const;
+  double support_embedment() const;
 
   // Numbers and units of the derivation steps: the SI variant prints the
   // kernel's units, the US variant those of the in-lb edition.

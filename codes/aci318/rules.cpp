@@ -134,4 +134,34 @@ double long_term_multiplier(double xi, double rho_compression) {  // 24.2.4.1.1
   return xi / (1.0 + 50.0 * rho_compression);
 }
 
+
+// ---- Development and splices ---------------------------------------------------
+
+double casting_position_factor(double concrete_below_mm) { return concrete_below_mm > 300.0 ? 1.3 : 1.0; }
+
+double bar_size_factor(double db) { return db <= 19.1 + 1e-9 ? 0.8 : 1.0; }
+
+double reinforcement_grade_factor(double fy) {
+  if (fy <= 420.0 + 1e-9) return 1.0;
+  if (fy <= 551.6 + 1e-9) return 1.15;  // Grade 550 (SI) and Grade 80 (80 000 psi = 551.6 MPa)
+  return 1.3;
+}
+
+double development_length_simplified(double fy, double root_fc, double psi_t, double psi_e, double psi_g,
+                                     double lambda, double db, bool spacing_and_cover_ample) {
+  const bool small = db <= 19.1 + 1e-9;
+  const double k = spacing_and_cover_ample ? (small ? 2.1 : 1.7) : (small ? 1.4 : 1.1);
+  return fy * std::min(psi_t * psi_e, 1.7) * psi_g * db / (k * lambda * root_fc);
+}
+
+double development_length_general(double fy, double root_fc, double psi_t, double psi_e, double psi_s,
+                                  double psi_g, double lambda, double db, double cb) {
+  const double confinement = std::min(cb / db, 2.5);
+  return fy * std::min(psi_t * psi_e, 1.7) * psi_s * psi_g * db / (1.1 * lambda * root_fc * confinement);
+}
+
+double tension_lap_length(double ld, bool class_a) { return std::max((class_a ? 1.0 : 1.3) * ld, 300.0); }
+
+double extension_beyond_cutoff(double d, double db) { return std::max(d, 12.0 * db); }
+
 }  // namespace armature::aci318

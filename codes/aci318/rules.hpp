@@ -50,6 +50,37 @@ double crack_control_spacing(double fs, double clear_cover);
 double shrinkage_temperature_steel(double b, double h);   // 24.4.3.2: 0.0018 Ag
 double max_shrinkage_bar_spacing(double h);               // 24.4.3.3: min(5h, 450)
 
+// ---- Development and splices of straight bars in tension (25.4, 25.5, 7.7.3)
+// 25.4.2.5 Table: ψt = 1.3 for horizontal bars with more than 300 mm of
+// fresh concrete placed below them, else 1.0.
+double casting_position_factor(double concrete_below_mm);
+constexpr double coating_factor_uncoated = 1.0;             // 25.4.2.5 Table: ψe, uncoated bars
+// 25.4.2.5 Table: ψs = 0.8 for No. 19 and smaller, 1.0 for larger (25.4.2.4 only).
+double bar_size_factor(double db);
+// 25.4.2.5 Table: ψg = 1.0 for Grade 280 and 420, 1.15 for 550 (and the
+// in-lb Grade 80, 551.6 MPa), 1.3 for 690.
+double reinforcement_grade_factor(double fy);
+// 25.4.2.3: ld = fy ψt ψe ψg db / (k λ √f'c) with k = 2.1 (No. 19 and
+// smaller) or 1.7 (larger) where clear spacing ≥ 2 db and clear cover
+// ≥ db, else 1.4 or 1.1; ψt ψe ≤ 1.7 (25.4.2.2). √f'c as given (≤ 8.3 MPa, 25.4.1.4).
+double development_length_simplified(double fy, double root_fc, double psi_t, double psi_e, double psi_g,
+                                     double lambda, double db, bool spacing_and_cover_ample);
+// 25.4.2.4 (25.4.2.4a): ld = fy ψt ψe ψs ψg db / (1.1 λ √f'c ((cb + Ktr)/db)),
+// (cb + Ktr)/db ≤ 2.5, Ktr = 0 (no transverse reinforcement taken).
+double development_length_general(double fy, double root_fc, double psi_t, double psi_e, double psi_s,
+                                  double psi_g, double lambda, double db, double cb);
+constexpr double minimum_development_length_mm = 300.0;     // 25.4.2.1(b)
+// 25.5.2.1 Table 25.5.2.1: Class A (1.0 ld) where As,prov/As,req ≥ 2 over
+// the lap and at most half the bars are lapped there; Class B (1.3 ld)
+// otherwise; not less than 300 mm.
+double tension_lap_length(double ld, bool class_a);
+// 7.7.3.3: reinforcement extends beyond the point where it is no longer
+// required by max(d, 12 db).
+double extension_beyond_cutoff(double d, double db);
+// 7.7.3.8.2 (value from memory): bottom bars extend at least 150 mm into
+// the support; taken past the line of every support.
+constexpr double support_embedment_mm = 150.0;
+
 // ---- Shear (22.5.5.1) ----------------------------------------------------------
 double size_effect_factor(double d);                      // λs = √(2/(1 + 0.004 d)) ≤ 1
 // The form of 22.5.5.1 in either unit system: Vc = k λs λ ρw^(1/3) √f'c b d

@@ -58,4 +58,23 @@ double specified_cover(const std::string& exposure, double bar_diameter) {
   return 0.75;  // interior slabs, #11 and smaller
 }
 
+
+double development_length_simplified(double fy_psi, double root_fc_psi, double psi_t, double psi_e, double psi_g,
+                                     double lambda, double db_in, bool spacing_and_cover_ample) {
+  const bool small = db_in <= 0.75 + 1e-9;
+  const double k = spacing_and_cover_ample ? (small ? 25.0 : 20.0) : (small ? 50.0 / 3.0 : 40.0 / 3.0);
+  return fy_psi * std::min(psi_t * psi_e, 1.7) * psi_g * db_in / (k * lambda * root_fc_psi);
+}
+
+double development_length_general(double fy_psi, double root_fc_psi, double psi_t, double psi_e, double psi_s,
+                                  double psi_g, double lambda, double db_in, double cb_in) {
+  const double confinement = std::min(cb_in / db_in, 2.5);
+  return 3.0 / 40.0 * fy_psi / (lambda * root_fc_psi) * std::min(psi_t * psi_e, 1.7) * psi_s * psi_g * db_in /
+         confinement;
+}
+
+double tension_lap_length(double ld_in, bool class_a) { return std::max((class_a ? 1.0 : 1.3) * ld_in, 12.0); }
+
+double casting_position_factor(double concrete_below_in) { return concrete_below_in > 12.0 ? 1.3 : 1.0; }
+
 }  // namespace armature::aci318::inch_pound

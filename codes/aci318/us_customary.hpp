@@ -52,4 +52,18 @@ double minimum_slab_thickness(double span_in, SupportCondition condition, double
 // and smaller), 2 in (#6 and larger); cast against ground 3 in.
 double specified_cover(const std::string& exposure, double bar_diameter_in);
 
+// 25.4.2.3: ld = fy ψt ψe ψg db / (k λ √f'c) with k = 25 (#6 and
+// smaller) or 20 (larger) where clear spacing ≥ 2 db and clear cover ≥ db,
+// else 50/3 or 40/3; ψt ψe ≤ 1.7; in, psi.
+double development_length_simplified(double fy_psi, double root_fc_psi, double psi_t, double psi_e, double psi_g,
+                                     double lambda, double db_in, bool spacing_and_cover_ample);
+// 25.4.2.4 (25.4.2.4a): ld = (3/40)(fy/(λ √f'c)) ψt ψe ψs ψg db / ((cb + Ktr)/db), ≤ 2.5, Ktr = 0.
+double development_length_general(double fy_psi, double root_fc_psi, double psi_t, double psi_e, double psi_s,
+                                  double psi_g, double lambda, double db_in, double cb_in);
+constexpr double minimum_development_length_in = 12.0;      // 25.4.2.1(b)
+double tension_lap_length(double ld_in, bool class_a);      // 25.5.2.1: 1.0 or 1.3 ld, ≥ 12 in
+// 25.4.2.5 Table: ψt = 1.3 with more than 12 in of fresh concrete below.
+double casting_position_factor(double concrete_below_in);
+constexpr double support_embedment_in = 6.0;                // 7.7.3.8.2 (value from memory)
+
 }  // namespace armature::aci318::inch_pound

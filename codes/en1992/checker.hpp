@@ -71,7 +71,8 @@ class Checker final : public SlabChecker,
                       private CombinationRules,
                       private SectionRules,
                       private MemberRules,
-                      private PunchingRules {
+                      private PunchingRules,
+                      private DetailingRules {
  public:
   Checker(const Ndp& ndp, const En1990Factors& en1990, const Request& req);  // materials.cpp
 
@@ -79,7 +80,16 @@ class Checker final : public SlabChecker,
   const SectionRules& section_rules() const override { return *this; }
   const MemberRules& member_rules() const override { return *this; }
   const PunchingRules& punching_rules() const override { return *this; }
+  const DetailingRules* detailing_rules() const override { return this; }
   const Request& request() const override { return req_; }
+
+  // detailing.cpp
+  DetailLength shift(const BarDetailDemand& bar) const override;
+  DetailLength anchorage(const BarDetailDemand& bar) const override;
+  DetailLength end_support_anchorage(const BarDetailDemand& bar) const override;
+  DetailLength interior_support_embedment(const BarDetailDemand& bar) const override;
+  DetailLength lap(const BarDetailDemand& bar) const override;
+  DetailLength end_top_bar_extent(const BarDetailDemand& bar, double span_mm) const override;
 
   // plugin.cpp
   LoadBasis load_basis() const override;
@@ -173,6 +183,12 @@ class Checker final : public SlabChecker,
   void crack_check(CheckCollector& checks, const RegionDemand& g, double phi, double s, double d,
                    double As_req, double As_prov) const;
   void crack_width_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const;
+
+  // detailing.cpp: lb,rqd at a stress σsd with its steps (bond by 8.4.2).
+  struct BasicAnchorage {
+    double fbd = 0.0, lb_rqd = 0.0, alpha2 = 1.0;
+  };
+  BasicAnchorage basic_anchorage(Steps& st, const BarDetailDemand& bar, double sigma_sd) const;
 
   // members.cpp
   void fire_axis_distance_check(CheckCollector& checks, const RegionDemand& g, double c_nom, double phi) const;

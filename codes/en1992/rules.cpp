@@ -504,4 +504,60 @@ double final_autogenous_shrinkage(double fck) { return std::max(2.5 * (fck - 10.
 
 double autogenous_shrinkage_development(double t) { return 1.0 - std::exp(-0.2 * std::sqrt(t)); }  // (3.13)
 
+// ---- Anchorage and laps ------------------------------------------------------
+
+double design_tensile_strength(double fctm, double alpha_ct, double gamma_c) {
+  return alpha_ct * 0.7 * fctm / gamma_c;
+}
+
+bool good_bond_position(double h, double height_above_bottom) {
+  if (h <= 250.0) return true;
+  if (height_above_bottom <= 250.0) return true;
+  return h > 600.0 && h - height_above_bottom > 300.0;
+}
+
+double bond_quality_factor(bool good_bond) { return good_bond ? 1.0 : 0.7; }
+
+double bar_size_bond_factor(double phi) { return phi <= 32.0 ? 1.0 : (132.0 - phi) / 100.0; }
+
+double design_bond_stress(double eta1, double eta2, double fctd) { return 2.25 * eta1 * eta2 * fctd; }
+
+double basic_anchorage_length(double phi, double sigma_sd, double fbd) { return phi / 4.0 * sigma_sd / fbd; }
+
+double cover_factor_straight(double cd, double phi) {
+  return std::clamp(1.0 - 0.15 * (cd - phi) / phi, 0.7, 1.0);
+}
+
+double minimum_anchorage_length(double lb_rqd, double phi) {
+  return std::max({0.3 * lb_rqd, 10.0 * phi, 100.0});
+}
+
+double design_anchorage_length(double alpha1, double alpha2, double alpha3, double alpha4, double alpha5,
+                               double lb_rqd, double lb_min) {
+  const double a235 = std::max(alpha2 * alpha3 * alpha5, 0.7);
+  return std::max(alpha1 * a235 * alpha4 * lb_rqd, lb_min);
+}
+
+double lap_share_factor(double percent_lapped) {
+  return std::clamp(std::sqrt(percent_lapped / 25.0), 1.0, 1.5);
+}
+
+double minimum_lap_length(double alpha6, double lb_rqd, double phi) {
+  return std::max({0.3 * alpha6 * lb_rqd, 15.0 * phi, 200.0});
+}
+
+double design_lap_length(double alpha1, double alpha2, double alpha3, double alpha5, double alpha6,
+                         double lb_rqd, double l0_min) {
+  const double a235 = std::max(alpha2 * alpha3 * alpha5, 0.7);
+  return std::max(alpha1 * a235 * alpha6 * lb_rqd, l0_min);
+}
+
+double tensile_force_shift(double d) { return d; }
+
+double end_support_tensile_force(double V_Ed, double al, double z) { return std::abs(V_Ed) * al / z; }
+
+double interior_support_minimum_embedment(double phi) { return 10.0 * phi; }
+
+double partial_fixity_bar_extent(double span) { return 0.2 * span; }
+
 }  // namespace armature::en1992

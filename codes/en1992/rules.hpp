@@ -76,6 +76,45 @@ double max_distribution_bar_spacing_max_moment(double h);  // 9.3.1.1(3): min(3h
 double minimum_distribution_steel(double main_As_prov);    // 9.3.1.1(2): 20 %
 double minimum_clear_bar_spacing(double phi, double aggregate);  // 8.2(2)
 
+// ---- Anchorage and laps (EN 1992-1-1 8.4, 8.7, 9.2.1) ----------------------
+// 3.1.6(2) (3.16), Table 3.1: fctd = αct fctk,0.05/γc, fctk,0.05 = 0.7 fctm.
+double design_tensile_strength(double fctm, double alpha_ct, double gamma_c);
+// 8.4.2(2), Figure 8.2 (b)–(d): a horizontal bar is in good bond in a
+// member up to 250 mm deep; deeper, good within 250 mm of the bottom,
+// and (over 600 mm) anywhere more than 300 mm below the top.
+bool good_bond_position(double h, double height_above_bottom);
+double bond_quality_factor(bool good_bond);                 // 8.4.2(2): η1 = 1.0 good, 0.7 poor
+double bar_size_bond_factor(double phi);                    // 8.4.2(2): η2 = 1.0, (132 − φ)/100 for φ > 32
+double design_bond_stress(double eta1, double eta2, double fctd);  // 8.4.2(2) (8.2): fbd = 2.25 η1 η2 fctd
+// 8.4.3(2) (8.3): lb,rqd = (φ/4)(σsd/fbd).
+double basic_anchorage_length(double phi, double sigma_sd, double fbd);
+// 8.4.4(1) Table 8.2: α2 = 1 − 0.15 (cd − φ)/φ for a straight bar in
+// tension, within 0.7 to 1.0; cd = min(a/2, c1, c) (Figure 8.3 a).
+double cover_factor_straight(double cd, double phi);
+// 8.4.4(1) (8.5): lb,min = max(0.3 lb,rqd, 10 φ, 100 mm) in tension.
+double minimum_anchorage_length(double lb_rqd, double phi);
+// 8.4.4(1) (8.4): lbd = α1 α2 α3 α4 α5 lb,rqd, α2 α3 α5 ≥ 0.7, ≥ lb,min.
+double design_anchorage_length(double alpha1, double alpha2, double alpha3, double alpha4, double alpha5,
+                               double lb_rqd, double lb_min);
+// 8.7.3(1) Table 8.3 and (8.11 note): α6 = (ρ1/25)^0.5 within 1.0 to 1.5,
+// ρ1 the percentage of bars lapped within 0.65 l0 of the lap's centre.
+double lap_share_factor(double percent_lapped);
+// 8.7.3(1) (8.11): l0,min = max(0.3 α6 lb,rqd, 15 φ, 200 mm).
+double minimum_lap_length(double alpha6, double lb_rqd, double phi);
+// 8.7.3(1) (8.10): l0 = α1 α2 α3 α5 α6 lb,rqd ≥ l0,min (α2 α3 α5 ≥ 0.7).
+double design_lap_length(double alpha1, double alpha2, double alpha3, double alpha5, double alpha6,
+                         double lb_rqd, double l0_min);
+// 9.2.1.3(2), 9.3.1.1(4): the shift al = d in slabs without shear reinforcement.
+double tensile_force_shift(double d);
+// 9.2.1.4(2) (9.3): FE = |VEd| al/z + NEd, z = 0.9 d (common practice), NEd = 0.
+double end_support_tensile_force(double V_Ed, double al, double z);
+// 9.2.1.5(1): bottom bars at an interior support run at least 10 φ past
+// the face (straight bars).
+double interior_support_minimum_embedment(double phi);
+// 9.3.1.2(2): top steel at a simple end support runs at least 0.2 of the
+// adjacent span from the face of the support.
+double partial_fixity_bar_extent(double span);
+
 // ---- Crack control (EN 1992-1-1 7.3) --------------------------------------
 bool crack_check_needed(double h);  // 7.3.3(1): none for h ≤ 200 mm
 // σs,qp ≈ fyd (n_qp/n_uls)(As,req/As,prov)/δ (common practice estimate).

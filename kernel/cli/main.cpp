@@ -11,6 +11,7 @@
 // usage (messages on stderr, nothing on stdout), 3 internal error.
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <iostream>
@@ -47,7 +48,8 @@ int help() {
             << usage << "\n"
             << "  design FILE|-   design the request in FILE (- for standard input) and print\n"
                "                  its summary; --json prints the result JSON instead, --report\n"
-               "                  also writes the calculation record (.html or .md)\n"
+               "                  also writes the calculation record (.html or .md), --schedule\n"
+               "                  the bar schedule of a request with detailing (.csv)\n"
                "  optimise FILE|- search the product of the --vary axes for the passing slab of\n"
                "                  least objective (cost, the default; carbon; depth; steel_mass)\n"
                "                  with the rates of --rates (none is built in); prints the\n"
@@ -131,8 +133,33 @@ int check_report(const std::string& report, const std::string& file) {
 // Designs the request and writes what `design` writes: the summary (or the
 // result JSON) on stdout and the calculation record when asked. `before`
 // is printed ahead of the summary (not with --json).
+// --schedule: the bar schedule of a detailed design as CSV (mark, bar,
+// count, length_mm, shape, mass_kg), the caution on its first line.
+bool write_schedule(const armature::DesignRecord& record, const std::string& path) {
+  if (!record.detailing) {
+    std::cerr << "armature: --schedule: the request gives no detailing (add \"detailing\": {\"slab_width_m\": ...})\n";
+    return false;
+  }
+  std::string csv = std::string("# ") + armature::caution_text + "\n";
+  csv += "mark,bar,count,length_mm,shape,mass_kg\n";
+  char buf[64];
+  for (const auto& row : record.detailing->schedule) {
+    std::snprintf(buf, sizeof buf, "%d,%.0f,", row.count, row.length_mm);
+    csv += row.mark + "," + row.bar + "," + buf + row.shape + ",";
+    std::snprintf(buf, sizeof buf, "%.3f\n", row.mass_kg);
+    csv += buf;
+  }
+  try {
+    armature::write_file_atomically(path, csv);
+  } catch (const std::exception& e) {
+    std::cerr << "armature: cannot write the schedule: " << e.what() << "\n";
+    return false;
+  }
+  return true;
+}
+
 int design_and_write(const nlohmann::json& request, const std::string& report, bool as_json,
-                     const std::string& before = "") {
+                     const std::string& before = "", const std::string& schedule = "") {
   armature::DesignRecord record;
   try {
     record = armature::design(armature::Registry::shared(), request,
@@ -154,6 +181,7 @@ int design_and_write(const nlohmann::json& request, const std::string& report, b
       return exit_internal;
     }
   }
+  if (!schedule.empty() && !write_schedule(record, schedule)) return exit_input;
   std::string out = as_json ? armature::result_to_json_text(record, 2) + "\n"
                             : before + armature::format_summary(record);
   std::cout << out << std::flush;
@@ -161,7 +189,7 @@ int design_and_write(const nlohmann::json& request, const std::string& report, b
 }
 
 int design_command(const std::vector<std::string>& args) {
-  std::string file, report;
+  std::string file, report, schedule;
   bool as_json = false;
   for (std::size_t i = 0; i < args.size(); ++i) {
     const std::string& a = args[i];
@@ -170,15 +198,21 @@ int design_command(const std::vector<std::string>& args) {
     else if (a == "--report") {
       if (i + 1 >= args.size()) return usage_error("--report needs a file name (.html or .md)");
       report = args[++i];
+    } else if (a == "--schedule") {
+      if (i + 1 >= args.size()) return usage_error("--schedule needs a file name (.csv)");
+      schedule = args[++i];
     } else if (a.size() > 1 && a[0] == '-' && a != "-") return usage_error("unknown option " + a);
     else if (file.empty()) file = a;
     else return usage_error("design takes one request file, got also " + a);
   }
   if (file.empty()) return usage_error("design needs a request file, or - for standard input");
   if (int bad = check_report(report, file)) return bad;
+  if (!schedule.empty() && file != "-" && std::filesystem::exists(file) && std::filesystem::exists(schedule) &&
+      std::filesystem::equivalent(schedule, file))
+    return usage_error("--schedule would overwrite the request file " + file);
   nlohmann::json request;
   if (!read_json(file, "request", request)) return exit_input;
-  return design_and_write(request, report, as_json);
+  return design_and_write(request, report, as_json, "", schedule);
 }
 
 constexpr std::size_t max_candidates = 1000000;

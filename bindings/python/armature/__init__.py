@@ -51,7 +51,7 @@ def report(result, path):
 
 from .plots import add_caution, plot_envelopes, plot_plan, plot_plate, plot_study  # noqa: E402,F401
 from .studies import Optimum, optimise, request_for, sweep  # noqa: E402,F401
-from .tables import compare, to_frame  # noqa: E402,F401
+from .tables import compare, schedule, to_frame  # noqa: E402,F401
 
 __all__ = [
     "CAUTION",
@@ -70,6 +70,7 @@ __all__ = [
     "plot_study",
     "plugin_failures",
     "report",
+    "schedule",
     "request_for",
     "Result",
     "sweep",

@@ -23,7 +23,8 @@ def sweep(base_request, axes, threads=0):
     DataFrame, one row per combination: the axis values, ``status`` (pass,
     fail, or invalid with the message in ``error``), ``max_utilisation``,
     the governing check and where, ``steel_kg_m2`` (reinforcement mass per
-    m² of slab, an estimate: see DEVELOPERS.md), ``concrete_m3_m2``, and
+    m² of slab, an estimate: see DEVELOPERS.md; the bar schedule's mass
+    when the request gives ``detailing``), ``concrete_m3_m2``, and
     per region its bar, spacing and provided area (and, when some region
     of the study is checked with given bars, ``<region> bars_given``).
     ``attrs`` holds the caution, the base request and the axis paths (for

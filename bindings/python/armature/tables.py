@@ -26,6 +26,26 @@ def to_frame(result):
     return frame
 
 
+SCHEDULE_COLUMNS = ["mark", "bar", "count", "length_mm", "shape", "mass_kg"]
+
+
+def schedule(result):
+    """The bar schedule of a result designed with `detailing`, as a
+    DataFrame: one row per mark (mark, bar, count, length_mm, shape,
+    mass_kg); attrs carry the total mass, the kg/m² and the caution."""
+    if "detailing" not in result:
+        raise InputError("detailing: the result has no bar schedule; design the request with "
+                         "\"detailing\": {\"slab_width_m\": ...}")
+    pd = _pandas()
+    d = result["detailing"]
+    rows = [{k: (int(row[k]) if k == "count" else row[k]) for k in SCHEDULE_COLUMNS} for row in d["schedule"]]
+    frame = pd.DataFrame(rows, columns=SCHEDULE_COLUMNS)
+    frame.attrs["total_mass_kg"] = d["total_mass_kg"]
+    frame.attrs["mass_per_area_kg_m2"] = d["mass_per_area_kg_m2"]
+    frame.attrs["caution"] = CAUTION
+    return frame
+
+
 def _with_code(request, spec):
     code, _, variant = spec.partition(":")
     req = copy.deepcopy(request)

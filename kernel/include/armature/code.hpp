@@ -325,6 +325,85 @@ class ForwardingPunchingRules : public PunchingRules {
   const PunchingRules* inner_;
 };
 
+// ---- Detailing: the lengths of bars (DetailingRules) ----------------------
+// One bar of a region as the detailing rules see it: its size, spacing,
+// position in the section and the demand where it is anchored.
+struct BarDetailDemand {
+  std::string where;         // "span 1", "support 2"
+  Face face = Face::bottom;  // the face the bar lies at
+  double diameter_mm = 0.0;
+  double spacing_mm = 0.0;   // centre to centre
+  double cover_mm = 0.0;     // nominal cover to the bar
+  double d_mm = 0.0;         // effective depth of the region
+  double As_prov_mm2 = 0.0;  // of the region, for the strip width
+  BondChoice bond = BondChoice::automatic;
+  // End supports: the design shear at the support (N, for the strip width)
+  // whose tensile force the bottom bars anchor there.
+  double V_Ed_N = 0.0;
+  // Laps: the share of the bars lapped at one section (0.5: alternate
+  // laps staggered).
+  double lapped_share = 1.0;
+};
+
+// A length the code requires, with its clause and the steps of its
+// derivation (always filled: the record prints every anchorage and lap).
+struct DetailLength {
+  double length_mm = 0.0;
+  std::string clause;
+  std::vector<Step> steps;
+};
+
+// The code's rules for the lengths of bars: how far past the point where
+// a bar is no longer needed it runs (the shift), its anchorage there, at
+// end and interior supports, and its laps. Straight bars throughout.
+class DetailingRules {
+ public:
+  virtual ~DetailingRules() = default;
+  // The shift of the tensile force beyond the point where the bar is no
+  // longer needed.
+  virtual DetailLength shift(const BarDetailDemand& bar) const = 0;
+  // Anchorage (development) length of a straight bar in tension at its
+  // full design strength.
+  virtual DetailLength anchorage(const BarDetailDemand& bar) const = 0;
+  // How far bottom bars run past the centreline of an end (simple)
+  // support (no support width is given).
+  virtual DetailLength end_support_anchorage(const BarDetailDemand& bar) const = 0;
+  // The least embedment of bottom bars past the centreline of an
+  // interior support.
+  virtual DetailLength interior_support_embedment(const BarDetailDemand& bar) const = 0;
+  // Lap length of bars in tension, bar.lapped_share of them lapped at one
+  // section.
+  virtual DetailLength lap(const BarDetailDemand& bar) const = 0;
+  // How far past the line of an end support that the design takes as
+  // simple the top bars there (the code's steel for partial fixity) run
+  // into the span of length span_mm at least; none (0) when the code sets
+  // no such length (the shift and anchorage then govern).
+  virtual DetailLength end_top_bar_extent(const BarDetailDemand&, double /*span_mm*/) const { return {}; }
+};
+
+class ForwardingDetailingRules : public DetailingRules {
+ public:
+  explicit ForwardingDetailingRules(const DetailingRules& inner) : inner_(&inner) {}
+  DetailLength shift(const BarDetailDemand& bar) const override { return inner_->shift(bar); }
+  DetailLength anchorage(const BarDetailDemand& bar) const override { return inner_->anchorage(bar); }
+  DetailLength end_support_anchorage(const BarDetailDemand& bar) const override {
+    return inner_->end_support_anchorage(bar);
+  }
+  DetailLength interior_support_embedment(const BarDetailDemand& bar) const override {
+    return inner_->interior_support_embedment(bar);
+  }
+  DetailLength lap(const BarDetailDemand& bar) const override { return inner_->lap(bar); }
+  DetailLength end_top_bar_extent(const BarDetailDemand& bar, double span_mm) const override {
+    return inner_->end_top_bar_extent(bar, span_mm);
+  }
+
+ protected:
+  const DetailingRules& inner() const { return *inner_; }
+
+ private:
+  const DetailingRules* inner_;
+};
+
 // The code's session for one request: the request's resolved materials,
 // bars and defaults, and the code's rules in three parts. A house plug-in
 // wraps the part it changes and hands back the others as they are
@@ -336,6 +415,9 @@ class SlabChecker {
   virtual const SectionRules& section_rules() const = 0;
   virtual const MemberRules& member_rules() const = 0;
   virtual const PunchingRules& punching_rules() const = 0;
+  // The lengths of bars (detailing); none when the code gives no
+  // detailing rules (the kernel then refuses a request for detailing).
+  virtual const DetailingRules* detailing_rules() const { return nullptr; }
   // The request this session was opened for (Code::begin), whose slab
   // gives the sections their width and thickness.
   virtual const Request& request() const = 0;
@@ -445,6 +527,7 @@ class ForwardingSlabChecker : public SlabChecker {
   const SectionRules& section_rules() const override { return inner_->section_rules(); }
   const MemberRules& member_rules() const override { return inner_->member_rules(); }
   const PunchingRules& punching_rules() const override { return inner_->punching_rules(); }
+  const DetailingRules* detailing_rules() const override { return inner_->detailing_rules(); }
   const Request& request() const override { return inner_->request(); }
   LoadBasis load_basis() const override { return inner_->load_basis(); }
   const std::vector<BarOption>& bar_options() const override { return inner_->bar_options(); }

@@ -3,6 +3,7 @@
 #pragma once
 
 #include <array>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -65,6 +66,57 @@ struct DistributionRecord {
   double As_req_mm2 = 0.0;
 };
 
+// Detailing (detailing of the request): every bar of the strip with its
+// extent along it, and the schedule. Positions are from the strip's left
+// end (support 1, or a left cantilever's tip).
+struct DetailLap {
+  double from_mm = 0.0, to_mm = 0.0;  // along the strip
+};
+struct DetailedBar {
+  std::string mark;
+  std::string where;          // "span 1", "support 2", "distribution, bottom"
+  Face face = Face::bottom;
+  bool distribution = false;  // a distribution bar (runs across the strip)
+  std::string bar;
+  double diameter_mm = 0.0;
+  double spacing_mm = 0.0;
+  int count = 0;              // floor(extent across / spacing) + 1, or its share of alternate laps
+  double start_mm = 0.0, end_mm = 0.0;  // main bars: along the strip; distribution: across it
+  double along_from_mm = 0.0, along_to_mm = 0.0;  // distribution: the part of the strip they are spread over
+  double length_mm = 0.0;     // cut length
+  std::string shape = "straight";
+  double anchorage_start_mm = 0.0, anchorage_end_mm = 0.0;  // past the shifted zero point or support line
+  double shift_mm = 0.0;
+  std::vector<DetailLap> laps;  // lap zones at this bar's ends
+  std::string clause;
+};
+struct ScheduleRow {
+  std::string mark;
+  std::string bar;
+  double diameter_mm = 0.0;
+  int count = 0;
+  double length_mm = 0.0;
+  std::string shape;
+  double mass_kg = 0.0;
+};
+// A length the code gave, for the record: which bar, what, the code's derivation.
+struct DetailDerivation {
+  std::string where;  // "span 1, bottom"
+  std::string what;   // "anchorage", "lap", ...
+  DetailLength length;
+};
+struct DetailingRecord {
+  double slab_width_mm = 0.0;
+  double stock_length_mm = 0.0;
+  double strip_length_mm = 0.0;  // between the strip's ends
+  std::vector<DetailedBar> bars;
+  std::vector<ScheduleRow> schedule;
+  double total_mass_kg = 0.0;
+  double mass_per_area_kg_m2 = 0.0;      // over slab width × strip length
+  std::vector<DiagramPoint> envelope;    // the moment envelope the bars cover
+  std::vector<DetailDerivation> derivations;
+};
+
 struct DesignRecord {
   CodeIdentity code;
   bool pass = false;
@@ -113,6 +165,7 @@ struct DesignRecord {
 
   // Every check of every region, support and span, in that order.
   std::vector<const Check*> all_checks() const;
+  std::optional<DetailingRecord> detailing;  // when the request asks for it
 };
 
 // Parses and validates a JSON request (throws InputError listing every

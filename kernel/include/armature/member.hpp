@@ -83,6 +83,11 @@ class Member {
                                                    std::vector<std::string>& warnings) const = 0;
   // Static equilibrium (EQU combinations) of each part that can overturn.
   virtual std::vector<EquilibriumDemand> equilibrium_demands(const MemberLoads& loads) const = 0;
+  // After analyse: the moment envelope the bars are detailed to, per span,
+  // finely sampled: the ULS cases and, where a part can overturn, its EQU
+  // cases with the parts that hold it down unloaded (their permanent
+  // actions at the favourable factor alone).
+  virtual std::vector<std::vector<DiagramPoint>> detailing_diagrams(const MemberLoads& loads) const = 0;
 };
 
 // slab.support_widths_mm against a strip's spans and ends, for every entry
@@ -109,6 +114,7 @@ class OneWayStrip final : public Member {
   std::vector<RegionDemand> design_regions(const RegionRules& rules,
                                            std::vector<std::string>& warnings) const override;
   std::vector<EquilibriumDemand> equilibrium_demands(const MemberLoads& loads) const override;
+  std::vector<std::vector<DiagramPoint>> detailing_diagrams(const MemberLoads& loads) const override;
 
   const StripModel& model() const { return model_; }
 

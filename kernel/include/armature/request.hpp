@@ -151,6 +151,21 @@ struct ServiceabilityInput {
   bool calculated_deflection() const { return deflection_method() != DeflectionMethod::span_depth; }
 };
 
+// Detailing of the bars (detailing of the request, contract-v2 section 5).
+// The bond condition asked for (detailing.bond): the code's rule by the
+// bar's position ("auto"), or good or poor throughout.
+enum class BondChoice { automatic, good, poor };
+// Where bars stop (detailing.curtail): "none", every bar runs through its
+// region's whole zone.
+enum class Curtailment { none };
+struct DetailingInput {
+  bool requested = false;        // the request gives `detailing`
+  double slab_width_mm = 0.0;    // width of the floor detailed (slab_width_m)
+  double stock_length_mm = 12000.0;
+  BondChoice bond = BondChoice::automatic;
+  Curtailment curtail = Curtailment::none;
+};
+
 // Title-block information of the calculation record (all optional).
 struct ProjectInfo {
   std::string name, reference, designer, checker;
@@ -171,6 +186,7 @@ struct Request {
   FireInput fire;
   DesignOptions design;
   ServiceabilityInput serviceability;
+  DetailingInput detailing;
   ReportUnits report_units = ReportUnits::SI;
   ProjectInfo project;
 };

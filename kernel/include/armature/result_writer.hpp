@@ -87,6 +87,114 @@ void write_checks(W& w, const std::vector<Check>& checks, bool with_steps) {
   w.end();
 }
 
+// detailing of the result (contract-v2 section 5): lengths along the
+// strip in metres from its left end, cut lengths in mm.
+template <class W>
+void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
+  using namespace result_units;
+  w.begin_object();
+  w.key("slab_width_m"), w.value(d.slab_width_mm * m_per_mm);
+  w.key("stock_length_m"), w.value(d.stock_length_mm * m_per_mm);
+  w.key("bars");
+  w.begin_array();
+  for (const auto& b : d.bars) {
+    w.begin_object();
+    w.key("mark"), w.value(b.mark);
+    w.key("where"), w.value(b.where);
+    w.key("face"), w.value(b.face == Face::top ? "top" : "bottom");
+    w.key("role"), w.value(b.distribution ? "distribution" : "main");
+    w.key("bar"), w.value(b.bar);
+    w.key("diameter_mm"), w.value(b.diameter_mm);
+    w.key("spacing_mm"), w.value(b.spacing_mm);
+    w.key("count"), w.value(static_cast<double>(b.count));
+    // Along the strip (distribution bars: the part they are spread over,
+    // with their own extent across the strip in across_m).
+    w.key("start_m"), w.value((b.distribution ? b.along_from_mm : b.start_mm) * m_per_mm);
+    w.key("end_m"), w.value((b.distribution ? b.along_to_mm : b.end_mm) * m_per_mm);
+    if (b.distribution) {
+      w.key("across_m");
+      w.begin_object();
+      w.key("from"), w.value(b.start_mm * m_per_mm);
+      w.key("to"), w.value(b.end_mm * m_per_mm);
+      w.end();
+    }
+    w.key("length_mm"), w.value(b.length_mm);
+    w.key("shape"), w.value(b.shape);
+    w.key("anchorage_mm");
+    w.begin_object();
+    w.key("start"), w.value(b.anchorage_start_mm);
+    w.key("end"), w.value(b.anchorage_end_mm);
+    w.end();
+    w.key("shift_mm"), w.value(b.shift_mm);
+    w.key("laps");
+    w.begin_array();
+    for (const auto& l : b.laps) {
+      w.begin_object();
+      w.key("from_m"), w.value(l.from_mm * m_per_mm);
+      w.key("to_m"), w.value(l.to_mm * m_per_mm);
+      w.key("length_mm"), w.value(l.to_mm - l.from_mm);
+      w.end();
+    }
+    w.end();
+    w.key("clause"), w.value(b.clause);
+    w.end();
+  }
+  w.end();
+  w.key("schedule");
+  w.begin_array();
+  for (const auto& row : d.schedule) {
+    w.begin_object();
+    w.key("mark"), w.value(row.mark);
+    w.key("bar"), w.value(row.bar);
+    w.key("diameter_mm"), w.value(row.diameter_mm);
+    w.key("count"), w.value(static_cast<double>(row.count));
+    w.key("length_mm"), w.value(row.length_mm);
+    w.key("shape"), w.value(row.shape);
+    w.key("mass_kg"), w.value(row.mass_kg);
+    w.end();
+  }
+  w.end();
+  w.key("total_mass_kg"), w.value(d.total_mass_kg);
+  w.key("mass_per_area_kg_m2"), w.value(d.mass_per_area_kg_m2);
+  w.key("envelope");
+  w.begin_array();
+  for (const auto& p : d.envelope) {
+    w.begin_object();
+    w.key("x_m"), w.value(p.x_mm * m_per_mm);
+    w.key("M_max_kNm"), w.value(p.M_max * kNm_per_Nmm);
+    w.key("M_min_kNm"), w.value(p.M_min * kNm_per_Nmm);
+    w.end();
+  }
+  w.end();
+  w.key("derivations");
+  w.begin_array();
+  for (const auto& dv : d.derivations) {
+    w.begin_object();
+    w.key("where"), w.value(dv.where);
+    w.key("what"), w.value(dv.what);
+    w.key("length_mm"), w.value(dv.length.length_mm);
+    w.key("clause"), w.value(dv.length.clause);
+    if (with_steps) {
+      w.key("steps");
+      w.begin_array();
+      for (const auto& s : dv.length.steps) {
+        w.begin_object();
+        w.key("symbol"), w.value(s.symbol);
+        w.key("expression"), w.value(s.expression);
+        w.key("substituted"), w.value(s.substituted);
+        w.key("result"), w.value(s.result);
+        w.key("unit"), w.value(s.unit);
+        w.key("clause"), w.value(s.clause);
+        w.end();
+      }
+      w.end();
+    }
+    w.end();
+  }
+  w.end();
+  w.end();
+}
+
 template <class W>
 void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
   using namespace result_units;
@@ -210,6 +318,7 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
   write_bars(w, r.distribution.bars);
   w.key("As_req_mm2"), w.value(r.distribution.As_req_mm2);
   w.end();
+  if (r.detailing) w.key("detailing"), write_detailing(w, *r.detailing, with_steps);
   w.key("checks");
   w.begin_array();
   for (const Check* c : r.all_checks()) write_check(w, *c, with_steps);

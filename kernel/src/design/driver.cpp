@@ -16,6 +16,7 @@
 
 #include "armature/analysis.hpp"
 #include "armature/member.hpp"
+#include "detailing.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
 #include "call_code.hpp"
@@ -218,6 +219,20 @@ BarPlan plan_bars(const SlabChecker& checker, const CodeIdentity& code, const Re
   return plan;
 }
 
+// detailing of the request: the code's detailing rules on the member's
+// detailing envelope (a code giving none refuses the request's field).
+void detail_design(const SlabChecker& checker, const Request& req, const Member& member, const MemberLoads& loads,
+                   DesignRecord& rec) {
+  const DetailingRules* rules =
+      call_code(rec.code, "detailing rules", [&] { return checker.detailing_rules(); });
+  if (!rules) {
+    InputProblems problems;
+    problems.add("detailing", rec.code.id + " (" + rec.code.variant + ") gives no detailing rules");
+    problems.raise_if_any();
+  }
+  rec.detailing = detail_strip(*rules, rec.code, req, rec, member.detailing_diagrams(loads));
+}
+
 DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Member& member,
                               Detail detail) {
   if (detail == Detail::verdict) detail = Detail::checks;
@@ -369,6 +384,8 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
     double& c = rec.face_cover_mm[static_cast<std::size_t>(r.face)];
     c = std::max(c, r.cover_mm);
   }
+
+  if (req.detailing.requested) detail_design(*checker, req, member, loads, rec);
 
   rec.pass = distribution_ok;
   rec.max_utilisation = 0.0;

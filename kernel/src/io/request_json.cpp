@@ -733,6 +733,29 @@ void read_serviceability(const json& j, InputProblems& problems, ServiceabilityI
   }
 }
 
+// detailing (contract-v2 section 5).
+void read_detailing(const json& j, InputProblems& problems, DetailingInput& d) {
+  ObjectReader r(j, "detailing", problems, {"slab_width_m", "stock_length_m", "bond", "curtail"});
+  d.requested = true;
+  if (auto w = r.in_range(r.number("slab_width_m", true), "slab_width_m", 0, 1000, "m", true))
+    d.slab_width_mm = *w * 1000.0;
+  if (auto s = r.in_range(r.number("stock_length_m"), "stock_length_m", 0, 100, "m", true))
+    d.stock_length_mm = *s * 1000.0;
+  if (auto b = r.text("bond")) {
+    if (*b == "auto") d.bond = BondChoice::automatic;
+    else if (*b == "good") d.bond = BondChoice::good;
+    else if (*b == "poor") d.bond = BondChoice::poor;
+    else problems.add("detailing.bond", "must be \"auto\", \"good\" or \"poor\", got \"" + *b + "\"");
+  }
+  if (auto c = r.text("curtail")) {
+    if (*c == "none") d.curtail = Curtailment::none;
+    else if (*c == "alternate")
+      problems.add("detailing.curtail", "\"alternate\": stopping alternate bars is not available yet; give \"none\" "
+                                        "or leave the field out");
+    else problems.add("detailing.curtail", "must be \"none\" or \"alternate\", got \"" + *c + "\"");
+  }
+}
+
 }  // namespace
 
 bool request_gives(const json& j, const std::string& field) {
@@ -763,7 +786,7 @@ Request request_from_json(const json& j, InputProblems& problems) {
   }
   ObjectReader r(j, "", problems,
                  {"code", "variant", "slab", "concrete", "reinforcement", "loads", "durability",
-                  "fire", "design", "serviceability", "report_units", "project"});
+                  "fire", "design", "serviceability", "report_units", "project", "detailing"});
   if (const json* p = r.object("project")) {
     ObjectReader pr(*p, "project", problems, {"name", "reference", "designer", "checker"});
     req.project.name = pr.text("name").value_or("");
@@ -793,6 +816,7 @@ Request request_from_json(const json& j, InputProblems& problems) {
   if (const json* f = r.object("fire")) read_fire(*f, problems, req.fire);
   if (const json* d = r.object("design")) read_design(*d, problems, req.design);
   if (const json* s = r.object("serviceability")) read_serviceability(*s, problems, req.serviceability);
+  if (const json* d = r.object("detailing")) read_detailing(*d, problems, req.detailing);
   return req;
 }
 

@@ -424,4 +424,25 @@ std::vector<EquilibriumDemand> OneWayStrip::equilibrium_demands(const MemberLoad
   return out;
 }
 
+// Each cantilever under every EQU combination, loaded (unfavourable) while
+// every other span carries its permanent actions at the favourable factor
+// alone: the hogging then reaches farthest into the back span.
+std::vector<std::vector<DiagramPoint>> OneWayStrip::detailing_diagrams(const MemberLoads& loads) const {
+  const StripModel& m = model_;
+  const std::size_t n = m.span_count();
+  std::vector<CaseResult> cases = cases_;
+  std::vector<std::vector<SpanLoading>> held;
+  for (std::size_t c = 0; c < n; ++c) {
+    if (!m.is_cantilever(c) || n < 2) continue;
+    std::vector<bool> loaded(n, false);
+    loaded[c] = true;
+    for (const auto& k : loads.combinations)
+      if (k.limit_state == LimitState::equilibrium)
+        held.push_back(loading_of(loads.actions, k, loaded, m.spans_mm, width_mm_));
+  }
+  if (!held.empty())
+    for (auto& r : analyse_load_cases(m, held)) cases.push_back(std::move(r));
+  return envelope_diagrams(m, cases, 96);
+}
+
 }  // namespace armature

@@ -28,6 +28,8 @@ double bar_length_mm(const DesignRecord& r, const RegionRecord& g) {
 }  // namespace
 
 double steel_mass_kg_per_m2(const DesignRecord& r) {
+  // A detailed design: the bar schedule's mass (every bar as cut) over the floor.
+  if (r.detailing) return r.detailing->mass_per_area_kg_m2;
   double strip_length = 0.0;
   for (double L : r.spans_mm) strip_length += L;
   if (strip_length <= 0.0 || r.strip_width_mm <= 0.0) return 0.0;

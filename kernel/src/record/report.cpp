@@ -294,6 +294,149 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
   return o + "</svg>";
 }
 
+// ---- Detailing ----------------------------------------------------------------
+// The strip in elevation, lengths to scale: the slab's outline, the
+// supports, every main bar as a line with its mark (bottom bars below the
+// slab's middle, top bars above, each on a row of its own so they read
+// apart), laps drawn heavy, distribution bars as a row of dots each.
+std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
+  const RecordUnits u = units_of(r);
+  double lo = 0.0, hi = d.strip_length_mm;
+  for (const auto& b : d.bars)
+    if (!b.distribution) lo = std::min(lo, b.start_mm), hi = std::max(hi, b.end_mm);
+  const double width = 660, pad = 30, row = 13;
+  std::size_t tops = 0, bottoms = 0;
+  for (const auto& b : d.bars)
+    if (!b.distribution) (b.face == Face::top ? tops : bottoms) += 1;
+  const double slab_top = 24 + row * static_cast<double>(tops + 1), slab_h = 22;
+  const double height = slab_top + slab_h + row * static_cast<double>(bottoms + 1) + 34;
+  auto sx = [&](double x) { return pad + (width - 2 * pad) * (x - lo) / (hi - lo); };
+  std::string o = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" + n4(width) + "\" height=\"" + n4(height) +
+                  "\" viewBox=\"0 0 " + n4(width) + " " + n4(height) +
+                  "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" aria-label=\"bar layout in elevation\">";
+  o += "<text x=\"4\" y=\"12\">Bars in elevation, lengths to scale (" + std::string(u.along_u()) +
+       "); marks at each bar, laps heavy</text>";
+  o += "<rect x=\"" + n4(sx(0)) + "\" y=\"" + n4(slab_top) + "\" width=\"" + n4(sx(d.strip_length_mm) - sx(0)) +
+       "\" height=\"" + n4(slab_h) + "\" fill=\"none\" stroke=\"#000\" stroke-width=\"1\"/>";
+  double x = 0.0;
+  for (std::size_t j = 0; j <= r.spans_mm.size(); ++j) {
+    const bool free = (j == 0 && r.ends[0] == EndSupport::free) ||
+                      (j == r.spans_mm.size() && r.ends[1] == EndSupport::free);
+    if (!free) {
+      const double px = sx(x), py = slab_top + slab_h;
+      o += "<polygon points=\"" + n4(px) + "," + n4(py) + " " + n4(px - 5) + "," + n4(py + 8) + " " + n4(px + 5) +
+           "," + n4(py + 8) + "\" fill=\"none\" stroke=\"#000\"/>";
+    }
+    if (j < r.spans_mm.size()) x += r.spans_mm[j];
+  }
+  std::size_t t = 0, bt = 0;
+  for (const auto& b : d.bars) {
+    if (b.distribution) continue;
+    const double y = b.face == Face::top ? slab_top - row * static_cast<double>(++t) + 4
+                                         : slab_top + slab_h + row * static_cast<double>(++bt) + 6;
+    o += "<line x1=\"" + n4(sx(b.start_mm)) + "\" y1=\"" + n4(y) + "\" x2=\"" + n4(sx(b.end_mm)) + "\" y2=\"" +
+         n4(y) + "\" stroke=\"#000\" stroke-width=\"1\"/>";
+    for (const auto& l : b.laps)
+      o += "<line x1=\"" + n4(sx(l.from_mm)) + "\" y1=\"" + n4(y) + "\" x2=\"" + n4(sx(l.to_mm)) + "\" y2=\"" + n4(y) +
+           "\" stroke=\"#000\" stroke-width=\"3\"/>";
+    o += "<text x=\"" + n4(sx(b.start_mm) + 2) + "\" y=\"" + n4(y - 2) + "\">" + esc(b.mark) + "</text>";
+  }
+  // Distribution bars: dots spread over their extent (at most 60 a set), inside the main bars.
+  for (const auto& b : d.bars) {
+    if (!b.distribution || b.count < 1) continue;
+    const double y = b.face == Face::top ? slab_top + 4 : slab_top + slab_h - 4;
+    const int dots = std::min(b.count, 60);
+    for (int k = 0; k < dots; ++k) {
+      const double xx = dots == 1 ? b.along_from_mm
+                                  : b.along_from_mm + (b.along_to_mm - b.along_from_mm) * k / (dots - 1);
+      o += "<circle cx=\"" + n4(sx(xx)) + "\" cy=\"" + n4(y) + "\" r=\"1.2\" fill=\"#000\"/>";
+    }
+  }
+  o += "<text x=\"4\" y=\"" + n4(height - 4) + "\">strip " + esc(u.along(d.strip_length_mm)) +
+       " between its ends; dots: distribution bars (marks in the table)</text>";
+  return o + "</svg>";
+}
+
+std::string detail_position(const RecordUnits& u, double mm) { return n4(u.along_v(mm)); }
+
+std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
+  const RecordUnits u = units_of(r);
+  std::string o = "<h3>Detailing: bars, laps and schedule</h3>\n";
+  o += "<p>Slab width " + esc(u.along(d.slab_width_mm)) + ", stock length " + esc(u.along(d.stock_length_mm)) +
+       "; each bar covers the moment envelope (with a cantilever's EQU cases) past its zero points by the shift "
+       "and the anchorage.</p>\n";
+  o += detailing_svg(r, d) + "\n";
+  o += "<table>\n<tr><th>mark</th><th>where</th><th>face</th><th>bar</th><th class=\"num\">count</th><th "
+       "class=\"num\">from, " + std::string(u.along_u()) + "</th><th class=\"num\">to, " + u.along_u() +
+       "</th><th class=\"num\">length, mm</th><th>anchorage, mm (start, end)</th><th>laps</th></tr>\n";
+  for (const auto& b : d.bars) {
+    std::string laps;
+    for (const auto& l : b.laps)
+      laps += (laps.empty() ? "" : "; ") + detail_position(u, l.from_mm) + " to " + detail_position(u, l.to_mm);
+    o += "<tr><td>" + esc(b.mark) + "</td><td>" + esc(b.where) + "</td><td>" + (b.face == Face::top ? "top" : "bottom") +
+         "</td><td>" + esc(u.bars({b.bar, b.diameter_mm, b.spacing_mm, 0.0})) + "</td><td class=\"num\">" +
+         std::to_string(b.count) + "</td><td class=\"num\">" +
+         detail_position(u, b.distribution ? b.along_from_mm : b.start_mm) + "</td><td class=\"num\">" +
+         detail_position(u, b.distribution ? b.along_to_mm : b.end_mm) + "</td><td class=\"num\">" + n4(b.length_mm) +
+         "</td><td>" + (b.distribution ? std::string("across the strip") : n4(b.anchorage_start_mm) + ", " +
+                                                                            n4(b.anchorage_end_mm)) +
+         "</td><td>" + esc(laps.empty() ? "none" : laps) + "</td></tr>\n";
+  }
+  o += "</table>\n<h4>Bar schedule</h4>\n<table>\n<tr><th>mark</th><th>bar</th><th class=\"num\">count</th><th "
+       "class=\"num\">length, mm</th><th>shape</th><th class=\"num\">mass, kg</th></tr>\n";
+  for (const auto& row : d.schedule)
+    o += "<tr><td>" + esc(row.mark) + "</td><td>" + esc(row.bar) + "</td><td class=\"num\">" + std::to_string(row.count) +
+         "</td><td class=\"num\">" + n4(row.length_mm) + "</td><td>" + esc(row.shape) + "</td><td class=\"num\">" +
+         n4(row.mass_kg) + "</td></tr>\n";
+  o += "</table>\n<p>Total " + n4(d.total_mass_kg) + " kg, " + n4(d.mass_per_area_kg_m2) +
+       " kg/m² of floor (0.00617 d² kg/m, common practice).</p>\n";
+  for (const auto& dv : d.derivations) {
+    o += "<div class=\"check\">\n<h4>" + esc(dv.what) + " of " + esc(dv.where) + ": " + esc(dv.length.clause) +
+         "</h4>\n<table class=\"steps\">\n";
+    for (const auto& s : dv.length.steps) {
+      const std::string ex = expression_of(s), sub = substitution(s);
+      o += "<tr><td>" + esc(s.symbol) + "</td><td>" + (ex.empty() ? "" : "= " + esc(ex)) + "</td><td>" +
+           (sub.empty() ? "" : "= " + esc(sub)) + "</td><td class=\"num\">= " + esc(n4(s.result) + unit_text(s.unit)) +
+           "</td><td class=\"clause\">" + esc(s.clause) + "</td></tr>\n";
+    }
+    o += "</table>\n</div>\n";
+  }
+  return o;
+}
+
+std::string detailing_markdown(const DesignRecord& r, const DetailingRecord& d) {
+  const RecordUnits u = units_of(r);
+  std::string o = "\n### Detailing: bars, laps and schedule\n\nSlab width " + u.along(d.slab_width_mm) +
+                  ", stock length " + u.along(d.stock_length_mm) +
+                  "; each bar covers the moment envelope (with a cantilever's EQU cases) past its zero points by "
+                  "the shift and the anchorage.\n\n| mark | where | face | bar | count | from, " +
+                  std::string(u.along_u()) + " | to, " + u.along_u() + " | length, mm | anchorage, mm | laps |\n"
+                  "|---|---|---|---|---:|---:|---:|---:|---|---|\n";
+  for (const auto& b : d.bars) {
+    std::string laps;
+    for (const auto& l : b.laps)
+      laps += (laps.empty() ? "" : "; ") + detail_position(u, l.from_mm) + " to " + detail_position(u, l.to_mm);
+    o += "| " + b.mark + " | " + b.where + " | " + (b.face == Face::top ? "top" : "bottom") + " | " +
+         u.bars({b.bar, b.diameter_mm, b.spacing_mm, 0.0}) + " | " + std::to_string(b.count) + " | " +
+         detail_position(u, b.distribution ? b.along_from_mm : b.start_mm) + " | " +
+         detail_position(u, b.distribution ? b.along_to_mm : b.end_mm) + " | " + n4(b.length_mm) + " | " +
+         (b.distribution ? std::string("across the strip") : n4(b.anchorage_start_mm) + ", " + n4(b.anchorage_end_mm)) +
+         " | " + (laps.empty() ? "none" : laps) + " |\n";
+  }
+  o += "\n**Bar schedule**\n\n| mark | bar | count | length, mm | shape | mass, kg |\n|---|---|---:|---:|---|---:|\n";
+  for (const auto& row : d.schedule)
+    o += "| " + row.mark + " | " + row.bar + " | " + std::to_string(row.count) + " | " + n4(row.length_mm) + " | " +
+         row.shape + " | " + n4(row.mass_kg) + " |\n";
+  o += "\nTotal " + n4(d.total_mass_kg) + " kg, " + n4(d.mass_per_area_kg_m2) +
+       " kg/m² of floor (0.00617 d² kg/m, common practice).\n";
+  for (const auto& dv : d.derivations) {
+    o += "\n**" + dv.what + " of " + dv.where + "** (" + dv.length.clause + ")\n\n";
+    for (const auto& s : dv.length.steps)
+      o += "- " + step_line(s) + (s.clause.empty() ? "" : " (" + s.clause + ")") + "\n";
+  }
+  return o;
+}
+
 // Cross-section of the strip, to scale, with the region's bars.
 // Long-term curvature (1/km) or deflection along the spans whose
 // deflection the code calculates, in the style of the envelopes: sagging
@@ -593,6 +736,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   }
   o += "<h3>Distribution bars</h3>\n<p>" + esc(u.bars(r.distribution.bars)) + ": As,prov " +
        u.area(r.distribution.bars.As_prov_mm2) + " against As,req " + u.area(r.distribution.As_req_mm2) + ".</p>\n";
+  if (r.detailing) o += detailing_html(r, *r.detailing);
 
   o += "<h2>5 Summary of checks</h2>\n<table>\n<tr><th>check</th><th>where</th><th>clause</th>"
        "<th class=\"num\">demand</th><th class=\"num\">capacity</th><th>unit</th><th class=\"num\">"
@@ -669,6 +813,7 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
   }
   o += "\n### Distribution bars\n\n" + u.bars(r.distribution.bars) + ": As,prov " +
        u.area(r.distribution.bars.As_prov_mm2) + " against As,req " + u.area(r.distribution.As_req_mm2) + ".\n";
+  if (r.detailing) o += detailing_markdown(r, *r.detailing);
   o += "\n## 5 Summary of checks\n\n| check | where | clause | demand | capacity | unit | utilisation | outcome |\n"
        "|---|---|---|---:|---:|---|---:|---|\n";
   for (const Check* c : r.all_checks())

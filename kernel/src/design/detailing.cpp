@@ -1,0 +1,414 @@
+// Detailing of a one-way strip: each region's bars run over the part of
+// the strip where the envelope needs them, past it by the code's shift and
+// anchorage (or past a support line by the code's length there), lapped
+// where longer than the stock; then marks, counts, schedule and mass.
+#include "detailing.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <map>
+#include <string>
+#include <tuple>
+
+#include "armature/format.hpp"
+#include "call_code.hpp"
+
+namespace armature {
+
+namespace {
+
+constexpr double unit_mass_kg_per_m_mm2 = 0.00617;  // kg/m of a bar of d mm: 0.00617 d² (common practice)
+constexpr double length_step_mm = 25.0;             // cut lengths rounded up to 25 mm (common practice)
+constexpr double lapped_share_staggered = 0.5;      // alternate bars lapped at one section
+
+struct Point {
+  double x, sag, hog, shear;
+};
+
+// x where f falls from above tol (at b) to tol or below (at a), linearly.
+double crossing(double xa, double fa, double xb, double fb) {
+  if (fb == fa) return xa;
+  const double t = std::clamp(fa / (fa - fb), 0.0, 1.0);
+  return xa + t * (xb - xa);
+}
+
+// The run of one region's bars before laps and marks.
+struct Run {
+  std::string where;
+  Face face = Face::bottom;
+  BarChoice bars;
+  BarDetailDemand demand;
+  double start = 0.0, end = 0.0;
+  bool start_fixed = false, end_fixed = false;  // at a free tip: rounding extends the other end
+  double anch_start = 0.0, anch_end = 0.0, shift = 0.0;
+  std::string clause;
+  bool distribution = false;
+  double along_from = 0.0, along_to = 0.0;  // distribution bars: the part of the strip they are spread over
+  int count = 0;
+};
+
+std::string face_name(Face f) { return f == Face::top ? "top" : "bottom"; }
+
+int count_over(double extent_mm, double spacing_mm) {
+  return static_cast<int>(std::floor(extent_mm / spacing_mm + 1e-9)) + 1;
+}
+
+}  // namespace
+
+DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
+                             const DesignRecord& rec, const std::vector<std::vector<DiagramPoint>>& envelope) {
+  DetailingRecord out;
+  out.slab_width_mm = req.detailing.slab_width_mm;
+  out.stock_length_mm = req.detailing.stock_length_mm;
+  const std::vector<double>& spans = req.slab.spans_mm;
+  const std::size_t n = spans.size();
+  std::vector<double> X(n + 1, 0.0);
+  for (std::size_t e = 0; e < n; ++e) X[e + 1] = X[e] + spans[e];
+  const double total = X[n];
+  out.strip_length_mm = total;
+  const bool left_free = req.slab.ends[0] == EndSupport::free;
+  const bool right_free = req.slab.ends[1] == EndSupport::free;
+  auto cantilever = [&](std::size_t e) { return (e == 0 && left_free) || (e + 1 == n && right_free); };
+
+  // The envelope along the strip, span by span (a support appears twice).
+  std::vector<Point> P;
+  double peak = 0.0;
+  for (const auto& span : envelope)
+    for (const auto& p : span) {
+      P.push_back({p.x_mm, p.M_max, -p.M_min, std::max(std::abs(p.V_max), std::abs(p.V_min))});
+      out.envelope.push_back(p);
+      peak = std::max({peak, std::abs(p.M_max), std::abs(p.M_min)});
+    }
+  const double tol = 1e-6 * peak;
+  auto first_at = [&](double x) {
+    for (std::size_t k = 0; k < P.size(); ++k)
+      if (P[k].x >= x - 1e-6) return k;
+    return P.size() - 1;
+  };
+  auto last_at = [&](double x) {
+    for (std::size_t k = P.size(); k-- > 0;)
+      if (P[k].x <= x + 1e-6) return k;
+    return std::size_t{0};
+  };
+
+  auto region = [&](const std::string& where, Face face) -> const RegionRecord* {
+    for (const auto& r : rec.regions)
+      if (r.where == where && r.face == face) return &r;
+    return nullptr;
+  };
+  auto demand_of = [&](const RegionRecord& r) {
+    BarDetailDemand b;
+    b.where = r.where;
+    b.face = r.face;
+    b.diameter_mm = r.bars.diameter_mm;
+    b.spacing_mm = r.bars.spacing_mm;
+    b.cover_mm = r.cover_mm;
+    b.d_mm = r.d_mm;
+    b.As_prov_mm2 = r.bars.As_prov_mm2;
+    b.bond = req.detailing.bond;
+    b.lapped_share = lapped_share_staggered;
+    return b;
+  };
+  auto derive = [&](const std::string& where, const char* what, const DetailLength& l) {
+    if (l.length_mm != 0.0 || !l.clause.empty()) out.derivations.push_back({where, what, l});  // none: no rule
+    return l.length_mm;
+  };
+  auto ask = [&](const char* stage, const std::string& where, auto&& fn) {
+    return call_code(code, stage, std::forward<decltype(fn)>(fn), where);
+  };
+
+  std::vector<Run> runs;
+  // Bottom bars of each span: the sagging zone, shifted and anchored; at
+  // an end support past its line by the code's length there, at an
+  // interior support at least the code's embedment past its line.
+  for (std::size_t e = 0; e < n; ++e) {
+    if (cantilever(e)) continue;
+    const std::string where = "span " + std::to_string(e + 1);
+    const RegionRecord* r = region(where, Face::bottom);
+    if (!r || r->bars.spacing_mm <= 0.0) continue;
+    Run run;
+    run.where = where;
+    run.face = Face::bottom;
+    run.bars = r->bars;
+    run.demand = demand_of(*r);
+    const std::string label = where + ", bottom";
+    const double al = derive(label, "shift", ask("detailing shift", where, [&] { return rules.shift(run.demand); }));
+    const double lbd =
+        derive(label, "anchorage", ask("detailing anchorage", where, [&] { return rules.anchorage(run.demand); }));
+    run.shift = al;
+    run.clause = out.derivations[out.derivations.size() - 2].length.clause + "; " + out.derivations.back().length.clause;
+    const auto& pts = envelope[e];
+    std::size_t i0 = pts.size(), i1 = pts.size();
+    for (std::size_t k = 0; k < pts.size(); ++k)
+      if (pts[k].M_max > tol) {
+        if (i0 == pts.size()) i0 = k;
+        i1 = k;
+      }
+    const bool sags = i0 < pts.size();
+    const double zs = !sags ? X[e] : i0 == 0 ? pts[0].x_mm : crossing(pts[i0].x_mm, pts[i0].M_max, pts[i0 - 1].x_mm, pts[i0 - 1].M_max);
+    const double ze = !sags ? X[e + 1]
+                      : i1 + 1 == pts.size()
+                          ? pts.back().x_mm
+                          : crossing(pts[i1].x_mm, pts[i1].M_max, pts[i1 + 1].x_mm, pts[i1 + 1].M_max);
+    for (int side = 0; side < 2; ++side) {
+      const std::size_t node = side == 0 ? e : e + 1;
+      const bool strip_end = node == 0 || node == n;
+      const double zero = side == 0 ? zs : ze;
+      const double dir = side == 0 ? -1.0 : 1.0;  // outward
+      const bool at_support_line = std::abs(zero - X[node]) < 1e-6;
+      // How far out the bars must reach: past the shifted zero point by the anchorage.
+      const double reach_env = sags && !at_support_line ? zero + dir * (al + lbd) : X[node];
+      double reach = reach_env;
+      double anch = lbd;
+      if (strip_end) {
+        BarDetailDemand d = run.demand;
+        d.V_Ed_N = std::max(std::abs(pts[side == 0 ? 0 : pts.size() - 1].V_max),
+                            std::abs(pts[side == 0 ? 0 : pts.size() - 1].V_min));
+        const double ea = derive(label, side == 0 ? "end support anchorage (start)" : "end support anchorage (end)",
+                                 ask("detailing end support", where, [&] { return rules.end_support_anchorage(d); }));
+        const double past = X[node] + dir * ea;
+        if (at_support_line || !sags) {
+          anch = ea;
+          run.clause += "; " + out.derivations.back().length.clause;
+        }
+        reach = dir < 0 ? std::min(reach, past) : std::max(reach, past);
+      } else {
+        const double emb = derive(label, "interior support embedment",
+                                  ask("detailing embedment", where, [&] { return rules.interior_support_embedment(run.demand); }));
+        if (run.clause.find(out.derivations.back().length.clause) == std::string::npos)
+          run.clause += "; " + out.derivations.back().length.clause;
+        const double past = X[node] + dir * emb;
+        reach = dir < 0 ? std::min(reach, past) : std::max(reach, past);
+      }
+      if (side == 0) {
+        run.start = reach;
+        run.anch_start = anch;
+      } else {
+        run.end = reach;
+        run.anch_end = anch;
+      }
+    }
+    runs.push_back(std::move(run));
+  }
+
+  // Top bars over each support: the hogging zone on both sides, shifted and
+  // anchored; to a free tip less the cover; into an end support past its
+  // line by the anchorage.
+  for (std::size_t j = 0; j <= n; ++j) {
+    const std::string where = "support " + std::to_string(j + 1);
+    const RegionRecord* r = region(where, Face::top);
+    if (!r || r->bars.spacing_mm <= 0.0) continue;
+    Run run;
+    run.where = where;
+    run.face = Face::top;
+    run.bars = r->bars;
+    run.demand = demand_of(*r);
+    const std::string label = where + ", top";
+    const double al = derive(label, "shift", ask("detailing shift", where, [&] { return rules.shift(run.demand); }));
+    const double lbd =
+        derive(label, "anchorage", ask("detailing anchorage", where, [&] { return rules.anchorage(run.demand); }));
+    run.shift = al;
+    run.clause = out.derivations[out.derivations.size() - 2].length.clause + "; " + out.derivations.back().length.clause;
+    const std::size_t kL = first_at(X[j]), kR = last_at(X[j]);
+    // Leftwards.
+    {
+      std::size_t k = kL;
+      bool hog = P[k].hog > tol;
+      double zl = X[j];
+      bool reached_end = false;
+      if (hog) {
+        while (k > 0 && P[k - 1].hog > tol) --k;
+        if (k == 0) reached_end = true, zl = P[0].x;
+        else zl = crossing(P[k].x, P[k].hog, P[k - 1].x, P[k - 1].hog);
+      }
+      if (reached_end || (j == 0 && !hog)) {
+        if (left_free) run.start = rec.cover_mm(Face::top), run.anch_start = 0.0, run.start_fixed = true;
+        else run.start = 0.0 - lbd, run.anch_start = lbd;
+      } else {
+        run.start = (hog ? zl : X[j]) - al - lbd;
+        run.anch_start = lbd;
+        if (j == n && !hog && n > 0) {  // an end support taken as simple: the code's least extent into the span
+          const double ext = derive(label, "extent into the span",
+                                    ask("detailing end top bars", where,
+                                        [&] { return rules.end_top_bar_extent(run.demand, spans[n - 1]); }));
+          run.start = std::min(run.start, X[j] - ext);
+        }
+      }
+    }
+    // Rightwards.
+    {
+      std::size_t k = kR;
+      bool hog = P[k].hog > tol;
+      double zr = X[j];
+      bool reached_end = false;
+      if (hog) {
+        while (k + 1 < P.size() && P[k + 1].hog > tol) ++k;
+        if (k + 1 == P.size()) reached_end = true, zr = P.back().x;
+        else zr = crossing(P[k].x, P[k].hog, P[k + 1].x, P[k + 1].hog);
+      }
+      if (reached_end || (j == n && !hog)) {
+        if (right_free) run.end = total - rec.cover_mm(Face::top), run.anch_end = 0.0, run.end_fixed = true;
+        else run.end = total + lbd, run.anch_end = lbd;
+      } else {
+        run.end = (hog ? zr : X[j]) + al + lbd;
+        run.anch_end = lbd;
+        if (j == 0 && !hog && n > 0) {  // an end support taken as simple: the code's least extent into the span
+          const double ext = derive(label, "extent into the span",
+                                    ask("detailing end top bars", where,
+                                        [&] { return rules.end_top_bar_extent(run.demand, spans[0]); }));
+          run.end = std::max(run.end, X[j] + ext);
+        }
+      }
+    }
+    // A bar cannot pass a free end: it stops at the tip less the cover.
+    if (left_free && run.start < rec.cover_mm(Face::top))
+      run.start = rec.cover_mm(Face::top), run.anch_start = 0.0, run.start_fixed = true;
+    if (right_free && run.end > total - rec.cover_mm(Face::top))
+      run.end = total - rec.cover_mm(Face::top), run.anch_end = 0.0, run.end_fixed = true;
+    runs.push_back(std::move(run));
+  }
+
+  // Counts across the slab width.
+  for (auto& run : runs) run.count = count_over(out.slab_width_mm, run.bars.spacing_mm);
+
+  // Distribution bars: across the strip, under or over the main bars,
+  // spread over the bottom bars' extent and each top bar's.
+  if (rec.distribution.bars.spacing_mm > 0.0) {
+    const BarChoice& db = rec.distribution.bars;
+    auto add_distribution = [&](Face face, double from, double to, const std::string& where) {
+      Run run;
+      run.where = where;
+      run.face = face;
+      run.bars = db;
+      run.distribution = true;
+      const double c = rec.cover_mm(face);
+      run.start = c;  // across the strip, cover to cover
+      run.end = out.slab_width_mm - c;
+      run.along_from = std::max(from, 0.0);
+      run.along_to = std::min(to, total);
+      run.count = count_over(std::max(0.0, run.along_to - run.along_from), db.spacing_mm);
+      run.demand.where = where;
+      run.demand.face = face;
+      run.demand.diameter_mm = db.diameter_mm;
+      run.demand.spacing_mm = db.spacing_mm;
+      run.demand.cover_mm = c;
+      run.demand.bond = req.detailing.bond;
+      run.demand.lapped_share = lapped_share_staggered;
+      runs.push_back(std::move(run));
+    };
+    double lo = total, hi = 0.0;
+    for (const auto& r : runs)
+      if (r.face == Face::bottom && !r.distribution) lo = std::min(lo, r.start), hi = std::max(hi, r.end);
+    const std::size_t main_count = runs.size();
+    if (lo < hi) add_distribution(Face::bottom, lo, hi, "distribution, bottom");
+    for (std::size_t i = 0; i < main_count; ++i)
+      if (runs[i].face == Face::top)
+        add_distribution(Face::top, runs[i].start, runs[i].end, "distribution, top (" + runs[i].where + ")");
+  }
+
+  // Laps where a run is longer than the stock: alternate bars lapped at
+  // staggered positions (set A: laps at k L/n; set B halfway between).
+  InputProblems problems;
+  std::vector<DetailedBar> bars;
+  for (auto& run : runs) {
+    double length = run.end - run.start;
+    DetailedBar base;
+    base.where = run.where;
+    base.face = run.face;
+    base.distribution = run.distribution;
+    base.bar = run.bars.bar;
+    base.diameter_mm = run.bars.diameter_mm;
+    base.spacing_mm = run.bars.spacing_mm;
+    base.shift_mm = run.shift;
+    base.anchorage_start_mm = run.anch_start;
+    base.anchorage_end_mm = run.anch_end;
+    base.clause = run.clause;
+    base.along_from_mm = run.along_from;
+    base.along_to_mm = run.along_to;
+    auto rounded = [&](DetailedBar& b, bool start_fixed, bool end_fixed) {
+      const double raw = b.end_mm - b.start_mm;
+      const double cut = std::ceil(raw / length_step_mm - 1e-9) * length_step_mm;
+      if (end_fixed && !start_fixed) b.start_mm = b.end_mm - cut;
+      else b.end_mm = b.start_mm + cut;
+      b.length_mm = cut;
+    };
+    if (length <= out.stock_length_mm) {
+      DetailedBar b = base;
+      b.count = run.count;
+      b.start_mm = run.start;
+      b.end_mm = run.end;
+      rounded(b, run.start_fixed, run.end_fixed);
+      if (b.length_mm > out.stock_length_mm) {  // rounding took it past the stock: keep the raw length
+        b.end_mm = run.start + length;
+        b.length_mm = length;
+      }
+      bars.push_back(std::move(b));
+      continue;
+    }
+    const std::string label = run.where + ", " + face_name(run.face);
+    const double lap = derive(label, "lap", ask("detailing lap", run.where, [&] { return rules.lap(run.demand); }));
+    if (lap >= out.stock_length_mm / 2.0) {
+      problems.add("detailing.stock_length_m",
+                   "must be more than twice the lap of the bars at " + label + " (" + plain_number(lap) +
+                       " mm), got " + plain_number(out.stock_length_mm / 1000.0) + " m");
+      continue;
+    }
+    // n pieces of set A, each at most the stock: L/n + lap ≤ stock.
+    const int pieces = static_cast<int>(std::ceil(length / (out.stock_length_mm - lap) - 1e-9));
+    const double pitch = length / pieces;
+    const int count_a = (run.count + 1) / 2, count_b = run.count / 2;
+    for (int set = 0; set < 2; ++set) {
+      const int count = set == 0 ? count_a : count_b;
+      if (count == 0) continue;
+      std::vector<double> centres;  // lap centres
+      for (int k = 1; k < pieces; ++k) centres.push_back(run.start + k * pitch - (set == 1 ? pitch / 2.0 : 0.0));
+      if (set == 1) centres.push_back(run.start + pieces * pitch - pitch / 2.0);
+      double a = run.start;
+      for (std::size_t k = 0; k <= centres.size(); ++k) {
+        DetailedBar b = base;
+        b.count = count;
+        b.start_mm = a;
+        b.end_mm = k < centres.size() ? centres[k] + lap / 2.0 : run.end;
+        if (k > 0) {
+          b.anchorage_start_mm = 0.0;
+          b.laps.push_back({b.start_mm, b.start_mm + lap});
+        }
+        if (k < centres.size()) {
+          b.anchorage_end_mm = 0.0;
+          b.laps.push_back({centres[k] - lap / 2.0, centres[k] + lap / 2.0});
+        }
+        rounded(b, k == 0 && run.start_fixed, k == centres.size() && run.end_fixed);
+        if (k < centres.size()) a = centres[k] - lap / 2.0;
+        bars.push_back(std::move(b));
+      }
+    }
+  }
+  problems.raise_if_any();
+
+  // Marks: one per distinct diameter, shape and cut length, in order along the strip.
+  std::map<std::tuple<double, std::string, double>, std::string> marks;
+  for (auto& b : bars) {
+    const auto key = std::make_tuple(b.diameter_mm, b.shape, b.length_mm);
+    auto it = marks.find(key);
+    if (it == marks.end()) {
+      const std::size_t k = marks.size() + 1;
+      std::string m = std::to_string(k);
+      if (m.size() < 2) m = "0" + m;
+      it = marks.emplace(key, m).first;
+      out.schedule.push_back({m, b.bar, b.diameter_mm, 0, b.length_mm, b.shape, 0.0});
+    }
+    b.mark = it->second;
+    for (auto& row : out.schedule)
+      if (row.mark == b.mark) row.count += b.count;
+  }
+  for (auto& row : out.schedule) {
+    row.mass_kg = row.count * row.length_mm / 1000.0 * unit_mass_kg_per_m_mm2 * row.diameter_mm * row.diameter_mm;
+    out.total_mass_kg += row.mass_kg;
+  }
+  out.mass_per_area_kg_m2 = out.total_mass_kg / (out.slab_width_mm / 1000.0 * total / 1000.0);
+  out.bars = std::move(bars);
+  return out;
+}
+
+}  // namespace armature
