@@ -80,6 +80,7 @@ class Checker final : public SlabChecker,
   // members.cpp
   void deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
   void calculated_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const;
+  void two_way_deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
   static std::size_t governing_face_case(const SupportFace& f);
 
   const std::string& exposure_of(Face face) const { return exposure_[static_cast<std::size_t>(face)]; }
@@ -90,12 +91,16 @@ class Checker final : public SlabChecker,
   double slab_min_strain() const { return yield_strain_of_steel() + 0.003; }  // 7.3.3.1
   double steel_at_slab_strain_limit(double b, double d) const;  // 7.3.3.1
   double max_bar_spacing(double h) const;                       // 7.7.2.3
+  double two_way_max_bar_spacing(double h) const;               // 8.7.2.2
+  std::vector<BayArrangement> bay_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                    const std::vector<Action>& actions) const override;
   double min_clear_spacing(double db, double aggregate) const;  // 25.2.1
   double crack_spacing(double fs, double clear_cover) const;    // 24.3.2
   double max_distribution_spacing(double h) const;              // 24.4.3.3
   double shear_size_factor(double d) const;                     // 22.5.5.1.3
   double shear_strength(double lambda_s, double rho_w, double b, double d) const;  // 22.5.5.1
   double min_thickness(double span, SupportCondition condition) const;            // 7.3.1.1
+  double two_way_min_thickness(double long_span, double short_span) const;         // 8.3.1.2
   double cover_for(const std::string& exposure, double bar_diameter) const;       // 20.5.1.3.1
   double root_fc_limited() const;                               // √f'c ≤ 8.3 MPa (100 psi), 22.5.3.1
   double concrete_modulus() const;                              // 19.2.2.1: Ec, MPa

@@ -31,6 +31,11 @@ double Checker::max_bar_spacing(double h) const {
   return us_ ? inch_pound::max_flexural_bar_spacing(h / mm_per_in) * mm_per_in : max_flexural_bar_spacing(h);
 }
 
+double Checker::two_way_max_bar_spacing(double h) const {
+  return us_ ? inch_pound::two_way_max_flexural_bar_spacing(h / mm_per_in) * mm_per_in
+             : two_way_max_flexural_bar_spacing(h);
+}
+
 double Checker::min_clear_spacing(double db, double aggregate) const {
   return us_ ? inch_pound::minimum_clear_bar_spacing(db / mm_per_in, aggregate / mm_per_in) * mm_per_in
              : minimum_clear_bar_spacing(db, aggregate);
@@ -63,6 +68,12 @@ double Checker::root_fc_limited() const {
 double Checker::min_thickness(double span, SupportCondition condition) const {
   return us_ ? inch_pound::minimum_slab_thickness(span / mm_per_in, condition, fy_ / MPa_per_psi) * mm_per_in
              : minimum_slab_thickness(span, condition, fy_);
+}
+
+double Checker::two_way_min_thickness(double long_span, double short_span) const {
+  return us_ ? inch_pound::two_way_min_thickness(long_span / mm_per_in, short_span / mm_per_in, fy_ / MPa_per_psi) *
+                   mm_per_in
+             : aci318::two_way_min_thickness(long_span, short_span, fy_);
 }
 
 double Checker::cover_for(const std::string& exposure, double bar_diameter) const {

@@ -57,6 +57,21 @@ std::vector<Check> Checker::equilibrium_checks(const EquilibriumDemand& d, Detai
   return out;
 }
 
+// 8.3.1.2: the minimum thickness of a two-way slab on walls or stiff
+// beams (clear spans taken as the spans given).
+void Checker::two_way_deflection_check(CheckCollector& span, const RegionDemand& g, double h) const {
+  const double h_min = two_way_min_thickness(g.long_span_mm, g.span_mm);
+  span.add("deflection", g.span_where, "ACI 318-19 8.3.1.2", h_min, h, "mm", [&] {
+    StepRecorder st;
+    st.add("β", "ℓn,long/ℓn,short", len(g.long_span_mm) + "/" + len(g.span_mm), g.long_span_mm / g.span_mm, "-",
+           "ACI 318-19 8.3.1.2");
+    st.add("h_min", us_ ? "ℓn (0.8 + fy/200 000)/(36 + 9β) ≥ 3.5 in" : "ℓn (0.8 + fy/1400)/(36 + 9β) ≥ 90 mm",
+           "ℓn = " + len(g.long_span_mm) + us_unit(len_u()) + ", fy = " + stress(fy_) + us_unit(stress_u()),
+           len_v(h_min), len_u(), "ACI 318-19 8.3.1.2 (αfm > 2: walls or stiff beams)");
+    return st.take();
+  });
+}
+
 // 7.3.1.1: the minimum thickness of a solid one-way slab of this span.
 void Checker::deflection_check(CheckCollector& span, const RegionDemand& g, double h) const {
   const SupportCondition cond = condition_of(g.span_kind);
@@ -84,7 +99,10 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     const bool calculated = sv.calculated_deflection() && g.long_term_span && g.span_kind != SpanKind::cantilever;
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
-      run_check("deflection", [&] { deflection_check(span, g, sec.h_mm); });
+      run_check("deflection", [&] {
+        if (g.direction != BarDirection::span) two_way_deflection_check(span, g, sec.h_mm);
+        else deflection_check(span, g, sec.h_mm);
+      });
       if (sv.deflection)
         for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "span_depth";
     }

@@ -96,6 +96,29 @@ std::vector<std::vector<bool>> Checker::load_arrangements(std::size_t n) const {
 }
 
 
+// 6.4.3.2 for two-way slabs (from memory): with L > 0.75 D, 75 % of the
+// factored live load on the panel and alternate panels (the two
+// checkerboards) and on the panels adjacent to each support line; the
+// moments are not taken less than with the full factored live load on
+// every panel (6.4.3.3), which is always an arrangement. L and D are the
+// characteristic loads uniform over the whole slab.
+std::vector<BayArrangement> Checker::bay_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                           const std::vector<Action>& actions) const {
+  std::vector<BayArrangement> out{{all_bays_loaded(bays_x, bays_y), 1.0}};
+  double D = 0.0, L = 0.0;
+  for (const auto& a : actions) {
+    if (a.distribution != Distribution::uniform || a.plan_mm || a.span) continue;
+    if (a.kind == ActionKind::permanent) D += a.value;
+    else if (a.kind == ActionKind::imposed) L += a.value;
+  }
+  if (!two_way_pattern_loading_required(L, D)) return out;
+  for (auto& a : checkerboard_bay_arrangements(bays_x, bays_y))
+    out.push_back({std::move(a), two_way_pattern_live_fraction});
+  for (auto& a : adjacent_bays_across_lines(bays_x, bays_y))
+    out.push_back({std::move(a), two_way_pattern_live_fraction});
+  return out;
+}
+
 std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) const {
   return variant_bar(designation, us_);
 }

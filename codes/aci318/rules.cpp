@@ -61,6 +61,18 @@ double steel_at_strain_limit(double fc, double fy, double b, double d) {
 double minimum_flexural_steel(double b, double h) { return 0.0018 * b * h; }
 double max_flexural_bar_spacing(double h) { return std::min(3.0 * h, 450.0); }
 
+double two_way_min_thickness(double long_span, double short_span, double fy) {
+  const double beta = long_span / short_span;
+  return std::max(long_span * (0.8 + fy / 1400.0) / (36.0 + 9.0 * beta), 90.0);
+}
+
+// 8.7.2.2 (value from memory): at critical sections of two-way slabs.
+double two_way_max_flexural_bar_spacing(double h) { return std::min(2.0 * h, 450.0); }
+
+// 6.4.3.1–6.4.3.2 (from memory): with L ≤ 0.75 D the full factored live
+// load on every panel suffices.
+bool two_way_pattern_loading_required(double L, double D) { return L > 0.75 * D; }
+
 double minimum_clear_bar_spacing(double db, double aggregate) {
   return std::max({25.0, db, 4.0 / 3.0 * aggregate});
 }

@@ -42,6 +42,15 @@ double steel_at_strain_limit(double fc, double fy, double b, double d);
 // ---- Reinforcement limits and detailing ------------------------------------
 double minimum_flexural_steel(double b, double h);        // 7.6.1.1: 0.0018 Ag
 double max_flexural_bar_spacing(double h);                // 7.7.2.3: min(3h, 450)
+double two_way_max_flexural_bar_spacing(double h);        // 8.7.2.2: min(2h, 450) at critical sections
+// 8.3.1.2 (αfm > 2, slabs on walls or stiff beams; from memory): h_min =
+// ln (0.8 + fy/1400)/(36 + 9β), not less than 90 mm; ln the longer clear
+// span, β the ratio of the longer to the shorter.
+double two_way_min_thickness(double long_span, double short_span, double fy);
+// 6.4.3.2: pattern live load on two-way slabs only where L > 0.75 D.
+bool two_way_pattern_loading_required(double L, double D);
+// 6.4.3.2: the fraction of the factored live load the patterns carry.
+inline constexpr double two_way_pattern_live_fraction = 0.75;
 // 25.2.1: clear spacing of parallel bars in a layer ≥ max(25 mm, db, 4/3 dagg).
 double minimum_clear_bar_spacing(double db, double aggregate);
 double service_steel_stress(double fy);                   // 24.3.2.1: fs = 2/3 fy

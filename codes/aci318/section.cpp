@@ -15,7 +15,8 @@ double Checker::nominal_cover_mm(Face face, double bar_diameter_mm) const {
   return req_.durability.face(face).cover_mm.value_or(cover_for(exposure_of(face), bar_diameter_mm));
 }
 
-double Checker::max_spacing_mm(const RegionDemand&) const {
+double Checker::max_spacing_mm(const RegionDemand& g) const {
+  if (g.direction != BarDirection::span) return two_way_max_bar_spacing(req_.slab.thickness_mm);
   return max_bar_spacing(req_.slab.thickness_mm);
 }
 
@@ -152,13 +153,23 @@ SectionOutcome Checker::check_section(const Section& sec, const RegionDemand& g,
   // and minimum steel (its fallback) are known by now.
   if (checks.verdict_settled()) return out;
   run_check("spacing", [&] {
-    const double s_max = max_bar_spacing(h);
-    checks.add("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", [&] {
-      StepRecorder st;
-      st.add("s_max", us_ ? "min(3h, 18 in)" : "min(3h, 450)",
-             "min(3 × " + len(h) + ", " + (us_ ? "18" : "450") + ")", len_v(s_max), len_u(), "ACI 318-19 7.7.2.3");
-      return st.take();
-    });
+    if (g.direction == BarDirection::span) {
+      const double s_max = max_bar_spacing(h);
+      checks.add("spacing", g.where, "ACI 318-19 7.7.2.3", s, s_max, "mm", [&] {
+        StepRecorder st;
+        st.add("s_max", us_ ? "min(3h, 18 in)" : "min(3h, 450)",
+               "min(3 × " + len(h) + ", " + (us_ ? "18" : "450") + ")", len_v(s_max), len_u(), "ACI 318-19 7.7.2.3");
+        return st.take();
+      });
+    } else {  // a two-way slab's bars at the critical section of their region
+      const double s_max = two_way_max_bar_spacing(h);
+      checks.add("spacing", g.where, "ACI 318-19 8.7.2.2", s, s_max, "mm", [&] {
+        StepRecorder st;
+        st.add("s_max", us_ ? "min(2h, 18 in)" : "min(2h, 450)",
+               "min(2 × " + len(h) + ", " + (us_ ? "18" : "450") + ")", len_v(s_max), len_u(), "ACI 318-19 8.7.2.2");
+        return st.take();
+      });
+    }
     const double dagg = req_.concrete.aggregate_mm;
     const double clear_min = min_clear_spacing(db, dagg);
     checks.add("spacing", g.where, "ACI 318-19 25.2.1", clear_min, s - db, "mm", [&] {

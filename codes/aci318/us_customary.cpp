@@ -32,6 +32,13 @@ double modulus_of_rupture(double fc, double lambda) { return 7.5 * lambda * std:
 
 double max_flexural_bar_spacing(double h) { return std::min(3.0 * h, 18.0); }
 
+double two_way_max_flexural_bar_spacing(double h) { return std::min(2.0 * h, 18.0); }
+
+double two_way_min_thickness(double long_span, double short_span, double fy) {
+  const double beta = long_span / short_span;
+  return std::max(long_span * (0.8 + fy / 200000.0) / (36.0 + 9.0 * beta), 3.5);
+}
+
 double minimum_clear_bar_spacing(double db, double aggregate) {
   return std::max({1.0, db, 4.0 / 3.0 * aggregate});
 }

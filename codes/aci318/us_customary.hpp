@@ -37,6 +37,9 @@ double modulus_of_elasticity(double fc_psi);             // 19.2.2.1: 57 000 √
 double modulus_of_rupture(double fc_psi, double lambda); // 19.2.3.1: 7.5 λ √f'c psi
 double yield_strain(double fy_psi);                      // 21.2.2.1: εty = fy/Es
 double max_flexural_bar_spacing(double h_in);            // 7.7.2.3: min(3h, 18 in)
+double two_way_max_flexural_bar_spacing(double h_in);    // 8.7.2.2: min(2h, 18 in)
+// 8.3.1.2: ln (0.8 + fy/200 000)/(36 + 9β) ≥ 3.5 in (fy psi; from memory).
+double two_way_min_thickness(double long_span_in, double short_span_in, double fy_psi);
 // 25.2.1: clear spacing ≥ max(1 in, db, 4/3 dagg).
 double minimum_clear_bar_spacing(double db_in, double aggregate_in);
 // 24.3.2: s ≤ min(15 (40 000/fs) − 2.5 cc, 12 (40 000/fs)), fs in psi.

@@ -96,6 +96,8 @@ class Checker final : public SlabChecker,
   std::vector<Combination> combinations(const std::vector<Action>& actions,
                                         CombinationLabels labels) const override;
   std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const override;
+  std::vector<BayArrangement> bay_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                    const std::vector<Action>& actions) const override;
   const std::vector<BarOption>& bar_options() const override { return *bars_; }
   std::optional<BarOption> catalogue_bar(const std::string& designation) const override;
   std::vector<InputDefault> defaults_used() const override;

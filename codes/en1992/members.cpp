@@ -356,6 +356,23 @@ std::vector<Check> Checker::span_checks(const std::string& span_where) const {
 void Checker::fire_axis_distance_check(CheckCollector& checks, const RegionDemand& g, double c_nom,
                                        double phi) const {
   const int t = *req_.fire.resistance_min;
+  if (g.direction != BarDirection::span && g.long_span_mm > 0.0) {  // a two-way bay on four edges
+    const double ratio = g.long_span_mm / g.span_mm;
+    const int column = fire_two_way_column(ratio);
+    const double a2 = c_nom + phi / 2.0, a2_min = fire_min_axis_distance_two_way(t, ratio);
+    const std::string clause = "EN 1992-1-2 5.7.2 Table 5.8 column " + std::to_string(column) + " (axis distance)";
+    checks.add("fire", g.where, clause, a2_min, a2, "mm", [&] {
+      Steps st;
+      st.add("a", "c_nom + φ/2 (the face's cover; an inner layer lies deeper)", num(c_nom) + " + " + num(phi) + "/2",
+             a2, "mm", "EN 1992-1-2 5.7.2");
+      st.add("ly/lx", "longer/shorter span", num(g.long_span_mm) + "/" + num(g.span_mm), ratio, "-",
+             "EN 1992-1-2 5.7.2 Table 5.8");
+      st.add("a_min", "Table 5.8 column " + std::to_string(column) + ", slab supported on four edges",
+             "REI " + std::to_string(t), a2_min, "mm", clause);
+      return st.take();
+    });
+    return;
+  }
   const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance(t);
   // Column 3 (one-way slabs) for every span: 5.7.3 would allow
   // column 4 for continuous slabs under conditions; it is not used.

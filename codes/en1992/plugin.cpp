@@ -39,6 +39,14 @@ std::vector<std::vector<bool>> Checker::load_arrangements(std::size_t span_count
   return en1992::load_arrangements(span_count, ndp_.pattern_loading == "adjacent_pairs");
 }
 
+std::vector<BayArrangement> Checker::bay_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                           const std::vector<Action>&) const {
+  std::vector<BayArrangement> out;
+  for (auto& a : en1992::bay_load_arrangements(bays_x, bays_y, ndp_.pattern_loading == "adjacent_pairs"))
+    out.push_back({std::move(a), 1.0});
+  return out;
+}
+
 std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) const {
   const auto phi = bar_diameter(designation);
   if (!phi) return std::nullopt;

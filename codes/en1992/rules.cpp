@@ -75,6 +75,14 @@ std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacen
   return out;
 }
 
+std::vector<std::vector<bool>> bay_load_arrangements(std::size_t bays_x, std::size_t bays_y, bool adjacent_pairs) {
+  std::vector<std::vector<bool>> out{all_bays_loaded(bays_x, bays_y)};
+  for (auto& a : checkerboard_bay_arrangements(bays_x, bays_y)) out.push_back(std::move(a));
+  if (adjacent_pairs)
+    for (auto& a : adjacent_bays_across_lines(bays_x, bays_y)) out.push_back(std::move(a));
+  return out;
+}
+
 // ---- Bending ---------------------------------------------------------------
 double minimum_redistribution_ratio(DuctilityClass ductility, double k5, double k6) {
   return ductility == DuctilityClass::A ? k6 : k5;
@@ -559,5 +567,16 @@ double end_support_tensile_force(double V_Ed, double al, double z) { return std:
 double interior_support_minimum_embedment(double phi) { return 10.0 * phi; }
 
 double partial_fixity_bar_extent(double span) { return 0.2 * span; }
+
+// Table 5.8 columns 4 (ly/lx ≤ 1.5) and 5 (1.5 < ly/lx ≤ 2), REI 30 to 240.
+int fire_two_way_column(double ly_over_lx) { return ly_over_lx <= 1.5 ? 4 : ly_over_lx <= 2.0 ? 5 : 3; }
+double fire_min_axis_distance_two_way(int minutes, double ly_over_lx) {
+  constexpr std::array<double, 6> column_4{10, 10, 15, 20, 30, 40}, column_5{10, 15, 20, 25, 40, 50};
+  const int column = fire_two_way_column(ly_over_lx);
+  if (column == 3) return fire_min_axis_distance(minutes);
+  for (std::size_t k = 0; k < table_5_8.size(); ++k)
+    if (table_5_8[k].minutes == minutes) return column == 4 ? column_4[k] : column_5[k];
+  return fire_row(minutes).a;  // throws: not tabulated
+}
 
 }  // namespace armature::en1992

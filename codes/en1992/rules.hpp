@@ -39,6 +39,10 @@ std::optional<std::size_t> imposed_load_category_index(const std::string& catego
 // (a) alternate spans loaded, both ways; (b) every pair of adjacent spans
 // loaded (recommended) or all spans loaded (UK NA).
 std::vector<std::vector<bool>> load_arrangements(std::size_t spans, bool adjacent_pairs);
+// 5.1.3 read for the bays of a two-way slab: every bay, the two
+// checkerboards (alternate bays both ways) and, where the variant's rule
+// (b) loads adjacent spans, the bays on both sides of each interior line.
+std::vector<std::vector<bool>> bay_load_arrangements(std::size_t bays_x, std::size_t bays_y, bool adjacent_pairs);
 // 9.3.1.2(2): top steel at simple supports for 25 % of the span moment.
 constexpr double partial_fixity_fraction = 0.25;
 // 5.5(4): δ ≥ k5 for ductility classes B and C, k6 for class A (NDPs;
@@ -283,5 +287,9 @@ double round_up_to_5(double x);
 bool is_tabulated_fire_resistance(int minutes);
 double fire_min_thickness(int minutes);       // hs
 double fire_min_axis_distance(int minutes);   // a
+// Table 5.8 columns 4 and 5: two-way slabs supported on four edges, by
+// ly/lx (≤ 1.5: column 4; ≤ 2.0: column 5); above 2 the one-way column 3.
+double fire_min_axis_distance_two_way(int minutes, double ly_over_lx);
+int fire_two_way_column(double ly_over_lx);
 
 }  // namespace armature::en1992

@@ -113,3 +113,38 @@ std::vector<InputDefault> durability_defaults(const Request& request, const std:
 }
 
 }  // namespace armature
+
+namespace armature {
+
+std::vector<bool> all_bays_loaded(std::size_t bays_x, std::size_t bays_y) {
+  return std::vector<bool>(bays_x * bays_y, true);
+}
+
+std::vector<std::vector<bool>> checkerboard_bay_arrangements(std::size_t bays_x, std::size_t bays_y) {
+  std::vector<std::vector<bool>> out;
+  if (bays_x * bays_y < 2) return out;
+  for (std::size_t parity = 0; parity < 2; ++parity) {
+    std::vector<bool> a(bays_x * bays_y);
+    for (std::size_t j = 0; j < bays_y; ++j)
+      for (std::size_t i = 0; i < bays_x; ++i) a[i + bays_x * j] = (i + j) % 2 == parity;
+    out.push_back(std::move(a));
+  }
+  return out;
+}
+
+std::vector<std::vector<bool>> adjacent_bays_across_lines(std::size_t bays_x, std::size_t bays_y) {
+  std::vector<std::vector<bool>> out;
+  for (std::size_t k = 1; k < bays_x; ++k) {  // the line between columns k − 1 and k
+    std::vector<bool> a(bays_x * bays_y, false);
+    for (std::size_t j = 0; j < bays_y; ++j) a[k - 1 + bays_x * j] = a[k + bays_x * j] = true;
+    out.push_back(std::move(a));
+  }
+  for (std::size_t k = 1; k < bays_y; ++k) {  // the line between rows k − 1 and k
+    std::vector<bool> a(bays_x * bays_y, false);
+    for (std::size_t i = 0; i < bays_x; ++i) a[i + bays_x * (k - 1)] = a[i + bays_x * k] = true;
+    out.push_back(std::move(a));
+  }
+  return out;
+}
+
+}  // namespace armature

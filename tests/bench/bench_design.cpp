@@ -155,4 +155,35 @@ void plate_3x3_bays_analysis(benchmark::State& state) {
 ARMATURE_BENCHMARK(plate_3x3_bays_analysis)->Unit(benchmark::kMillisecond);
 }  // namespace
 
+// Two-way slabs designed whole (analysis of every pattern, Wood–Armer
+// envelope, bar search of every region with its depth, the checks): one
+// 5.4 × 4.2 m bay, and a 3 × 3 floor under the EN recommended variant's
+// patterns (every bay, both checkerboards, both sides of each line).
+const nlohmann::json two_way_single_bay = nlohmann::json::parse(R"({
+  "code": "EN1992-1-1", "variant": "UK",
+  "slab": {"type": "two_way", "x_spans_m": [5.4], "y_spans_m": [4.2], "thickness_mm": 200},
+  "concrete": {"class": "C30/37"},
+  "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}
+})");
+const nlohmann::json two_way_3x3 = nlohmann::json::parse(R"({
+  "code": "EN1992-1-1", "variant": "recommended",
+  "slab": {"type": "two_way", "x_spans_m": [5.4, 6.0, 5.4], "y_spans_m": [4.2, 4.8, 4.2], "thickness_mm": 225},
+  "concrete": {"class": "C30/37"},
+  "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}
+})");
+
+void two_way_single_bay_design(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(two_way_single_bay);
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(two_way_single_bay_design)->Unit(benchmark::kMillisecond);
+
+void two_way_3x3_bays_design(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(two_way_3x3);
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(two_way_3x3_bays_design)->Unit(benchmark::kMillisecond);
+
 BENCHMARK_MAIN();

@@ -4,6 +4,7 @@
 // turns factored actions into loads on the member.
 #pragma once
 
+#include <array>
 #include <cstddef>
 #include <optional>
 #include <string>
@@ -44,6 +45,10 @@ struct Action {
   double effective_width_mm = 0.0;  // point: the width it is spread over
   ActionSource source = ActionSource::given;
   std::string field;                // request path ("loads.actions[2]"); empty for derived ones
+  // Two-way slabs: the plan position (mm) x0, y0, x1, y1. A patch (uniform)
+  // covers the rectangle, a line runs from (x0, y0) to (x1, y1) parallel
+  // to x or y, a point acts at (x0, y0). None: uniform over the whole slab.
+  std::optional<std::array<double, 4>> plan_mm;
 };
 
 }  // namespace armature

@@ -145,6 +145,17 @@ struct RegionDemand {
   std::optional<SpanForces> long_term_span{};
   // The same under the code's service load (characteristic: ACI D + L).
   std::optional<SpanForces> service_span{};
+  // Two-way slabs: the direction the region's bars run (span: a strip),
+  // the plan position's y (x in x_mm), and the bar of the face's outer
+  // layer when these bars lie on it (0: these bars are the outer layer),
+  // from which the kernel takes their effective depth.
+  BarDirection direction = BarDirection::span;
+  double y_mm = 0.0;
+  double outer_bar_mm = 0.0;
+  // Two-way slabs: the longer span of the bay whose deflection these bars
+  // govern (span_mm is its shorter span), for codes whose two-way rules
+  // read both.
+  double long_span_mm = 0.0;
 };
 
 // How much a code reports for one bar arrangement: the bar search needs
@@ -630,6 +641,14 @@ void add_cover_fit_problems(const Request& request, double smallest_bar_mm, Inpu
 std::vector<InputDefault> durability_defaults(const Request& request, const std::array<std::string, 2>& exposure,
                                               const std::string& exposure_basis, const std::string& cover,
                                               const std::string& cover_basis);
+
+// Building blocks of load arrangements over a two-way slab's bays (bay
+// index i + nx·j), for the code's bay_load_arrangements: every bay; the
+// two checkerboards; for each interior grid line, the bays on both sides
+// of it (the row of bays either side, over the whole width).
+std::vector<bool> all_bays_loaded(std::size_t bays_x, std::size_t bays_y);
+std::vector<std::vector<bool>> checkerboard_bay_arrangements(std::size_t bays_x, std::size_t bays_y);
+std::vector<std::vector<bool>> adjacent_bays_across_lines(std::size_t bays_x, std::size_t bays_y);
 
 // Building blocks of load arrangements (each marks the loaded spans): the
 // code chooses which it uses.

@@ -51,6 +51,15 @@ enum class CombinationLabels {
   all,  // every combination, every label
 };
 
+// A load arrangement over a two-way slab's bays (bay index i + nx·j): the
+// bays whose variable actions are present, and the fraction of their
+// factored value they carry there (a code's reduced pattern load; 1: all).
+// Permanent actions act on every bay at their `loaded` factor.
+struct BayArrangement {
+  std::vector<bool> loaded;
+  double variable_fraction = 1.0;
+};
+
 class CombinationRules {
  public:
   virtual ~CombinationRules() = default;
@@ -61,6 +70,14 @@ class CombinationRules {
   // actions at their `loaded` factor); the others carry the permanent
   // actions at their `unloaded` factor. Envelope over all.
   virtual std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const = 0;
+  // The code's load arrangements over the bays_x × bays_y bays of a
+  // two-way slab, for these actions (a rule may depend on the ratio of
+  // variable to permanent load); the envelope over all is designed. Empty:
+  // the code gives none, and two-way slabs cannot be designed under it.
+  virtual std::vector<BayArrangement> bay_load_arrangements(std::size_t /*bays_x*/, std::size_t /*bays_y*/,
+                                                            const std::vector<Action>& /*actions*/) const {
+    return {};
+  }
 };
 
 }  // namespace armature

@@ -4,6 +4,7 @@
 
 #include <array>
 #include <optional>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -17,6 +18,7 @@
 namespace armature {
 
 class Registry;
+struct PlateRecord;  // two_way.hpp
 
 // The one place the caution lives: result JSON, record, summary, CLI help,
 // Python (armature.CAUTION: DataFrames, plots) all take it from here.
@@ -47,6 +49,10 @@ struct RegionRecord {
   BarChoice bars;
   bool bars_given = false;  // the request's bars (reinforcement.given), checked, not searched
   std::vector<Check> checks;
+  // Two-way slabs: the direction the bars run and the plan position's y
+  // (x in x_mm); span for a strip.
+  BarDirection direction = BarDirection::span;
+  double y_mm = 0.0;
 };
 
 struct SupportRecord {
@@ -162,6 +168,10 @@ struct DesignRecord {
   ProjectInfo project;
   // The code's defaults_used() (at Detail::steps only): the record lists those the request left out.
   std::vector<InputDefault> defaults_used;
+
+  // A two-way slab's plate: grid, edges, bays, the ULS moment envelopes
+  // and the line reactions (two_way.hpp); null for a strip.
+  std::shared_ptr<const PlateRecord> plate;
 
   // Every check of every region, support and span, in that order.
   std::vector<const Check*> all_checks() const;

@@ -50,6 +50,7 @@ struct GivenBars {
   Face face = Face::bottom;
   std::string bar;         // a designation of the code's catalogue
   double spacing_mm = 0.0;
+  std::string direction;   // two-way slabs: "x" or "y", the direction the bars run
 };
 
 // How the bar search treats the regions together.
@@ -175,6 +176,24 @@ struct ProjectInfo {
 // always SI).
 enum class ReportUnits { SI, US };
 
+// ---- two-way slabs (contract-v2 section 2) ---------------------------------
+
+// slab.type: the version 1 strip, or a grid of bays on line supports.
+enum class SlabType { one_way, two_way };
+
+// The geometry and analysis options of a two-way slab (slab.x_spans_m,
+// slab.y_spans_m, slab.edges, analysis.*, reinforcement.outer_layer).
+struct TwoWayInput {
+  std::vector<double> x_spans_mm;
+  std::vector<double> y_spans_mm;
+  // Outer edges in the order x0, x1, y0, y1 (x0: the edge at x = 0).
+  std::array<EndSupport, 4> edges{EndSupport::pinned, EndSupport::pinned, EndSupport::pinned,
+                                  EndSupport::pinned};
+  double poisson_ratio = 0.2;
+  int mesh_per_bay = 0;     // 0: the kernel's default
+  std::string outer_layer;  // "x", "y" or empty: the direction of the larger moment
+};
+
 struct Request {
   std::string code;
   std::optional<std::string> variant;
@@ -189,6 +208,10 @@ struct Request {
   DetailingInput detailing;
   ReportUnits report_units = ReportUnits::SI;
   ProjectInfo project;
+  // Two-way slabs (slab.type "two_way"); slab.thickness_mm holds the
+  // thickness and slab.strip_width_mm the metre width of every result.
+  SlabType slab_type = SlabType::one_way;
+  TwoWayInput two_way{};
 };
 
 // Every action of a request, in the order combinations refer to them: the

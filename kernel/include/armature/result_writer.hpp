@@ -11,6 +11,7 @@
 #include <string>
 
 #include "armature/design.hpp"
+#include "armature/two_way.hpp"
 
 namespace armature {
 
@@ -195,6 +196,102 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
   w.end();
 }
 
+// A list of numbers scaled by k.
+template <class W>
+void write_numbers(W& w, const std::vector<double>& v, double k) {
+  w.begin_array();
+  for (double x : v) w.value(x * k);
+  w.end();
+}
+
+// A node field (index ix + nx·iy) as rows by y index, columns by x index.
+template <class W>
+void write_node_grid(W& w, const std::vector<double>& v, std::size_t nx, double k) {
+  w.begin_array();
+  for (std::size_t j = 0; nx > 0 && j < v.size() / nx; ++j) {
+    w.begin_array();
+    for (std::size_t i = 0; i < nx; ++i) w.value(v[i + nx * j] * k);
+    w.end();
+  }
+  w.end();
+}
+
+// The plate of a two-way slab: grid, edges, bays, the ULS envelopes at the
+// mesh node lines (kNm/m) and the line reactions per segment.
+template <class W>
+void write_plate(W& w, const PlateRecord& p) {
+  using namespace result_units;
+  constexpr double kNm_per_m = 1e-3;  // N·mm/mm → kNm/m
+  w.key("plate");
+  w.begin_object();
+  w.key("x_lines_m"), write_numbers(w, p.x_lines_mm, m_per_mm);
+  w.key("y_lines_m"), write_numbers(w, p.y_lines_mm, m_per_mm);
+  w.key("edges");
+  w.begin_object();
+  const char* edge_keys[4] = {"x0", "x1", "y0", "y1"};
+  for (std::size_t k = 0; k < 4; ++k) w.key(edge_keys[k]), w.value(to_string(p.edges[k]));
+  w.end();
+  w.key("bays");
+  w.begin_array();
+  for (const auto& b : p.bays) {
+    w.begin_object();
+    w.key("name"), w.value(b.name);
+    w.key("x0_m"), w.value(b.x0_mm * m_per_mm);
+    w.key("x1_m"), w.value(b.x1_mm * m_per_mm);
+    w.key("y0_m"), w.value(b.y0_mm * m_per_mm);
+    w.key("y1_m"), w.value(b.y1_mm * m_per_mm);
+    w.end();
+  }
+  w.end();
+  const PlateFieldRecord& f = p.field;
+  const std::size_t nx = f.x_mm.size();
+  w.key("field");
+  w.begin_object();
+  w.key("x_m"), write_numbers(w, f.x_mm, m_per_mm);
+  w.key("y_m"), write_numbers(w, f.y_mm, m_per_mm);
+  auto pair = [&](const char* name, const std::vector<double>& hi, const std::vector<double>& lo) {
+    w.key(name);
+    w.begin_object();
+    w.key("max"), write_node_grid(w, hi, nx, kNm_per_m);
+    w.key("min"), write_node_grid(w, lo, nx, kNm_per_m);
+    w.end();
+  };
+  pair("mx", f.mx_max, f.mx_min);
+  pair("my", f.my_max, f.my_min);
+  pair("mxy", f.mxy_max, f.mxy_min);
+  w.key("design");
+  w.begin_object();
+  w.key("bottom_x"), write_node_grid(w, f.bottom_x, nx, kNm_per_m);
+  w.key("bottom_y"), write_node_grid(w, f.bottom_y, nx, kNm_per_m);
+  w.key("top_x"), write_node_grid(w, f.top_x, nx, kNm_per_m);
+  w.key("top_y"), write_node_grid(w, f.top_y, nx, kNm_per_m);
+  w.end();
+  w.end();
+  w.key("reactions");
+  w.begin_array();
+  for (const auto& l : p.reactions) {
+    w.begin_object();
+    w.key("line"), w.value(l.name);
+    w.key("runs_along"), w.value(l.runs_along == PlanAxis::x ? "x" : "y");
+    w.key("at_m"), w.value(l.position_mm * m_per_mm);
+    w.key("from_m"), w.value(l.from_mm * m_per_mm);
+    w.key("to_m"), w.value(l.to_mm * m_per_mm);
+    w.key("max_kN_per_m"), w.value(l.max_N_per_mm);  // N/mm = kN/m
+    w.key("max_total_kN"), w.value(l.max_total_N * kN_per_N);
+    w.end();
+  }
+  w.end();
+  w.key("poisson_ratio"), w.value(p.poisson_ratio);
+  w.key("mesh_per_bay"), w.value(static_cast<double>(p.mesh_per_bay));
+  w.key("outer_layer");
+  w.begin_object();
+  w.key("bottom"), w.value(p.outer_layer[0]);
+  w.key("top"), w.value(p.outer_layer[1]);
+  w.end();
+  w.key("load_arrangements"), w.value(static_cast<double>(p.arrangements));
+  w.end();
+}
+
 template <class W>
 void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
   using namespace result_units;
@@ -279,6 +376,10 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
     w.key("where"), w.value(g.where);
     w.key("face"), w.value(to_string(g.face));
     w.key("x_m"), w.value(g.x_mm * m_per_mm);
+    if (g.direction != BarDirection::span) {  // a two-way slab's region: per metre, in plan
+      w.key("direction"), w.value(to_string(g.direction));
+      w.key("y_m"), w.value(g.y_mm * m_per_mm);
+    }
     w.key("design_moment_kNm"), w.value(g.M_Ed * kNm_per_Nmm);
     w.key("effective_depth_mm"), w.value(g.d_mm);
     w.key("As_req_mm2"), w.value(g.As_req_mm2);
@@ -313,11 +414,14 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
     w.end();
   }
   w.end();
-  w.key("distribution");
-  w.begin_object();
-  write_bars(w, r.distribution.bars);
-  w.key("As_req_mm2"), w.value(r.distribution.As_req_mm2);
-  w.end();
+  if (!r.plate) {  // a two-way slab designs both directions: no distribution bars
+    w.key("distribution");
+    w.begin_object();
+    write_bars(w, r.distribution.bars);
+    w.key("As_req_mm2"), w.value(r.distribution.As_req_mm2);
+    w.end();
+  }
+  if (r.plate) write_plate(w, *r.plate);
   if (r.detailing) w.key("detailing"), write_detailing(w, *r.detailing, with_steps);
   w.key("checks");
   w.begin_array();

@@ -12,10 +12,19 @@ double region_cover_mm(const SectionRules& rules, const RegionDemand& region, co
   return rules.nominal_cover_mm(region.face, std::max(bar.diameter_mm, region.cover_bar_mm));
 }
 
+double region_effective_depth_mm(const RegionDemand& region, double h_mm, double cover_mm, double bar_mm) {
+  if (region.outer_bar_mm > 0.0) return inner_layer_effective_depth_mm(h_mm, cover_mm, region.outer_bar_mm, bar_mm);
+  return outer_layer_effective_depth_mm(h_mm, cover_mm, bar_mm);
+}
+
 Section region_section(const SectionRules& rules, const RegionDemand& region, double width_mm,
                        double thickness_mm, const BarOption& bar, double spacing_mm) {
-  return one_layer_section(width_mm, thickness_mm, region.face, bar, spacing_mm,
-                           region_cover_mm(rules, region, bar));
+  Section section = one_layer_section(width_mm, thickness_mm, region.face, bar, spacing_mm,
+                                      region_cover_mm(rules, region, bar));
+  SectionLayer& layer = section.layers[0];
+  layer.direction = region.direction;
+  layer.d_mm = region_effective_depth_mm(region, thickness_mm, layer.cover_mm, bar.diameter_mm);
+  return section;
 }
 
 RegionOutcome check_arrangement(const SectionRules& section_rules, const MemberRules& member_rules,

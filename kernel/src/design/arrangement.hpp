@@ -13,8 +13,14 @@ namespace armature {
 // where it is larger than this bar.
 double region_cover_mm(const SectionRules& rules, const RegionDemand& region, const BarOption& bar);
 
-// The section of a strip's region for one arrangement: one layer along
-// the span on the region's face, at the face's cover.
+// The effective depth of a region's bars: the face's outer layer, or a
+// layer laid on the outer layer's bars (RegionDemand::outer_bar_mm > 0,
+// a two-way slab's inner direction).
+double region_effective_depth_mm(const RegionDemand& region, double h_mm, double cover_mm, double bar_mm);
+
+// The section of a region for one arrangement: one layer, the region's
+// own (along the span of a strip, in x or y of a plate), on the region's
+// face at the face's cover, at its effective depth.
 Section region_section(const SectionRules& rules, const RegionDemand& region, double width_mm,
                        double thickness_mm, const BarOption& bar, double spacing_mm);
 

@@ -22,6 +22,7 @@
 #include "call_code.hpp"
 #include "loads.hpp"
 #include "search.hpp"
+#include "two_way_design.hpp"
 
 #ifndef ARMATURE_VERSION
 #define ARMATURE_VERSION "0.0.0"
@@ -162,6 +163,13 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     apply_default_strength(practice, j, req, problems);
     call_code(id, "input validation", [&] { code->validate(req, problems); });
   }
+  if (req.slab_type == SlabType::two_way) {  // a two-way slab: its own path (two_way_design.cpp)
+    req.slab.strip_width_mm = 1000.0;        // every result per metre, whatever the practice strip
+    if (problems.empty()) add_two_way_problems(req, problems);
+    problems.raise_if_any();
+    const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
+    return design_two_way(*checker, std::move(id), req, detail);
+  }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
   if (problems.empty()) member.add_scope_problems(problems);
   // With other problems the code's checker cannot be opened: the regions
@@ -181,6 +189,12 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                               [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
+  if (req.slab_type == SlabType::two_way) {  // a two-way slab: its own path (two_way_design.cpp)
+    add_two_way_problems(req, problems);
+    problems.raise_if_any();
+    const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
+    return design_two_way(*checker, std::move(id), req, detail);
+  }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
   add_action_problems(req, problems);
   member.add_scope_problems(problems);

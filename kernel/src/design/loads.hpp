@@ -16,7 +16,9 @@
 
 namespace armature {
 
-inline bool whole_strip_uniform(const Action& a) { return a.distribution == Distribution::uniform && !a.span; }
+inline bool whole_strip_uniform(const Action& a) {
+  return a.distribution == Distribution::uniform && !a.span && !a.plan_mm;  // a two-way patch is located
+}
 
 // Uniform over the whole of span e (a whole-strip action, or one on that
 // span with no from/to).

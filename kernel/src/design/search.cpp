@@ -42,7 +42,7 @@ class CandidateSection {
     section_.h_mm = rules.thickness_mm;
     section_.layers.resize(1);
     section_.layers[0].face = region.face;
-    section_.layers[0].direction = BarDirection::span;
+    section_.layers[0].direction = region.direction;
   }
   // The bar of the candidates that follow, at its cover.
   void set_bar(const BarOption& bar) {
@@ -50,7 +50,7 @@ class CandidateSection {
     layer.cover_mm =
         call_code(code_, "nominal cover", [&] { return region_cover_mm(rules_.section, region_, bar); });
     layer.bar = bar;
-    layer.d_mm = outer_layer_effective_depth_mm(section_.h_mm, layer.cover_mm, bar.diameter_mm);
+    layer.d_mm = region_effective_depth_mm(region_, section_.h_mm, layer.cover_mm, bar.diameter_mm);
   }
   void set_spacing(double spacing_mm) { section_.layers[0].spacing_mm = spacing_mm; }
 

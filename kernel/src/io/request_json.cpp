@@ -250,7 +250,10 @@ void read_support_widths(const json& widths, InputProblems& problems, bool geome
 }
 
 void read_slab(const json& j, InputProblems& problems, SlabInput& slab) {
-  ObjectReader r(j, "slab", problems, {"spans_m", "ends", "thickness_mm", "strip_width_mm", "support_widths_mm"});
+  ObjectReader r(j, "slab", problems,
+                 {"type", "spans_m", "ends", "thickness_mm", "strip_width_mm", "support_widths_mm"});
+  if (auto type = r.text("type"); type && *type != "one_way")  // "two_way" is read by read_two_way_slab
+    problems.add("slab.type", "must be \"one_way\" or \"two_way\", got \"" + *type + "\"");
   const std::size_t problems_before = problems.items().size();
   const PlainAlias* alias = nullptr;
   bool plain_given = false;
@@ -328,7 +331,7 @@ void read_concrete(const json& j, InputProblems& problems, ConcreteInput& c) {
 // code's rule for pinned ends) and whether the bar is in the catalogue
 // (the code's validate) are checked later; a field with a problem here is
 // left empty, and those checks pass over it.
-void read_given(const json& list, InputProblems& problems, std::vector<GivenBars>& out) {
+void read_given(const json& list, InputProblems& problems, std::vector<GivenBars>& out, bool two_way) {
   for (std::size_t i = 0; i < list.size(); ++i) {
     const std::string path = "reinforcement.given[" + std::to_string(i) + "]";
     const json& entry = list[i];
@@ -356,7 +359,12 @@ void read_given(const json& list, InputProblems& problems, std::vector<GivenBars
     }
     // A one-way strip's main bars run along it (x, as the regions' x_m);
     // its distribution bars are no design region.
-    if (auto direction = r.text("direction"); direction && *direction != "x")
+    if (two_way) {  // a two-way slab's region has bars in x and in y
+      if (auto direction = r.text("direction", true)) {
+        if (*direction == "x" || *direction == "y") g.direction = *direction;
+        else problems.add(path + ".direction", "must be \"x\" or \"y\", got \"" + *direction + "\"");
+      }
+    } else if (auto direction = r.text("direction"); direction && *direction != "x")
       problems.add(path + ".direction",
                    "a one-way strip's main bars run along the strip: \"x\" (or leave it out), got \"" +
                        *direction + "\"");
@@ -369,10 +377,10 @@ void read_given(const json& list, InputProblems& problems, std::vector<GivenBars
   }
 }
 
-void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInput& s) {
+void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInput& s, bool two_way = false) {
   ObjectReader r(j, "reinforcement", problems,
                  {"yield_strength_MPa", "bars", "ductility_class", "spacing_step_mm", "min_spacing_mm",
-                  "given", "rationalise"});
+                  "given", "rationalise", "outer_layer"});
   s.yield_strength_MPa = r.number("yield_strength_MPa");
   if (auto c = r.text("ductility_class")) {
     if (*c == "A") s.ductility_class = DuctilityClass::A;
@@ -390,7 +398,7 @@ void read_reinforcement(const json& j, InputProblems& problems, ReinforcementInp
     else problems.add("reinforcement.rationalise",
                       "must be \"none\" or \"uniform_bottom\", got \"" + *how + "\"");
   }
-  if (const json* given = r.array("given")) read_given(*given, problems, s.given);
+  if (const json* given = r.array("given")) read_given(*given, problems, s.given, two_way);
   if (const json* bars = r.array("bars")) {
     if (bars->empty()) {
       problems.add("reinforcement.bars", "must list at least one bar");
@@ -582,8 +590,13 @@ std::optional<Action> read_action(const json& e, const std::string& path, const 
   return a;
 }
 
+std::optional<Action> read_plan_action(const json& e, const std::string& path,
+                                       const std::optional<std::array<double, 2>>& plan, InputProblems& problems);
+
+// `plan`: a two-way slab's actions are placed in plan (read_plan_action),
+// against its extent where known.
 void read_loads(const json& j, InputProblems& problems, LoadsInput& l, const std::vector<double>& spans_mm,
-                bool spans_known) {
+                bool spans_known, const std::optional<std::array<double, 2>>* plan = nullptr) {
   ObjectReader r(j, "loads", problems, {"dead_kPa", "imposed_kPa", "imposed_category", "actions"});
   const bool actions_given = r.find("actions") != nullptr;
   if (auto g = r.in_range(r.number("dead_kPa"), "dead_kPa", 0, 100, "kPa")) l.dead_MPa = *g * 1e-3;
@@ -617,7 +630,8 @@ void read_loads(const json& j, InputProblems& problems, LoadsInput& l, const std
         }
       else
         names.push_back(std::string());
-      if (auto a = read_action(e, path, spans_mm, spans_known, problems)) l.actions.push_back(std::move(*a));
+      if (auto a = plan ? read_plan_action(e, path, *plan, problems) : read_action(e, path, spans_mm, spans_known, problems))
+        l.actions.push_back(std::move(*a));
     }
   }
 }
@@ -756,6 +770,227 @@ void read_detailing(const json& j, InputProblems& problems, DetailingInput& d) {
   }
 }
 
+// ---- two-way slabs (contract-v2 section 2) ---------------------------------
+
+constexpr const char* not_yet_two_way = "not available yet for two_way slabs";
+
+// slab of a two-way slab: x_spans_m, y_spans_m, edges, thickness_mm. The
+// one-way keys are refused, naming what a two-way slab takes instead.
+void read_two_way_slab(const json& j, InputProblems& problems, Request& req) {
+  ObjectReader r(j, "slab", problems,
+                 {"type", "x_spans_m", "y_spans_m", "edges", "thickness_mm", "spans_m", "ends", "strip_width_mm",
+                  "support_widths_mm"});
+  req.slab_type = SlabType::two_way;
+  TwoWayInput& t = req.two_way;
+  auto spans = [&](const char* key, std::vector<double>& out) {
+    const json* list = r.array(key, true);
+    if (!list) return;
+    const std::string name = std::string("slab.") + key;
+    if (list->empty() || list->size() > max_spans) {
+      problems.add(name, "must list 1 to " + std::to_string(max_spans) + " bays, got " + std::to_string(list->size()));
+      return;
+    }
+    for (std::size_t i = 0; i < list->size(); ++i) {
+      const std::string f = name + "[" + std::to_string(i) + "]";
+      auto v = r.number_value((*list)[i], f);
+      if (!v) continue;
+      if (*v <= 0.0 || *v > 30.0) {
+        problems.add(f, "must be greater than 0 m and at most 30 m, got " + format_number(*v));
+        continue;
+      }
+      out.push_back(*v * 1000.0);
+    }
+  };
+  spans("x_spans_m", t.x_spans_mm);
+  spans("y_spans_m", t.y_spans_mm);
+  if (const json* edges = r.object("edges")) {
+    ObjectReader e(*edges, "slab.edges", problems, {"x0", "x1", "y0", "y1"});
+    const char* keys[4] = {"x0", "x1", "y0", "y1"};
+    for (std::size_t k = 0; k < 4; ++k) {
+      auto name = e.text(keys[k]);
+      if (!name) continue;
+      if (*name == "pinned") t.edges[k] = EndSupport::pinned;
+      else if (*name == "fixed") t.edges[k] = EndSupport::fixed;
+      else if (*name == "free") t.edges[k] = EndSupport::free;
+      else problems.add(e.field(keys[k]), "must be \"pinned\", \"fixed\" or \"free\", got \"" + *name + "\"");
+    }
+  }
+  if (auto h = r.in_range(r.number("thickness_mm", true), "thickness_mm", 50, 1500, "mm")) req.slab.thickness_mm = *h;
+  req.slab.strip_width_mm = 1000.0;  // every result per metre
+  if (r.find("spans_m")) problems.add("slab.spans_m", "belongs to one-way slabs; a two_way slab takes x_spans_m and y_spans_m");
+  if (r.find("ends")) problems.add("slab.ends", "belongs to one-way slabs; a two_way slab takes edges (x0, x1, y0, y1)");
+  if (r.find("strip_width_mm"))
+    problems.add("slab.strip_width_mm", "does not apply to two_way slabs: every result is per metre width");
+  if (r.find("support_widths_mm")) problems.add("slab.support_widths_mm", not_yet_two_way);
+}
+
+// analysis (two-way slabs): poisson_ratio, mesh_per_bay.
+void read_analysis(const json& j, InputProblems& problems, Request& req) {
+  ObjectReader r(j, "analysis", problems, {"poisson_ratio", "mesh_per_bay"});
+  if (req.slab_type != SlabType::two_way) {
+    problems.add("analysis", "applies to two_way slabs only (slab.type)");
+    return;
+  }
+  if (auto nu = r.number("poisson_ratio")) {
+    if (*nu < 0.0 || *nu >= 0.5)
+      problems.add("analysis.poisson_ratio", "must be at least 0 and less than 0.5, got " + format_number(*nu));
+    else
+      req.two_way.poisson_ratio = *nu;
+  }
+  if (auto n = r.number("mesh_per_bay")) {
+    if (*n != std::floor(*n) || *n < 2 || *n > 40)
+      problems.add("analysis.mesh_per_bay", "must be a whole number from 2 to 40, got " + format_number(*n));
+    else
+      req.two_way.mesh_per_bay = static_cast<int>(*n);
+  }
+}
+
+// A plan point [x, y] in m, as mm; problems named by `f`.
+std::optional<std::array<double, 2>> plan_point(const json* v, const std::string& f, InputProblems& problems) {
+  if (!v->is_array() || v->size() != 2 || !(*v)[0].is_number() || !(*v)[1].is_number()) {
+    problems.add(f, "must be a plan point [x, y] in m, got " + describe(*v));
+    return std::nullopt;
+  }
+  const double x = (*v)[0].get<double>(), y = (*v)[1].get<double>();
+  if (!std::isfinite(x) || !std::isfinite(y)) {
+    problems.add(f, "must be finite");
+    return std::nullopt;
+  }
+  return std::array<double, 2>{x * 1000.0, y * 1000.0};
+}
+
+// One entry of loads.actions on a two-way slab: a uniform load over the
+// whole slab (kPa) or a patch (kPa with from_m and to_m, opposite corners
+// [x, y]), a line load (line_kN_per_m from from_m to to_m, parallel to x or
+// y) or a point load (point_kN at x_m, y_m). Positions are checked against
+// the plate (Σ x_spans, Σ y_spans) when `plan` is known.
+std::optional<Action> read_plan_action(const json& e, const std::string& path,
+                                       const std::optional<std::array<double, 2>>& plan, InputProblems& problems) {
+  if (!e.is_object()) {
+    problems.add(path, "must be an object with name, kind and one of kPa, line_kN_per_m or point_kN, got " +
+                           describe(e));
+    return std::nullopt;
+  }
+  const std::size_t before = problems.items().size();
+  // The version 1 fields go through read_action with no spans; its
+  // problems about span, at_m and the positions are replaced by ours.
+  json stripped = e;
+  for (const char* k : {"from_m", "to_m", "x_m", "y_m", "span", "at_m", "effective_width_m"}) stripped.erase(k);
+  // A strip's line and point loads need a span and a position there: given
+  // placeholders here (no spans to check them against), cleared below.
+  if (stripped.contains("line_kN_per_m") || stripped.contains("point_kN")) {
+    stripped["span"] = 1;
+    stripped["at_m"] = 0.0;
+    if (stripped.contains("point_kN")) stripped["effective_width_m"] = 1.0;
+  }
+  InputProblems own;
+  auto a = read_action(stripped, path, {}, false, own);
+  if (a) {
+    a->span.reset();
+    a->at_mm = 0.0;
+    a->effective_width_mm = 0.0;
+  }
+  for (const auto& p : own.items())
+    if (p.field != path + ".span" && p.field != path + ".at_m" && p.field != path + ".effective_width_m")
+      problems.add(p.field, p.message);
+  Action out = a.value_or(Action{});
+  out.field = path;
+  if (!a) {  // the distribution still decides which positions apply
+    if (e.contains("kPa")) out.distribution = Distribution::uniform;
+    else if (e.contains("line_kN_per_m")) out.distribution = Distribution::line;
+    else out.distribution = Distribution::point;
+  }
+  for (const char* k : {"span", "at_m", "effective_width_m"})
+    if (e.contains(k))
+      problems.add(path + "." + k, "belongs to one-way slabs; a two_way slab places loads by plan position "
+                                   "(from_m and to_m as [x, y], or x_m and y_m)");
+  auto inside = [&](const std::array<double, 2>& p, const std::string& f) {
+    if (!plan) return true;
+    const double tol = 1e-9 * ((*plan)[0] + (*plan)[1]);
+    if (p[0] < -tol || p[1] < -tol || p[0] > (*plan)[0] + tol || p[1] > (*plan)[1] + tol) {
+      problems.add(f, "must lie on the slab (x from 0 to " + format_number((*plan)[0] / 1000.0) + " m, y from 0 to " +
+                          format_number((*plan)[1] / 1000.0) + " m), got [" + format_number(p[0] / 1000.0) + ", " +
+                          format_number(p[1] / 1000.0) + "]");
+      return false;
+    }
+    return true;
+  };
+  const bool from = e.contains("from_m"), to = e.contains("to_m");
+  if (out.distribution == Distribution::point) {
+    for (const char* k : {"from_m", "to_m"})
+      if (e.contains(k)) problems.add(path + "." + k, "applies to patches and line loads; a point load takes x_m and y_m");
+    std::optional<double> x, y;
+    for (const char* k : {"x_m", "y_m"}) {
+      const auto it = e.find(k);
+      if (it == e.end()) {
+        problems.add(path + "." + k, "required: the point load's plan position, in m");
+        continue;
+      }
+      if (!it->is_number() || !std::isfinite(it->get<double>())) {
+        problems.add(path + "." + k, "must be a number (m), got " + describe(*it));
+        continue;
+      }
+      (k[0] == 'x' ? x : y) = it->get<double>() * 1000.0;
+    }
+    if (x && y && inside({*x, *y}, path + ".x_m")) out.plan_mm = std::array<double, 4>{*x, *y, *x, *y};
+  } else {
+    for (const char* k : {"x_m", "y_m"})
+      if (e.contains(k)) problems.add(path + "." + k, "applies to point loads; patches and line loads take from_m and to_m");
+    const bool line = out.distribution == Distribution::line;
+    if (from != to || (line && !from)) {
+      problems.add(path + "." + (from ? "to_m" : "from_m"),
+                   line ? "required: a line load runs from from_m to to_m, each [x, y] in m"
+                        : "required with the other: a patch is the rectangle with corners from_m and to_m, [x, y] in m");
+    } else if (from) {
+      const auto p = plan_point(&e.at("from_m"), path + ".from_m", problems);
+      const auto q = plan_point(&e.at("to_m"), path + ".to_m", problems);
+      if (p && q && inside(*p, path + ".from_m") && inside(*q, path + ".to_m")) {
+        if (line) {
+          const bool along_x = (*p)[1] == (*q)[1], along_y = (*p)[0] == (*q)[0];
+          if (along_x == along_y)
+            problems.add(path + ".to_m", along_x ? "must differ from from_m: a line load has a length"
+                                                 : "must share x or y with from_m: a line load runs parallel to x or y");
+          else
+            out.plan_mm = std::array<double, 4>{std::min((*p)[0], (*q)[0]), std::min((*p)[1], (*q)[1]),
+                                                std::max((*p)[0], (*q)[0]), std::max((*p)[1], (*q)[1])};
+        } else if ((*p)[0] == (*q)[0] || (*p)[1] == (*q)[1]) {
+          problems.add(path + ".to_m", "a patch must have an area: from_m and to_m are opposite corners");
+        } else {
+          out.plan_mm = std::array<double, 4>{std::min((*p)[0], (*q)[0]), std::min((*p)[1], (*q)[1]),
+                                              std::max((*p)[0], (*q)[0]), std::max((*p)[1], (*q)[1])};
+        }
+      }
+    }
+  }
+  if (problems.items().size() != before) return std::nullopt;
+  return out;
+}
+
+// loads of a two-way slab: as a strip's, each action placed in plan.
+void read_two_way_loads(const json& j, InputProblems& problems, Request& req) {
+  std::optional<std::array<double, 2>> plan;
+  const bool spans_ok = std::none_of(problems.items().begin(), problems.items().end(), [](const InputProblem& p) {
+    return p.field.rfind("slab.x_spans_m", 0) == 0 || p.field.rfind("slab.y_spans_m", 0) == 0;
+  });
+  if (spans_ok && !req.two_way.x_spans_mm.empty() && !req.two_way.y_spans_mm.empty()) {
+    double X = 0.0, Y = 0.0;
+    for (double s : req.two_way.x_spans_mm) X += s;
+    for (double s : req.two_way.y_spans_mm) Y += s;
+    plan = std::array<double, 2>{X, Y};
+  }
+  read_loads(j, problems, req.loads, {}, false, &plan);
+}
+
+// What a two-way slab does not take yet, named (never ignored).
+void add_two_way_scope_problems(const Request& req, InputProblems& problems) {
+  if (req.design.redistribution_percent > 0.0) problems.add("design.redistribution_percent", not_yet_two_way);
+  if (req.reinforcement.rationalise != Rationalise::none) problems.add("reinforcement.rationalise", not_yet_two_way);
+  if (req.detailing.requested) problems.add("detailing", not_yet_two_way);
+  if (req.serviceability.calculated_deflection())
+    problems.add("serviceability.deflection", "\"calculated\" and \"both\" are " + std::string(not_yet_two_way) +
+                                                  "; give \"span_depth\" or leave the field out");
+}
+
 }  // namespace
 
 bool request_gives(const json& j, const std::string& field) {
@@ -786,7 +1021,7 @@ Request request_from_json(const json& j, InputProblems& problems) {
   }
   ObjectReader r(j, "", problems,
                  {"code", "variant", "slab", "concrete", "reinforcement", "loads", "durability",
-                  "fire", "design", "serviceability", "report_units", "project", "detailing"});
+                  "fire", "design", "serviceability", "report_units", "project", "detailing", "analysis"});
   if (const json* p = r.object("project")) {
     ObjectReader pr(*p, "project", problems, {"name", "reference", "designer", "checker"});
     req.project.name = pr.text("name").value_or("");
@@ -801,10 +1036,16 @@ Request request_from_json(const json& j, InputProblems& problems) {
     else problems.add("report_units", "must be \"SI\" or \"US\", got \"" + *units + "\"");
   }
   req.variant = r.text("variant");
-  if (const json* s = r.object("slab", true)) read_slab(*s, problems, req.slab);
+  const json* slab = r.object("slab", true);
+  const bool two_way = slab && slab->contains("type") && (*slab)["type"] == "two_way";
+  if (slab && two_way) read_two_way_slab(*slab, problems, req);
+  else if (slab) read_slab(*slab, problems, req.slab);
+  if (const json* a = r.object("analysis")) read_analysis(*a, problems, req);
   if (const json* c = r.object("concrete", true)) read_concrete(*c, problems, req.concrete);
-  if (const json* s = r.object("reinforcement")) read_reinforcement(*s, problems, req.reinforcement);
-  if (const json* l = r.object("loads", true)) {
+  if (const json* s = r.object("reinforcement")) read_reinforcement(*s, problems, req.reinforcement, two_way);
+  if (two_way) {
+    if (const json* l = r.object("loads", true)) read_two_way_loads(*l, problems, req);
+  } else if (const json* l = r.object("loads", true)) {
     // Positions of actions are checked against the spans when those are good.
     const bool spans_known = !req.slab.spans_mm.empty() && !problems.has_field("slab.spans_m") &&
                              !problems.has_field("slab.spans") &&
@@ -817,6 +1058,13 @@ Request request_from_json(const json& j, InputProblems& problems) {
   if (const json* d = r.object("design")) read_design(*d, problems, req.design);
   if (const json* s = r.object("serviceability")) read_serviceability(*s, problems, req.serviceability);
   if (const json* d = r.object("detailing")) read_detailing(*d, problems, req.detailing);
+  if (two_way) add_two_way_scope_problems(req, problems);
+  if (request_gives(j, "reinforcement.outer_layer")) {
+    const json& o = j["reinforcement"]["outer_layer"];
+    if (!two_way) problems.add("reinforcement.outer_layer", "applies to two_way slabs only (slab.type)");
+    else if (o == "x" || o == "y") req.two_way.outer_layer = o.get<std::string>();
+    else problems.add("reinforcement.outer_layer", "must be \"x\" or \"y\", got " + describe(o));
+  }
   return req;
 }
 

@@ -1,7 +1,10 @@
 #include "armature/quantities.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <string>
+
+#include "armature/two_way.hpp"
 
 namespace armature {
 
@@ -25,11 +28,42 @@ double bar_length_mm(const DesignRecord& r, const RegionRecord& g) {
   }
   return length;
 }
+// A two-way slab: bottom bars over their bay (length in their direction,
+// the bay's width across), top bars along each supported segment reaching
+// top_bar_reach of each adjacent span across the line.
+double plate_steel_mass_kg_per_m2(const DesignRecord& r) {
+  const PlateRecord& p = *r.plate;
+  const double X = p.x_lines_mm.back() - p.x_lines_mm.front(), Y = p.y_lines_mm.back() - p.y_lines_mm.front();
+  if (!(X > 0.0 && Y > 0.0)) return 0.0;
+  double volume_mm3 = 0.0;  // As_prov per metre (mm²/m) × area (mm²) / 1000 mm
+  for (const auto& g : r.regions) {
+    double area_mm2 = 0.0;
+    if (g.face == Face::bottom) {
+      for (const auto& b : p.bays)
+        if (b.name == g.where) area_mm2 = (b.x1_mm - b.x0_mm) * (b.y1_mm - b.y0_mm);
+    } else {
+      for (const auto& l : p.reactions) {
+        if (l.name != g.where) continue;
+        const auto& across = l.runs_along == PlanAxis::y ? p.x_lines_mm : p.y_lines_mm;
+        double reach = 0.0;
+        for (std::size_t k = 0; k < across.size(); ++k) {
+          if (std::abs(across[k] - l.position_mm) > 1e-6) continue;
+          if (k > 0) reach += top_bar_reach * (across[k] - across[k - 1]);
+          if (k + 1 < across.size()) reach += top_bar_reach * (across[k + 1] - across[k]);
+        }
+        area_mm2 = (l.to_mm - l.from_mm) * reach;
+      }
+    }
+    volume_mm3 += g.bars.As_prov_mm2 * area_mm2 / 1000.0;
+  }
+  return volume_mm3 / (X * Y) * 1e-3 * steel_density_kg_m3;  // mm³/mm² = mm → m
+}
 }  // namespace
 
 double steel_mass_kg_per_m2(const DesignRecord& r) {
   // A detailed design: the bar schedule's mass (every bar as cut) over the floor.
   if (r.detailing) return r.detailing->mass_per_area_kg_m2;
+  if (r.plate) return plate_steel_mass_kg_per_m2(r);
   double strip_length = 0.0;
   for (double L : r.spans_mm) strip_length += L;
   if (strip_length <= 0.0 || r.strip_width_mm <= 0.0) return 0.0;

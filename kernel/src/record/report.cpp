@@ -16,6 +16,7 @@
 #include "armature/errors.hpp"
 #include "armature/format.hpp"
 #include "armature/json_io.hpp"
+#include "armature/two_way.hpp"
 #include "armature/units.hpp"
 
 namespace armature {
@@ -181,7 +182,9 @@ struct Part {
 std::vector<Part> parts_of(const DesignRecord& r) {
   std::vector<Part> parts;
   for (const auto& g : r.regions) {
-    Part p{g.where + (g.face == Face::bottom ? ": bottom steel (sagging)" : ": top steel (hogging)"), &g, {}};
+    Part p{g.where + (g.direction != BarDirection::span ? std::string(", bars in ") + to_string(g.direction) : "") +
+               (g.face == Face::bottom ? ": bottom steel (sagging)" : ": top steel (hogging)"),
+           &g, {}};
     for (const auto& c : g.checks) p.checks.push_back(&c);
     parts.push_back(std::move(p));
   }
@@ -515,6 +518,74 @@ std::string section_svg(const DesignRecord& r, const RegionRecord& g) {
   return o + "</svg>";
 }
 
+// ---- two-way slabs ---------------------------------------------------------------
+// What the record says of a plate where a strip's text would not fit.
+
+const char* record_heading(const DesignRecord& r) {
+  return r.plate ? "Calculation record: two-way slab" : "Calculation record: one-way slab strip";
+}
+
+std::string plate_slab_text(const DesignRecord& r) {
+  const PlateRecord& p = *r.plate;
+  const RecordUnits u = units_of(r);
+  std::string t = std::to_string(p.x_lines_mm.size() - 1) + " × " + std::to_string(p.y_lines_mm.size() - 1) +
+                  " bays; x spans ";
+  for (std::size_t i = 0; i + 1 < p.x_lines_mm.size(); ++i)
+    t += (i ? ", " : "") + u.along(p.x_lines_mm[i + 1] - p.x_lines_mm[i]);
+  t += "; y spans ";
+  for (std::size_t j = 0; j + 1 < p.y_lines_mm.size(); ++j)
+    t += (j ? ", " : "") + u.along(p.y_lines_mm[j + 1] - p.y_lines_mm[j]);
+  t += "; edges x0 " + std::string(to_string(p.edges[0])) + ", x1 " + to_string(p.edges[1]) + ", y0 " +
+       to_string(p.edges[2]) + ", y1 " + to_string(p.edges[3]) + "; h = " + u.length(r.thickness_mm) +
+       "; every result per metre width";
+  return t;
+}
+
+std::string plate_analysis_text(const DesignRecord& r) {
+  const PlateRecord& p = *r.plate;
+  return "Linear-elastic Kirchhoff plate by finite elements (Bogner–Fox–Schmit rectangles, " +
+         std::to_string(p.mesh_per_bay) + " per bay side, mesh lines through located loads), Poisson's ratio " +
+         n4(p.poisson_ratio) + "; rigid line supports on every interior grid line; supported lines meeting hold "
+         "the plate down (corners cannot lift). " + std::to_string(p.arrangements) +
+         " bay load arrangements of the code × the ULS combinations (" + std::to_string(r.load_cases) +
+         " load cases, one factorisation), enveloped at the mesh nodes. Design moments by Wood–Armer for bars in "
+         "x and y: bottom mx + |mxy|, my + |mxy| and top −mx + |mxy|, −my + |mxy|, with the cases where one of "
+         "them would be negative. Regions: per bay the largest bottom design moment in x and in y; per supported "
+         "line segment the largest top design moment across the line (a pinned edge at least the code's "
+         "partial-fixity fraction of the adjacent bay's). Outer layers: bottom " + p.outer_layer[0] + ", top " +
+         p.outer_layer[1] + ".";
+}
+
+// Line reactions per segment (ULS envelope).
+std::vector<std::pair<std::string, std::string>> plate_reaction_rows(const DesignRecord& r) {
+  std::vector<std::pair<std::string, std::string>> out;
+  for (const auto& l : r.plate->reactions)
+    out.push_back({l.name, "largest " + n4(l.max_N_per_mm) + " kN/m, resultant up to " + n4(l.max_total_N * 1e-3) +
+                               " kN"});
+  return out;
+}
+
+// The rows a plate region adds: where, which layer, its depth derived.
+std::vector<std::pair<std::string, std::string>> plate_region_rows(const DesignRecord& r, const RegionRecord& g) {
+  const RecordUnits u = units_of(r);
+  const std::size_t f = static_cast<std::size_t>(g.face);
+  const bool outer = r.plate->outer_layer[f] == to_string(g.direction);
+  std::vector<std::pair<std::string, std::string>> out{
+      {"Bars run in", std::string(to_string(g.direction)) + ", " + (outer ? "outer" : "inner") + " layer of the " +
+                          to_string(g.face) + " face"},
+      {"Plan position", "x = " + u.along(g.x_mm) + ", y = " + u.along(g.y_mm)}};
+  if (outer) {
+    out.push_back({"d", "h − c − φ/2 = " + u.length(r.thickness_mm) + " − " + u.length(g.cover_mm) + " − " +
+                            u.length(g.bars.diameter_mm / 2.0) + " = " + u.length(g.d_mm)});
+  } else {
+    const double phi_outer = r.thickness_mm - g.cover_mm - g.bars.diameter_mm / 2.0 - g.d_mm;
+    out.push_back({"d", "h − c − φouter − φ/2 = " + u.length(r.thickness_mm) + " − " + u.length(g.cover_mm) + " − " +
+                            u.length(phi_outer) + " − " + u.length(g.bars.diameter_mm / 2.0) + " = " +
+                            u.length(g.d_mm) + " (φouter: the largest outer bar of the face)"});
+  }
+  return out;
+}
+
 // ---- shared content ------------------------------------------------------------
 struct Title {
   std::vector<std::pair<std::string, std::string>> rows;
@@ -532,7 +603,8 @@ Title title_of(const DesignRecord& r, const json& request, const std::string& da
   for (std::size_t i = 0; i < r.spans_mm.size(); ++i) strip += (i ? ", " : "") + u.along(r.spans_mm[i]);
   strip += "; ends " + std::string(to_string(r.ends[0])) + " / " + to_string(r.ends[1]) + "; h = " +
            u.length(r.thickness_mm) + "; strip width " + u.length(r.strip_width_mm);
-  add("Slab strip", strip);
+  if (r.plate) add("Slab", plate_slab_text(r));
+  else add("Slab strip", strip);
   add("Design code", r.code.id + " (" + r.code.variant + "): " + r.code.title);
   if (u.us) add("Units", "US customary (the JSON result stays SI); derivations in the units of the code's edition");
   add("armature version", version_string());
@@ -645,6 +717,18 @@ std::string bars_source(const DesignRecord& r, const RegionRecord& g) {
 
 std::vector<std::pair<std::string, std::string>> region_rows(const DesignRecord& r, const RegionRecord& g) {
   const RecordUnits u = units_of(r);
+  if (r.plate) {  // per metre, in plan
+    auto rows = plate_region_rows(r, g);
+    for (auto& row : std::vector<std::pair<std::string, std::string>>{
+             {"Design moment M_Ed", u.moment(g.M_Ed) + " per metre"},
+             {"Cover", u.length(g.cover_mm)},
+             {"As,req", u.area(g.As_req_mm2)},
+             {"As,min", u.area(g.As_min_mm2)},
+             {"As,max", u.area(g.As_max_mm2)},
+             {"Bars", u.bars(g.bars) + ", As,prov = " + u.area(g.bars.As_prov_mm2) + bars_source(r, g)}})
+      rows.push_back(std::move(row));
+    return rows;
+  }
   return {{"Design moment M_Ed", u.moment(g.M_Ed) + " at x = " + u.along(g.x_mm)},
           {"Cover", u.length(g.cover_mm)},
           {"Effective depth d", u.length(g.d_mm)},
@@ -674,7 +758,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   std::string o = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>";
   o += esc("Calculation record: " + (r.project.reference.empty() ? r.code.id : r.project.reference)) +
        "</title>\n<style>" + css + "</style>\n</head>\n<body>\n";
-  o += "<h1>Calculation record: one-way slab strip</h1>\n<table class=\"title\">\n";
+  o += "<h1>" + std::string(record_heading(r)) + "</h1>\n<table class=\"title\">\n";
   for (const auto& [k, v] : title_of(r, request, date).rows)
     o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
   o += "</table>\n<p class=\"caution\"><strong>Caution.</strong> " + esc(caution_text) + "</p>\n";
@@ -697,13 +781,18 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   for (const auto& [k, v] : action_rows(r)) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
   o += "</table>\n";
 
+  if (r.plate) {
+    o += "<h2>3 Analysis</h2>\n<p>" + esc(plate_analysis_text(r)) + "</p>\n<h3>Line reactions (ULS)</h3>\n<table>\n";
+    for (const auto& [k, v] : plate_reaction_rows(r)) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
+    o += "</table>\n";
+  } else
   o += "<h2>3 Analysis</h2>\n<p>Elastic continuous beam, uniform stiffness, knife-edge supports; moments and "
        "shears at support centrelines, for the strip width of " + u.length(r.strip_width_mm) +
        (r.support_widths_given ? "; hogging design moments at the faces of supports given a width (see each "
                                  "support's bending check)"
                                : "") +
        ".</p>\n";
-  o += diagram_svg(r, true) + "\n" + diagram_svg(r, false) + "\n";
+  if (!r.plate) o += diagram_svg(r, true) + "\n" + diagram_svg(r, false) + "\n";
   if (!r.deflection_diagrams.empty())
     o += "<p>Calculated deflection: the long-term curvature and deflection of each span with the bars chosen "
          "(see each span's deflection check).</p>\n" +
@@ -716,7 +805,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
       o += "<table>\n";
       for (const auto& [k, v] : region_rows(r, *part.region))
         o += "<tr><td>" + esc(k) + "</td><td class=\"num\">" + esc(v) + "</td></tr>\n";
-      o += "</table>\n" + section_svg(r, *part.region) + "\n";
+      o += "</table>\n" + (r.plate ? std::string() : section_svg(r, *part.region)) + "\n";
     }
     for (const Check* c : part.checks) {
       o += "<div class=\"check\">\n<h4>" + esc(c->id) + " at " + esc(c->where) + ": " + esc(c->clause) + "</h4>\n";
@@ -734,6 +823,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
            "</span></p>\n</div>\n";
     }
   }
+  if (!r.plate)
   o += "<h3>Distribution bars</h3>\n<p>" + esc(u.bars(r.distribution.bars)) + ": As,prov " +
        u.area(r.distribution.bars.As_prov_mm2) + " against As,req " + u.area(r.distribution.As_req_mm2) + ".</p>\n";
   if (r.detailing) o += detailing_html(r, *r.detailing);
@@ -762,7 +852,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
 
 std::string markdown_record(const DesignRecord& r, const json& request, const std::string& date) {
   const RecordUnits u = units_of(r);
-  std::string o = "# Calculation record: one-way slab strip\n\n";
+  std::string o = "# " + std::string(record_heading(r)) + "\n\n";
   for (const auto& [k, v] : title_of(r, request, date).rows) o += "- **" + k + ":** " + v + "\n";
   o += "\n> **Caution.** " + std::string(caution_text) + "\n\n## 1 Inputs\n\n| field | value |\n|---|---|\n";
   std::vector<std::pair<std::string, std::string>> inputs;
@@ -777,6 +867,10 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
   }
   o += "\n## 2 Actions and combinations\n\n| item | value |\n|---|---|\n";
   for (const auto& [k, v] : action_rows(r)) o += "| " + md(k) + " | " + md(v) + " |\n";
+  if (r.plate) {
+    o += "\n## 3 Analysis\n\n" + plate_analysis_text(r) + "\n\n| line reactions (ULS) | value |\n|---|---|\n";
+    for (const auto& [k, v] : plate_reaction_rows(r)) o += "| " + md(k) + " | " + md(v) + " |\n";
+  } else
   o += "\n## 3 Analysis\n\nEnvelopes of the strip (" + std::string(u.moment_u()) + ", " + u.force_u() +
        "), sampled along each span:\n\n| x " + u.along_u() + " | M max | M min | V max | V min |\n|---:|---:|---:|---:|---:|\n";
   // Noise beside the envelope's largest value prints as 0.
@@ -798,6 +892,7 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
     o += "\n### " + part.title + "\n\n";
     if (part.region) {
       for (const auto& [k, v] : region_rows(r, *part.region)) o += "- " + k + ": " + v + "\n";
+      if (!r.plate)
       o += "- Section: h = " + u.length(r.thickness_mm) + ", " +
            (part.region->face == Face::bottom ? "bottom" : "top") + " bars at d = " +
            u.length(part.region->d_mm) + " from the compression face\n";
@@ -811,6 +906,7 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
            unit_text(check_unit(u, *c)) + ": utilisation " + n4(c->utilisation) + ", " + outcome(*c) + "\n";
     }
   }
+  if (!r.plate)
   o += "\n### Distribution bars\n\n" + u.bars(r.distribution.bars) + ": As,prov " +
        u.area(r.distribution.bars.As_prov_mm2) + " against As,req " + u.area(r.distribution.As_req_mm2) + ".\n";
   if (r.detailing) o += detailing_markdown(r, *r.detailing);

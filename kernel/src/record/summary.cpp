@@ -6,6 +6,7 @@
 #include <string>
 
 #include "armature/format.hpp"
+#include "armature/two_way.hpp"
 #include "armature/units.hpp"
 
 namespace armature {
@@ -62,11 +63,68 @@ struct Show {
     return bar_arrangement(b.bar, length(b.spacing_mm), length_unit());
   }
 };
+// The summary of a two-way slab: per metre, by bay (its bottom bars in x
+// and y), then the supported line segments (top bars across each) with
+// their largest line reaction, the checks, the status.
+std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
+  const PlateRecord& p = *r.plate;
+  const std::string L = u.length_unit(), A = u.area_unit();
+  std::string o;
+  o += "armature " + std::string(version_string()) + " | " + r.code.id + " (" + r.code.variant + ") | " +
+       r.code.title + "\n";
+  o += u.us ? "Units      US customary (the JSON result stays SI)\n" : "";
+  o += "\n";
+  o += "Slab       two-way, " + std::to_string(p.x_lines_mm.size() - 1) + " x " + std::to_string(p.y_lines_mm.size() - 1) +
+       " bays, edges x0 " + to_string(p.edges[0]) + ", x1 " + to_string(p.edges[1]) + ", y0 " + to_string(p.edges[2]) +
+       ", y1 " + to_string(p.edges[3]) + "; plate analysis, " + std::to_string(p.mesh_per_bay) +
+       " elements per bay side, Poisson's ratio " + fmt("%.2f", p.poisson_ratio) + "; Wood–Armer design moments\n";
+  o += "Loads      self-weight " + fmt("%.2f", u.load(r.loads.self_weight)) + " " + u.load_unit() + ", ULS " +
+       fmt("%.2f", u.load(r.loads.uls)) + " " + u.load_unit() + " [" + r.loads.combination + "], " +
+       std::to_string(r.load_arrangements) + " bay load arrangements, " + std::to_string(r.load_cases) +
+       " ULS load cases\n";
+  o += "Cover     ";
+  for (const Face face : {Face::top, Face::bottom})
+    if (r.cover_mm(face) > 0.0)
+      o += std::string(" ") + to_string(face) + " " + fmt(u.us ? "%.2f" : "%.0f", u.length(r.cover_mm(face))) + " " +
+           L + (face == Face::top && r.cover_mm(Face::bottom) > 0.0 ? "," : "");
+  o += "; outer layers: bottom " + p.outer_layer[0] + ", top " + p.outer_layer[1] + "\n\n";
+  const std::string per_m = u.us ? "" : "/m";
+  o += pad("Region", 20) + pad("face", 8) + pad("dir", 5) + rpad("x m", 7) + rpad("y m", 7) +
+       rpad(std::string("M_Ed ") + u.moment_unit() + per_m, 14) + rpad("d " + L, 8) + rpad("As,req", 9) + "   " +
+       pad("bars", 16) + rpad("As,prov " + A + per_m, 14) + "\n";
+  for (const auto& g : r.regions)
+    o += pad(g.where, 20) + pad(to_string(g.face), 8) + pad(to_string(g.direction), 5) +
+         rpad(fmt("%.2f", g.x_mm * 1e-3), 7) + rpad(fmt("%.2f", g.y_mm * 1e-3), 7) +
+         rpad(fmt("%.2f", u.moment(g.M_Ed)), 14) + rpad(fmt(u.length_format(), u.length(g.d_mm)), 8) +
+         rpad(fmt(u.area_format(), u.area(g.As_req_mm2)), 9) + "   " + pad(u.bars(g.bars), 16) +
+         rpad(fmt(u.area_format(), u.area(g.bars.As_prov_mm2)), 14) + "\n";
+  o += "\n" + pad("Line reactions (ULS)", 28) + rpad("max kN/m", 10) + rpad("total kN", 10) + "\n";
+  for (const auto& l : p.reactions)
+    o += pad(l.name, 28) + rpad(fmt("%.1f", l.max_N_per_mm), 10) + rpad(fmt("%.1f", l.max_total_N * 1e-3), 10) + "\n";
+  o += "\n";
+  o += pad("Check", 12) + pad("where", 20) + rpad("demand", 10) + rpad("capacity", 10) + "  " + pad("unit", u.us ? 10 : 7) +
+       rpad("util", 6) + "  " + pad("", 5) + "clause\n";
+  for (const Check* c : r.all_checks()) {
+    const auto [demand, unit] = u.check_value(c->demand, c->unit);
+    const double capacity = u.check_value(c->capacity, c->unit).first;
+    const double scale = std::max(std::abs(demand), std::abs(capacity));
+    o += pad(c->id, 12) + pad(c->where, 20) + rpad(plain_number(demand, scale), 10) +
+         rpad(plain_number(capacity, scale), 10) + "  " + pad(unit, u.us ? 10 : 7) + rpad(util(c->utilisation), 6) +
+         "  " + pad(c->pass ? "ok" : "FAIL", 5) + c->clause + "\n";
+  }
+  o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " + util(r.max_utilisation) + " (" +
+       r.governing_check + ", " + r.governing_where + ")\n";
+  o += "Not checked yet for two-way slabs: the free-edge and corner detailing rules.\n";
+  for (const auto& w : r.warnings) o += "Warning    " + w + "\n";
+  o += "\nCaution    " + std::string(caution_text) + "\n";
+  return o;
+}
 }  // namespace
 
 std::string format_summary(const DesignRecord& r) {
   const bool us = r.report_units == ReportUnits::US;
   const Show u{us, us ? m_per_ft * 1000.0 / r.strip_width_mm : 1.0};
+  if (r.plate) return format_two_way_summary(r, u);
   const std::string L = u.length_unit(), A = u.area_unit();
   std::string o;
   o += "armature " + std::string(version_string()) + " | " + r.code.id + " (" + r.code.variant +

@@ -122,7 +122,9 @@ StudyRow design_row(const Registry& registry, const json& request) {
     row.concrete_m3_m2 = concrete_volume_m3_per_m2(r);
     row.thickness_mm = r.thickness_mm;
     row.regions.reserve(r.regions.size());
-    for (const auto& g : r.regions) row.regions.push_back({g.where, g.bars.bar, g.bars.spacing_mm, g.bars.As_prov_mm2, g.bars_given});
+    for (const auto& g : r.regions)  // a two-way region is named with its direction: "bay 1,1 x"
+      row.regions.push_back({g.direction == BarDirection::span ? g.where : g.where + " " + to_string(g.direction),
+                             g.bars.bar, g.bars.spacing_mm, g.bars.As_prov_mm2, g.bars_given});
   } catch (const InputError& e) {
     row.error = e.what();
   } catch (const std::exception& e) {

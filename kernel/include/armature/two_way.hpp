@@ -1,0 +1,113 @@
+// The two-way slab member (contract-v2 section 2): a grid of bays on line
+// supports, analysed as a plate (plate.hpp) under the code's combinations
+// and bay load arrangements, designed by Wood–Armer moments in regions per
+// bay (bottom, x and y) and per supported line segment (top). No clause
+// inside: what a code decides arrives as numbers.
+#pragma once
+
+#include <array>
+#include <cstddef>
+#include <string>
+#include <vector>
+
+#include "armature/code.hpp"
+#include "armature/combinations.hpp"
+#include "armature/plate.hpp"
+#include "armature/request.hpp"
+
+namespace armature {
+
+// A supported line segment of the result (and its reactions).
+struct PlateLineRecord {
+  std::string name;                   // "edge x0 segment 1", "grid y2 segment 3"
+  PlanAxis runs_along = PlanAxis::y;
+  double position_mm = 0.0;           // x of a line running along y; y of one along x
+  double from_mm = 0.0, to_mm = 0.0;  // along the line
+  double max_N_per_mm = 0.0;          // largest ULS line reaction along the segment (upward)
+  double max_total_N = 0.0;           // largest ULS resultant of the segment's line reactions
+};
+
+// Node-line samples of the ULS envelope, node index ix + (x count)·iy,
+// moments N·mm/mm (sagging positive; design moments ≥ 0).
+struct PlateFieldRecord {
+  std::vector<double> x_mm, y_mm;
+  std::vector<double> mx_max, mx_min, my_max, my_min, mxy_max, mxy_min;
+  std::vector<double> bottom_x, bottom_y, top_x, top_y;  // Wood–Armer envelope
+};
+
+struct PlateBayRecord {
+  std::string name;  // "bay i,j"
+  double x0_mm = 0.0, x1_mm = 0.0, y0_mm = 0.0, y1_mm = 0.0;
+};
+
+// What the result, the summary and the record show of the plate.
+struct PlateRecord {
+  std::vector<double> x_lines_mm, y_lines_mm;
+  std::array<EndSupport, 4> edges{};  // x0, x1, y0, y1
+  std::vector<PlateBayRecord> bays;
+  PlateFieldRecord field;
+  std::vector<PlateLineRecord> reactions;
+  double poisson_ratio = 0.2;
+  int mesh_per_bay = 0;
+  std::array<std::string, 2> outer_layer{};  // per face (bottom, top): "x" or "y"
+  std::size_t arrangements = 0;              // bay load arrangements of the code
+};
+
+// Name of an outer edge or interior grid line: "edge x0", "edge x1",
+// "grid x2" (the line at x = Σ x_spans[0..2)), "edge y0", "grid y1", ...
+std::string plate_line_name(const SupportLine& line, std::size_t bays_x, std::size_t bays_y);
+// "bay i,j" (from 1).
+std::string plate_bay_name(std::size_t i, std::size_t j);
+
+class TwoWayPlate {
+ public:
+  // The plate of a valid request; `elastic_modulus_MPa` only scales
+  // deflections, which no check reads (moments and reactions do not
+  // depend on it). Mesh lines pass through the located loads.
+  TwoWayPlate(const Request& request, double elastic_modulus_MPa);
+
+  std::size_t bays_x() const { return model_.bays_x(); }
+  std::size_t bays_y() const { return model_.bays_y(); }
+  const PlateModel& model() const { return model_; }
+
+  // The plate's load case of one combination and arrangement (exposed
+  // for tests): permanent actions everywhere at their `loaded` factor,
+  // variable actions on the loaded bays at `loaded` × variable_fraction
+  // (a patch or line across several bays split at the grid lines).
+  PlateLoadCase load_case(const std::vector<Action>& actions, const Combination& combination,
+                          const BayArrangement& arrangement) const;
+
+  // Every ULS case (combination × arrangement) and the quasi-permanent
+  // cases with every bay loaded, solved on one factorisation and
+  // enveloped; returns the number of ULS cases.
+  std::size_t analyse(const std::vector<Action>& actions, const std::vector<Combination>& combinations,
+                      const std::vector<BayArrangement>& arrangements, double uniform_load_ratio);
+
+  // The design regions: per bay, bottom x and y at the largest Wood–Armer
+  // sagging design moment; per supported line segment, top across the
+  // line at the largest hogging design moment (a pinned edge at least
+  // `pinned_edge_fraction` of the adjacent bay's bottom moment). The outer
+  // layer of each face runs in the direction of its larger moment unless
+  // reinforcement.outer_layer says; regions of the inner layer carry
+  // outer_bar_mm (the driver sets it from the bars chosen).
+  std::vector<RegionDemand> design_regions(double pinned_edge_fraction, std::vector<std::string>& warnings);
+
+  // After design_regions.
+  PlateRecord record() const;
+  // The outer layer's direction of a face, after design_regions.
+  BarDirection outer_direction(Face face) const { return outer_[static_cast<std::size_t>(face)]; }
+
+ private:
+  PlateModel model_;
+  std::string requested_outer_;
+  std::size_t uls_cases_ = 0, arrangements_ = 0;
+  double uniform_ratio_ = 0.0;
+  // Envelopes per node (ULS), and per node the largest design moments
+  // with every bay loaded: ULS and quasi-permanent.
+  PlateFieldRecord field_;
+  std::vector<WoodArmerMoments> all_bays_uls_, all_bays_qp_;
+  std::vector<PlateLineRecord> lines_;
+  std::array<BarDirection, 2> outer_{BarDirection::x, BarDirection::x};
+};
+
+}  // namespace armature

@@ -1,0 +1,224 @@
+// The design of a two-way slab: the code's combinations and bay load
+// arrangements, the plate member (members/two_way.cpp), the bar search of
+// each region with its own effective depth (the inner layer's from the
+// outer layer's bars), and the code's checks of the chosen arrangements.
+#include "two_way_design.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "armature/two_way.hpp"
+#include "call_code.hpp"
+#include "loads.hpp"
+#include "search.hpp"
+
+namespace armature {
+
+namespace {
+
+PlateGeometry checked_geometry(const Request& req) {
+  PlateGeometry g;
+  g.x_spans_mm = req.two_way.x_spans_mm;
+  g.y_spans_mm = req.two_way.y_spans_mm;
+  g.edges = {req.two_way.edges[0], req.two_way.edges[1], req.two_way.edges[2], req.two_way.edges[3]};
+  g.thickness_mm = req.slab.thickness_mm;
+  g.elastic_modulus_MPa = two_way_nominal_modulus_MPa;
+  g.poisson_ratio = req.two_way.poisson_ratio;
+  if (req.two_way.mesh_per_bay > 0) g.mesh_per_bay = req.two_way.mesh_per_bay;
+  return g;
+}
+
+}  // namespace
+
+void add_two_way_problems(const Request& req, InputProblems& problems) {
+  add_plate_problems(checked_geometry(req), problems);
+  double X = 0.0, Y = 0.0;
+  for (double s : req.two_way.x_spans_mm) X += s;
+  for (double s : req.two_way.y_spans_mm) Y += s;
+  for (std::size_t i = 0; i < req.loads.actions.size(); ++i) {
+    const Action& a = req.loads.actions[i];
+    const std::string path = a.field.empty() ? "loads.actions[" + std::to_string(i) + "]" : a.field;
+    if (a.span) problems.add(path + ".span", "belongs to one-way slabs; a two_way slab places loads by plan position");
+    if (a.distribution != Distribution::uniform && !a.plan_mm)
+      problems.add(path, "a line or point load on a two_way slab needs its plan position");
+    if (!a.plan_mm) continue;
+    const auto& p = *a.plan_mm;
+    const bool finite = std::all_of(p.begin(), p.end(), [](double v) { return std::isfinite(v); });
+    if (!finite || p[0] < 0.0 || p[1] < 0.0 || p[2] > X * (1 + 1e-12) || p[3] > Y * (1 + 1e-12) || p[0] > p[2] ||
+        p[1] > p[3])
+      problems.add(path + (a.distribution == Distribution::point ? ".x_m" : ".from_m"),
+                   "must lie on the slab (x from 0 to Σ x_spans, y from 0 to Σ y_spans)");
+  }
+}
+
+DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
+  if (detail == Detail::verdict) detail = Detail::checks;
+  DesignRecord rec;
+  rec.code = std::move(id);
+  rec.report_units = req.report_units;
+  rec.strip_width_mm = 1000.0;
+  const double b = rec.strip_width_mm;
+  const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker.load_basis(); });
+  const CombinationRules& combination_rules = call_code(
+      rec.code, "combination rules", [&]() -> const CombinationRules& { return checker.combination_rules(); });
+  const MemberRules& member_rules =
+      call_code(rec.code, "member rules", [&]() -> const MemberRules& { return checker.member_rules(); });
+  rec.actions = all_actions(req, basis.density_kN_m3);
+  rec.list_actions = req.loads.actions_given;
+  const CombinationLabels labels =
+      rec.list_actions || detail == Detail::steps ? CombinationLabels::all : CombinationLabels::strength;
+  rec.combinations =
+      call_code(rec.code, "combinations", [&] { return combination_rules.combinations(rec.actions, labels); });
+  for (const auto& c : rec.combinations)
+    if (c.factors.size() != rec.actions.size())
+      throw DesignError(rec.code.id + ": combination '" + c.label + "' does not give a factor for every action");
+  if (std::none_of(rec.combinations.begin(), rec.combinations.end(),
+                   [](const Combination& c) { return c.limit_state == LimitState::uls; }))
+    throw DesignError(rec.code.id + ": the code gave no ULS combination");
+  rec.loads = total_loads(basis, rec.actions, rec.combinations);
+  if (detail == Detail::steps) rec.defaults_used = call_code(rec.code, "defaults", [&] { return checker.defaults_used(); });
+
+  TwoWayPlate plate(req, two_way_nominal_modulus_MPa);
+  const std::size_t nx = plate.bays_x(), ny = plate.bays_y();
+  const auto arrangements = call_code(rec.code, "bay load arrangements",
+                                      [&] { return combination_rules.bay_load_arrangements(nx, ny, rec.actions); });
+  if (arrangements.empty())
+    throw DesignError(rec.code.id + " (" + rec.code.variant + "): the code gives no load arrangements for two-way slabs");
+  for (const auto& a : arrangements)
+    if (a.loaded.size() != nx * ny || !(a.variable_fraction >= 0.0 && a.variable_fraction <= 1.0))
+      throw DesignError(rec.code.id + ": a bay load arrangement does not match the bays");
+  const double ratio = rec.loads.uls > 0.0 ? rec.loads.sls_quasi_permanent / rec.loads.uls : 0.0;
+  rec.load_cases = plate.analyse(rec.actions, rec.combinations, arrangements, ratio);
+  rec.load_arrangements = arrangements.size();
+  rec.crack_width = req.serviceability.crack_width;
+  rec.project = req.project;
+  rec.thickness_mm = req.slab.thickness_mm;
+  rec.rationalise = req.reinforcement.rationalise;
+
+  const double fraction = call_code(rec.code, "end fixity", [&] { return member_rules.pinned_end_fixity_fraction(); });
+  auto demands = plate.design_regions(fraction, rec.warnings);
+
+  // Bars: search every region; a face's inner direction lies on the
+  // largest bar of its outer direction, so search again until the two agree.
+  BarPlan plan;
+  plan.grid = {req.reinforcement.min_spacing_mm, req.reinforcement.spacing_step_mm};
+  plan.given.resize(demands.size());
+  // Check mode: reinforcement.given by region, face and direction.
+  InputProblems given_problems;
+  for (std::size_t k = 0; k < req.reinforcement.given.size(); ++k) {
+    const GivenBars& gb = req.reinforcement.given[k];
+    const std::string path = "reinforcement.given[" + std::to_string(k) + "]";
+    std::size_t found = demands.size();
+    for (std::size_t i = 0; i < demands.size(); ++i)
+      if (demands[i].where == gb.where && to_string(demands[i].direction) == gb.direction) found = i;
+    if (found == demands.size()) {
+      const bool named = std::any_of(demands.begin(), demands.end(), [&](const RegionDemand& d) { return d.where == gb.where; });
+      if (named) given_problems.add(path + ".direction", "'" + gb.where + "' has no region with bars in " + gb.direction);
+      else
+        given_problems.add(path + ".where", "no region '" + gb.where + "' in this slab; its regions are the bays "
+                                            "('bay 1,1', ...) and the supported line segments ('edge x0 segment 1', "
+                                            "'grid x1 segment 2', ...)");
+      continue;
+    }
+    if (demands[found].face != gb.face) {
+      given_problems.add(path + ".face", "'" + gb.where + "' is a " + to_string(demands[found].face) + " region; got " +
+                                             to_string(gb.face));
+      continue;
+    }
+    if (plan.given[found]) {
+      given_problems.add(path, "'" + gb.where + "' bars in " + gb.direction + " are already given");
+      continue;
+    }
+    const auto bar = call_code(rec.code, "catalogue bar", [&] { return checker.catalogue_bar(gb.bar); });
+    if (!bar) {
+      given_problems.add(path + ".bar", "no bar '" + gb.bar + "' in the code's catalogue");
+      continue;
+    }
+    plan.given[found] = SearchCandidate{*bar, gb.spacing_mm, provided_area_mm2(bar->area_mm2, gb.spacing_mm, b)};
+  }
+  given_problems.raise_if_any();
+  const auto& options = call_code(rec.code, "bar options",
+                                  [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
+  double smallest = options.empty() ? 0.0 : options.front().diameter_mm;
+  for (const auto& o : options) smallest = std::min(smallest, o.diameter_mm);
+  auto inner = [&](const RegionDemand& g) { return g.direction != plate.outer_direction(g.face); };
+  for (auto& g : demands)
+    if (inner(g)) g.outer_bar_mm = smallest;
+  std::vector<SearchCandidate> picks;
+  std::vector<std::string> search_warnings;
+  for (std::size_t round = 0; round <= options.size() + 1; ++round) {
+    search_warnings.clear();
+    picks = search_with_face_covers(checker, rec.code, demands, b, req.durability, plan, search_warnings);
+    bool changed = false;
+    for (const Face face : {Face::bottom, Face::top}) {
+      double largest = 0.0;
+      for (std::size_t i = 0; i < demands.size(); ++i)
+        if (demands[i].face == face && !inner(demands[i])) largest = std::max(largest, picks[i].bar.diameter_mm);
+      if (largest <= 0.0) continue;
+      for (auto& g : demands)
+        if (g.face == face && inner(g) && g.outer_bar_mm < largest) {
+          g.outer_bar_mm = largest;
+          changed = true;
+        }
+    }
+    if (!changed) break;
+  }
+  rec.warnings.insert(rec.warnings.end(), search_warnings.begin(), search_warnings.end());
+
+  rec.regions.reserve(demands.size());
+  std::vector<SpanRecord> spans;
+  for (std::size_t i = 0; i < demands.size(); ++i) {
+    const RegionDemand& demand = demands[i];
+    const SearchCandidate& pick = picks[i];
+    RegionOutcome out = call_code(
+        rec.code, "the checks", [&] { return checker.check_region(demand, pick.bar, pick.spacing_mm, detail); },
+        demand.where);
+    RegionRecord region;
+    region.where = demand.where;
+    region.face = demand.face;
+    region.direction = demand.direction;
+    region.x_mm = demand.x_mm;
+    region.y_mm = demand.y_mm;
+    region.M_Ed = demand.M_Ed;
+    region.d_mm = out.d_mm;
+    region.As_req_mm2 = out.As_req_mm2;
+    region.As_min_mm2 = out.As_min_mm2;
+    region.As_max_mm2 = out.As_max_mm2;
+    region.cover_mm = out.cover_mm;
+    region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
+    region.checks = std::move(out.checks);
+    region.bars_given = plan.given[i].has_value();
+    rec.regions.push_back(std::move(region));
+    if (!demand.span_where.empty()) spans.push_back({demand.span_where, std::move(out.span_checks)});
+    for (auto& s : out.supports) rec.supports.push_back({s.where, s.V_Ed, s.V_Rd, std::move(s.checks)});
+  }
+  for (auto& s : spans) {
+    auto extra = call_code(rec.code, "span checks", [&] { return member_rules.span_checks(s.where); });
+    for (auto& c : extra) s.checks.push_back(std::move(c));
+    rec.spans.push_back(std::move(s));
+  }
+  for (const auto& r : rec.regions) {
+    double& c = rec.face_cover_mm[static_cast<std::size_t>(r.face)];
+    c = std::max(c, r.cover_mm);
+  }
+  rec.plate = std::make_shared<const PlateRecord>(plate.record());
+
+  rec.pass = true;
+  rec.max_utilisation = 0.0;
+  bool first = true;
+  for (const Check* c : rec.all_checks()) {
+    if (!c->pass) rec.pass = false;
+    if (is_arrangement_limit(c->id.str()) && c->pass) continue;
+    if (first || c->utilisation > rec.max_utilisation) {
+      rec.max_utilisation = c->utilisation;
+      rec.governing_check = c->id;
+      rec.governing_where = c->where;
+      first = false;
+    }
+  }
+  auto code_warnings = call_code(rec.code, "warnings", [&] { return checker.warnings(); });
+  rec.warnings.insert(rec.warnings.begin(), code_warnings.begin(), code_warnings.end());
+  return rec;
+}
+
+}  // namespace armature

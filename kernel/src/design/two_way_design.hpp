@@ -1,0 +1,20 @@
+// The design of a two-way slab (driver.cpp hands a validated request here).
+#pragma once
+
+#include "armature/design.hpp"
+
+namespace armature {
+
+// The nominal elastic modulus the plate is analysed with: moments and
+// reactions of the rigidly supported plate do not depend on it, and no
+// check reads its deflections.
+inline constexpr double two_way_nominal_modulus_MPa = 30000.0;
+
+// Problems of a two-way request the reader cannot see (a request built in
+// C++, or the plate as a whole): the plate's geometry (mechanisms, mesh
+// size) and located loads off the plate, each named by its request path.
+void add_two_way_problems(const Request& request, InputProblems& problems);
+
+DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& request, Detail detail);
+
+}  // namespace armature

@@ -1,0 +1,414 @@
+// TwoWayPlate: the two-way slab as a member. The plate model is built once
+// (mesh lines through the located loads), every ULS case of combinations ×
+// bay arrangements and the quasi-permanent cases are solved on its one
+// factorisation, the Wood–Armer design moments are enveloped at the mesh
+// nodes, and the regions take their peaks (DEVELOPERS.md, "Two-way slabs").
+#include "armature/two_way.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace armature {
+
+namespace {
+
+bool on_or_between(double v, double lo, double hi) {
+  const double tol = 1e-9 * std::max(1.0, std::abs(hi));
+  return v >= lo - tol && v <= hi + tol;
+}
+
+// The index of the interval [grid[k], grid[k+1]] holding v (the first).
+std::size_t interval_of(const std::vector<double>& grid, double v) {
+  for (std::size_t k = 0; k + 1 < grid.size(); ++k)
+    if (on_or_between(v, grid[k], grid[k + 1])) return k;
+  return grid.size() >= 2 ? grid.size() - 2 : 0;
+}
+
+// The node lines within [lo, hi].
+std::vector<std::size_t> nodes_within(const std::vector<double>& nodes, double lo, double hi) {
+  std::vector<std::size_t> out;
+  for (std::size_t k = 0; k < nodes.size(); ++k)
+    if (on_or_between(nodes[k], lo, hi)) out.push_back(k);
+  return out;
+}
+
+std::size_t nearest_node(const std::vector<double>& nodes, double v) {
+  std::size_t best = 0;
+  for (std::size_t k = 1; k < nodes.size(); ++k)
+    if (std::abs(nodes[k] - v) < std::abs(nodes[best] - v)) best = k;
+  return best;
+}
+
+PlateGeometry geometry_of(const Request& req, double E_MPa) {
+  PlateGeometry g;
+  g.x_spans_mm = req.two_way.x_spans_mm;
+  g.y_spans_mm = req.two_way.y_spans_mm;
+  g.edges = {req.two_way.edges[0], req.two_way.edges[1], req.two_way.edges[2], req.two_way.edges[3]};
+  g.thickness_mm = req.slab.thickness_mm;
+  g.elastic_modulus_MPa = E_MPa;
+  g.poisson_ratio = req.two_way.poisson_ratio;
+  if (req.two_way.mesh_per_bay > 0) g.mesh_per_bay = req.two_way.mesh_per_bay;
+  for (const auto& a : req.loads.actions) {
+    if (!a.plan_mm) continue;
+    const auto& p = *a.plan_mm;
+    g.mesh_lines_x_mm.push_back(p[0]);
+    g.mesh_lines_y_mm.push_back(p[1]);
+    if (p[2] != p[0]) g.mesh_lines_x_mm.push_back(p[2]);
+    if (p[3] != p[1]) g.mesh_lines_y_mm.push_back(p[3]);
+  }
+  return g;
+}
+
+}  // namespace
+
+std::string plate_bay_name(std::size_t i, std::size_t j) {
+  return "bay " + std::to_string(i + 1) + "," + std::to_string(j + 1);
+}
+
+std::string plate_line_name(const SupportLine& line, std::size_t bays_x, std::size_t bays_y) {
+  const char axis = line.runs_along == PlanAxis::y ? 'x' : 'y';  // the coordinate the line sits at
+  const std::size_t last = line.runs_along == PlanAxis::y ? bays_x : bays_y;
+  if (line.interior) return std::string("grid ") + axis + std::to_string(line.grid);
+  return std::string("edge ") + axis + (line.grid == 0 ? "0" : line.grid == last ? "1" : "?");
+}
+
+TwoWayPlate::TwoWayPlate(const Request& request, double elastic_modulus_MPa)
+    : model_(geometry_of(request, elastic_modulus_MPa)), requested_outer_(request.two_way.outer_layer) {}
+
+PlateLoadCase TwoWayPlate::load_case(const std::vector<Action>& actions, const Combination& combination,
+                                     const BayArrangement& arrangement) const {
+  const std::size_t nx = bays_x(), ny = bays_y(), nb = nx * ny;
+  const auto& xg = model_.x_grid_mm();
+  const auto& yg = model_.y_grid_mm();
+  PlateLoadCase lc;
+  lc.bay_pressures_MPa.assign(nb, 0.0);
+  for (std::size_t k = 0; k < actions.size() && k < combination.factors.size(); ++k) {
+    const Action& a = actions[k];
+    const double f = combination.factors[k].loaded;
+    const bool variable = is_variable(a.kind);
+    auto factor_on = [&](std::size_t bay) {
+      if (!variable) return f;
+      return bay < arrangement.loaded.size() && arrangement.loaded[bay] ? f * arrangement.variable_fraction : 0.0;
+    };
+    if (a.distribution == Distribution::uniform && !a.plan_mm) {
+      for (std::size_t b = 0; b < nb; ++b) lc.bay_pressures_MPa[b] += factor_on(b) * a.value;
+      continue;
+    }
+    if (!a.plan_mm) continue;  // a strip's located load: refused on the way in
+    const auto& p = *a.plan_mm;
+    if (a.distribution == Distribution::uniform) {  // a patch, split at the grid lines
+      for (std::size_t j = 0; j < ny; ++j)
+        for (std::size_t i = 0; i < nx; ++i) {
+          const double x0 = std::max(p[0], xg[i]), x1 = std::min(p[2], xg[i + 1]);
+          const double y0 = std::max(p[1], yg[j]), y1 = std::min(p[3], yg[j + 1]);
+          const double w = factor_on(i + nx * j) * a.value;
+          if (x1 > x0 && y1 > y0 && w != 0.0) lc.patches.push_back({x0, x1, y0, y1, w});
+        }
+    } else if (a.distribution == Distribution::line) {
+      const bool along_x = p[1] == p[3];
+      const auto& along = along_x ? xg : yg;
+      const std::size_t across = interval_of(along_x ? yg : xg, along_x ? p[1] : p[0]);
+      const double from = along_x ? p[0] : p[1], to = along_x ? p[2] : p[3];
+      for (std::size_t k2 = 0; k2 + 1 < along.size(); ++k2) {
+        const double s0 = std::max(from, along[k2]), s1 = std::min(to, along[k2 + 1]);
+        const std::size_t bay = along_x ? k2 + nx * across : across + nx * k2;
+        const double w = factor_on(bay) * a.value;
+        if (s1 > s0 && w != 0.0)
+          lc.lines.push_back({along_x ? PlanAxis::x : PlanAxis::y, along_x ? p[1] : p[0], s0, s1, w});
+      }
+    } else {
+      const std::size_t bay = interval_of(xg, p[0]) + nx * interval_of(yg, p[1]);
+      const double w = factor_on(bay) * a.value;
+      if (w != 0.0) lc.points.push_back({p[0], p[1], w});
+    }
+  }
+  return lc;
+}
+
+std::size_t TwoWayPlate::analyse(const std::vector<Action>& actions, const std::vector<Combination>& combinations,
+                                 const std::vector<BayArrangement>& arrangements, double uniform_load_ratio) {
+  uniform_ratio_ = uniform_load_ratio;
+  arrangements_ = arrangements.size();
+  const std::size_t nb = bays_x() * bays_y();
+  const BayArrangement every_bay{std::vector<bool>(nb, true), 1.0};
+  std::vector<PlateLoadCase> cases;
+  std::vector<bool> all_bays_uls;  // per ULS case: every bay at its full load
+  for (const auto& c : combinations) {
+    if (c.limit_state != LimitState::uls) continue;
+    for (const auto& a : arrangements) {
+      cases.push_back(load_case(actions, c, a));
+      all_bays_uls.push_back(a.variable_fraction == 1.0 &&
+                             std::all_of(a.loaded.begin(), a.loaded.end(), [](bool b) { return b; }));
+    }
+  }
+  uls_cases_ = cases.size();
+  bool any_all_bays = std::any_of(all_bays_uls.begin(), all_bays_uls.end(), [](bool b) { return b; });
+  if (!any_all_bays)  // the ratios need the ULS moments with every bay loaded
+    for (const auto& c : combinations)
+      if (c.limit_state == LimitState::uls) cases.push_back(load_case(actions, c, every_bay));
+  const std::size_t extra_uls = cases.size() - uls_cases_;
+  for (const auto& c : combinations)
+    if (c.limit_state == LimitState::quasi_permanent) cases.push_back(load_case(actions, c, every_bay));
+
+  const PlateField field = model_.solve(cases);
+  const auto& xs = model_.node_x_mm();
+  const auto& ys = model_.node_y_mm();
+  const std::size_t nn = xs.size() * ys.size();
+  field_ = {};
+  field_.x_mm = xs;
+  field_.y_mm = ys;
+  const double inf = std::numeric_limits<double>::infinity();
+  for (auto* v : {&field_.mx_max, &field_.my_max, &field_.mxy_max}) v->assign(nn, -inf);
+  for (auto* v : {&field_.mx_min, &field_.my_min, &field_.mxy_min}) v->assign(nn, inf);
+  for (auto* v : {&field_.bottom_x, &field_.bottom_y, &field_.top_x, &field_.top_y}) v->assign(nn, 0.0);
+  all_bays_uls_.assign(nn, WoodArmerMoments{});
+  all_bays_qp_.assign(nn, WoodArmerMoments{});
+  auto take_max = [](WoodArmerMoments& into, const WoodArmerMoments& w) {
+    into.bottom_x = std::max(into.bottom_x, w.bottom_x);
+    into.bottom_y = std::max(into.bottom_y, w.bottom_y);
+    into.top_x = std::max(into.top_x, w.top_x);
+    into.top_y = std::max(into.top_y, w.top_y);
+  };
+
+  // Line segments of the supported lines, in the model's order.
+  lines_.clear();
+  const auto& xg = model_.x_grid_mm();
+  const auto& yg = model_.y_grid_mm();
+  for (const auto& line : model_.support_lines()) {
+    const auto& grid = line.runs_along == PlanAxis::y ? yg : xg;
+    for (std::size_t s = 0; s < line.segment_count; ++s)
+      lines_.push_back({plate_line_name(line, bays_x(), bays_y()) + " segment " + std::to_string(s + 1),
+                        line.runs_along, line.position_mm, grid[s], grid[s + 1], 0.0, 0.0});
+  }
+
+  for (std::size_t c = 0; c < cases.size(); ++c) {
+    const auto m = field.node_moments(c);
+    const bool uls = c < uls_cases_;
+    const bool uls_all = uls ? all_bays_uls[c] : c < uls_cases_ + extra_uls;
+    const bool qp = c >= uls_cases_ + extra_uls;
+    for (std::size_t n = 0; n < nn; ++n) {
+      const WoodArmerMoments w = wood_armer(m[n]);
+      if (uls) {
+        field_.mx_max[n] = std::max(field_.mx_max[n], m[n].mx);
+        field_.mx_min[n] = std::min(field_.mx_min[n], m[n].mx);
+        field_.my_max[n] = std::max(field_.my_max[n], m[n].my);
+        field_.my_min[n] = std::min(field_.my_min[n], m[n].my);
+        field_.mxy_max[n] = std::max(field_.mxy_max[n], m[n].mxy);
+        field_.mxy_min[n] = std::min(field_.mxy_min[n], m[n].mxy);
+        field_.bottom_x[n] = std::max(field_.bottom_x[n], w.bottom_x);
+        field_.bottom_y[n] = std::max(field_.bottom_y[n], w.bottom_y);
+        field_.top_x[n] = std::max(field_.top_x[n], w.top_x);
+        field_.top_y[n] = std::max(field_.top_y[n], w.top_y);
+      }
+      if (uls_all) take_max(all_bays_uls_[n], w);
+      if (qp) take_max(all_bays_qp_[n], w);
+    }
+    if (!uls) continue;
+    // Line reactions per segment: the largest value per length, and the
+    // resultant (each node's value over its tributary length, split at
+    // the segment ends).
+    const auto reactions = field.line_reactions(c);
+    std::size_t first = 0;
+    const auto& support_lines = model_.support_lines();
+    for (std::size_t l = 0; l < support_lines.size(); ++l) {
+      const auto& line = support_lines[l];
+      const auto& nodes = line.runs_along == PlanAxis::y ? ys : xs;
+      std::vector<double> totals(line.segment_count, 0.0);
+      for (const auto& r : reactions[l]) {
+        const double at = line.runs_along == PlanAxis::y ? r.y_mm : r.x_mm;
+        const std::size_t k = nearest_node(nodes, at);
+        const double before = k > 0 ? (nodes[k] - nodes[k - 1]) / 2.0 : 0.0;
+        const double after = k + 1 < nodes.size() ? (nodes[k + 1] - nodes[k]) / 2.0 : 0.0;
+        for (std::size_t s = 0; s < line.segment_count; ++s) {
+          PlateLineRecord& seg = lines_[first + s];
+          if (on_or_between(at, seg.from_mm, seg.to_mm)) seg.max_N_per_mm = std::max(seg.max_N_per_mm, r.N_per_mm);
+          if (before > 0.0 && on_or_between(at - before / 2.0, seg.from_mm, seg.to_mm)) totals[s] += r.N_per_mm * before;
+          if (after > 0.0 && on_or_between(at + after / 2.0, seg.from_mm, seg.to_mm)) totals[s] += r.N_per_mm * after;
+        }
+      }
+      for (std::size_t s = 0; s < line.segment_count; ++s)
+        lines_[first + s].max_total_N = std::max(lines_[first + s].max_total_N, totals[s]);
+      first += line.segment_count;
+    }
+  }
+  return uls_cases_;
+}
+
+std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fraction, std::vector<std::string>& warnings) {
+  const std::size_t nx = bays_x(), ny = bays_y();
+  const auto& xs = field_.x_mm;
+  const auto& ys = field_.y_mm;
+  const auto& xg = model_.x_grid_mm();
+  const auto& yg = model_.y_grid_mm();
+  const std::size_t row = xs.size();
+  constexpr double per_metre = 1000.0;  // N·mm/mm → N·mm per metre width
+  // The quasi-permanent to ULS ratio of a design moment at a node: from
+  // the analyses with every bay loaded, bounded to [0, 1]; the ratio of
+  // the uniform loads where the ULS moment there is nil.
+  auto ratio_at = [&](std::size_t n, double WoodArmerMoments::*which) {
+    const double u = all_bays_uls_[n].*which, q = all_bays_qp_[n].*which;
+    if (!(u > 1e-9 * std::max(1.0, field_.bottom_x[n] + field_.bottom_y[n] + field_.top_x[n] + field_.top_y[n])) ||
+        u <= 0.0)
+      return uniform_ratio_;
+    return std::clamp(q / u, 0.0, 1.0);
+  };
+  struct Peak {
+    double value = 0.0;
+    std::size_t node = 0;
+  };
+  auto peak_over = [&](const std::vector<std::size_t>& ix, const std::vector<std::size_t>& iy,
+                       const std::vector<double>& values) {
+    Peak p{-1.0, ix.front() + row * iy.front()};
+    for (std::size_t j : iy)
+      for (std::size_t i : ix)
+        if (values[i + row * j] > p.value) p = {values[i + row * j], i + row * j};
+    return p;
+  };
+  auto demand = [&](const std::string& where, Face face, BarDirection dir, const Peak& p,
+                    double WoodArmerMoments::*which) {
+    RegionDemand g;
+    g.where = where;
+    g.face = face;
+    g.direction = dir;
+    g.x_mm = xs[p.node % row];
+    g.y_mm = ys[p.node / row];
+    g.M_Ed = std::max(p.value, 0.0) * per_metre;
+    g.quasi_permanent_to_uls = ratio_at(p.node, which);
+    return g;
+  };
+
+  std::vector<RegionDemand> out;
+  std::vector<Peak> bay_x(nx * ny), bay_y(nx * ny);
+  for (std::size_t j = 0; j < ny; ++j)
+    for (std::size_t i = 0; i < nx; ++i) {
+      const auto ix = nodes_within(xs, xg[i], xg[i + 1]), iy = nodes_within(ys, yg[j], yg[j + 1]);
+      const std::string name = plate_bay_name(i, j);
+      bay_x[i + nx * j] = peak_over(ix, iy, field_.bottom_x);
+      bay_y[i + nx * j] = peak_over(ix, iy, field_.bottom_y);
+      out.push_back(demand(name, Face::bottom, BarDirection::x, bay_x[i + nx * j], &WoodArmerMoments::bottom_x));
+      out.push_back(demand(name, Face::bottom, BarDirection::y, bay_y[i + nx * j], &WoodArmerMoments::bottom_y));
+      for (const BarDirection d : {BarDirection::x, BarDirection::y})
+        if (!(out[out.size() - (d == BarDirection::x ? 2 : 1)].M_Ed > 0.0))
+          warnings.push_back(name + ": no sagging moment in " + to_string(d) + " under any arrangement");
+      // The span/depth of the bay: its shorter span, governed by the
+      // bottom bars spanning it; continuous at a side on an interior grid
+      // line or a fixed edge.
+      const double lx = xg[i + 1] - xg[i], ly = yg[j + 1] - yg[j];
+      const bool short_x = lx <= ly;
+      RegionDemand& g = out[out.size() - (short_x ? 2 : 1)];
+      const auto continuous = [&](bool low_side) {
+        const std::size_t k = short_x ? (low_side ? i : i + 1) : (low_side ? j : j + 1);
+        const std::size_t last = short_x ? nx : ny;
+        if (k > 0 && k < last) return true;
+        const EndSupport e = model_.geometry().edges.*(short_x ? (k == 0 ? &PlateEdges::x0 : &PlateEdges::x1)
+                                                                : (k == 0 ? &PlateEdges::y0 : &PlateEdges::y1));
+        return e == EndSupport::fixed;
+      };
+      const auto free_side = [&](bool low_side) {
+        const std::size_t k = short_x ? (low_side ? i : i + 1) : (low_side ? j : j + 1);
+        const std::size_t last = short_x ? nx : ny;
+        if (k > 0 && k < last) return false;
+        const EndSupport e = model_.geometry().edges.*(short_x ? (k == 0 ? &PlateEdges::x0 : &PlateEdges::x1)
+                                                                : (k == 0 ? &PlateEdges::y0 : &PlateEdges::y1));
+        return e == EndSupport::free;
+      };
+      // A bay spanning to a free edge in its shorter direction is no
+      // two-way panel of the span/depth rules: no such check (stated).
+      // Both bottom regions know the bay's spans where it is supported on
+      // four edges (fire by ly/lx); long_span_mm 0: a side is free.
+      bool any_free = false;
+      for (const EndSupport e : {i == 0 ? model_.geometry().edges.x0 : EndSupport::pinned,
+                                 i + 1 == nx ? model_.geometry().edges.x1 : EndSupport::pinned,
+                                 j == 0 ? model_.geometry().edges.y0 : EndSupport::pinned,
+                                 j + 1 == ny ? model_.geometry().edges.y1 : EndSupport::pinned})
+        any_free = any_free || e == EndSupport::free;
+      if (!any_free)
+        for (std::size_t k = out.size() - 2; k < out.size(); ++k) {
+          out[k].span_mm = std::min(lx, ly);
+          out[k].long_span_mm = std::max(lx, ly);
+        }
+      if (free_side(true) || free_side(false)) {
+        warnings.push_back(name + ": a free edge across its shorter span; deflection by span/depth is not checked");
+      } else {
+        const int sides = int(continuous(true)) + int(continuous(false));
+        g.span_where = name;
+        g.span_mm = std::min(lx, ly);
+        g.long_span_mm = std::max(lx, ly);
+        g.span_kind = sides == 2 ? SpanKind::interior_span : sides == 1 ? SpanKind::end_span : SpanKind::simply_supported;
+      }
+    }
+  std::size_t seg = 0;
+  for (const auto& line : model_.support_lines()) {
+    const bool along_y = line.runs_along == PlanAxis::y;  // bars across it run in x
+    const std::size_t at = nearest_node(along_y ? xs : ys, line.position_mm);
+    for (std::size_t s = 0; s < line.segment_count; ++s, ++seg) {
+      const PlateLineRecord& rec = lines_[seg];
+      const auto along = nodes_within(along_y ? ys : xs, rec.from_mm, rec.to_mm);
+      const std::vector<std::size_t> fixed{at};
+      const auto& values = along_y ? field_.top_x : field_.top_y;
+      Peak p = along_y ? peak_over(fixed, along, values) : peak_over(along, fixed, values);
+      const auto which = along_y ? &WoodArmerMoments::top_x : &WoodArmerMoments::top_y;
+      RegionDemand g = demand(rec.name, Face::top, along_y ? BarDirection::x : BarDirection::y, p, which);
+      // Shear at the line: its largest reaction per metre, all of it on
+      // one face (DEVELOPERS.md, "Two-way slabs"). A pinned edge relies on
+      // the bottom bars of the bay beside it, as a strip's pinned end.
+      const SupportDemand shear{rec.name, rec.max_N_per_mm * per_metre};
+      if (!line.interior && line.support == EndSupport::pinned) {
+        const std::size_t i = along_y ? (line.grid == 0 ? 0 : nx - 1) : s;
+        const std::size_t j = along_y ? s : (line.grid == 0 ? 0 : ny - 1);
+        out[2 * (i + nx * j) + (along_y ? 0 : 1)].supports.push_back(shear);
+      } else {
+        g.supports.push_back(shear);
+      }
+      if (!line.interior && line.support == EndSupport::pinned && pinned_edge_fraction > 0.0) {
+        // Partial fixity along a pinned edge: a fraction of the adjacent
+        // bay's bottom moment across the edge, where that is larger.
+        const std::size_t i = along_y ? (line.grid == 0 ? 0 : nx - 1) : s;
+        const std::size_t j = along_y ? s : (line.grid == 0 ? 0 : ny - 1);
+        const Peak& bay = along_y ? bay_x[i + nx * j] : bay_y[i + nx * j];
+        const double M_fixity = pinned_edge_fraction * std::max(bay.value, 0.0) * per_metre;
+        if (M_fixity > g.M_Ed) {
+          g.M_Ed = M_fixity;
+          g.quasi_permanent_to_uls = ratio_at(bay.node, along_y ? &WoodArmerMoments::bottom_x : &WoodArmerMoments::bottom_y);
+        }
+      }
+      out.push_back(std::move(g));
+    }
+  }
+  // The outer layer of each face: the request's, else the direction of the
+  // face's larger design moment (x on a tie).
+  for (const Face face : {Face::bottom, Face::top}) {
+    BarDirection dir = BarDirection::x;
+    if (requested_outer_ == "y") {
+      dir = BarDirection::y;
+    } else if (requested_outer_.empty()) {
+      double mx = 0.0, my = 0.0;
+      for (const auto& g : out)
+        if (g.face == face) (g.direction == BarDirection::x ? mx : my) = std::max(g.direction == BarDirection::x ? mx : my, g.M_Ed);
+      dir = my > mx ? BarDirection::y : BarDirection::x;
+    }
+    outer_[static_cast<std::size_t>(face)] = dir;
+  }
+  return out;
+}
+
+PlateRecord TwoWayPlate::record() const {
+  PlateRecord r;
+  r.x_lines_mm = model_.x_grid_mm();
+  r.y_lines_mm = model_.y_grid_mm();
+  const PlateGeometry& g = model_.geometry();
+  r.edges = {g.edges.x0, g.edges.x1, g.edges.y0, g.edges.y1};
+  for (std::size_t j = 0; j < bays_y(); ++j)
+    for (std::size_t i = 0; i < bays_x(); ++i)
+      r.bays.push_back({plate_bay_name(i, j), r.x_lines_mm[i], r.x_lines_mm[i + 1], r.y_lines_mm[j], r.y_lines_mm[j + 1]});
+  r.field = field_;
+  r.reactions = lines_;
+  r.poisson_ratio = g.poisson_ratio;
+  r.mesh_per_bay = g.mesh_per_bay;
+  r.outer_layer = {to_string(outer_[0]), to_string(outer_[1])};
+  r.arrangements = arrangements_;
+  return r;
+}
+
+}  // namespace armature
