@@ -133,6 +133,7 @@ class PyWriter {
     text_key_ = py::str(k);
   }
   void value(double v) { put(PyFloat_FromDouble(v)); }
+  void value(long long v) { put(PyLong_FromLongLong(v)); }
   void value(bool v) { put(PyBool_FromLong(v)); }
   void value(const std::string& v) {
     if (v.size() <= 64) put(key_object(v).inc_ref().ptr());

@@ -109,7 +109,9 @@ class Checker final : public SlabChecker,
 
   // detailing.cpp: ld of 25.4.2 (the smaller of 25.4.2.3 and 25.4.2.4,
   // not less than 300 mm / 12 in), with its steps.
-  double development_length(StepRecorder& st, const BarDetailDemand& bar) const;
+  // 25.4.2.1: ld with the 12 in / 300 mm floor of (b), or (a) alone
+  // (with_floor false) as 25.5.2.1 asks for a lap.
+  double development_length(StepRecorder& st, const BarDetailDemand& bar, bool with_floor = true) const;
   double support_embedment() const;
 
   // Numbers and units of the derivation steps: the SI variant prints the

@@ -18,7 +18,7 @@ double Checker::support_embedment() const {
   return us_ ? inch_pound::support_embedment_in * mm_per_in : support_embedment_mm;
 }
 
-double Checker::development_length(StepRecorder& st, const BarDetailDemand& bar) const {
+double Checker::development_length(StepRecorder& st, const BarDetailDemand& bar, bool with_floor) const {
   const double db = bar.diameter_mm;
   const double h = req_.slab.thickness_mm;
   const double below = bar.face == Face::bottom ? bar.cover_mm : h - bar.cover_mm - db;
@@ -67,6 +67,12 @@ double Checker::development_length(StepRecorder& st, const BarDetailDemand& bar)
   st.add("ld,b", us_ ? "(3/40)(fy/(λ √f'c)) ψt ψe ψs ψg db / ((cb + Ktr)/db), Ktr = 0, ≤ 2.5"
                      : "fy ψt ψe ψs ψg db / (1.1 λ √f'c (cb + Ktr)/db), Ktr = 0, (cb + Ktr)/db ≤ 2.5",
          "", len_v(ld_general), len_u(), "ACI 318-19 25.4.2.4");
+  if (!with_floor) {
+    const double ld_a = std::min(ld_simple, ld_general);
+    st.add("ld", "min(ld,a, ld,b) (25.4.2.1(a), without the floor of (b), as 25.5.2.1 asks)",
+           "min(" + len(ld_simple) + ", " + len(ld_general) + ")", len_v(ld_a), len_u(), "ACI 318-19 25.4.2.1(a)");
+    return ld_a;
+  }
   const double ld = std::max(std::min(ld_simple, ld_general), ld_min);
   st.add("ld", us_ ? "max(min(ld,a, ld,b), 12 in)" : "max(min(ld,a, ld,b), 300 mm)",
          "max(min(" + len(ld_simple) + ", " + len(ld_general) + "), " + len(ld_min) + ")", len_v(ld), len_u(),
@@ -102,7 +108,7 @@ DetailLength Checker::interior_support_embedment(const BarDetailDemand& bar) con
 
 DetailLength Checker::lap(const BarDetailDemand& bar) const {
   StepRecorder st;
-  const double ld = development_length(st, bar);
+  const double ld = development_length(st, bar, false);
   // Class A needs As,prov/As,req ≥ 2 over the whole lap, which the
   // demand does not give: Class B (Table 25.5.2.1, "all other cases").
   const bool class_a = false;

@@ -27,9 +27,13 @@ Checker::BasicAnchorage Checker::basic_anchorage(Steps& st, const BarDetailDeman
   const double above_bottom = bar.face == Face::bottom ? bar.cover_mm + phi / 2.0 : h - bar.cover_mm - phi / 2.0;
   const bool by_position = good_bond_position(h, above_bottom);
   const bool good = bar.bond == BondChoice::automatic ? by_position : bar.bond == BondChoice::good;
-  const double fctd = design_tensile_strength(m_.fctm, ndp_.alpha_ct, ndp_.gamma_c);
+  const double fctm = bond_mean_tensile_strength(m_.fctm);
+  if (fctm < m_.fctm)
+    st.add("fctm for bond", "fctm of C60/75 (fctk,0.05 limited to the C60/75 value for bond)", "", fctm, "MPa",
+           "EN 1992-1-1 8.4.2(2)");
+  const double fctd = design_tensile_strength(fctm, ndp_.alpha_ct, ndp_.gamma_c);
   st.add("fctd", "αct 0.7 fctm / γc",
-         num(ndp_.alpha_ct) + " × 0.7 × " + num(m_.fctm) + " / " + num(ndp_.gamma_c), fctd, "MPa",
+         num(ndp_.alpha_ct) + " × 0.7 × " + num(fctm) + " / " + num(ndp_.gamma_c), fctd, "MPa",
          "EN 1992-1-1 3.1.6(2)");
   const double eta1 = bond_quality_factor(good);
   std::string why = bar.bond == BondChoice::automatic

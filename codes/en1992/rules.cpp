@@ -518,6 +518,8 @@ double design_tensile_strength(double fctm, double alpha_ct, double gamma_c) {
   return alpha_ct * 0.7 * fctm / gamma_c;
 }
 
+double bond_mean_tensile_strength(double fctm) { return std::min(fctm, mean_tensile_strength(60.0)); }
+
 bool good_bond_position(double h, double height_above_bottom) {
   if (h <= 250.0) return true;
   if (height_above_bottom <= 250.0) return true;

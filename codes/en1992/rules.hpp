@@ -83,6 +83,9 @@ double minimum_clear_bar_spacing(double phi, double aggregate);  // 8.2(2)
 // ---- Anchorage and laps (EN 1992-1-1 8.4, 8.7, 9.2.1) ----------------------
 // 3.1.6(2) (3.16), Table 3.1: fctd = αct fctk,0.05/γc, fctk,0.05 = 0.7 fctm.
 double design_tensile_strength(double fctm, double alpha_ct, double gamma_c);
+// 8.4.2(2): for bond, fctk,0.05 is limited to the value of C60/75 (higher
+// strengths are more brittle); taken here on fctm, of which it is 0.7.
+double bond_mean_tensile_strength(double fctm);
 // 8.4.2(2), Figure 8.2 (b)–(d): a horizontal bar is in good bond in a
 // member up to 250 mm deep; deeper, good within 250 mm of the bottom,
 // and (over 600 mm) anywhere more than 300 mm below the top.

@@ -1,6 +1,6 @@
 // Detailing rules of both codes (anchorage, shift, laps, support
-// embedment) against the clauses evaluated by hand, a published table of
-// EN anchorage lengths and the ACI development length values.
+// embedment) against the clauses evaluated by hand and the ACI development
+// length values.
 #include <catch2/catch.hpp>
 
 #include <cmath>
@@ -78,18 +78,25 @@ TEST_CASE("EN 8.4 bond stress and basic anchorage, 12 mm bar in C30/37", "[detai
   // η2 for large bars: (132 − 40)/100 = 0.92 (8.4.2(2)).
   CHECK(bar_size_bond_factor(40) == Approx(0.92));
   CHECK(bar_size_bond_factor(32) == 1.0);
+  // 8.4.2(2): fctk,0.05 for bond no higher than C60/75's. fctm(C60/75) =
+  // 2.12 ln(1 + 68/10) = 4.35 MPa (Table 3.1, by hand); C50/60 is below it.
+  CHECK(bond_mean_tensile_strength(mean_tensile_strength(70)) == Approx(4.355).epsilon(0.001));
+  CHECK(bond_mean_tensile_strength(mean_tensile_strength(90)) == Approx(4.355).epsilon(0.001));
+  CHECK(bond_mean_tensile_strength(mean_tensile_strength(50)) == Approx(mean_tensile_strength(50)));
   // lb,min = max(0.3 × 428.9, 120, 100) = 128.7 (8.6, by hand).
   CHECK(minimum_anchorage_length(lb, 12) == Approx(128.67).epsilon(0.001));
   CHECK(minimum_anchorage_length(200, 16) == 160);
   CHECK(minimum_anchorage_length(200, 8) == 100);
 }
 
-TEST_CASE("EN 8.4.4 design anchorage against a published table, 12 mm bar in C25/30", "[detailing][en1992]") {
+TEST_CASE("EN 8.4.4 design anchorage by hand, 12 mm bar in C25/30", "[detailing][en1992]") {
   using namespace armature::en1992;
-  // calculocivil.com, "EC2 anchorage of longitudinal reinforcement"
-  // calculator (published worked table): φ 12, C25/30, σsd = 434.78 MPa,
-  // good bond: fbd = 2.69 MPa, lb,rqd = 484 mm, cd = 35 mm gives α2 =
-  // 0.71, lb,min = 145 mm, lbd = 345 mm; poor bond lb,rqd = 692 mm, lbd = 493 mm.
+  // EN 1992-1-1 evaluated by hand for φ 12, C25/30, σsd = 434.78 MPa:
+  // fctm = 0.30 × 25^(2/3) = 2.565, fctk,0.05 = 0.7 × 2.565 = 1.795 (Table 3.1),
+  // fctd = 1.795 / 1.5 = 1.197 (3.1.6(2)); good bond fbd = 2.25 × 1.197 = 2.69 (8.2);
+  // lb,rqd = (12/4)(434.78 / 2.69) = 484 mm (8.3); cd = 35 mm: α2 = 1 − 0.15 (35 − 12)/12
+  // = 0.7125 (Table 8.2); lb,min = max(0.3 × 484, 120, 100) = 145 mm (8.6);
+  // lbd = 0.7125 × 484 = 345 mm (8.4). Poor bond (η1 = 0.7): lb,rqd = 692 mm, lbd = 493 mm.
   const double fctd = design_tensile_strength(mean_tensile_strength(25), 1.0, 1.5);
   const double fbd = design_bond_stress(1.0, 1.0, fctd);
   CHECK(fbd == Approx(2.69).epsilon(0.005));
@@ -268,6 +275,16 @@ TEST_CASE("ACI detailing rules of a session, SI and US variants", "[detailing][a
   b.cover_mm = 40;
   CHECK(rules->anchorage(b).length_mm == Approx(std::max(300.0, 420 * 0.8 * 9.5 / (1.1 * std::sqrt(28.0) * 2.5))));
   CHECK(rules->anchorage(b).length_mm == 300);
+  // 25.5.2.1 takes ld of 25.4.2.1(a), without the 300 mm floor:
+  // 9.5 mm bar, cb = min(40 + 4.75, 150) = 44.75, /9.5 = 4.71 → 2.5;
+  // ld = 420 × 0.8 × 9.5 / (1.1 × 5.292 × 2.5) = 219.3 mm; lst = 1.3 × 219.3 = 285.1 < 300 mm → 300 mm;
+  // 12.7 mm bar at 450 mm, cover 40: ld = 420 × 0.8 × 12.7 / (1.1 × 5.292 × 2.5) = 293.2 mm (below the floor),
+  // lst = 1.3 × 293.2 = 381.2 mm, not 1.3 × 300 = 390 mm (by hand).
+  CHECK(rules->lap(b).length_mm == 300);
+  b.diameter_mm = 12.7;
+  b.spacing_mm = 450;
+  CHECK(rules->anchorage(b).length_mm == 300);
+  CHECK(rules->lap(b).length_mm == Approx(381.2).epsilon(0.002));
 
   req["variant"] = "US";
   req["concrete"] = {{"cylinder_strength", "4000 psi"}};

@@ -2,7 +2,8 @@
 // CLI (nlohmann::json) and the Python dicts of the binding walk the same
 // schema through a Writer with these members:
 //   begin_object(), begin_array(), end(), key(const char*),
-//   value(double), value(bool), value(const std::string&), value(const char*)
+//   value(double), value(long long) (counts and indices), value(bool),
+//   value(const std::string&), value(const char*)
 // and, optionally, value(const Label&) (else a Label is written as its text).
 // Units convert here: m, kPa, kN, kNm outside; mm, MPa, N, N·mm inside.
 #pragma once
@@ -107,7 +108,7 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     w.key("bar"), w.value(b.bar);
     w.key("diameter_mm"), w.value(b.diameter_mm);
     w.key("spacing_mm"), w.value(b.spacing_mm);
-    w.key("count"), w.value(static_cast<double>(b.count));
+    w.key("count"), w.value(static_cast<long long>(b.count));
     // Along the strip (distribution bars: the part they are spread over,
     // with their own extent across the strip in across_m).
     w.key("start_m"), w.value((b.distribution ? b.along_from_mm : b.start_mm) * m_per_mm);
@@ -148,7 +149,7 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     w.key("mark"), w.value(row.mark);
     w.key("bar"), w.value(row.bar);
     w.key("diameter_mm"), w.value(row.diameter_mm);
-    w.key("count"), w.value(static_cast<double>(row.count));
+    w.key("count"), w.value(static_cast<long long>(row.count));
     w.key("length_mm"), w.value(row.length_mm);
     w.key("shape"), w.value(row.shape);
     w.key("mass_kg"), w.value(row.mass_kg);
@@ -282,13 +283,13 @@ void write_plate(W& w, const PlateRecord& p) {
   }
   w.end();
   w.key("poisson_ratio"), w.value(p.poisson_ratio);
-  w.key("mesh_per_bay"), w.value(static_cast<double>(p.mesh_per_bay));
+  w.key("mesh_per_bay"), w.value(static_cast<long long>(p.mesh_per_bay));
   w.key("outer_layer");
   w.begin_object();
   w.key("bottom"), w.value(p.outer_layer[0]);
   w.key("top"), w.value(p.outer_layer[1]);
   w.end();
-  w.key("load_arrangements"), w.value(static_cast<double>(p.arrangements));
+  w.key("load_arrangements"), w.value(static_cast<long long>(p.arrangements));
   w.end();
 }
 
@@ -331,7 +332,7 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
         case Distribution::line: w.key("line_kN_per_m"), w.value(a.value); break;  // N/mm = kN/m
         case Distribution::point: w.key("point_kN"), w.value(a.value * kN_per_N); break;
       }
-      if (a.span) w.key("span"), w.value(static_cast<double>(*a.span + 1));
+      if (a.span) w.key("span"), w.value(static_cast<long long>(*a.span + 1));
       if (a.from_mm) w.key("from_m"), w.value(*a.from_mm * m_per_mm);
       if (a.to_mm) w.key("to_m"), w.value(*a.to_mm * m_per_mm);
       if (a.distribution != Distribution::uniform) w.key("at_m"), w.value(a.at_mm * m_per_mm);

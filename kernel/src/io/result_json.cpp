@@ -20,6 +20,7 @@ class JsonWriter {
   void end() { stack_.pop_back(); }
   void key(const char* k) { key_ = k; }
   void value(double v) { put(v); }
+  void value(long long v) { put(v); }
   void value(bool v) { put(v); }
   void value(const std::string& v) { put(v); }
   void value(const char* v) { put(std::string(v)); }
@@ -74,6 +75,12 @@ class TextWriter {
     std::string_view text(buffer, static_cast<std::size_t>(end - buffer));
     out_ += text;
     if (text.find_first_of(".e") == std::string_view::npos) out_ += ".0";
+  }
+  void value(long long v) {
+    item();
+    char buffer[24];
+    const auto [end, ec] = std::to_chars(buffer, buffer + sizeof buffer, v);
+    out_.append(buffer, end);
   }
   void value(bool v) {
     item();
