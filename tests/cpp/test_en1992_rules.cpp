@@ -486,6 +486,39 @@ TEST_CASE("7.4.3 fully cracked limit: the same closed form with I_II", "[en1992]
   CHECK(w.max_mm == Approx(5.0 * q * std::pow(L, 4) / (384.0 * Ec_eff * I_II)).epsilon(0.005));
 }
 
+TEST_CASE("7.4.3 partly cracked simple span: virtual work in closed form", "[en1992][deflection]") {
+  // Simple span, uniform q: M = q x (L − x)/2, cracked for a < x < L − a,
+  // a = L/2 − √(L²/4 − 2 Mcr/q). With (7.18), (7.19) (β = 0.5, no
+  // shrinkage) the curvature is M/EI_I outside and M/EI_II − β Mcr² (1/EI_II −
+  // 1/EI_I)/M inside; the unit load at midspan gives m = x/2, so
+  // δ = P(a)/EI_I + (5 q L⁴/384 − P(a))/EI_II − β Mcr² (1/EI_II − 1/EI_I)(2/q) ln((L − a)/(L/2)),
+  // P(a) = (q/2)(L a³/3 − a⁴/4) (integrals by hand).
+  const double Ecm = secant_modulus_MPa(30.0), phi = 2.0;
+  auto closed_form = [&](const LongTermSection& s, double L, double q) {
+    const double E = s.Ec_eff, Mcr = s.Mcr;
+    const double a = L / 2.0 - std::sqrt(L * L / 4.0 - 2.0 * Mcr / q);
+    const double P = q / 2.0 * (L * a * a * a / 3.0 - a * a * a * a / 4.0);
+    const double cI = 1.0 / (E * s.uncracked.I), cII = 1.0 / (E * s.cracked.I);
+    return P * cI + (5.0 * q * std::pow(L, 4) / 384.0 - P) * cII -
+           0.5 * Mcr * Mcr * (cII - cI) * (2.0 / q) * std::log((L - a) / (L / 2.0));
+  };
+  // Cracked over most of the span, and over a short length near Mcr.
+  for (const auto& [L, q] : {std::pair{5000.0, 13.5}, std::pair{4000.0, 12.0}, std::pair{6000.0, 6.0}}) {
+    const LongTermSection s = long_term_section(kB, kH, kAs, kD, Ecm, mean_tensile_strength(30.0), phi, 0.0);
+    const auto span = armature::span_from_end_moments(L, q, 0.0, 0.0);
+    REQUIRE(span.max_moment() > s.Mcr);
+    const double expected = closed_form(s, L, q);
+    const auto w = armature::span_deflection(span, [&](double M) { return s.curvature(M); }, 0.005, {s.Mcr, -s.Mcr});
+    INFO("L = " << L << ", q = " << q << ", segments " << w.segments);
+    CHECK(w.max_mm == Approx(expected).epsilon(0.002));
+    // The jump at Mcr is carried by two points at one x.
+    std::size_t pairs = 0;
+    for (std::size_t i = 1; i < w.points.size(); ++i)
+      if (w.points[i].x_mm == w.points[i - 1].x_mm) ++pairs;
+    CHECK(pairs == 2);
+  }
+}
+
 TEST_CASE("7.4.3 uncracked two-span strip: w L^4 (39 + 55 sqrt 33)/65536 / (E I)", "[en1992][deflection]") {
   // Two equal spans under uniform load on both: each span is a propped
   // cantilever, largest deflection (39 + 55√33)/65536 w L⁴/(E I) ≈

@@ -21,7 +21,7 @@ struct DeflectionPoint {
 struct SpanDeflection {
   double max_mm = 0.0;         // the largest downward deflection along the span
   double x_at_mm = 0.0;        // where it occurs
-  std::size_t segments = 0;    // equal segments of the converged integration
+  std::size_t segments = 0;    // equal segments of the converged integration (break points besides)
   double change = 0.0;         // relative change of max_mm from half as many segments
   std::vector<DeflectionPoint> points;  // at every segment end of the converged integration
 };
@@ -34,12 +34,16 @@ using CurvatureOfMoment = std::function<double(double)>;
 // ends of equal segments from the span's moment diagram, integrated twice
 // by the trapezoidal rule; the segments double from 16 until the largest
 // deflection changes by no more than `tolerance` (relative) or 2^16
-// segments are reached.
+// segments are reached. `moment_breaks` are moments at which the
+// curvature jumps (the cracking moments): where the span's moment passes
+// one, two points at that x carry the curvature either side of the jump
+// (DeflectionPoint twice at one x_mm in `points`), so the jump is
+// integrated exactly and the rule converges as for a smooth curvature.
 SpanDeflection span_deflection(const SpanForces& span, const CurvatureOfMoment& curvature,
-                               double tolerance = 0.005);
+                               double tolerance = 0.005, const std::vector<double>& moment_breaks = {});
 
 // The same integration on a given number of segments (no convergence).
 SpanDeflection span_deflection_fixed(const SpanForces& span, const CurvatureOfMoment& curvature,
-                                     std::size_t segments);
+                                     std::size_t segments, const std::vector<double>& moment_breaks = {});
 
 }  // namespace armature

@@ -4,43 +4,109 @@
 
 #include <algorithm>
 #include <cmath>
+#include <iterator>
 #include <stdexcept>
 
 namespace armature {
 
 namespace {
 
+DeflectionPoint point_at(const CurvatureOfMoment& curvature, double x, double M) {
+  DeflectionPoint p;
+  p.x_mm = x;
+  p.moment = M;
+  p.curvature = curvature(M);
+  if (!std::isfinite(p.curvature)) throw std::runtime_error("span deflection: curvature not finite");
+  return p;
+}
+
 // Curvature at the ends of n equal segments, the even points taken from
 // `coarse` (n/2 segments) where given.
-std::vector<DeflectionPoint> points_of(const SpanForces& span, const CurvatureOfMoment& curvature, std::size_t n,
-                                       const std::vector<DeflectionPoint>* coarse) {
+std::vector<DeflectionPoint> grid_of(const SpanForces& span, const CurvatureOfMoment& curvature, std::size_t n,
+                                     const std::vector<DeflectionPoint>* coarse) {
   const double h = span.L / static_cast<double>(n);
   std::vector<DeflectionPoint> points(n + 1);
   for (std::size_t i = 0; i <= n; ++i) {
-    DeflectionPoint& p = points[i];
     if (coarse && i % 2 == 0) {
-      p = (*coarse)[i / 2];
+      points[i] = (*coarse)[i / 2];
       continue;
     }
-    p.x_mm = i == n ? span.L : h * static_cast<double>(i);
-    p.moment = span.moment_at(p.x_mm);
-    p.curvature = curvature(p.moment);
-    if (!std::isfinite(p.curvature)) throw std::runtime_error("span deflection: curvature not finite");
+    const double x = i == n ? span.L : h * static_cast<double>(i);
+    points[i] = point_at(curvature, x, span.moment_at(x));
   }
   return points;
 }
 
-// F(x) = ∫0^x ∫0^s κ (slope, then its integral, by trapezoids); the
-// deflection with zero at both supports, w(x) = (x/L) F(L) − F(x),
-// downward positive for sagging curvature.
-SpanDeflection integrate(const SpanForces& span, std::vector<DeflectionPoint> points) {
+// Where the moment passes through one of the break moments: two points at
+// the same x, with the curvature just before and just after the break, so
+// that the jump is integrated exactly instead of smeared over a segment.
+// The moment is a polynomial between the span's load breakpoints: each
+// piece is scanned and every change of side refined by bisection.
+std::vector<DeflectionPoint> break_points_of(const SpanForces& span, const CurvatureOfMoment& curvature,
+                                             const std::vector<double>& breaks) {
+  std::vector<DeflectionPoint> out;
+  if (breaks.empty()) return out;
+  constexpr int scan_per_piece = 64;
+  const std::vector<double> pieces = span.breakpoints();
+  for (std::size_t p = 0; p + 1 < pieces.size(); ++p) {
+    const double a = pieces[p], b = pieces[p + 1];
+    // Inside the piece (its ends may carry a jump of shear, not of moment).
+    double x0 = a, m0 = span.moment_at(a + 1e-9 * (b - a));
+    for (int k = 1; k <= scan_per_piece; ++k) {
+      const double x1 = k == scan_per_piece ? b : a + (b - a) * k / scan_per_piece;
+      const double m1 = span.moment_at(k == scan_per_piece ? b - 1e-9 * (b - a) : x1);
+      for (double level : breaks) {
+        if (!((m0 - level) * (m1 - level) < 0.0)) continue;
+        double lo = x0, hi = x1, m_lo = m0;
+        for (int it = 0; it < 60 && hi - lo > 1e-9 * span.L; ++it) {
+          const double mid = 0.5 * (lo + hi), m_mid = span.moment_at(mid);
+          if ((m_lo - level) * (m_mid - level) <= 0.0) {
+            hi = mid;
+          } else {
+            lo = mid;
+            m_lo = m_mid;
+          }
+        }
+        const double x = 0.5 * (lo + hi);
+        const double nudge = 1e-9 * std::max(std::abs(level), 1.0);
+        const double before = m0 < level ? level - nudge : level + nudge;
+        const double after = m0 < level ? level + nudge : level - nudge;
+        out.push_back(point_at(curvature, x, before));
+        out.push_back(point_at(curvature, x, after));
+      }
+      x0 = x1;
+      m0 = m1;
+    }
+  }
+  std::stable_sort(out.begin(), out.end(),
+                   [](const DeflectionPoint& l, const DeflectionPoint& r) { return l.x_mm < r.x_mm; });
+  return out;
+}
+
+// The grid with the break points placed in order of x (a break point
+// after any grid point at the same x).
+std::vector<DeflectionPoint> merged(const std::vector<DeflectionPoint>& grid,
+                                    const std::vector<DeflectionPoint>& breaks) {
+  if (breaks.empty()) return grid;
+  std::vector<DeflectionPoint> out;
+  out.reserve(grid.size() + breaks.size());
+  std::merge(grid.begin(), grid.end(), breaks.begin(), breaks.end(), std::back_inserter(out),
+             [](const DeflectionPoint& b, const DeflectionPoint& g) { return b.x_mm < g.x_mm; });
+  return out;
+}
+
+// F(x) = ∫0^x ∫0^s κ (slope, then its integral, by trapezoids over the
+// points' intervals, zero-length ones at the breaks); the deflection with
+// zero at both supports, w(x) = (x/L) F(L) − F(x), downward positive for
+// sagging curvature.
+SpanDeflection integrate(const SpanForces& span, std::vector<DeflectionPoint> points, std::size_t segments) {
   const std::size_t n = points.size() - 1;
-  const double h = span.L / static_cast<double>(n);
   SpanDeflection out;
-  out.segments = n;
+  out.segments = segments;
   std::vector<double> Fx(n + 1, 0.0);
   double slope = 0.0, F = 0.0;
   for (std::size_t i = 1; i <= n; ++i) {
+    const double h = points[i].x_mm - points[i - 1].x_mm;
     const double slope_next = slope + h * (points[i - 1].curvature + points[i].curvature) / 2.0;
     F += h * (slope + slope_next) / 2.0;
     slope = slope_next;
@@ -61,17 +127,22 @@ SpanDeflection integrate(const SpanForces& span, std::vector<DeflectionPoint> po
 }  // namespace
 
 SpanDeflection span_deflection_fixed(const SpanForces& span, const CurvatureOfMoment& curvature,
-                                     std::size_t segments) {
+                                     std::size_t segments, const std::vector<double>& moment_breaks) {
   if (segments == 0 || !(span.L > 0.0)) throw std::invalid_argument("span deflection: no segments or no span");
-  return integrate(span, points_of(span, curvature, segments, nullptr));
+  const auto breaks = break_points_of(span, curvature, moment_breaks);
+  return integrate(span, merged(grid_of(span, curvature, segments, nullptr), breaks), segments);
 }
 
-SpanDeflection span_deflection(const SpanForces& span, const CurvatureOfMoment& curvature, double tolerance) {
+SpanDeflection span_deflection(const SpanForces& span, const CurvatureOfMoment& curvature, double tolerance,
+                               const std::vector<double>& moment_breaks) {
   if (!(span.L > 0.0)) throw std::invalid_argument("span deflection: no span");
   constexpr std::size_t first = 16, last = std::size_t{1} << 16;
-  SpanDeflection previous = integrate(span, points_of(span, curvature, first, nullptr));
+  const auto breaks = break_points_of(span, curvature, moment_breaks);
+  std::vector<DeflectionPoint> grid = grid_of(span, curvature, first, nullptr);
+  SpanDeflection previous = integrate(span, merged(grid, breaks), first);
   for (std::size_t n = 2 * first;; n *= 2) {
-    SpanDeflection next = integrate(span, points_of(span, curvature, n, &previous.points));
+    grid = grid_of(span, curvature, n, &grid);
+    SpanDeflection next = integrate(span, merged(grid, breaks), n);
     const double scale = std::max(std::abs(next.max_mm), 1e-9);
     next.change = std::abs(next.max_mm - previous.max_mm) / scale;
     if (next.change <= tolerance || n >= last) return next;
