@@ -8,6 +8,8 @@ checked against its stated rule (bars over their bay, top bars reaching
 0.3 of each adjacent span: common practice, as for strips)."""
 import copy
 
+import pytest
+
 import armature
 
 # The workshop's ground-floor store: two bays on walls (our own scenario).
@@ -91,3 +93,40 @@ def test_plate_object_has_the_shape_the_plots_read():
     assert "grid x1 segment 1" in names and "edge y1 segment 2" in names
     assert all(r["max_kN_per_m"] > 0.0 for r in plate["reactions"])
     assert result["caution"] == armature.CAUTION
+
+
+def test_record_draws_the_plan_and_the_moment_maps(tmp_path):
+    """The HTML record of a two-way slab draws the plan (bays with their
+    bottom bars, the top bars marked) and six colour maps whose scales
+    print the fields' own extremes; US units convert by 1 kip-ft/ft =
+    4.448 kNm/m (1 lbf = 4.448222 N, 1 ft cancels: NIST SP 811 Appendix B)."""
+    import re
+    result = armature.design(STORE)
+    html = (tmp_path / "store.html")
+    armature.report(result, html)
+    text = html.read_text(encoding="utf-8")
+    plan = text[text.index("Plan of the slab"):]
+    plan = plan[:plan.index("</svg>")]
+    for g in result["regions"]:
+        if g["face"] == "bottom":
+            assert g["direction"] + ": " in plan
+    assert plan.count('class="mark"') == sum(1 for g in result["regions"] if g["face"] == "top")
+    maxima = [float(v) for v in re.findall(r'class="scale-max"[^>]*>max ([-0-9.]+)', text)]
+    assert len(maxima) == 6
+    field = result["plate"]["field"]
+    expected = [max(max(row) for row in field["mx"]["max"]), max(max(row) for row in field["my"]["max"])] + \
+        [max(max(row) for row in field["design"][n]) for n in ("bottom_x", "bottom_y", "top_x", "top_y")]
+    for got, want in zip(maxima, expected):
+        assert got == pytest.approx(want, rel=1e-3)
+    assert text.count(armature.CAUTION[:40]) >= 7
+
+    us = copy.deepcopy(STORE)
+    us["report_units"] = "US"
+    res_us = armature.design(us)
+    html_us = tmp_path / "store-us.html"
+    armature.report(res_us, html_us)
+    us_text = html_us.read_text(encoding="utf-8")
+    assert "kip-ft/ft" in us_text
+    us_max = [float(v) for v in re.findall(r'class="scale-max"[^>]*>max ([-0-9.]+)', us_text)]
+    for got, want in zip(us_max, expected):
+        assert got == pytest.approx(want / 4.448222, rel=1e-3)

@@ -18,6 +18,7 @@
 #include "armature/json_io.hpp"
 #include "armature/two_way.hpp"
 #include "armature/units.hpp"
+#include "plate_svg.hpp"
 
 namespace armature {
 
@@ -556,6 +557,57 @@ std::string plate_analysis_text(const DesignRecord& r) {
          p.outer_layer[1] + ".";
 }
 
+// The plan (bays named with their bottom bars, the top bars marked at their
+// design positions) and colour maps of the ULS envelope of mx and my and
+// of the four Wood–Armer design moments, in the record's units (m or ft
+// along; kNm/m or kip-ft/ft).
+std::string plate_drawings_html(const DesignRecord& r) {
+  const PlateRecord& p = *r.plate;
+  const RecordUnits u = units_of(r);
+  PlatePlan plan;
+  for (double x : p.x_lines_mm) plan.x_lines.push_back(u.along_v(x));
+  for (double y : p.y_lines_mm) plan.y_lines.push_back(u.along_v(y));
+  plan.edges = {p.edges[0], p.edges[1], p.edges[2], p.edges[3]};
+  plan.length_unit = u.along_u();
+  for (const auto& b : p.bays) {
+    PlanBay bay{b.name, u.along_v(b.x0_mm), u.along_v(b.x1_mm), u.along_v(b.y0_mm), u.along_v(b.y1_mm)};
+    for (const auto& g : r.regions) {
+      if (g.where != b.name || g.face != Face::bottom) continue;
+      (g.direction == BarDirection::x ? bay.bars_x : bay.bars_y) = u.bars(g.bars);
+    }
+    plan.bays.push_back(std::move(bay));
+  }
+  for (const auto& g : r.regions)
+    if (g.face == Face::top)
+      plan.marks.push_back({u.along_v(g.x_mm), u.along_v(g.y_mm), u.bars(g.bars) + " top " + to_string(g.direction),
+                            g.direction == BarDirection::x});
+  const bool us = r.report_units == ReportUnits::US;
+  const std::string unit = us ? "kip-ft/ft" : "kNm/m";
+  // N·mm/mm = 10⁻³ kNm/m; 1 kip-ft/ft = 1 kip · ft/ft in kNm/m = kN_per_kip.
+  const double to_unit = us ? 1e-3 / kN_per_kip : 1e-3;
+  auto map_of = [&](const std::vector<double>& values) {
+    ScalarMap m;
+    for (double x : p.field.x_mm) m.x.push_back(u.along_v(x));
+    for (double y : p.field.y_mm) m.y.push_back(u.along_v(y));
+    for (double v : values) m.values.push_back(v * to_unit);
+    return m;
+  };
+  std::string o = "<h3>Plan and bars</h3>\n" + plate_plan_svg(plan) + "\n";
+  o += "<h3>Moment fields (ULS envelope)</h3>\n<p>Elastic moments per metre at the mesh nodes, the largest "
+       "(most sagging) of the load cases, and the Wood–Armer design moments that the regions take their "
+       "largest values from.</p>\n";
+  const std::pair<const std::vector<double>*, const char*> maps[] = {
+      {&p.field.mx_max, "mx, largest of the load cases"},
+      {&p.field.my_max, "my, largest of the load cases"},
+      {&p.field.bottom_x, "design moment, bottom bars in x (Wood–Armer)"},
+      {&p.field.bottom_y, "design moment, bottom bars in y (Wood–Armer)"},
+      {&p.field.top_x, "design moment, top bars in x (Wood–Armer)"},
+      {&p.field.top_y, "design moment, top bars in y (Wood–Armer)"}};
+  for (const auto& [values, title] : maps)
+    if (!values->empty()) o += plate_map_svg(plan, map_of(*values), title, unit) + "\n";
+  return o;
+}
+
 // Line reactions per segment (ULS envelope).
 std::vector<std::pair<std::string, std::string>> plate_reaction_rows(const DesignRecord& r) {
   std::vector<std::pair<std::string, std::string>> out;
@@ -784,7 +836,7 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   if (r.plate) {
     o += "<h2>3 Analysis</h2>\n<p>" + esc(plate_analysis_text(r)) + "</p>\n<h3>Line reactions (ULS)</h3>\n<table>\n";
     for (const auto& [k, v] : plate_reaction_rows(r)) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
-    o += "</table>\n";
+    o += "</table>\n" + plate_drawings_html(r);
   } else
   o += "<h2>3 Analysis</h2>\n<p>Elastic continuous beam, uniform stiffness, knife-edge supports; moments and "
        "shears at support centrelines, for the strip width of " + u.length(r.strip_width_mm) +
