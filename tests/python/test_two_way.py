@@ -130,3 +130,17 @@ def test_record_draws_the_plan_and_the_moment_maps(tmp_path):
     us_max = [float(v) for v in re.findall(r'class="scale-max"[^>]*>max ([-0-9.]+)', us_text)]
     for got, want in zip(us_max, expected):
         assert got == pytest.approx(want / 4.448222, rel=1e-3)
+
+
+def test_record_places_the_actions_on_the_slab(tmp_path):
+    """A two-way record describes actions over the slab or placed in plan,
+    as the request gives them (not along a strip)."""
+    req = copy.deepcopy(STORE)
+    req["loads"]["actions"] = [{"name": "tank", "kind": "imposed", "category": "E", "point_kN": 12.0,
+                                "x_m": 2.0, "y_m": 1.0}]
+    path = tmp_path / "store.md"
+    armature.report(armature.design(req), path)
+    text = path.read_text(encoding="utf-8")
+    assert "| Action: tank | imposed, category E, 12 kN at (2 m, 1 m) |" in text
+    assert "3 kPa over the whole slab" in text
+    assert "strip" not in text.split("## 3")[0].split("## 2")[1]

@@ -684,6 +684,17 @@ std::string action_text(const DesignRecord& r, const Action& a) {
   if (!a.category.empty() && kind_name.empty()) t += ", category " + a.category;
   t += ", ";
   const std::string span = a.span ? "span " + std::to_string(*a.span + 1) : std::string();
+  if (r.plate) {  // a two-way slab: over the slab, or placed in plan
+    if (!a.plan_mm) return t + u.load(a.value) + " over the whole slab";
+    const auto& p = *a.plan_mm;
+    const std::string from = "(" + u.along(p[0]) + ", " + u.along(p[1]) + ")";
+    const std::string to = "(" + u.along(p[2]) + ", " + u.along(p[3]) + ")";
+    switch (a.distribution) {
+      case Distribution::uniform: return t + u.load(a.value) + " on the patch " + from + " to " + to;
+      case Distribution::line: return t + u.line(a.value) + " along the line " + from + " to " + to;
+      case Distribution::point: return t + u.force(a.value) + " at " + from;
+    }
+  }
   switch (a.distribution) {
     case Distribution::uniform:
       t += u.load(a.value);
@@ -715,11 +726,13 @@ std::string combination_text(const DesignRecord& r, const Combination& c) {
     if (!t.empty()) t += "; ";
     t += a.name + " × " + n4(f.loaded);
     if (!is_variable(a.kind) && f.unloaded != f.loaded)
-      t += (c.limit_state == LimitState::equilibrium ? " (cantilever), × " : " (loaded spans), × ") +
-           n4(f.unloaded) + (c.limit_state == LimitState::equilibrium ? " (back span)" : " (unloaded spans)");
+      t += (c.limit_state == LimitState::equilibrium ? " (cantilever), × "
+                                                     : r.plate ? " (loaded bays), × " : " (loaded spans), × ") +
+           n4(f.unloaded) +
+           (c.limit_state == LimitState::equilibrium ? " (back span)" : r.plate ? " (unloaded bays)" : " (unloaded spans)");
     if (a.distribution == Distribution::uniform && !a.span) uniform += f.loaded * a.value;
   }
-  return t + "; uniform over the whole strip " + units_of(r).load(uniform);
+  return t + "; uniform over the whole " + (r.plate ? "slab " : "strip ") + units_of(r).load(uniform);
 }
 
 std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord& r) {
