@@ -299,10 +299,8 @@ TEST_CASE("Two-way: bad input is named field by field") {
   json off = two_way_request("EN1992-1-1", "UK", {5.4, 6.0}, {4.2});
   off["loads"]["actions"] = {
       {{"name", "tank"}, {"kind", "imposed"}, {"category", "E"}, {"point_kN", 12.0}, {"x_m", 20.0}, {"y_m", 1.0}}};
-  off["reinforcement"] = {{"rationalise", "uniform_bottom"}};
   const auto q = problem_fields(off);
   CHECK(has_problem(q, "loads.actions[0].x_m", "must lie on the slab"));
-  CHECK(has_problem(q, "reinforcement.rationalise", "not available yet for two_way slabs"));
   // Detailing and the calculated deflection are for strips so far: named, never ignored.
   json later = two_way_request("EN1992-1-1", "UK", {5.4, 6.0}, {4.2});
   later["detailing"] = {{"slab_width_m", 4.2}};
@@ -436,4 +434,42 @@ TEST_CASE("Two-way: fire by Table 5.8's two-way columns") {
   CHECK(a_min(4.0, 5.0) == Approx(15.0));
   CHECK(a_min(4.0, 7.0) == Approx(20.0));
   CHECK(a_min(3.0, 7.5) == Approx(30.0));
+}
+
+// uniform_bottom: one arrangement per direction for every bay's bottom
+// bars. Bottom bars of one direction lie in one layer at one depth, so the
+// shared arrangement is the one each bay would take alone for the largest
+// moment of that direction (the lightest that passes the worst bay), and
+// every bay passes with it.
+TEST_CASE("Two-way: uniform_bottom shares one arrangement per direction over the bays") {
+  json req = two_way_request("EN1992-1-1", "UK", {3.0, 6.6, 4.2}, {7.2},
+                             {{"x0", "pinned"}, {"x1", "fixed"}, {"y0", "pinned"}, {"y1", "pinned"}});
+  req["loads"]["imposed_kPa"] = 5.0;
+  const DesignRecord alone = design(registry(), req);
+  req["reinforcement"] = {{"rationalise", "uniform_bottom"}};
+  const DesignRecord shared = design(registry(), req);
+  for (const BarDirection d : {BarDirection::x, BarDirection::y}) {
+    const RegionRecord* worst = nullptr;
+    for (const auto& g : alone.regions)
+      if (g.face == Face::bottom && g.direction == d && (!worst || g.M_Ed > worst->M_Ed)) worst = &g;
+    REQUIRE(worst);
+    INFO(to_string(d) << ": worst " << worst->where << " " << worst->bars.bar << " @ " << worst->bars.spacing_mm);
+    std::size_t bays = 0;
+    for (const auto& g : shared.regions) {
+      if (g.face != Face::bottom || g.direction != d) continue;
+      ++bays;
+      CHECK(g.bars.bar == worst->bars.bar);
+      CHECK(g.bars.spacing_mm == worst->bars.spacing_mm);
+      for (const auto& c : g.checks) CHECK(c.pass);
+      // At least as much steel as the bay took alone.
+      CHECK(g.bars.As_prov_mm2 >= region(alone, g.where, d).bars.As_prov_mm2 - 1e-9);
+    }
+    CHECK(bays == 3);
+  }
+  // The bays differ alone (otherwise the test shows nothing).
+  CHECK(region(alone, "bay 1,1", BarDirection::x).bars.As_prov_mm2 <
+        region(alone, "bay 2,1", BarDirection::x).bars.As_prov_mm2);
+  // Top bars are not shared.
+  for (const auto& g : shared.regions)
+    if (g.face == Face::top) CHECK(g.bars.As_prov_mm2 == region(alone, g.where, g.direction).bars.As_prov_mm2);
 }

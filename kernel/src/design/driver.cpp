@@ -227,9 +227,7 @@ BarPlan plan_bars(const SlabChecker& checker, const CodeIdentity& code, const Re
     plan.given[static_cast<std::size_t>(it - demands.begin())] =
         SearchCandidate{*bar, g.spacing_mm, provided_area_mm2(bar->area_mm2, g.spacing_mm, width_mm)};
   }
-  if (r.rationalise == Rationalise::uniform_bottom)
-    for (std::size_t i = 0; i < demands.size(); ++i)
-      if (demands[i].face == Face::bottom && !plan.given[i]) plan.common.push_back(i);
+  if (r.rationalise == Rationalise::uniform_bottom) add_uniform_bottom_groups(demands, plan);
   return plan;
 }
 

@@ -426,24 +426,28 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
   const std::size_t n = demands.size();
   std::vector<SearchCandidate> picks(n);
   std::vector<std::vector<std::string>> region_warnings(n);
-  std::vector<std::string> common_warnings;
-  std::vector<bool> in_common(n, false);
-  for (const std::size_t i : plan.common) in_common[i] = true;
+  const std::size_t groups = plan.common.size();
+  std::vector<std::vector<std::string>> common_warnings(groups);
+  constexpr std::size_t none = static_cast<std::size_t>(-1);
+  std::vector<std::size_t> group_of(n, none);
+  for (std::size_t k = 0; k < groups; ++k)
+    for (const std::size_t i : plan.common[k]) group_of[i] = k;
   auto is_given = [&](std::size_t i) { return plan.given[i].has_value(); };
-  auto search_common = [&] {
+  auto search_common = [&](std::size_t k) {
     std::vector<const RegionDemand*> regions;
-    for (const std::size_t i : plan.common) regions.push_back(&demands[i]);
-    common_warnings.clear();
+    for (const std::size_t i : plan.common[k]) regions.push_back(&demands[i]);
+    common_warnings[k].clear();
     const SearchCandidate pick =
-        search_shared(checker, rules, code, regions, width_mm, common_warnings, plan.grid);
-    for (const std::size_t i : plan.common) picks[i] = pick;
+        search_shared(checker, rules, code, regions, width_mm, common_warnings[k], plan.grid);
+    for (const std::size_t i : plan.common[k]) picks[i] = pick;
   };
   for (std::size_t i = 0; i < n; ++i) {
     if (is_given(i)) picks[i] = *plan.given[i];
-    else if (!in_common[i])
+    else if (group_of[i] == none)
       picks[i] = search_region(checker, rules, code, demands[i], width_mm, region_warnings[i], plan.grid);
   }
-  if (!plan.common.empty()) search_common();
+  for (std::size_t k = 0; k < groups; ++k)
+    if (!plan.common[k].empty()) search_common(k);
   const std::size_t rounds =
       durability.cover_given(Face::bottom) && durability.cover_given(Face::top)
           ? 0
@@ -452,7 +456,8 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
             }).size() + 1;
   auto sets_cover = [&](std::size_t i) { return is_given(i) || picks[i].strength_pass; };
   for (std::size_t round = 0; round < rounds; ++round) {
-    bool searched_again = false, common_again = false;
+    bool searched_again = false;
+    std::vector<bool> common_again(groups, false);
     for (const Face face : {Face::bottom, Face::top}) {
       if (durability.cover_given(face)) continue;  // a given cover does not follow the bars
       double largest = 0.0;
@@ -464,8 +469,8 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
         g.cover_bar_mm = largest;
         if (is_given(i)) continue;  // checked with the face's cover, never searched
         if (picks[i].bar.diameter_mm >= largest && picks[i].strength_pass) continue;  // it set the cover
-        if (in_common[i]) {
-          common_again = true;
+        if (group_of[i] != none) {
+          common_again[group_of[i]] = true;
           continue;
         }
         region_warnings[i].clear();
@@ -473,13 +478,19 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
         searched_again = true;
       }
     }
-    if (common_again) search_common();
-    if (!searched_again && !common_again) break;
+    bool any_common_again = false;
+    for (std::size_t k = 0; k < groups; ++k)
+      if (common_again[k]) {
+        search_common(k);
+        any_common_again = true;
+      }
+    if (!searched_again && !any_common_again) break;
   }
   for (std::size_t i = 0; i < n; ++i) {
     warnings.insert(warnings.end(), region_warnings[i].begin(), region_warnings[i].end());
-    if (!plan.common.empty() && i == plan.common.front())
-      warnings.insert(warnings.end(), common_warnings.begin(), common_warnings.end());
+    for (std::size_t k = 0; k < groups; ++k)
+      if (!plan.common[k].empty() && i == plan.common[k].front())
+        warnings.insert(warnings.end(), common_warnings[k].begin(), common_warnings[k].end());
     const bool shares_face = std::any_of(demands.begin(), demands.end(), [&](const RegionDemand& o) {
       return &o != &demands[i] && o.face == demands[i].face;
     });
@@ -489,6 +500,15 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
                          "bending and minimum steel");
   }
   return picks;
+}
+
+void add_uniform_bottom_groups(const std::vector<RegionDemand>& demands, BarPlan& plan) {
+  for (const BarDirection dir : {BarDirection::span, BarDirection::x, BarDirection::y}) {
+    std::vector<std::size_t> group;
+    for (std::size_t i = 0; i < demands.size(); ++i)
+      if (demands[i].face == Face::bottom && demands[i].direction == dir && !plan.given[i]) group.push_back(i);
+    if (!group.empty()) plan.common.push_back(std::move(group));
+  }
 }
 
 double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm) {

@@ -15,9 +15,14 @@ namespace armature {
 // arrangement (reinforcement.rationalise).
 struct BarPlan {
   std::vector<std::optional<SearchCandidate>> given;  // per region
-  std::vector<std::size_t> common;                    // regions sharing one arrangement
+  std::vector<std::vector<std::size_t>> common;       // groups of regions, each sharing one arrangement
   SpacingGrid grid;
 };
+
+// uniform_bottom: every bottom region not given shares one arrangement
+// per bar direction (a strip's spans; a two-way slab's bays in x, and in
+// y), each region at its own depth.
+void add_uniform_bottom_groups(const std::vector<RegionDemand>& demands, BarPlan& plan);
 
 // Distribution bars: the least area meeting the code's need, on the grid
 // (`ok` false, with a warning, when none does).

@@ -137,6 +137,7 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
     plan.given[found] = SearchCandidate{*bar, gb.spacing_mm, provided_area_mm2(bar->area_mm2, gb.spacing_mm, b)};
   }
   given_problems.raise_if_any();
+  if (req.reinforcement.rationalise == Rationalise::uniform_bottom) add_uniform_bottom_groups(demands, plan);
   const auto& options = call_code(rec.code, "bar options",
                                   [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   double smallest = options.empty() ? 0.0 : options.front().diameter_mm;

@@ -984,7 +984,6 @@ void read_two_way_loads(const json& j, InputProblems& problems, Request& req) {
 // What a two-way slab does not take yet, named (never ignored).
 void add_two_way_scope_problems(const Request& req, InputProblems& problems) {
   if (req.design.redistribution_percent > 0.0) problems.add("design.redistribution_percent", not_yet_two_way);
-  if (req.reinforcement.rationalise != Rationalise::none) problems.add("reinforcement.rationalise", not_yet_two_way);
   if (req.detailing.requested) problems.add("detailing", not_yet_two_way);
   if (req.serviceability.calculated_deflection())
     problems.add("serviceability.deflection", "\"calculated\" and \"both\" are " + std::string(not_yet_two_way) +

@@ -776,7 +776,10 @@ std::vector<std::pair<std::string, std::string>> action_rows(const DesignRecord&
 std::string bars_source(const DesignRecord& r, const RegionRecord& g) {
   if (g.bars_given) return " (given: the request's bars, checked, not searched)";
   if (r.rationalise == Rationalise::uniform_bottom && g.face == Face::bottom)
-    return " (one arrangement for every span region not given: reinforcement.rationalise uniform_bottom)";
+    return r.plate ? " (one arrangement in " + std::string(to_string(g.direction)) +
+                         " for every bay not given: reinforcement.rationalise uniform_bottom)"
+                   : std::string(" (one arrangement for every span region not given: reinforcement.rationalise "
+                                 "uniform_bottom)");
   return "";
 }
 

@@ -160,7 +160,9 @@ std::string format_summary(const DesignRecord& r) {
   if (any_given)
     o += "given: the request's bars (reinforcement.given), checked, not searched\n";
   if (r.rationalise == Rationalise::uniform_bottom)
-    o += "Bottom bars: one arrangement for every span region not given (reinforcement.rationalise)\n";
+    o += r.plate ? "Bottom bars: one arrangement in x and one in y for every bay not given "
+                   "(reinforcement.rationalise)\n"
+                 : "Bottom bars: one arrangement for every span region not given (reinforcement.rationalise)\n";
   for (const auto& s : r.supports)
     o += pad(s.where, 12) + "V_Ed " + fmt("%.1f", u.force(s.V_Ed)) + " " + u.force_unit() +
          ", resistance " + fmt("%.1f", u.force(s.V_Rd)) + " " + u.force_unit() + "\n";
