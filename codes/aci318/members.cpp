@@ -204,6 +204,13 @@ std::vector<Check> Checker::span_checks(const std::string&) const { return {}; }
 // Top steel at pinned ends: none asked for.
 double Checker::pinned_end_fixity_fraction() const { return 0.0; }
 
+// 8.7.3.1 (value from memory): at exterior corners of slabs on edge walls
+// (or stiff edge beams), top and bottom reinforcement for a moment per unit
+// width equal to the largest positive moment per unit width in the panel,
+// over one-fifth of the longer span from the corner each way (8.7.3.1.2);
+// bars in two layers parallel to the sides (8.7.3.1.3's alternative).
+CornerRule Checker::corner_rule() const { return {1.0, 0.2, true, "ACI 318-19 8.7.3.1"}; }
+
 // 7.4.1.3 (from memory): for slabs built integrally with supports, Mu at
 // the support may be taken at the face of support. A support given a
 // width is taken as built integrally (a slab resting on a wall that is

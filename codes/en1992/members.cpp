@@ -357,6 +357,13 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
 
 double Checker::pinned_end_fixity_fraction() const { return partial_fixity_fraction; }
 
+// 9.3.1.3(1): where the supports keep a slab's corner from lifting,
+// suitable reinforcement is provided. The clause sets no quantity: the
+// corner zone's top and bottom bars take the Wood–Armer moments there (the
+// torsion of the analysis). No extent in the clause either: a fifth of the
+// longer span, as ACI 318-19 8.7.3.1.2 sets (common practice, DEVELOPERS.md).
+CornerRule Checker::corner_rule() const { return {0.0, 0.2, true, "EN 1992-1-1 9.3.1.3"}; }
+
 std::vector<Check> Checker::span_checks(const std::string& span_where) const {
   std::vector<Check> out;
   if (req_.fire.resistance_min) {

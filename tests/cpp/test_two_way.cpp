@@ -9,6 +9,7 @@
 #include "armature/design.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
+#include "armature/summary.hpp"
 #include "armature/two_way.hpp"
 
 using nlohmann::json;
@@ -135,7 +136,7 @@ TEST_CASE("Two-way: the reactions of a bay equal its load") {
   const std::vector<BayArrangement> all{{{true}, 1.0}};
   plate.analyse(actions, {uls}, all, 0.6);
   std::vector<std::string> warnings;
-  plate.design_regions(0.0, warnings);
+  plate.design_regions(0.0, armature::CornerRule{}, warnings);
   const PlateRecord rec = plate.record();
   const PlateLoadCase lc = plate.load_case(actions, uls, all[0]);
   const double load = plate.model().load_resultant(lc).force_N;
@@ -263,7 +264,7 @@ TEST_CASE("Two-way: the pattern envelope is at least the all-bays case") {
   TwoWayPlate one(req, 30000.0), many(req, 30000.0);
   CHECK(one.analyse(actions, {uls}, all, 0.5) == 1);
   CHECK(many.analyse(actions, {uls}, patterns, 0.5) == 6);
-  const auto a = one.design_regions(0.0, warnings), b = many.design_regions(0.0, warnings);
+  const auto a = one.design_regions(0.0, armature::CornerRule{}, warnings), b = many.design_regions(0.0, armature::CornerRule{}, warnings);
   REQUIRE(a.size() == b.size());
   bool raised = false;
   for (std::size_t i = 0; i < a.size(); ++i) {
@@ -451,12 +452,14 @@ TEST_CASE("Two-way: uniform_bottom shares one arrangement per direction over the
   for (const BarDirection d : {BarDirection::x, BarDirection::y}) {
     const RegionRecord* worst = nullptr;
     for (const auto& g : alone.regions)
-      if (g.face == Face::bottom && g.direction == d && (!worst || g.M_Ed > worst->M_Ed)) worst = &g;
+      if (g.face == Face::bottom && g.direction == d && !is_plate_corner_name(g.where) &&
+          (!worst || g.M_Ed > worst->M_Ed))
+        worst = &g;
     REQUIRE(worst);
     INFO(to_string(d) << ": worst " << worst->where << " " << worst->bars.bar << " @ " << worst->bars.spacing_mm);
     std::size_t bays = 0;
     for (const auto& g : shared.regions) {
-      if (g.face != Face::bottom || g.direction != d) continue;
+      if (g.face != Face::bottom || g.direction != d || is_plate_corner_name(g.where)) continue;  // corners keep their own
       ++bays;
       CHECK(g.bars.bar == worst->bars.bar);
       CHECK(g.bars.spacing_mm == worst->bars.spacing_mm);
@@ -472,4 +475,68 @@ TEST_CASE("Two-way: uniform_bottom shares one arrangement per direction over the
   // Top bars are not shared.
   for (const auto& g : shared.regions)
     if (g.face == Face::top) CHECK(g.bars.As_prov_mm2 == region(alone, g.where, g.direction).bars.As_prov_mm2);
+}
+
+// Corners held down where two pinned edges meet (EN 1992-1-1 9.3.1.3,
+// ACI 318-19 8.7.3.1). A simply supported square plate, ν = 0.3, uniform
+// q (Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, Table 8,
+// value from memory): centre Mx = My = 0.0479 q a², corner reaction R =
+// 0.065 q a² = 2 Mxy, so Mxy = 0.0325 q a² at the corner, where Mx = My =
+// 0 and the Wood–Armer top moment is |Mxy|. One bay loads every case
+// alike: q = 1.35 (25 × 0.2 + 1.5) + 1.5 × 3.0 = 13.275 kPa (EN 1990
+// (6.10), UK NA Table NA.A1.2(B); 25 kN/m³ from EN 1991-1-1 Table A.1).
+TEST_CASE("Two-way: corner bars where two pinned edges meet by EN 9.3.1.3 and ACI 8.7.3.1") {
+  json en = two_way_request("EN1992-1-1", "UK", {4.5}, {4.5});
+  en["analysis"] = {{"poisson_ratio", 0.3}};
+  const DesignRecord r = design(registry(), en);
+  const double qa2 = 13.275e-3 * 4500.0 * 4500.0 * 1000.0;  // N·mm per metre width
+  REQUIRE(r.plate);
+  REQUIRE(r.plate->corners.size() == 4);
+  for (const auto& c : r.plate->corners) {
+    INFO(c.name);
+    CHECK(c.clause == "EN 1992-1-1 9.3.1.3");
+    // A fifth of the longer span from the corner each way (ACI 318-19
+    // 8.7.3.1.2, value from memory; EN sets none).
+    CHECK(c.x1_mm - c.x0_mm == Approx(900.0));
+    CHECK(c.y1_mm - c.y0_mm == Approx(900.0));
+    for (const BarDirection d : {BarDirection::x, BarDirection::y}) {
+      const RegionRecord* top = nullptr;
+      for (const auto& g : r.regions)
+        if (g.where == c.name && g.face == Face::top && g.direction == d) top = &g;
+      REQUIRE(top);
+      CHECK(top->M_Ed / qa2 == Approx(0.0325).epsilon(0.03));
+    }
+  }
+  // The bay's bottom bars take the centre moment, not the corner twist.
+  CHECK(region(r, "bay 1,1", BarDirection::x).M_Ed / qa2 == Approx(0.0479).epsilon(0.02));
+  CHECK(region(r, "bay 1,1", BarDirection::y).M_Ed / qa2 == Approx(0.0479).epsilon(0.02));
+
+  // ACI: top and bottom corner bars for the panel's largest positive
+  // moment per unit width (8.7.3.1, value from memory), over a fifth of
+  // the longer span (9.0 m: 1.8 m) each way.
+  const DesignRecord a = design(registry(), two_way_request("ACI318-19", "SI", {4.5}, {9.0}));
+  REQUIRE(a.plate);
+  REQUIRE(a.plate->corners.size() == 4);
+  const double panel = std::max(region(a, "bay 1,1", BarDirection::x).M_Ed, region(a, "bay 1,1", BarDirection::y).M_Ed);
+  std::size_t corner_regions = 0;
+  for (const auto& g : a.regions) {
+    if (!is_plate_corner_name(g.where)) continue;
+    ++corner_regions;
+    CHECK(g.M_Ed >= panel * (1.0 - 1e-9));
+    for (const auto& c : g.checks) CHECK(c.pass);
+  }
+  CHECK(corner_regions == 4 * 4);  // top and bottom, x and y
+  CHECK(a.plate->corners[0].x1_mm - a.plate->corners[0].x0_mm == Approx(1800.0));
+
+  // Only where two pinned edges meet: a fixed or a free edge holds none.
+  const DesignRecord m = design(registry(), two_way_request("EN1992-1-1", "UK", {5.4}, {4.2},
+                                                            {{"x0", "pinned"}, {"x1", "fixed"},
+                                                             {"y0", "pinned"}, {"y1", "free"}}));
+  REQUIRE(m.plate);
+  REQUIRE(m.plate->corners.size() == 1);
+  CHECK(m.plate->corners[0].name == "corner x0 y0");
+  // The summary says the free edge's own reinforcement is not checked, and
+  // only where there is a free edge.
+  CHECK(format_summary(m).find("EN 1992-1-1 9.3.1.4") != std::string::npos);
+  CHECK(format_summary(r).find("9.3.1.4") == std::string::npos);
 }

@@ -1,6 +1,7 @@
 """Each notebook executed top to bottom (nbclient), with an assertion on the
 result it prints."""
 import json
+import math
 import os
 import sys
 
@@ -78,3 +79,137 @@ def test_optimise_floor(kernel_name, tmp_path):
         assert all(b[1] < a[1] for a, b in zip(front, front[1:]) if b[0] > a[0])
         # The choice is the front's least objective.
         assert found["objective"] == min(o for _, o in front)
+
+
+# Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 2nd ed., Table 8
+# (simply supported rectangle a × b under uniform q, ν = 0.3, centre moments
+# Mx = β q a², My = β1 q a², a the shorter side), by b/a. Values from memory;
+# the test below checks them against Navier's series (same book, §30).
+TWK_TABLE_8 = {1.0: (0.0479, 0.0479), 1.2: (0.0627, 0.0501), 1.4: (0.0755, 0.0502),
+               1.6: (0.0862, 0.0492), 1.8: (0.0948, 0.0479), 2.0: (0.1017, 0.0464)}
+# The same book, Table 35 (clamped rectangle under uniform q, ν = 0.3): centre Mx,
+# My and the edge moments at the middle of the long side (Mx, x = ±a/2) and of the
+# short side (My, y = ±b/2), coefficients of q a². Values from memory. (Later
+# series solutions give 0.0229 for the square's centre, about 1 % below the
+# table's 0.0231; the tolerance covers it.)
+TWK_TABLE_35 = {1.0: (0.0231, 0.0231, -0.0513, -0.0513), 1.2: (0.0299, 0.0228, -0.0639, -0.0554),
+                1.4: (0.0349, 0.0212, -0.0726, -0.0568), 1.6: (0.0381, 0.0193, -0.0780, -0.0571),
+                1.8: (0.0401, 0.0174, -0.0812, -0.0571), 2.0: (0.0412, 0.0158, -0.0829, -0.0571)}
+PLATE_TOLERANCE = 0.02  # relative: mesh (10 per bay) plus the recalled tables' last digit
+
+
+def _navier_centre(ratio, nu, terms=201):
+    """Centre mx, my of a simply supported 1 × ratio plate under q = 1 (T&W-K §30)."""
+    mx = my = 0.0
+    for m in range(1, terms + 1, 2):
+        am = m * math.pi
+        for n in range(1, terms + 1, 2):
+            bn = n * math.pi / ratio
+            w = 16.0 / (math.pi ** 2 * m * n * (am * am + bn * bn) ** 2)
+            s = math.sin(am / 2) * math.sin(bn * ratio / 2)
+            mx += w * (am * am + nu * bn * bn) * s
+            my += w * (bn * bn + nu * am * am) * s
+    return mx, my
+
+
+def test_two_way_floor(kernel_name, tmp_path):
+    result = run_notebook("two-way-floor.ipynb", kernel_name, tmp_path)
+    lx, ratios = result["lx_m"], result["ratios"]
+    assert ratios == sorted(TWK_TABLE_8)
+    at02, at03 = result["nu_0.2"], result["nu_0.3"]
+    assert set(at02) == {"all pinned", "one long edge fixed", "two adjacent fixed", "all fixed"}
+    for found in at02.values():
+        assert all(s in ("pass", "fail") for s in found["status"])  # every bay designed
+
+    # ULS load: EN 1990 (6.10) with Table A1.2(B) factors 1.35 and 1.5; self-weight
+    # 25 kN/m³ × 0.200 m (EN 1991-1-1 Table A.1, reinforced concrete).
+    q = 1.35 * (25.0 * 0.200 + 1.5) + 1.5 * 3.0
+    for group in (at02, at03):
+        for found in group.values():
+            assert found["q_uls_kPa"] == pytest.approx([q] * len(ratios), rel=1e-9)
+    ql2 = q * lx ** 2
+
+    # Poisson's ratio: 0.2 by default (EN 1992-1-1 3.1.3(4)); 0.3 where asked.
+    assert result["poisson_default"] == 0.2
+    assert all(nu == 0.3 for found in at03.values() for nu in found["poisson_ratio"])
+
+    # The recalled Table 8 agrees with Navier's series (guards the memory).
+    for ratio, (beta, beta1) in TWK_TABLE_8.items():
+        mx, my = _navier_centre(ratio, 0.3)
+        assert mx == pytest.approx(beta, abs=0.0001) and my == pytest.approx(beta1, abs=0.0001)
+
+    # Simply supported bay, ν = 0.3: centre moments against T&W-K Table 8 (the
+    # elastic field at the centre node, as coefficients of q lx²: no load factor).
+    pinned = at03["all pinned"]
+    for k, ratio in enumerate(ratios):
+        beta, beta1 = TWK_TABLE_8[ratio]
+        assert pinned["centre_mx"][k] / ql2 == pytest.approx(beta, rel=PLATE_TOLERANCE)
+        assert pinned["centre_my"][k] / ql2 == pytest.approx(beta1, rel=PLATE_TOLERANCE)
+
+    # The design's own ν = 0.2: a simply supported plate's deflection under a
+    # uniform load does not depend on ν (Navier's coefficients have no ν), so
+    # Mx = A + ν B and My = B + ν A with A, B from Table 8's two ν = 0.3 values.
+    pinned = at02["all pinned"]
+    for k, ratio in enumerate(ratios):
+        beta, beta1 = TWK_TABLE_8[ratio]
+        a, b = (beta - 0.3 * beta1) / 0.91, (beta1 - 0.3 * beta) / 0.91
+        assert pinned["centre_mx"][k] / ql2 == pytest.approx(a + 0.2 * b, rel=PLATE_TOLERANCE)
+        assert pinned["centre_my"][k] / ql2 == pytest.approx(b + 0.2 * a, rel=PLATE_TOLERANCE)
+
+    # Trends with ly/lx, all edges pinned (Table 8 by b/a, its b/a = ∞ row the
+    # one-way strip q lx²/8): the short-span moment rises toward q lx²/8 and
+    # stays below it; the long-span centre moment peaks near b/a 1.2 and falls.
+    mx, my = pinned["centre_mx"], pinned["centre_my"]
+    assert all(b > a for a, b in zip(mx, mx[1:]))
+    assert all(m < ql2 / 8 for m in mx)
+    assert all(b < a for a, b in zip(my[1:], my[2:])) and my[-1] < my[0]
+
+    # Symmetry of the square bay and its load: mx = my at the centre and the
+    # bottom bars' design moments the same both ways (all pinned, all fixed);
+    # two adjacent edges fixed is symmetric about the diagonal.
+    for name in ("all pinned", "all fixed"):
+        found = at02[name]
+        assert found["centre_mx"][0] == pytest.approx(found["centre_my"][0], rel=1e-6)
+        assert found["design_x"][0] == pytest.approx(found["design_y"][0], rel=1e-6)
+    corner = at02["two adjacent fixed"]
+    assert corner["design_x"][0] == pytest.approx(corner["design_y"][0], rel=1e-6)
+    assert corner["edge_x1_mid_mx"][0] == pytest.approx(corner["edge_y1_mid_my"][0], rel=1e-6)
+
+    # Clamped bay, ν = 0.3: centre and mid-edge moments against T&W-K Table 35.
+    fixed = at03["all fixed"]
+    for k, ratio in enumerate(ratios):
+        cx, cy, ex, ey = TWK_TABLE_35[ratio]
+        assert fixed["centre_mx"][k] / ql2 == pytest.approx(cx, rel=PLATE_TOLERANCE)
+        assert fixed["centre_my"][k] / ql2 == pytest.approx(cy, rel=PLATE_TOLERANCE)
+        assert fixed["edge_x1_mid_mx"][k] / ql2 == pytest.approx(ex, rel=PLATE_TOLERANCE)
+        assert fixed["edge_y1_mid_my"][k] / ql2 == pytest.approx(ey, rel=PLATE_TOLERANCE)
+
+    # One-way limits (beam theory; Table 35's b/a = ∞ row from memory): a fixed
+    # long edge hogs less than the strip's end moment and more as the bay
+    # lengthens: q lx²/12 fixed at both ends, q lx²/8 for the propped strip (one
+    # long edge fixed), whose span moment 9 q lx²/128 bounds the bay's.
+    fixed = at02["all fixed"]
+    hog = [-m for m in fixed["edge_x1_mid_mx"]]
+    assert all(b > a for a, b in zip(hog, hog[1:])) and max(hog) < ql2 / 12
+    assert max(fixed["centre_mx"]) < ql2 / 24
+    propped = at02["one long edge fixed"]
+    hog = [-m for m in propped["edge_x1_mid_mx"]]
+    assert all(b > a for a, b in zip(hog, hog[1:])) and max(hog) < ql2 / 8
+    assert max(propped["largest_mx"]) < 9 * ql2 / 128
+
+    # Restraint takes moment from the span (Tables 8 and 35; the propped strip's
+    # 9/128 against the pinned strip's 1/8): at every ratio the bay's largest
+    # short-span moment falls from all pinned to one long edge fixed, to two
+    # adjacent fixed, to all fixed.
+    order = ("all pinned", "one long edge fixed", "two adjacent fixed", "all fixed")
+    for k in range(len(ratios)):
+        largest = [at02[name]["largest_mx"][k] for name in order]
+        assert largest == sorted(largest, reverse=True) and len(set(largest)) == 4
+
+    # Wood–Armer (Wood 1968, from memory): the bottom design moment is m + |mxy|
+    # (or more where the other sags less), never below the analysis moment.
+    for found in at02.values():
+        for k in range(len(ratios)):
+            assert found["design_x"][k] >= found["largest_mx"][k] - 1e-9
+            assert found["largest_mx"][k] >= found["centre_mx"][k] - 1e-9
+            assert found["design_y"][k] >= found["centre_my"][k] - 1e-9

@@ -5,7 +5,8 @@ object has the shape the plotting reads.
 Expected values come from designs of the same requests made on their own
 (armature.design) or from the request's geometry; the steel estimate is
 checked against its stated rule (bars over their bay, top bars reaching
-0.3 of each adjacent span: common practice, as for strips)."""
+0.3 of each adjacent span: common practice, as for strips; corner bars
+over their zone)."""
 import copy
 
 import pytest
@@ -47,7 +48,10 @@ def test_steel_estimate_follows_its_rule():
     x_lines, y_lines = plate["x_lines_m"], plate["y_lines_m"]
     volume = 0.0  # mm²/m × m² → mm²·m
     for g in result["regions"]:
-        if g["face"] == "bottom":
+        corner = next((c for c in plate["corners"] if c["name"] == g["where"]), None)
+        if corner:  # corner bars over their zone, counted in full
+            area = (corner["x1_m"] - corner["x0_m"]) * (corner["y1_m"] - corner["y0_m"])
+        elif g["face"] == "bottom":
             bay = next(b for b in plate["bays"] if b["name"] == g["where"])
             area = (bay["x1_m"] - bay["x0_m"]) * (bay["y1_m"] - bay["y0_m"])
         else:

@@ -267,6 +267,21 @@ class SectionRules {
   virtual DistributionNeed distribution(double main_As_prov_mm2) const = 0;
 };
 
+// Two-way slabs: reinforcement at an outer corner of the slab where two
+// pinned (discontinuous, held down) edges meet, against the torsion there.
+// The corner zone reaches `extent_of_longer_span` of the corner bay's
+// longer span from the corner along each edge (at most the bay). Its top
+// bars in x and y, and its bottom bars too where `bottom`, are designed
+// for the larger of the Wood–Armer moment of that face and direction in
+// the zone and `panel_moment_fraction` × the bay's largest sagging design
+// moment (either direction). An empty `clause`: no corner regions.
+struct CornerRule {
+  double panel_moment_fraction = 0.0;
+  double extent_of_longer_span = 0.2;
+  bool bottom = false;  // false: the bay's bottom bars, designed over the whole bay, serve
+  std::string clause{};
+};
+
 // The code's checks of a member that are not a section's.
 class MemberRules {
  public:
@@ -286,6 +301,8 @@ class MemberRules {
   // Top steel at pinned ends, as a fraction of the largest adjacent span
   // moment; 0 when the code asks for none.
   virtual double pinned_end_fixity_fraction() const = 0;
+  // Corner reinforcement of two-way slabs (CornerRule); none by default.
+  virtual CornerRule corner_rule() const { return {}; }
   // The design hogging moment (N·mm, magnitude) of a support region whose
   // support has a width (region.support_face.width_mm > 0), from the
   // moments the kernel gives per load case; called once per such region,
@@ -515,6 +532,7 @@ class ForwardingMemberRules : public MemberRules {
     return inner_->equilibrium_checks(demand, detail);
   }
   double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
+  CornerRule corner_rule() const override { return inner_->corner_rule(); }
   double support_design_moment(const RegionDemand& region) const override {
     return inner_->support_design_moment(region);
   }

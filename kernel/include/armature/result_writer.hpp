@@ -282,6 +282,20 @@ void write_plate(W& w, const PlateRecord& p) {
     w.end();
   }
   w.end();
+  w.key("corners");
+  w.begin_array();
+  for (const auto& c : p.corners) {
+    w.begin_object();
+    w.key("name"), w.value(c.name);
+    w.key("bay"), w.value(c.bay);
+    w.key("x0_m"), w.value(c.x0_mm * m_per_mm);
+    w.key("x1_m"), w.value(c.x1_mm * m_per_mm);
+    w.key("y0_m"), w.value(c.y0_mm * m_per_mm);
+    w.key("y1_m"), w.value(c.y1_mm * m_per_mm);
+    w.key("clause"), w.value(c.clause);
+    w.end();
+  }
+  w.end();
   w.key("poisson_ratio"), w.value(p.poisson_ratio);
   w.key("mesh_per_bay"), w.value(static_cast<long long>(p.mesh_per_bay));
   w.key("outer_layer");

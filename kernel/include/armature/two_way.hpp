@@ -35,6 +35,16 @@ struct PlateFieldRecord {
   std::vector<double> bottom_x, bottom_y, top_x, top_y;  // Wood–Armer envelope
 };
 
+// A corner zone of the slab with its own bars against torsion (CornerRule):
+// named "corner x0 y0" (the two edges meeting), the zone's extent, the
+// bay it lies in and the code's clause.
+struct PlateCornerRecord {
+  std::string name;
+  std::string bay;
+  double x0_mm = 0.0, x1_mm = 0.0, y0_mm = 0.0, y1_mm = 0.0;
+  std::string clause;
+};
+
 struct PlateBayRecord {
   std::string name;  // "bay i,j"
   double x0_mm = 0.0, x1_mm = 0.0, y0_mm = 0.0, y1_mm = 0.0;
@@ -47,6 +57,7 @@ struct PlateRecord {
   std::vector<PlateBayRecord> bays;
   PlateFieldRecord field;
   std::vector<PlateLineRecord> reactions;
+  std::vector<PlateCornerRecord> corners;
   double poisson_ratio = 0.2;
   int mesh_per_bay = 0;
   std::array<std::string, 2> outer_layer{};  // per face (bottom, top): "x" or "y"
@@ -58,6 +69,8 @@ struct PlateRecord {
 std::string plate_line_name(const SupportLine& line, std::size_t bays_x, std::size_t bays_y);
 // "bay i,j" (from 1).
 std::string plate_bay_name(std::size_t i, std::size_t j);
+// Whether a region's name is a corner zone's ("corner x0 y0", ...).
+bool is_plate_corner_name(const std::string& where);
 
 class TwoWayPlate {
  public:
@@ -89,8 +102,12 @@ class TwoWayPlate {
   // `pinned_edge_fraction` of the adjacent bay's bottom moment). The outer
   // layer of each face runs in the direction of its larger moment unless
   // reinforcement.outer_layer says; regions of the inner layer carry
-  // outer_bar_mm (the driver sets it from the bars chosen).
-  std::vector<RegionDemand> design_regions(double pinned_edge_fraction, std::vector<std::string>& warnings);
+  // outer_bar_mm (the driver sets it from the bars chosen). At each outer
+  // corner where two pinned edges meet, the code's corner regions
+  // (CornerRule; none when its clause is empty): "corner x0 y0" top x and
+  // y, and bottom x and y where the rule asks.
+  std::vector<RegionDemand> design_regions(double pinned_edge_fraction, const CornerRule& corner_rule,
+                                           std::vector<std::string>& warnings);
 
   // After design_regions.
   PlateRecord record() const;
@@ -107,6 +124,7 @@ class TwoWayPlate {
   PlateFieldRecord field_;
   std::vector<WoodArmerMoments> all_bays_uls_, all_bays_qp_;
   std::vector<PlateLineRecord> lines_;
+  std::vector<PlateCornerRecord> corners_;
   std::array<BarDirection, 2> outer_{BarDirection::x, BarDirection::x};
 };
 

@@ -10,6 +10,7 @@
 #include <cstdio>
 #include <optional>
 
+#include "armature/two_way.hpp"
 #include "arrangement.hpp"
 #include "call_code.hpp"
 
@@ -506,7 +507,9 @@ void add_uniform_bottom_groups(const std::vector<RegionDemand>& demands, BarPlan
   for (const BarDirection dir : {BarDirection::span, BarDirection::x, BarDirection::y}) {
     std::vector<std::size_t> group;
     for (std::size_t i = 0; i < demands.size(); ++i)
-      if (demands[i].face == Face::bottom && demands[i].direction == dir && !plan.given[i]) group.push_back(i);
+      if (demands[i].face == Face::bottom && demands[i].direction == dir && !plan.given[i] &&
+          !is_plate_corner_name(demands[i].where))
+        group.push_back(i);
     if (!group.empty()) plan.common.push_back(std::move(group));
   }
 }

@@ -21,7 +21,7 @@ struct BarPlan {
 
 // uniform_bottom: every bottom region not given shares one arrangement
 // per bar direction (a strip's spans; a two-way slab's bays in x, and in
-// y), each region at its own depth.
+// y; its corner zones keep their own), each region at its own depth.
 void add_uniform_bottom_groups(const std::vector<RegionDemand>& demands, BarPlan& plan);
 
 // Distribution bars: the least area meeting the code's need, on the grid

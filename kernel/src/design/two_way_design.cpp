@@ -96,7 +96,8 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
   rec.rationalise = req.reinforcement.rationalise;
 
   const double fraction = call_code(rec.code, "end fixity", [&] { return member_rules.pinned_end_fixity_fraction(); });
-  auto demands = plate.design_regions(fraction, rec.warnings);
+  const CornerRule corners = call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); });
+  auto demands = plate.design_regions(fraction, corners, rec.warnings);
 
   // Bars: search every region; a face's inner direction lies on the
   // largest bar of its outer direction, so search again until the two agree.
@@ -116,8 +117,9 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
       if (named) given_problems.add(path + ".direction", "'" + gb.where + "' has no region with bars in " + gb.direction);
       else
         given_problems.add(path + ".where", "no region '" + gb.where + "' in this slab; its regions are the bays "
-                                            "('bay 1,1', ...) and the supported line segments ('edge x0 segment 1', "
-                                            "'grid x1 segment 2', ...)");
+                                            "('bay 1,1', ...), the supported line segments ('edge x0 segment 1', "
+                                            "'grid x1 segment 2', ...) and, where two pinned edges meet, the "
+                                            "corners ('corner x0 y0', ...)");
       continue;
     }
     if (demands[found].face != gb.face) {

@@ -62,6 +62,8 @@ PlateGeometry geometry_of(const Request& req, double E_MPa) {
 
 }  // namespace
 
+bool is_plate_corner_name(const std::string& where) { return where.rfind("corner ", 0) == 0; }
+
 std::string plate_bay_name(std::size_t i, std::size_t j) {
   return "bay " + std::to_string(i + 1) + "," + std::to_string(j + 1);
 }
@@ -235,7 +237,8 @@ std::size_t TwoWayPlate::analyse(const std::vector<Action>& actions, const std::
   return uls_cases_;
 }
 
-std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fraction, std::vector<std::string>& warnings) {
+std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fraction, const CornerRule& corner_rule,
+                                                      std::vector<std::string>& warnings) {
   const std::size_t nx = bays_x(), ny = bays_y();
   const auto& xs = field_.x_mm;
   const auto& ys = field_.y_mm;
@@ -265,6 +268,56 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
         if (values[i + row * j] > p.value) p = {values[i + row * j], i + row * j};
     return p;
   };
+  // Corner zones first (geometry only): where two pinned edges meet and
+  // the code sets corner bars (CornerRule). The corner regions take their
+  // peaks inside a zone; the lines' top regions, and the bays' bottom ones
+  // where the rule sets bottom corner bars, take theirs outside every zone
+  // (all their nodes when none lies outside).
+  corners_.clear();
+  std::vector<std::array<std::size_t, 2>> corner_bays;
+  if (!corner_rule.clause.empty()) {
+    const PlateEdges& edges = model_.geometry().edges;
+    for (const bool far_y : {false, true})
+      for (const bool far_x : {false, true}) {
+        const EndSupport ex = far_x ? edges.x1 : edges.x0, ey = far_y ? edges.y1 : edges.y0;
+        if (ex != EndSupport::pinned || ey != EndSupport::pinned) continue;
+        const std::size_t i = far_x ? nx - 1 : 0, j = far_y ? ny - 1 : 0;
+        const double lx = xg[i + 1] - xg[i], ly = yg[j + 1] - yg[j];
+        const double reach = corner_rule.extent_of_longer_span * std::max(lx, ly);
+        const double cx = far_x ? xg.back() : xg.front(), cy = far_y ? yg.back() : yg.front();
+        PlateCornerRecord c;
+        c.name = std::string("corner ") + (far_x ? "x1" : "x0") + " " + (far_y ? "y1" : "y0");
+        c.bay = plate_bay_name(i, j);
+        c.x0_mm = far_x ? cx - std::min(reach, lx) : cx;
+        c.x1_mm = far_x ? cx : cx + std::min(reach, lx);
+        c.y0_mm = far_y ? cy - std::min(reach, ly) : cy;
+        c.y1_mm = far_y ? cy : cy + std::min(reach, ly);
+        c.clause = corner_rule.clause;
+        corners_.push_back(std::move(c));
+        corner_bays.push_back({i, j});
+      }
+  }
+  auto in_corner = [&](std::size_t n) {
+    const double x = xs[n % row], y = ys[n / row], tol = 1e-6;
+    return std::any_of(corners_.begin(), corners_.end(), [&](const PlateCornerRecord& c) {
+      return x >= c.x0_mm - tol && x <= c.x1_mm + tol && y >= c.y0_mm - tol && y <= c.y1_mm + tol;
+    });
+  };
+  auto peak_outside = [&](const std::vector<std::size_t>& ix, const std::vector<std::size_t>& iy,
+                          const std::vector<double>& values) {
+    bool found = false;
+    Peak p{-1.0, 0};
+    for (std::size_t j : iy)
+      for (std::size_t i : ix) {
+        const std::size_t n = i + row * j;
+        if (in_corner(n)) continue;
+        if (!found || values[n] > p.value) p = {values[n], n};
+        found = true;
+      }
+    return found ? p : peak_over(ix, iy, values);
+  };
+  const bool bottom_corners = corner_rule.bottom && !corners_.empty();
+
   auto demand = [&](const std::string& where, Face face, BarDirection dir, const Peak& p,
                     double WoodArmerMoments::*which) {
     RegionDemand g;
@@ -284,8 +337,8 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
     for (std::size_t i = 0; i < nx; ++i) {
       const auto ix = nodes_within(xs, xg[i], xg[i + 1]), iy = nodes_within(ys, yg[j], yg[j + 1]);
       const std::string name = plate_bay_name(i, j);
-      bay_x[i + nx * j] = peak_over(ix, iy, field_.bottom_x);
-      bay_y[i + nx * j] = peak_over(ix, iy, field_.bottom_y);
+      bay_x[i + nx * j] = bottom_corners ? peak_outside(ix, iy, field_.bottom_x) : peak_over(ix, iy, field_.bottom_x);
+      bay_y[i + nx * j] = bottom_corners ? peak_outside(ix, iy, field_.bottom_y) : peak_over(ix, iy, field_.bottom_y);
       out.push_back(demand(name, Face::bottom, BarDirection::x, bay_x[i + nx * j], &WoodArmerMoments::bottom_x));
       out.push_back(demand(name, Face::bottom, BarDirection::y, bay_y[i + nx * j], &WoodArmerMoments::bottom_y));
       for (const BarDirection d : {BarDirection::x, BarDirection::y})
@@ -347,7 +400,7 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
       const auto along = nodes_within(along_y ? ys : xs, rec.from_mm, rec.to_mm);
       const std::vector<std::size_t> fixed{at};
       const auto& values = along_y ? field_.top_x : field_.top_y;
-      Peak p = along_y ? peak_over(fixed, along, values) : peak_over(along, fixed, values);
+      Peak p = along_y ? peak_outside(fixed, along, values) : peak_outside(along, fixed, values);
       const auto which = along_y ? &WoodArmerMoments::top_x : &WoodArmerMoments::top_y;
       RegionDemand g = demand(rec.name, Face::top, along_y ? BarDirection::x : BarDirection::y, p, which);
       // Shear at the line: its largest reaction per metre, all of it on
@@ -374,6 +427,34 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
         }
       }
       out.push_back(std::move(g));
+    }
+  }
+  // The corner regions: top bars in x and y (and bottom where the rule
+  // says) for the larger of the Wood–Armer moment in the zone and the
+  // rule's share of the panel's largest sagging moment.
+  for (std::size_t k = 0; k < corners_.size(); ++k) {
+    const PlateCornerRecord& c = corners_[k];
+    const auto [i, j] = corner_bays[k];
+    const auto ix = nodes_within(xs, c.x0_mm, c.x1_mm), iy = nodes_within(ys, c.y0_mm, c.y1_mm);
+    const Peak& px = bay_x[i + nx * j];
+    const Peak& py = bay_y[i + nx * j];
+    const Peak& panel = px.value >= py.value ? px : py;
+    const auto panel_which = px.value >= py.value ? &WoodArmerMoments::bottom_x : &WoodArmerMoments::bottom_y;
+    const double M_panel = corner_rule.panel_moment_fraction * std::max(panel.value, 0.0) * per_metre;
+    for (const Face face : {Face::top, Face::bottom}) {
+      if (face == Face::bottom && !corner_rule.bottom) continue;
+      for (const BarDirection dir : {BarDirection::x, BarDirection::y}) {
+        const bool top = face == Face::top, in_x = dir == BarDirection::x;
+        const auto& values = top ? (in_x ? field_.top_x : field_.top_y) : (in_x ? field_.bottom_x : field_.bottom_y);
+        const auto which = top ? (in_x ? &WoodArmerMoments::top_x : &WoodArmerMoments::top_y)
+                               : (in_x ? &WoodArmerMoments::bottom_x : &WoodArmerMoments::bottom_y);
+        RegionDemand g = demand(c.name, face, dir, peak_over(ix, iy, values), which);
+        if (M_panel > g.M_Ed) {
+          g.M_Ed = M_panel;
+          g.quasi_permanent_to_uls = ratio_at(panel.node, panel_which);
+        }
+        out.push_back(std::move(g));
+      }
     }
   }
   // The outer layer of each face: the request's, else the direction of the
@@ -404,6 +485,7 @@ PlateRecord TwoWayPlate::record() const {
       r.bays.push_back({plate_bay_name(i, j), r.x_lines_mm[i], r.x_lines_mm[i + 1], r.y_lines_mm[j], r.y_lines_mm[j + 1]});
   r.field = field_;
   r.reactions = lines_;
+  r.corners = corners_;
   r.poisson_ratio = g.poisson_ratio;
   r.mesh_per_bay = g.mesh_per_bay;
   r.outer_layer = {to_string(outer_[0]), to_string(outer_[1])};

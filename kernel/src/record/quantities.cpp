@@ -30,7 +30,8 @@ double bar_length_mm(const DesignRecord& r, const RegionRecord& g) {
 }
 // A two-way slab: bottom bars over their bay (length in their direction,
 // the bay's width across), top bars along each supported segment reaching
-// top_bar_reach of each adjacent span across the line.
+// top_bar_reach of each adjacent span across the line, corner bars over
+// their zone (counted in full, beside the bars they overlap).
 double plate_steel_mass_kg_per_m2(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
   const double X = p.x_lines_mm.back() - p.x_lines_mm.front(), Y = p.y_lines_mm.back() - p.y_lines_mm.front();
@@ -38,7 +39,11 @@ double plate_steel_mass_kg_per_m2(const DesignRecord& r) {
   double volume_mm3 = 0.0;  // As_prov per metre (mm²/m) × area (mm²) / 1000 mm
   for (const auto& g : r.regions) {
     double area_mm2 = 0.0;
-    if (g.face == Face::bottom) {
+    const auto corner = std::find_if(p.corners.begin(), p.corners.end(),
+                                     [&](const PlateCornerRecord& c) { return c.name == g.where; });
+    if (corner != p.corners.end()) {
+      area_mm2 = (corner->x1_mm - corner->x0_mm) * (corner->y1_mm - corner->y0_mm);
+    } else if (g.face == Face::bottom) {
       for (const auto& b : p.bays)
         if (b.name == g.where) area_mm2 = (b.x1_mm - b.x0_mm) * (b.y1_mm - b.y0_mm);
     } else {

@@ -542,6 +542,25 @@ std::string plate_slab_text(const DesignRecord& r) {
   return t;
 }
 
+// The corner zones, where the code sets corner bars.
+std::string corner_text(const DesignRecord& r) {
+  const PlateRecord& p = *r.plate;
+  if (p.corners.empty()) return "";
+  const RecordUnits u = units_of(r);
+  std::string t = " Corners held down where two pinned edges meet (" + p.corners.front().clause + "): ";
+  for (std::size_t k = 0; k < p.corners.size(); ++k) {
+    const auto& c = p.corners[k];
+    t += (k ? "; " : "") + c.name + " of " + c.bay + ", " + u.along(c.x1_mm - c.x0_mm) + " × " +
+         u.along(c.y1_mm - c.y0_mm);
+  }
+  const bool bottom = std::any_of(r.regions.begin(), r.regions.end(), [&](const RegionRecord& g) {
+    return g.face == Face::bottom && is_plate_corner_name(g.where);
+  });
+  return t + "; top" + (bottom ? " and bottom" : "") +
+         " bars in x and y for the larger of the Wood–Armer moment in the zone and the code's share of the "
+         "panel's largest sagging moment.";
+}
+
 std::string plate_analysis_text(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
   return "Linear-elastic Kirchhoff plate by finite elements (Bogner–Fox–Schmit rectangles, " +
@@ -554,7 +573,7 @@ std::string plate_analysis_text(const DesignRecord& r) {
          "them would be negative. Regions: per bay the largest bottom design moment in x and in y; per supported "
          "line segment the largest top design moment across the line (a pinned edge at least the code's "
          "partial-fixity fraction of the adjacent bay's). Outer layers: bottom " + p.outer_layer[0] + ", top " +
-         p.outer_layer[1] + ".";
+         p.outer_layer[1] + "." + corner_text(r);
 }
 
 // The plan (bays named with their bottom bars, the top bars marked at their

@@ -114,7 +114,9 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
   }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " + util(r.max_utilisation) + " (" +
        r.governing_check + ", " + r.governing_where + ")\n";
-  o += "Not checked yet for two-way slabs: the free-edge and corner detailing rules.\n";
+  if (r.plate && std::find(r.plate->edges.begin(), r.plate->edges.end(), EndSupport::free) != r.plate->edges.end())
+    o += "Not checked yet for two-way slabs: the reinforcement along free edges (U-bars and edge bars, EN 1992-1-1 "
+         "9.3.1.4).\n";
   for (const auto& w : r.warnings) o += "Warning    " + w + "\n";
   o += "\nCaution    " + std::string(caution_text) + "\n";
   return o;
