@@ -364,6 +364,11 @@ double Checker::pinned_end_fixity_fraction() const { return partial_fixity_fract
 // longer span, as ACI 318-19 8.7.3.1.2 sets (common practice, DEVELOPERS.md).
 CornerRule Checker::corner_rule() const { return {0.0, 0.2, true, "EN 1992-1-1 9.3.1.3"}; }
 
+// 9.3.1.4: along a free edge, longitudinal and transverse reinforcement as
+// Figure 9.8 shows: U-bars with legs of 2h, the slab's own bars serving
+// (9.3.1.4(2)).
+FreeEdgeRule Checker::free_edge_rule() const { return {2.0, "EN 1992-1-1 9.3.1.4, Figure 9.8"}; }
+
 std::vector<Check> Checker::span_checks(const std::string& span_where) const {
   std::vector<Check> out;
   if (req_.fire.resistance_min) {

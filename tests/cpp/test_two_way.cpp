@@ -535,8 +535,39 @@ TEST_CASE("Two-way: corner bars where two pinned edges meet by EN 9.3.1.3 and AC
   REQUIRE(m.plate);
   REQUIRE(m.plate->corners.size() == 1);
   CHECK(m.plate->corners[0].name == "corner x0 y0");
-  // The summary says the free edge's own reinforcement is not checked, and
-  // only where there is a free edge.
+  // The free edge's U-bars in the summary, only where there is a free edge.
   CHECK(format_summary(m).find("EN 1992-1-1 9.3.1.4") != std::string::npos);
   CHECK(format_summary(r).find("9.3.1.4") == std::string::npos);
+}
+
+// Free edges (EN 1992-1-1 9.3.1.4, Figure 9.8, value from memory): U-bars
+// with legs of 2h on each face, the slab's own bars serving (9.3.1.4(2)),
+// with bars along the edge inside the U. ACI 318-19 sets no such rule.
+TEST_CASE("Two-way: U-bars along a free edge by EN 9.3.1.4") {
+  json req = two_way_request("EN1992-1-1", "UK", {5.4, 6.0}, {4.2},
+                             {{"x0", "pinned"}, {"x1", "pinned"}, {"y0", "fixed"}, {"y1", "free"}});
+  req["slab"]["thickness_mm"] = 225;
+  const DesignRecord r = design(registry(), req);
+  REQUIRE(r.plate);
+  REQUIRE(r.plate->free_edges.size() == 2);  // one per bay along edge y1
+  for (const auto& f : r.plate->free_edges) {
+    INFO(f.bay);
+    CHECK(f.edge == "edge y1");
+    CHECK(f.leg_mm == Approx(2.0 * 225.0));
+    CHECK(f.clause == "EN 1992-1-1 9.3.1.4, Figure 9.8");
+    // Edge y1 runs along x: the bars across it run in y.
+    CHECK(f.u_bar == region(r, f.bay, BarDirection::y).bars.bar);
+    CHECK(f.u_bar_spacing_mm == region(r, f.bay, BarDirection::y).bars.spacing_mm);
+    CHECK(f.edge_bar == region(r, f.bay, BarDirection::x).bars.bar);
+  }
+  CHECK(r.plate->free_edges[0].from_mm == 0.0);
+  CHECK(r.plate->free_edges[1].to_mm == Approx(11400.0));
+  CHECK(format_summary(r).find("Free edge  edge y1 of bay 2,1: U-bars") != std::string::npos);
+  // ACI: no rule, and the summary says so.
+  const DesignRecord a = design(registry(), two_way_request("ACI318-19", "SI", {5.4, 6.0}, {4.2},
+                                                            {{"x0", "pinned"}, {"x1", "pinned"},
+                                                             {"y0", "fixed"}, {"y1", "free"}}));
+  REQUIRE(a.plate);
+  CHECK(a.plate->free_edges.empty());
+  CHECK(format_summary(a).find("no reinforcement rule of its own for a free edge") != std::string::npos);
 }

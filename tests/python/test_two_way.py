@@ -42,8 +42,13 @@ def test_sweep_over_a_two_way_request_gives_rows():
     assert steel[0] < steel[1] < steel[2]
 
 
-def test_steel_estimate_follows_its_rule():
-    result = armature.design(STORE)
+FREE_EDGE = copy.deepcopy(STORE)
+FREE_EDGE["slab"]["edges"] = {"x0": "pinned", "x1": "pinned", "y0": "fixed", "y1": "free"}
+
+
+@pytest.mark.parametrize("request_", [STORE, FREE_EDGE], ids=["store", "free edge"])
+def test_steel_estimate_follows_its_rule(request_):
+    result = armature.design(request_)
     plate = result["plate"]
     x_lines, y_lines = plate["x_lines_m"], plate["y_lines_m"]
     volume = 0.0  # mm²/m × m² → mm²·m
@@ -62,9 +67,14 @@ def test_steel_estimate_follows_its_rule():
                     (0.3 * (across[k + 1] - across[k]) if k + 1 < len(across) else 0.0)
             area = (line["to_m"] - line["from_m"]) * reach
         volume += g["bars"]["As_prov_mm2"] * area
+    for f in plate["free_edges"]:  # U-bars: top leg and bend (h) beyond the bottom bars
+        g = next(g for g in result["regions"] if g["where"] == f["bay"] and g["face"] == "bottom"
+                 and g["direction"] == ("x" if f["edge"] in ("edge x0", "edge x1") else "y"))
+        volume += g["bars"]["As_prov_mm2"] * (f["to_m"] - f["from_m"]) * (f["u_bar_leg_mm"] + 200) / 1000
+    assert bool(plate["free_edges"]) == (request_ is FREE_EDGE)
     slab_area = (x_lines[-1] - x_lines[0]) * (y_lines[-1] - y_lines[0])
     expected = volume * 1e-6 / slab_area * 7850.0
-    frame = armature.sweep(STORE, {"slab.thickness_mm": [200]})
+    frame = armature.sweep(request_, {"slab.thickness_mm": [200]})
     assert abs(frame["steel_kg_m2"][0] - expected) < 1e-6 * expected
 
 

@@ -282,6 +282,16 @@ struct CornerRule {
   std::string clause{};
 };
 
+// Two-way slabs: the reinforcement along a free (unsupported) outer edge:
+// U-bars whose legs run `u_bar_leg_over_h` × h into the slab on each face,
+// made of the bay's own bars across the edge, with bars along the edge
+// inside the U (the slab's bars parallel to the edge). An empty `clause`:
+// the code sets no such rule.
+struct FreeEdgeRule {
+  double u_bar_leg_over_h = 2.0;
+  std::string clause{};
+};
+
 // The code's checks of a member that are not a section's.
 class MemberRules {
  public:
@@ -303,6 +313,8 @@ class MemberRules {
   virtual double pinned_end_fixity_fraction() const = 0;
   // Corner reinforcement of two-way slabs (CornerRule); none by default.
   virtual CornerRule corner_rule() const { return {}; }
+  // Free-edge reinforcement of two-way slabs (FreeEdgeRule); none by default.
+  virtual FreeEdgeRule free_edge_rule() const { return {}; }
   // The design hogging moment (N·mm, magnitude) of a support region whose
   // support has a width (region.support_face.width_mm > 0), from the
   // moments the kernel gives per load case; called once per such region,
@@ -533,6 +545,7 @@ class ForwardingMemberRules : public MemberRules {
   }
   double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
   CornerRule corner_rule() const override { return inner_->corner_rule(); }
+  FreeEdgeRule free_edge_rule() const override { return inner_->free_edge_rule(); }
   double support_design_moment(const RegionDemand& region) const override {
     return inner_->support_design_moment(region);
   }

@@ -296,6 +296,22 @@ void write_plate(W& w, const PlateRecord& p) {
     w.end();
   }
   w.end();
+  w.key("free_edges");
+  w.begin_array();
+  for (const auto& fe : p.free_edges) {
+    w.begin_object();
+    w.key("edge"), w.value(fe.edge);
+    w.key("bay"), w.value(fe.bay);
+    w.key("from_m"), w.value(fe.from_mm * m_per_mm);
+    w.key("to_m"), w.value(fe.to_mm * m_per_mm);
+    w.key("u_bar"), w.value(fe.u_bar);
+    w.key("u_bar_spacing_mm"), w.value(fe.u_bar_spacing_mm);
+    w.key("u_bar_leg_mm"), w.value(fe.leg_mm);
+    w.key("edge_bar"), w.value(fe.edge_bar);
+    w.key("clause"), w.value(fe.clause);
+    w.end();
+  }
+  w.end();
   w.key("poisson_ratio"), w.value(p.poisson_ratio);
   w.key("mesh_per_bay"), w.value(static_cast<long long>(p.mesh_per_bay));
   w.key("outer_layer");

@@ -45,6 +45,21 @@ struct PlateCornerRecord {
   std::string clause;
 };
 
+// Reinforcement along a free edge of one bay (FreeEdgeRule): U-bars of the
+// bay's bars across the edge with legs `leg_mm` on each face, and the bay's
+// bars along the edge inside the U.
+struct PlateFreeEdgeRecord {
+  std::string edge;  // "edge x1"
+  std::string bay;
+  double from_mm = 0.0, to_mm = 0.0;  // along the edge
+  std::string u_bar;                  // designation
+  double u_bar_diameter_mm = 0.0, u_bar_spacing_mm = 0.0, u_bar_area_mm2 = 0.0;  // area per metre
+  std::string edge_bar;               // the bars along the edge, one in each face inside the U
+  double edge_bar_diameter_mm = 0.0;
+  double leg_mm = 0.0;
+  std::string clause;
+};
+
 struct PlateBayRecord {
   std::string name;  // "bay i,j"
   double x0_mm = 0.0, x1_mm = 0.0, y0_mm = 0.0, y1_mm = 0.0;
@@ -58,6 +73,7 @@ struct PlateRecord {
   PlateFieldRecord field;
   std::vector<PlateLineRecord> reactions;
   std::vector<PlateCornerRecord> corners;
+  std::vector<PlateFreeEdgeRecord> free_edges;
   double poisson_ratio = 0.2;
   int mesh_per_bay = 0;
   std::array<std::string, 2> outer_layer{};  // per face (bottom, top): "x" or "y"

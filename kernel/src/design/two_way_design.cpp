@@ -16,6 +16,48 @@ namespace armature {
 
 namespace {
 
+// The U-bars along each free outer edge, bay by bay (FreeEdgeRule): the
+// bay's bottom bars across the edge bent into a U whose top leg runs
+// leg × h into the slab, and the bay's bottom bars along the edge in each
+// face inside the U (EN 1992-1-1 9.3.1.4(2): the slab's own bars serve).
+std::vector<PlateFreeEdgeRecord> free_edge_bars(const PlateRecord& p, const std::vector<RegionRecord>& regions,
+                                                const Request& req, const FreeEdgeRule& rule) {
+  std::vector<PlateFreeEdgeRecord> out;
+  const std::size_t nx = p.x_lines_mm.size() - 1, ny = p.y_lines_mm.size() - 1;
+  const char* names[4] = {"edge x0", "edge x1", "edge y0", "edge y1"};
+  for (std::size_t e = 0; e < 4; ++e) {
+    if (p.edges[e] != EndSupport::free) continue;
+    const bool along_y = e < 2;  // x0, x1 run along y
+    const std::size_t count = along_y ? ny : nx;
+    for (std::size_t k = 0; k < count; ++k) {
+      const std::size_t i = along_y ? (e == 0 ? 0 : nx - 1) : k;
+      const std::size_t j = along_y ? k : (e == 2 ? 0 : ny - 1);
+      PlateFreeEdgeRecord f;
+      f.edge = names[e];
+      f.bay = plate_bay_name(i, j);
+      f.from_mm = along_y ? p.y_lines_mm[j] : p.x_lines_mm[i];
+      f.to_mm = along_y ? p.y_lines_mm[j + 1] : p.x_lines_mm[i + 1];
+      f.leg_mm = rule.u_bar_leg_over_h * req.slab.thickness_mm;
+      f.clause = rule.clause;
+      for (const auto& g : regions) {
+        if (g.where != f.bay || g.face != Face::bottom) continue;
+        const bool across = (g.direction == BarDirection::x) == along_y;
+        if (across) {
+          f.u_bar = g.bars.bar;
+          f.u_bar_diameter_mm = g.bars.diameter_mm;
+          f.u_bar_spacing_mm = g.bars.spacing_mm;
+          f.u_bar_area_mm2 = g.bars.As_prov_mm2;
+        } else {
+          f.edge_bar = g.bars.bar;
+          f.edge_bar_diameter_mm = g.bars.diameter_mm;
+        }
+      }
+      out.push_back(std::move(f));
+    }
+  }
+  return out;
+}
+
 PlateGeometry checked_geometry(const Request& req) {
   PlateGeometry g;
   g.x_spans_mm = req.two_way.x_spans_mm;
@@ -204,7 +246,10 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
     double& c = rec.face_cover_mm[static_cast<std::size_t>(r.face)];
     c = std::max(c, r.cover_mm);
   }
-  rec.plate = std::make_shared<const PlateRecord>(plate.record());
+  PlateRecord plate_record = plate.record();
+  const FreeEdgeRule free_rule = call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });
+  if (!free_rule.clause.empty()) plate_record.free_edges = free_edge_bars(plate_record, rec.regions, req, free_rule);
+  rec.plate = std::make_shared<const PlateRecord>(std::move(plate_record));
 
   rec.pass = true;
   rec.max_utilisation = 0.0;

@@ -31,7 +31,8 @@ double bar_length_mm(const DesignRecord& r, const RegionRecord& g) {
 // A two-way slab: bottom bars over their bay (length in their direction,
 // the bay's width across), top bars along each supported segment reaching
 // top_bar_reach of each adjacent span across the line, corner bars over
-// their zone (counted in full, beside the bars they overlap).
+// their zone (counted in full, beside the bars they overlap), and the top
+// leg and bend of the U-bars at free edges.
 double plate_steel_mass_kg_per_m2(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
   const double X = p.x_lines_mm.back() - p.x_lines_mm.front(), Y = p.y_lines_mm.back() - p.y_lines_mm.front();
@@ -61,6 +62,10 @@ double plate_steel_mass_kg_per_m2(const DesignRecord& r) {
     }
     volume_mm3 += g.bars.As_prov_mm2 * area_mm2 / 1000.0;
   }
+  // U-bars at free edges: the top leg and the bend (h) beyond the bottom
+  // bars already counted over the bay.
+  for (const auto& f : p.free_edges)
+    volume_mm3 += f.u_bar_area_mm2 * (f.to_mm - f.from_mm) * (f.leg_mm + r.thickness_mm) / 1000.0;
   return volume_mm3 / (X * Y) * 1e-3 * steel_density_kg_m3;  // mm³/mm² = mm → m
 }
 }  // namespace

@@ -561,6 +561,21 @@ std::string corner_text(const DesignRecord& r) {
          "panel's largest sagging moment.";
 }
 
+// The reinforcement along free edges (the code's free-edge rule).
+std::string free_edge_text(const DesignRecord& r) {
+  const PlateRecord& p = *r.plate;
+  const RecordUnits u = units_of(r);
+  std::string t;
+  for (const auto& f : p.free_edges)
+    t += (t.empty() ? "" : " ") + f.edge + " of " + f.bay + ": U-bars " +
+         bar_arrangement(f.u_bar, u.length_v(f.u_bar_spacing_mm), u.length_u()) +
+         " (the bay's bottom bars across the edge, bent up), legs " + u.length(f.leg_mm) +
+         " on each face; bar " + f.edge_bar + " along the edge in each face inside the U (" + f.clause + ").";
+  if (t.empty() && std::find(p.edges.begin(), p.edges.end(), EndSupport::free) != p.edges.end())
+    t = "The code sets no reinforcement rule of its own for a free edge: the bars as designed.";
+  return t;
+}
+
 std::string plate_analysis_text(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
   return "Linear-elastic Kirchhoff plate by finite elements (Bogner–Fox–Schmit rectangles, " +
@@ -871,7 +886,9 @@ std::string html_record(const DesignRecord& r, const json& request, const std::s
   if (r.plate) {
     o += "<h2>3 Analysis</h2>\n<p>" + esc(plate_analysis_text(r)) + "</p>\n<h3>Line reactions (ULS)</h3>\n<table>\n";
     for (const auto& [k, v] : plate_reaction_rows(r)) o += "<tr><td>" + esc(k) + "</td><td>" + esc(v) + "</td></tr>\n";
-    o += "</table>\n" + plate_drawings_html(r);
+    o += "</table>\n";
+    if (const std::string fe = free_edge_text(r); !fe.empty()) o += "<h3>Free edges</h3>\n<p>" + esc(fe) + "</p>\n";
+    o += plate_drawings_html(r);
   } else
   o += "<h2>3 Analysis</h2>\n<p>Elastic continuous beam, uniform stiffness, knife-edge supports; moments and "
        "shears at support centrelines, for the strip width of " + u.length(r.strip_width_mm) +
@@ -957,6 +974,7 @@ std::string markdown_record(const DesignRecord& r, const json& request, const st
   if (r.plate) {
     o += "\n## 3 Analysis\n\n" + plate_analysis_text(r) + "\n\n| line reactions (ULS) | value |\n|---|---|\n";
     for (const auto& [k, v] : plate_reaction_rows(r)) o += "| " + md(k) + " | " + md(v) + " |\n";
+    if (const std::string fe = free_edge_text(r); !fe.empty()) o += "\nFree edges: " + fe + "\n";
   } else
   o += "\n## 3 Analysis\n\nEnvelopes of the strip (" + std::string(u.moment_u()) + ", " + u.force_u() +
        "), sampled along each span:\n\n| x " + u.along_u() + " | M max | M min | V max | V min |\n|---:|---:|---:|---:|---:|\n";

@@ -114,9 +114,16 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
   }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " + util(r.max_utilisation) + " (" +
        r.governing_check + ", " + r.governing_where + ")\n";
-  if (r.plate && std::find(r.plate->edges.begin(), r.plate->edges.end(), EndSupport::free) != r.plate->edges.end())
-    o += "Not checked yet for two-way slabs: the reinforcement along free edges (U-bars and edge bars, EN 1992-1-1 "
-         "9.3.1.4).\n";
+  if (r.plate) {
+    for (const auto& f : r.plate->free_edges)
+      o += "Free edge  " + f.edge + " of " + f.bay + ": U-bars " +
+           bar_arrangement(f.u_bar, u.us ? f.u_bar_spacing_mm / mm_per_in : f.u_bar_spacing_mm, u.us ? "in" : "mm") +
+           " (the bay's bars across it), legs " + (u.us ? plain_number(f.leg_mm / mm_per_in) + " in" : plain_number(f.leg_mm) + " mm") +
+           " on each face; bar " + f.edge_bar + " along the edge in each face inside the U (" + f.clause + ")\n";
+    const bool free = std::find(r.plate->edges.begin(), r.plate->edges.end(), EndSupport::free) != r.plate->edges.end();
+    if (free && r.plate->free_edges.empty())
+      o += "Free edge  the code sets no reinforcement rule of its own for a free edge: the bars as designed\n";
+  }
   for (const auto& w : r.warnings) o += "Warning    " + w + "\n";
   o += "\nCaution    " + std::string(caution_text) + "\n";
   return o;
