@@ -135,7 +135,7 @@ def check_schedule(req, r):
     width = req["detailing"]["slab_width_m"]
     for b in d["bars"]:
         # Cut length: the extent (along the strip, or across it for distribution bars), rounded up to 25 mm.
-        if b["role"] == "main":
+        if b["role"] in ("main", "curtailed"):
             assert b["length_mm"] == pytest.approx((b["end_m"] - b["start_m"]) * 1000, abs=1e-6)
         else:
             assert b["length_mm"] == pytest.approx((b["across_m"]["to"] - b["across_m"]["from"]) * 1000, abs=1e-6)
@@ -146,6 +146,11 @@ def check_schedule(req, r):
         per_where.setdefault(b["where"], []).append(b)
     for where, bs in per_where.items():
         expected = math.floor(width * 1000 / bs[0]["spacing_mm"] + 1e-9) + 1
+        cut = [b for b in d["bars"] if b["where"] == where and b["role"] == "curtailed"]
+        if cut:  # alternate sets at twice the bars' spacing: the continuing set takes the odd bars
+            all_ = math.floor(width * 1000 / (bs[0]["spacing_mm"] / 2) + 1e-9) + 1
+            expected = (all_ + 1) // 2
+            assert sum(b["count"] for b in cut if b["start_m"] == min(c["start_m"] for c in cut)) == all_ // 2
         if any(b["laps"] for b in bs):
             # Alternate bars lapped at staggered positions: both sets start at the run's start.
             first = min(b["start_m"] for b in bs)
@@ -170,6 +175,30 @@ def check_schedule(req, r):
     assert len(set(keys)) == len(keys)
 
 
+def check_curtailed(req, r):
+    """Where the envelope exceeds what the continuing half of a span's
+    bottom bars carries (EN rectangular block, evaluated here), its
+    curtailed bars are developed: their ends lie at least the shift plus
+    their anchorage beyond every such point, or at the continuing bars'
+    ends. Returns the number of curtailed bar entries."""
+    regions = {(g["where"], g["face"]): g for g in r["regions"]}
+    X = strip_nodes(req["slab"]["spans_m"])
+    cut = [b for b in r["detailing"]["bars"] if b["role"] == "curtailed"]
+    for b in cut:
+        g = regions[(b["where"], "bottom")]
+        M_half = en_moment_resistance(g["bars"]["As_prov_mm2"] / 2, g["effective_depth_mm"]) * 1e-6
+        cont = [c for c in r["detailing"]["bars"] if c["where"] == b["where"] and c["role"] == "main"]
+        lo, hi = min(c["start_m"] for c in cont), max(c["end_m"] for c in cont)
+        e = int(b["where"].split()[1]) - 1
+        for p in r["detailing"]["envelope"]:
+            if X[e] - 1e-9 <= p["x_m"] <= X[e + 1] + 1e-9 and p["M_max_kNm"] > M_half:
+                assert b["start_m"] <= p["x_m"] - (b["shift_mm"] + b["anchorage_mm"]["start"]) / 1000 + 1e-9 \
+                    or b["start_m"] <= lo + 1e-9
+                assert b["end_m"] >= p["x_m"] + (b["shift_mm"] + b["anchorage_mm"]["end"]) / 1000 - 1e-9 \
+                    or b["end_m"] >= hi - 1e-9
+    return len(cut)
+
+
 @pytest.mark.parametrize("seed", [3, 11, 29, 47, 88])
 def test_random_en_strips_cover_the_envelope(seed):
     rng = random.Random(seed)
@@ -183,6 +212,16 @@ def test_random_en_strips_cover_the_envelope(seed):
     r = armature.design(req)
     check_cover_of_envelope(req, r)
     check_schedule(req, r)
+    # The same strip with alternate bars stopped: the continuing bars still
+    # cover the envelope; where the curtailed ones stop, the continuing half
+    # carries the envelope (EN rectangular block, evaluated here).
+    alt = copy.deepcopy(req)
+    alt["detailing"]["curtail"] = "alternate"
+    alt["loads"]["imposed_kPa"] = 6.0  # past the minimum steel, so that bars can stop
+    ra = armature.design(alt)
+    check_cover_of_envelope(alt, ra)
+    check_schedule(alt, ra)
+    check_curtailed(alt, ra)
     # Interior anchorage of main bars is EN lbd by hand (good bond: slab ≤ 250 mm, Figure 8.2).
     regions = {(g["where"], g["face"]): g for g in r["regions"]}
     for b in main_bars(r["detailing"]):
@@ -306,7 +345,6 @@ def test_detailing_leaves_the_design_unchanged():
     ("slab_width_m", 0, "detailing.slab_width_m"),
     ("slab_width_m", -2.0, "detailing.slab_width_m"),
     ("curtail", "sometimes", "detailing.curtail"),
-    ("curtail", "alternate", "detailing.curtail"),
     ("bond", "medium", "detailing.bond"),
     ("stock_length_m", 0, "detailing.stock_length_m"),
     ("colour", "red", "detailing.colour"),
@@ -428,3 +466,58 @@ def test_record_draws_every_bar_and_derives_every_length(tmp_path):
     for row in d["schedule"]:
         assert f'| {row["mark"]} | {row["bar"]} | {int(row["count"])} |' in mtext
     assert armature.CAUTION in mtext
+
+
+def en_moment_resistance(As, d, fck=30.0, fyk=500.0, b=1000.0, alpha_cc=1.0):
+    """EN 1992-1-1 3.1.7(3) rectangular block (λ = 0.8, η = 1 for fck ≤ 50),
+    6.1, recommended αcc = 1.0 (3.1.6(1)), γc = 1.5, γs = 1.15, evaluated
+    here: x = As fyd / (0.8 b fcd), M = As fyd (d − 0.4 x), in N·mm."""
+    fcd, fyd = alpha_cc * fck / 1.5, fyk / 1.15
+    x = As * fyd / (0.8 * b * fcd)
+    return As * fyd * (d - 0.4 * x)
+
+
+@pytest.mark.parametrize("spans,ends", [([6.0], ["pinned", "pinned"]), ([5.5, 5.5], ["fixed", "pinned"])])
+def test_alternate_bars_stop_where_the_rest_carry_the_envelope(spans, ends):
+    """detailing.curtail "alternate": every other bottom bar stops inside
+    the span. Where the envelope exceeds what the continuing half carries
+    (EN rectangular block, evaluated here), the curtailed bars must be
+    developed: their ends lie at least the shift (9.2.1.3(2)) plus their
+    anchorage beyond every such point; the continuing bars still cover the
+    whole sagging zone and are anchored at the supports."""
+    req = workshop(spans, ends, curtail="alternate")
+    req["loads"] = {"dead_kPa": 1.5, "imposed_kPa": 7.5}
+    r = armature.design(req)
+    d = r["detailing"]
+    where = next(b["where"] for b in d["bars"] if b["role"] == "curtailed")
+    e = int(where.split()[1]) - 1
+    g = next(g for g in r["regions"] if g["where"] == where and g["face"] == "bottom")
+    s = g["bars"]["spacing_mm"]
+    cont = [b for b in d["bars"] if b["where"] == where and b["role"] == "main"]
+    cut = [b for b in d["bars"] if b["where"] == where and b["role"] == "curtailed"]
+    assert cont and cut
+    assert all(b["spacing_mm"] == 2 * s for b in cont + cut)
+    count = math.floor(6000 / s + 1e-9) + 1  # width over the spacing, plus one
+    assert sum(b["count"] for b in cont) == (count + 1) // 2 and sum(b["count"] for b in cut) == count // 2
+    check_cover_of_envelope(req, r)
+    M_half = en_moment_resistance(g["bars"]["As_prov_mm2"] / 2, g["effective_depth_mm"]) * 1e-6
+    assert M_half < g["design_moment_kNm"]  # the case needs the curtailed bars somewhere
+    assert check_curtailed(req, r) >= 1
+    [b] = cut
+    X = strip_nodes(spans)
+    assert X[e] < b["start_m"] and b["end_m"] < X[e + 1]  # stopped inside the span
+    full = copy.deepcopy(req)
+    full["detailing"]["curtail"] = "none"
+    assert d["total_mass_kg"] < armature.design(full)["detailing"]["total_mass_kg"]
+    check_schedule(req, r)
+
+
+def test_alternate_curtailment_refused_below_minimum_steel_with_a_note():
+    """Where half the bars would fall below the minimum steel (EN 1992-1-1
+    9.3.1.1(1), 9.2.1.1), every bar runs through and the result says why."""
+    req = workshop([3.0], ["pinned", "pinned"], curtail="alternate")
+    req["loads"] = {"dead_kPa": 0.5, "imposed_kPa": 1.5}
+    r = armature.design(req)
+    assert not [b for b in r["detailing"]["bars"] if b["role"] == "curtailed"]
+    assert any("span 1: every bottom bar runs through" in w and "minimum steel" in w for w in r["warnings"]), \
+        r["warnings"]

@@ -83,6 +83,7 @@ struct DetailedBar {
   std::string where;          // "span 1", "support 2", "distribution, bottom"
   Face face = Face::bottom;
   bool distribution = false;  // a distribution bar (runs across the strip)
+  bool curtailed = false;     // detailing.curtail "alternate": the alternate bars stopped inside the span
   std::string bar;
   double diameter_mm = 0.0;
   double spacing_mm = 0.0;
@@ -121,6 +122,7 @@ struct DetailingRecord {
   double mass_per_area_kg_m2 = 0.0;      // over slab width × strip length
   std::vector<DiagramPoint> envelope;    // the moment envelope the bars cover
   std::vector<DetailDerivation> derivations;
+  std::vector<std::string> notes;        // for the result's warnings (where bars were not curtailed, ...)
 };
 
 struct DesignRecord {

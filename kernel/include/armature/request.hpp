@@ -157,8 +157,9 @@ struct ServiceabilityInput {
 // bar's position ("auto"), or good or poor throughout.
 enum class BondChoice { automatic, good, poor };
 // Where bars stop (detailing.curtail): "none", every bar runs through its
-// region's whole zone.
-enum class Curtailment { none };
+// region's whole zone; "alternate", every other bottom bar of a span stops
+// where the rest carry the sagging envelope.
+enum class Curtailment { none, alternate };
 struct DetailingInput {
   bool requested = false;        // the request gives `detailing`
   double slab_width_mm = 0.0;    // width of the floor detailed (slab_width_m)

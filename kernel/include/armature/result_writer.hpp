@@ -104,7 +104,7 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     w.key("mark"), w.value(b.mark);
     w.key("where"), w.value(b.where);
     w.key("face"), w.value(b.face == Face::top ? "top" : "bottom");
-    w.key("role"), w.value(b.distribution ? "distribution" : "main");
+    w.key("role"), w.value(b.distribution ? "distribution" : b.curtailed ? "curtailed" : "main");
     w.key("bar"), w.value(b.bar);
     w.key("diameter_mm"), w.value(b.diameter_mm);
     w.key("spacing_mm"), w.value(b.spacing_mm);

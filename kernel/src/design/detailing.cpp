@@ -8,8 +8,10 @@
 #include <cmath>
 #include <limits>
 #include <map>
+#include <optional>
 #include <string>
 #include <tuple>
+#include <utility>
 
 #include "armature/format.hpp"
 #include "call_code.hpp"
@@ -44,8 +46,10 @@ struct Run {
   double anch_start = 0.0, anch_end = 0.0, shift = 0.0;
   std::string clause;
   bool distribution = false;
+  bool curtailed = false;  // the alternate bars stopped inside the span
   double along_from = 0.0, along_to = 0.0;  // distribution bars: the part of the strip they are spread over
   int count = 0;
+  int preset_count = 0;  // an alternate set's share of the bars (else counted from the spacing)
 };
 
 std::string face_name(Face f) { return f == Face::top ? "top" : "bottom"; }
@@ -119,20 +123,18 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   };
 
   std::vector<Run> runs;
-  // Bottom bars of each span: the sagging zone, shifted and anchored; at
-  // an end support past its line by the code's length there, at an
-  // interior support at least the code's embedment past its line.
-  for (std::size_t e = 0; e < n; ++e) {
-    if (cantilever(e)) continue;
+  // Bottom bars of span e (bars and demand as given: all the region's
+  // bars, or one of the two alternate sets): the sagging zone, shifted and
+  // anchored; at an end support past its line by the code's length there,
+  // at an interior support at least the code's embedment past its line.
+  auto bottom_run = [&](std::size_t e, const BarChoice& bars, const BarDetailDemand& demand,
+                        const std::string& label) {
     const std::string where = "span " + std::to_string(e + 1);
-    const RegionRecord* r = region(where, Face::bottom);
-    if (!r || r->bars.spacing_mm <= 0.0) continue;
     Run run;
     run.where = where;
     run.face = Face::bottom;
-    run.bars = r->bars;
-    run.demand = demand_of(*r);
-    const std::string label = where + ", bottom";
+    run.bars = bars;
+    run.demand = demand;
     const double al = derive(label, "shift", ask("detailing shift", where, [&] { return rules.shift(run.demand); }));
     const double lbd =
         derive(label, "anchorage", ask("detailing anchorage", where, [&] { return rules.anchorage(run.demand); }));
@@ -189,7 +191,106 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
         run.anch_end = anch;
       }
     }
-    runs.push_back(std::move(run));
+    return run;
+  };
+  // detailing.curtail "alternate": every other bar (the curtailed set)
+  // stops where the rest (the continuing set, at twice the spacing) carry
+  // the sagging envelope, past that point by the shift and its anchorage;
+  // the continuing set runs as all the bars would. As,req(M) ≤ M
+  // As,req(M_Ed)/M_Ed below the region's moment (the lever arm grows as
+  // the moment falls), so the continuing set suffices wherever M ≤ M_A =
+  // M_Ed As,prov/(2 As,req). None (every bar runs through, with a note)
+  // where the continuing set alone would be below the region's minimum
+  // steel or beyond its spacing limit, or carries the whole envelope.
+  auto alternate_sets = [&](std::size_t e, const RegionRecord& r) -> std::optional<std::pair<Run, Run>> {
+    const std::string where = "span " + std::to_string(e + 1);
+    const double As_half = r.bars.As_prov_mm2 / 2.0, s2 = 2.0 * r.bars.spacing_mm;
+    double s_max = std::numeric_limits<double>::infinity();
+    for (const auto& c : r.checks)  // the upper limits (demand: the spacing itself; not the least clear gap)
+      if (c.id.str() == "spacing" && std::abs(c.demand - r.bars.spacing_mm) < 1e-6) s_max = std::min(s_max, c.capacity);
+    std::string why;
+    if (As_half < r.As_min_mm2)
+      why = "half the bars, " + plain_number(As_half) + " mm²/m, would be below the minimum steel " +
+            plain_number(r.As_min_mm2) + " mm²/m";
+    else if (s2 > s_max)
+      why = "the continuing bars at " + plain_number(s2) + " mm would exceed the spacing limit " +
+            plain_number(s_max) + " mm";
+    else if (!(r.As_req_mm2 > As_half) || !(r.M_Ed > 0.0))
+      why = "half the bars carry the whole sagging envelope in bending; the others serve the other checks";
+    const auto& pts = envelope[e];
+    const double M_A = r.As_req_mm2 > 0.0 ? r.M_Ed * As_half / r.As_req_mm2 : 0.0;
+    std::size_t i0 = pts.size(), i1 = pts.size();
+    for (std::size_t k = 0; k < pts.size() && why.empty(); ++k)
+      if (pts[k].M_max > M_A) {
+        if (i0 == pts.size()) i0 = k;
+        i1 = k;
+      }
+    if (why.empty() && i0 == pts.size()) why = "the envelope nowhere exceeds what half the bars carry";
+    if (!why.empty()) {
+      out.notes.push_back(where + ": every bottom bar runs through (detailing.curtail \"alternate\"): " + why);
+      return std::nullopt;
+    }
+    BarChoice half = r.bars;
+    half.spacing_mm = s2;
+    half.As_prov_mm2 = As_half;
+    BarDetailDemand dem = demand_of(r);
+    dem.spacing_mm = s2;
+    dem.As_prov_mm2 = As_half;
+    Run a = bottom_run(e, half, dem, where + ", bottom (continuing bars)");
+    Run b;
+    b.where = where;
+    b.face = Face::bottom;
+    b.bars = half;
+    b.demand = dem;
+    b.curtailed = true;
+    const std::string label = where + ", bottom (curtailed bars)";
+    const double al = derive(label, "shift", ask("detailing shift", where, [&] { return rules.shift(dem); }));
+    const std::string shift_clause = out.derivations.back().length.clause;
+    const double lbd = derive(label, "anchorage", ask("detailing anchorage", where, [&] { return rules.anchorage(dem); }));
+    b.shift = al;
+    b.clause = shift_clause + "; " + out.derivations.back().length.clause;
+    const double z0 = i0 == 0 ? pts[0].x_mm : crossing(pts[i0].x_mm, pts[i0].M_max - M_A, pts[i0 - 1].x_mm,
+                                                        pts[i0 - 1].M_max - M_A);
+    const double z1 = i1 + 1 == pts.size() ? pts.back().x_mm
+                                           : crossing(pts[i1].x_mm, pts[i1].M_max - M_A, pts[i1 + 1].x_mm,
+                                                      pts[i1 + 1].M_max - M_A);
+    b.start = std::max(z0 - al - lbd, a.start);
+    b.end = std::min(z1 + al + lbd, a.end);
+    b.anch_start = b.start > a.start ? lbd : a.anch_start;
+    b.anch_end = b.end < a.end ? lbd : a.anch_end;
+    // The split of the count: the continuing set takes the odd bars.
+    const int all = count_over(out.slab_width_mm, r.bars.spacing_mm);
+    a.preset_count = (all + 1) / 2;
+    b.preset_count = all / 2;
+    DetailLength stop;
+    stop.length_mm = z1 - z0;
+    stop.clause = shift_clause;
+    stop.steps = {
+        {"As,A", "As,prov / 2 (the continuing bars, at twice the spacing)",
+         plain_number(r.bars.As_prov_mm2) + " / 2", As_half, "mm2", ""},
+        {"M_A", "M_Ed As,A / As,req (As,req(M) ≤ M As,req(M_Ed)/M_Ed below M_Ed)",
+         plain_number(r.M_Ed * 1e-6) + " × " + plain_number(As_half) + " / " + plain_number(r.As_req_mm2),
+         M_A * 1e-6, "kNm", ""},
+        {"x0", "the sagging envelope rises past M_A", "", z0 * 1e-3, "m", ""},
+        {"x1", "the sagging envelope falls back to M_A", "", z1 * 1e-3, "m", ""},
+        {"l", "x1 − x0: where the curtailed bars are needed, before the shift and anchorage",
+         plain_number(z1 * 1e-3) + " − " + plain_number(z0 * 1e-3), (z1 - z0) * 1e-3, "m", ""}};
+    out.derivations.push_back({label, "curtailment", stop});
+    return std::make_pair(std::move(a), std::move(b));
+  };
+  for (std::size_t e = 0; e < n; ++e) {
+    if (cantilever(e)) continue;
+    const std::string where = "span " + std::to_string(e + 1);
+    const RegionRecord* r = region(where, Face::bottom);
+    if (!r || r->bars.spacing_mm <= 0.0) continue;
+    if (req.detailing.curtail == Curtailment::alternate) {
+      if (auto sets = alternate_sets(e, *r)) {
+        runs.push_back(std::move(sets->first));
+        runs.push_back(std::move(sets->second));
+        continue;
+      }
+    }
+    runs.push_back(bottom_run(e, r->bars, demand_of(*r), where + ", bottom"));
   }
 
   // Top bars over each support: the hogging zone on both sides, shifted and
@@ -270,7 +371,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   }
 
   // Counts across the slab width.
-  for (auto& run : runs) run.count = count_over(out.slab_width_mm, run.bars.spacing_mm);
+  for (auto& run : runs)
+    run.count = run.preset_count > 0 ? run.preset_count : count_over(out.slab_width_mm, run.bars.spacing_mm);
 
   // Distribution bars: across the strip, under or over the main bars,
   // spread over the bottom bars' extent and each top bar's.
@@ -317,6 +419,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     base.where = run.where;
     base.face = run.face;
     base.distribution = run.distribution;
+    base.curtailed = run.curtailed;
     base.bar = run.bars.bar;
     base.diameter_mm = run.bars.diameter_mm;
     base.spacing_mm = run.bars.spacing_mm;

@@ -242,7 +242,9 @@ void detail_design(const SlabChecker& checker, const Request& req, const Member&
     problems.add("detailing", rec.code.id + " (" + rec.code.variant + ") gives no detailing rules");
     problems.raise_if_any();
   }
-  rec.detailing = detail_strip(*rules, rec.code, req, rec, member.detailing_diagrams(loads));
+  DetailingRecord d = detail_strip(*rules, rec.code, req, rec, member.detailing_diagrams(loads));
+  rec.warnings.insert(rec.warnings.end(), d.notes.begin(), d.notes.end());
+  rec.detailing = std::move(d);
 }
 
 DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Member& member,

@@ -763,9 +763,7 @@ void read_detailing(const json& j, InputProblems& problems, DetailingInput& d) {
   }
   if (auto c = r.text("curtail")) {
     if (*c == "none") d.curtail = Curtailment::none;
-    else if (*c == "alternate")
-      problems.add("detailing.curtail", "\"alternate\": stopping alternate bars is not available yet; give \"none\" "
-                                        "or leave the field out");
+    else if (*c == "alternate") d.curtail = Curtailment::alternate;
     else problems.add("detailing.curtail", "must be \"none\" or \"alternate\", got \"" + *c + "\"");
   }
 }

@@ -377,7 +377,8 @@ std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
     std::string laps;
     for (const auto& l : b.laps)
       laps += (laps.empty() ? "" : "; ") + detail_position(u, l.from_mm) + " to " + detail_position(u, l.to_mm);
-    o += "<tr><td>" + esc(b.mark) + "</td><td>" + esc(b.where) + "</td><td>" + (b.face == Face::top ? "top" : "bottom") +
+    o += "<tr><td>" + esc(b.mark) + "</td><td>" + esc(b.where + (b.curtailed ? " (curtailed)" : "")) + "</td><td>" +
+         (b.face == Face::top ? "top" : "bottom") +
          "</td><td>" + esc(u.bars({b.bar, b.diameter_mm, b.spacing_mm, 0.0})) + "</td><td class=\"num\">" +
          std::to_string(b.count) + "</td><td class=\"num\">" +
          detail_position(u, b.distribution ? b.along_from_mm : b.start_mm) + "</td><td class=\"num\">" +
@@ -420,7 +421,8 @@ std::string detailing_markdown(const DesignRecord& r, const DetailingRecord& d) 
     std::string laps;
     for (const auto& l : b.laps)
       laps += (laps.empty() ? "" : "; ") + detail_position(u, l.from_mm) + " to " + detail_position(u, l.to_mm);
-    o += "| " + b.mark + " | " + b.where + " | " + (b.face == Face::top ? "top" : "bottom") + " | " +
+    o += "| " + b.mark + " | " + b.where + (b.curtailed ? " (curtailed)" : "") + " | " +
+         (b.face == Face::top ? "top" : "bottom") + " | " +
          u.bars({b.bar, b.diameter_mm, b.spacing_mm, 0.0}) + " | " + std::to_string(b.count) + " | " +
          detail_position(u, b.distribution ? b.along_from_mm : b.start_mm) + " | " +
          detail_position(u, b.distribution ? b.along_to_mm : b.end_mm) + " | " + n4(b.length_mm) + " | " +
