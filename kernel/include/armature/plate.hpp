@@ -52,10 +52,24 @@ struct PlateEdges {
   EndSupport y1 = EndSupport::pinned;
 };
 
+// A column under the plate: its outline in plan (mm from x = 0, y = 0),
+// inside the plate. The part of the plate over it moves as a rigid patch
+// that cannot move down at the column's centre and is free to turn (a
+// column with no rotational restraint: pinned at the slab).
+struct PlateColumn {
+  double x0_mm = 0.0, x1_mm = 0.0, y0_mm = 0.0, y1_mm = 0.0;
+};
+
 struct PlateGeometry {
   std::vector<double> x_spans_mm;
   std::vector<double> y_spans_mm;
   PlateEdges edges{};
+  // Rigid line supports on every interior grid line (two-way slabs); false
+  // for a plate on columns, whose interior grid lines are not supported.
+  bool interior_lines_supported = true;
+  // Columns (flat slabs); their faces become mesh lines. A column must not
+  // touch a supported line.
+  std::vector<PlateColumn> columns{};
   double thickness_mm = 0.0;
   double elastic_modulus_MPa = 0.0;
   double poisson_ratio = 0.2;
@@ -290,8 +304,12 @@ class PlateField {
   // Zero at a fixed edge's corner. None where two free edges meet.
   std::vector<PointReaction> corner_forces(std::size_t c) const;
   // Resultant of every support reaction (forces and, at fixed edges and
-  // along lines, the reaction moments' contribution to the first moments).
+  // along lines, the reaction moments' contribution to the first moments),
+  // the columns' included.
   ForceResultant reaction_resultant(std::size_t c) const;
+  // Per column (geometry order): its upward reaction (N), the sum of the
+  // vertical forces the rigid patch over it takes from the plate.
+  std::vector<double> column_reactions(std::size_t c) const;
 
   // All of the above but the resultant for one case, each computed once.
   PlateCaseResults case_results(std::size_t c) const;

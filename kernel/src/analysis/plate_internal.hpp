@@ -6,6 +6,7 @@
 #include <array>
 #include <cstddef>
 #include <memory>
+#include <utility>
 #include <vector>
 
 #include <Eigen/Dense>
@@ -63,9 +64,24 @@ struct PlateMesh {
   std::vector<double> widths, heights;
   std::vector<std::array<double, 256>> stiffness;
 
-  // Free dof number of each global dof, or −1 where the dof is held.
+  // Free dof number of each global dof, −1 where the dof is held, −2
+  // where it follows a column's rotations (constraint below).
   std::vector<long> free_index;
   std::size_t free_count = 0;
+  // For each dof with free_index −2: the free unknowns it follows and their
+  // coefficients (a column's two rotations, numbered after the node dofs).
+  std::vector<std::vector<std::pair<long, double>>> constraint;
+  // Per column: the nodes of its patch.
+  std::vector<std::vector<std::size_t>> column_nodes;
+  // The free unknowns a dof's value is made of: itself, its constraint, or
+  // none (held).
+  template <class F>
+  void for_each_unknown(std::size_t dof, F&& f) const {
+    const long i = free_index[dof];
+    if (i >= 0) f(i, 1.0);
+    else if (i == -2)
+      for (const auto& [j, c] : constraint[dof]) f(j, c);
+  }
   std::vector<SupportLine> lines;
   std::vector<std::vector<std::size_t>> line_nodes;  // nodes along each line, in order
   std::vector<unsigned char> lines_through_node;     // supported lines through each node

@@ -4,6 +4,7 @@
 #include <cstdio>
 #include <stdexcept>
 #include <string>
+#include <array>
 
 #include "plate_internal.hpp"
 
@@ -72,21 +73,69 @@ void add_plate_problems(const PlateGeometry& g, InputProblems& problems) {
     }
   }
 
-  // The plate is a rigid body w = a + b x + c y until held: one line
-  // support leaves it free to turn about that line; two distinct lines, or
-  // one fixed edge, hold it.
+  // Columns: positive outlines inside the plate, clear of supported lines.
+  double X = 0.0, Y = 0.0;
+  for (double L : g.x_spans_mm) X += L;
+  for (double L : g.y_spans_mm) Y += L;
+  const double tol = 1e-9 * std::max(X, Y);
   const PlateEdges& e = g.edges;
+  for (std::size_t k = 0; k < g.columns.size(); ++k) {
+    const PlateColumn& c = g.columns[k];
+    const std::string field = "slab.columns[" + std::to_string(k) + "]";
+    if (!(std::isfinite(c.x0_mm) && std::isfinite(c.x1_mm) && std::isfinite(c.y0_mm) && std::isfinite(c.y1_mm)) ||
+        !(c.x1_mm > c.x0_mm) || !(c.y1_mm > c.y0_mm)) {
+      problems.add(field, "needs a positive outline");
+      continue;
+    }
+    if (c.x0_mm < -tol || c.x1_mm > X + tol || c.y0_mm < -tol || c.y1_mm > Y + tol) {
+      problems.add(field, "must lie on the slab");
+      continue;
+    }
+    bool touches = (supported(e.x0) && c.x0_mm <= tol) || (supported(e.x1) && c.x1_mm >= X - tol) ||
+                   (supported(e.y0) && c.y0_mm <= tol) || (supported(e.y1) && c.y1_mm >= Y - tol);
+    if (g.interior_lines_supported) {
+      double at = 0.0;
+      for (std::size_t i = 0; i + 1 < g.x_spans_mm.size(); ++i)
+        if (at += g.x_spans_mm[i]; c.x0_mm <= at + tol && c.x1_mm >= at - tol) touches = true;
+      at = 0.0;
+      for (std::size_t j = 0; j + 1 < g.y_spans_mm.size(); ++j)
+        if (at += g.y_spans_mm[j]; c.y0_mm <= at + tol && c.y1_mm >= at - tol) touches = true;
+    }
+    if (touches) problems.add(field, "touches a supported line (a wall or edge): a column there is not modelled");
+  }
+
+  // The plate is a rigid body w = a + b x + c y until held: it needs three
+  // held points not on one line (a supported line holds its two ends; a
+  // column, which lets the slab turn over it, its centre), or a fixed edge.
   const bool any_fixed = e.x0 == EndSupport::fixed || e.x1 == EndSupport::fixed ||
                          e.y0 == EndSupport::fixed || e.y1 == EndSupport::fixed;
-  std::size_t lines = static_cast<std::size_t>(supported(e.x0)) + supported(e.x1) +
-                      supported(e.y0) + supported(e.y1);
-  if (!g.x_spans_mm.empty()) lines += g.x_spans_mm.size() - 1;
-  if (!g.y_spans_mm.empty()) lines += g.y_spans_mm.size() - 1;
-  if (!any_fixed && lines < 2) {
-    problems.add("slab.edges", lines == 0
-                                   ? "no edge or grid line supports the slab: it is a mechanism"
-                                   : "the slab rests on one pinned line only and would turn "
-                                     "about it (a mechanism): support or fix another edge");
+  if (!any_fixed && X > 0.0 && Y > 0.0) {
+    std::vector<std::array<double, 2>> held;
+    auto line_x = [&](double x) { held.push_back({x, 0.0}), held.push_back({x, Y}); };  // a line along y at x
+    auto line_y = [&](double y) { held.push_back({0.0, y}), held.push_back({X, y}); };
+    if (supported(e.x0)) line_x(0.0);
+    if (supported(e.x1)) line_x(X);
+    if (supported(e.y0)) line_y(0.0);
+    if (supported(e.y1)) line_y(Y);
+    if (g.interior_lines_supported) {
+      double at = 0.0;
+      for (std::size_t i = 0; i + 1 < g.x_spans_mm.size(); ++i) line_x(at += g.x_spans_mm[i]);
+      at = 0.0;
+      for (std::size_t j = 0; j + 1 < g.y_spans_mm.size(); ++j) line_y(at += g.y_spans_mm[j]);
+    }
+    for (const auto& c : g.columns) held.push_back({(c.x0_mm + c.x1_mm) / 2.0, (c.y0_mm + c.y1_mm) / 2.0});
+    bool stable = false;
+    for (std::size_t a = 0; a < held.size() && !stable; ++a)
+      for (std::size_t b = a + 1; b < held.size() && !stable; ++b)
+        for (std::size_t k = b + 1; k < held.size() && !stable; ++k) {
+          const double area = (held[b][0] - held[a][0]) * (held[k][1] - held[a][1]) -
+                              (held[b][1] - held[a][1]) * (held[k][0] - held[a][0]);
+          stable = std::abs(area) > 1e-6 * X * Y;
+        }
+    if (!stable)
+      problems.add("slab.edges", held.empty() ? "no edge, grid line or column supports the slab: it is a mechanism"
+                                              : "the slab's supports lie on one line and it would turn about it "
+                                                "(a mechanism): support or fix another edge");
   }
 }
 
@@ -194,8 +243,14 @@ void build_mesh(PlateMesh& m) {
   const auto n = static_cast<std::size_t>(g.mesh_per_bay);
   m.x_grid = grid_lines(g.x_spans_mm);
   m.y_grid = grid_lines(g.y_spans_mm);
-  m.node_x = node_lines(m.x_grid, n, g.mesh_lines_x_mm, "x", m.grid_node_x);
-  m.node_y = node_lines(m.y_grid, n, g.mesh_lines_y_mm, "y", m.grid_node_y);
+  // Columns' faces are mesh lines, so that their patches have nodes on them.
+  std::vector<double> extra_x = g.mesh_lines_x_mm, extra_y = g.mesh_lines_y_mm;
+  for (const auto& c : g.columns) {
+    extra_x.push_back(c.x0_mm), extra_x.push_back(c.x1_mm);
+    extra_y.push_back(c.y0_mm), extra_y.push_back(c.y1_mm);
+  }
+  m.node_x = node_lines(m.x_grid, n, extra_x, "x", m.grid_node_x);
+  m.node_y = node_lines(m.y_grid, n, extra_y, "y", m.grid_node_y);
   classify(m.node_x, m.grid_node_x, m.column_bay, m.column_class, m.widths);
   classify(m.node_y, m.grid_node_y, m.row_bay, m.row_class, m.heights);
   m.stiffness.clear();
@@ -239,16 +294,51 @@ void build_mesh(PlateMesh& m) {
     m.line_nodes.push_back(std::move(nodes));
   };
   if (supported(g.edges.x0)) add_line(PlanAxis::y, 0, false, g.edges.x0);
-  for (std::size_t i = 1; i < m.nx; ++i) add_line(PlanAxis::y, i, true, EndSupport::pinned);
+  if (g.interior_lines_supported)
+    for (std::size_t i = 1; i < m.nx; ++i) add_line(PlanAxis::y, i, true, EndSupport::pinned);
   if (supported(g.edges.x1)) add_line(PlanAxis::y, m.nx, false, g.edges.x1);
   if (supported(g.edges.y0)) add_line(PlanAxis::x, 0, false, g.edges.y0);
-  for (std::size_t j = 1; j < m.ny; ++j) add_line(PlanAxis::x, j, true, EndSupport::pinned);
+  if (g.interior_lines_supported)
+    for (std::size_t j = 1; j < m.ny; ++j) add_line(PlanAxis::x, j, true, EndSupport::pinned);
   if (supported(g.edges.y1)) add_line(PlanAxis::x, m.ny, false, g.edges.y1);
 
+  // Column patches: every node on or inside the outline follows the
+  // patch's rotations θx, θy about its centre (xc, yc), which does not move
+  // down: w = θx (x − xc) + θy (y − yc), w,x = θx, w,y = θy, w,xy = 0.
+  constexpr unsigned char follows = 2;
+  m.column_nodes.assign(g.columns.size(), {});
+  for (std::size_t k = 0; k < g.columns.size(); ++k) {
+    const PlateColumn& c = g.columns[k];
+    const double tol = 1e-9 * std::max(m.x_grid.back(), m.y_grid.back());
+    for (std::size_t iy = 0; iy < m.rows(); ++iy)
+      for (std::size_t ix = 0; ix < m.columns(); ++ix) {
+        const double x = m.node_x[ix], y = m.node_y[iy];
+        if (x < c.x0_mm - tol || x > c.x1_mm + tol || y < c.y0_mm - tol || y > c.y1_mm + tol) continue;
+        const std::size_t nd = m.node(ix, iy);
+        m.column_nodes[k].push_back(nd);
+        for (std::size_t d = 0; d < dofs_per_node; ++d) held[dofs_per_node * nd + d] = follows;
+      }
+  }
   m.free_index.assign(held.size(), -1);
   m.free_count = 0;
-  for (std::size_t k = 0; k < held.size(); ++k)
+  for (std::size_t k = 0; k < held.size(); ++k) {
     if (!held[k]) m.free_index[k] = static_cast<long>(m.free_count++);
+    else if (held[k] == follows) m.free_index[k] = -2;
+  }
+  m.constraint.assign(held.size(), {});
+  for (std::size_t k = 0; k < g.columns.size(); ++k) {
+    const PlateColumn& c = g.columns[k];
+    const double xc = (c.x0_mm + c.x1_mm) / 2.0, yc = (c.y0_mm + c.y1_mm) / 2.0;
+    const long tx = static_cast<long>(m.free_count++), ty = static_cast<long>(m.free_count++);
+    for (std::size_t nd : m.column_nodes[k]) {
+      const double x = m.node_x[nd % m.columns()], y = m.node_y[nd / m.columns()];
+      const std::size_t base = dofs_per_node * nd;
+      m.constraint[base + dof_w] = {{tx, x - xc}, {ty, y - yc}};
+      m.constraint[base + dof_wx] = {{tx, 1.0}};
+      m.constraint[base + dof_wy] = {{ty, 1.0}};
+      // w,xy = 0: no unknown.
+    }
+  }
 }
 
 }  // namespace detail

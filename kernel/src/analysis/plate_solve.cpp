@@ -91,11 +91,24 @@ void factorise(PlateMesh& m) {
       const auto dofs = m.element_dofs(ex, ey);
       for (std::size_t r = 0; r < 16; ++r) {
         const long fr = m.free_index[dofs[r]];
-        if (fr < 0) continue;
-        for (std::size_t c = 0; c < 16; ++c) {
-          const long fc = m.free_index[dofs[c]];
-          if (fc < 0 || fc > fr) continue;
-          triplets.emplace_back(static_cast<int>(fr), static_cast<int>(fc), k[16 * r + c]);
+        if (fr >= 0) {  // the common case, without the constraint's indirection
+          for (std::size_t c = 0; c < 16; ++c) {
+            const long fc = m.free_index[dofs[c]];
+            if (fc >= 0) {
+              if (fc <= fr) triplets.emplace_back(static_cast<int>(fr), static_cast<int>(fc), k[16 * r + c]);
+            } else if (fc == -2) {
+              m.for_each_unknown(dofs[c], [&](long j, double cj) {
+                if (j <= fr) triplets.emplace_back(static_cast<int>(fr), static_cast<int>(j), cj * k[16 * r + c]);
+              });
+            }
+          }
+        } else if (fr == -2) {  // a column patch's dof: its rotations' rows
+          m.for_each_unknown(dofs[r], [&](long i, double ci) {
+            for (std::size_t c = 0; c < 16; ++c)
+              m.for_each_unknown(dofs[c], [&](long j, double cj) {
+                if (j <= i) triplets.emplace_back(static_cast<int>(i), static_cast<int>(j), ci * cj * k[16 * r + c]);
+              });
+          });
         }
       }
     }
@@ -305,15 +318,16 @@ PlateField PlateModel::solve(const std::vector<PlateLoadCase>& cases) const {
                     const auto dofs = m.element_dofs(ex, ey);
                     for (std::size_t k = 0; k < 16; ++k) f[dofs[k]] += fe[k];
                   });
+    F.col(static_cast<Eigen::Index>(c)).setZero();
     for (std::size_t k = 0; k < solution->dofs; ++k)
-      if (m.free_index[k] >= 0) F(m.free_index[k], static_cast<Eigen::Index>(c)) = f[k];
+      m.for_each_unknown(k, [&](long i, double ci) { F(i, static_cast<Eigen::Index>(c)) += ci * f[k]; });
   }
   if (!cases.empty()) {
     const Eigen::MatrixXd U = m.factor.solve(F);
     for (std::size_t c = 0; c < cases.size(); ++c) {
       double* u = solution->u.data() + c * solution->dofs;
       for (std::size_t k = 0; k < solution->dofs; ++k)
-        if (m.free_index[k] >= 0) u[k] = U(m.free_index[k], static_cast<Eigen::Index>(c));
+        m.for_each_unknown(k, [&](long i, double ci) { u[k] += ci * U(i, static_cast<Eigen::Index>(c)); });
     }
   }
   return PlateField(mesh_, std::move(solution));
@@ -860,6 +874,19 @@ std::vector<PointReaction> PlateField::corner_forces(std::size_t c) const {
 // w = 1, w = x, w = y (whose dofs are (1, 0, 0, 0), (x, 1, 0, 0) and
 // (y, 0, 1, 0) at each node): by virtual work these equal the load's
 // resultant, whatever the mesh.
+std::vector<double> PlateField::column_reactions(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  const auto R = held_reactions(m, *solution_, c);
+  std::vector<double> out;
+  for (const auto& nodes : m.column_nodes) {
+    double F = 0.0;
+    for (std::size_t nd : nodes) F += R[detail::dofs_per_node * nd + detail::dof_w];
+    out.push_back(F);
+  }
+  return out;
+}
+
 ForceResultant PlateField::reaction_resultant(std::size_t c) const {
   check_case_index(c, solution_->cases);
   const auto& m = *mesh_;

@@ -1,0 +1,131 @@
+// A plate on columns (armature/plate.hpp, PlateGeometry::columns): the
+// first step of flat slabs. Sources, beside each check:
+//   - Statics: the reactions equal the load; on a section across the whole
+//     width the integrated moment is the beam moment of the free body, so
+//     between the faces of an interior bay of a floor symmetric about the
+//     bay's centre line, M_mid + (|M_left| + |M_right|)/2 = q Y ln²/8: the
+//     total static moment of ACI 318-19 8.10.3.2 (Mo = qu l2 ln²/8, value
+//     from memory) for the whole width Y.
+//   - Symmetry of a symmetric floor.
+// Our scenario: the workshop's upper floor on columns, 3 × 3 bays of
+// 6.0 × 5.5 m, 250 mm slab, 400 mm square columns at every grid point
+// (those on the edges clipped to the slab), E = 30 000 MPa, ν = 0.2.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <vector>
+
+#include "armature/plate.hpp"
+
+using namespace armature;
+
+namespace {
+
+constexpr double column = 400.0, q = 0.012;  // mm; MPa (12 kPa)
+
+PlateGeometry floor_on_columns(int mesh) {
+  PlateGeometry g;
+  g.x_spans_mm = {6000, 6000, 6000};
+  g.y_spans_mm = {5500, 5500, 5500};
+  g.edges = {EndSupport::free, EndSupport::free, EndSupport::free, EndSupport::free};
+  g.interior_lines_supported = false;
+  g.thickness_mm = 250;
+  g.elastic_modulus_MPa = 30000;
+  g.poisson_ratio = 0.2;
+  g.mesh_per_bay = mesh;
+  const double X = 18000, Y = 16500;
+  for (double y : {0.0, 5500.0, 11000.0, 16500.0})
+    for (double x : {0.0, 6000.0, 12000.0, 18000.0})
+      g.columns.push_back({std::max(0.0, x - column / 2), std::min(X, x + column / 2), std::max(0.0, y - column / 2),
+                           std::min(Y, y + column / 2)});
+  return g;
+}
+
+PlateLoadCase uniform() {
+  PlateLoadCase lc;
+  lc.bay_pressures_MPa.assign(9, q);
+  return lc;
+}
+
+// ∫ mx dy over the whole width at x (Gauss points in each element along y),
+// the moment taken just on the side `side` (+1: larger x) of the section.
+double width_moment(const PlateModel& model, const PlateField& field, double x, double side) {
+  const auto& ys = model.node_y_mm();
+  const double g[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, w[3] = {5.0 / 9.0, 8.0 / 9.0, 5.0 / 9.0};
+  double sum = 0.0;
+  for (std::size_t k = 0; k + 1 < ys.size(); ++k) {
+    const double mid = (ys[k] + ys[k + 1]) / 2, half = (ys[k + 1] - ys[k]) / 2;
+    for (int p = 0; p < 3; ++p) sum += w[p] * half * field.moments_at(0, x + side * 1e-3, mid + g[p] * half).mx;
+  }
+  return sum;
+}
+
+}  // namespace
+
+TEST_CASE("Plate on columns: the column reactions carry the load, symmetrically", "[plate][flat]") {
+  const PlateModel model(floor_on_columns(8));
+  const auto field = model.solve({uniform()});
+  const auto R = field.column_reactions(0);
+  REQUIRE(R.size() == 16);
+  double total = 0.0;
+  for (double r : R) total += r;
+  // Statics: Σ R = q X Y.
+  CHECK(total == Approx(q * 18000.0 * 16500.0).epsilon(1e-9));
+  CHECK(field.reaction_resultant(0).force_N == Approx(total).epsilon(1e-9));
+  // Symmetry: the four interior columns alike, the four corners alike.
+  CHECK(R[5] == Approx(R[6]).epsilon(1e-6));
+  CHECK(R[5] == Approx(R[9]).epsilon(1e-6));
+  CHECK(R[5] == Approx(R[10]).epsilon(1e-6));
+  CHECK(R[0] == Approx(R[3]).epsilon(1e-6));
+  CHECK(R[0] == Approx(R[15]).epsilon(1e-6));
+  // An interior column takes more than its tributary area's load (q × 6.0
+  // × 5.5 m): the first interior columns of a continuous floor do
+  // (continuity), common practice; less than 1.5 times it.
+  CHECK(R[5] > q * 6000.0 * 5500.0);
+  CHECK(R[5] < 1.5 * q * 6000.0 * 5500.0);
+}
+
+TEST_CASE("Plate on columns: the middle bay's moments add up to the total static moment", "[plate][flat]") {
+  for (const int mesh : {8, 12}) {
+    const PlateModel model(floor_on_columns(mesh));
+    const auto field = model.solve({uniform()});
+    const double faceL = 6000.0 + column / 2, faceR = 12000.0 - column / 2, ln = faceR - faceL;
+    const double ML = width_moment(model, field, faceL, +1.0), MR = width_moment(model, field, faceR, -1.0);
+    const double Mmid = width_moment(model, field, 9000.0, +1.0);
+    INFO("mesh " << mesh << ": M_left " << ML * 1e-6 << " kNm, M_mid " << Mmid * 1e-6 << " kNm");
+    CHECK(ML < 0.0);
+    CHECK(Mmid > 0.0);
+    CHECK(ML == Approx(MR).epsilon(1e-6));  // symmetry
+    const double M0 = q * 16500.0 * ln * ln / 8.0;
+    CHECK(Mmid - (ML + MR) / 2.0 == Approx(M0).epsilon(0.02));
+  }
+}
+
+TEST_CASE("Plate on columns: bad columns and mechanisms are named", "[plate][flat]") {
+  PlateGeometry g = floor_on_columns(8);
+  g.columns.push_back({17000, 19000, 100, 300});  // off the slab
+  g.columns.push_back({500, 400, 100, 300});      // reversed
+  InputProblems p;
+  add_plate_problems(g, p);
+  bool off = false, reversed = false;
+  for (const auto& x : p.items()) {
+    off = off || (x.field == "slab.columns[16]" && x.message.find("on the slab") != std::string::npos);
+    reversed = reversed || (x.field == "slab.columns[17]" && x.message.find("positive") != std::string::npos);
+  }
+  CHECK(off);
+  CHECK(reversed);
+  // Two columns only: the slab turns about the line through them.
+  PlateGeometry two = floor_on_columns(8);
+  two.columns.resize(2);
+  InputProblems q2;
+  add_plate_problems(two, q2);
+  REQUIRE(q2.items().size() == 1);
+  CHECK(q2.items()[0].field == "slab.edges");
+  // A column on a wall edge is refused.
+  PlateGeometry wall = floor_on_columns(8);
+  wall.edges.y0 = EndSupport::pinned;
+  InputProblems q3;
+  add_plate_problems(wall, q3);
+  CHECK_FALSE(q3.items().empty());
+  CHECK(q3.items()[0].message.find("touches a supported line") != std::string::npos);
+}
