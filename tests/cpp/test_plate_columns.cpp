@@ -47,17 +47,9 @@ PlateLoadCase uniform() {
   return lc;
 }
 
-// ∫ mx dy over the whole width at x (Gauss points in each element along y),
-// the moment taken just on the side `side` (+1: larger x) of the section.
-double width_moment(const PlateModel& model, const PlateField& field, double x, double side) {
-  const auto& ys = model.node_y_mm();
-  const double g[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, w[3] = {5.0 / 9.0, 8.0 / 9.0, 5.0 / 9.0};
-  double sum = 0.0;
-  for (std::size_t k = 0; k + 1 < ys.size(); ++k) {
-    const double mid = (ys[k] + ys[k + 1]) / 2, half = (ys[k + 1] - ys[k]) / 2;
-    for (int p = 0; p < 3; ++p) sum += w[p] * half * field.moments_at(0, x + side * 1e-3, mid + g[p] * half).mx;
-  }
-  return sum;
+// ∫ mx dy over the whole width at x, read on the side `side` of the section.
+double width_moment(const PlateField& field, double x, int side) {
+  return field.section_moment(0, PlanAxis::x, x, 0.0, 16500.0, side);
 }
 
 }  // namespace
@@ -90,14 +82,24 @@ TEST_CASE("Plate on columns: the middle bay's moments add up to the total static
     const PlateModel model(floor_on_columns(mesh));
     const auto field = model.solve({uniform()});
     const double faceL = 6000.0 + column / 2, faceR = 12000.0 - column / 2, ln = faceR - faceL;
-    const double ML = width_moment(model, field, faceL, +1.0), MR = width_moment(model, field, faceR, -1.0);
-    const double Mmid = width_moment(model, field, 9000.0, +1.0);
+    const double ML = width_moment(field, faceL, +1), MR = width_moment(field, faceR, -1);
+    const double Mmid = width_moment(field, 9000.0, +1);
     INFO("mesh " << mesh << ": M_left " << ML * 1e-6 << " kNm, M_mid " << Mmid * 1e-6 << " kNm");
     CHECK(ML < 0.0);
     CHECK(Mmid > 0.0);
     CHECK(ML == Approx(MR).epsilon(1e-6));  // symmetry
     const double M0 = q * 16500.0 * ln * ln / 8.0;
     CHECK(Mmid - (ML + MR) / 2.0 == Approx(M0).epsilon(0.02));
+    // In y likewise, across the middle bay row (ln = 5.5 − 0.4 m, width X).
+    const double fy0 = 5500.0 + column / 2, fy1 = 11000.0 - column / 2, lny = fy1 - fy0;
+    const double My0 = field.section_moment(0, PlanAxis::y, fy0, 0.0, 18000.0, +1);
+    const double My1 = field.section_moment(0, PlanAxis::y, fy1, 0.0, 18000.0, -1);
+    const double Mymid = field.section_moment(0, PlanAxis::y, 8250.0, 0.0, 18000.0, +1);
+    CHECK(Mymid - (My0 + My1) / 2.0 == Approx(q * 18000.0 * lny * lny / 8.0).epsilon(0.02));
+    // Read inside the column (the rigid patch) the section would lose the
+    // hogging there: the side matters at a face.
+    CHECK(std::abs(field.section_moment(0, PlanAxis::x, faceL, 5300.0, 5700.0, -1)) <
+          0.01 * std::abs(field.section_moment(0, PlanAxis::x, faceL, 5300.0, 5700.0, +1)));
   }
 }
 

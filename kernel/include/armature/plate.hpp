@@ -307,6 +307,15 @@ class PlateField {
   // along lines, the reaction moments' contribution to the first moments),
   // the columns' included.
   ForceResultant reaction_resultant(std::size_t c) const;
+  // The moment resultant (N·mm) on a straight section of the plate: with
+  // `normal` x, mx integrated along y from from_mm to to_mm at x = at_mm;
+  // with `normal` y, my along x at y = at_mm. Read on one side of the
+  // section (side +1: just past it toward larger coordinates, −1: toward
+  // smaller), so that a section at a column's face reads the slab and not
+  // the column's rigid patch, and one across a kinked line reads the side
+  // it means. Three Gauss points per element along the section.
+  double section_moment(std::size_t c, PlanAxis normal, double at_mm, double from_mm, double to_mm,
+                        int side) const;
   // Per column (geometry order): its upward reaction (N), the sum of the
   // vertical forces the rigid patch over it takes from the plate.
   std::vector<double> column_reactions(std::size_t c) const;

@@ -874,6 +874,31 @@ std::vector<PointReaction> PlateField::corner_forces(std::size_t c) const {
 // w = 1, w = x, w = y (whose dofs are (1, 0, 0, 0), (x, 1, 0, 0) and
 // (y, 0, 1, 0) at each node): by virtual work these equal the load's
 // resultant, whatever the mesh.
+double PlateField::section_moment(std::size_t c, PlanAxis normal, double at_mm, double from_mm, double to_mm,
+                                  int side) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  if (!(to_mm >= from_mm) || !std::isfinite(at_mm) || (side != 1 && side != -1))
+    throw std::invalid_argument("plate section: an empty or reversed extent, or no side");
+  const bool across_x = normal == PlanAxis::x;  // the section runs along y
+  const std::vector<double>& along = across_x ? m.node_y : m.node_x;
+  const double extent = std::max(m.x_grid.back(), m.y_grid.back());
+  const double at = at_mm + side * 1e-6 * extent;  // past the mesh tolerance (1e-9 of the grid)
+  const double g[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, w[3] = {5.0 / 9.0, 8.0 / 9.0, 5.0 / 9.0};
+  double sum = 0.0;
+  for (std::size_t k = 0; k + 1 < along.size(); ++k) {
+    const double a = std::max(along[k], from_mm), b = std::min(along[k + 1], to_mm);
+    if (!(b > a)) continue;
+    const double mid = (a + b) / 2.0, half = (b - a) / 2.0;
+    for (int p = 0; p < 3; ++p) {
+      const double s_ = mid + g[p] * half;
+      const PlateMoments mm = across_x ? moments_at(c, at, s_) : moments_at(c, s_, at);
+      sum += w[p] * half * (across_x ? mm.mx : mm.my);
+    }
+  }
+  return sum;
+}
+
 std::vector<double> PlateField::column_reactions(std::size_t c) const {
   check_case_index(c, solution_->cases);
   const auto& m = *mesh_;
