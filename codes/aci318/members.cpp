@@ -209,7 +209,9 @@ double Checker::pinned_end_fixity_fraction() const { return 0.0; }
 // width equal to the largest positive moment per unit width in the panel,
 // over one-fifth of the longer span from the corner each way (8.7.3.1.2);
 // bars in two layers parallel to the sides (8.7.3.1.3's alternative).
-CornerRule Checker::corner_rule() const { return {1.0, 0.2, true, "ACI 318-19 8.7.3.1"}; }
+// Every exterior corner of two supported edges: the clause reads "slabs
+// supported by edge walls", whatever the walls' restraint.
+CornerRule Checker::corner_rule() const { return {1.0, 0.2, true, "ACI 318-19 8.7.3.1", true}; }
 
 // 7.4.1.3 (from memory): for slabs built integrally with supports, Mu at
 // the support may be taken at the face of support. A support given a

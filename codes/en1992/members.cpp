@@ -318,7 +318,30 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
       later.Mcr < total.Mcr ? span_deflection(qp, [&](double M) { return later.curvature(M); }, integration_tolerance,
                                               {later.Mcr, -later.Mcr})
                             : w;
-  const double increment = w_later.max_mm - w_p.max_mm;
+  // The increment at every point of the long-term state (w(t_p) linearly
+  // between its own points), its largest: never less than the difference
+  // of the two largest deflections.
+  double increment = 0.0, x_increment = 0.0;
+  {
+    const auto& early_pts = w_p.points;
+    for (const auto& pt : w_later.points) {
+      const auto it = std::lower_bound(early_pts.begin(), early_pts.end(), pt.x_mm,
+                                       [](const DeflectionPoint& a, double x) { return a.x_mm < x; });
+      double w_early = 0.0;
+      if (it == early_pts.begin()) w_early = it->deflection_mm;
+      else if (it == early_pts.end()) w_early = early_pts.back().deflection_mm;
+      else {
+        const auto& hi = *it;
+        const auto& lo = *(it - 1);
+        const double t = hi.x_mm > lo.x_mm ? (pt.x_mm - lo.x_mm) / (hi.x_mm - lo.x_mm) : 1.0;
+        w_early = lo.deflection_mm + t * (hi.deflection_mm - lo.deflection_mm);
+      }
+      if (pt.deflection_mm - w_early > increment) {
+        increment = pt.deflection_mm - w_early;
+        x_increment = pt.x_mm;
+      }
+    }
+  }
   const double limit_p = g.span_mm / partitions_deflection_span_ratio;
   checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(5) (span/500 after the partitions)", increment,
              limit_p, "mm", [&] {
@@ -348,8 +371,10 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
                             " kNm)", "", w_later.max_mm, "mm", "EN 1992-1-1 7.4.3(3), (7)");
                else
                  st.add("δ(∞)", "long-term total", "", w.max_mm, "mm", "EN 1992-1-1 7.4.3(7)");
-               st.add("Δδ", "δ(∞) − δ(t_p), largest deflections of the two states",
-                      num(w_later.max_mm) + " − " + num(w_p.max_mm), increment, "mm", "EN 1992-1-1 7.4.1(5)");
+               st.add("Δδ", "largest δ(∞) − δ(t_p) along the span",
+                      "at " + num(x_increment * 1e-3) + " m (largest δ(∞) " + num(w_later.max_mm) + ", δ(t_p) " +
+                          num(w_p.max_mm) + ")",
+                      increment, "mm", "EN 1992-1-1 7.4.1(5)");
                st.add("δ_lim", "span/500", num(g.span_mm) + "/500", limit_p, "mm", "EN 1992-1-1 7.4.1(5)");
                return st.take();
              });

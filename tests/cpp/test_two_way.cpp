@@ -571,3 +571,60 @@ TEST_CASE("Two-way: U-bars along a free edge by EN 9.3.1.4") {
   CHECK(a.plate->free_edges.empty());
   CHECK(format_summary(a).find("no reinforcement rule of its own for a free edge") != std::string::npos);
 }
+
+// The corner zones take nothing from the bays' and lines' own regions that
+// their bars would not cover: an interior line keeps the peak of its whole
+// segment (its bars cross into the next bay, the corner bars stop at the
+// line), the nodes on a zone's inner boundary stay in the bay, and the
+// rules that read the largest moment of the panel (EN 9.3.1.2(2) at a
+// pinned edge: 0.25 of it; ACI 8.7.3.1 at a corner: all of it) read it over
+// the whole bay. A point load near a corner makes the corner twist and the
+// sagging there the largest of the bay.
+TEST_CASE("Two-way: corner zones with a point load near a corner keep every peak covered") {
+  auto peak = [](const DesignRecord& r, const std::vector<double>& f, double x0, double x1, double y0, double y1) {
+    const auto& p = r.plate->field;
+    double best = 0.0;
+    for (std::size_t j = 0; j < p.y_mm.size(); ++j)
+      for (std::size_t i = 0; i < p.x_mm.size(); ++i)
+        if (p.x_mm[i] >= x0 - 1e-6 && p.x_mm[i] <= x1 + 1e-6 && p.y_mm[j] >= y0 - 1e-6 && p.y_mm[j] <= y1 + 1e-6)
+          best = std::max(best, f[i + p.x_mm.size() * j]);
+    return best * 1000.0;  // N·mm/mm → per metre
+  };
+  json req = two_way_request("EN1992-1-1", "UK", {1.0, 6.0, 6.0}, {6.0, 6.0});
+  req["loads"]["actions"] = {
+      {{"name", "plant"}, {"kind", "imposed"}, {"category", "E"}, {"point_kN", 100.0}, {"x_m", 1.4}, {"y_m", 0.8}}};
+  const DesignRecord r = design(registry(), req);
+  REQUIRE(r.plate);
+  const auto& f = r.plate->field;
+  // grid x1 (x = 1.0 m), segment 1 (y from 0 to 6 m): the whole segment's top_x.
+  CHECK(region(r, "grid x1 segment 1", BarDirection::x).M_Ed ==
+        Approx(peak(r, f.top_x, 1000.0, 1000.0, 0.0, 6000.0)).epsilon(1e-9));
+
+  json one = two_way_request("EN1992-1-1", "UK", {6.0}, {6.0});
+  one["loads"]["actions"] = {
+      {{"name", "plant"}, {"kind", "imposed"}, {"category", "E"}, {"point_kN", 100.0}, {"x_m", 0.6}, {"y_m", 0.6}}};
+  const DesignRecord e = design(registry(), one);
+  REQUIRE(e.plate);
+  const auto& c = e.plate->corners.front();  // corner x0 y0: 1.2 m each way
+  REQUIRE(c.x1_mm == Approx(1200.0));
+  // The bay's bottom x: at least every node outside the zone or on its inner boundary.
+  const double outside = std::max(peak(e, e.plate->field.bottom_x, 1200.0, 6000.0, 0.0, 6000.0),
+                                  peak(e, e.plate->field.bottom_x, 0.0, 6000.0, 1200.0, 6000.0));
+  CHECK(region(e, "bay 1,1", BarDirection::x).M_Ed >= outside * (1.0 - 1e-9));
+  // EN 9.3.1.2(2): the pinned edge's top at least 0.25 of the bay's largest sagging (whole bay).
+  const double whole = std::max(peak(e, e.plate->field.bottom_x, 0, 6000, 0, 6000),
+                                peak(e, e.plate->field.bottom_y, 0, 6000, 0, 6000));
+  CHECK(region(e, "edge x0 segment 1", BarDirection::x).M_Ed >= 0.25 * peak(e, e.plate->field.bottom_x, 0, 6000, 0, 6000) * (1.0 - 1e-9));
+  // ACI 8.7.3.1: every corner's bars at least the panel's largest positive moment, whole bay.
+  json aci = one;
+  aci["code"] = "ACI318-19";
+  aci["variant"] = "SI";
+  aci["concrete"] = {{"cylinder_strength_MPa", 28}};
+  const DesignRecord a = design(registry(), aci);
+  REQUIRE(a.plate);
+  const double panel = std::max(peak(a, a.plate->field.bottom_x, 0, 6000, 0, 6000),
+                                peak(a, a.plate->field.bottom_y, 0, 6000, 0, 6000));
+  for (const auto& g : a.regions)
+    if (is_plate_corner_name(g.where)) CHECK(g.M_Ed >= panel * (1.0 - 1e-9));
+  CHECK(whole > 0.0);
+}

@@ -268,7 +268,8 @@ class SectionRules {
 };
 
 // Two-way slabs: reinforcement at an outer corner of the slab where two
-// pinned (discontinuous, held down) edges meet, against the torsion there.
+// pinned (discontinuous, held down) edges meet, against the torsion there
+// (or any two supported edges, with fixed_edges_too).
 // The corner zone reaches `extent_of_longer_span` of the corner bay's
 // longer span from the corner along each edge (at most the bay). Its top
 // bars in x and y, and its bottom bars too where `bottom`, are designed
@@ -280,6 +281,7 @@ struct CornerRule {
   double extent_of_longer_span = 0.2;
   bool bottom = false;  // false: the bay's bottom bars, designed over the whole bay, serve
   std::string clause{};
+  bool fixed_edges_too = false;  // every exterior corner of two supported edges, fixed ones included
 };
 
 // Two-way slabs: the reinforcement along a free (unsupported) outer edge:

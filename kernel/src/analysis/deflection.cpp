@@ -56,7 +56,8 @@ std::vector<DeflectionPoint> break_points_of(const SpanForces& span, const Curva
       const double x1 = k == scan_per_piece ? b : a + (b - a) * k / scan_per_piece;
       const double m1 = span.moment_at(k == scan_per_piece ? b - 1e-9 * (b - a) : x1);
       for (double level : breaks) {
-        if (!((m0 - level) * (m1 - level) < 0.0)) continue;
+        // A change of side (a crossing on a scan point counts in one cell).
+        if ((m0 < level) == (m1 < level)) continue;
         double lo = x0, hi = x1, m_lo = m0;
         for (int it = 0; it < 60 && hi - lo > 1e-9 * span.L; ++it) {
           const double mid = 0.5 * (lo + hi), m_mid = span.moment_at(mid);

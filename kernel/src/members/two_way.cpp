@@ -280,27 +280,39 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
     for (const bool far_y : {false, true})
       for (const bool far_x : {false, true}) {
         const EndSupport ex = far_x ? edges.x1 : edges.x0, ey = far_y ? edges.y1 : edges.y0;
-        if (ex != EndSupport::pinned || ey != EndSupport::pinned) continue;
+        const bool held = corner_rule.fixed_edges_too ? ex != EndSupport::free && ey != EndSupport::free
+                                                      : ex == EndSupport::pinned && ey == EndSupport::pinned;
+        if (!held) continue;
         const std::size_t i = far_x ? nx - 1 : 0, j = far_y ? ny - 1 : 0;
         const double lx = xg[i + 1] - xg[i], ly = yg[j + 1] - yg[j];
         const double reach = corner_rule.extent_of_longer_span * std::max(lx, ly);
+        // At most half of the bay's side, so that two corners of a narrow
+        // bay do not claim the same zone.
+        const bool single_x = nx == 1, single_y = ny == 1;
+        const double cap_x = single_x ? lx / 2.0 : lx, cap_y = single_y ? ly / 2.0 : ly;
         const double cx = far_x ? xg.back() : xg.front(), cy = far_y ? yg.back() : yg.front();
         PlateCornerRecord c;
         c.name = std::string("corner ") + (far_x ? "x1" : "x0") + " " + (far_y ? "y1" : "y0");
         c.bay = plate_bay_name(i, j);
-        c.x0_mm = far_x ? cx - std::min(reach, lx) : cx;
-        c.x1_mm = far_x ? cx : cx + std::min(reach, lx);
-        c.y0_mm = far_y ? cy - std::min(reach, ly) : cy;
-        c.y1_mm = far_y ? cy : cy + std::min(reach, ly);
+        c.x0_mm = far_x ? cx - std::min(reach, cap_x) : cx;
+        c.x1_mm = far_x ? cx : cx + std::min(reach, cap_x);
+        c.y0_mm = far_y ? cy - std::min(reach, cap_y) : cy;
+        c.y1_mm = far_y ? cy : cy + std::min(reach, cap_y);
         c.clause = corner_rule.clause;
         corners_.push_back(std::move(c));
         corner_bays.push_back({i, j});
       }
   }
+  // Strictly inside a zone: a node on the zone's inner boundary stays in
+  // the bay's and the line's regions (their bars cover it; the corner bars
+  // end there).
   auto in_corner = [&](std::size_t n) {
-    const double x = xs[n % row], y = ys[n / row], tol = 1e-6;
+    const double x = xs[n % row], y = ys[n / row];
     return std::any_of(corners_.begin(), corners_.end(), [&](const PlateCornerRecord& c) {
-      return x >= c.x0_mm - tol && x <= c.x1_mm + tol && y >= c.y0_mm - tol && y <= c.y1_mm + tol;
+      const double tol = 1e-6;
+      const bool inner_x = c.x0_mm <= xg.front() + tol ? x < c.x1_mm - tol : x > c.x0_mm + tol;
+      const bool inner_y = c.y0_mm <= yg.front() + tol ? y < c.y1_mm - tol : y > c.y0_mm + tol;
+      return inner_x && inner_y;
     });
   };
   auto peak_outside = [&](const std::vector<std::size_t>& ix, const std::vector<std::size_t>& iy,
@@ -332,13 +344,19 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
   };
 
   std::vector<RegionDemand> out;
-  std::vector<Peak> bay_x(nx * ny), bay_y(nx * ny);
+  // bay_x, bay_y: the bays' regions' peaks (outside the corner zones where
+  // the rule sets bottom corner bars); whole_x, whole_y: over the whole
+  // bay, for the rules that read "the largest moment in the span or panel"
+  // (the pinned edges' fraction, the ACI corner moment).
+  std::vector<Peak> bay_x(nx * ny), bay_y(nx * ny), whole_x(nx * ny), whole_y(nx * ny);
   for (std::size_t j = 0; j < ny; ++j)
     for (std::size_t i = 0; i < nx; ++i) {
       const auto ix = nodes_within(xs, xg[i], xg[i + 1]), iy = nodes_within(ys, yg[j], yg[j + 1]);
       const std::string name = plate_bay_name(i, j);
-      bay_x[i + nx * j] = bottom_corners ? peak_outside(ix, iy, field_.bottom_x) : peak_over(ix, iy, field_.bottom_x);
-      bay_y[i + nx * j] = bottom_corners ? peak_outside(ix, iy, field_.bottom_y) : peak_over(ix, iy, field_.bottom_y);
+      whole_x[i + nx * j] = peak_over(ix, iy, field_.bottom_x);
+      whole_y[i + nx * j] = peak_over(ix, iy, field_.bottom_y);
+      bay_x[i + nx * j] = bottom_corners ? peak_outside(ix, iy, field_.bottom_x) : whole_x[i + nx * j];
+      bay_y[i + nx * j] = bottom_corners ? peak_outside(ix, iy, field_.bottom_y) : whole_y[i + nx * j];
       out.push_back(demand(name, Face::bottom, BarDirection::x, bay_x[i + nx * j], &WoodArmerMoments::bottom_x));
       out.push_back(demand(name, Face::bottom, BarDirection::y, bay_y[i + nx * j], &WoodArmerMoments::bottom_y));
       for (const BarDirection d : {BarDirection::x, BarDirection::y})
@@ -400,7 +418,12 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
       const auto along = nodes_within(along_y ? ys : xs, rec.from_mm, rec.to_mm);
       const std::vector<std::size_t> fixed{at};
       const auto& values = along_y ? field_.top_x : field_.top_y;
-      Peak p = along_y ? peak_outside(fixed, along, values) : peak_outside(along, fixed, values);
+      // An outer pinned edge's segment leaves the corner zones to the corner
+      // bars; an interior line or a fixed edge keeps its whole segment
+      // (its bars cross into the next bay, or hold a built-in edge).
+      const bool leave_corners = !line.interior && line.support == EndSupport::pinned;
+      Peak p = leave_corners ? (along_y ? peak_outside(fixed, along, values) : peak_outside(along, fixed, values))
+                             : (along_y ? peak_over(fixed, along, values) : peak_over(along, fixed, values));
       const auto which = along_y ? &WoodArmerMoments::top_x : &WoodArmerMoments::top_y;
       RegionDemand g = demand(rec.name, Face::top, along_y ? BarDirection::x : BarDirection::y, p, which);
       // Shear at the line: its largest reaction per metre, all of it on
@@ -419,7 +442,7 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
         // bay's bottom moment across the edge, where that is larger.
         const std::size_t i = along_y ? (line.grid == 0 ? 0 : nx - 1) : s;
         const std::size_t j = along_y ? s : (line.grid == 0 ? 0 : ny - 1);
-        const Peak& bay = along_y ? bay_x[i + nx * j] : bay_y[i + nx * j];
+        const Peak& bay = along_y ? whole_x[i + nx * j] : whole_y[i + nx * j];
         const double M_fixity = pinned_edge_fraction * std::max(bay.value, 0.0) * per_metre;
         if (M_fixity > g.M_Ed) {
           g.M_Ed = M_fixity;
@@ -436,8 +459,8 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
     const PlateCornerRecord& c = corners_[k];
     const auto [i, j] = corner_bays[k];
     const auto ix = nodes_within(xs, c.x0_mm, c.x1_mm), iy = nodes_within(ys, c.y0_mm, c.y1_mm);
-    const Peak& px = bay_x[i + nx * j];
-    const Peak& py = bay_y[i + nx * j];
+    const Peak& px = whole_x[i + nx * j];
+    const Peak& py = whole_y[i + nx * j];
     const Peak& panel = px.value >= py.value ? px : py;
     const auto panel_which = px.value >= py.value ? &WoodArmerMoments::bottom_x : &WoodArmerMoments::bottom_y;
     const double M_panel = corner_rule.panel_moment_fraction * std::max(panel.value, 0.0) * per_metre;
