@@ -72,6 +72,7 @@ class Checker final : public SlabChecker,
   double support_design_moment(const RegionDemand& g) const override;
   double pinned_end_fixity_fraction() const override;
   CornerRule corner_rule() const override;
+  std::optional<SpanDeflection> deflection_diagram(const Section& sec, const RegionDemand& g) const override;
 
   // punching.cpp (PunchingRules: ACI 318-19 22.6, 8.4.4.2)
   double steel_ratio_width_mm(const PunchingDemand&, bool) const override { return 0.0; }

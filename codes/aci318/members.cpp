@@ -199,6 +199,50 @@ void Checker::calculated_deflection_check(CheckCollector& span, const Section& s
            });
 }
 
+// For the record: the long-term deflection of 24.2.4.1 along the span,
+// λΔ Δ(D)(x) + (Δ(D + L)(x) − Δ(D)(x)), and the curvature whose double
+// integral it is, λΔ M_D/(Ec Ie,D) + M_D+L/(Ec Ie,D+L) − M_D/(Ec Ie,D), each
+// load level with its own Ie as the check takes it; both levels on the
+// same segments (the finer of their converged integrations).
+std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, const RegionDemand& g) const {
+  if (!req_.serviceability.calculated_deflection() || !g.long_term_span || g.span_kind == SpanKind::cantilever ||
+      g.direction != BarDirection::span)
+    return std::nullopt;
+  const SectionLayer& layer = sec.outer_layer(Face::bottom);
+  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
+  const double Ec = concrete_modulus(), n = reinforcement_modulus() / Ec;
+  const double Ig = gross_moment_of_inertia(b, h);
+  const double Mcr = cracking_moment(rupture_modulus(), Ig, h / 2.0);
+  const double Icr = cracked_section(b, As, d, n).Icr;
+  const SpanForces& sustained = *g.long_term_span;
+  const SpanForces& service = g.service_span ? *g.service_span : sustained;
+  auto EI_of = [&](const SpanForces& f) {
+    return Ec * effective_moment_of_inertia(std::max(f.max_moment(), 0.0), Mcr, Ig, Icr);
+  };
+  const double EI_sus = EI_of(sustained), EI_all = EI_of(service);
+  const auto k_sus = [EI_sus](double M) { return M / EI_sus; };
+  const auto k_all = [EI_all](double M) { return M / EI_all; };
+  const std::size_t segments =
+      std::max(span_deflection(sustained, k_sus).segments, span_deflection(service, k_all).segments);
+  SpanDeflection sus = span_deflection_fixed(sustained, k_sus, segments);
+  const SpanDeflection all = span_deflection_fixed(service, k_all, segments);
+  const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
+  SpanDeflection out = sus;
+  out.max_mm = 0.0;
+  for (std::size_t i = 0; i < out.points.size() && i < all.points.size(); ++i) {
+    DeflectionPoint& p = out.points[i];
+    const DeflectionPoint &s_ = sus.points[i], &a = all.points[i];
+    p.moment = a.moment;
+    p.curvature = lambda_delta * s_.curvature + a.curvature - s_.curvature;
+    p.deflection_mm = lambda_delta * s_.deflection_mm + a.deflection_mm - s_.deflection_mm;
+    if (i == 0 || p.deflection_mm > out.max_mm) {
+      out.max_mm = p.deflection_mm;
+      out.x_at_mm = p.x_mm;
+    }
+  }
+  return out;
+}
+
 std::vector<Check> Checker::span_checks(const std::string&) const { return {}; }
 
 // Top steel at pinned ends: none asked for.

@@ -352,3 +352,21 @@ def test_html_record_draws_the_curvature_and_deflection(tmp_path):
     plain["serviceability"] = {"deflection": "span_depth"}
     armature.report(armature.design(plain), str(tmp_path / "plain.html"))
     assert "long-term curvature" not in (tmp_path / "plain.html").read_text(encoding="utf-8")
+
+
+def test_aci_record_draws_the_long_term_deflection(tmp_path):
+    """ACI's record draws the long-term deflection of 24.2.4.1 along the
+    span, λΔ Δ(D) + (Δ(D + L) − Δ(D)); on a simple span the largest is at
+    midspan, where it equals the hand evaluation of the check (5 q L⁴ /
+    (384 Ec Ie) per load level, as above)."""
+    import re
+    res = armature.design(copy.deepcopy(LIBRARY))
+    out = tmp_path / "library.html"
+    armature.report(res, str(out))
+    text = out.read_text(encoding="utf-8")
+    assert 'aria-label="long-term curvature"' in text and 'aria-label="long-term deflection"' in text
+    [_, after] = deflection_checks(res, "span 1")
+    svg = text[text.index('aria-label="long-term deflection"'):]
+    svg = svg[:svg.index("</svg>")]
+    printed = [float(v) for v in re.findall(r">([0-9.]+)</text>", svg)]
+    assert any(v == pytest.approx(after["demand"], rel=0.005) for v in printed), (printed, after["demand"])
