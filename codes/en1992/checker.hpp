@@ -199,6 +199,7 @@ class Checker final : public SlabChecker,
   void deflection_check(CheckCollector& checks, const RegionDemand& g, double d, double As_req,
                         double As_prov) const;
   void calculated_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const;
+  void cantilever_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const;
 
   const Ndp& ndp_;       // of the Code, which outlives this checker
   const En1990Factors& en1990_;  // of the Code, likewise

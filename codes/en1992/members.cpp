@@ -131,7 +131,8 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
   if (!g.span_where.empty()) {
     CheckCollector span(out.span_checks, out.verdict, detail);
     const auto& sv = req_.serviceability;
-    const bool calculated = sv.calculated_deflection() && g.long_term_span && g.span_kind != SpanKind::cantilever;
+    const bool calculated = sv.calculated_deflection() && g.long_term_span &&
+                            (g.span_kind != SpanKind::cantilever || g.back_span.has_value());
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection",
@@ -141,7 +142,10 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     }
     if (calculated && !span.verdict_settled()) {
       const std::size_t before = out.span_checks.size();
-      run_check("deflection", [&] { calculated_deflection_check(span, sec, g); });
+      run_check("deflection", [&] {
+        if (g.span_kind == SpanKind::cantilever) cantilever_deflection_check(span, sec, g);
+        else calculated_deflection_check(span, sec, g);
+      });
       for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "calculated";
     }
   }
@@ -376,6 +380,83 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
                           num(w_p.max_mm) + ")",
                       increment, "mm", "EN 1992-1-1 7.4.1(5)");
                st.add("δ_lim", "span/500", num(g.span_mm) + "/500", limit_p, "mm", "EN 1992-1-1 7.4.1(5)");
+               return st.take();
+             });
+}
+
+// A cantilever (7.4.3 as for spans): its curvature from its own top bars
+// (the section flipped: hogging as the tension face), ζ at every section
+// and the top steel's shrinkage curvature; integrated from its root, which
+// turns as the back span bends. The back span's bars are another region's:
+// its hogging parts take the cantilever's top bars (they run into it past
+// the hogging), its sagging parts the uncracked section with the top bars'
+// shrinkage curvature — the least sagging curvature there can be, so the
+// least the root turns back and the tip rises (on the safe side,
+// DEVELOPERS.md). Limits: the cantilever's length / 250 (7.4.1(4)); with
+// partitions the part after them / 500 (7.4.1(5)).
+void Checker::cantilever_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const {
+  const SectionLayer& layer = sec.outer_layer(Face::top);
+  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
+  const double Ecm = secant_modulus_MPa(m_.fck);
+  const CreepShrinkage& c = long_term_;
+  auto tip_of = [&](const LongTermSection& s, SpanDeflection* back_out) {
+    // Hogging magnitude m ≥ 0 as the flipped section's sagging.
+    const auto hog = [&s](double M) { return -s.curvature(-M); };
+    const auto back = [&s](double M) {
+      return M <= 0.0 ? -s.curvature(-M) : M / (s.Ec_eff * s.uncracked.I) - s.kcs_I;
+    };
+    const SpanDeflection bs = span_deflection(*g.back_span, back, integration_tolerance, {-s.Mcr});
+    const double root_slope = g.cantilever_root_at_start ? bs.slope_end : bs.slope_start;
+    if (back_out) *back_out = bs;
+    return cantilever_deflection(*g.long_term_span, hog, g.cantilever_root_at_start, root_slope,
+                                 integration_tolerance, {-s.Mcr});
+  };
+  const LongTermSection total = long_term_section(b, h, As, d, Ecm, m_.fctm, c.phi_inf, c.eps_cs_inf);
+  SpanDeflection back_total;
+  const SpanDeflection w = tip_of(total, &back_total);
+  const double limit = g.span_mm / total_deflection_span_ratio;
+  const double M_root = -std::min(g.long_term_span->M_left, g.long_term_span->M_right());
+  checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(4) (cantilever, length/250)", w.max_mm, limit, "mm",
+             [&] {
+               Steps st;
+               st.add("φ(∞,t0)", c.creep_given ? "given" : "Annex B (B.1)–(B.9)", "", c.phi_inf, "-",
+                      "EN 1992-1-1 3.1.4(2), Annex B");
+               st.add("εcs(∞)", c.shrinkage_given ? "given" : "3.1.4(6) (3.8)–(3.13)", "", c.eps_cs_inf * 1e6,
+                      "10⁻⁶", "EN 1992-1-1 3.1.4(6)");
+               st.add("Ec,eff", "Ecm/(1 + φ)", "", total.Ec_eff, "MPa", "EN 1992-1-1 7.4.3(5) (7.20)");
+               st.add("d", "the top bars' depth from the top face (the section flipped)", "", d, "mm",
+                      "EN 1992-1-1 7.4.3");
+               st.add("I_I", "uncracked transformed section, top bars", "", total.uncracked.I * 1e-6, "10⁶ mm⁴",
+                      "EN 1992-1-1 7.4.3");
+               st.add("I_II", "cracked: b x³/3 + αe As (d − x)²", "", total.cracked.I * 1e-6, "10⁶ mm⁴",
+                      "EN 1992-1-1 7.4.3");
+               st.add("Mcr", "fctm I_I/(h − x_I), tension at the top", "", total.Mcr * 1e-6, "kNm",
+                      "EN 1992-1-1 7.4.3(3)");
+               st.add("M_root", "quasi-permanent hogging at the root, all spans loaded", "", M_root * 1e-6, "kNm",
+                      "EN 1990 (6.16b)");
+               st.add("θ_root", "rotation of the back span at the root: its curvature integrated between its "
+                                "supports (hogging: these top bars; sagging: uncracked, on the safe side)",
+                      "", (g.cantilever_root_at_start ? back_total.slope_end : -back_total.slope_start) * 1e3,
+                      "mrad", "EN 1992-1-1 7.4.3(7)");
+               st.add("δ", "θ_root × length + double integration of 1/r from the root", "at the tip", w.max_mm,
+                      "mm", "EN 1992-1-1 7.4.3(7)");
+               st.add("δ_lim", "length/250", num(g.span_mm) + "/250", limit, "mm", "EN 1992-1-1 7.4.1(4)");
+               return st.take();
+             });
+  if (!req_.serviceability.partitions || checks.verdict_settled()) return;
+  LongTermSection early = long_term_section(b, h, As, d, Ecm, m_.fctm, c.phi_p, c.eps_cs_p);
+  LongTermSection later = total;
+  later.Mcr = std::min(total.Mcr, early.Mcr);  // cracks open at t_p stay open
+  const double increment = std::max(tip_of(later, nullptr).max_mm - tip_of(early, nullptr).max_mm, 0.0);
+  checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(5) (cantilever, length/500 after the partitions)",
+             increment, g.span_mm / partitions_deflection_span_ratio, "mm", [&] {
+               Steps st;
+               st.add("φ(t_p,t0)", "φ(∞,t0) βc(t_p,t0)", "", c.phi_p, "-", "EN 1992-1-1 Annex B (B.1), (B.7)");
+               st.add("εcs(t_p)", "3.1.4(6) at t_p", "", c.eps_cs_p * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6)");
+               st.add("Δδ", "tip deflection at ∞ (cracked where cracked at t_p) less that at t_p", "", increment, "mm",
+                      "EN 1992-1-1 7.4.1(5)");
+               st.add("δ_lim", "length/500", num(g.span_mm) + "/500", g.span_mm / partitions_deflection_span_ratio,
+                      "mm", "EN 1992-1-1 7.4.1(5)");
                return st.take();
              });
 }

@@ -106,9 +106,8 @@ std::string format_range(double lo, double hi, const char* unit) {
   return "must be between " + num(lo) + " and " + num(hi) + " " + unit;
 }
 
-// The calculated deflection's inputs against the strip: built for spans
-// between supports (a cantilever's needs its back span's root rotation,
-// not built), the partitions after the loading. Creep, shrinkage and
+// The calculated deflection's inputs against the strip: a cantilever needs
+// a back span (its root turns with it), the partitions after the loading. Creep, shrinkage and
 // humidity ranges are the request reader's.
 void add_deflection_input_problems(const Request& req, InputProblems& problems) {
   const auto& s = req.serviceability;
@@ -127,11 +126,12 @@ void add_deflection_input_problems(const Request& req, InputProblems& problems) 
                      "\"both\", or leave the field out");
     return;
   }
-  for (std::size_t k = 0; k < 2; ++k)
-    if (req.slab.ends[k] == EndSupport::free)
-      problems.add("serviceability.deflection",
-                   "the calculated deflection is built for spans between supports; slab.ends[" + std::to_string(k) +
-                       "] is free (a cantilever), whose deflection is not calculated yet: give \"span_depth\"");
+  if (req.slab.spans_mm.size() < 2)
+    for (std::size_t k = 0; k < 2; ++k)
+      if (req.slab.ends[k] == EndSupport::free)
+        problems.add("serviceability.deflection",
+                     "a cantilever's calculated deflection starts from its back span's rotation; slab.ends[" +
+                         std::to_string(k) + "] is free on a strip of one span: give \"span_depth\"");
   const double t0 = s.age_at_loading_days.value_or(default_age_at_loading_days);
   const double tp = s.partitions_age_days.value_or(default_partitions_age_days);
   if (s.partitions && tp <= t0)

@@ -238,10 +238,11 @@ def test_bad_input_is_named(change, field, words):
 
 
 def test_refused_where_not_built():
-    """A cantilever (its root rotation from the back span is not built),
-    for either code, and the creep inputs without a calculated deflection."""
+    """A cantilever with no back span (EN: its root turns with the back
+    span), any cantilever for ACI (not built), and the creep inputs without
+    a calculated deflection."""
     req = copy.deepcopy(HALL)
-    req["slab"]["ends"] = ["pinned", "free"]
+    req["slab"] = {"spans_m": [1.5], "ends": ["fixed", "free"], "thickness_mm": 200}
     with pytest.raises(armature.InputError) as e:
         armature.design(req)
     assert "serviceability.deflection: " in str(e.value) and "cantilever" in str(e.value)
@@ -370,3 +371,46 @@ def test_aci_record_draws_the_long_term_deflection(tmp_path):
     svg = svg[:svg.index("</svg>")]
     printed = [float(v) for v in re.findall(r">([0-9.]+)</text>", svg)]
     assert any(v == pytest.approx(after["demand"], rel=0.005) for v in printed), (printed, after["demand"])
+
+
+def test_uncracked_cantilever_is_the_closed_form_with_its_root_rotation():
+    """A cantilever beyond a simply supported back span, every section
+    uncracked (moments well below Mcr), no shrinkage: one EI = Ec,eff I_I
+    (7.20; the top bars' uncracked transformed section) along the strip,
+    and the tip deflection is q Lc⁴/(8 EI) plus the root rotation × Lc,
+    the rotation of the back span's end under its load and the root
+    moment q Lc²/2: −q Lb³/(24 EI) + (q Lc²/2) Lb/(3 EI) (beam tables,
+    value from memory)."""
+    req = copy.deepcopy(OFFICE)
+    req["slab"] = {"spans_m": [3.0, 1.8], "ends": ["pinned", "free"], "thickness_mm": 200}
+    res = armature.design(req)
+    g = region(res, "support 2")
+    As, d = g["bars"]["As_prov_mm2"], g["effective_depth_mm"]
+    q = res["loads"]["sls_quasi_permanent_kPa"]  # N/mm on the 1 m strip
+    Ec_eff = ECM / (1.0 + 2.0)
+    EI = Ec_eff * uncracked_I(1000.0, 200.0, As, d, ES / Ec_eff)
+    Lb, Lc = 3000.0, 1800.0
+    theta = -q * Lb**3 / (24 * EI) + (q * Lc**2 / 2) * Lb / (3 * EI)
+    tip = q * Lc**4 / (8 * EI) + theta * Lc
+    [check] = deflection_checks(res, "span 2")
+    assert "7.4.1(4)" in check["clause"] and "cantilever" in check["clause"]
+    assert check["demand"] == pytest.approx(tip, rel=0.005)
+    assert tip > 0.0 and check["capacity"] == pytest.approx(Lc / 250)
+    # Mirrored: the cantilever at the left end gives the same tip deflection.
+    req["slab"] = {"spans_m": [1.8, 3.0], "ends": ["free", "pinned"], "thickness_mm": 200}
+    [left] = deflection_checks(armature.design(req), "span 1")
+    assert left["demand"] == pytest.approx(check["demand"], rel=1e-6)
+
+
+def test_cantilever_tip_grows_with_cracking_and_partitions_part_is_positive():
+    """A loaded balcony: the cracked cantilever deflects more than its
+    uncracked estimate, and the part after the partitions is positive and
+    smaller than the total (common practice: 7.4.3 applied to a load
+    history)."""
+    req = copy.deepcopy(HALL)
+    req["slab"] = {"spans_m": [4.5, 1.8], "ends": ["pinned", "free"], "thickness_mm": 200}
+    req["loads"]["actions"].append({"name": "planters", "kind": "permanent", "kPa": 3.0, "span": 2})
+    res = armature.design(req)
+    total, after = deflection_checks(res, "span 2")
+    assert 0.0 < after["demand"] < total["demand"]
+    assert after["capacity"] == pytest.approx(1800 / 500)

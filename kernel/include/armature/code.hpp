@@ -145,6 +145,12 @@ struct RegionDemand {
   std::optional<SpanForces> long_term_span{};
   // The same under the code's service load (characteristic: ACI D + L).
   std::optional<SpanForces> service_span{};
+  // A cantilever's root support region (span_kind cantilever): long_term_span
+  // is the cantilever's, back_span the span behind its root under the same
+  // load, and whether the root is at the cantilever's x = 0 (a cantilever
+  // beyond the strip's right end) or at its x = L.
+  std::optional<SpanForces> back_span{};
+  bool cantilever_root_at_start = true;
   // Two-way slabs: the direction the region's bars run (span: a strip),
   // the plan position's y (x in x_mm), and the bar of the face's outer
   // layer when these bars lie on it (0: these bars are the outer layer),

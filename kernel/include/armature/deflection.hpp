@@ -24,6 +24,9 @@ struct SpanDeflection {
   std::size_t segments = 0;    // equal segments of the converged integration (break points besides)
   double change = 0.0;         // relative change of max_mm from half as many segments
   std::vector<DeflectionPoint> points;  // at every segment end of the converged integration
+  // Between supports: dw/dx (downward positive, per mm along x) at x = 0
+  // and at x = L, the rotations a cantilever beyond either end starts from.
+  double slope_start = 0.0, slope_end = 0.0;
 };
 
 // Curvature (1/mm, sagging positive) of the span's section under a moment
@@ -41,6 +44,17 @@ using CurvatureOfMoment = std::function<double(double)>;
 // integrated exactly and the rule converges as for a smooth curvature.
 SpanDeflection span_deflection(const SpanForces& span, const CurvatureOfMoment& curvature,
                                double tolerance = 0.005, const std::vector<double>& moment_breaks = {});
+
+// A cantilever: zero deflection at its root and the slope there given
+// (`root_slope`: dw/dx at the root along the strip's x, downward positive,
+// from the back span's slope_start or slope_end); `root_at_start` when
+// the root is at x = 0 (a cantilever beyond the strip's right end), else
+// at x = L. The deflection is measured from the root; its largest
+// downward value is max_mm (at the tip, as a rule). Converged as
+// span_deflection; slope_start and slope_end are not set.
+SpanDeflection cantilever_deflection(const SpanForces& span, const CurvatureOfMoment& curvature, bool root_at_start,
+                                     double root_slope, double tolerance = 0.005,
+                                     const std::vector<double>& moment_breaks = {});
 
 // The same integration on a given number of segments (no convergence).
 SpanDeflection span_deflection_fixed(const SpanForces& span, const CurvatureOfMoment& curvature,

@@ -121,6 +121,38 @@ SpanDeflection integrate(const SpanForces& span, std::vector<DeflectionPoint> po
       out.x_at_mm = p.x_mm;
     }
   }
+  // w' = F(L)/L − ∫0^x κ: at 0 and at L.
+  out.slope_start = Fx[n] / span.L;
+  out.slope_end = Fx[n] / span.L - slope;
+  out.points = std::move(points);
+  return out;
+}
+
+// From the root: w = 0 and dw/dξ = s0 there (ξ the distance from the
+// root), w'' = −κ along ξ as along x; trapezoids as above.
+SpanDeflection integrate_cantilever(std::vector<DeflectionPoint> points, bool root_at_start, double root_slope,
+                                    std::size_t segments) {
+  const std::size_t n = points.size() - 1;
+  SpanDeflection out;
+  out.segments = segments;
+  const double s0 = root_at_start ? root_slope : -root_slope;  // along ξ
+  auto at = [&](std::size_t k) -> DeflectionPoint& { return points[root_at_start ? k : n - k]; };
+  const double x_root = at(0).x_mm;
+  double slope = s0, w = 0.0;
+  at(0).deflection_mm = 0.0;
+  out.max_mm = 0.0;
+  out.x_at_mm = x_root;
+  for (std::size_t k = 1; k <= n; ++k) {
+    const double h = std::abs(at(k).x_mm - at(k - 1).x_mm);
+    const double slope_next = slope - h * (at(k - 1).curvature + at(k).curvature) / 2.0;
+    w += h * (slope + slope_next) / 2.0;
+    slope = slope_next;
+    at(k).deflection_mm = w;
+    if (w > out.max_mm) {
+      out.max_mm = w;
+      out.x_at_mm = at(k).x_mm;
+    }
+  }
   out.points = std::move(points);
   return out;
 }
@@ -132,6 +164,23 @@ SpanDeflection span_deflection_fixed(const SpanForces& span, const CurvatureOfMo
   if (segments == 0 || !(span.L > 0.0)) throw std::invalid_argument("span deflection: no segments or no span");
   const auto breaks = break_points_of(span, curvature, moment_breaks);
   return integrate(span, merged(grid_of(span, curvature, segments, nullptr), breaks), segments);
+}
+
+SpanDeflection cantilever_deflection(const SpanForces& span, const CurvatureOfMoment& curvature, bool root_at_start,
+                                     double root_slope, double tolerance, const std::vector<double>& moment_breaks) {
+  if (!(span.L > 0.0) || !std::isfinite(root_slope)) throw std::invalid_argument("cantilever deflection: no span");
+  constexpr std::size_t first = 16, last = std::size_t{1} << 16;
+  const auto breaks = break_points_of(span, curvature, moment_breaks);
+  std::vector<DeflectionPoint> grid = grid_of(span, curvature, first, nullptr);
+  SpanDeflection previous = integrate_cantilever(merged(grid, breaks), root_at_start, root_slope, first);
+  for (std::size_t n = 2 * first;; n *= 2) {
+    grid = grid_of(span, curvature, n, &grid);
+    SpanDeflection next = integrate_cantilever(merged(grid, breaks), root_at_start, root_slope, n);
+    const double scale = std::max(std::abs(next.max_mm), 1e-9);
+    next.change = std::abs(next.max_mm - previous.max_mm) / scale;
+    if (next.change <= tolerance || n >= last) return next;
+    previous = std::move(next);
+  }
 }
 
 SpanDeflection span_deflection(const SpanForces& span, const CurvatureOfMoment& curvature, double tolerance,

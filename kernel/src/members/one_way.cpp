@@ -300,6 +300,17 @@ std::vector<RegionDemand> OneWayStrip::design_regions(const RegionRules& rules,
             g.span_where = span_name(e);
             g.span_mm = m.spans_mm[e];
             g.span_kind = SpanKind::cantilever;
+            // The long-term case with the most hogging at the root: the
+            // cantilever's forces and its back span's.
+            const std::size_t back = e == j ? j - 1 : j;  // the span on the other side of support j
+            if (back < n && !m.is_cantilever(back)) {
+              for (const auto& c : long_term_)
+                if (!g.long_term_span || c.spans[e].min_moment() < g.long_term_span->min_moment()) {
+                  g.long_term_span = c.spans[e];
+                  g.back_span = c.spans[back];
+                }
+              g.cantilever_root_at_start = e == j;  // the cantilever starts at support j
+            }
           }
         }
         out.push_back(std::move(g));
