@@ -18,6 +18,32 @@ namespace {
 // stops doubling its segments (deflection.hpp).
 constexpr double integration_tolerance = 0.005;
 
+// The largest later − early deflection at the later state's points (the
+// early one linearly between its own points), and where: never less than
+// the difference of the two largest deflections.
+std::pair<double, double> largest_increment(const SpanDeflection& later, const SpanDeflection& early) {
+  double increment = 0.0, x_at = 0.0;
+  const auto& pts = early.points;
+  for (const auto& pt : later.points) {
+    const auto it = std::lower_bound(pts.begin(), pts.end(), pt.x_mm,
+                                     [](const DeflectionPoint& a, double x) { return a.x_mm < x; });
+    double w_early = 0.0;
+    if (it == pts.begin()) w_early = it->deflection_mm;
+    else if (it == pts.end()) w_early = pts.back().deflection_mm;
+    else {
+      const auto& hi = *it;
+      const auto& lo = *(it - 1);
+      const double t = hi.x_mm > lo.x_mm ? (pt.x_mm - lo.x_mm) / (hi.x_mm - lo.x_mm) : 1.0;
+      w_early = lo.deflection_mm + t * (hi.deflection_mm - lo.deflection_mm);
+    }
+    if (pt.deflection_mm - w_early > increment) {
+      increment = pt.deflection_mm - w_early;
+      x_at = pt.x_mm;
+    }
+  }
+  return {increment, x_at};
+}
+
 StructuralSystem system_of(SpanKind kind) {
   switch (kind) {
     case SpanKind::simply_supported: return StructuralSystem::simply_supported;
@@ -323,29 +349,8 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
                                               {later.Mcr, -later.Mcr})
                             : w;
   // The increment at every point of the long-term state (w(t_p) linearly
-  // between its own points), its largest: never less than the difference
-  // of the two largest deflections.
-  double increment = 0.0, x_increment = 0.0;
-  {
-    const auto& early_pts = w_p.points;
-    for (const auto& pt : w_later.points) {
-      const auto it = std::lower_bound(early_pts.begin(), early_pts.end(), pt.x_mm,
-                                       [](const DeflectionPoint& a, double x) { return a.x_mm < x; });
-      double w_early = 0.0;
-      if (it == early_pts.begin()) w_early = it->deflection_mm;
-      else if (it == early_pts.end()) w_early = early_pts.back().deflection_mm;
-      else {
-        const auto& hi = *it;
-        const auto& lo = *(it - 1);
-        const double t = hi.x_mm > lo.x_mm ? (pt.x_mm - lo.x_mm) / (hi.x_mm - lo.x_mm) : 1.0;
-        w_early = lo.deflection_mm + t * (hi.deflection_mm - lo.deflection_mm);
-      }
-      if (pt.deflection_mm - w_early > increment) {
-        increment = pt.deflection_mm - w_early;
-        x_increment = pt.x_mm;
-      }
-    }
-  }
+  // between its own points), its largest.
+  const auto [increment, x_increment] = largest_increment(w_later, w_p);
   const double limit_p = g.span_mm / partitions_deflection_span_ratio;
   checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(5) (span/500 after the partitions)", increment,
              limit_p, "mm", [&] {
@@ -399,21 +404,35 @@ void Checker::cantilever_deflection_check(CheckCollector& checks, const Section&
   const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
   const double Ecm = secant_modulus_MPa(m_.fck);
   const CreepShrinkage& c = long_term_;
-  auto tip_of = [&](const LongTermSection& s, SpanDeflection* back_out) {
+  // The back span with every span loaded, and with the variable actions on
+  // the cantilever only (its root then turns back the least): the worse.
+  std::vector<const SpanForces*> backs{&*g.back_span};
+  if (g.back_span_unloaded) backs.push_back(&*g.back_span_unloaded);
+  auto tip_of = [&](const LongTermSection& s, const SpanForces& back_forces, double* root_out) {
     // Hogging magnitude m ≥ 0 as the flipped section's sagging.
     const auto hog = [&s](double M) { return -s.curvature(-M); };
     const auto back = [&s](double M) {
       return M <= 0.0 ? -s.curvature(-M) : M / (s.Ec_eff * s.uncracked.I) - s.kcs_I;
     };
-    const SpanDeflection bs = span_deflection(*g.back_span, back, integration_tolerance, {-s.Mcr});
+    const SpanDeflection bs = span_deflection(back_forces, back, integration_tolerance * 0.1, {-s.Mcr});
     const double root_slope = g.cantilever_root_at_start ? bs.slope_end : bs.slope_start;
-    if (back_out) *back_out = bs;
+    if (root_out) *root_out = g.cantilever_root_at_start ? root_slope : -root_slope;
     return cantilever_deflection(*g.long_term_span, hog, g.cantilever_root_at_start, root_slope,
                                  integration_tolerance, {-s.Mcr});
   };
   const LongTermSection total = long_term_section(b, h, As, d, Ecm, m_.fctm, c.phi_inf, c.eps_cs_inf);
-  SpanDeflection back_total;
-  const SpanDeflection w = tip_of(total, &back_total);
+  std::size_t governing = 0;
+  double theta_root = 0.0;
+  SpanDeflection w;
+  for (std::size_t k = 0; k < backs.size(); ++k) {
+    double theta = 0.0;
+    SpanDeflection wk = tip_of(total, *backs[k], &theta);
+    if (k == 0 || wk.max_mm > w.max_mm) {
+      w = std::move(wk);
+      theta_root = theta;
+      governing = k;
+    }
+  }
   const double limit = g.span_mm / total_deflection_span_ratio;
   const double M_root = -std::min(g.long_term_span->M_left, g.long_term_span->M_right());
   checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(4) (cantilever, length/250)", w.max_mm, limit, "mm",
@@ -432,12 +451,13 @@ void Checker::cantilever_deflection_check(CheckCollector& checks, const Section&
                       "EN 1992-1-1 7.4.3");
                st.add("Mcr", "fctm I_I/(h − x_I), tension at the top", "", total.Mcr * 1e-6, "kNm",
                       "EN 1992-1-1 7.4.3(3)");
-               st.add("M_root", "quasi-permanent hogging at the root, all spans loaded", "", M_root * 1e-6, "kNm",
-                      "EN 1990 (6.16b)");
-               st.add("θ_root", "rotation of the back span at the root: its curvature integrated between its "
-                                "supports (hogging: these top bars; sagging: uncracked, on the safe side)",
-                      "", (g.cantilever_root_at_start ? back_total.slope_end : -back_total.slope_start) * 1e3,
-                      "mrad", "EN 1992-1-1 7.4.3(7)");
+               st.add("M_root", "quasi-permanent hogging at the root", "", M_root * 1e-6, "kNm", "EN 1990 (6.16b)");
+               st.add("θ_root", std::string("rotation of the back span at the root, tip down positive, with ") +
+                                    (governing == 0 ? "every span loaded"
+                                                    : "the variable actions on the cantilever only (the worse)") +
+                                    ": its curvature integrated between its supports (hogging: these top bars; "
+                                    "sagging: uncracked, on the safe side)",
+                      "", theta_root * 1e3, "mrad", "EN 1992-1-1 7.4.3(7)");
                st.add("δ", "θ_root × length + double integration of 1/r from the root", "at the tip", w.max_mm,
                       "mm", "EN 1992-1-1 7.4.3(7)");
                st.add("δ_lim", "length/250", num(g.span_mm) + "/250", limit, "mm", "EN 1992-1-1 7.4.1(4)");
@@ -447,13 +467,27 @@ void Checker::cantilever_deflection_check(CheckCollector& checks, const Section&
   LongTermSection early = long_term_section(b, h, As, d, Ecm, m_.fctm, c.phi_p, c.eps_cs_p);
   LongTermSection later = total;
   later.Mcr = std::min(total.Mcr, early.Mcr);  // cracks open at t_p stay open
-  const double increment = std::max(tip_of(later, nullptr).max_mm - tip_of(early, nullptr).max_mm, 0.0);
+  // The largest change along the cantilever (the tip's, as a rule), with
+  // the deflections as they are (a tip that rose at t_p counts its rise).
+  double increment = 0.0, w_inf = 0.0, w_tp = 0.0;
+  for (const SpanForces* bk : backs) {
+    const SpanDeflection a = tip_of(later, *bk, nullptr), e = tip_of(early, *bk, nullptr);
+    const double inc = largest_increment(a, e).first;
+    if (inc >= increment) {
+      increment = inc;
+      w_inf = g.cantilever_root_at_start ? a.points.back().deflection_mm : a.points.front().deflection_mm;
+      w_tp = g.cantilever_root_at_start ? e.points.back().deflection_mm : e.points.front().deflection_mm;
+    }
+  }
   checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(5) (cantilever, length/500 after the partitions)",
              increment, g.span_mm / partitions_deflection_span_ratio, "mm", [&] {
                Steps st;
                st.add("φ(t_p,t0)", "φ(∞,t0) βc(t_p,t0)", "", c.phi_p, "-", "EN 1992-1-1 Annex B (B.1), (B.7)");
                st.add("εcs(t_p)", "3.1.4(6) at t_p", "", c.eps_cs_p * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6)");
-               st.add("Δδ", "tip deflection at ∞ (cracked where cracked at t_p) less that at t_p", "", increment, "mm",
+               st.add("δ(t_p)", "tip deflection at t_p (negative: up)", "", w_tp, "mm", "EN 1992-1-1 7.4.3(7)");
+               st.add("δ(∞)", "tip deflection at ∞, cracked where cracked at t_p", "", w_inf, "mm",
+                      "EN 1992-1-1 7.4.3(7)");
+               st.add("Δδ", "largest δ(∞) − δ(t_p) along the cantilever", "", increment, "mm",
                       "EN 1992-1-1 7.4.1(5)");
                st.add("δ_lim", "length/500", num(g.span_mm) + "/500", g.span_mm / partitions_deflection_span_ratio,
                       "mm", "EN 1992-1-1 7.4.1(5)");

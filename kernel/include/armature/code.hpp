@@ -150,6 +150,9 @@ struct RegionDemand {
   // load, and whether the root is at the cantilever's x = 0 (a cantilever
   // beyond the strip's right end) or at its x = L.
   std::optional<SpanForces> back_span{};
+  // The back span with the variable actions on the cantilevers only: the
+  // root turns back the least, the tip deflects the most.
+  std::optional<SpanForces> back_span_unloaded{};
   bool cantilever_root_at_start = true;
   // Two-way slabs: the direction the region's bars run (span: a strip),
   // the plan position's y (x in x_mm), and the bar of the face's outer

@@ -135,6 +135,9 @@ class OneWayStrip final : public Member {
   Envelope env_;
   std::vector<CaseResult> qp_all_, uls_all_;  // every span loaded (located loads only)
   std::vector<CaseResult> long_term_;  // quasi-permanent, every span loaded, when asked for
+  // The same with the variable actions on the cantilevers only (the back
+  // spans unloaded turn a cantilever's root the least), when there is one.
+  std::vector<CaseResult> long_term_cantilevers_;
   std::vector<CaseResult> service_;    // characteristic, every span loaded, when asked for
   double load_ratio_ = 0.0, nil_moment_ = 0.0;
 };

@@ -233,10 +233,18 @@ std::size_t OneWayStrip::analyse(const MemberLoads& loads) {
         model, load_cases(loads.actions, loads.combinations, LimitState::uls, all_loaded, model.spans_mm, b));
   }
   long_term_.clear();
+  long_term_cantilevers_.clear();
   service_.clear();
   if (loads.long_term_moments) {
     long_term_ = analyse_load_cases(model, load_cases(loads.actions, loads.combinations, LimitState::quasi_permanent,
                                                       {all_spans_loaded(n)}, model.spans_mm, b));
+    std::vector<bool> cantilevers_only(n, false);
+    bool any = false;
+    for (std::size_t e = 0; e < n; ++e) any = (cantilevers_only[e] = model.is_cantilever(e)) || any;
+    if (any)
+      long_term_cantilevers_ = analyse_load_cases(
+          model, load_cases(loads.actions, loads.combinations, LimitState::quasi_permanent, {cantilevers_only},
+                            model.spans_mm, b));
     service_ = analyse_load_cases(model, load_cases(loads.actions, loads.combinations, LimitState::characteristic,
                                                     {all_spans_loaded(n)}, model.spans_mm, b));
   }
@@ -304,11 +312,14 @@ std::vector<RegionDemand> OneWayStrip::design_regions(const RegionRules& rules,
             // cantilever's forces and its back span's.
             const std::size_t back = e == j ? j - 1 : j;  // the span on the other side of support j
             if (back < n && !m.is_cantilever(back)) {
-              for (const auto& c : long_term_)
+              for (std::size_t k = 0; k < long_term_.size(); ++k) {
+                const auto& c = long_term_[k];
                 if (!g.long_term_span || c.spans[e].min_moment() < g.long_term_span->min_moment()) {
                   g.long_term_span = c.spans[e];
                   g.back_span = c.spans[back];
+                  if (k < long_term_cantilevers_.size()) g.back_span_unloaded = long_term_cantilevers_[k].spans[back];
                 }
+              }
               g.cantilever_root_at_start = e == j;  // the cantilever starts at support j
             }
           }

@@ -268,11 +268,12 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
         if (values[i + row * j] > p.value) p = {values[i + row * j], i + row * j};
     return p;
   };
-  // Corner zones first (geometry only): where two pinned edges meet and
-  // the code sets corner bars (CornerRule). The corner regions take their
-  // peaks inside a zone; the lines' top regions, and the bays' bottom ones
-  // where the rule sets bottom corner bars, take theirs outside every zone
-  // (all their nodes when none lies outside).
+  // Corner zones first (geometry only): where two pinned edges meet (any
+  // two supported edges with fixed_edges_too) and the code sets corner
+  // bars (CornerRule). The corner regions take their peaks inside a zone;
+  // the outer pinned edges' top regions, and the bays' bottom ones where
+  // the rule sets bottom corner bars, take theirs outside every zone (all
+  // their nodes when none lies outside).
   corners_.clear();
   std::vector<std::array<std::size_t, 2>> corner_bays;
   if (!corner_rule.clause.empty()) {
