@@ -82,6 +82,7 @@ class Checker final : public SlabChecker,
   // members.cpp
   void deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
   void calculated_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const;
+  void cantilever_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const;
   void two_way_deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
   static std::size_t governing_face_case(const SupportFace& f);
 

@@ -96,7 +96,8 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     // Minimum thickness (7.3.1.1), calculated (24.2), or both; a check
     // carries its method only when the request names one.
     const auto& sv = req_.serviceability;
-    const bool calculated = sv.calculated_deflection() && g.long_term_span && g.span_kind != SpanKind::cantilever;
+    const bool calculated = sv.calculated_deflection() && g.long_term_span &&
+                            (g.span_kind != SpanKind::cantilever || (g.back_span && g.back_service_span));
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection", [&] {
@@ -108,7 +109,10 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     }
     if (calculated && !span.verdict_settled()) {
       const std::size_t before = out.span_checks.size();
-      run_check("deflection", [&] { calculated_deflection_check(span, sec, g); });
+      run_check("deflection", [&] {
+        if (g.span_kind == SpanKind::cantilever) cantilever_deflection_check(span, sec, g);
+        else calculated_deflection_check(span, sec, g);
+      });
       for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "calculated";
     }
   }
@@ -241,6 +245,87 @@ std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, co
     }
   }
   return out;
+}
+
+// A cantilever (24.2, values from memory): Ie of Table 24.2.3.5 from the
+// moment at the support (24.2.3.7) with the top bars' Icr, per load level;
+// integrated from its root, which turns with the back span. The back
+// span's bars are another region's: its hogging parts take the
+// cantilever's Ie, its sagging parts Ig (the least sagging curvature, so
+// the least the root turns back: on the safe side, as for EN). D + L with
+// the live load on every span and on the cantilever only: the worse.
+// Immediate live by difference against ℓ/360, long term λΔ Δ(D) + live
+// against ℓ/240 or ℓ/480, ℓ the cantilever's length.
+void Checker::cantilever_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const {
+  const SectionLayer& layer = sec.outer_layer(Face::top);
+  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
+  const double Ec = concrete_modulus(), n = reinforcement_modulus() / Ec;
+  const double Ig = gross_moment_of_inertia(b, h);
+  const double Mcr = cracking_moment(rupture_modulus(), Ig, h / 2.0);
+  const double Icr = cracked_section(b, As, d, n).Icr;
+  const bool at_start = g.cantilever_root_at_start;
+  auto tip = [&](const SpanForces& cant, const SpanForces& back, double Ie) {
+    const double EIe = Ec * Ie, EIg = Ec * Ig;
+    const auto k_back = [EIe, EIg](double M) { return M <= 0.0 ? M / EIe : M / EIg; };
+    const SpanDeflection bs = span_deflection(back, k_back, 0.0005);
+    const double root = at_start ? bs.slope_end : bs.slope_start;
+    return cantilever_deflection(cant, [EIe](double M) { return M / EIe; }, at_start, root).max_mm;
+  };
+  auto root_moment = [](const SpanForces& f) { return std::max(-std::min(f.M_left, f.M_right()), 0.0); };
+  const double Ma_D = root_moment(*g.long_term_span), Ma_DL = root_moment(*g.service_span);
+  const double Ie_D = effective_moment_of_inertia(Ma_D, Mcr, Ig, Icr);
+  const double Ie_DL = effective_moment_of_inertia(Ma_DL, Mcr, Ig, Icr);
+  double d_D = tip(*g.long_term_span, *g.back_span, Ie_D);
+  if (g.back_span_unloaded) d_D = std::max(d_D, tip(*g.long_term_span, *g.back_span_unloaded, Ie_D));
+  double d_DL = tip(*g.service_span, *g.back_service_span, Ie_DL);
+  if (g.back_service_span_unloaded) d_DL = std::max(d_DL, tip(*g.service_span, *g.back_service_span_unloaded, Ie_DL));
+  const double live = std::max(d_DL - d_D, 0.0);
+  const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
+  const double long_term = lambda_delta * d_D + live;
+  const bool damageable = req_.serviceability.partitions;
+  const double ratio = damageable ? after_attachment_damageable_span_ratio : after_attachment_span_ratio;
+  const double L = g.span_mm;
+  auto steps = [&](StepRecorder& st) {
+    st.add("Ig", "b h³/12", "", us_ ? Ig / std::pow(mm_per_in, 4) : Ig * 1e-6, us_ ? "in4" : "10⁶ mm⁴",
+           "ACI 318-19 24.2.3.5");
+    st.add("Mcr", "fr Ig/yt, yt = h/2", "", moment_v(Mcr), moment_u(), "ACI 318-19 24.2.3.5");
+    st.add("Icr", "b x³/3 + n As (d − x)², the top bars", "As = " + area(As) + ", d = " + len(d),
+           us_ ? Icr / std::pow(mm_per_in, 4) : Icr * 1e-6, us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 24.2.3.5");
+    st.add("Ma (D)", "moment at the support", "", moment_v(Ma_D), moment_u(), "ACI 318-19 24.2.3.7");
+    st.add("Ie (D)", "Table 24.2.3.5 at Ma (D)", "", us_ ? Ie_D / std::pow(mm_per_in, 4) : Ie_D * 1e-6,
+           us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 Table 24.2.3.5");
+    st.add("Ma (D + L)", "moment at the support", "", moment_v(Ma_DL), moment_u(), "ACI 318-19 24.2.3.7");
+    st.add("Ie (D + L)", "Table 24.2.3.5 at Ma (D + L)", "", us_ ? Ie_DL / std::pow(mm_per_in, 4) : Ie_DL * 1e-6,
+           us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 Table 24.2.3.5");
+    st.add("Δ (D)", "at the tip, from the root, which turns with the back span (its sagging with Ig)", "",
+           len_v(d_D), len_u(), "ACI 318-19 24.2.3.1");
+    st.add("Δ (D + L)", "likewise; live load on every span or on the cantilever only, the worse", "",
+           len_v(d_DL), len_u(), "ACI 318-19 24.2.3.1");
+  };
+  span.add("deflection", g.span_where, "ACI 318-19 24.2.3, Table 24.2.2 (cantilever, immediate live, ℓ/360)", live,
+           L / immediate_live_span_ratio, "mm", [&] {
+             StepRecorder st;
+             steps(st);
+             st.add("ΔL", "Δ(D + L) − Δ(D)", len(d_DL) + " − " + len(d_D), len_v(live), len_u(), "ACI 318-19 24.2.3");
+             st.add("Δ_lim", "ℓ/360, ℓ the cantilever's length", len(L) + "/360",
+                    len_v(L / immediate_live_span_ratio), len_u(), "ACI 318-19 Table 24.2.2");
+             return st.take();
+           });
+  if (span.verdict_settled()) return;
+  span.add("deflection", g.span_where,
+           damageable ? "ACI 318-19 24.2.4, Table 24.2.2 (cantilever, after attachment, damageable, ℓ/480)"
+                      : "ACI 318-19 24.2.4, Table 24.2.2 (cantilever, after attachment, ℓ/240)",
+           long_term, L / ratio, "mm", [&] {
+             StepRecorder st;
+             steps(st);
+             st.add("λΔ", "ξ/(1 + 50 ρ'), ξ = 2.0 (5 years), ρ' = 0", "", lambda_delta, "-",
+                    "ACI 318-19 24.2.4.1.1, Table 24.2.4.1.3");
+             st.add("Δ", "λΔ Δ(D) + (Δ(D + L) − Δ(D))", num(lambda_delta) + " × " + len(d_D) + " + " + len(live),
+                    len_v(long_term), len_u(), "ACI 318-19 24.2.4.1");
+             st.add("Δ_lim", damageable ? "ℓ/480 (partitions likely to be damaged)" : "ℓ/240",
+                    len(L) + (damageable ? "/480" : "/240"), len_v(L / ratio), len_u(), "ACI 318-19 Table 24.2.2");
+             return st.take();
+           });
 }
 
 std::vector<Check> Checker::span_checks(const std::string&) const { return {}; }

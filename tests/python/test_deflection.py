@@ -238,9 +238,8 @@ def test_bad_input_is_named(change, field, words):
 
 
 def test_refused_where_not_built():
-    """A cantilever with no back span (EN: its root turns with the back
-    span), any cantilever for ACI (not built), and the creep inputs without
-    a calculated deflection."""
+    """A cantilever with no back span (its root turns with the back span),
+    for either code, and the creep inputs without a calculated deflection."""
     req = copy.deepcopy(HALL)
     req["slab"] = {"spans_m": [1.5], "ends": ["fixed", "free"], "thickness_mm": 200}
     with pytest.raises(armature.InputError) as e:
@@ -251,7 +250,7 @@ def test_refused_where_not_built():
     with pytest.raises(armature.InputError) as e:
         armature.design(req)
     assert "serviceability.relative_humidity_percent: belongs to the calculated deflection" in str(e.value)
-    aci = {"code": "ACI318-19", "slab": {"spans_m": [5.0, 1.2], "ends": ["pinned", "free"], "thickness_mm": 220},
+    aci = {"code": "ACI318-19", "slab": {"spans_m": [1.2], "ends": ["fixed", "free"], "thickness_mm": 220},
            "concrete": {"cylinder_strength_MPa": 28}, "loads": {"dead_kPa": 1.5, "imposed_kPa": 4.0},
            "serviceability": {"deflection": "calculated"}}
     with pytest.raises(armature.InputError) as e:
@@ -438,3 +437,33 @@ def test_cantilever_takes_the_back_span_without_its_variable_load():
     tip = q_c * Lc**4 / (8 * EI) + theta * Lc
     [check] = deflection_checks(res, "span 2")
     assert check["demand"] == pytest.approx(tip, rel=0.005)
+
+
+def test_aci_uncracked_cantilever_against_the_closed_form():
+    """ACI 318-19 24.2 on a cantilever beyond a simply supported back span,
+    every level uncracked (Ma ≤ (2/3) Mcr at the root: Ie = Ig, Table
+    24.2.3.5): per load level the tip is q_c Lc⁴/(8 Ec Ig) + θ Lc with θ =
+    −q_b Lb³/(24 Ec Ig) + (q_c Lc²/2) Lb/(3 Ec Ig) (beam tables, value from
+    memory); D on both spans, D + L with the live load on the cantilever
+    only (the worse for the tip); live by difference; λΔ = 2.0."""
+    req = copy.deepcopy(LIBRARY)
+    req["slab"] = {"spans_m": [3.0, 1.5], "ends": ["pinned", "free"], "thickness_mm": 200}
+    res = armature.design(req)
+    fc = 28.0
+    Ec = 4700 * math.sqrt(fc)             # 19.2.2.1 (SI, from memory)
+    EI = Ec * 1000.0 * 200.0**3 / 12      # Ig of the gross section
+    D = res["loads"]["sls_quasi_permanent_kPa"]
+    Lb, Lc = 3000.0, 1500.0
+
+    def tip(q_b, q_c):
+        theta = -q_b * Lb**3 / (24 * EI) + (q_c * Lc**2 / 2) * Lb / (3 * EI)
+        return q_c * Lc**4 / (8 * EI) + theta * Lc
+
+    d_D, d_DL = tip(D, D), max(tip(D + 3.0, D + 3.0), tip(D, D + 3.0))
+    fr, Ig = 0.62 * math.sqrt(fc), 1000.0 * 200.0**3 / 12
+    assert (D + 3.0) * Lc**2 / 2 <= 2 / 3 * fr * Ig / 100.0  # uncracked at D + L: the closed form applies
+    immediate, after = deflection_checks(res, "span 2")
+    assert "cantilever" in immediate["clause"]
+    assert immediate["demand"] == pytest.approx(d_DL - d_D, rel=0.005)
+    assert after["demand"] == pytest.approx(2.0 * d_D + (d_DL - d_D), rel=0.005)
+    assert immediate["capacity"] == pytest.approx(1500 / 360) and after["capacity"] == pytest.approx(1500 / 240)

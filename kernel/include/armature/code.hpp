@@ -153,6 +153,9 @@ struct RegionDemand {
   // The back span with the variable actions on the cantilevers only: the
   // root turns back the least, the tip deflects the most.
   std::optional<SpanForces> back_span_unloaded{};
+  // The same two under the service load (service_span: the cantilever's).
+  std::optional<SpanForces> back_service_span{};
+  std::optional<SpanForces> back_service_span_unloaded{};
   bool cantilever_root_at_start = true;
   // Two-way slabs: the direction the region's bars run (span: a strip),
   // the plan position's y (x in x_mm), and the bar of the face's outer

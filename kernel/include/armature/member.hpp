@@ -138,6 +138,7 @@ class OneWayStrip final : public Member {
   // The same with the variable actions on the cantilevers only (the back
   // spans unloaded turn a cantilever's root the least), when there is one.
   std::vector<CaseResult> long_term_cantilevers_;
+  std::vector<CaseResult> service_cantilevers_;  // likewise under the service load
   std::vector<CaseResult> service_;    // characteristic, every span loaded, when asked for
   double load_ratio_ = 0.0, nil_moment_ = 0.0;
 };

@@ -234,6 +234,7 @@ std::size_t OneWayStrip::analyse(const MemberLoads& loads) {
   }
   long_term_.clear();
   long_term_cantilevers_.clear();
+  service_cantilevers_.clear();
   service_.clear();
   if (loads.long_term_moments) {
     long_term_ = analyse_load_cases(model, load_cases(loads.actions, loads.combinations, LimitState::quasi_permanent,
@@ -241,10 +242,14 @@ std::size_t OneWayStrip::analyse(const MemberLoads& loads) {
     std::vector<bool> cantilevers_only(n, false);
     bool any = false;
     for (std::size_t e = 0; e < n; ++e) any = (cantilevers_only[e] = model.is_cantilever(e)) || any;
-    if (any)
+    if (any) {
       long_term_cantilevers_ = analyse_load_cases(
           model, load_cases(loads.actions, loads.combinations, LimitState::quasi_permanent, {cantilevers_only},
                             model.spans_mm, b));
+      service_cantilevers_ = analyse_load_cases(
+          model, load_cases(loads.actions, loads.combinations, LimitState::characteristic, {cantilevers_only},
+                            model.spans_mm, b));
+    }
     service_ = analyse_load_cases(model, load_cases(loads.actions, loads.combinations, LimitState::characteristic,
                                                     {all_spans_loaded(n)}, model.spans_mm, b));
   }
@@ -318,6 +323,14 @@ std::vector<RegionDemand> OneWayStrip::design_regions(const RegionRules& rules,
                   g.long_term_span = c.spans[e];
                   g.back_span = c.spans[back];
                   if (k < long_term_cantilevers_.size()) g.back_span_unloaded = long_term_cantilevers_[k].spans[back];
+                }
+              }
+              for (std::size_t k = 0; k < service_.size(); ++k) {
+                const auto& c = service_[k];
+                if (!g.service_span || c.spans[e].min_moment() < g.service_span->min_moment()) {
+                  g.service_span = c.spans[e];
+                  g.back_service_span = c.spans[back];
+                  if (k < service_cantilevers_.size()) g.back_service_span_unloaded = service_cantilevers_[k].spans[back];
                 }
               }
               g.cantilever_root_at_start = e == j;  // the cantilever starts at support j
