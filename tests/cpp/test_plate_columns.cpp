@@ -131,3 +131,28 @@ TEST_CASE("Plate on columns: bad columns and mechanisms are named", "[plate][fla
   CHECK_FALSE(q3.items().empty());
   CHECK(q3.items()[0].message.find("touches a supported line") != std::string::npos);
 }
+
+TEST_CASE("Plate on columns: node moments on a column's face are the slab's", "[plate][flat]") {
+  // On the face x = 6.2 m of the column at (6.0, 5.5) m the node moments
+  // are the slab's just outside the column (the rule of node_moments), not
+  // averaged with the rigid patch's zero curvature: the hogging there is
+  // the largest along the x line through the column (it falls away from
+  // the face: common practice), and the section over the face's width is
+  // hogging.
+  const PlateModel model(floor_on_columns(12));
+  const auto field = model.solve({uniform()});
+  const auto nodes = field.node_moments(0);
+  const auto& xs = model.node_x_mm();
+  const auto& ys = model.node_y_mm();
+  const double face = 6000.0 + column / 2;
+  std::size_t ix = 0, iy = 0;
+  while (ix < xs.size() && std::abs(xs[ix] - face) > 1e-6) ++ix;
+  while (iy < ys.size() && std::abs(ys[iy] - 5500.0) > 1e-6) ++iy;
+  REQUIRE(ix + 1 < xs.size());
+  REQUIRE(iy < ys.size());
+  const double at_face = nodes[ix + xs.size() * iy].mx;
+  CHECK(at_face == Approx(field.moments_at(0, face + 1e-3, 5500.0).mx).epsilon(1e-3));
+  CHECK(at_face < nodes[ix + 1 + xs.size() * iy].mx);  // more hogging at the face than an element away
+  CHECK(at_face < 0.5 * nodes[ix - 1 + xs.size() * iy].mx - 1.0);  // the patch's value inside is not the slab's
+  CHECK(field.section_moment(0, PlanAxis::x, face, 5300.0, 5700.0, +1) < 0.0);
+}

@@ -269,9 +269,9 @@ class PlateField {
   PlateMoments moments_at(std::size_t c, double x_mm, double y_mm) const;
   // Moments at every mesh node (index ix + (node_x count)·iy), recovered
   // from the elements' Gauss points by patches of 2 × 2 elements in each
-  // bay beside the node (averaged across a support line), and along a
-  // fixed edge from the edge's reaction moments (DEVELOPERS.md, "Plate
-  // analysis").
+  // bay beside the node (averaged across a support line), along a fixed
+  // edge from the edge's reaction moments, and on a column's outline from
+  // the element just outside it (DEVELOPERS.md, "Plate analysis").
   std::vector<PlateMoments> node_moments(std::size_t c) const;
 
   // Per bay (bay index): the largest mx and my in the bay, found between

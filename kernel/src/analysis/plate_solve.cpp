@@ -652,6 +652,27 @@ std::vector<PlateMoments> PlateField::node_moments(std::size_t c) const {
       (along_y ? out[nodes[k]].mx : out[nodes[k]].my) = value;
     }
   }
+
+  // On a column's outline the patches would average the rigid patch's zero
+  // curvature in: the slab's own moment there is the element's just outside
+  // the column (across the face; at a corner of the column, diagonally),
+  // where the slab continues. Nodes strictly inside a column keep the
+  // patch's value, which means nothing for the slab.
+  const double X = m.x_grid.back(), Y = m.y_grid.back(), tol = 1e-9 * std::max(X, Y);
+  const double step = 1e-6 * std::max(X, Y);
+  for (std::size_t k = 0; k < m.geometry.columns.size(); ++k) {
+    const PlateColumn& col = m.geometry.columns[k];
+    for (std::size_t nd : m.column_nodes[k]) {
+      const double x = m.node_x[nd % m.columns()], y = m.node_y[nd / m.columns()];
+      double dx = 0.0, dy = 0.0;
+      if (std::abs(x - col.x0_mm) <= tol && col.x0_mm > tol) dx = -step;
+      if (std::abs(x - col.x1_mm) <= tol && col.x1_mm < X - tol) dx = step;
+      if (std::abs(y - col.y0_mm) <= tol && col.y0_mm > tol) dy = -step;
+      if (std::abs(y - col.y1_mm) <= tol && col.y1_mm < Y - tol) dy = step;
+      if (dx == 0.0 && dy == 0.0) continue;  // inside, or on the slab's own edge
+      out[nd] = averaged_values(m, u, x + dx, y + dy).m;
+    }
+  }
   return out;
 }
 
