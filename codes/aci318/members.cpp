@@ -149,8 +149,6 @@ void Checker::calculated_deflection_check(CheckCollector& span, const Section& s
   const double live = all.delta - sus.delta;
   const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
   const double long_term = lambda_delta * sus.delta + live;
-  const bool damageable = req_.serviceability.partitions;
-  const double ratio = damageable ? after_attachment_damageable_span_ratio : after_attachment_span_ratio;
   const double L = g.span_mm;
   auto common_steps = [&](StepRecorder& st) {
     st.add("Ec", us_ ? "57 000 √f'c" : "4700 √f'c", "√" + stress(fc_), stress_v(Ec), stress_u(),
@@ -175,32 +173,7 @@ void Checker::calculated_deflection_check(CheckCollector& span, const Section& s
              "ACI 318-19 24.2.3.1");
     }
   };
-  span.add("deflection", g.span_where, "ACI 318-19 24.2.3, Table 24.2.2 (immediate live, ℓ/360)", live,
-           L / immediate_live_span_ratio, "mm", [&] {
-             StepRecorder st;
-             common_steps(st);
-             st.add("ΔL", "Δ(D + L) − Δ(D)", len(all.delta) + " − " + len(sus.delta), len_v(live), len_u(),
-                    "ACI 318-19 24.2.3");
-             st.add("Δ_lim", "ℓ/360", len(L) + "/360", len_v(L / immediate_live_span_ratio), len_u(),
-                    "ACI 318-19 Table 24.2.2");
-             return st.take();
-           });
-  if (span.verdict_settled()) return;
-  span.add("deflection", g.span_where,
-           damageable ? "ACI 318-19 24.2.4, Table 24.2.2 (after attachment, damageable, ℓ/480)"
-                      : "ACI 318-19 24.2.4, Table 24.2.2 (after attachment, ℓ/240)",
-           long_term, L / ratio, "mm", [&] {
-             StepRecorder st;
-             common_steps(st);
-             st.add("λΔ", "ξ/(1 + 50 ρ'), ξ = 2.0 (5 years), ρ' = 0", "", lambda_delta, "-",
-                    "ACI 318-19 24.2.4.1.1, Table 24.2.4.1.3");
-             st.add("Δ", "λΔ Δ(D) + (Δ(D + L) − Δ(D))",
-                    num(lambda_delta) + " × " + len(sus.delta) + " + " + len(live), len_v(long_term), len_u(),
-                    "ACI 318-19 24.2.4.1");
-             st.add("Δ_lim", damageable ? "ℓ/480 (partitions likely to be damaged)" : "ℓ/240",
-                    len(L) + (damageable ? "/480" : "/240"), len_v(L / ratio), len_u(), "ACI 318-19 Table 24.2.2");
-             return st.take();
-           });
+  deflection_checks(span, g.span_where, "", DeflectionPair{sus.delta, all.delta}, live, long_term, lambda_delta, L, common_steps);
 }
 
 // For the record: the long-term deflection of 24.2.4.1 along the span,
@@ -282,8 +255,6 @@ void Checker::cantilever_deflection_check(CheckCollector& span, const Section& s
   const double live = std::max(d_DL - d_D, 0.0);
   const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
   const double long_term = lambda_delta * d_D + live;
-  const bool damageable = req_.serviceability.partitions;
-  const double ratio = damageable ? after_attachment_damageable_span_ratio : after_attachment_span_ratio;
   const double L = g.span_mm;
   auto steps = [&](StepRecorder& st) {
     st.add("Ig", "b h³/12", "", us_ ? Ig / std::pow(mm_per_in, 4) : Ig * 1e-6, us_ ? "in4" : "10⁶ mm⁴",
@@ -302,26 +273,41 @@ void Checker::cantilever_deflection_check(CheckCollector& span, const Section& s
     st.add("Δ (D + L)", "likewise; live load on every span or on the cantilever only, the worse", "",
            len_v(d_DL), len_u(), "ACI 318-19 24.2.3.1");
   };
-  span.add("deflection", g.span_where, "ACI 318-19 24.2.3, Table 24.2.2 (cantilever, immediate live, ℓ/360)", live,
+  deflection_checks(span, g.span_where, "cantilever, ", DeflectionPair{d_D, d_DL}, live, long_term, lambda_delta, L, steps);
+}
+
+// The two checks of 24.2 (Table 24.2.2): the immediate live deflection
+// against ℓ/360, then, unless the verdict is settled, the part after
+// attachment, λΔ Δ(D) + live, against ℓ/240 or ℓ/480 with partitions.
+// `kind` opens the clause's parenthesis ("cantilever, " or empty); `steps`
+// writes the derivation both share.
+void Checker::deflection_checks(CheckCollector& span, const std::string& where, const std::string& kind,
+                                DeflectionPair deltas, double live, double long_term, double lambda_delta, double L,
+                                const std::function<void(StepRecorder&)>& steps) const {
+  const bool damageable = req_.serviceability.partitions;
+  const double ratio = damageable ? after_attachment_damageable_span_ratio : after_attachment_span_ratio;
+  span.add("deflection", where, "ACI 318-19 24.2.3, Table 24.2.2 (" + kind + "immediate live, ℓ/360)", live,
            L / immediate_live_span_ratio, "mm", [&] {
              StepRecorder st;
              steps(st);
-             st.add("ΔL", "Δ(D + L) − Δ(D)", len(d_DL) + " − " + len(d_D), len_v(live), len_u(), "ACI 318-19 24.2.3");
-             st.add("Δ_lim", "ℓ/360, ℓ the cantilever's length", len(L) + "/360",
-                    len_v(L / immediate_live_span_ratio), len_u(), "ACI 318-19 Table 24.2.2");
+             st.add("ΔL", "Δ(D + L) − Δ(D)", len(deltas.all) + " − " + len(deltas.sustained), len_v(live), len_u(),
+                    "ACI 318-19 24.2.3");
+             st.add("Δ_lim", kind.empty() ? "ℓ/360" : "ℓ/360, ℓ the cantilever's length", len(L) + "/360", len_v(L / immediate_live_span_ratio), len_u(),
+                    "ACI 318-19 Table 24.2.2");
              return st.take();
            });
   if (span.verdict_settled()) return;
-  span.add("deflection", g.span_where,
-           damageable ? "ACI 318-19 24.2.4, Table 24.2.2 (cantilever, after attachment, damageable, ℓ/480)"
-                      : "ACI 318-19 24.2.4, Table 24.2.2 (cantilever, after attachment, ℓ/240)",
+  span.add("deflection", where,
+           damageable ? "ACI 318-19 24.2.4, Table 24.2.2 (" + kind + "after attachment, damageable, ℓ/480)"
+                      : "ACI 318-19 24.2.4, Table 24.2.2 (" + kind + "after attachment, ℓ/240)",
            long_term, L / ratio, "mm", [&] {
              StepRecorder st;
              steps(st);
              st.add("λΔ", "ξ/(1 + 50 ρ'), ξ = 2.0 (5 years), ρ' = 0", "", lambda_delta, "-",
                     "ACI 318-19 24.2.4.1.1, Table 24.2.4.1.3");
-             st.add("Δ", "λΔ Δ(D) + (Δ(D + L) − Δ(D))", num(lambda_delta) + " × " + len(d_D) + " + " + len(live),
-                    len_v(long_term), len_u(), "ACI 318-19 24.2.4.1");
+             st.add("Δ", "λΔ Δ(D) + (Δ(D + L) − Δ(D))",
+                    num(lambda_delta) + " × " + len(deltas.sustained) + " + " + len(live), len_v(long_term), len_u(),
+                    "ACI 318-19 24.2.4.1");
              st.add("Δ_lim", damageable ? "ℓ/480 (partitions likely to be damaged)" : "ℓ/240",
                     len(L) + (damageable ? "/480" : "/240"), len_v(L / ratio), len_u(), "ACI 318-19 Table 24.2.2");
              return st.take();

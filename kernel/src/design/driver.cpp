@@ -347,20 +347,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
         rec.deflection_diagrams.push_back({demand.span_where, x0, std::move(*diagram)});
       }
     }
-    RegionRecord region;
-    region.where = demand.where;
-    region.face = demand.face;
-    region.x_mm = demand.x_mm;
-    region.M_Ed = demand.M_Ed;
-    region.d_mm = out.d_mm;
-    region.As_req_mm2 = out.As_req_mm2;
-    region.As_min_mm2 = out.As_min_mm2;
-    region.As_max_mm2 = out.As_max_mm2;
-    region.cover_mm = out.cover_mm;
-    region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
-    region.bars_given = plan.given[i].has_value();
-    region.checks = std::move(out.checks);
-    rec.regions.push_back(std::move(region));
+    rec.regions.push_back(region_record(demand, pick, out, plan.given[i].has_value()));
     max_main_As = std::max(max_main_As, pick.As_prov_mm2);
     for (std::size_t e = 0; e < n; ++e)
       if (demand.span_where == span_names[e])
@@ -401,22 +388,7 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
 
   if (req.detailing.requested) detail_design(*checker, req, member, loads, rec);
 
-  rec.pass = distribution_ok;
-  rec.max_utilisation = 0.0;
-  bool first = true;
-  for (const Check* c : rec.all_checks()) {
-    if (!c->pass) rec.pass = false;
-    // The search takes the widest spacing allowed, so a passing spacing
-    // limit sits near 1 by construction and says nothing: it stays in the
-    // checks but heads the result only when it fails.
-    if (is_arrangement_limit(c->id.str()) && c->pass) continue;
-    if (first || c->utilisation > rec.max_utilisation) {
-      rec.max_utilisation = c->utilisation;
-      rec.governing_check = c->id;
-      rec.governing_where = c->where;
-      first = false;
-    }
-  }
+  settle_verdict(rec, distribution_ok);
   auto code_warnings = call_code(rec.code, "warnings", [&] { return checker->warnings(); });
   rec.warnings.insert(rec.warnings.begin(), code_warnings.begin(), code_warnings.end());
   return rec;

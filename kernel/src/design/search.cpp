@@ -503,6 +503,42 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
   return picks;
 }
 
+RegionRecord region_record(const RegionDemand& demand, const SearchCandidate& pick, RegionOutcome& outcome,
+                           bool bars_given) {
+  RegionRecord region;
+  region.where = demand.where;
+  region.face = demand.face;
+  region.direction = demand.direction;
+  region.x_mm = demand.x_mm;
+  region.y_mm = demand.y_mm;
+  region.M_Ed = demand.M_Ed;
+  region.d_mm = outcome.d_mm;
+  region.As_req_mm2 = outcome.As_req_mm2;
+  region.As_min_mm2 = outcome.As_min_mm2;
+  region.As_max_mm2 = outcome.As_max_mm2;
+  region.cover_mm = outcome.cover_mm;
+  region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
+  region.bars_given = bars_given;
+  region.checks = std::move(outcome.checks);
+  return region;
+}
+
+void settle_verdict(DesignRecord& rec, bool pass) {
+  rec.pass = pass;
+  rec.max_utilisation = 0.0;
+  bool first = true;
+  for (const Check* c : rec.all_checks()) {
+    if (!c->pass) rec.pass = false;
+    if (is_arrangement_limit(c->id.str()) && c->pass) continue;
+    if (first || c->utilisation > rec.max_utilisation) {
+      rec.max_utilisation = c->utilisation;
+      rec.governing_check = c->id;
+      rec.governing_where = c->where;
+      first = false;
+    }
+  }
+}
+
 void add_uniform_bottom_groups(const std::vector<RegionDemand>& demands, BarPlan& plan) {
   for (const BarDirection dir : {BarDirection::span, BarDirection::x, BarDirection::y}) {
     std::vector<std::size_t> group;

@@ -37,4 +37,16 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
                                                      const DurabilityInput& durability, const BarPlan& plan,
                                                      std::vector<std::string>& warnings);
 
+// The result's record of one region: the demand, the chosen bars and the
+// code's outcome for them (its checks moved out of `outcome`).
+RegionRecord region_record(const RegionDemand& demand, const SearchCandidate& pick, RegionOutcome& outcome,
+                           bool bars_given);
+
+// pass (every check, and `pass` to start from), the largest utilisation
+// and the governing check of a design record. The search takes the widest
+// spacing allowed, so a passing spacing limit sits near 1 by construction
+// and says nothing: it stays in the checks but heads the result only when
+// it fails.
+void settle_verdict(DesignRecord& rec, bool pass);
+
 }  // namespace armature

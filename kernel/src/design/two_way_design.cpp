@@ -218,22 +218,7 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
     RegionOutcome out = call_code(
         rec.code, "the checks", [&] { return checker.check_region(demand, pick.bar, pick.spacing_mm, detail); },
         demand.where);
-    RegionRecord region;
-    region.where = demand.where;
-    region.face = demand.face;
-    region.direction = demand.direction;
-    region.x_mm = demand.x_mm;
-    region.y_mm = demand.y_mm;
-    region.M_Ed = demand.M_Ed;
-    region.d_mm = out.d_mm;
-    region.As_req_mm2 = out.As_req_mm2;
-    region.As_min_mm2 = out.As_min_mm2;
-    region.As_max_mm2 = out.As_max_mm2;
-    region.cover_mm = out.cover_mm;
-    region.bars = {pick.bar.designation, pick.bar.diameter_mm, pick.spacing_mm, pick.As_prov_mm2};
-    region.checks = std::move(out.checks);
-    region.bars_given = plan.given[i].has_value();
-    rec.regions.push_back(std::move(region));
+    rec.regions.push_back(region_record(demand, pick, out, plan.given[i].has_value()));
     if (!demand.span_where.empty()) spans.push_back({demand.span_where, std::move(out.span_checks)});
     for (auto& s : out.supports) rec.supports.push_back({s.where, s.V_Ed, s.V_Rd, std::move(s.checks)});
   }
@@ -251,19 +236,7 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
   if (!free_rule.clause.empty()) plate_record.free_edges = free_edge_bars(plate_record, rec.regions, req, free_rule);
   rec.plate = std::make_shared<const PlateRecord>(std::move(plate_record));
 
-  rec.pass = true;
-  rec.max_utilisation = 0.0;
-  bool first = true;
-  for (const Check* c : rec.all_checks()) {
-    if (!c->pass) rec.pass = false;
-    if (is_arrangement_limit(c->id.str()) && c->pass) continue;
-    if (first || c->utilisation > rec.max_utilisation) {
-      rec.max_utilisation = c->utilisation;
-      rec.governing_check = c->id;
-      rec.governing_where = c->where;
-      first = false;
-    }
-  }
+  settle_verdict(rec, true);
   auto code_warnings = call_code(rec.code, "warnings", [&] { return checker.warnings(); });
   rec.warnings.insert(rec.warnings.begin(), code_warnings.begin(), code_warnings.end());
   return rec;

@@ -8,6 +8,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <optional>
 
 namespace armature {
 
@@ -369,21 +370,21 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
       const double lx = xg[i + 1] - xg[i], ly = yg[j + 1] - yg[j];
       const bool short_x = lx <= ly;
       RegionDemand& g = out[out.size() - (short_x ? 2 : 1)];
-      const auto continuous = [&](bool low_side) {
+      // The outer edge at one side of the shorter span; none on an interior grid line.
+      const auto side_edge = [&](bool low_side) -> std::optional<EndSupport> {
         const std::size_t k = short_x ? (low_side ? i : i + 1) : (low_side ? j : j + 1);
         const std::size_t last = short_x ? nx : ny;
-        if (k > 0 && k < last) return true;
-        const EndSupport e = model_.geometry().edges.*(short_x ? (k == 0 ? &PlateEdges::x0 : &PlateEdges::x1)
-                                                                : (k == 0 ? &PlateEdges::y0 : &PlateEdges::y1));
-        return e == EndSupport::fixed;
+        if (k > 0 && k < last) return std::nullopt;
+        return model_.geometry().edges.*(short_x ? (k == 0 ? &PlateEdges::x0 : &PlateEdges::x1)
+                                                 : (k == 0 ? &PlateEdges::y0 : &PlateEdges::y1));
+      };
+      const auto continuous = [&](bool low_side) {
+        const auto e = side_edge(low_side);
+        return !e || *e == EndSupport::fixed;
       };
       const auto free_side = [&](bool low_side) {
-        const std::size_t k = short_x ? (low_side ? i : i + 1) : (low_side ? j : j + 1);
-        const std::size_t last = short_x ? nx : ny;
-        if (k > 0 && k < last) return false;
-        const EndSupport e = model_.geometry().edges.*(short_x ? (k == 0 ? &PlateEdges::x0 : &PlateEdges::x1)
-                                                                : (k == 0 ? &PlateEdges::y0 : &PlateEdges::y1));
-        return e == EndSupport::free;
+        const auto e = side_edge(low_side);
+        return e && *e == EndSupport::free;
       };
       // A bay spanning to a free edge in its shorter direction is no
       // two-way panel of the span/depth rules: no such check (stated).
