@@ -73,6 +73,7 @@ class Checker final : public SlabChecker,
   double support_design_moment(const RegionDemand& g) const override;
   double pinned_end_fixity_fraction() const override;
   CornerRule corner_rule() const override;
+  FlatStripRule flat_strip_rule() const override;
   std::optional<SpanDeflection> deflection_diagram(const Section& sec, const RegionDemand& g) const override;
 
   // punching.cpp (PunchingRules: ACI 318-19 22.6, 8.4.4.2)
@@ -111,6 +112,7 @@ class Checker final : public SlabChecker,
   double shear_strength(double lambda_s, double rho_w, double b, double d) const;  // 22.5.5.1
   double min_thickness(double span, SupportCondition condition) const;            // 7.3.1.1
   double two_way_min_thickness(double long_span, double short_span) const;         // 8.3.1.2
+  void flat_slab_deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
   double cover_for(const std::string& exposure, double bar_diameter) const;       // 20.5.1.3.1
   double root_fc_limited() const;                               // √f'c ≤ 8.3 MPa (100 psi), 22.5.3.1
   double concrete_modulus() const;                              // 19.2.2.1: Ec, MPa

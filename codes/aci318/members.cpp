@@ -17,6 +17,8 @@ SupportCondition condition_of(SpanKind kind) {
     case SpanKind::end_span: return SupportCondition::one_end_continuous;
     case SpanKind::interior_span: return SupportCondition::both_ends_continuous;
     case SpanKind::cantilever: return SupportCondition::cantilever;
+    case SpanKind::flat_exterior_panel:
+    case SpanKind::flat_interior_panel: break;  // Table 8.3.1.1, flat_slab_deflection_check
   }
   return SupportCondition::simply_supported;
 }
@@ -72,6 +74,29 @@ void Checker::two_way_deflection_check(CheckCollector& span, const RegionDemand&
   });
 }
 
+// Table 8.3.1.1: the minimum thickness of a flat slab without drop panels
+// (no interior beams), from the clear span in the long direction;
+// exterior panels without edge beams, interior panels (a wall edge counts
+// as an edge beam: the interior column of the table).
+void Checker::flat_slab_deflection_check(CheckCollector& span, const RegionDemand& g, double h) const {
+  const bool exterior = g.span_kind == SpanKind::flat_exterior_panel;
+  const double divisor = us_ ? flat_slab_thickness_divisor(fy_ / MPa_per_psi, {40000.0, 60000.0, 75000.0}, exterior)
+                             : flat_slab_thickness_divisor(fy_, {280.0, 420.0, 520.0}, exterior);
+  const double floor = us_ ? 5.0 * mm_per_in : 125.0;
+  const double h_min = std::max(g.clear_span_mm / divisor, floor);
+  span.add("deflection", g.span_where, "ACI 318-19 8.3.1.1 Table 8.3.1.1", h_min, h, "mm", [&] {
+    StepRecorder st;
+    st.add("ℓn", "clear span in the long direction, face to face of the columns", len(g.clear_span_mm) + us_unit(len_u()),
+           len_v(g.clear_span_mm), len_u(), "ACI 318-19 8.3.1.1");
+    st.add("ℓn/h", exterior ? "Table 8.3.1.1, exterior panel without edge beams" : "Table 8.3.1.1, interior panel",
+           "fy = " + stress(fy_) + us_unit(stress_u()) + " (between the rows: linear)", divisor, "-",
+           "ACI 318-19 Table 8.3.1.1 (from memory)");
+    st.add("h_min", us_ ? "max(ℓn/(ℓn/h), 5 in)" : "max(ℓn/(ℓn/h), 125 mm)", len(g.clear_span_mm) + "/" + num(divisor),
+           len_v(h_min), len_u(), "ACI 318-19 8.3.1.1 (a)");
+    return st.take();
+  });
+}
+
 // 7.3.1.1: the minimum thickness of a solid one-way slab of this span.
 void Checker::deflection_check(CheckCollector& span, const RegionDemand& g, double h) const {
   const SupportCondition cond = condition_of(g.span_kind);
@@ -101,7 +126,8 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection", [&] {
-        if (g.direction != BarDirection::span) two_way_deflection_check(span, g, sec.h_mm);
+        if (is_flat_panel(g.span_kind)) flat_slab_deflection_check(span, g, sec.h_mm);
+        else if (g.direction != BarDirection::span) two_way_deflection_check(span, g, sec.h_mm);
         else deflection_check(span, g, sec.h_mm);
       });
       if (sv.deflection)
@@ -327,6 +353,10 @@ double Checker::pinned_end_fixity_fraction() const { return 0.0; }
 // Every exterior corner of two supported edges: the clause reads "slabs
 // supported by edge walls", whatever the walls' restraint.
 CornerRule Checker::corner_rule() const { return {1.0, 0.2, true, "ACI 318-19 8.7.3.1", true}; }
+
+// 8.4.1.5 (from memory): a column strip reaches 0.25 of the lesser of ℓ1
+// and ℓ2 each side of the column line; no concentration band over columns.
+FlatStripRule Checker::flat_strip_rule() const { return {0.25, "ACI 318-19 8.4.1.5"}; }
 
 // 7.4.1.3 (from memory): for slabs built integrally with supports, Mu at
 // the support may be taken at the face of support. A support given a

@@ -66,6 +66,14 @@ double two_way_min_thickness(double long_span, double short_span, double fy) {
   return std::max(long_span * (0.8 + fy / 1400.0) / (36.0 + 9.0 * beta), 90.0);
 }
 
+double flat_slab_thickness_divisor(double fy, const std::array<double, 3>& rows, bool exterior) {
+  const std::array<double, 3> d = exterior ? std::array<double, 3>{33.0, 30.0, 28.0} : std::array<double, 3>{36.0, 33.0, 31.0};
+  if (fy <= rows[0]) return d[0];
+  if (fy >= rows[2]) return d[2];
+  const std::size_t k = fy <= rows[1] ? 0 : 1;
+  return d[k] + (d[k + 1] - d[k]) * (fy - rows[k]) / (rows[k + 1] - rows[k]);
+}
+
 // 8.7.2.2 (value from memory): at critical sections of two-way slabs.
 double two_way_max_flexural_bar_spacing(double h) { return std::min(2.0 * h, 450.0); }
 

@@ -3,6 +3,7 @@
 // (from memory of the standard; see the tests for the check values).
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
@@ -47,6 +48,11 @@ double two_way_max_flexural_bar_spacing(double h);        // 8.7.2.2: min(2h, 45
 // ln (0.8 + fy/1400)/(36 + 9β), not less than 90 mm; ln the longer clear
 // span, β the ratio of the longer to the shorter.
 double two_way_min_thickness(double long_span, double short_span, double fy);
+// Table 8.3.1.1 (from memory): ℓn/h of a flat slab without drop panels,
+// for fy at the table's three rows (280, 420, 520 MPa or 40, 60, 75 ksi:
+// `rows`), linear between them, the end rows beyond: exterior panels
+// without edge beams 33, 30, 28; interior panels 36, 33, 31.
+double flat_slab_thickness_divisor(double fy, const std::array<double, 3>& rows, bool exterior);
 // 6.4.3.2: pattern live load on two-way slabs only where L > 0.75 D.
 bool two_way_pattern_loading_required(double L, double D);
 // 6.4.3.2: the fraction of the factored live load the patterns carry.

@@ -120,6 +120,7 @@ class Checker final : public SlabChecker,
   double pinned_end_fixity_fraction() const override;
   CornerRule corner_rule() const override;
   FreeEdgeRule free_edge_rule() const override;
+  FlatStripRule flat_strip_rule() const override;
 
   // punching.cpp (PunchingRules: EN 1992-1-1 6.4)
   double steel_ratio_width_mm(const PunchingDemand& p, bool along_x) const override;

@@ -50,6 +50,8 @@ StructuralSystem system_of(SpanKind kind) {
     case SpanKind::end_span: return StructuralSystem::end_span;
     case SpanKind::interior_span: return StructuralSystem::interior_span;
     case SpanKind::cantilever: return StructuralSystem::cantilever;
+    case SpanKind::flat_exterior_panel:
+    case SpanKind::flat_interior_panel: return StructuralSystem::flat_slab;
   }
   return StructuralSystem::simply_supported;
 }
@@ -61,6 +63,8 @@ const char* system_name(SpanKind kind) {
     case SpanKind::end_span: return "end span";
     case SpanKind::interior_span: return "interior span";
     case SpanKind::cantilever: return "cantilever";
+    case SpanKind::flat_exterior_panel:
+    case SpanKind::flat_interior_panel: return "flat slab, on the longer span";
   }
   return "";
 }
@@ -509,6 +513,14 @@ CornerRule Checker::corner_rule() const { return {0.0, 0.2, true, "EN 1992-1-1 9
 // (9.3.1.4(2)).
 FreeEdgeRule Checker::free_edge_rule() const { return {2.0, "EN 1992-1-1 9.3.1.4, Figure 9.8"}; }
 
+// Annex I.1.2 Figure I.1 (from memory): column strips 0.25 lx each side of
+// the column line, lx the panel's shorter span; 9.4.1(2): over internal
+// columns half the top steel of the whole panel width within 0.125 × the
+// panel width each side.
+FlatStripRule Checker::flat_strip_rule() const {
+  return {0.25, "EN 1992-1-1 Annex I.1.2, Figure I.1", 0.125, 0.5, "EN 1992-1-1 9.4.1(2)"};
+}
+
 std::vector<Check> Checker::span_checks(const std::string& span_where) const {
   std::vector<Check> out;
   if (req_.fire.resistance_min) {
@@ -571,7 +583,8 @@ void Checker::deflection_check(CheckCollector& checks, const RegionDemand& g, do
   const double rho0 = reference_reinforcement_ratio(m_.fck);
   const double K = structural_system_factor(system_of(g.span_kind));
   const double basic = basic_span_depth_ratio(K, m_.fck, rho, 0.0);
-  const double f_long = long_span_factor(g.span_mm);
+  const bool flat = is_flat_panel(g.span_kind);
+  const double f_long = flat ? flat_slab_long_span_factor(g.span_mm) : long_span_factor(g.span_mm);
   const double f_steel = steel_stress_factor(m_.fyk, As_prov, As_req, ndp_.steel_stress_factor_cap);
   const double modified = basic * f_long * f_steel;
   const double allowed = capped_span_depth_ratio(modified, K, ndp_.span_depth_cap_K);
@@ -592,7 +605,8 @@ void Checker::deflection_check(CheckCollector& checks, const RegionDemand& g, do
                        : "K[11 + 1.5√fck ρ0/(ρ − ρ') + √fck √(ρ'/ρ0)/12], ρ' = 0",
            "K = " + num(K) + ", fck = " + num(m_.fck) + ", ρ0 = " + num(rho0) + ", ρ = " + num(rho), basic, "-",
            rho <= rho0 ? "EN 1992-1-1 7.4.2 (7.16a)" : "EN 1992-1-1 7.4.2 (7.16b)");
-    st.add("F_l", "7/leff when leff > 7 m", num(g.span_mm * 1e-3) + " m", f_long, "-", "EN 1992-1-1 7.4.2(2)");
+    st.add("F_l", flat ? "8.5/leff when leff > 8.5 m (flat slab)" : "7/leff when leff > 7 m",
+           num(g.span_mm * 1e-3) + " m", f_long, "-", "EN 1992-1-1 7.4.2(2)");
     st.add("310/σs", "(500/fyk)(As,prov/As,req) ≤ cap",
            "(500/" + num(m_.fyk) + ")(" + num(As_prov) + "/" + num(As_req) + ") ≤ " +
                num(ndp_.steel_stress_factor_cap),

@@ -262,6 +262,7 @@ double structural_system_factor(StructuralSystem s) {
     case StructuralSystem::end_span: return 1.3;
     case StructuralSystem::interior_span: return 1.5;
     case StructuralSystem::cantilever: return 0.4;
+    case StructuralSystem::flat_slab: return 1.2;
   }
   return 1.0;
 }
@@ -281,6 +282,7 @@ double capped_span_depth_ratio(double allowed, double K, std::optional<double> c
 }
 
 double long_span_factor(double span_mm) { return span_mm > 7000.0 ? 7000.0 / span_mm : 1.0; }
+double flat_slab_long_span_factor(double span_mm) { return span_mm > 8500.0 ? 8500.0 / span_mm : 1.0; }
 
 double steel_stress_factor(double fyk, double As_prov, double As_req, double cap) {
   // No steel required (no moment): the steel is unstressed, the cap applies.

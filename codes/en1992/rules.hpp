@@ -177,12 +177,13 @@ double max_crack_spacing_wide(double h, double x);
 double crack_width(double sr_max, double strain_difference);
 
 // ---- Deflection (EN 1992-1-1 7.4.2) ---------------------------------------
-enum class StructuralSystem { simply_supported, end_span, interior_span, cantilever };
+enum class StructuralSystem { simply_supported, end_span, interior_span, cantilever, flat_slab };
 double reference_reinforcement_ratio(double fck);      // ρ0 = √fck × 10⁻³
 double structural_system_factor(StructuralSystem s);   // Table 7.4N: K
 // (7.16a) for ρ ≤ ρ0, (7.16b) otherwise.
 double basic_span_depth_ratio(double K, double fck, double rho, double rho_compression);
 double long_span_factor(double span_mm);               // 7.4.2(2): 7/leff beyond 7 m
+double flat_slab_long_span_factor(double span_mm);     // 7.4.2(2): 8.5/leff beyond 8.5 m
 // UK NA Table NA.5 Note 6 (A1:2009): l/d allowed ≤ cap_K × K; no cap when nullopt.
 double capped_span_depth_ratio(double allowed, double K, std::optional<double> cap_K);
 // 7.4.2(2), (7.17): 310/σs ≈ (500/fyk)(As,prov/As,req), capped.

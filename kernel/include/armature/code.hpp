@@ -86,7 +86,18 @@ struct LoadTotals {
 };
 
 // How a span is supported, for span/depth rules.
-enum class SpanKind { simply_supported, end_span, interior_span, cantilever };
+// The span's structural system for span/depth rules. Flat slabs: a panel
+// on columns, exterior where a side lies on the slab's free edge (the
+// columns' edge), interior otherwise (a wall counts as a stiff edge).
+enum class SpanKind {
+  simply_supported,
+  end_span,
+  interior_span,
+  cantilever,
+  flat_exterior_panel,
+  flat_interior_panel
+};
+inline bool is_flat_panel(SpanKind k) { return k == SpanKind::flat_exterior_panel || k == SpanKind::flat_interior_panel; }
 
 struct SupportDemand {
   std::string where;   // "support 1"
@@ -166,8 +177,11 @@ struct RegionDemand {
   double outer_bar_mm = 0.0;
   // Two-way slabs: the longer span of the bay whose deflection these bars
   // govern (span_mm is its shorter span), for codes whose two-way rules
-  // read both.
+  // read both. Flat slab panels (span_kind flat_*): span_mm and
+  // long_span_mm are the panel's longer span between column lines, and
+  // clear_span_mm the clear span in that direction, face to face.
   double long_span_mm = 0.0;
+  double clear_span_mm = 0.0;
 };
 
 // How much a code reports for one bar arrangement: the bar search needs
@@ -306,6 +320,23 @@ struct FreeEdgeRule {
   std::string clause{};
 };
 
+// Flat slabs: the widths of the design strips and the concentration of
+// top steel over internal columns. A column strip reaches
+// `column_strip_each_side` × the lesser of the two spans of the panel on
+// that side (along and across the strip) from the column line; the middle
+// strip is the rest of the panel. Where `band_each_side` > 0, over each
+// internal column a band reaching band_each_side × the panel's width (the
+// span across the strip) each side of the column line takes top steel for
+// at least `band_share` of the hogging of the whole panel width
+// (band_clause). An empty `clause`: the code designs no flat slabs.
+struct FlatStripRule {
+  double column_strip_each_side = 0.25;
+  std::string clause{};
+  double band_each_side = 0.0;
+  double band_share = 0.0;
+  std::string band_clause{};
+};
+
 // The code's checks of a member that are not a section's.
 class MemberRules {
  public:
@@ -329,6 +360,8 @@ class MemberRules {
   virtual CornerRule corner_rule() const { return {}; }
   // Free-edge reinforcement of two-way slabs (FreeEdgeRule); none by default.
   virtual FreeEdgeRule free_edge_rule() const { return {}; }
+  // Design strips of flat slabs (FlatStripRule); none by default.
+  virtual FlatStripRule flat_strip_rule() const { return {}; }
   // The design hogging moment (N·mm, magnitude) of a support region whose
   // support has a width (region.support_face.width_mm > 0), from the
   // moments the kernel gives per load case; called once per such region,
@@ -560,6 +593,7 @@ class ForwardingMemberRules : public MemberRules {
   double pinned_end_fixity_fraction() const override { return inner_->pinned_end_fixity_fraction(); }
   CornerRule corner_rule() const override { return inner_->corner_rule(); }
   FreeEdgeRule free_edge_rule() const override { return inner_->free_edge_rule(); }
+  FlatStripRule flat_strip_rule() const override { return inner_->flat_strip_rule(); }
   double support_design_moment(const RegionDemand& region) const override {
     return inner_->support_design_moment(region);
   }

@@ -67,6 +67,20 @@ struct SpanRecord {
   std::vector<Check> checks;
 };
 
+// A column of a flat slab: what it takes from the slab (the ULS envelope)
+// and its punching checks.
+struct ColumnRecord {
+  std::string name;                  // "column i,j"
+  double x_mm = 0.0, y_mm = 0.0;     // centre, request plan
+  double cx_mm = 0.0, cy_mm = 0.0;   // size along x, along y
+  double V_Ed_N = 0.0;               // largest ULS reaction
+  // Largest ULS moments the column takes (restrained columns; none where
+  // the columns are free to turn).
+  std::optional<double> M_x_Nmm, M_y_Nmm;
+  bool regular_spans = false;        // the demand's braced_regular_spans
+  PunchingOutcome punching;          // its checks are the column's
+};
+
 struct DistributionRecord {
   BarChoice bars;
   double As_req_mm2 = 0.0;
@@ -174,8 +188,10 @@ struct DesignRecord {
   // A two-way slab's plate: grid, edges, bays, the ULS moment envelopes
   // and the line reactions (two_way.hpp); null for a strip.
   std::shared_ptr<const PlateRecord> plate;
+  // A flat slab's columns (empty otherwise).
+  std::vector<ColumnRecord> columns;
 
-  // Every check of every region, support and span, in that order.
+  // Every check of every region, support, span and column, in that order.
   std::vector<const Check*> all_checks() const;
   std::optional<DetailingRecord> detailing;  // when the request asks for it
 };

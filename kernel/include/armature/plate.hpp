@@ -54,10 +54,13 @@ struct PlateEdges {
 
 // A column under the plate: its outline in plan (mm from x = 0, y = 0),
 // inside the plate. The part of the plate over it moves as a rigid patch
-// that cannot move down at the column's centre and is free to turn (a
-// column with no rotational restraint: pinned at the slab).
+// that cannot move down at the column's centre and turns against the
+// column's rotational stiffness (0: free to turn, a column pinned at the
+// slab): k_x resists the patch's turn θx = w,x (bending in x, about the y
+// axis), k_y its turn θy = w,y; N·mm per radian.
 struct PlateColumn {
   double x0_mm = 0.0, x1_mm = 0.0, y0_mm = 0.0, y1_mm = 0.0;
+  double k_x_Nmm = 0.0, k_y_Nmm = 0.0;
 };
 
 struct PlateGeometry {
@@ -319,6 +322,10 @@ class PlateField {
   // Per column (geometry order): its upward reaction (N), the sum of the
   // vertical forces the rigid patch over it takes from the plate.
   std::vector<double> column_reactions(std::size_t c) const;
+  // Per column: the moments its rotational stiffness takes from the
+  // slab, {k_x θx, k_y θy} (N·mm; positive where the slab turns toward
+  // larger x, larger y going down). Zero for a column free to turn.
+  std::vector<std::array<double, 2>> column_moments(std::size_t c) const;
 
   // All of the above but the resultant for one case, each computed once.
   PlateCaseResults case_results(std::size_t c) const;

@@ -179,17 +179,31 @@ enum class ReportUnits { SI, US };
 
 // ---- two-way slabs (contract-v2 section 2) ---------------------------------
 
-// slab.type: the version 1 strip, or a grid of bays on line supports.
-enum class SlabType { one_way, two_way };
+// slab.type: the version 1 strip, a grid of bays on line supports, or a
+// flat slab on columns.
+enum class SlabType { one_way, two_way, flat };
+
+// Flat slabs: the columns at the grid intersections (slab.columns).
+struct ColumnsInput {
+  double x_mm = 0.0, y_mm = 0.0;  // size_mm: along x, along y
+  // height_m: the storey heights below and above the slab, as mm; 0: no
+  // column on that side. Both 0: the columns are free to turn (none given).
+  double below_mm = 0.0, above_mm = 0.0;
+  bool restrained() const { return below_mm > 0.0 || above_mm > 0.0; }
+};
 
 // The geometry and analysis options of a two-way slab (slab.x_spans_m,
 // slab.y_spans_m, slab.edges, analysis.*, reinforcement.outer_layer).
 struct TwoWayInput {
   std::vector<double> x_spans_mm;
   std::vector<double> y_spans_mm;
-  // Outer edges in the order x0, x1, y0, y1 (x0: the edge at x = 0).
+  // Outer edges in the order x0, x1, y0, y1 (x0: the edge at x = 0). A
+  // flat slab's "wall" edge is pinned; its "columns" edge is free (the
+  // slab ends flush with the columns' outer faces): column_edges.
   std::array<EndSupport, 4> edges{EndSupport::pinned, EndSupport::pinned, EndSupport::pinned,
                                   EndSupport::pinned};
+  std::array<bool, 4> column_edges{};
+  ColumnsInput columns{};
   double poisson_ratio = 0.2;
   int mesh_per_bay = 0;     // 0: the kernel's default
   std::string outer_layer;  // "x", "y" or empty: the direction of the larger moment
@@ -209,10 +223,12 @@ struct Request {
   DetailingInput detailing;
   ReportUnits report_units = ReportUnits::SI;
   ProjectInfo project;
-  // Two-way slabs (slab.type "two_way"); slab.thickness_mm holds the
-  // thickness and slab.strip_width_mm the metre width of every result.
+  // Two-way and flat slabs (slab.type "two_way", "flat"); slab.thickness_mm
+  // holds the thickness and slab.strip_width_mm the metre width of every
+  // result.
   SlabType slab_type = SlabType::one_way;
   TwoWayInput two_way{};
+  bool plate() const { return slab_type != SlabType::one_way; }
 };
 
 // Every action of a request, in the order combinations refer to them: the

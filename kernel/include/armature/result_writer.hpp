@@ -230,8 +230,39 @@ void write_plate(W& w, const PlateRecord& p) {
   w.key("edges");
   w.begin_object();
   const char* edge_keys[4] = {"x0", "x1", "y0", "y1"};
-  for (std::size_t k = 0; k < 4; ++k) w.key(edge_keys[k]), w.value(to_string(p.edges[k]));
+  for (std::size_t k = 0; k < 4; ++k)
+    w.key(edge_keys[k]), w.value(p.flat ? (p.column_edges[k] ? "columns" : "wall") : to_string(p.edges[k]));
   w.end();
+  if (p.flat) {
+    w.key("outline_m");
+    w.begin_object();
+    for (std::size_t k = 0; k < 4; ++k) w.key(edge_keys[k]), w.value(p.outline_mm[k] * m_per_mm);
+    w.end();
+    w.key("columns_restrained"), w.value(p.columns_restrained);
+    w.key("strips");
+    w.begin_array();
+    for (const auto& s : p.strips) {
+      w.begin_object();
+      w.key("name"), w.value(s.name);
+      w.key("kind"), w.value(s.column ? "column" : "middle");
+      w.key("direction"), w.value(to_string(s.direction));
+      w.key("spans");
+      w.begin_array();
+      for (const auto& q : s.pieces) {
+        w.begin_object();
+        w.key("x0_m"), w.value(q[0] * m_per_mm);
+        w.key("x1_m"), w.value(q[1] * m_per_mm);
+        w.key("y0_m"), w.value(q[2] * m_per_mm);
+        w.key("y1_m"), w.value(q[3] * m_per_mm);
+        w.end();
+      }
+      w.end();
+      w.end();
+    }
+    w.end();
+    w.key("strip_clause"), w.value(p.strip_clause);
+    if (!p.band_clause.empty()) w.key("band_clause"), w.value(p.band_clause);
+  }
   w.key("bays");
   w.begin_array();
   for (const auto& b : p.bays) {
@@ -320,6 +351,63 @@ void write_plate(W& w, const PlateRecord& p) {
   w.key("top"), w.value(p.outer_layer[1]);
   w.end();
   w.key("load_arrangements"), w.value(static_cast<long long>(p.arrangements));
+  w.end();
+}
+
+// A flat slab's columns: reaction, moments taken (restrained columns),
+// and the punching checks with their perimeters and any reinforcement.
+template <class W>
+void write_columns(W& w, const std::vector<ColumnRecord>& columns, bool with_steps) {
+  using namespace result_units;
+  w.key("columns");
+  w.begin_array();
+  for (const auto& c : columns) {
+    const PunchingOutcome& p = c.punching;
+    w.begin_object();
+    w.key("name"), w.value(c.name);
+    w.key("x_m"), w.value(c.x_mm * m_per_mm);
+    w.key("y_m"), w.value(c.y_mm * m_per_mm);
+    w.key("size_mm");
+    w.begin_array();
+    w.value(c.cx_mm), w.value(c.cy_mm);
+    w.end();
+    w.key("position"), w.value(p.position == ColumnPosition::internal ? "internal"
+                               : p.position == ColumnPosition::edge ? "edge" : "corner");
+    w.key("reaction_kN"), w.value(c.V_Ed_N * kN_per_N);
+    if (c.M_x_Nmm) w.key("M_x_kNm"), w.value(*c.M_x_Nmm * 1e-6);
+    if (c.M_y_Nmm) w.key("M_y_kNm"), w.value(*c.M_y_Nmm * 1e-6);
+    w.key("d_mm"), w.value(p.d_mm);
+    w.key("transfer_factor"), w.value(p.transfer_factor);
+    w.key("perimeters");
+    w.begin_array();
+    for (const auto& q : p.perimeters) {
+      w.begin_object();
+      w.key("name"), w.value(q.name);
+      w.key("distance_mm"), w.value(q.distance_mm);
+      w.key("length_mm"), w.value(q.length_mm);
+      w.end();
+    }
+    w.end();
+    w.key("v_MPa"), w.value(p.v_MPa);
+    w.key("v_concrete_MPa"), w.value(p.v_concrete_MPa);
+    w.key("v_face_MPa"), w.value(p.v_face_MPa);
+    w.key("v_max_MPa"), w.value(p.v_max_MPa);
+    w.key("reinforcement_needed"), w.value(p.reinforcement_needed);
+    if (p.reinforcement) {
+      const PunchingReinforcement& s = *p.reinforcement;
+      w.key("reinforcement");
+      w.begin_object();
+      w.key("spacing_mm"), w.value(s.spacing_mm);
+      w.key("area_per_perimeter_mm2"), w.value(s.area_per_perimeter_mm2);
+      w.key("design_strength_MPa"), w.value(s.design_strength_MPa);
+      w.key("outer_perimeter_distance_mm"), w.value(s.outer_perimeter_distance_mm);
+      w.key("outermost_line_distance_mm"), w.value(s.outermost_line_distance_mm);
+      w.end();
+    }
+    w.key("pass"), w.value(p.pass);
+    w.key("checks"), write_checks(w, p.checks, with_steps);
+    w.end();
+  }
   w.end();
 }
 
@@ -453,6 +541,7 @@ void write_result(W& w, const DesignRecord& r, bool with_steps = false) {
     w.end();
   }
   if (r.plate) write_plate(w, *r.plate);
+  if (r.plate && r.plate->flat) write_columns(w, r.columns, with_steps);
   if (r.detailing) w.key("detailing"), write_detailing(w, *r.detailing, with_steps);
   w.key("checks");
   w.begin_array();

@@ -60,6 +60,22 @@ struct PlateFreeEdgeRecord {
   std::string clause;
 };
 
+// A design strip of a flat slab: its bars run in `direction` (a strip
+// along x has bars in x); one plan rectangle per span (x0, x1, y0, y1,
+// the request's plan), the widths varying with the spans.
+struct FlatStripRecord {
+  std::string name;  // "column strip y1", "middle strip y0-y1"
+  BarDirection direction = BarDirection::x;
+  bool column = true;
+  std::vector<std::array<double, 4>> pieces;
+};
+
+// A column of a flat slab, for the record's plan (request plan).
+struct FlatColumnOutline {
+  std::string name;
+  double x_mm = 0.0, y_mm = 0.0, cx_mm = 0.0, cy_mm = 0.0;
+};
+
 struct PlateBayRecord {
   std::string name;  // "bay i,j"
   double x0_mm = 0.0, x1_mm = 0.0, y0_mm = 0.0, y1_mm = 0.0;
@@ -78,7 +94,27 @@ struct PlateRecord {
   int mesh_per_bay = 0;
   std::array<std::string, 2> outer_layer{};  // per face (bottom, top): "x" or "y"
   std::size_t arrangements = 0;              // bay load arrangements of the code
+  // Flat slabs: the slab's outline (x0, x1, y0, y1; the grid's for a
+  // two-way slab), the edges on columns, strips and columns. Plan
+  // positions (field, bays, strips) are the request's, from grid lines x0, y0.
+  bool flat = false;
+  std::array<double, 4> outline_mm{};
+  std::array<bool, 4> column_edges{};
+  bool columns_restrained = false;
+  std::vector<FlatStripRecord> strips;
+  std::vector<FlatColumnOutline> columns;
+  std::string strip_clause, band_clause;
 };
+
+// The plate's load case of one combination and arrangement: permanent
+// actions everywhere at their `loaded` factor, variable actions on the
+// loaded bays at `loaded` × variable_fraction (a patch or line across
+// several bays split at the model's grid lines). Plan positions of the
+// request are moved by (dx_mm, dy_mm) into the model's (a flat slab's
+// model starts at its edge, the request's plan at the first column line).
+PlateLoadCase plate_load_case(const PlateModel& model, const std::vector<Action>& actions,
+                              const Combination& combination, const BayArrangement& arrangement, double dx_mm = 0.0,
+                              double dy_mm = 0.0);
 
 // Name of an outer edge or interior grid line: "edge x0", "edge x1",
 // "grid x2" (the line at x = Σ x_spans[0..2)), "edge y0", "grid y1", ...
@@ -100,11 +136,11 @@ class TwoWayPlate {
   const PlateModel& model() const { return model_; }
 
   // The plate's load case of one combination and arrangement (exposed
-  // for tests): permanent actions everywhere at their `loaded` factor,
-  // variable actions on the loaded bays at `loaded` × variable_fraction
-  // (a patch or line across several bays split at the grid lines).
+  // for tests): plate_load_case.
   PlateLoadCase load_case(const std::vector<Action>& actions, const Combination& combination,
-                          const BayArrangement& arrangement) const;
+                          const BayArrangement& arrangement) const {
+    return plate_load_case(model_, actions, combination, arrangement);
+  }
 
   // Every ULS case (combination × arrangement) and the quasi-permanent
   // cases with every bay loaded, solved on one factorisation and

@@ -71,8 +71,10 @@ struct PlateMesh {
   // For each dof with free_index −2: the free unknowns it follows and their
   // coefficients (a column's two rotations, numbered after the node dofs).
   std::vector<std::vector<std::pair<long, double>>> constraint;
-  // Per column: the nodes of its patch.
+  // Per column: the nodes of its patch, and the unknowns of its two
+  // rotations θx, θy.
   std::vector<std::vector<std::size_t>> column_nodes;
+  std::vector<std::array<long, 2>> column_unknowns;
   // The free unknowns a dof's value is made of: itself, its constraint, or
   // none (held).
   template <class F>

@@ -87,6 +87,10 @@ void add_plate_problems(const PlateGeometry& g, InputProblems& problems) {
       problems.add(field, "needs a positive outline");
       continue;
     }
+    if (!(std::isfinite(c.k_x_Nmm) && std::isfinite(c.k_y_Nmm) && c.k_x_Nmm >= 0.0 && c.k_y_Nmm >= 0.0)) {
+      problems.add(field, "needs a rotational stiffness of at least 0");
+      continue;
+    }
     if (c.x0_mm < -tol || c.x1_mm > X + tol || c.y0_mm < -tol || c.y1_mm > Y + tol) {
       problems.add(field, "must lie on the slab");
       continue;
@@ -326,10 +330,12 @@ void build_mesh(PlateMesh& m) {
     else if (held[k] == follows) m.free_index[k] = -2;
   }
   m.constraint.assign(held.size(), {});
+  m.column_unknowns.assign(g.columns.size(), {});
   for (std::size_t k = 0; k < g.columns.size(); ++k) {
     const PlateColumn& c = g.columns[k];
     const double xc = (c.x0_mm + c.x1_mm) / 2.0, yc = (c.y0_mm + c.y1_mm) / 2.0;
     const long tx = static_cast<long>(m.free_count++), ty = static_cast<long>(m.free_count++);
+    m.column_unknowns[k] = {tx, ty};
     for (std::size_t nd : m.column_nodes[k]) {
       const double x = m.node_x[nd % m.columns()], y = m.node_y[nd / m.columns()];
       const std::size_t base = dofs_per_node * nd;

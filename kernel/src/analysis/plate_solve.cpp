@@ -113,6 +113,13 @@ void factorise(PlateMesh& m) {
       }
     }
   }
+  // The columns' rotational stiffness on their patches' rotations.
+  for (std::size_t k = 0; k < m.column_unknowns.size(); ++k) {
+    const PlateColumn& col = m.geometry.columns[k];
+    const auto [tx, ty] = m.column_unknowns[k];
+    if (col.k_x_Nmm > 0.0) triplets.emplace_back(static_cast<int>(tx), static_cast<int>(tx), col.k_x_Nmm);
+    if (col.k_y_Nmm > 0.0) triplets.emplace_back(static_cast<int>(ty), static_cast<int>(ty), col.k_y_Nmm);
+  }
   const auto size = static_cast<Eigen::Index>(m.free_count);
   Eigen::SparseMatrix<double> K(size, size);
   K.setFromTriplets(triplets.begin(), triplets.end());
@@ -929,6 +936,19 @@ std::vector<double> PlateField::column_reactions(std::size_t c) const {
     double F = 0.0;
     for (std::size_t nd : nodes) F += R[detail::dofs_per_node * nd + detail::dof_w];
     out.push_back(F);
+  }
+  return out;
+}
+
+std::vector<std::array<double, 2>> PlateField::column_moments(std::size_t c) const {
+  check_case_index(c, solution_->cases);
+  const auto& m = *mesh_;
+  const double* u = solution_->displacement(c);
+  std::vector<std::array<double, 2>> out;
+  for (std::size_t k = 0; k < m.column_nodes.size(); ++k) {
+    const PlateColumn& col = m.geometry.columns[k];
+    const std::size_t base = detail::dofs_per_node * m.column_nodes[k].front();
+    out.push_back({col.k_x_Nmm * u[base + detail::dof_wx], col.k_y_Nmm * u[base + detail::dof_wy]});
   }
   return out;
 }

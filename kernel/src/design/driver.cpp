@@ -131,6 +131,7 @@ std::vector<const Check*> DesignRecord::all_checks() const {
   for (const auto& r : regions) count += r.checks.size();
   for (const auto& s : supports) count += s.checks.size();
   for (const auto& s : spans) count += s.checks.size();
+  for (const auto& c : columns) count += c.punching.checks.size();
   std::vector<const Check*> out;
   out.reserve(count);
   for (const auto& r : regions)
@@ -139,6 +140,8 @@ std::vector<const Check*> DesignRecord::all_checks() const {
     for (const auto& c : s.checks) out.push_back(&c);
   for (const auto& s : spans)
     for (const auto& c : s.checks) out.push_back(&c);
+  for (const auto& col : columns)
+    for (const auto& c : col.punching.checks) out.push_back(&c);
   return out;
 }
 
@@ -163,8 +166,8 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     apply_default_strength(practice, j, req, problems);
     call_code(id, "input validation", [&] { code->validate(req, problems); });
   }
-  if (req.slab_type == SlabType::two_way) {  // a two-way slab: its own path (two_way_design.cpp)
-    req.slab.strip_width_mm = 1000.0;        // every result per metre, whatever the practice strip
+  if (req.plate()) {                   // a two-way or flat slab: its own path (two_way_design.cpp)
+    req.slab.strip_width_mm = 1000.0;  // every result per metre, whatever the practice strip
     if (problems.empty()) add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
@@ -189,7 +192,7 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                               [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
-  if (req.slab_type == SlabType::two_way) {  // a two-way slab: its own path (two_way_design.cpp)
+  if (req.plate()) {  // a two-way or flat slab: its own path (two_way_design.cpp)
     add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });

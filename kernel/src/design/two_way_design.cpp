@@ -1,12 +1,15 @@
-// The design of a two-way slab: the code's combinations and bay load
-// arrangements, the plate member (members/two_way.cpp), the bar search of
-// each region with its own effective depth (the inner layer's from the
-// outer layer's bars), and the code's checks of the chosen arrangements.
+// The design of a two-way or flat slab: the code's combinations and bay
+// load arrangements, the plate member (members/two_way.cpp, flat.cpp), the
+// bar search of each region with its own effective depth (the inner
+// layer's from the outer layer's bars), the code's checks of the chosen
+// arrangements, and a flat slab's punching at every column.
 #include "two_way_design.hpp"
 
 #include <algorithm>
 #include <cmath>
+#include <type_traits>
 
+#include "armature/flat.hpp"
 #include "armature/two_way.hpp"
 #include "call_code.hpp"
 #include "loads.hpp"
@@ -58,6 +61,72 @@ std::vector<PlateFreeEdgeRecord> free_edge_bars(const PlateRecord& p, const std:
   return out;
 }
 
+// The punching checks at every column of a flat slab, from its envelope
+// and the top bars over it (the band's where there is one, else the
+// column strips'; their depths and steel ratios per metre).
+std::vector<ColumnRecord> column_checks(const SlabChecker& checker, const CodeIdentity& code, const FlatPlate& plate,
+                                        const std::vector<RegionRecord>& regions, const Request& req, Detail detail) {
+  const PunchingRules& rules =
+      call_code(code, "punching rules", [&]() -> const PunchingRules& { return checker.punching_rules(); });
+  std::vector<ColumnRecord> out;
+  auto region = [&](const std::string& where, BarDirection dir) -> const RegionRecord* {
+    for (const auto& r : regions)
+      if (r.where == where && r.direction == dir && r.face == Face::top) return &r;
+    return nullptr;
+  };
+  for (const FlatColumn& col : plate.columns()) {
+    const std::string band = col.name + " band";
+    const RegionRecord* rx = region(band, BarDirection::x);
+    if (!rx) rx = region("column strip y" + std::to_string(col.j) + " at x" + std::to_string(col.i), BarDirection::x);
+    const RegionRecord* ry = region(band, BarDirection::y);
+    if (!ry) ry = region("column strip x" + std::to_string(col.i) + " at y" + std::to_string(col.j), BarDirection::y);
+    if (!rx || !ry) throw DesignError("flat slab: no top region over " + col.name);
+    PunchingDemand d;
+    d.where = col.name;
+    d.free = col.free;
+    d.cx_mm = req.two_way.columns.x_mm;
+    d.cy_mm = req.two_way.columns.y_mm;
+    d.h_mm = req.slab.thickness_mm;
+    d.dx_mm = rx->d_mm;
+    d.dy_mm = ry->d_mm;
+    d.rho_x = rx->bars.As_prov_mm2 / (1000.0 * rx->d_mm);
+    d.rho_y = ry->bars.As_prov_mm2 / (1000.0 * ry->d_mm);
+    d.V_N = col.V_N;
+    if (plate.columns_restrained()) {
+      d.M_x_Nmm = col.M_x_Nmm;
+      d.M_y_Nmm = col.M_y_Nmm;
+    }
+    d.braced_regular_spans = plate.regular_spans();
+    ColumnRecord c;
+    c.name = col.name;
+    c.x_mm = col.x_mm;
+    c.y_mm = col.y_mm;
+    c.cx_mm = d.cx_mm;
+    c.cy_mm = d.cy_mm;
+    c.V_Ed_N = col.V_N;
+    c.M_x_Nmm = d.M_x_Nmm;
+    c.M_y_Nmm = d.M_y_Nmm;
+    c.regular_spans = d.braced_regular_spans;
+    try {
+      c.punching = rules.check_punching(d, detail);
+    } catch (const InputError&) {
+      throw;
+    } catch (const std::invalid_argument& e) {
+      const std::string what = e.what();
+      if (!plate.columns_restrained() && (what.find("M_x_Nmm") != std::string::npos || what.find("M_y_Nmm") != std::string::npos))
+        throw InputError({{"slab.columns.height_m",
+                           code.id + " (" + code.variant + ") needs the moment each column takes from the slab for "
+                           "punching (" + what + "); give the storey heights so that the analysis restrains the "
+                           "columns"}});
+      throw DesignError(code.id + " (" + code.variant + "): failed during punching of " + col.name + ": " + what);
+    } catch (const std::exception& e) {
+      throw DesignError(code.id + " (" + code.variant + "): failed during punching of " + col.name + ": " + e.what());
+    }
+    out.push_back(std::move(c));
+  }
+  return out;
+}
+
 PlateGeometry checked_geometry(const Request& req) {
   PlateGeometry g;
   g.x_spans_mm = req.two_way.x_spans_mm;
@@ -73,10 +142,30 @@ PlateGeometry checked_geometry(const Request& req) {
 }  // namespace
 
 void add_two_way_problems(const Request& req, InputProblems& problems) {
-  add_plate_problems(checked_geometry(req), problems);
+  const bool flat = req.slab_type == SlabType::flat;
+  const TwoWayInput& t = req.two_way;
+  if (flat) {
+    const double cx = t.columns.x_mm, cy = t.columns.y_mm;
+    if (!(cx > 0.0 && cy > 0.0)) {
+      problems.add("slab.columns.size_mm", "must give the columns' sides, both above 0 mm");
+      return;
+    }
+    const double sx = t.x_spans_mm.empty() ? 0.0 : *std::min_element(t.x_spans_mm.begin(), t.x_spans_mm.end());
+    const double sy = t.y_spans_mm.empty() ? 0.0 : *std::min_element(t.y_spans_mm.begin(), t.y_spans_mm.end());
+    if (cx >= 0.5 * sx || cy >= 0.5 * sy)
+      problems.add("slab.columns.size_mm", "must be less than half the shortest span in its direction (" +
+                                               std::to_string(static_cast<long>(sx)) + " mm along x, " +
+                                               std::to_string(static_cast<long>(sy)) + " mm along y)");
+  }
+  add_plate_problems(flat ? flat_plate_geometry(req, two_way_nominal_modulus_MPa) : checked_geometry(req), problems);
   double X = 0.0, Y = 0.0;
   for (double s : req.two_way.x_spans_mm) X += s;
   for (double s : req.two_way.y_spans_mm) Y += s;
+  // A flat slab's edges on columns lie half a column past the grid lines.
+  const double x0 = flat && t.column_edges[0] ? -t.columns.x_mm / 2.0 : 0.0;
+  const double y0 = flat && t.column_edges[2] ? -t.columns.y_mm / 2.0 : 0.0;
+  if (flat && t.column_edges[1]) X += t.columns.x_mm / 2.0;
+  if (flat && t.column_edges[3]) Y += t.columns.y_mm / 2.0;
   for (std::size_t i = 0; i < req.loads.actions.size(); ++i) {
     const Action& a = req.loads.actions[i];
     const std::string path = a.field.empty() ? "loads.actions[" + std::to_string(i) + "]" : a.field;
@@ -86,14 +175,19 @@ void add_two_way_problems(const Request& req, InputProblems& problems) {
     if (!a.plan_mm) continue;
     const auto& p = *a.plan_mm;
     const bool finite = std::all_of(p.begin(), p.end(), [](double v) { return std::isfinite(v); });
-    if (!finite || p[0] < 0.0 || p[1] < 0.0 || p[2] > X * (1 + 1e-12) || p[3] > Y * (1 + 1e-12) || p[0] > p[2] ||
-        p[1] > p[3])
+    if (!finite || p[0] < x0 * (1 + 1e-12) || p[1] < y0 * (1 + 1e-12) || p[2] > X * (1 + 1e-12) ||
+        p[3] > Y * (1 + 1e-12) || p[0] > p[2] || p[1] > p[3])
       problems.add(path + (a.distribution == Distribution::point ? ".x_m" : ".from_m"),
-                   "must lie on the slab (x from 0 to Σ x_spans, y from 0 to Σ y_spans)");
+                   flat ? "must lie on the slab (from grid lines x0, y0; half a column past them at edges on columns)"
+                        : "must lie on the slab (x from 0 to Σ x_spans, y from 0 to Σ y_spans)");
   }
 }
 
-DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
+namespace {
+
+template <class Member>
+DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
+  constexpr bool flat = std::is_same_v<Member, FlatPlate>;
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = std::move(id);
@@ -120,7 +214,19 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
   rec.loads = total_loads(basis, rec.actions, rec.combinations);
   if (detail == Detail::steps) rec.defaults_used = call_code(rec.code, "defaults", [&] { return checker.defaults_used(); });
 
-  TwoWayPlate plate(req, two_way_nominal_modulus_MPa);
+  Member plate = [&] {
+    if constexpr (flat) {
+      const FlatStripRule rule = call_code(rec.code, "flat strip rule", [&] { return member_rules.flat_strip_rule(); });
+      if (rule.clause.empty())
+        throw DesignError(rec.code.id + " (" + rec.code.variant + "): the code designs no flat slabs");
+      if (!(rule.column_strip_each_side > 0.0 && rule.column_strip_each_side <= 0.5) || !(rule.band_each_side >= 0.0) ||
+          !(rule.band_share >= 0.0 && rule.band_share <= 1.0))
+        throw DesignError(rec.code.id + ": the flat strip rule's widths are out of range");
+      return FlatPlate(req, two_way_nominal_modulus_MPa, rule);
+    } else {
+      return TwoWayPlate(req, two_way_nominal_modulus_MPa);
+    }
+  }();
   const std::size_t nx = plate.bays_x(), ny = plate.bays_y();
   const auto arrangements = call_code(rec.code, "bay load arrangements",
                                       [&] { return combination_rules.bay_load_arrangements(nx, ny, rec.actions); });
@@ -138,8 +244,13 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
   rec.rationalise = req.reinforcement.rationalise;
 
   const double fraction = call_code(rec.code, "end fixity", [&] { return member_rules.pinned_end_fixity_fraction(); });
-  const CornerRule corners = call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); });
-  auto demands = plate.design_regions(fraction, corners, rec.warnings);
+  std::vector<RegionDemand> demands;
+  if constexpr (flat) {
+    demands = plate.design_regions(fraction, rec.warnings);
+  } else {
+    const CornerRule corners = call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); });
+    demands = plate.design_regions(fraction, corners, rec.warnings);
+  }
 
   // Bars: search every region; a face's inner direction lies on the
   // largest bar of its outer direction, so search again until the two agree.
@@ -157,6 +268,11 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
     if (found == demands.size()) {
       const bool named = std::any_of(demands.begin(), demands.end(), [&](const RegionDemand& d) { return d.where == gb.where; });
       if (named) given_problems.add(path + ".direction", "'" + gb.where + "' has no region with bars in " + gb.direction);
+      else if (flat)
+        given_problems.add(path + ".where", "no region '" + gb.where + "' in this slab; its regions are the strips' "
+                                            "spans and column lines ('column strip y1 span 2', 'middle strip "
+                                            "y0-y1 at x1', ...) and the bands over internal columns "
+                                            "('column 2,2 band', where the code sets them)");
       else
         given_problems.add(path + ".where", "no region '" + gb.where + "' in this slab; its regions are the bays "
                                             "('bay 1,1', ...), the supported line segments ('edge x0 segment 1', "
@@ -232,14 +348,26 @@ DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const R
     c = std::max(c, r.cover_mm);
   }
   PlateRecord plate_record = plate.record();
-  const FreeEdgeRule free_rule = call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });
-  if (!free_rule.clause.empty()) plate_record.free_edges = free_edge_bars(plate_record, rec.regions, req, free_rule);
+  if constexpr (flat) {
+    rec.columns = column_checks(checker, rec.code, plate, rec.regions, req, detail);
+  } else {
+    const FreeEdgeRule free_rule =
+        call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });
+    if (!free_rule.clause.empty()) plate_record.free_edges = free_edge_bars(plate_record, rec.regions, req, free_rule);
+  }
   rec.plate = std::make_shared<const PlateRecord>(std::move(plate_record));
 
   settle_verdict(rec, true);
   auto code_warnings = call_code(rec.code, "warnings", [&] { return checker.warnings(); });
   rec.warnings.insert(rec.warnings.begin(), code_warnings.begin(), code_warnings.end());
   return rec;
+}
+
+}  // namespace
+
+DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
+  if (req.slab_type == SlabType::flat) return design_plate<FlatPlate>(checker, std::move(id), req, detail);
+  return design_plate<TwoWayPlate>(checker, std::move(id), req, detail);
 }
 
 }  // namespace armature

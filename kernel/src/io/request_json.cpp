@@ -252,8 +252,8 @@ void read_support_widths(const json& widths, InputProblems& problems, bool geome
 void read_slab(const json& j, InputProblems& problems, SlabInput& slab) {
   ObjectReader r(j, "slab", problems,
                  {"type", "spans_m", "ends", "thickness_mm", "strip_width_mm", "support_widths_mm"});
-  if (auto type = r.text("type"); type && *type != "one_way")  // "two_way" is read by read_two_way_slab
-    problems.add("slab.type", "must be \"one_way\" or \"two_way\", got \"" + *type + "\"");
+  if (auto type = r.text("type"); type && *type != "one_way")  // "two_way", "flat": read_two_way_slab
+    problems.add("slab.type", "must be \"one_way\", \"two_way\" or \"flat\", got \"" + *type + "\"");
   const std::size_t problems_before = problems.items().size();
   const PlainAlias* alias = nullptr;
   bool plain_given = false;
@@ -590,13 +590,16 @@ std::optional<Action> read_action(const json& e, const std::string& path, const 
   return a;
 }
 
-std::optional<Action> read_plan_action(const json& e, const std::string& path,
-                                       const std::optional<std::array<double, 2>>& plan, InputProblems& problems);
+// A slab's extent in plan, mm: x_min, y_min, x_max, y_max.
+using PlanExtent = std::array<double, 4>;
 
-// `plan`: a two-way slab's actions are placed in plan (read_plan_action),
-// against its extent where known.
+std::optional<Action> read_plan_action(const json& e, const std::string& path,
+                                       const std::optional<PlanExtent>& plan, InputProblems& problems);
+
+// `plan`: a two-way or flat slab's actions are placed in plan
+// (read_plan_action), against its extent where known.
 void read_loads(const json& j, InputProblems& problems, LoadsInput& l, const std::vector<double>& spans_mm,
-                bool spans_known, const std::optional<std::array<double, 2>>* plan = nullptr) {
+                bool spans_known, const std::optional<PlanExtent>* plan = nullptr) {
   ObjectReader r(j, "loads", problems, {"dead_kPa", "imposed_kPa", "imposed_category", "actions"});
   const bool actions_given = r.find("actions") != nullptr;
   if (auto g = r.in_range(r.number("dead_kPa"), "dead_kPa", 0, 100, "kPa")) l.dead_MPa = *g * 1e-3;
@@ -770,15 +773,63 @@ void read_detailing(const json& j, InputProblems& problems, DetailingInput& d) {
 
 // ---- two-way slabs (contract-v2 section 2) ---------------------------------
 
-constexpr const char* not_yet_two_way = "not available yet for two_way slabs";
+std::string not_yet(const Request& req) {
+  return std::string("not available yet for ") + (req.slab_type == SlabType::flat ? "flat" : "two_way") + " slabs";
+}
 
-// slab of a two-way slab: x_spans_m, y_spans_m, edges, thickness_mm. The
-// one-way keys are refused, naming what a two-way slab takes instead.
-void read_two_way_slab(const json& j, InputProblems& problems, Request& req) {
+// slab.columns of a flat slab: size_mm [along x, along y], and height_m,
+// the storey heights below and above (one number: both; [below, above]; 0
+// on a side: no column there).
+void read_columns(const json& j, InputProblems& problems, ColumnsInput& c) {
+  ObjectReader r(j, "slab.columns", problems, {"size_mm", "height_m"});
+  if (const json* size = r.array("size_mm", true)) {
+    if (size->size() != 2) {
+      problems.add("slab.columns.size_mm", "must list the column's two sides [along x, along y] in mm, got " +
+                                               std::to_string(size->size()) + " values");
+    } else {
+      for (std::size_t k = 0; k < 2; ++k) {
+        const std::string f = "slab.columns.size_mm[" + std::to_string(k) + "]";
+        auto v = r.number_value((*size)[k], f);
+        if (!v) continue;
+        if (*v < 100.0 || *v > 3000.0)
+          problems.add(f, "must be from 100 mm to 3000 mm, got " + format_number(*v));
+        else
+          (k == 0 ? c.x_mm : c.y_mm) = *v;
+      }
+    }
+  }
+  if (const json* h = r.find("height_m")) {
+    std::vector<std::pair<const json*, std::string>> values;
+    if (h->is_array() && h->size() == 2) {
+      values = {{&(*h)[0], "slab.columns.height_m[0]"}, {&(*h)[1], "slab.columns.height_m[1]"}};
+    } else if (h->is_number()) {
+      values = {{h, "slab.columns.height_m"}, {h, "slab.columns.height_m"}};
+    } else {
+      problems.add("slab.columns.height_m", "must be a storey height in m, or [below, above], got " + describe(*h));
+    }
+    for (std::size_t k = 0; k < values.size(); ++k) {
+      auto v = r.number_value(*values[k].first, values[k].second);
+      if (!v) continue;
+      if (*v != 0.0 && (*v < 1.5 || *v > 20.0)) {
+        if (k == 0 || values[1].second != values[0].second)
+          problems.add(values[k].second, "must be 0 (no column on that side) or from 1.5 m to 20 m, got " +
+                                             format_number(*v));
+        continue;
+      }
+      (k == 0 ? c.below_mm : c.above_mm) = *v * 1000.0;
+    }
+  }
+}
+
+// slab of a two-way or flat slab: x_spans_m, y_spans_m, edges,
+// thickness_mm (and columns for a flat slab). The one-way keys are
+// refused, naming what a two-way slab takes instead.
+void read_two_way_slab(const json& j, InputProblems& problems, Request& req, bool flat) {
   ObjectReader r(j, "slab", problems,
                  {"type", "x_spans_m", "y_spans_m", "edges", "thickness_mm", "spans_m", "ends", "strip_width_mm",
-                  "support_widths_mm"});
-  req.slab_type = SlabType::two_way;
+                  "support_widths_mm", "columns"});
+  req.slab_type = flat ? SlabType::flat : SlabType::two_way;
+  const std::string kind = flat ? "a flat slab" : "a two_way slab";
   TwoWayInput& t = req.two_way;
   auto spans = [&](const char* key, std::vector<double>& out) {
     const json* list = r.array(key, true);
@@ -801,12 +852,25 @@ void read_two_way_slab(const json& j, InputProblems& problems, Request& req) {
   };
   spans("x_spans_m", t.x_spans_mm);
   spans("y_spans_m", t.y_spans_mm);
+  if (flat) {  // default: columns along every edge
+    t.edges.fill(EndSupport::free);
+    t.column_edges.fill(true);
+    if (const json* c = r.object("columns", true)) read_columns(*c, problems, t.columns);
+  } else if (r.find("columns")) {
+    problems.add("slab.columns", "applies to flat slabs only (slab.type \"flat\")");
+  }
   if (const json* edges = r.object("edges")) {
     ObjectReader e(*edges, "slab.edges", problems, {"x0", "x1", "y0", "y1"});
     const char* keys[4] = {"x0", "x1", "y0", "y1"};
     for (std::size_t k = 0; k < 4; ++k) {
       auto name = e.text(keys[k]);
       if (!name) continue;
+      if (flat) {
+        if (*name == "columns") t.edges[k] = EndSupport::free, t.column_edges[k] = true;
+        else if (*name == "wall") t.edges[k] = EndSupport::pinned, t.column_edges[k] = false;
+        else problems.add(e.field(keys[k]), "must be \"columns\" or \"wall\" on a flat slab, got \"" + *name + "\"");
+        continue;
+      }
       if (*name == "pinned") t.edges[k] = EndSupport::pinned;
       else if (*name == "fixed") t.edges[k] = EndSupport::fixed;
       else if (*name == "free") t.edges[k] = EndSupport::free;
@@ -815,18 +879,19 @@ void read_two_way_slab(const json& j, InputProblems& problems, Request& req) {
   }
   if (auto h = r.in_range(r.number("thickness_mm", true), "thickness_mm", 50, 1500, "mm")) req.slab.thickness_mm = *h;
   req.slab.strip_width_mm = 1000.0;  // every result per metre
-  if (r.find("spans_m")) problems.add("slab.spans_m", "belongs to one-way slabs; a two_way slab takes x_spans_m and y_spans_m");
-  if (r.find("ends")) problems.add("slab.ends", "belongs to one-way slabs; a two_way slab takes edges (x0, x1, y0, y1)");
+  if (r.find("spans_m")) problems.add("slab.spans_m", "belongs to one-way slabs; " + kind + " takes x_spans_m and y_spans_m");
+  if (r.find("ends")) problems.add("slab.ends", "belongs to one-way slabs; " + kind + " takes edges (x0, x1, y0, y1)");
   if (r.find("strip_width_mm"))
-    problems.add("slab.strip_width_mm", "does not apply to two_way slabs: every result is per metre width");
-  if (r.find("support_widths_mm")) problems.add("slab.support_widths_mm", not_yet_two_way);
+    problems.add("slab.strip_width_mm", "does not apply to " + std::string(flat ? "flat" : "two_way") +
+                                            " slabs: every result is per metre width");
+  if (r.find("support_widths_mm")) problems.add("slab.support_widths_mm", not_yet(req));
 }
 
 // analysis (two-way slabs): poisson_ratio, mesh_per_bay.
 void read_analysis(const json& j, InputProblems& problems, Request& req) {
   ObjectReader r(j, "analysis", problems, {"poisson_ratio", "mesh_per_bay"});
-  if (req.slab_type != SlabType::two_way) {
-    problems.add("analysis", "applies to two_way slabs only (slab.type)");
+  if (!req.plate()) {
+    problems.add("analysis", "applies to two_way and flat slabs only (slab.type)");
     return;
   }
   if (auto nu = r.number("poisson_ratio")) {
@@ -863,7 +928,7 @@ std::optional<std::array<double, 2>> plan_point(const json* v, const std::string
 // y) or a point load (point_kN at x_m, y_m). Positions are checked against
 // the plate (Σ x_spans, Σ y_spans) when `plan` is known.
 std::optional<Action> read_plan_action(const json& e, const std::string& path,
-                                       const std::optional<std::array<double, 2>>& plan, InputProblems& problems) {
+                                       const std::optional<PlanExtent>& plan, InputProblems& problems) {
   if (!e.is_object()) {
     problems.add(path, "must be an object with name, kind and one of kPa, line_kN_per_m or point_kN, got " +
                            describe(e));
@@ -900,14 +965,16 @@ std::optional<Action> read_plan_action(const json& e, const std::string& path,
   }
   for (const char* k : {"span", "at_m", "effective_width_m"})
     if (e.contains(k))
-      problems.add(path + "." + k, "belongs to one-way slabs; a two_way slab places loads by plan position "
+      problems.add(path + "." + k, "belongs to one-way slabs; a two_way or flat slab places loads by plan position "
                                    "(from_m and to_m as [x, y], or x_m and y_m)");
   auto inside = [&](const std::array<double, 2>& p, const std::string& f) {
     if (!plan) return true;
-    const double tol = 1e-9 * ((*plan)[0] + (*plan)[1]);
-    if (p[0] < -tol || p[1] < -tol || p[0] > (*plan)[0] + tol || p[1] > (*plan)[1] + tol) {
-      problems.add(f, "must lie on the slab (x from 0 to " + format_number((*plan)[0] / 1000.0) + " m, y from 0 to " +
-                          format_number((*plan)[1] / 1000.0) + " m), got [" + format_number(p[0] / 1000.0) + ", " +
+    const PlanExtent& q = *plan;
+    const double tol = 1e-9 * (q[2] - q[0] + q[3] - q[1]);
+    if (p[0] < q[0] - tol || p[1] < q[1] - tol || p[0] > q[2] + tol || p[1] > q[3] + tol) {
+      problems.add(f, "must lie on the slab (x from " + format_number(q[0] / 1000.0) + " to " +
+                          format_number(q[2] / 1000.0) + " m, y from " + format_number(q[1] / 1000.0) + " to " +
+                          format_number(q[3] / 1000.0) + " m), got [" + format_number(p[0] / 1000.0) + ", " +
                           format_number(p[1] / 1000.0) + "]");
       return false;
     }
@@ -966,7 +1033,7 @@ std::optional<Action> read_plan_action(const json& e, const std::string& path,
 
 // loads of a two-way slab: as a strip's, each action placed in plan.
 void read_two_way_loads(const json& j, InputProblems& problems, Request& req) {
-  std::optional<std::array<double, 2>> plan;
+  std::optional<PlanExtent> plan;
   const bool spans_ok = std::none_of(problems.items().begin(), problems.items().end(), [](const InputProblem& p) {
     return p.field.rfind("slab.x_spans_m", 0) == 0 || p.field.rfind("slab.y_spans_m", 0) == 0;
   });
@@ -974,17 +1041,23 @@ void read_two_way_loads(const json& j, InputProblems& problems, Request& req) {
     double X = 0.0, Y = 0.0;
     for (double s : req.two_way.x_spans_mm) X += s;
     for (double s : req.two_way.y_spans_mm) Y += s;
-    plan = std::array<double, 2>{X, Y};
+    // A flat slab's edge on columns lies flush with their outer faces.
+    const TwoWayInput& t = req.two_way;
+    const bool flat = req.slab_type == SlabType::flat;
+    const double hx = flat ? t.columns.x_mm / 2.0 : 0.0, hy = flat ? t.columns.y_mm / 2.0 : 0.0;
+    plan = PlanExtent{t.column_edges[0] ? -hx : 0.0, t.column_edges[2] ? -hy : 0.0, X + (t.column_edges[1] ? hx : 0.0),
+                      Y + (t.column_edges[3] ? hy : 0.0)};
   }
   read_loads(j, problems, req.loads, {}, false, &plan);
 }
 
 // What a two-way slab does not take yet, named (never ignored).
 void add_two_way_scope_problems(const Request& req, InputProblems& problems) {
-  if (req.design.redistribution_percent > 0.0) problems.add("design.redistribution_percent", not_yet_two_way);
-  if (req.detailing.requested) problems.add("detailing", not_yet_two_way);
+  if (req.design.redistribution_percent > 0.0) problems.add("design.redistribution_percent", not_yet(req));
+  if (req.detailing.requested) problems.add("detailing", not_yet(req));
+  if (req.slab_type == SlabType::flat && req.fire.resistance_min) problems.add("fire", not_yet(req));
   if (req.serviceability.calculated_deflection())
-    problems.add("serviceability.deflection", "\"calculated\" and \"both\" are " + std::string(not_yet_two_way) +
+    problems.add("serviceability.deflection", "\"calculated\" and \"both\" are " + not_yet(req) +
                                                   "; give \"span_depth\" or leave the field out");
 }
 
@@ -1034,8 +1107,9 @@ Request request_from_json(const json& j, InputProblems& problems) {
   }
   req.variant = r.text("variant");
   const json* slab = r.object("slab", true);
-  const bool two_way = slab && slab->contains("type") && (*slab)["type"] == "two_way";
-  if (slab && two_way) read_two_way_slab(*slab, problems, req);
+  const bool flat = slab && slab->contains("type") && (*slab)["type"] == "flat";
+  const bool two_way = slab && slab->contains("type") && ((*slab)["type"] == "two_way" || flat);
+  if (slab && two_way) read_two_way_slab(*slab, problems, req, flat);
   else if (slab) read_slab(*slab, problems, req.slab);
   if (const json* a = r.object("analysis")) read_analysis(*a, problems, req);
   if (const json* c = r.object("concrete", true)) read_concrete(*c, problems, req.concrete);
@@ -1058,7 +1132,7 @@ Request request_from_json(const json& j, InputProblems& problems) {
   if (two_way) add_two_way_scope_problems(req, problems);
   if (request_gives(j, "reinforcement.outer_layer")) {
     const json& o = j["reinforcement"]["outer_layer"];
-    if (!two_way) problems.add("reinforcement.outer_layer", "applies to two_way slabs only (slab.type)");
+    if (!two_way) problems.add("reinforcement.outer_layer", "applies to two_way and flat slabs only (slab.type)");
     else if (o == "x" || o == "y") req.two_way.outer_layer = o.get<std::string>();
     else problems.add("reinforcement.outer_layer", "must be \"x\" or \"y\", got " + describe(o));
   }

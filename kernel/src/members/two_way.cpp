@@ -79,11 +79,12 @@ std::string plate_line_name(const SupportLine& line, std::size_t bays_x, std::si
 TwoWayPlate::TwoWayPlate(const Request& request, double elastic_modulus_MPa)
     : model_(geometry_of(request, elastic_modulus_MPa)), requested_outer_(request.two_way.outer_layer) {}
 
-PlateLoadCase TwoWayPlate::load_case(const std::vector<Action>& actions, const Combination& combination,
-                                     const BayArrangement& arrangement) const {
-  const std::size_t nx = bays_x(), ny = bays_y(), nb = nx * ny;
-  const auto& xg = model_.x_grid_mm();
-  const auto& yg = model_.y_grid_mm();
+PlateLoadCase plate_load_case(const PlateModel& model, const std::vector<Action>& actions,
+                              const Combination& combination, const BayArrangement& arrangement, double dx_mm,
+                              double dy_mm) {
+  const std::size_t nx = model.bays_x(), ny = model.bays_y(), nb = nx * ny;
+  const auto& xg = model.x_grid_mm();
+  const auto& yg = model.y_grid_mm();
   PlateLoadCase lc;
   lc.bay_pressures_MPa.assign(nb, 0.0);
   for (std::size_t k = 0; k < actions.size() && k < combination.factors.size(); ++k) {
@@ -99,7 +100,8 @@ PlateLoadCase TwoWayPlate::load_case(const std::vector<Action>& actions, const C
       continue;
     }
     if (!a.plan_mm) continue;  // a strip's located load: refused on the way in
-    const auto& p = *a.plan_mm;
+    const std::array<double, 4> p{(*a.plan_mm)[0] + dx_mm, (*a.plan_mm)[1] + dy_mm, (*a.plan_mm)[2] + dx_mm,
+                                  (*a.plan_mm)[3] + dy_mm};
     if (a.distribution == Distribution::uniform) {  // a patch, split at the grid lines
       for (std::size_t j = 0; j < ny; ++j)
         for (std::size_t i = 0; i < nx; ++i) {
@@ -503,6 +505,7 @@ PlateRecord TwoWayPlate::record() const {
   PlateRecord r;
   r.x_lines_mm = model_.x_grid_mm();
   r.y_lines_mm = model_.y_grid_mm();
+  r.outline_mm = {r.x_lines_mm.front(), r.x_lines_mm.back(), r.y_lines_mm.front(), r.y_lines_mm.back()};
   const PlateGeometry& g = model_.geometry();
   r.edges = {g.edges.x0, g.edges.x1, g.edges.y0, g.edges.y1};
   for (std::size_t j = 0; j < bays_y(); ++j)

@@ -74,10 +74,23 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
        r.code.title + "\n";
   o += u.us ? "Units      US customary (the JSON result stays SI)\n" : "";
   o += "\n";
-  o += "Slab       two-way, " + std::to_string(p.x_lines_mm.size() - 1) + " x " + std::to_string(p.y_lines_mm.size() - 1) +
-       " bays, edges x0 " + to_string(p.edges[0]) + ", x1 " + to_string(p.edges[1]) + ", y0 " + to_string(p.edges[2]) +
-       ", y1 " + to_string(p.edges[3]) + "; plate analysis, " + std::to_string(p.mesh_per_bay) +
-       " elements per bay side, Poisson's ratio " + fmt("%.2f", p.poisson_ratio) + "; Wood–Armer design moments\n";
+  const std::string bays = std::to_string(p.x_lines_mm.size() - 1) + " x " + std::to_string(p.y_lines_mm.size() - 1);
+  const std::string analysis = "plate analysis, " + std::to_string(p.mesh_per_bay) + " elements per bay side, Poisson's ratio " +
+                               fmt("%.2f", p.poisson_ratio);
+  if (p.flat) {
+    auto edge = [&](std::size_t k) { return p.column_edges[k] ? "columns" : "wall"; };
+    const std::string size = r.columns.empty() ? std::string("-")
+                                               : fmt(u.length_format(), u.length(r.columns.front().cx_mm)) + " x " +
+                                                     fmt(u.length_format(), u.length(r.columns.front().cy_mm)) + " " + L;
+    o += "Slab       flat, " + bays + " bays on columns " + size + " (" +
+         (p.columns_restrained ? "restrained by the storeys above and below" : "free to turn") + "), edges x0 " +
+         edge(0) + ", x1 " + edge(1) + ", y0 " + edge(2) + ", y1 " + edge(3) + "; " + analysis +
+         "; strip moments integrated over column and middle strips (" + p.strip_clause + ")\n";
+  } else {
+    o += "Slab       two-way, " + bays + " bays, edges x0 " + to_string(p.edges[0]) + ", x1 " + to_string(p.edges[1]) +
+         ", y0 " + to_string(p.edges[2]) + ", y1 " + to_string(p.edges[3]) + "; " + analysis +
+         "; Wood–Armer design moments\n";
+  }
   o += "Loads      self-weight " + fmt("%.2f", u.load(r.loads.self_weight)) + " " + u.load_unit() + ", ULS " +
        fmt("%.2f", u.load(r.loads.uls)) + " " + u.load_unit() + " [" + r.loads.combination + "], " +
        std::to_string(r.load_arrangements) + " bay load arrangements, " + std::to_string(r.load_cases) +
@@ -89,18 +102,40 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
            L + (face == Face::top && r.cover_mm(Face::bottom) > 0.0 ? "," : "");
   o += "; outer layers: bottom " + p.outer_layer[0] + ", top " + p.outer_layer[1] + "\n\n";
   const std::string per_m = u.us ? "" : "/m";
-  o += pad("Region", 20) + pad("face", 8) + pad("dir", 5) + rpad("x m", 7) + rpad("y m", 7) +
+  std::size_t name_width = 20;
+  for (const auto& g : r.regions) name_width = std::max(name_width, g.where.size() + 2);
+  o += pad("Region", name_width) + pad("face", 8) + pad("dir", 5) + rpad("x m", 7) + rpad("y m", 7) +
        rpad(std::string("M_Ed ") + u.moment_unit() + per_m, 14) + rpad("d " + L, 8) + rpad("As,req", 9) + "   " +
        pad("bars", 16) + rpad("As,prov " + A + per_m, 14) + "\n";
   for (const auto& g : r.regions)
-    o += pad(g.where, 20) + pad(to_string(g.face), 8) + pad(to_string(g.direction), 5) +
+    o += pad(g.where, name_width) + pad(to_string(g.face), 8) + pad(to_string(g.direction), 5) +
          rpad(fmt("%.2f", g.x_mm * 1e-3), 7) + rpad(fmt("%.2f", g.y_mm * 1e-3), 7) +
          rpad(fmt("%.2f", u.moment(g.M_Ed)), 14) + rpad(fmt(u.length_format(), u.length(g.d_mm)), 8) +
          rpad(fmt(u.area_format(), u.area(g.As_req_mm2)), 9) + "   " + pad(u.bars(g.bars), 16) +
          rpad(fmt(u.area_format(), u.area(g.bars.As_prov_mm2)), 14) + "\n";
-  o += "\n" + pad("Line reactions (ULS)", 28) + rpad("max kN/m", 10) + rpad("total kN", 10) + "\n";
-  for (const auto& l : p.reactions)
-    o += pad(l.name, 28) + rpad(fmt("%.1f", l.max_N_per_mm), 10) + rpad(fmt("%.1f", l.max_total_N * 1e-3), 10) + "\n";
+  if (!p.reactions.empty()) {
+    o += "\n" + pad("Line reactions (ULS)", 28) + rpad("max kN/m", 10) + rpad("total kN", 10) + "\n";
+    for (const auto& l : p.reactions)
+      o += pad(l.name, 28) + rpad(fmt("%.1f", l.max_N_per_mm), 10) + rpad(fmt("%.1f", l.max_total_N * 1e-3), 10) + "\n";
+  }
+  if (!r.columns.empty()) {
+    o += "\n" + pad("Columns (ULS)", 14) + pad("position", 10) + rpad("reaction kN", 12) + rpad("d " + L, 8) +
+         rpad("factor", 8) + rpad("v MPa", 8) + rpad("vc MPa", 8) + "  shear reinforcement\n";
+    for (const auto& c : r.columns) {
+      const PunchingOutcome& q = c.punching;
+      std::string links = "none needed";
+      if (q.reinforcement_needed)
+        links = q.reinforcement ? fmt("%.0f", q.reinforcement->area_per_perimeter_mm2) + " mm2 per perimeter at " +
+                                      fmt("%.0f", q.reinforcement->spacing_mm) + " mm, to " +
+                                      fmt("%.0f", q.reinforcement->outermost_line_distance_mm) + " mm"
+                                : "needed, not provided";
+      o += pad(c.name, 14) +
+           pad(q.position == ColumnPosition::internal ? "internal" : q.position == ColumnPosition::edge ? "edge" : "corner", 10) +
+           rpad(fmt("%.1f", c.V_Ed_N * 1e-3), 12) + rpad(fmt(u.length_format(), u.length(q.d_mm)), 8) +
+           rpad(fmt("%.2f", q.transfer_factor), 8) + rpad(fmt("%.2f", q.v_MPa), 8) + rpad(fmt("%.2f", q.v_concrete_MPa), 8) +
+           "  " + links + (q.pass ? "" : "  FAILS") + "\n";
+    }
+  }
   o += "\n";
   o += pad("Check", 12) + pad("where", 20) + rpad("demand", 10) + rpad("capacity", 10) + "  " + pad("unit", u.us ? 10 : 7) +
        rpad("util", 6) + "  " + pad("", 5) + "clause\n";
