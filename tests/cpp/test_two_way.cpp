@@ -313,7 +313,7 @@ TEST_CASE("Two-way: bad input is named field by field") {
   json strip = two_way_request("EN1992-1-1", "UK", {4.0}, {4.0});
   strip["slab"] = {{"spans_m", {4.0}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 200}};
   strip["analysis"] = {{"mesh_per_bay", 8}};
-  CHECK(has_problem(problem_fields(strip), "analysis", "two_way slabs only"));
+  CHECK(has_problem(problem_fields(strip), "analysis", "two_way and flat slabs only"));
   // A mechanism: one pinned edge, the others free.
   json loose = two_way_request("EN1992-1-1", "UK", {4.0}, {4.0},
                                {{"x0", "pinned"}, {"x1", "free"}, {"y0", "free"}, {"y1", "free"}});

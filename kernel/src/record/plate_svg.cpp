@@ -129,17 +129,26 @@ std::string edge_marks(EndSupport s, double x1, double y1, double x2, double y2,
 }
 
 const char* interior_style = "stroke=\"#000\" stroke-width=\"1\" stroke-dasharray=\"8 3 2 3\"";
+const char* column_line_style = "stroke=\"#777\" stroke-width=\"0.6\" stroke-dasharray=\"3 3\"";
 
-// Interior grid lines (line supports), then the four edges on top.
+// Interior grid lines (line supports, or a flat slab's column lines and
+// its columns), then the four edges on top.
 std::string supports_svg(const PlatePlan& plan, const PlanFrame& f) {
   std::string o;
+  const char* style = plan.interior_lines_supported ? interior_style : column_line_style;
+  const char* kind = plan.interior_lines_supported ? "support-line" : "column-line";
   for (std::size_t k = 1; k + 1 < plan.x_lines.size(); ++k) {
     const double px = f.sx(plan.x_lines[k]);
-    o += "<g class=\"support-line\">" + line(px, f.oy, px, f.bottom(), interior_style) + "</g>";
+    o += std::string("<g class=\"") + kind + "\">" + line(px, f.oy, px, f.bottom(), style) + "</g>";
   }
   for (std::size_t k = 1; k + 1 < plan.y_lines.size(); ++k) {
     const double py = f.sy(plan.y_lines[k]);
-    o += "<g class=\"support-line\">" + line(f.ox, py, f.right(), py, interior_style) + "</g>";
+    o += std::string("<g class=\"") + kind + "\">" + line(f.ox, py, f.right(), py, style) + "</g>";
+  }
+  for (const auto& c : plan.columns) {
+    const double x0 = f.sx(c[0]), x1 = f.sx(c[1]), y0 = f.sy(c[3]), y1 = f.sy(c[2]);
+    o += "<rect class=\"column\" x=\"" + n4(x0) + "\" y=\"" + n4(y0) + "\" width=\"" + n4(x1 - x0) + "\" height=\"" +
+         n4(y1 - y0) + "\" fill=\"#000\"/>";
   }
   for (const auto& e : edges_of(plan, f))
     o += std::string("<g class=\"edge ") + to_string(e.support) + "\" data-edge=\"" + e.name + "\">" +
@@ -183,7 +192,10 @@ std::string legend_svg(const PlatePlan& plan, double x, double y) {
          edge_marks(s, at, y, at + 28, y, 0, 1) + text(at + 34, y + 4, words[k]) + "</g>";
     at += 40 + 6.0 * static_cast<double>(std::char_traits<char>::length(words[k]));
   }
-  if (plan.x_lines.size() > 2 || plan.y_lines.size() > 2)
+  if (!plan.interior_lines_supported)
+    o += "<g class=\"legend\" data-condition=\"column\">" + line(at, y, at + 28, y, column_line_style) +
+         text(at + 34, y + 4, "column line (columns filled)") + "</g>";
+  else if (plan.x_lines.size() > 2 || plan.y_lines.size() > 2)
     o += "<g class=\"legend\" data-condition=\"interior\">" + line(at, y, at + 28, y, interior_style) +
          text(at + 34, y + 4, "interior line support") + "</g>";
   return o;

@@ -11,6 +11,7 @@
 // down; the drawing flips it), x = 0 and y = 0 at the plate's corner.
 #pragma once
 
+#include <array>
 #include <string>
 #include <vector>
 
@@ -44,6 +45,10 @@ struct PlatePlan {
   std::vector<PlanBay> bays{};
   std::vector<PlanMark> marks{};
   std::string length_unit = "m";
+  // A flat slab: the interior lines are column lines (not supports) and
+  // the columns are drawn filled (x0, x1, y0, y1 each).
+  bool interior_lines_supported = true;
+  std::vector<std::array<double, 4>> columns{};
 };
 
 // A scalar field sampled at the nodes of a rectangular mesh: x and y the

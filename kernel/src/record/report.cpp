@@ -200,6 +200,16 @@ std::vector<Part> parts_of(const DesignRecord& r) {
     for (const auto& c : s.checks) p.checks.push_back(&c);
     parts.push_back(std::move(p));
   }
+  for (const auto& col : r.columns) {
+    Part p{col.name + ": punching, reaction " + n4(col.V_Ed_N * 1e-3) + " kN" +
+               (col.M_x_Nmm ? ", moments taken " + n4(*col.M_x_Nmm * 1e-6) + " kNm (x), " + n4(*col.M_y_Nmm * 1e-6) +
+                                  " kNm (y)"
+                            : ", the column free to turn (no moment by the analysis)") +
+               (col.regular_spans ? "; braced, adjacent spans within 25 %" : ""),
+           nullptr, {}};
+    for (const auto& c : col.punching.checks) p.checks.push_back(&c);
+    parts.push_back(std::move(p));
+  }
   return parts;
 }
 
@@ -538,9 +548,17 @@ std::string plate_slab_text(const DesignRecord& r) {
   t += "; y spans ";
   for (std::size_t j = 0; j + 1 < p.y_lines_mm.size(); ++j)
     t += (j ? ", " : "") + u.along(p.y_lines_mm[j + 1] - p.y_lines_mm[j]);
-  t += "; edges x0 " + std::string(to_string(p.edges[0])) + ", x1 " + to_string(p.edges[1]) + ", y0 " +
-       to_string(p.edges[2]) + ", y1 " + to_string(p.edges[3]) + "; h = " + u.length(r.thickness_mm) +
-       "; every result per metre width";
+  if (p.flat) {
+    auto edge = [&](std::size_t k) { return p.column_edges[k] ? "columns" : "wall"; };
+    t += "; flat slab on columns" +
+         (r.columns.empty() ? std::string() : " " + u.length(r.columns.front().cx_mm) + " × " + u.length(r.columns.front().cy_mm)) +
+         " at the grid intersections; edges x0 " + edge(0) + ", x1 " + edge(1) + ", y0 " + edge(2) + ", y1 " + edge(3) +
+         " (on columns the slab ends flush with their outer faces); plan positions from grid lines x0, y0";
+  } else {
+    t += "; edges x0 " + std::string(to_string(p.edges[0])) + ", x1 " + to_string(p.edges[1]) + ", y0 " +
+         to_string(p.edges[2]) + ", y1 " + to_string(p.edges[3]);
+  }
+  t += "; h = " + u.length(r.thickness_mm) + "; every result per metre width";
   return t;
 }
 
@@ -580,6 +598,27 @@ std::string free_edge_text(const DesignRecord& r) {
 
 std::string plate_analysis_text(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
+  if (p.flat)
+    return "Linear-elastic Kirchhoff plate by finite elements (Bogner–Fox–Schmit rectangles, " +
+           std::to_string(p.mesh_per_bay) + " per bay side, mesh lines through located loads and the columns' "
+           "faces), Poisson's ratio " + n4(p.poisson_ratio) + "; each column a rigid patch of the slab that "
+           "cannot move down and " +
+           (p.columns_restrained ? std::string("turns against the columns above and below (4 E Ic / H each, far "
+                                               "ends fixed, gross sections)")
+                                 : std::string("is free to turn (no storey heights given)")) +
+           "; walls as pinned line supports. " + std::to_string(p.arrangements) +
+           " bay load arrangements of the code × the ULS combinations (" + std::to_string(r.load_cases) +
+           " load cases, one factorisation). Strips (" + p.strip_clause + "): a column strip reaches a quarter "
+           "of the lesser span of the panel on each side of its column line, the middle strip is the rest. "
+           "Each strip's moment is the plate's mx (my) integrated over the strip's width: hogging at the "
+           "column faces (the wall's line), the larger face; sagging the largest over the mesh lines of the span; "
+           "per metre over the strip's width. An outer line where the slab is free to turn takes at least the "
+           "code's partial-fixity fraction of the strip's end span." +
+           (p.band_clause.empty() ? std::string()
+                                  : " Over internal columns a band takes at least half the hogging of the whole "
+                                    "panel width within 0.125 × each panel's width of the column line (" +
+                                        p.band_clause + ").") +
+           " Outer layers: bottom " + p.outer_layer[0] + ", top " + p.outer_layer[1] + ".";
   return "Linear-elastic Kirchhoff plate by finite elements (Bogner–Fox–Schmit rectangles, " +
          std::to_string(p.mesh_per_bay) + " per bay side, mesh lines through located loads), Poisson's ratio " +
          n4(p.poisson_ratio) + "; rigid line supports on every interior grid line; supported lines meeting hold "
@@ -601,9 +640,22 @@ std::string plate_drawings_html(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
   const RecordUnits u = units_of(r);
   PlatePlan plan;
-  for (double x : p.x_lines_mm) plan.x_lines.push_back(u.along_v(x));
-  for (double y : p.y_lines_mm) plan.y_lines.push_back(u.along_v(y));
+  // A flat slab reaches past its outer column lines: the outline's edges
+  // bound the drawing, every column line inside it.
+  auto lines_of = [&](const std::vector<double>& grid, double lo, double hi) {
+    std::vector<double> out;
+    if (lo < grid.front()) out.push_back(u.along_v(lo));
+    for (double v : grid) out.push_back(u.along_v(v));
+    if (hi > grid.back()) out.push_back(u.along_v(hi));
+    return out;
+  };
+  plan.x_lines = lines_of(p.x_lines_mm, p.outline_mm[0], p.outline_mm[1]);
+  plan.y_lines = lines_of(p.y_lines_mm, p.outline_mm[2], p.outline_mm[3]);
   plan.edges = {p.edges[0], p.edges[1], p.edges[2], p.edges[3]};
+  plan.interior_lines_supported = !p.flat;
+  for (const auto& c : p.columns)
+    plan.columns.push_back({u.along_v(c.x_mm - c.cx_mm / 2), u.along_v(c.x_mm + c.cx_mm / 2),
+                            u.along_v(c.y_mm - c.cy_mm / 2), u.along_v(c.y_mm + c.cy_mm / 2)});
   plan.length_unit = u.along_u();
   for (const auto& b : p.bays) {
     PlanBay bay{b.name, u.along_v(b.x0_mm), u.along_v(b.x1_mm), u.along_v(b.y0_mm), u.along_v(b.y1_mm)};
@@ -614,7 +666,7 @@ std::string plate_drawings_html(const DesignRecord& r) {
     plan.bays.push_back(std::move(bay));
   }
   for (const auto& g : r.regions)
-    if (g.face == Face::top)
+    if (g.face == Face::top && !p.flat)  // a flat slab's strips are tabled, not marked
       plan.marks.push_back({u.along_v(g.x_mm), u.along_v(g.y_mm), u.bars(g.bars) + " top " + to_string(g.direction),
                             g.direction == BarDirection::x});
   const bool us = r.report_units == ReportUnits::US;

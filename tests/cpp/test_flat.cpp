@@ -1,0 +1,271 @@
+// The flat slab member: strips, their moments against statics and the
+// published strip split, punching at the columns from the member's own
+// demand, both codes. Our own scenarios: floors of the community workshop.
+#include <catch2/catch.hpp>
+
+#include <algorithm>
+#include <cmath>
+
+#include "armature/design.hpp"
+#include "armature/flat.hpp"
+#include "armature/json_io.hpp"
+#include "armature/registry.hpp"
+#include "armature/request.hpp"
+
+using nlohmann::json;
+using namespace armature;
+
+namespace {
+Registry& registry() {
+  static Registry reg({ARMATURE_CODE_DIR});
+  return reg;
+}
+
+json flat_request(const std::string& code, json x_spans, json y_spans, json edges = json::object(),
+                  double thickness_mm = 250) {
+  json slab = {{"type", "flat"},
+               {"x_spans_m", x_spans},
+               {"y_spans_m", y_spans},
+               {"columns", {{"size_mm", {400, 400}}}},
+               {"thickness_mm", thickness_mm}};
+  if (!edges.empty()) slab["edges"] = edges;
+  json r = {{"code", code},
+            {"slab", slab},
+            {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}, {"imposed_category", "C"}}},
+            {"durability", {{"cover_mm", 25}}}};
+  if (code == "EN1992-1-1") r["variant"] = "UK", r["concrete"] = {{"class", "C30/37"}};
+  else r["variant"] = "SI", r["concrete"] = {{"cylinder_strength_MPa", 28}};
+  return r;
+}
+
+const RegionRecord& region(const DesignRecord& r, const std::string& where, BarDirection d) {
+  for (const auto& g : r.regions)
+    if (g.where == where && g.direction == d) return g;
+  throw std::runtime_error("no region " + where + " " + to_string(d));
+}
+
+const ColumnRecord& column(const DesignRecord& r, const std::string& name) {
+  for (const auto& c : r.columns)
+    if (c.name == name) return c;
+  throw std::runtime_error("no " + name);
+}
+
+std::vector<std::string> problem_fields(const json& request) {
+  try {
+    design(registry(), request);
+  } catch (const InputError& e) {
+    std::vector<std::string> out;
+    for (const auto& p : e.problems()) out.push_back(p.field + ": " + p.message);
+    return out;
+  }
+  return {};
+}
+
+bool has_problem(const std::vector<std::string>& problems, const std::string& field, const std::string& text = "") {
+  return std::any_of(problems.begin(), problems.end(), [&](const std::string& p) {
+    return p.rfind(field + ": ", 0) == 0 && p.find(text) != std::string::npos;
+  });
+}
+
+Request parsed(const json& j) {
+  InputProblems problems;
+  Request req = request_from_json(j, problems);
+  problems.raise_if_any();
+  return req;
+}
+
+Action uniform(const char* name, ActionKind kind, double MPa) {
+  Action a;
+  a.name = name;
+  a.kind = kind;
+  a.category = kind == ActionKind::imposed ? "C" : "";
+  a.distribution = Distribution::uniform;
+  a.value = MPa;
+  return a;
+}
+
+// A 3 × 3 grid of 6 m square bays on columns all round, one uniform
+// ULS load on every bay (w = 1.35 × 7.75 + 1.5 × 4 kPa), strips of
+// 0.25 × the span each side of the column lines, no band.
+struct RegularFloor {
+  Request req = parsed(flat_request("EN1992-1-1", {6.0, 6.0, 6.0}, {6.0, 6.0, 6.0}));
+  FlatPlate plate{req, 30000.0, FlatStripRule{0.25, "test strips"}};
+  std::vector<RegionDemand> regions;
+  double w_MPa = 1.35 * 7.75e-3 + 1.5 * 4.0e-3;
+  RegularFloor() {
+    const std::vector<Action> actions{uniform("g", ActionKind::permanent, 7.75e-3),
+                                      uniform("q", ActionKind::imposed, 4.0e-3)};
+    const Combination uls{"1.35 G + 1.5 Q", LimitState::uls, {{1.35, 1.35}, {1.5, 0.0}}};
+    plate.analyse(actions, {uls}, {{std::vector<bool>(9, true), 1.0}}, 0.6);
+    std::vector<std::string> warnings;
+    regions = plate.design_regions(0.0, warnings);
+  }
+  double M(const std::string& where, BarDirection d) const {
+    for (const auto& g : regions)
+      if (g.where == where && g.direction == d) return g.M_Ed;
+    throw std::runtime_error("no region " + where);
+  }
+};
+}  // namespace
+
+// Statics: the column reactions carry the whole load (the slab reaching
+// half a column past the outer column lines).
+TEST_CASE("Flat: the column reactions equal the load on the slab", "[flat]") {
+  RegularFloor f;
+  double total = 0.0;
+  for (const auto& c : f.plate.columns()) total += c.V_N;
+  const double side = 18000.0 + 400.0;
+  CHECK(total == Approx(f.w_MPa * side * side).epsilon(1e-6));
+  CHECK(f.plate.columns().size() == 16);
+  // Symmetry of the square floor: the four corners alike, and an edge
+  // column's reaction the same on each side.
+  const auto& cols = f.plate.columns();
+  CHECK(cols.front().V_N == Approx(cols.back().V_N).epsilon(1e-6));
+  CHECK(cols[1].V_N == Approx(cols[4].V_N).epsilon(1e-6));  // column 2,1 and column 1,2
+}
+
+// The strips tile the slab: the widths of the strips along x add up to the
+// slab's width (18 m between the outer column lines plus half a column at
+// each edge), and each column strip is 0.25 × 6 m each side of its line.
+TEST_CASE("Flat: column and middle strips tile the slab's width", "[flat]") {
+  RegularFloor f;
+  const PlateRecord rec = f.plate.record();
+  double width = 0.0;
+  for (const auto& s : rec.strips)
+    if (s.direction == BarDirection::x) width += s.pieces[1][3] - s.pieces[1][2];
+  CHECK(width == Approx(18400.0).epsilon(1e-9));
+  for (const auto& s : rec.strips)
+    if (s.name == "column strip y1") {
+      CHECK(s.pieces[0][2] == Approx(6000.0 - 1500.0));
+      CHECK(s.pieces[0][3] == Approx(6000.0 + 1500.0));
+    }
+  CHECK(rec.outline_mm[0] == Approx(-200.0));
+  CHECK(rec.outline_mm[1] == Approx(18200.0));
+}
+
+// The total static moment (ACI 318-19 8.10.3.2: Mo = wu l2 ln²/8, the sum
+// of the average hogging at the two faces and the sagging at midspan, by
+// statics of the span between the column faces) across the whole width of
+// the floor in its middle span; ln = 6 − 0.4 m. Tolerance 3 %: the top
+// regions take the larger face of each column line, which at the first
+// interior line is the end span's, a little above the middle span's (the
+// column's patch passes on the difference of the shears).
+// The column strip's share of the interior line's design strip (column
+// strip plus half of each middle strip beside it) lies in a band about
+// the direct design method's split, ACI 318-19 8.10.5.1 (75 % of the
+// interior negative moment) and 8.10.6.1 (60 % of the positive), for
+// αf1 l2/l1 = 0 (values from memory); a published method, used here as a
+// sanity band of ±15 points.
+TEST_CASE("Flat: strip moments add up to the total static moment and split as the direct design method", "[flat]") {
+  RegularFloor f;
+  const BarDirection x = BarDirection::x;
+  const double cs = 3000.0, ms = 3000.0, edge_cs = 1500.0 + 200.0;  // strip widths, mm
+  auto across = [&](const std::string& where) {  // N·mm over the whole width
+    const std::string s[7] = {"column strip y0", "middle strip y0-y1", "column strip y1", "middle strip y1-y2",
+                              "column strip y2", "middle strip y2-y3", "column strip y3"};
+    const double w[7] = {edge_cs, ms, cs, ms, cs, ms, edge_cs};
+    double sum = 0.0;
+    for (int k = 0; k < 7; ++k) sum += f.M(s[k] + " " + where, x) / 1000.0 * w[k];
+    return sum;
+  };
+  const double ln = 5600.0, l2 = 18400.0;
+  const double Mo = f.w_MPa * l2 * ln * ln / 8.0;
+  const double hog = (across("at x1") + across("at x2")) / 2.0, sag = across("span 2");
+  INFO("hogging " << hog << " sagging " << sag << " Mo " << Mo);
+  CHECK(hog + sag == Approx(Mo).epsilon(0.03));
+  CHECK(hog + sag >= Mo * 0.999);
+  auto share = [&](const std::string& where) {
+    const double c = f.M("column strip y1 " + where, x) / 1000.0 * cs;
+    const double m = 0.5 * (f.M("middle strip y0-y1 " + where, x) + f.M("middle strip y1-y2 " + where, x)) / 1000.0 * ms;
+    return c / (c + m);
+  };
+  CHECK(share("at x1") > 0.60);
+  CHECK(share("at x1") < 0.90);
+  CHECK(share("span 2") > 0.45);
+  CHECK(share("span 2") < 0.75);
+}
+
+// Punching at an interior column from the member's own demand: EN 1992-1-1
+// 6.4.3 (6.38) vEd = β VEd/(u1 d), u1 = 2(c1 + c2) + 4π d (6.4.2), β = 1.15
+// (Figure 6.21N), d the mean of the top bars' depths; (6.47) vRd,c =
+// 0.18/γc k (100 ρl fck)^(1/3) ≥ 0.035 k^1.5 √fck with ρl = √(ρx ρy),
+// evaluated here from the column's record and its top regions.
+TEST_CASE("Flat: punching at an interior column by EN 1992-1-1 6.4 from the member's demand", "[flat]") {
+  const DesignRecord r = design(registry(), flat_request("EN1992-1-1", {6.0, 6.0, 6.0}, {5.5, 5.5},
+                                                         {{"x0", "columns"}, {"x1", "columns"}, {"y0", "wall"},
+                                                          {"y1", "columns"}}));
+  REQUIRE(r.columns.size() == 8);  // none on the wall y0
+  const ColumnRecord& c = column(r, "column 2,2");
+  const RegionRecord& bx = region(r, "column 2,2 band", BarDirection::x);  // EN 9.4.1(2) band over the column
+  const RegionRecord& by = region(r, "column 2,2 band", BarDirection::y);
+  const double d = (bx.d_mm + by.d_mm) / 2.0;
+  const double u1 = 2.0 * (400.0 + 400.0) + 4.0 * M_PI * d;
+  CHECK(c.punching.position == ColumnPosition::internal);
+  CHECK(c.punching.transfer_factor == Approx(1.15));
+  CHECK(c.punching.v_MPa == Approx(1.15 * c.V_Ed_N / (u1 * d)).epsilon(1e-6));
+  const double rho = std::min(std::sqrt(bx.bars.As_prov_mm2 / (1000.0 * bx.d_mm) * by.bars.As_prov_mm2 / (1000.0 * by.d_mm)), 0.02);
+  const double k = std::min(1.0 + std::sqrt(200.0 / d), 2.0);
+  const double vrdc = std::max(0.12 * k * std::cbrt(100.0 * rho * 30.0), 0.035 * std::pow(k, 1.5) * std::sqrt(30.0));
+  CHECK(c.punching.v_concrete_MPa == Approx(vrdc).epsilon(1e-6));
+  // An edge column takes β = 1.4 and a corner one 1.5 (Figure 6.21N).
+  CHECK(column(r, "column 1,2").punching.transfer_factor == Approx(1.4));
+  CHECK(column(r, "column 4,3").punching.transfer_factor == Approx(1.5));
+  // The interior column's reaction: about 1.25 × 1.1 of its tributary
+  // area's load (continuity over two and three spans; common practice),
+  // within 10 %.
+  const double w = 1.35 * (6.25 + 1.5) + 1.5 * 4.0;  // kPa
+  CHECK(c.V_Ed_N / 1000.0 == Approx(1.25 * 1.1 * w * 6.0 * 5.5).epsilon(0.10));
+}
+
+// ACI 318-19 needs the moment each column takes (8.4.4.2): without storey
+// heights the columns are free to turn and the request is refused naming
+// the field; with them the analysis restrains the columns, the moments
+// reach the punching checks and the exterior hogging grows.
+TEST_CASE("Flat: ACI punching needs the columns' restraint and reads its moments", "[flat]") {
+  json req = flat_request("ACI318-19", {6.0, 6.0}, {6.0, 6.0});
+  CHECK(has_problem(problem_fields(req), "slab.columns.height_m", "moment"));
+  const DesignRecord free_en = design(registry(), flat_request("EN1992-1-1", {6.0, 6.0}, {6.0, 6.0}));
+  req["slab"]["columns"]["height_m"] = 3.5;
+  const DesignRecord r = design(registry(), req);
+  const ColumnRecord& edge = column(r, "column 1,2");
+  REQUIRE(edge.M_x_Nmm);
+  CHECK(*edge.M_x_Nmm > 10e6);  // an edge column takes a real moment
+  CHECK(edge.punching.transfer_factor > 0.3);  // γv of the moment about the edge's axis
+  json en = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0, 6.0});
+  en["slab"]["columns"]["height_m"] = json::array({3.5, 3.5});
+  const DesignRecord held = design(registry(), en);
+  CHECK(region(held, "column strip y1 at x0", BarDirection::x).M_Ed >
+        1.5 * region(free_en, "column strip y1 at x0", BarDirection::x).M_Ed);
+  // ACI Table 8.3.1.1: ℓn/30 for an exterior panel without edge beams at
+  // fy = 420 MPa (value from memory), ℓn = 6 − 0.4 m.
+  bool found = false;
+  for (const auto& s : r.spans)
+    for (const auto& c : s.checks)
+      if (c.id == "deflection" && s.where == "bay 1,1") {
+        CHECK(c.demand == Approx(std::max(5600.0 / 30.0, 125.0)).epsilon(1e-6));
+        found = true;
+      }
+  CHECK(found);
+}
+
+TEST_CASE("Flat: bad input is named field by field", "[flat]") {
+  json req = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0}, {{"x0", "pinned"}});
+  req["slab"]["columns"] = {{"size_mm", {400}}, {"height_m", "tall"}};
+  req["fire"] = {{"resistance_min", 60}};
+  const auto p = problem_fields(req);
+  CHECK(has_problem(p, "slab.edges.x0", "\"columns\" or \"wall\""));
+  CHECK(has_problem(p, "slab.columns.size_mm", "two sides"));
+  CHECK(has_problem(p, "slab.columns.height_m", "storey height"));
+  CHECK(has_problem(p, "fire", "flat slabs"));
+  json big = flat_request("EN1992-1-1", {6.0, 2.0}, {6.0});
+  big["slab"]["columns"]["size_mm"] = {1200, 400};
+  CHECK(has_problem(problem_fields(big), "slab.columns.size_mm", "half the shortest span"));
+  json two_way = flat_request("EN1992-1-1", {6.0}, {6.0});
+  two_way["slab"]["type"] = "two_way";
+  CHECK(has_problem(problem_fields(two_way), "slab.columns", "flat slabs only"));
+  json off = flat_request("EN1992-1-1", {6.0}, {6.0});
+  off["loads"]["actions"] = {{{"name", "tank"}, {"kind", "imposed"}, {"category", "E"}, {"point_kN", 10}, {"x_m", -0.3}, {"y_m", 1.0}}};
+  CHECK(has_problem(problem_fields(off), "loads.actions[0].x_m", "must lie on the slab"));
+  off["loads"]["actions"][0]["x_m"] = -0.1;  // on the half column past grid line x0
+  CHECK(problem_fields(off).empty());
+}
