@@ -126,7 +126,9 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
     PunchingReinforcement r;
     r.spacing_mm = p.reinforcement_spacing_mm.value_or(max_stirrup_line_spacing(d));
     r.design_strength_MPa = std::min(fy_, form.fyt_max * to_MPa);
-    r.area_per_perimeter_mm2 = required_stirrup_area(vu, phi, vc_r, b0.length_mm, r.spacing_mm, r.design_strength_MPa);
+    // Rounded up to the whole mm² (the area stated then carries vu).
+    r.area_per_perimeter_mm2 =
+        std::ceil(required_stirrup_area(vu, phi, vc_r, b0.length_mm, r.spacing_mm, r.design_strength_MPa));
     const double vs = stirrup_shear_stress(r.area_per_perimeter_mm2, r.design_strength_MPa, b0.length_mm, r.spacing_mm);
     // The outer critical section (22.6.4.2), corners cut at 45°, where vu
     // ≤ φ k_stirrups λs λ √f'c with the moment transfer of that section.

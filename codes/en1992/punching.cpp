@@ -187,8 +187,10 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
     PunchingReinforcement r;
     r.spacing_mm = p.reinforcement_spacing_mm.value_or(max_link_perimeter_spacing(d));
     r.design_strength_MPa = effective_link_strength(d, m_.fyd);
-    r.area_per_perimeter_mm2 = required_links_per_perimeter(v_Ed, v_Rdc, u1.length_mm, r.spacing_mm,
-                                                            r.design_strength_MPa);
+    // Rounded up to the whole mm², so that vRd,cs of the area stated is
+    // not below vEd by the rounding of the arithmetic.
+    r.area_per_perimeter_mm2 = std::ceil(
+        required_links_per_perimeter(v_Ed, v_Rdc, u1.length_mm, r.spacing_mm, r.design_strength_MPa));
     const double st_max = max_link_tangential_spacing(d);
     r.min_leg_area_mm2 = min_link_leg_area(m_.fck, m_.fyk, r.spacing_mm, st_max);
     const double v_Rdcs = punching_resistance_with_links(v_Rdc, d, r.spacing_mm, r.area_per_perimeter_mm2,
@@ -214,7 +216,7 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
                r.spacing_mm, "mm", "EN 1992-1-1 9.4.3(1)");
         st.add("fywd,ef", "250 + 0.25 d ≤ fywd", "min(250 + 0.25 × " + num(d) + ", " + num(m_.fyd) + ")",
                r.design_strength_MPa, "MPa", "EN 1992-1-1 6.4.5(1)");
-        st.add("Asw", "(vEd − 0.75 vRd,c) u1 sr/(1.5 fywd,ef)",
+        st.add("Asw", "(vEd − 0.75 vRd,c) u1 sr/(1.5 fywd,ef), up to the whole mm²",
                "(" + num(v_Ed) + " − 0.75 × " + num(v_Rdc) + ") × " + num(u1.length_mm) + " × " + num(r.spacing_mm) +
                    "/(1.5 × " + num(r.design_strength_MPa) + ")",
                r.area_per_perimeter_mm2, "mm2", "EN 1992-1-1 6.4.5(1) (6.52)");

@@ -186,4 +186,38 @@ void two_way_3x3_bays_design(benchmark::State& state) {
 }
 ARMATURE_BENCHMARK(two_way_3x3_bays_design)->Unit(benchmark::kMillisecond);
 
+// A flat slab of 3 × 3 bays on columns all round (request to design
+// record: the code's patterns on the plate with its 16 column patches,
+// the strip integrals per case, the bar search of every strip region, and
+// punching at every column), EN 1992 UK variant and ACI 318-19 (whose
+// punching needs the columns restrained: storey heights given).
+const nlohmann::json flat_3x3_en = nlohmann::json::parse(R"({
+  "code": "EN1992-1-1", "variant": "UK",
+  "slab": {"type": "flat", "x_spans_m": [6.0, 6.0, 6.0], "y_spans_m": [5.5, 5.5, 5.5],
+           "columns": {"size_mm": [400, 400]}, "thickness_mm": 250},
+  "concrete": {"class": "C30/37"},
+  "loads": {"dead_kPa": 1.5, "imposed_kPa": 4.0}
+})");
+const nlohmann::json flat_3x3_aci = nlohmann::json::parse(R"({
+  "code": "ACI318-19", "variant": "SI",
+  "slab": {"type": "flat", "x_spans_m": [6.0, 6.0, 6.0], "y_spans_m": [5.5, 5.5, 5.5],
+           "columns": {"size_mm": [400, 400], "height_m": 3.5}, "thickness_mm": 250},
+  "concrete": {"cylinder_strength_MPa": 30},
+  "loads": {"dead_kPa": 1.5, "imposed_kPa": 4.0}
+})");
+
+void flat_3x3_bays_design_en(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(flat_3x3_en);
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(flat_3x3_bays_design_en)->Unit(benchmark::kMillisecond);
+
+void flat_3x3_bays_design_aci(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(flat_3x3_aci);
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(flat_3x3_bays_design_aci)->Unit(benchmark::kMillisecond);
+
 BENCHMARK_MAIN();

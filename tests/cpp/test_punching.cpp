@@ -247,15 +247,17 @@ TEST_CASE("EN internal column, recommended values: vEd, vRd,c, vRd,max and links
   CHECK(out.v_max_MPa == Approx(4.224));
   CHECK(out.v_face_MPa == Approx(1.15 * 600e3 / (1600 * 200.0)));
   // Links (6.52), sr = 0.75 d = 150, fywd,ef = 250 + 0.25 × 200 = 300:
-  // Asw = (vEd − 0.75 vRd,c) u1 sr/(1.5 fywd,ef) = 438.1 mm² per perimeter.
+  // Asw = (vEd − 0.75 vRd,c) u1 sr/(1.5 fywd,ef) = 438.1 mm² per perimeter,
+  // stated up to the whole mm².
   REQUIRE(out.reinforcement_needed);
   REQUIRE(out.reinforcement.has_value());
   const auto& r = *out.reinforcement;
   CHECK(r.spacing_mm == 150);
   CHECK(r.design_strength_MPa == Approx(300));
   const double Asw = (v_Ed - 0.75 * v_Rdc) * u1 * 150 / (1.5 * 300);
-  CHECK(r.area_per_perimeter_mm2 == Approx(Asw));
-  CHECK(r.area_per_perimeter_mm2 == Approx(438.1).epsilon(1e-3));
+  CHECK(r.area_per_perimeter_mm2 == std::ceil(Asw));
+  CHECK(Asw == Approx(438.1).epsilon(1e-3));
+  CHECK(check_named(out, "punching_links").pass);
   // One leg at least 0.08 √30 × 150 × 300/(1.5 × 500) = 26.29 mm² (9.11, st = 1.5 d by 9.4.3(1)).
   CHECK(r.min_leg_area_mm2 == Approx(0.08 * std::sqrt(30.0) * 150 * 300 / 750));
   CHECK(r.min_leg_area_mm2 == Approx(26.29).epsilon(1e-3));
@@ -267,7 +269,10 @@ TEST_CASE("EN internal column, recommended values: vEd, vRd,c, vRd,max and links
   CHECK(r.outermost_line_distance_mm == Approx(a_out - 300));
   CHECK(perimeter_named(out, "uout,ef").length_mm == Approx(u_out));
   CHECK(out.pass);
-  CHECK(check_named(out, "punching_links").utilisation == Approx(1.0));
+  // The links as stated (up to the whole mm²) carry vEd, just: utilisation
+  // 438.1/439 of the part the links carry, a little under 1.
+  CHECK(check_named(out, "punching_links").utilisation <= 1.0);
+  CHECK(check_named(out, "punching_links").utilisation == Approx(1.0).epsilon(2e-3));
   CHECK(check_named(out, "punching_max").demand == Approx(out.v_face_MPa));
   CHECK_FALSE(check_named(out, "punching_max").steps.empty());
 }
@@ -423,7 +428,7 @@ TEST_CASE("ACI internal column with moment transfer: vu, φvc, stirrups and the 
   const double vc_r = 0.17 * std::sqrt(28.0);
   const double Av = (vu / 0.75 - vc_r) * 2400 * 100 / 420;
   CHECK(out.reinforcement->spacing_mm == 100);
-  CHECK(out.reinforcement->area_per_perimeter_mm2 == Approx(Av));
+  CHECK(out.reinforcement->area_per_perimeter_mm2 == std::ceil(Av));
   CHECK(Av == Approx(561.9).epsilon(1e-3));
   // vu ≤ φ 0.5 √28 = 1.98431 (22.6.6.2).
   CHECK(out.v_max_MPa == Approx(0.75 * 0.5 * std::sqrt(28.0)));
