@@ -329,13 +329,32 @@ std::string peak_svg(const PlanFrame& f, const char* cls, const char* word, doub
 
 std::string plate_plan_svg(const PlatePlan& plan) {
   const PlanFrame f = frame_of(plan);
-  std::string body = text(4, 14, "Plan of the slab, to scale: edges by condition, bays named" +
-                                      std::string(plan.bays.empty() || plan.bays.front().bars_x.empty()
-                                                      ? ""
-                                                      : ", bottom bars per bay"));
+  std::string body =
+      plan.columns.empty()
+          ? text(4, 14, "Plan of the slab, to scale: edges by condition, bays named" +
+                            std::string(plan.bays.empty() || plan.bays.front().bars_x.empty() ? ""
+                                                                                            : ", bottom bars per bay"))
+          : text(4, 14, "Plan to scale: edges by condition, columns, column strips shaded, punching perimeters dashed");
   body += "<rect x=\"" + n4(f.ox) + "\" y=\"" + n4(f.oy) + "\" width=\"" + n4(f.width) + "\" height=\"" +
           n4(f.depth) + "\" fill=\"#fff\" stroke=\"none\"/>";
+  for (const auto& s : plan.column_strips)
+    body += "<rect class=\"column-strip\" x=\"" + n4(f.sx(s[0])) + "\" y=\"" + n4(f.sy(s[3])) + "\" width=\"" +
+            n4(f.sx(s[1]) - f.sx(s[0])) + "\" height=\"" + n4(f.sy(s[2]) - f.sy(s[3])) +
+            "\" fill=\"#6a8fc7\" fill-opacity=\"0.12\" stroke=\"none\"/>";
   body += supports_svg(plan, f);
+  for (const auto& p : plan.perimeters) {
+    std::string pts;
+    for (const auto& q : p) pts += n4(f.sx(q[0])) + "," + n4(f.sy(q[1])) + " ";
+    body += "<polyline class=\"perimeter\" points=\"" + pts +
+            "\" fill=\"none\" stroke=\"#b03020\" stroke-width=\"0.7\" stroke-dasharray=\"4 2\"/>";
+  }
+  if (plan.governing_column && *plan.governing_column < plan.columns.size()) {
+    const auto& c = plan.columns[*plan.governing_column];
+    const double cx = (f.sx(c[0]) + f.sx(c[1])) / 2, cy = (f.sy(c[2]) + f.sy(c[3])) / 2;
+    body += "<g class=\"governing\"><circle cx=\"" + n4(cx) + "\" cy=\"" + n4(cy) +
+            "\" r=\"9\" fill=\"none\" stroke=\"#b03020\" stroke-width=\"1.6\"/>" +
+            text(cx + 11, cy - 9, plan.governing_label, std::string("fill=\"#b03020\" ") + halo) + "</g>";
+  }
   for (const auto& b : plan.bays) {
     const double cx = (f.sx(b.x0) + f.sx(b.x1)) / 2, cy = (f.sy(b.y0) + f.sy(b.y1)) / 2;
     body += "<g class=\"bay\">" + text(cx, cy - 8, b.name, "text-anchor=\"middle\" font-weight=\"bold\"");

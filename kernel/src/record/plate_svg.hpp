@@ -12,6 +12,7 @@
 #pragma once
 
 #include <array>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -49,6 +50,13 @@ struct PlatePlan {
   // the columns are drawn filled (x0, x1, y0, y1 each).
   bool interior_lines_supported = true;
   std::vector<std::array<double, 4>> columns{};
+  // The column strips (x0, x1, y0, y1, shaded), the punching perimeters
+  // (closed or open polylines in plan) and the governing column's index
+  // in `columns` (none: no column governs), drawn by plate_plan_svg only.
+  std::vector<std::array<double, 4>> column_strips{};
+  std::vector<std::vector<std::array<double, 2>>> perimeters{};
+  std::optional<std::size_t> governing_column{};
+  std::string governing_label{};
 };
 
 // A scalar field sampled at the nodes of a rectangular mesh: x and y the

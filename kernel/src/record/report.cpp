@@ -656,6 +656,27 @@ std::string plate_drawings_html(const DesignRecord& r) {
   for (const auto& c : p.columns)
     plan.columns.push_back({u.along_v(c.x_mm - c.cx_mm / 2), u.along_v(c.x_mm + c.cx_mm / 2),
                             u.along_v(c.y_mm - c.cy_mm / 2), u.along_v(c.y_mm + c.cy_mm / 2)});
+  for (const auto& s : p.strips)
+    if (s.column)
+      for (const auto& q : s.pieces)
+        plan.column_strips.push_back({u.along_v(q[0]), u.along_v(q[1]), u.along_v(q[2]), u.along_v(q[3])});
+  // Every column's perimeters (column-centred in the outcome) and the
+  // column whose punching check is the most utilised.
+  double worst = -1.0;
+  for (std::size_t k = 0; k < r.columns.size(); ++k) {
+    const ColumnRecord& c = r.columns[k];
+    for (const auto& per : c.punching.perimeters) {
+      std::vector<std::array<double, 2>> pts;
+      for (const auto& q : per.points) pts.push_back({u.along_v(c.x_mm + q[0]), u.along_v(c.y_mm + q[1])});
+      plan.perimeters.push_back(std::move(pts));
+    }
+    for (const auto& chk : c.punching.checks)
+      if (chk.utilisation > worst) {
+        worst = chk.utilisation;
+        plan.governing_column = k;
+        plan.governing_label = c.name + ", " + chk.id + " " + n4(chk.utilisation);
+      }
+  }
   plan.length_unit = u.along_u();
   for (const auto& b : p.bays) {
     PlanBay bay{b.name, u.along_v(b.x0_mm), u.along_v(b.x1_mm), u.along_v(b.y0_mm), u.along_v(b.y1_mm)};
