@@ -332,3 +332,30 @@ def test_two_way_floor(kernel_name, tmp_path):
     for key in ("corner_top_x", "corner_top_y"):
         assert pinned[key][0] / (pinned["q_uls_kPa"][0] * lx ** 2) == pytest.approx(
             TWK_TABLE_8_CORNER_N_SQUARE / 2, rel=CORNER_TOLERANCE)
+
+
+def test_flat_slab_punching(kernel_name, tmp_path):
+    result = run_notebook("flat-slab-punching.ipynb", kernel_name, tmp_path)
+    h = result["thickness_mm"]
+    assert h == list(range(200, 341, 20))
+    # Self-weight 25 kN/m³ × h (EN 1991-1-1 Table A.1, reinforced concrete).
+    assert result["self_weight_kPa"] == pytest.approx([25.0 * t / 1000.0 for t in h], rel=1e-12)
+    for columns in result["columns"]:
+        assert len(columns) == 8  # 4 × 3 grid intersections, none on the wall along y0
+        for c in columns:
+            # EN 1992-1-1 6.4.3 (6.38): vEd = β VEd/(u1 d), β of Figure 6.21N
+            # (1.15 internal, 1.4 edge, 1.5 corner) for a braced floor whose
+            # adjacent spans differ by no more than 25 %.
+            beta = {"internal": 1.15, "edge": 1.4, "corner": 1.5}[c["position"]]
+            assert c["transfer_factor"] == pytest.approx(beta)
+            assert c["v_MPa"] == pytest.approx(beta * c["reaction_kN"] * 1e3 / (c["u1_mm"] * c["d_mm"]), rel=1e-9)
+            # Links where vEd exceeds vRd,c (6.4.3(2)), none where it does not.
+            assert c["reinforcement_needed"] == (c["v_MPa"] > c["v_concrete_MPa"])
+            # u1 at 2d from the column's faces (6.4.2(1)): an internal 400 × 400
+            # column's is 4 × 400 + 2π × 2d.
+            if c["position"] == "internal":
+                assert c["u1_mm"] == pytest.approx(1600.0 + 4.0 * math.pi * c["d_mm"], rel=1e-9)
+    # A thicker slab never needs links at more columns (vEd ∝ 1/(u1 d)).
+    links = result["columns_with_links"]
+    assert all(b <= a for a, b in zip(links, links[1:]))
+    assert links[0] == 8 and links[-1] < links[0]

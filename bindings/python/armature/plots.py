@@ -113,6 +113,7 @@ PLATE_MOMENTS = ("mx", "my", "mxy")  # analysis moments, field[q][envelope]
 PLATE_DESIGN_MOMENTS = ("bottom_x", "bottom_y", "top_x", "top_y")  # Wood–Armer, field["design"][q]
 PLATE_ENVELOPES = ("max", "min")
 EDGE_CONDITIONS = ("pinned", "fixed", "free")
+FLAT_EDGES = {"columns": "free", "wall": "pinned"}  # a flat slab's edges, drawn as the condition they are
 # The record's colour scale (kernel/src/record/plate_svg.cpp): blue for the
 # most negative, white at zero, red for the most positive; lightness falls
 # away from zero, so the map still reads in grey.
@@ -134,9 +135,13 @@ def _plate_of(result, caller):
         if lines is None or len(lines) < 2 or any(b <= a for a, b in zip(lines, lines[1:])):
             problems.append(f"plate.{key}: needs two ascending grid lines or more")
     edges = plate.get("edges") or {}
+    flat = "strips" in plate
+    allowed = tuple(FLAT_EDGES) if flat else EDGE_CONDITIONS
     for name in ("x0", "x1", "y0", "y1"):
-        if edges.get(name) not in EDGE_CONDITIONS:
-            problems.append(f"plate.edges.{name}: {edges.get(name)!r} is not one of {', '.join(EDGE_CONDITIONS)}")
+        if edges.get(name) not in allowed:
+            problems.append(f"plate.edges.{name}: {edges.get(name)!r} is not one of {', '.join(allowed)}")
+    if flat and set((plate.get("outline_m") or {})) != {"x0", "x1", "y0", "y1"}:
+        problems.append("plate.outline_m: a flat slab's outline needs x0, x1, y0 and y1")
     for k, bay in enumerate(plate.get("bays", [])):
         for key in ("name", "x0_m", "x1_m", "y0_m", "y1_m"):
             if key not in bay:
@@ -180,19 +185,28 @@ def _draw_plate_frame(ax, plate, bay_names_at="centre"):
     from matplotlib import patheffects
     from matplotlib.lines import Line2D
     xs, ys = list(plate["x_lines_m"]), list(plate["y_lines_m"])
-    x_lo, x_hi, y_lo, y_hi = xs[0], xs[-1], ys[0], ys[-1]
+    x_lo, x_hi, y_lo, y_hi = _plate_extent(plate)
+    flat = "strips" in plate
     reach = 0.02 * max(x_hi - x_lo, y_hi - y_lo)  # triangles sit this far outside a pinned edge
-    for x in xs[1:-1]:
-        ax.plot([x, x], [y_lo, y_hi], color="black", lw=1, ls="-.", gid="support-line")
-    for y in ys[1:-1]:
-        ax.plot([x_lo, x_hi], [y, y], color="black", lw=1, ls="-.", gid="support-line")
+    if flat:  # column lines, every one inside the outline
+        for x in xs:
+            if x_lo < x < x_hi:
+                ax.plot([x, x], [y_lo, y_hi], color="grey", lw=0.6, ls="--", gid="column-line")
+        for y in ys:
+            if y_lo < y < y_hi:
+                ax.plot([x_lo, x_hi], [y, y], color="grey", lw=0.6, ls="--", gid="column-line")
+    else:
+        for x in xs[1:-1]:
+            ax.plot([x, x], [y_lo, y_hi], color="black", lw=1, ls="-.", gid="support-line")
+        for y in ys[1:-1]:
+            ax.plot([x_lo, x_hi], [y, y], color="black", lw=1, ls="-.", gid="support-line")
     # Each edge runs so that the plate lies on its right: the ticks of a
     # fixed edge (drawn to the path's right at angle 135°) fall outside.
     runs = {"x0": ((x_lo, y_lo), (x_lo, y_hi), (-1, 0)), "x1": ((x_hi, y_hi), (x_hi, y_lo), (1, 0)),
             "y0": ((x_hi, y_lo), (x_lo, y_lo), (0, -1)), "y1": ((x_lo, y_hi), (x_hi, y_hi), (0, 1))}
     used = set()
     for name, ((xa, ya), (xb, yb), (nx, ny)) in runs.items():
-        kind = plate["edges"][name]
+        kind = FLAT_EDGES[plate["edges"][name]] if flat else plate["edges"][name]
         used.add(kind)
         gid = f"edge-{name}-{kind}"
         if kind == "fixed":
@@ -231,7 +245,9 @@ def _draw_plate_frame(ax, plate, bay_names_at="centre"):
             h = Line2D([], [], color="black", lw=0.6)
         h.set_label(_EDGE_WORDS[kind])
         handles.append(h)
-    if len(xs) > 2 or len(ys) > 2:
+    if flat:
+        handles.append(Line2D([], [], color="grey", lw=0.6, ls="--", label="column line"))
+    elif len(xs) > 2 or len(ys) > 2:
         handles.append(Line2D([], [], color="black", lw=1, ls="-.", label="interior line support"))
     ax.legend(handles=handles, loc="upper center", bbox_to_anchor=(0.5, -0.12), ncol=len(handles), fontsize=7,
               frameon=False, handlelength=3)
@@ -241,6 +257,16 @@ def _draw_plate_frame(ax, plate, bay_names_at="centre"):
     ax.set_aspect("equal")
     ax.set_xlabel("x, m")
     ax.set_ylabel("y, m")
+
+
+def _plate_extent(plate):
+    """The slab's outline x0, x1, y0, y1: a flat slab's own (half a column
+    past its outer column lines), else the grid's."""
+    if "outline_m" in plate:
+        o = plate["outline_m"]
+        return o["x0"], o["x1"], o["y0"], o["y1"]
+    xs, ys = plate["x_lines_m"], plate["y_lines_m"]
+    return xs[0], xs[-1], ys[0], ys[-1]
 
 
 def _plate_axes(ax):
@@ -295,10 +321,11 @@ def plot_plate(result, quantity="mx", envelope="max", ax=None):
         raise ValueError(f"{path}: a value is not finite")
     plt = _pyplot()
     ax = _plate_axes(ax)
-    xs, ys = plate["x_lines_m"], plate["y_lines_m"]
+    x_lo, x_hi, y_lo, y_hi = _plate_extent(plate)
+    xs, ys = [x_lo, x_hi], [y_lo, y_hi]
     lo, hi = float(values.min()), float(values.max())
     cmap, norm = _plate_scale(lo, hi)
-    mesh = ax.pcolormesh(_cell_edges(x, xs[0], xs[-1]), _cell_edges(y, ys[0], ys[-1]), values, shading="flat",
+    mesh = ax.pcolormesh(_cell_edges(x, x_lo, x_hi), _cell_edges(y, y_lo, y_hi), values, shading="flat",
                          cmap=cmap, norm=norm, gid="armature-plate-field")
     _draw_plate_frame(ax, plate, bay_names_at="corner")
     bar = plt.colorbar(mesh, ax=ax, fraction=0.04, pad=0.03)
@@ -324,12 +351,64 @@ def _bars_text(bars):
     return ("ø" if bar[:1].isdigit() else "") + f"{bar} @ {bars['spacing_mm']:.4g} mm"
 
 
+def _plot_flat_plan(result, plate, ax):
+    """plot_plan of a flat slab: column strips shaded, columns filled, each
+    column's control perimeters dashed (drawn round the column at their
+    distance, clipped to the slab) with its punching utilisation, the
+    governing column ringed."""
+    from matplotlib import patheffects
+    from matplotlib.patches import FancyBboxPatch, Rectangle
+    ax = _plate_axes(ax)
+    _draw_plate_frame(ax, plate)
+    x_lo, x_hi, y_lo, y_hi = _plate_extent(plate)
+    outline = Rectangle((x_lo, y_lo), x_hi - x_lo, y_hi - y_lo, fill=False, lw=0)
+    ax.add_patch(outline)
+    for strip in plate["strips"]:
+        if strip["kind"] != "column":
+            continue
+        for q in strip["spans"]:
+            ax.add_patch(Rectangle((q["x0_m"], q["y0_m"]), q["x1_m"] - q["x0_m"], q["y1_m"] - q["y0_m"],
+                                   color="#6a8fc7", alpha=0.12, lw=0, gid="column-strip"))
+    halo = [patheffects.withStroke(linewidth=2.5, foreground="white")]
+    worst, governing = -1.0, None
+    for k, c in enumerate(result.get("columns", [])):
+        for key in ("name", "x_m", "y_m", "size_mm", "perimeters", "checks"):
+            if key not in c:
+                raise ValueError(f"columns[{k}].{key}: missing from the result")
+        bx, by = c["size_mm"][0] / 1000.0, c["size_mm"][1] / 1000.0
+        x0, y0 = c["x_m"] - bx / 2, c["y_m"] - by / 2
+        ax.add_patch(Rectangle((x0, y0), bx, by, color="black", gid="column"))
+        for per in c["perimeters"]:
+            a = per["distance_mm"] / 1000.0
+            if a <= 0:
+                continue
+            p = FancyBboxPatch((x0, y0), bx, by, boxstyle=f"round,pad={a}", fill=False, ec="#b03020", lw=0.7,
+                               ls="--", gid="perimeter")
+            ax.add_patch(p)
+            p.set_clip_path(outline)
+        util = max((chk["utilisation"] for chk in c["checks"]), default=0.0)
+        ax.annotate(f"{c['name']}\n{util:.2f}", (c["x_m"], c["y_m"]), textcoords="offset points", xytext=(6, 6),
+                    fontsize=7, path_effects=halo, gid="armature-column")
+        if util > worst:
+            worst, governing = util, c
+    if governing is not None:
+        ax.plot([governing["x_m"]], [governing["y_m"]], "o", ms=16, mfc="none", mec="#b03020", mew=1.6,
+                gid="armature-governing-column")
+    ax.set_title("Plan of the flat slab: column strips shaded, punching perimeters dashed, "
+                 "largest punching utilisation per column", fontsize=9)
+    return ax
+
+
 def plot_plan(result, ax=None):
     """Plan of a two-way design to scale: grid lines, edges by condition, bay
     names with their bottom bars (x and y) from the result's regions, and
     each top region's bars at its design position, written along its
-    support line. Returns the axes."""
+    support line. A flat slab's plan shows its column strips, columns and
+    punching perimeters instead, with each column's largest punching
+    utilisation. Returns the axes."""
     plate = _plate_of(result, "plot_plan")
+    if "strips" in plate:
+        return _plot_flat_plan(result, plate, ax)
     regions = result.get("regions", [])
     for k, g in enumerate(regions):
         for key in ("where", "face", "direction", "x_m", "y_m", "bars"):

@@ -123,7 +123,7 @@ class FlatPlate {
   std::vector<double> x_lines_, y_lines_;  // column lines, model coordinates
   std::vector<FlatColumn> columns_;
   std::vector<Target> targets_;
-  std::vector<FlatStripRecord> strips_;
+  std::vector<FlatStripRecord> strips_, bands_;
   std::size_t uls_cases_ = 0, arrangements_ = 0;
   double uniform_ratio_ = 0.0;
   PlateFieldRecord field_;

@@ -11,7 +11,10 @@ inline constexpr double steel_density_kg_m3 = 7850.0;
 // bottom bars over their whole span, top bars at a support over 0.3 of each
 // adjacent span (the whole cantilever at a cantilever root), distribution
 // bars over the whole strip (common practice estimate: no laps, anchorage
-// or curtailment detail). A design with detailing: the bar schedule's total
+// or curtailment detail). Two-way slabs: per bay and line segment; flat
+// slabs: per strip and span, top bars over their strip's (band's) width,
+// and the punching links (each perimeter's area over a leg between the
+// covers). A design with detailing: the bar schedule's total
 // mass over slab width × strip length instead.
 double steel_mass_kg_per_m2(const DesignRecord& record);
 

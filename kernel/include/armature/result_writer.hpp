@@ -260,6 +260,20 @@ void write_plate(W& w, const PlateRecord& p) {
       w.end();
     }
     w.end();
+    w.key("bands");
+    w.begin_array();
+    for (const auto& b : p.bands) {
+      const auto& q = b.pieces.front();
+      w.begin_object();
+      w.key("name"), w.value(b.name);
+      w.key("direction"), w.value(to_string(b.direction));
+      w.key("x0_m"), w.value(q[0] * m_per_mm);
+      w.key("x1_m"), w.value(q[1] * m_per_mm);
+      w.key("y0_m"), w.value(q[2] * m_per_mm);
+      w.key("y1_m"), w.value(q[3] * m_per_mm);
+      w.end();
+    }
+    w.end();
     w.key("strip_clause"), w.value(p.strip_clause);
     if (!p.band_clause.empty()) w.key("band_clause"), w.value(p.band_clause);
   }

@@ -102,6 +102,9 @@ struct PlateRecord {
   std::array<bool, 4> column_edges{};
   bool columns_restrained = false;
   std::vector<FlatStripRecord> strips;
+  // The bands over internal columns, each one piece: its width across the
+  // column line (a band along x spans x0 = x1 = the column line).
+  std::vector<FlatStripRecord> bands;
   std::vector<FlatColumnOutline> columns;
   std::string strip_clause, band_clause;
 };

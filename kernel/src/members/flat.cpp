@@ -257,6 +257,11 @@ FlatPlate::FlatPlate(const Request& request, double elastic_modulus_MPa, const F
           tg.panel_width_share = rule_.band_share;
           (along_x ? tg.demand.y_mm : tg.demand.x_mm) = B.lines[j] - b_off;
           (along_x ? tg.demand.x_mm : tg.demand.y_mm) = A.lines[l] - a_off;
+          FlatStripRecord band{tg.demand.where, dir, true, {}};
+          const double a = A.lines[l] - a_off;
+          band.pieces.push_back(along_x ? std::array<double, 4>{a, a, lo - b_off, hi - b_off}
+                                        : std::array<double, 4>{lo - b_off, hi - b_off, a, a});
+          bands_.push_back(std::move(band));
           targets_.push_back(std::move(tg));
         }
   }
@@ -495,6 +500,7 @@ PlateRecord FlatPlate::record() const {
   r.outer_layer = {to_string(outer_[0]), to_string(outer_[1])};
   r.arrangements = arrangements_;
   r.strips = strips_;
+  r.bands = bands_;
   for (const auto& c : columns_) r.columns.push_back({c.name, c.x_mm, c.y_mm, cx_, cy_});
   r.strip_clause = rule_.clause;
   if (rule_.band_each_side > 0.0) r.band_clause = rule_.band_clause;

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <string>
 
 #include "armature/two_way.hpp"
@@ -33,8 +34,68 @@ double bar_length_mm(const DesignRecord& r, const RegionRecord& g) {
 // top_bar_reach of each adjacent span across the line, corner bars over
 // their zone (counted in full, beside the bars they overlap), and the top
 // leg and bend of the U-bars at free edges.
+// A flat slab: bottom bars over their strip in each span, top bars over
+// the strip's width at the column line reaching top_bar_reach of each
+// adjacent span (a band likewise, counted in full beside the column
+// strip's bars it overlaps), and the punching links: each perimeter's
+// area over a leg of the slab's depth between the covers.
+double flat_steel_mass_kg_per_m2(const DesignRecord& r) {
+  const PlateRecord& p = *r.plate;
+  const auto& o = p.outline_mm;
+  const double area = (o[1] - o[0]) * (o[3] - o[2]);
+  if (!(area > 0.0)) return 0.0;
+  auto strip_named = [&](const std::string& name, const std::vector<FlatStripRecord>& list) -> const FlatStripRecord* {
+    for (const auto& s : list)
+      if (s.name == name) return &s;
+    return nullptr;
+  };
+  double volume_mm3 = 0.0;
+  for (const auto& g : r.regions) {
+    const bool along_x = g.direction == BarDirection::x;
+    const auto& lines = along_x ? p.x_lines_mm : p.y_lines_mm;
+    const std::size_t cut = g.where.rfind(g.face == Face::bottom ? " span " : " at ");
+    const FlatStripRecord* band = strip_named(g.where, p.bands);
+    const FlatStripRecord* strip = cut == std::string::npos ? nullptr : strip_named(g.where.substr(0, cut), p.strips);
+    double area_mm2 = 0.0;
+    if (g.face == Face::bottom && strip) {
+      const std::size_t k = static_cast<std::size_t>(std::stoul(g.where.substr(cut + 6))) - 1;
+      if (k < strip->pieces.size()) {
+        const auto& q = strip->pieces[k];
+        area_mm2 = (q[1] - q[0]) * (q[3] - q[2]);
+      }
+    } else if (band || strip) {
+      const double at = along_x ? g.x_mm : g.y_mm;
+      double width = 0.0;
+      if (band) {
+        const auto& q = band->pieces.front();
+        width = along_x ? q[3] - q[2] : q[1] - q[0];
+      } else {
+        width = std::numeric_limits<double>::infinity();
+        for (const auto& q : strip->pieces) width = std::min(width, along_x ? q[3] - q[2] : q[1] - q[0]);
+      }
+      double reach = 0.0;
+      for (std::size_t k = 0; k < lines.size(); ++k) {
+        if (std::abs(lines[k] - at) > 1e-6) continue;
+        if (k > 0) reach += top_bar_reach * (lines[k] - lines[k - 1]);
+        if (k + 1 < lines.size()) reach += top_bar_reach * (lines[k + 1] - lines[k]);
+      }
+      area_mm2 = width * reach;
+    }
+    volume_mm3 += g.bars.As_prov_mm2 * area_mm2 / 1000.0;
+  }
+  const double leg = r.thickness_mm - r.cover_mm(Face::top) - r.cover_mm(Face::bottom);
+  for (const auto& c : r.columns) {
+    const auto& s = c.punching.reinforcement;
+    if (!s || !(s->spacing_mm > 0.0)) continue;
+    const double perimeters = std::floor(s->outermost_line_distance_mm / s->spacing_mm) + 1.0;
+    volume_mm3 += perimeters * s->area_per_perimeter_mm2 * std::max(leg, 0.0);
+  }
+  return volume_mm3 / area * 1e-3 * steel_density_kg_m3;
+}
+
 double plate_steel_mass_kg_per_m2(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
+  if (p.flat) return flat_steel_mass_kg_per_m2(r);
   const double X = p.x_lines_mm.back() - p.x_lines_mm.front(), Y = p.y_lines_mm.back() - p.y_lines_mm.front();
   if (!(X > 0.0 && Y > 0.0)) return 0.0;
   double volume_mm3 = 0.0;  // As_prov per metre (mm²/m) × area (mm²) / 1000 mm
