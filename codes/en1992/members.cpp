@@ -523,6 +523,18 @@ FlatStripRule Checker::flat_strip_rule() const {
 
 std::vector<Check> Checker::span_checks(const std::string& span_where) const {
   std::vector<Check> out;
+  if (req_.fire.resistance_min && req_.slab_type == SlabType::flat) {
+    out.push_back(run_check("fire", [&] {
+      const int t = *req_.fire.resistance_min;
+      const double h_min = fire_min_thickness_flat(t);
+      std::vector<Step> st;
+      st.push_back({"h_s,min", "Table 5.9, flat slab", "REI " + std::to_string(t), h_min, "mm",
+                    "EN 1992-1-2 5.7.4 Table 5.9"});
+      return make_check("fire", span_where, "EN 1992-1-2 5.7.4 Table 5.9 (thickness)", h_min, req_.slab.thickness_mm,
+                        "mm", std::move(st));
+    }));
+    return out;
+  }
   if (req_.fire.resistance_min) {
     out.push_back(run_check("fire", [&] {
       const int t = *req_.fire.resistance_min;
@@ -541,6 +553,17 @@ std::vector<Check> Checker::span_checks(const std::string& span_where) const {
 void Checker::fire_axis_distance_check(CheckCollector& checks, const RegionDemand& g, double c_nom,
                                        double phi) const {
   const int t = *req_.fire.resistance_min;
+  if (req_.slab_type == SlabType::flat) {  // 5.7.4: every bottom strip of a flat slab
+    const double a = c_nom + phi / 2.0, a_min = fire_min_axis_distance_flat(t);
+    checks.add("fire", g.where, "EN 1992-1-2 5.7.4 Table 5.9 (axis distance)", a_min, a, "mm", [&] {
+      Steps st;
+      st.add("a", "c_nom + φ/2 (the face's cover; an inner layer lies deeper)", num(c_nom) + " + " + num(phi) + "/2",
+             a, "mm", "EN 1992-1-2 5.7.4");
+      st.add("a_min", "Table 5.9, flat slab", "REI " + std::to_string(t), a_min, "mm", "EN 1992-1-2 5.7.4 Table 5.9");
+      return st.take();
+    });
+    return;
+  }
   if (g.direction != BarDirection::span && g.long_span_mm > 0.0) {  // a two-way bay on four edges
     const double ratio = g.long_span_mm / g.span_mm;
     const int column = fire_two_way_column(ratio);

@@ -93,6 +93,12 @@ std::vector<std::string> Checker::warnings() const {
     out.push_back("serviceability.partitions is true, but the deflection is checked by the span/depth ratio "
                   "(EN 1992-1-1 7.4.2) alone, which does not check the part after the partitions are built "
                   "(7.4.1(5), span/500): give serviceability.deflection \"calculated\" or \"both\"");
+  // A flat slab in fire: Table 5.9 holds only with the top steel that
+  // 5.7.4(2) asks for, which armature does not detail.
+  if (req_.fire.resistance_min && req_.slab_type == SlabType::flat)
+    out.push_back("EN 1992-1-2 5.7.4(2): for the fire resistance of Table 5.9, at least 20 % of the top "
+                  "reinforcement over the intermediate supports in each direction must run continuous over the whole "
+                  "span, in the column strip; not detailed here: make sure the drawings do");
   {
     const std::lock_guard<std::mutex> lock(span_depth_notes_mutex_);
     for (const auto& [where, note] : span_depth_notes_) out.push_back(note);

@@ -392,6 +392,21 @@ bool is_tabulated_fire_resistance(int minutes) {
 double fire_min_thickness(int minutes) { return fire_row(minutes).h; }
 double fire_min_axis_distance(int minutes) { return fire_row(minutes).a; }
 
+namespace {
+// Table 5.9 (from memory): flat slabs, REI 30 to 240: hs and a.
+constexpr std::array<FireRow, 6> table_5_9{
+    {{30, 150, 10}, {60, 180, 15}, {90, 200, 25}, {120, 200, 35}, {180, 200, 45}, {240, 200, 50}}};
+const FireRow& flat_fire_row(int minutes) {
+  for (const auto& r : table_5_9)
+    if (r.minutes == minutes) return r;
+  throw std::invalid_argument("fire resistance " + std::to_string(minutes) +
+                              " min is not in EN 1992-1-2 Table 5.9");
+}
+}  // namespace
+
+double fire_min_thickness_flat(int minutes) { return flat_fire_row(minutes).h; }
+double fire_min_axis_distance_flat(int minutes) { return flat_fire_row(minutes).a; }
+
 // ---- Deflection by calculation (EN 1992-1-1 7.4.3) ------------------------
 double effective_modulus(double Ecm, double phi) { return Ecm / (1.0 + phi); }  // (7.20)
 

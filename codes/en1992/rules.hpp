@@ -291,6 +291,8 @@ double round_up_to_5(double x);
 bool is_tabulated_fire_resistance(int minutes);
 double fire_min_thickness(int minutes);       // hs
 double fire_min_axis_distance(int minutes);   // a
+double fire_min_thickness_flat(int minutes);      // Table 5.9: hs of a flat slab
+double fire_min_axis_distance_flat(int minutes);  // Table 5.9: a of a flat slab
 // Table 5.8 columns 4 and 5: two-way slabs supported on four edges, by
 // ly/lx (≤ 1.5: column 4; ≤ 2.0: column 5); above 2 the one-way column 3.
 double fire_min_axis_distance_two_way(int minutes, double ly_over_lx);

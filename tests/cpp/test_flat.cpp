@@ -251,12 +251,10 @@ TEST_CASE("Flat: ACI punching needs the columns' restraint and reads its moments
 TEST_CASE("Flat: bad input is named field by field", "[flat]") {
   json req = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0}, {{"x0", "pinned"}});
   req["slab"]["columns"] = {{"size_mm", {400}}, {"height_m", "tall"}};
-  req["fire"] = {{"resistance_min", 60}};
   const auto p = problem_fields(req);
   CHECK(has_problem(p, "slab.edges.x0", "\"columns\" or \"wall\""));
   CHECK(has_problem(p, "slab.columns.size_mm", "two sides"));
   CHECK(has_problem(p, "slab.columns.height_m", "storey height"));
-  CHECK(has_problem(p, "fire", "flat slabs"));
   json big = flat_request("EN1992-1-1", {6.0, 2.0}, {6.0});
   big["slab"]["columns"]["size_mm"] = {1200, 400};
   CHECK(has_problem(problem_fields(big), "slab.columns.size_mm", "half the shortest span"));
@@ -268,4 +266,36 @@ TEST_CASE("Flat: bad input is named field by field", "[flat]") {
   CHECK(has_problem(problem_fields(off), "loads.actions[0].x_m", "must lie on the slab"));
   off["loads"]["actions"][0]["x_m"] = -0.1;  // on the half column past grid line x0
   CHECK(problem_fields(off).empty());
+}
+
+// Fire by EN 1992-1-2 5.7.4 Table 5.9 for flat slabs (values from memory):
+// REI 90 needs hs 200 mm and a 25 mm; REI 60 180 mm and 15 mm. Each bay's
+// thickness and every bottom strip's axis distance (c + φ/2).
+TEST_CASE("Flat: fire by EN 1992-1-2 Table 5.9", "[flat]") {
+  json req = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0, 6.0}, json::object(), 190);
+  req["fire"] = {{"resistance_min", 90}};
+  const DesignRecord r = design(registry(), req);
+  int thickness = 0, axis = 0;
+  for (const Check* c : r.all_checks()) {
+    if (c->id != "fire") continue;
+    if (c->clause.str().find("thickness") != std::string::npos) {
+      CHECK(c->demand == 200.0);
+      CHECK(c->capacity == 190.0);
+      CHECK_FALSE(c->pass);
+      ++thickness;
+    } else {
+      CHECK(c->clause.str().find("Table 5.9") != std::string::npos);
+      CHECK(c->demand == 25.0);
+      CHECK(c->capacity >= 25.0 + 10.0 / 2.0 - 1e-9);  // cover 25 mm + φ/2, the smallest bar 10 mm
+      ++axis;
+    }
+  }
+  CHECK(thickness == 4);  // one per bay
+  CHECK(axis > 0);
+  CHECK(std::any_of(r.warnings.begin(), r.warnings.end(),
+                    [](const std::string& w) { return w.find("5.7.4(2)") != std::string::npos; }));
+  req["fire"]["resistance_min"] = 60;
+  const DesignRecord rei60 = design(registry(), req);
+  for (const Check* c : rei60.all_checks())
+    if (c->id == "fire" && c->clause.str().find("thickness") != std::string::npos) CHECK(c->demand == 180.0);
 }
