@@ -303,6 +303,7 @@ class Factory final : public CodeFactory {
   std::string edition() const override { return "ACI 318-19"; }
   std::vector<std::string> variants() const override { return {variant_si, variant_us}; }
   std::string default_variant() const override { return variant_si; }
+  std::vector<std::string> slab_types() const override { return {"one_way", "two_way", "flat"}; }
   std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost&) const override {
     if (variant != variant_si && variant != variant_us)
       throw std::invalid_argument("no ACI 318-19 variant '" + variant + "'");

@@ -290,6 +290,7 @@ class Factory final : public CodeFactory {
     return names;
   }
   std::string default_variant() const override { return "recommended"; }
+  std::vector<std::string> slab_types() const override { return {"one_way", "two_way", "flat"}; }
   std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost&) const override {
     for (const auto& v : variants_)
       if (v.variant == variant) return std::make_shared<Code>(v);

@@ -76,6 +76,8 @@ int list_codes() {
     std::cout << "    variants: ";
     for (std::size_t i = 0; i < c.variants.size(); ++i)
       std::cout << (i ? ", " : "") << c.variants[i] << (c.variants[i] == c.default_variant ? " (default)" : "");
+    std::cout << "\n    slab types: ";
+    for (std::size_t i = 0; i < c.slab_types.size(); ++i) std::cout << (i ? ", " : "") << c.slab_types[i];
     std::cout << "\n    file: " << c.path << "\n";
   }
   if (!reg.failures().empty()) {

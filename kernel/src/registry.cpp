@@ -122,6 +122,7 @@ void Registry::Impl::load_file(const fs::path& file) {
     plugin.info.edition = plugin.factory->edition();
     plugin.info.variants = plugin.factory->variants();
     plugin.info.default_variant = plugin.factory->default_variant();
+    plugin.info.slab_types = plugin.factory->slab_types();
     plugin.info.path = file.string();
   } catch (const std::exception& e) {
     fail(std::string("plug-in failed while starting: ") + e.what());

@@ -173,6 +173,7 @@ class Factory final : public CodeFactory {
   std::string edition() const override { return "house rules, issue 1"; }
   std::vector<std::string> variants() const override { return {variant_name}; }
   std::string default_variant() const override { return variant_name; }
+  std::vector<std::string> slab_types() const override { return {"one_way", "two_way", "flat"}; }
   std::shared_ptr<const DesignCode> make(const std::string& variant, const CodeHost& host) const override {
     if (variant != variant_name) throw std::invalid_argument("no house-rules variant '" + variant + "'");
     return std::make_shared<Code>(host.open("EN1992-1-1", "UK"));

@@ -42,6 +42,9 @@ class CodeFactory {
   // Data files the plug-in found but refused (file, reason); the registry
   // lists them with the load failures, and the plug-in works without them.
   virtual std::vector<std::pair<std::string, std::string>> data_problems() const { return {}; }
+  // The slab types (contract-v2 slab.type) the code designs: a request for
+  // another fails validation on slab.type. Default: the one-way strip.
+  virtual std::vector<std::string> slab_types() const { return {"one_way"}; }
 };
 
 struct PluginEntry {

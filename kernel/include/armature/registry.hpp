@@ -19,6 +19,7 @@ struct LoadedCodeInfo {
   std::vector<std::string> variants;
   std::string default_variant;
   std::string path;  // the plug-in file it came from
+  std::vector<std::string> slab_types;  // "one_way", "two_way", "flat" (CodeFactory::slab_types)
 };
 
 struct PluginFailure {

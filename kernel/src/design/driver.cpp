@@ -119,6 +119,23 @@ void apply_default_strength(const PracticeDefaults& practice, const nlohmann::js
   problems = std::move(kept);
 }
 
+// A slab type the code does not design is a problem on slab.type
+// (LoadedCodeInfo::slab_types, from the plug-in).
+void add_slab_type_problem(const Registry& registry, const Request& req, InputProblems& problems) {
+  const char* type = req.slab_type == SlabType::flat      ? "flat"
+                     : req.slab_type == SlabType::two_way ? "two_way"
+                                                          : "one_way";
+  for (const auto& info : registry.codes()) {
+    if (info.id != req.code) continue;
+    if (std::find(info.slab_types.begin(), info.slab_types.end(), type) != info.slab_types.end()) return;
+    std::string listed;
+    for (const auto& t : info.slab_types) listed += (listed.empty() ? "" : ", ") + t;
+    problems.add(req.slab_type == SlabType::one_way ? "code" : "slab.type",
+                 info.id + " does not design " + type + " slabs (it designs: " + listed + ")");
+    return;
+  }
+}
+
 // Whether the result states its strip width (DesignRecord::state_strip_width).
 bool states_strip_width(const PracticeDefaults& practice) {
   return practice.strip_width_mm != PracticeDefaults{}.strip_width_mm;
@@ -152,6 +169,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
   if (!problems.has_field("code")) {
     try {
       code = registry.open(req.code, req.variant.value_or(""));
+      add_slab_type_problem(registry, req, problems);
     } catch (const InputError& e) {
       for (const auto& p : e.problems()) problems.add(p.field, p.message);
     }
@@ -189,6 +207,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
 DesignRecord design(const Registry& registry, const Request& req, Detail detail) {
   auto code = registry.open(req.code, req.variant.value_or(""));
   InputProblems problems;
+  add_slab_type_problem(registry, req, problems);
   CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                               [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
