@@ -79,6 +79,7 @@ class Checker final : public SlabChecker,
   // punching.cpp (PunchingRules: ACI 318-19 22.6, 8.4.4.2)
   double steel_ratio_width_mm(const PunchingDemand&, bool) const override { return 0.0; }
   PunchingOutcome check_punching(const PunchingDemand& p, Detail detail) const override;
+  std::optional<TransferBand> moment_transfer_band(const PunchingDemand& demand, bool bars_x) const override;
 
  private:
   // members.cpp
@@ -105,6 +106,8 @@ class Checker final : public SlabChecker,
   double two_way_max_bar_spacing(double h) const;               // 8.7.2.2
   std::vector<BayArrangement> bay_load_arrangements(std::size_t bays_x, std::size_t bays_y,
                                                     const std::vector<Action>& actions) const override;
+  std::vector<BayArrangement> flat_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                     const std::vector<Action>& actions) const override;
   double min_clear_spacing(double db, double aggregate) const;  // 25.2.1
   double crack_spacing(double fs, double clear_cover) const;    // 24.3.2
   double max_distribution_spacing(double h) const;              // 24.4.3.3

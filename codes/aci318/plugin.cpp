@@ -119,6 +119,17 @@ std::vector<BayArrangement> Checker::bay_load_arrangements(std::size_t bays_x, s
   return out;
 }
 
+// 6.4.3.2 for a flat slab: as for two-way slabs, and with L > 0.75 D the
+// panel and alternate panels of each frame loaded across the whole width
+// at 75 % of the factored live load.
+std::vector<BayArrangement> Checker::flat_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                            const std::vector<Action>& actions) const {
+  auto out = bay_load_arrangements(bays_x, bays_y, actions);
+  if (out.size() == 1) return out;  // L ≤ 0.75 D: every panel at the full live load only
+  for (auto& a : alternate_bay_strips(bays_x, bays_y)) out.push_back({std::move(a), two_way_pattern_live_fraction});
+  return out;
+}
+
 std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) const {
   return variant_bar(designation, us_);
 }

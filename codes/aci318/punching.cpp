@@ -46,6 +46,24 @@ double stress_at(const PunchingPerimeter& s, double d, double V, const Transfer&
 }
 }  // namespace
 
+// 8.4.2.2.3: γf Msc is resisted by the top bars within bslab, the
+// column's side across the moment plus 1.5 h each side where the slab
+// continues. γf (8.4.2.2.2) from the critical section at d/2, d not yet
+// known: the larger of its values at d = 0 and d = h (γf is monotonic in
+// d), so that the band is never short of the moment.
+std::optional<TransferBand> Checker::moment_transfer_band(const PunchingDemand& p, bool bars_x) const {
+  const ColumnOutline column = centred_outline(p.cx_mm, p.cy_mm);
+  double gamma_f = 0.0;
+  for (const double d : {0.0, p.h_mm}) {
+    const PunchingPerimeter s = offset_perimeter("b0", column, p.free, critical_section_distance_factor * d,
+                                                 PerimeterCorner::square);
+    gamma_f = std::max(gamma_f, moment_transfer_by_flexure(perimeter_extent(s, bars_x), perimeter_extent(s, !bars_x)));
+  }
+  const int sides = bars_x ? 2 - int(p.free.y0) - int(p.free.y1) : 2 - int(p.free.x0) - int(p.free.x1);
+  const double c2 = bars_x ? p.cy_mm : p.cx_mm;
+  return TransferBand{moment_transfer_slab_width(c2, p.h_mm, sides), gamma_f, "ACI 318-19 8.4.2.2.2, 8.4.2.2.3"};
+}
+
 PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) const {
   validate_punching_demand(p);
   const double Mx = moment_of(p.M_x_Nmm, "M_x_Nmm"), My = moment_of(p.M_y_Nmm, "M_y_Nmm");

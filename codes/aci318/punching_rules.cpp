@@ -48,6 +48,8 @@ double required_stirrup_area(double vu, double phi, double vc, double b0, double
   return std::max(vu / phi - vc, 0.0) * b0 * s / fyt;
 }
 
+double moment_transfer_slab_width(double c2, double h, int sides_with_slab) { return c2 + 1.5 * h * sides_with_slab; }
+
 double stirrup_shear_stress(double Av, double fyt, double b0, double s) { return Av * fyt / (b0 * s); }
 
 double max_stirrup_line_spacing(double d) { return d / 2.0; }

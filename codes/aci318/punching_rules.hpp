@@ -53,5 +53,8 @@ double stirrup_shear_stress(double Av, double fyt, double b0, double s);
 double max_stirrup_line_spacing(double d);
 // 22.6.4.1: the critical section at d/2 from the column's faces.
 constexpr double critical_section_distance_factor = 0.5;
+// 8.4.2.2.3: bslab, the slab resisting γf Msc, the column's side across
+// the moment plus 1.5 h on each side where the slab continues.
+double moment_transfer_slab_width(double c2, double h, int sides_with_slab);
 
 }  // namespace armature::aci318

@@ -98,6 +98,8 @@ class Checker final : public SlabChecker,
   std::vector<std::vector<bool>> load_arrangements(std::size_t span_count) const override;
   std::vector<BayArrangement> bay_load_arrangements(std::size_t bays_x, std::size_t bays_y,
                                                     const std::vector<Action>& actions) const override;
+  std::vector<BayArrangement> flat_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                     const std::vector<Action>& actions) const override;
   const std::vector<BarOption>& bar_options() const override { return *bars_; }
   std::optional<BarOption> catalogue_bar(const std::string& designation) const override;
   std::vector<InputDefault> defaults_used() const override;
@@ -125,6 +127,7 @@ class Checker final : public SlabChecker,
   // punching.cpp (PunchingRules: EN 1992-1-1 6.4)
   double steel_ratio_width_mm(const PunchingDemand& p, bool along_x) const override;
   PunchingOutcome check_punching(const PunchingDemand& p, Detail detail) const override;
+  std::optional<TransferBand> moment_transfer_band(const PunchingDemand& demand, bool bars_x) const override;
 
  private:
   // Cover of bars of diameter phi (4.4.1): c_nom is the request's cover

@@ -47,6 +47,17 @@ std::vector<BayArrangement> Checker::bay_load_arrangements(std::size_t bays_x, s
   return out;
 }
 
+// 5.1.3(1)P for a flat slab (its frames by Annex I.1): the two-way
+// arrangements, and alternate spans of each frame loaded across the whole
+// width (its adjacent spans are the whole-width pairs of the two-way set
+// where the variant asks for them).
+std::vector<BayArrangement> Checker::flat_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                            const std::vector<Action>& actions) const {
+  auto out = bay_load_arrangements(bays_x, bays_y, actions);
+  for (auto& a : alternate_bay_strips(bays_x, bays_y)) out.push_back({std::move(a), 1.0});
+  return out;
+}
+
 std::optional<BarOption> Checker::catalogue_bar(const std::string& designation) const {
   const auto phi = bar_diameter(designation);
   if (!phi) return std::nullopt;

@@ -48,6 +48,20 @@ double Checker::steel_ratio_width_mm(const PunchingDemand& p, bool along_x) cons
   return punching_steel_ratio_width(p.cx_mm, d, int(!p.free.x0) + int(!p.free.x1));
 }
 
+// 9.4.1(3): at an edge or corner column, the bars across a free edge that
+// carry the moment into the column lie within be (Figure 9.9); the whole
+// moment. None at internal columns (9.4.1(2)'s band serves there) or along
+// the edge.
+std::optional<TransferBand> Checker::moment_transfer_band(const PunchingDemand& p, bool bars_x) const {
+  const ColumnPosition pos = column_position(p.free);
+  const bool across_free = bars_x ? (p.free.x0 || p.free.x1) : (p.free.y0 || p.free.y1);
+  if (pos == ColumnPosition::internal || !across_free) return std::nullopt;
+  const double c_along = bars_x ? p.cy_mm : p.cx_mm, c_across = bars_x ? p.cx_mm : p.cy_mm;
+  const double be = pos == ColumnPosition::edge ? edge_column_effective_width(c_along, c_across)
+                                                : corner_column_effective_width(c_along, c_across);
+  return TransferBand{be, 1.0, "EN 1992-1-1 9.4.1(3), Figure 9.9"};
+}
+
 PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) const {
   validate_punching_demand(p);
   PunchingOutcome out;
@@ -73,41 +87,67 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
     u1_reduced = offset_perimeter("u1*", reduced_outline(p, d), p.free, basic_control_distance_factor * d,
                                   PerimeterCorner::round);
 
-  // β: Figure 6.21N where it applies, else 6.4.3(3)–(5).
-  double beta = 1.0;
-  std::string beta_expression, beta_substituted, beta_clause;
+  // β: 6.4.3(3)–(5) from the moments; Figure 6.21N where it applies
+  // (6.4.3(6)), or the larger of the two where the moments are known too.
+  struct Beta {
+    double value = 1.0;
+    std::string expression, substituted, clause;
+  };
+  auto computed_beta = [&]() {
+    Beta b;
+    if (pos == ColumnPosition::internal) {
+      const double Mx = moment_of(p.M_x_Nmm, "M_x_Nmm"), My = moment_of(p.M_y_Nmm, "M_y_Nmm");
+      const double kx = moment_transfer_k(p.cx_mm / p.cy_mm), ky = moment_transfer_k(p.cy_mm / p.cx_mm);
+      const double Wx = perimeter_first_moment(u1, true, 0.0), Wy = perimeter_first_moment(u1, false, 0.0);
+      const double tx = V > 0.0 ? beta_term(kx, Mx, V, u1.length_mm, Wx) : 0.0;
+      const double ty = V > 0.0 ? beta_term(ky, My, V, u1.length_mm, Wy) : 0.0;
+      b.value = 1.0 + tx + ty;
+      b.expression = "1 + kx (Mx/VEd) u1/W1x + ky (My/VEd) u1/W1y";
+      b.substituted = "1 + " + num(kx) + " × (" + num(Mx * 1e-6) + "/" + num(V * 1e-3) + ") × " +
+                      num(u1.length_mm) + "/" + num(Wx) + " + " + num(ky) + " × (" + num(My * 1e-6) + "/" +
+                      num(V * 1e-3) + ") × " + num(u1.length_mm) + "/" + num(Wy);
+      b.clause = "EN 1992-1-1 6.4.3(3) (6.39), Table 6.1, (6.41)";
+    } else if (pos == ColumnPosition::edge) {
+      const double M_par = moment_of(along_x ? p.M_x_Nmm : p.M_y_Nmm, along_x ? "M_x_Nmm" : "M_y_Nmm");
+      const double k = moment_transfer_k(c1 / (2.0 * c2));
+      const double W = perimeter_first_moment(u1, along_x, 0.0);
+      const double t = V > 0.0 ? beta_term(k, M_par, V, u1.length_mm, W) : 0.0;
+      b.value = u1.length_mm / u1_reduced->length_mm + t;
+      b.expression = "u1/u1* + k (Mpar/VEd) u1/W1";
+      b.substituted = num(u1.length_mm) + "/" + num(u1_reduced->length_mm) + " + " + num(k) + " × (" +
+                      num(M_par * 1e-6) + "/" + num(V * 1e-3) + ") × " + num(u1.length_mm) + "/" + num(W);
+      b.clause = "EN 1992-1-1 6.4.3(4) (6.44), Table 6.1 with c1/2c2, (6.45)";
+    } else {
+      b.value = u1.length_mm / u1_reduced->length_mm;
+      b.expression = "u1/u1*";
+      b.substituted = num(u1.length_mm) + "/" + num(u1_reduced->length_mm);
+      b.clause = "EN 1992-1-1 6.4.3(5) (6.46)";
+    }
+    return b;
+  };
+  Beta chosen;
   if (p.braced_regular_spans) {
-    beta = simplified_beta(pos);
-    beta_expression = std::string("Figure 6.21N, ") + position_name(pos) + " column";
-    beta_clause = "EN 1992-1-1 6.4.3(6) Figure 6.21N";
-  } else if (pos == ColumnPosition::internal) {
-    const double Mx = moment_of(p.M_x_Nmm, "M_x_Nmm"), My = moment_of(p.M_y_Nmm, "M_y_Nmm");
-    const double kx = moment_transfer_k(p.cx_mm / p.cy_mm), ky = moment_transfer_k(p.cy_mm / p.cx_mm);
-    const double Wx = perimeter_first_moment(u1, true, 0.0), Wy = perimeter_first_moment(u1, false, 0.0);
-    const double tx = V > 0.0 ? beta_term(kx, Mx, V, u1.length_mm, Wx) : 0.0;
-    const double ty = V > 0.0 ? beta_term(ky, My, V, u1.length_mm, Wy) : 0.0;
-    beta = 1.0 + tx + ty;
-    beta_expression = "1 + kx (Mx/VEd) u1/W1x + ky (My/VEd) u1/W1y";
-    beta_substituted = "1 + " + num(kx) + " × (" + num(Mx * 1e-6) + "/" + num(V * 1e-3) + ") × " +
-                       num(u1.length_mm) + "/" + num(Wx) + " + " + num(ky) + " × (" + num(My * 1e-6) + "/" +
-                       num(V * 1e-3) + ") × " + num(u1.length_mm) + "/" + num(Wy);
-    beta_clause = "EN 1992-1-1 6.4.3(3) (6.39), Table 6.1, (6.41)";
-  } else if (pos == ColumnPosition::edge) {
-    const double M_par = moment_of(along_x ? p.M_x_Nmm : p.M_y_Nmm, along_x ? "M_x_Nmm" : "M_y_Nmm");
-    const double k = moment_transfer_k(c1 / (2.0 * c2));
-    const double W = perimeter_first_moment(u1, along_x, 0.0);
-    const double t = V > 0.0 ? beta_term(k, M_par, V, u1.length_mm, W) : 0.0;
-    beta = u1.length_mm / u1_reduced->length_mm + t;
-    beta_expression = "u1/u1* + k (Mpar/VEd) u1/W1";
-    beta_substituted = num(u1.length_mm) + "/" + num(u1_reduced->length_mm) + " + " + num(k) + " × (" +
-                       num(M_par * 1e-6) + "/" + num(V * 1e-3) + ") × " + num(u1.length_mm) + "/" + num(W);
-    beta_clause = "EN 1992-1-1 6.4.3(4) (6.44), Table 6.1 with c1/2c2, (6.45)";
+    chosen.value = simplified_beta(pos);
+    chosen.expression = std::string("Figure 6.21N, ") + position_name(pos) + " column";
+    chosen.clause = "EN 1992-1-1 6.4.3(6) Figure 6.21N";
+    if (p.M_x_Nmm && p.M_y_Nmm) {  // the moments are known: the larger
+      const Beta c = computed_beta();
+      if (c.value > chosen.value) {
+        chosen.expression = "max(Figure 6.21N " + num(chosen.value) + ", " + c.expression + ")";
+        chosen.substituted = c.substituted;
+        chosen.value = c.value;
+        chosen.clause = c.clause + "; 6.4.3(6)";
+      } else {
+        chosen.expression += " (not less than " + c.expression + " = " + num(c.value) + ")";
+      }
+    }
   } else {
-    beta = u1.length_mm / u1_reduced->length_mm;
-    beta_expression = "u1/u1*";
-    beta_substituted = num(u1.length_mm) + "/" + num(u1_reduced->length_mm);
-    beta_clause = "EN 1992-1-1 6.4.3(5) (6.46)";
+    chosen = computed_beta();
   }
+  const double beta = chosen.value;
+  const std::string& beta_expression = chosen.expression;
+  const std::string& beta_substituted = chosen.substituted;
+  const std::string& beta_clause = chosen.clause;
   out.transfer_factor = beta;
 
   // Stresses and resistances.
@@ -235,6 +275,39 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
         return st.take();
       });
     });
+  }
+  // Moment transfer at an edge or corner column, across each free edge,
+  // where the analysis gives the moments: Annex I.1.2(5) Mt,max = 0.17 be
+  // d² fck (the bars within be are a region of the member's, designed for
+  // the moment: moment_transfer_band).
+  if (pos != ColumnPosition::internal && p.M_x_Nmm && p.M_y_Nmm) {
+    for (const bool bars_x : {true, false}) {
+      const bool across_free = bars_x ? (p.free.x0 || p.free.x1) : (p.free.y0 || p.free.y1);
+      if (!across_free) continue;
+      const double M = bars_x ? *p.M_x_Nmm : *p.M_y_Nmm;
+      const double c_along = bars_x ? p.cy_mm : p.cx_mm, c_across = bars_x ? p.cx_mm : p.cy_mm;
+      const double be = pos == ColumnPosition::edge ? edge_column_effective_width(c_along, c_across)
+                                                    : corner_column_effective_width(c_along, c_across);
+      const double db = bars_x ? p.dx_mm : p.dy_mm;
+      const double Mt_max = edge_moment_transfer_limit(be, db, m_.fck);
+      const std::string dir = bars_x ? "x" : "y";
+      auto width_steps = [&](Steps& st) {
+        st.add("M" + dir, "moment the column takes across the free edge (analysis)", "", M * 1e-6, "kNm",
+               "EN 1992-1-1 5.1.1, Annex I.1.2(5)");
+        st.add("be", pos == ColumnPosition::edge ? "cz + y (the edge flush with the column)" : "z + y/2 (corner)",
+               num(c_along) + " + " + num(c_across) + (pos == ColumnPosition::edge ? "" : "/2"), be, "mm",
+               "EN 1992-1-1 9.4.1(3) Figure 9.9 (from memory)");
+      };
+      run_check("moment_transfer", [&] {
+        checks.add("moment_transfer", p.where, "EN 1992-1-1 Annex I.1.2(5)", M * 1e-6, Mt_max * 1e-6, "kNm", [&] {
+          Steps st;
+          width_steps(st);
+          st.add("Mt,max", "0.17 be d² fck", "0.17 × " + num(be) + " × " + num(db) + "² × " + num(m_.fck),
+                 Mt_max * 1e-6, "kNm", "EN 1992-1-1 Annex I.1.2(5)");
+          return st.take();
+        });
+      });
+    }
   }
   out.perimeters.insert(out.perimeters.begin(), std::move(u1));
   out.perimeters.insert(out.perimeters.begin(), std::move(u0));

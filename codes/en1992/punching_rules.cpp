@@ -75,4 +75,11 @@ double max_link_tangential_spacing(double d) { return 1.5 * d; }
 
 double outer_perimeter_length(double beta, double V, double v_Rd_c, double d) { return beta * V / (v_Rd_c * d); }
 
+double edge_column_effective_width(double c_along_edge, double c_across_edge) { return c_along_edge + c_across_edge; }
+double corner_column_effective_width(double c_along_edge, double c_across_edge) {
+  return c_along_edge + c_across_edge / 2.0;
+}
+
+double edge_moment_transfer_limit(double be, double d, double fck) { return 0.17 * be * d * d * fck; }
+
 }  // namespace armature::en1992

@@ -63,5 +63,15 @@ double outer_perimeter_length(double beta, double V, double v_Rd_c, double d);
 // 6.4.5(4): the outermost perimeter of links no further than k d inside
 // uout (k = 1.5 recommended).
 constexpr double outer_link_perimeter_k = 1.5;
+// 9.4.1(3) Figure 9.9 (from memory): the effective width be of the slab
+// for bars across a free edge at an edge column, cz + y (cz the column's
+// side along the edge, y the slab edge to the column's inner face: the
+// column's other side where the edge is flush); at a corner column z +
+// y/2 (z the slab's other edge to the column's inner face).
+double edge_column_effective_width(double c_along_edge, double c_across_edge);
+double corner_column_effective_width(double c_along_edge, double c_across_edge);
+// Annex I.1.2(5): the largest moment an edge or corner column takes from
+// the slab, Mt,max = 0.17 be d² fck.
+double edge_moment_transfer_limit(double be, double d, double fck);
 
 }  // namespace armature::en1992

@@ -132,6 +132,20 @@ std::vector<std::vector<bool>> checkerboard_bay_arrangements(std::size_t bays_x,
   return out;
 }
 
+std::vector<std::vector<bool>> alternate_bay_strips(std::size_t bays_x, std::size_t bays_y) {
+  std::vector<std::vector<bool>> out;
+  for (const bool along_x : {true, false}) {
+    if ((along_x ? bays_x : bays_y) < 2) continue;
+    for (std::size_t parity = 0; parity < 2; ++parity) {
+      std::vector<bool> a(bays_x * bays_y);
+      for (std::size_t j = 0; j < bays_y; ++j)
+        for (std::size_t i = 0; i < bays_x; ++i) a[i + bays_x * j] = (along_x ? i : j) % 2 == parity;
+      out.push_back(std::move(a));
+    }
+  }
+  return out;
+}
+
 std::vector<std::vector<bool>> adjacent_bays_across_lines(std::size_t bays_x, std::size_t bays_y) {
   std::vector<std::vector<bool>> out;
   for (std::size_t k = 1; k < bays_x; ++k) {  // the line between columns k − 1 and k

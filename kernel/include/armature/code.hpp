@@ -377,6 +377,14 @@ class MemberRules {
   }
 };
 
+// A band of top bars over a column for the moment it takes (see
+// PunchingRules::moment_transfer_band).
+struct TransferBand {
+  double width_mm = 0.0;
+  double share = 1.0;
+  std::string clause{};
+};
+
 // The code's punching shear rules at a column of a flat slab
 // (punching.hpp): the perimeters, stresses and resistances, and the shear
 // reinforcement where the concrete alone does not do.
@@ -393,6 +401,15 @@ class PunchingRules {
   // std::invalid_argument naming the demand's field when it lacks what
   // the code needs.
   virtual PunchingOutcome check_punching(const PunchingDemand& demand, Detail detail) const = 0;
+  // Where a column takes a moment from the slab (the analysis gives it):
+  // the width of slab over the column whose top bars running along x
+  // (bars_x) or y carry `share` of that moment, the code's clause; none
+  // where the code sets no such width for this column and direction. The
+  // demand gives the column, the slab's thickness and the free faces (its
+  // depths may be 0: the band is chosen before the bars).
+  virtual std::optional<TransferBand> moment_transfer_band(const PunchingDemand&, bool /*bars_x*/) const {
+    return std::nullopt;
+  }
 };
 
 class ForwardingPunchingRules : public PunchingRules {
@@ -403,6 +420,9 @@ class ForwardingPunchingRules : public PunchingRules {
   }
   PunchingOutcome check_punching(const PunchingDemand& demand, Detail detail) const override {
     return inner_->check_punching(demand, detail);
+  }
+  std::optional<TransferBand> moment_transfer_band(const PunchingDemand& demand, bool bars_x) const override {
+    return inner_->moment_transfer_band(demand, bars_x);
   }
 
  protected:
@@ -728,6 +748,10 @@ std::vector<InputDefault> durability_defaults(const Request& request, const std:
 std::vector<bool> all_bays_loaded(std::size_t bays_x, std::size_t bays_y);
 std::vector<std::vector<bool>> checkerboard_bay_arrangements(std::size_t bays_x, std::size_t bays_y);
 std::vector<std::vector<bool>> adjacent_bays_across_lines(std::size_t bays_x, std::size_t bays_y);
+// Alternate columns of bays (every other i, all j) and alternate rows of
+// bays (every other j, all i), both parities where there are two or more:
+// the frames of a flat slab loaded span by span over the whole width.
+std::vector<std::vector<bool>> alternate_bay_strips(std::size_t bays_x, std::size_t bays_y);
 
 // Building blocks of load arrangements (each marks the loaded spans): the
 // code chooses which it uses.

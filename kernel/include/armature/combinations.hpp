@@ -78,6 +78,13 @@ class CombinationRules {
                                                             const std::vector<Action>& /*actions*/) const {
     return {};
   }
+  // The same for a flat slab on columns, whose frames along each column
+  // line are loaded span by span across the whole width (alternate spans,
+  // adjacent spans) as well as by bays. Default: the two-way arrangements.
+  virtual std::vector<BayArrangement> flat_load_arrangements(std::size_t bays_x, std::size_t bays_y,
+                                                             const std::vector<Action>& actions) const {
+    return bay_load_arrangements(bays_x, bays_y, actions);
+  }
 };
 
 }  // namespace armature

@@ -84,6 +84,8 @@ class FlatPlate {
 
   // The columns with their envelopes (after analyse).
   const std::vector<FlatColumn>& columns() const { return columns_; }
+  // The bands over internal columns (the rule's), one piece each.
+  const std::vector<FlatStripRecord>& bands() const { return bands_; }
   // After design_regions.
   PlateRecord record() const;
   BarDirection outer_direction(Face face) const { return outer_[static_cast<std::size_t>(face)]; }

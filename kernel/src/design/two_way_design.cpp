@@ -61,11 +61,78 @@ std::vector<PlateFreeEdgeRecord> free_edge_bars(const PlateRecord& p, const std:
   return out;
 }
 
+// The column strip's top region over a column, bars in x or y.
+std::string column_strip_at(const FlatColumn& col, bool bars_x) {
+  return bars_x ? "column strip y" + std::to_string(col.j) + " at x" + std::to_string(col.i)
+                : "column strip x" + std::to_string(col.i) + " at y" + std::to_string(col.j);
+}
+
+// A column's geometry as the punching rules read it (depths and steel
+// still to come).
+PunchingDemand column_demand(const FlatColumn& col, const Request& req) {
+  PunchingDemand d;
+  d.where = col.name;
+  d.free = col.free;
+  d.cx_mm = req.two_way.columns.x_mm;
+  d.cy_mm = req.two_way.columns.y_mm;
+  d.h_mm = req.slab.thickness_mm;
+  return d;
+}
+
+// A band of top bars over the middle of a column strip: its region's
+// name and its width across the strip.
+struct ColumnBand {
+  std::string where;
+  BarDirection direction = BarDirection::x;
+  double width_mm = 0.0;
+};
+
+// Where the columns take moments (restrained columns), the code's bands of
+// top bars for them (PunchingRules::moment_transfer_band): one region
+// "column i,j transfer" per column and direction the code names, for
+// share × the moment over the band's width per metre, and at least the
+// column strip's own moment there (the band's bars replace the strip's).
+void add_transfer_regions(const SlabChecker& checker, const CodeIdentity& code, const FlatPlate& plate,
+                          const Request& req, std::vector<RegionDemand>& demands, std::vector<ColumnBand>& bands) {
+  if (!plate.columns_restrained()) return;
+  const PunchingRules& rules =
+      call_code(code, "punching rules", [&]() -> const PunchingRules& { return checker.punching_rules(); });
+  for (const FlatColumn& col : plate.columns()) {
+    for (const bool bars_x : {true, false}) {
+      const PunchingDemand geometry = column_demand(col, req);
+      const auto band = call_code(code, "moment transfer band", [&] { return rules.moment_transfer_band(geometry, bars_x); },
+                                  col.name);
+      if (!band) continue;
+      if (!(band->width_mm > 0.0) || !(band->share >= 0.0 && band->share <= 1.0))
+        throw DesignError(code.id + ": the moment transfer band at " + col.name + " is out of range");
+      const std::string strip = column_strip_at(col, bars_x);
+      const BarDirection dir = bars_x ? BarDirection::x : BarDirection::y;
+      const auto under = std::find_if(demands.begin(), demands.end(), [&](const RegionDemand& g) {
+        return g.where == strip && g.direction == dir && g.face == Face::top;
+      });
+      if (under == demands.end()) throw DesignError("flat slab: no top region over " + col.name);
+      RegionDemand g = *under;
+      g.where = col.name + " transfer";
+      g.supports.clear();
+      g.span_where.clear();
+      g.x_mm = col.x_mm;
+      g.y_mm = col.y_mm;
+      const double M = band->share * (bars_x ? col.M_x_Nmm : col.M_y_Nmm);
+      g.M_Ed = std::max(M / band->width_mm * 1000.0, under->M_Ed);
+      demands.push_back(std::move(g));
+      bands.push_back({col.name + " transfer", dir, band->width_mm});
+    }
+  }
+}
+
 // The punching checks at every column of a flat slab, from its envelope
-// and the top bars over it (the band's where there is one, else the
-// column strips'; their depths and steel ratios per metre).
+// and the top bars over it: their depth the band's over the column (the
+// moment transfer band, else 9.4.1(2)'s, else the column strip's), the
+// steel ratio over the code's width the band's bars within the band and
+// the column strip's beyond.
 std::vector<ColumnRecord> column_checks(const SlabChecker& checker, const CodeIdentity& code, const FlatPlate& plate,
-                                        const std::vector<RegionRecord>& regions, const Request& req, Detail detail) {
+                                        const std::vector<RegionRecord>& regions, const std::vector<ColumnBand>& bands,
+                                        const Request& req, Detail detail) {
   const PunchingRules& rules =
       call_code(code, "punching rules", [&]() -> const PunchingRules& { return checker.punching_rules(); });
   std::vector<ColumnRecord> out;
@@ -75,22 +142,39 @@ std::vector<ColumnRecord> column_checks(const SlabChecker& checker, const CodeId
     return nullptr;
   };
   for (const FlatColumn& col : plate.columns()) {
-    const std::string band = col.name + " band";
-    const RegionRecord* rx = region(band, BarDirection::x);
-    if (!rx) rx = region("column strip y" + std::to_string(col.j) + " at x" + std::to_string(col.i), BarDirection::x);
-    const RegionRecord* ry = region(band, BarDirection::y);
-    if (!ry) ry = region("column strip x" + std::to_string(col.i) + " at y" + std::to_string(col.j), BarDirection::y);
-    if (!rx || !ry) throw DesignError("flat slab: no top region over " + col.name);
-    PunchingDemand d;
-    d.where = col.name;
-    d.free = col.free;
-    d.cx_mm = req.two_way.columns.x_mm;
-    d.cy_mm = req.two_way.columns.y_mm;
-    d.h_mm = req.slab.thickness_mm;
-    d.dx_mm = rx->d_mm;
-    d.dy_mm = ry->d_mm;
-    d.rho_x = rx->bars.As_prov_mm2 / (1000.0 * rx->d_mm);
-    d.rho_y = ry->bars.As_prov_mm2 / (1000.0 * ry->d_mm);
+    PunchingDemand d = column_demand(col, req);
+    // Per direction: the column strip's region and the band over the column.
+    const RegionRecord* strip[2]{};
+    const RegionRecord* over[2]{};
+    double band_width[2]{0.0, 0.0};
+    for (const bool bars_x : {true, false}) {
+      const BarDirection dir = bars_x ? BarDirection::x : BarDirection::y;
+      const std::size_t k = bars_x ? 0 : 1;
+      strip[k] = region(column_strip_at(col, bars_x), dir);
+      if (!strip[k]) throw DesignError("flat slab: no top region over " + col.name);
+      over[k] = strip[k];
+      for (const auto& b : bands)
+        if (b.direction == dir && (b.where == col.name + " transfer" || b.where == col.name + " band"))
+          if (const RegionRecord* r = region(b.where, dir); r && (over[k] == strip[k] || b.where == col.name + " transfer")) {
+            over[k] = r;
+            band_width[k] = b.width_mm;
+          }
+    }
+    if (!(over[0]->d_mm > 0.0) || !(over[1]->d_mm > 0.0))
+      throw InputError({{"slab.thickness_mm", "too thin for the top bars over " + col.name +
+                                                  " (no effective depth left for punching)"}});
+    d.dx_mm = over[0]->d_mm;
+    d.dy_mm = over[1]->d_mm;
+    for (const bool bars_x : {true, false}) {
+      const std::size_t k = bars_x ? 0 : 1;
+      const double W = call_code(code, "punching steel width", [&] { return rules.steel_ratio_width_mm(d, bars_x); });
+      const double wb = over[k] == strip[k] ? 0.0 : std::min(band_width[k], W);
+      const double rho_band = over[k]->bars.As_prov_mm2 / (1000.0 * over[k]->d_mm);
+      const double rho_strip = strip[k]->bars.As_prov_mm2 / (1000.0 * strip[k]->d_mm);
+      (bars_x ? d.rho_x : d.rho_y) = W > 0.0 && wb > 0.0 ? (rho_band * wb + rho_strip * (W - wb)) / W
+                                     : over[k] == strip[k] ? rho_strip
+                                                           : rho_band;
+    }
     d.V_N = col.V_N;
     if (plate.columns_restrained()) {
       d.M_x_Nmm = col.M_x_Nmm;
@@ -229,7 +313,10 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   }();
   const std::size_t nx = plate.bays_x(), ny = plate.bays_y();
   const auto arrangements = call_code(rec.code, "bay load arrangements",
-                                      [&] { return combination_rules.bay_load_arrangements(nx, ny, rec.actions); });
+                                      [&] {
+                                        return flat ? combination_rules.flat_load_arrangements(nx, ny, rec.actions)
+                                                    : combination_rules.bay_load_arrangements(nx, ny, rec.actions);
+                                      });
   if (arrangements.empty())
     throw DesignError(rec.code.id + " (" + rec.code.variant + "): the code gives no load arrangements for two-way slabs");
   for (const auto& a : arrangements)
@@ -245,8 +332,14 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
 
   const double fraction = call_code(rec.code, "end fixity", [&] { return member_rules.pinned_end_fixity_fraction(); });
   std::vector<RegionDemand> demands;
+  std::vector<ColumnBand> column_bands;  // flat slabs: the bands over columns
   if constexpr (flat) {
     demands = plate.design_regions(fraction, rec.warnings);
+    for (const auto& band : plate.bands()) {
+      const auto& q = band.pieces.front();
+      column_bands.push_back({band.name, band.direction, band.direction == BarDirection::x ? q[3] - q[2] : q[1] - q[0]});
+    }
+    add_transfer_regions(checker, rec.code, plate, req, demands, column_bands);
   } else {
     const CornerRule corners = call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); });
     demands = plate.design_regions(fraction, corners, rec.warnings);
@@ -349,7 +442,7 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   }
   PlateRecord plate_record = plate.record();
   if constexpr (flat) {
-    rec.columns = column_checks(checker, rec.code, plate, rec.regions, req, detail);
+    rec.columns = column_checks(checker, rec.code, plate, rec.regions, column_bands, req, detail);
   } else {
     const FreeEdgeRule free_rule =
         call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });
