@@ -428,3 +428,77 @@ TEST_CASE("Flat: frames loaded span by span across the whole width, both codes",
   for (auto& a : alternate_bay_strips(3, 3)) frames.push_back({a, 1.0});
   CHECK(sagging(frames) > 1.3 * sagging(boards));
 }
+
+// The moment a restrained column takes goes into bars over a band of the
+// column: EN 1992-1-1 9.4.1(3) Figure 9.9, be = cz + y at an edge column
+// with the slab flush (the column's two sides, value from memory), for
+// the whole moment; ACI 318-19 8.4.2.2.3, bslab = c2 + 1.5 h each side,
+// for γf Msc with γf = 1/(1 + (2/3)√(b1/b2)) = 0.6 at a square interior
+// column (8.4.2.2.2). Each band at least the column strip's moment there.
+TEST_CASE("Flat: bands for the moment transferred to restrained columns, both codes", "[flat]") {
+  json en = flat_request("EN1992-1-1", {6.0, 6.0, 6.0}, {6.0, 6.0, 6.0});
+  en["slab"]["columns"]["height_m"] = 3.5;
+  const DesignRecord r = design(registry(), en);
+  const ColumnRecord& edge = column(r, "column 1,2");  // on edge x0: bars in x cross it
+  const RegionRecord& t = region(r, "column 1,2 transfer", BarDirection::x);
+  const double strip = region(r, "column strip y1 at x0", BarDirection::x).M_Ed;
+  CHECK(t.M_Ed == Approx(std::max(*edge.M_x_Nmm / 800.0 * 1000.0, strip)).epsilon(1e-9));
+  CHECK(t.M_Ed > strip);
+  CHECK_THROWS(region(r, "column 1,2 transfer", BarDirection::y));  // along the edge: none
+  CHECK_THROWS(region(r, "column 2,2 transfer", BarDirection::x));  // internal: 9.4.1(2)'s band instead
+  // Annex I.1.2(5): Mt,max = 0.17 be d² fck with the transfer band's d.
+  bool limit = false;
+  for (const auto& c : edge.punching.checks)
+    if (c.id == "moment_transfer") {
+      CHECK(c.capacity == Approx(0.17 * 800.0 * t.d_mm * t.d_mm * 30.0 * 1e-6).epsilon(1e-9));
+      CHECK(c.demand == Approx(*edge.M_x_Nmm * 1e-6).epsilon(1e-9));
+      limit = true;
+    }
+  CHECK(limit);
+
+  json aci = flat_request("ACI318-19", {6.0, 6.0, 6.0}, {6.0, 6.0, 6.0});
+  aci["slab"]["columns"]["height_m"] = 3.5;
+  const DesignRecord a = design(registry(), aci);
+  const ColumnRecord& inner = column(a, "column 2,2");
+  const double b_slab = 400.0 + 3.0 * 250.0;
+  CHECK(region(a, "column 2,2 transfer", BarDirection::x).M_Ed ==
+        Approx(std::max(0.6 * *inner.M_x_Nmm / b_slab * 1000.0, region(a, "column strip y1 at x1", BarDirection::x).M_Ed))
+            .epsilon(1e-9));
+}
+
+// 9.4.1(2)'s band is at least the column strip's moment per metre where a
+// short span along the strip makes the band wider than the column strip
+// (0.125 × 7.5 m = 0.94 m each side against 0.25 × 3 m = 0.75 m).
+TEST_CASE("Flat: a band never below the column strip it lies in", "[flat]") {
+  const DesignRecord r = design(registry(), flat_request("EN1992-1-1", {3.0, 3.0, 3.0}, {7.5, 7.5}, json::object(), 300));
+  CHECK(region(r, "column 2,2 band", BarDirection::x).M_Ed >= region(r, "column strip y1 at x1", BarDirection::x).M_Ed);
+  CHECK(region(r, "column 3,2 band", BarDirection::x).M_Ed >= region(r, "column strip y1 at x2", BarDirection::x).M_Ed);
+}
+
+// ACI Table 8.3.1.1 takes ℓn in the long direction face to face: with
+// 600 × 300 columns on a 6 m square grid the larger clear span is 5.7 m
+// (6 − 0.3), not 5.4 m: h_min = 5700/30 = 190 mm at an exterior panel
+// (fy = 420 MPa, value from memory).
+TEST_CASE("Flat: ACI minimum thickness on the larger clear span", "[flat]") {
+  json req = flat_request("ACI318-19", {6.0, 6.0}, {6.0, 6.0});
+  req["slab"]["columns"] = {{"size_mm", {600, 300}}, {"height_m", 3.5}};
+  const DesignRecord r = design(registry(), req);
+  bool found = false;
+  for (const auto& s : r.spans)
+    for (const auto& c : s.checks)
+      if (c.id == "deflection" && s.where == "bay 1,1") {
+        CHECK(c.demand == Approx(5700.0 / 30.0).epsilon(1e-9));
+        found = true;
+      }
+  CHECK(found);
+}
+
+TEST_CASE("Flat: a slab without columns and a coarse mesh are refused", "[flat]") {
+  json walls = flat_request("EN1992-1-1", {6.0}, {6.0}, {{"x0", "wall"}, {"x1", "wall"}, {"y0", "wall"}, {"y1", "wall"}});
+  CHECK(has_problem(problem_fields(walls), "slab.edges", "needs columns"));
+  json coarse = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0});
+  coarse["analysis"] = {{"mesh_per_bay", 4}};
+  CHECK(has_problem(problem_fields(coarse), "analysis.mesh_per_bay", "at least 8"));
+  json thin = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0}, json::object(), 60);
+  CHECK(has_problem(problem_fields(thin), "slab.thickness_mm"));
+}

@@ -241,7 +241,15 @@ void add_two_way_problems(const Request& req, InputProblems& problems) {
                                                std::to_string(static_cast<long>(sx)) + " mm along x, " +
                                                std::to_string(static_cast<long>(sy)) + " mm along y)");
   }
-  add_plate_problems(flat ? flat_plate_geometry(req, two_way_nominal_modulus_MPa) : checked_geometry(req), problems);
+  if (flat && t.mesh_per_bay > 0 && t.mesh_per_bay < min_flat_mesh_per_bay)
+    problems.add("analysis.mesh_per_bay", "must be at least " + std::to_string(min_flat_mesh_per_bay) +
+                                              " for a flat slab (the moments at the column faces converge more "
+                                              "slowly than a bay's), got " + std::to_string(t.mesh_per_bay));
+  const PlateGeometry geometry = flat ? flat_plate_geometry(req, two_way_nominal_modulus_MPa) : checked_geometry(req);
+  if (flat && geometry.columns.empty() && !t.x_spans_mm.empty() && !t.y_spans_mm.empty())
+    problems.add("slab.edges", "a flat slab needs columns: every grid intersection lies on a wall (make an edge "
+                               "\"columns\", or design the slab as two_way)");
+  add_plate_problems(geometry, problems);
   double X = 0.0, Y = 0.0;
   for (double s : req.two_way.x_spans_mm) X += s;
   for (double s : req.two_way.y_spans_mm) Y += s;
@@ -340,6 +348,17 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
       column_bands.push_back({band.name, band.direction, band.direction == BarDirection::x ? q[3] - q[2] : q[1] - q[0]});
     }
     add_transfer_regions(checker, rec.code, plate, req, demands, column_bands);
+    // What the two-way rules add at walls meeting and free edges, not yet
+    // designed for flat slabs: said, not left out silently.
+    const auto& e = req.two_way.column_edges;
+    const bool walls_meet = (!e[0] || !e[1]) && (!e[2] || !e[3]);
+    if (walls_meet && !call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); }).clause.empty())
+      rec.warnings.push_back("two walls meet at a corner of the slab: the corner bars against torsion of the "
+                             "two-way rules are not designed for flat slabs yet; provide them as for a slab on walls");
+    const bool free_edge = e[0] || e[1] || e[2] || e[3];
+    if (free_edge && !call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); }).clause.empty())
+      rec.warnings.push_back("the slab's edges on columns are free between the columns: the code's free-edge bars "
+                             "(U-bars) are not designed for flat slabs yet; provide them");
   } else {
     const CornerRule corners = call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); });
     demands = plate.design_regions(fraction, corners, rec.warnings);

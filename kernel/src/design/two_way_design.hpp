@@ -10,6 +10,11 @@ namespace armature {
 // check reads its deflections.
 inline constexpr double two_way_nominal_modulus_MPa = 30000.0;
 
+// The coarsest mesh a flat slab may ask for (analysis.mesh_per_bay): at 4
+// per bay the column strips' hogging at the faces is some 6 % low, at 8
+// within 1 % of a fine mesh (DEVELOPERS.md, "Flat slabs").
+inline constexpr int min_flat_mesh_per_bay = 8;
+
 // Problems of a two-way request the reader cannot see (a request built in
 // C++, or the plate as a whole): the plate's geometry (mechanisms, mesh
 // size) and located loads off the plate, each named by its request path.

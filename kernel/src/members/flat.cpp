@@ -398,6 +398,27 @@ std::vector<RegionDemand> FlatPlate::design_regions(double pinned_edge_fraction,
     region_of[k] = out.size();
     out.push_back(std::move(g));
   }
+  // A band replaces the column strip's bars over its width: at least the
+  // column strip's moment per metre there.
+  for (std::size_t k = 0; k < targets_.size(); ++k) {
+    const Target& t = targets_[k];
+    if (t.panel.empty()) continue;
+    RegionDemand& band = out[region_of[k]];
+    for (std::size_t m = 0; m < targets_.size(); ++m) {
+      const Target& s = targets_[m];
+      if (!s.top || s.strip == none || !strips_[s.strip].column || s.demand.direction != t.demand.direction ||
+          s.span != t.span)
+        continue;
+      const bool along_x = t.demand.direction == BarDirection::x;
+      const double b_at = along_x ? t.demand.y_mm : t.demand.x_mm, b_strip = along_x ? s.demand.y_mm : s.demand.x_mm;
+      if (std::abs(b_at - b_strip) > 1e-6 * std::max(1.0, std::abs(b_at))) continue;
+      const RegionDemand& strip = out[region_of[m]];
+      if (strip.M_Ed > band.M_Ed) {
+        band.M_Ed = strip.M_Ed;
+        band.quasi_permanent_to_uls = strip.quasi_permanent_to_uls;
+      }
+    }
+  }
   // Outer lines where the slab is free to turn (a wall; columns given no
   // stiffness): at least the fraction of the strip's end span, and the
   // wall's shear on that span's bottom bars.
@@ -450,16 +471,25 @@ std::vector<RegionDemand> FlatPlate::design_regions(double pinned_edge_fraction,
       const bool exterior = (i == 0 && column_edges_[0]) || (i + 1 == nx && column_edges_[1]) ||
                             (j == 0 && column_edges_[2]) || (j + 1 == ny && column_edges_[3]);
       const double L = std::max(lx, ly);
-      const double c = in_x ? cx_ : cy_;
-      const auto wall_end = [&](std::size_t line) {
-        const std::size_t last = in_x ? nx : ny;
-        return (line == 0 && !column_edges_[in_x ? 0 : 2]) || (line == last && !column_edges_[in_x ? 1 : 3]);
-      };
       g.span_where = plate_bay_name(i, j);
       g.span_kind = exterior ? SpanKind::flat_exterior_panel : SpanKind::flat_interior_panel;
       g.span_mm = L;
       g.long_span_mm = L;
-      g.clear_span_mm = L - (wall_end(span) ? 0.0 : c / 2.0) - (wall_end(span + 1) ? 0.0 : c / 2.0);
+      // The clear span in the long direction: the larger of the two
+      // directions' clear spans (rectangular columns may turn the order).
+      auto clear = [&](bool x) {
+        const std::size_t k = x ? i : j, last = x ? nx : ny;
+        const std::size_t edge0 = x ? 0 : 2, edge1 = x ? 1 : 3;
+        const double c_dir = x ? cx_ : cy_;
+        const double span_len = x ? lx : ly;
+        return span_len - (k == 0 && !column_edges_[edge0] ? 0.0 : c_dir / 2.0) -
+               (k + 1 == last && !column_edges_[edge1] ? 0.0 : c_dir / 2.0);
+      };
+      g.clear_span_mm = std::max(clear(true), clear(false));
+      if (L > 2.0 * std::min(lx, ly))
+        warnings.push_back(g.span_where + ": its longer span is more than twice the shorter: the panel works mostly "
+                           "one way, beyond the span/depth rules for flat slab panels (ACI 318-19 8.3.1.1 is limited "
+                           "to a ratio of 2); check its deflection by calculation");
     }
   // The outer layer of each face: the request's, else the direction of the
   // face's larger design moment (x on a tie).
