@@ -112,6 +112,7 @@ class FlatPlate {
     std::size_t span = 0;         // along the strip (bottom), or the column line (top)
     bool top = false;
     double uls = 0.0, uls_all = 0.0, qp = 0.0, panel_uls = 0.0;  // N·mm over the width (or panel)
+    std::vector<double> section_max, section_min;  // per section, the ULS envelope of its moment (N·mm)
   };
 
  private:

@@ -68,6 +68,11 @@ struct FlatStripRecord {
   BarDirection direction = BarDirection::x;
   bool column = true;
   std::vector<std::array<double, 4>> pieces;
+  // The ULS envelope of the strip's moment per metre at its sections
+  // (the column faces and the mesh lines between them), in order along
+  // the strip: position along it (request plan, mm), largest and least
+  // moment (N·mm per metre, sagging positive).
+  std::vector<std::array<double, 3>> envelope{};
 };
 
 // A column of a flat slab, for the record's plan (request plan).

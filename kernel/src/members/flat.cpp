@@ -312,7 +312,11 @@ std::size_t FlatPlate::analyse(const std::vector<Action>& actions, const std::ve
   for (auto* v : {&field_.mx_max, &field_.my_max, &field_.mxy_max}) v->assign(nn, -inf);
   for (auto* v : {&field_.mx_min, &field_.my_min, &field_.mxy_min}) v->assign(nn, inf);
   for (auto* v : {&field_.bottom_x, &field_.bottom_y, &field_.top_x, &field_.top_y}) v->assign(nn, 0.0);
-  for (auto& t : targets_) t.uls = t.uls_all = t.qp = t.panel_uls = -inf;
+  for (auto& t : targets_) {
+    t.uls = t.uls_all = t.qp = t.panel_uls = -inf;
+    t.section_max.assign(t.sections.size(), -inf);
+    t.section_min.assign(t.sections.size(), inf);
+  }
   for (auto& c : columns_) c.V_N = c.M_x_Nmm = c.M_y_Nmm = 0.0;
 
   for (std::size_t c = 0; c < cases.size(); ++c) {
@@ -321,8 +325,15 @@ std::size_t FlatPlate::analyse(const std::vector<Action>& actions, const std::ve
     const bool qp = c >= uls_cases_ + extra_uls;
     for (auto& t : targets_) {
       double best = -inf;
-      for (const auto& s : t.sections)
-        best = std::max(best, t.sign * field.section_moment(c, s.normal, s.at_mm, s.from_mm, s.to_mm, s.side));
+      for (std::size_t k = 0; k < t.sections.size(); ++k) {
+        const Section& s = t.sections[k];
+        const double m = field.section_moment(c, s.normal, s.at_mm, s.from_mm, s.to_mm, s.side);
+        best = std::max(best, t.sign * m);
+        if (uls) {
+          t.section_max[k] = std::max(t.section_max[k], m);
+          t.section_min[k] = std::min(t.section_min[k], m);
+        }
+      }
       if (uls) t.uls = std::max(t.uls, best);
       if (uls_all) t.uls_all = std::max(t.uls_all, best);
       if (qp) t.qp = std::max(t.qp, best);
@@ -531,6 +542,18 @@ PlateRecord FlatPlate::record() const {
   r.arrangements = arrangements_;
   r.strips = strips_;
   r.bands = bands_;
+  for (std::size_t s = 0; s < r.strips.size(); ++s) {
+    auto& env = r.strips[s].envelope;
+    for (const auto& t : targets_) {
+      if (t.strip != s) continue;
+      const double off = t.demand.direction == BarDirection::x ? ox_ : oy_;
+      for (std::size_t k = 0; k < t.sections.size(); ++k)
+        if (std::isfinite(t.section_max[k]))
+          env.push_back({t.sections[k].at_mm - off, t.section_max[k] / t.width_mm * 1000.0,
+                         t.section_min[k] / t.width_mm * 1000.0});
+    }
+    std::sort(env.begin(), env.end(), [](const auto& a, const auto& b) { return a[0] < b[0]; });
+  }
   for (const auto& c : columns_) r.columns.push_back({c.name, c.x_mm, c.y_mm, cx_, cy_});
   r.strip_clause = rule_.clause;
   if (rule_.band_each_side > 0.0) r.band_clause = rule_.band_clause;

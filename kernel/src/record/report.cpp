@@ -632,6 +632,69 @@ std::string plate_analysis_text(const DesignRecord& r) {
          p.outer_layer[1] + "." + corner_text(r);
 }
 
+// A flat slab's strips of one direction, one row each, to a common scale:
+// the ULS envelope of each strip's moment per metre along it (largest
+// solid, least dashed, sagging below the axis), the column lines ticked,
+// each row's largest sagging and hogging printed; the caution at the foot.
+std::string flat_strip_diagrams_svg(const DesignRecord& r, BarDirection dir) {
+  const PlateRecord& p = *r.plate;
+  const bool us = r.report_units == ReportUnits::US;
+  const double to_unit = us ? 1e-3 / kN_per_kip : 1e-3;  // N·mm/mm → kNm/m or kip-ft/ft
+  const std::string unit = us ? "kip-ft/ft" : "kNm/m";
+  std::vector<const FlatStripRecord*> strips;
+  double extent = 1e-9;
+  for (const auto& s : p.strips)
+    if (s.direction == dir && !s.envelope.empty()) {
+      strips.push_back(&s);
+      for (const auto& e : s.envelope) extent = std::max({extent, std::abs(e[1]), std::abs(e[2])});
+    }
+  if (strips.empty()) return "";
+  const bool along_x = dir == BarDirection::x;
+  const double lo = along_x ? p.outline_mm[0] : p.outline_mm[2], hi = along_x ? p.outline_mm[1] : p.outline_mm[3];
+  const auto& lines = along_x ? p.x_lines_mm : p.y_lines_mm;
+  const double width = 660, left = 150, right = 90, row = 70, top = 22;
+  const double height = top + row * static_cast<double>(strips.size()) + 36;
+  auto sx = [&](double v) { return left + (width - left - right) * (v - lo) / (hi - lo); };
+  std::string o = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" + n4(width) + "\" height=\"" + n4(height) +
+                  "\" viewBox=\"0 0 " + n4(width) + " " + n4(height) +
+                  "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" aria-label=\"strip moments\">";
+  o += "<text x=\"4\" y=\"12\">" + esc("Strips with bars in " + std::string(to_string(dir)) + ": ULS moment per metre, " +
+                                          unit + ", along " + (along_x ? "x" : "y") + " (sagging below the axis)") +
+       "</text>";
+  for (std::size_t k = 0; k < strips.size(); ++k) {
+    const FlatStripRecord& s = *strips[k];
+    const double y0 = top + row * (static_cast<double>(k) + 0.5);
+    auto sy = [&](double v) { return y0 + (row * 0.42) * v / extent; };  // sagging (positive) down
+    o += "<text x=\"4\" y=\"" + n4(y0 + 3) + "\">" + esc(s.name) + "</text>";
+    o += "<line x1=\"" + n4(sx(lo)) + "\" y1=\"" + n4(y0) + "\" x2=\"" + n4(sx(hi)) + "\" y2=\"" + n4(y0) +
+         "\" stroke=\"#000\" stroke-width=\"0.8\"/>";
+    for (double l : lines)
+      o += "<line x1=\"" + n4(sx(l)) + "\" y1=\"" + n4(y0 - 4) + "\" x2=\"" + n4(sx(l)) + "\" y2=\"" + n4(y0 + 4) +
+           "\" stroke=\"#777\" stroke-width=\"0.8\"/>";
+    std::vector<std::pair<double, double>> hi_pts, lo_pts;
+    double sag = 0.0, hog = 0.0;
+    for (const auto& e : s.envelope) {
+      hi_pts.push_back({sx(e[0]), sy(e[1])});
+      lo_pts.push_back({sx(e[0]), sy(e[2])});
+      sag = std::max(sag, e[1]);
+      hog = std::min(hog, e[2]);
+    }
+    o += polyline(hi_pts, "stroke=\"#000\" stroke-width=\"1\"");
+    o += polyline(lo_pts, "stroke=\"#000\" stroke-width=\"1\" stroke-dasharray=\"4 2\"");
+    o += "<text x=\"" + n4(width - right + 6) + "\" y=\"" + n4(y0 - 6) + "\">" + esc("hog " + n4(-hog * 1e-3 * to_unit)) +
+         "</text><text x=\"" + n4(width - right + 6) + "\" y=\"" + n4(y0 + 12) + "\">" +
+         esc("sag " + n4(sag * 1e-3 * to_unit)) + "</text>";
+  }
+  // The caution in two lines at the foot.
+  const std::string caution = std::string("Caution: ") + caution_text;
+  std::size_t cut = caution.find(' ', caution.size() / 2);
+  if (cut == std::string::npos) cut = caution.size();
+  o += "<text x=\"4\" y=\"" + n4(height - 18) + "\" font-size=\"8\">" + esc(caution.substr(0, cut)) + "</text>";
+  o += "<text x=\"4\" y=\"" + n4(height - 7) + "\" font-size=\"8\">" +
+       esc(cut < caution.size() ? caution.substr(cut + 1) : std::string()) + "</text></svg>";
+  return o;
+}
+
 // The plan (bays named with their bottom bars, the top bars marked at their
 // design positions) and colour maps of the ULS envelope of mx and my and
 // of the four Wood–Armer design moments, in the record's units (m or ft
@@ -702,6 +765,12 @@ std::string plate_drawings_html(const DesignRecord& r) {
     return m;
   };
   std::string o = "<h3>Plan and bars</h3>\n" + plate_plan_svg(plan) + "\n";
+  if (p.flat) {
+    o += "<h3>Strip moments (ULS envelope)</h3>\n<p>Each strip's moment integrated across its width at its "
+         "sections (the column faces and the mesh lines between them), per metre of the strip; the regions "
+         "take their design moments from these.</p>\n";
+    for (const BarDirection d : {BarDirection::x, BarDirection::y}) o += flat_strip_diagrams_svg(r, d) + "\n";
+  }
   o += "<h3>Moment fields (ULS envelope)</h3>\n<p>Elastic moments per metre at the mesh nodes, the largest "
        "(most sagging) of the load cases, and the Wood–Armer design moments that the regions take their "
        "largest values from.</p>\n";
