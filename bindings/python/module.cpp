@@ -628,7 +628,6 @@ py::list codes() {
     d["title"] = c.title;
     d["variants"] = c.variants;
     d["path"] = c.path;
-    d["slab_types"] = c.slab_types;
     out.append(d);
   }
   return out;

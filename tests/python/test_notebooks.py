@@ -343,12 +343,15 @@ def test_flat_slab_punching(kernel_name, tmp_path):
     for columns in result["columns"]:
         assert len(columns) == 8  # 4 × 3 grid intersections, none on the wall along y0
         for c in columns:
-            # EN 1992-1-1 6.4.3 (6.38): vEd = β VEd/(u1 d), β of Figure 6.21N
-            # (1.15 internal, 1.4 edge, 1.5 corner) for a braced floor whose
-            # adjacent spans differ by no more than 25 %.
+            # EN 1992-1-1 6.4.3 (6.38): vEd = β VEd/(u1 d), β at least Figure
+            # 6.21N's (1.15 internal, 1.4 edge, 1.5 corner) for a braced floor
+            # whose adjacent spans differ by no more than 25 %: the columns are
+            # restrained (storey heights given), so the larger of it and
+            # 6.4.3(3)-(5) from the moments.
             beta = {"internal": 1.15, "edge": 1.4, "corner": 1.5}[c["position"]]
-            assert c["transfer_factor"] == pytest.approx(beta)
-            assert c["v_MPa"] == pytest.approx(beta * c["reaction_kN"] * 1e3 / (c["u1_mm"] * c["d_mm"]), rel=1e-9)
+            assert c["transfer_factor"] >= beta - 1e-12
+            assert c["v_MPa"] == pytest.approx(c["transfer_factor"] * c["reaction_kN"] * 1e3 / (c["u1_mm"] * c["d_mm"]),
+                                               rel=1e-9)
             # Links where vEd exceeds vRd,c (6.4.3(2)), none where it does not.
             assert c["reinforcement_needed"] == (c["v_MPa"] > c["v_concrete_MPa"])
             # u1 at 2d from the column's faces (6.4.2(1)): an internal 400 × 400

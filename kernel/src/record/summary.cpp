@@ -119,21 +119,30 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
       o += pad(l.name, 28) + rpad(fmt("%.1f", l.max_N_per_mm), 10) + rpad(fmt("%.1f", l.max_total_N * 1e-3), 10) + "\n";
   }
   if (!r.columns.empty()) {
-    o += "\n" + pad("Columns (ULS)", 14) + pad("position", 10) + rpad("reaction kN", 12) + rpad("d " + L, 8) +
-         rpad("factor", 8) + rpad("v MPa", 8) + rpad("vc MPa", 8) + "  shear reinforcement\n";
+    // Whole quantities at a column (not per strip width): kN or kip, MPa
+    // or psi, mm² or in² per perimeter, mm or in.
+    const char* force_u = u.us ? "kip" : "kN";
+    const char* stress_u = u.us ? "psi" : "MPa";
+    auto force = [&](double N) { return u.us ? N * 1e-3 / kN_per_kip : N * 1e-3; };
+    auto stress = [&](double MPa) { return u.us ? MPa / MPa_per_psi : MPa; };
+    auto area = [&](double mm2) { return u.us ? mm2 / (mm_per_in * mm_per_in) : mm2; };
+    o += "\n" + pad("Columns (ULS)", 14) + pad("position", 10) + rpad(std::string("reaction ") + force_u, 13) +
+         rpad("d " + L, 8) + rpad("factor", 8) + rpad(std::string("v ") + stress_u, 9) +
+         rpad(std::string("vc ") + stress_u, 9) + "  shear reinforcement\n";
     for (const auto& c : r.columns) {
       const PunchingOutcome& q = c.punching;
       std::string links = "none needed";
       if (q.reinforcement_needed)
-        links = q.reinforcement ? fmt("%.0f", q.reinforcement->area_per_perimeter_mm2) + " mm2 per perimeter at " +
-                                      fmt("%.0f", q.reinforcement->spacing_mm) + " mm, to " +
-                                      fmt("%.0f", q.reinforcement->outermost_line_distance_mm) + " mm"
-                                : "needed, not provided";
+        links = q.reinforcement
+                    ? fmt(u.us ? "%.2f" : "%.0f", area(q.reinforcement->area_per_perimeter_mm2)) + (u.us ? " in2" : " mm2") +
+                          " per perimeter at " + fmt(u.length_format(), u.length(q.reinforcement->spacing_mm)) + " " + L +
+                          ", to " + fmt(u.length_format(), u.length(q.reinforcement->outermost_line_distance_mm)) + " " + L
+                    : "needed, not provided";
       o += pad(c.name, 14) +
            pad(q.position == ColumnPosition::internal ? "internal" : q.position == ColumnPosition::edge ? "edge" : "corner", 10) +
-           rpad(fmt("%.1f", c.V_Ed_N * 1e-3), 12) + rpad(fmt(u.length_format(), u.length(q.d_mm)), 8) +
-           rpad(fmt("%.2f", q.transfer_factor), 8) + rpad(fmt("%.2f", q.v_MPa), 8) + rpad(fmt("%.2f", q.v_concrete_MPa), 8) +
-           "  " + links + (q.pass ? "" : "  FAILS") + "\n";
+           rpad(fmt("%.1f", force(c.V_Ed_N)), 13) + rpad(fmt(u.length_format(), u.length(q.d_mm)), 8) +
+           rpad(fmt("%.2f", q.transfer_factor), 8) + rpad(fmt(u.us ? "%.0f" : "%.2f", stress(q.v_MPa)), 9) +
+           rpad(fmt(u.us ? "%.0f" : "%.2f", stress(q.v_concrete_MPa)), 9) + "  " + links + (q.pass ? "" : "  FAILS") + "\n";
     }
   }
   o += "\n";
