@@ -356,7 +356,19 @@ CornerRule Checker::corner_rule() const { return {1.0, 0.2, true, "ACI 318-19 8.
 
 // 8.4.1.5 (from memory): a column strip reaches 0.25 of the lesser of ℓ1
 // and ℓ2 each side of the column line; no concentration band over columns.
-FlatStripRule Checker::flat_strip_rule() const { return {0.25, "ACI 318-19 8.4.1.5"}; }
+// 8.7.4.1.3 Figure 8.7.4.1.3 (from memory), slabs without drop panels:
+// column strip top bars, at least half 0.30 ℓn past the face and the rest
+// 0.20 ℓn; middle strip top bars 0.22 ℓn. 8.7.4.2: the integrity bars.
+FlatStripRule Checker::flat_strip_rule() const {
+  FlatStripRule r{0.25, "ACI 318-19 8.4.1.5"};
+  r.column_strip_top = {{0.5, 0.30}, {0.5, 0.20}};
+  r.middle_strip_top = {{1.0, 0.22}};
+  r.extents_clause = "ACI 318-19 8.7.4.1.3, Figure 8.7.4.1.3 (from memory)";
+  r.integrity = "ACI 318-19 8.7.4.2: every bottom bar of the column strips continuous or spliced (Class B tension "
+                "lap, mechanical or welded splices), at least two of them in each direction through the column "
+                "within its longitudinal bars and anchored at exterior supports";
+  return r;
+}
 
 // 7.4.1.3 (from memory): for slabs built integrally with supports, Mu at
 // the support may be taken at the face of support. A support given a

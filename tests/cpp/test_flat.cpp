@@ -502,3 +502,28 @@ TEST_CASE("Flat: a slab without columns and a coarse mesh are refused", "[flat]"
   json thin = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0}, json::object(), 60);
   CHECK(has_problem(problem_fields(thin), "slab.thickness_mm"));
 }
+
+// ACI 318-19 8.7.4.1.3 Figure 8.7.4.1.3 (values from memory): column strip
+// top bars, half at least 0.30 ℓn past the face and the rest 0.20 ℓn;
+// middle strip top bars 0.22 ℓn; ℓn = 6 − 0.4 m. EN sets no such reach
+// (its bars follow the envelope: detailing).
+TEST_CASE("Flat: ACI top bar extensions past the column faces", "[flat]") {
+  json req = flat_request("ACI318-19", {6.0, 6.0, 6.0}, {6.0, 6.0, 6.0});
+  req["slab"]["columns"]["height_m"] = 3.5;
+  const DesignRecord r = design(registry(), req);
+  std::vector<FlatTopExtent> cs, ms;
+  for (const auto& e : r.plate->top_extents) {
+    if (e.where == "column strip y1 at x1") cs.push_back(e);
+    if (e.where == "middle strip y1-y2 at x1") ms.push_back(e);
+  }
+  REQUIRE(cs.size() == 2);
+  CHECK(cs[0].share == 0.5);
+  CHECK(cs[0].before_mm == Approx(0.30 * 5600.0));
+  CHECK(cs[0].after_mm == Approx(0.30 * 5600.0));
+  CHECK(cs[1].after_mm == Approx(0.20 * 5600.0));
+  REQUIRE(ms.size() == 1);
+  CHECK(ms[0].after_mm == Approx(0.22 * 5600.0));
+  CHECK_FALSE(r.plate->integrity.empty());
+  const DesignRecord en = design(registry(), flat_request("EN1992-1-1", {6.0, 6.0}, {6.0}));
+  CHECK(en.plate->top_extents.empty());
+}

@@ -329,12 +329,24 @@ struct FreeEdgeRule {
 // span across the strip) each side of the column line takes top steel for
 // at least `band_share` of the hogging of the whole panel width
 // (band_clause). An empty `clause`: the code designs no flat slabs.
+// The code may also set how far the top bars over a column line reach
+// into each adjacent span, as shares of the bars with the reach in clear
+// spans from the face (`extents_clause`; none where empty), and state what
+// it asks of the bottom bars through the columns (`integrity`).
+struct FlatBarExtent {
+  double share = 1.0;             // of the region's bars (the remainder after the earlier entries)
+  double of_clear_span = 0.0;     // reach past the face, × the clear span
+};
 struct FlatStripRule {
   double column_strip_each_side = 0.25;
   std::string clause{};
   double band_each_side = 0.0;
   double band_share = 0.0;
   std::string band_clause{};
+  std::vector<FlatBarExtent> column_strip_top{};
+  std::vector<FlatBarExtent> middle_strip_top{};
+  std::string extents_clause{};
+  std::string integrity{};
 };
 
 // The code's checks of a member that are not a section's.

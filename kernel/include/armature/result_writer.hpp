@@ -275,6 +275,22 @@ void write_plate(W& w, const PlateRecord& p) {
     }
     w.end();
     w.key("strip_clause"), w.value(p.strip_clause);
+    if (!p.extents_clause.empty()) {
+      w.key("top_bar_extents");
+      w.begin_array();
+      for (const auto& e : p.top_extents) {
+        w.begin_object();
+        w.key("where"), w.value(e.where);
+        w.key("direction"), w.value(to_string(e.direction));
+        w.key("share"), w.value(e.share);
+        w.key("before_mm"), w.value(e.before_mm);
+        w.key("after_mm"), w.value(e.after_mm);
+        w.end();
+      }
+      w.end();
+      w.key("top_bar_extents_clause"), w.value(p.extents_clause);
+    }
+    if (!p.integrity.empty()) w.key("integrity"), w.value(p.integrity);
     if (!p.band_clause.empty()) w.key("band_clause"), w.value(p.band_clause);
   }
   w.key("bays");

@@ -75,6 +75,16 @@ struct FlatStripRecord {
   std::vector<std::array<double, 3>> envelope{};
 };
 
+// How far a flat slab's top bars over a column line reach past the faces
+// (the code's FlatStripRule extents): a share of the region's bars, its
+// reach into the span before the line and after it (0 where none).
+struct FlatTopExtent {
+  std::string where;
+  BarDirection direction = BarDirection::x;
+  double share = 1.0;
+  double before_mm = 0.0, after_mm = 0.0;
+};
+
 // A column of a flat slab, for the record's plan (request plan).
 struct FlatColumnOutline {
   std::string name;
@@ -112,6 +122,8 @@ struct PlateRecord {
   std::vector<FlatStripRecord> bands;
   std::vector<FlatColumnOutline> columns;
   std::string strip_clause, band_clause;
+  std::vector<FlatTopExtent> top_extents;
+  std::string extents_clause, integrity;
 };
 
 // The plate's load case of one combination and arrangement: permanent

@@ -556,6 +556,28 @@ PlateRecord FlatPlate::record() const {
   }
   for (const auto& c : columns_) r.columns.push_back({c.name, c.x_mm, c.y_mm, cx_, cy_});
   r.strip_clause = rule_.clause;
+  // The code's reach of the top bars past the faces, in clear spans.
+  r.extents_clause = rule_.extents_clause;
+  r.integrity = rule_.integrity;
+  if (!rule_.extents_clause.empty())
+    for (const auto& t : targets_) {
+      if (!t.top || t.strip == std::numeric_limits<std::size_t>::max()) continue;
+      const bool along_x = t.demand.direction == BarDirection::x;
+      const auto& lines = along_x ? x_lines_ : y_lines_;
+      const double c = along_x ? cx_ : cy_;
+      const std::size_t last = lines.size() - 1;
+      const bool wall_lo = !column_edges_[along_x ? 0 : 2], wall_hi = !column_edges_[along_x ? 1 : 3];
+      auto face = [&](std::size_t l, int side) {
+        const bool wall = (l == 0 && wall_lo) || (l == last && wall_hi);
+        return wall ? lines[l] : lines[l] + side * c / 2.0;
+      };
+      auto clear = [&](std::size_t k) { return face(k + 1, -1) - face(k, +1); };
+      const auto& list = strips_[t.strip].column ? rule_.column_strip_top : rule_.middle_strip_top;
+      for (const auto& e : list)
+        r.top_extents.push_back({t.demand.where, t.demand.direction, e.share,
+                                 t.span > 0 ? e.of_clear_span * clear(t.span - 1) : 0.0,
+                                 t.span < last ? e.of_clear_span * clear(t.span) : 0.0});
+    }
   if (rule_.band_each_side > 0.0) r.band_clause = rule_.band_clause;
   return r;
 }

@@ -770,6 +770,18 @@ std::string plate_drawings_html(const DesignRecord& r) {
          "sections (the column faces and the mesh lines between them), per metre of the strip; the regions "
          "take their design moments from these.</p>\n";
     for (const BarDirection d : {BarDirection::x, BarDirection::y}) o += flat_strip_diagrams_svg(r, d) + "\n";
+    if (!p.top_extents.empty()) {
+      o += "<h3>Top bars past the faces</h3>\n<p>" + esc(p.extents_clause) +
+           ": the reach of each share of a top region's bars past the face of the column (the wall) into the span "
+           "before the line and after it, from the clear spans.</p>\n<table>\n<tr><th>region</th><th>bars in</th>"
+           "<th class=\"num\">share</th><th class=\"num\">before</th><th class=\"num\">after</th></tr>\n";
+      for (const auto& e : p.top_extents)
+        o += "<tr><td>" + esc(e.where) + "</td><td>" + to_string(e.direction) + "</td><td class=\"num\">" +
+             esc(n4(e.share)) + "</td><td class=\"num\">" + esc(e.before_mm > 0.0 ? u.length(e.before_mm) : "–") +
+             "</td><td class=\"num\">" + esc(e.after_mm > 0.0 ? u.length(e.after_mm) : "–") + "</td></tr>\n";
+      o += "</table>\n";
+    }
+    if (!p.integrity.empty()) o += "<p>" + esc(p.integrity) + ".</p>\n";
   }
   o += "<h3>Moment fields (ULS envelope)</h3>\n<p>Elastic moments per metre at the mesh nodes, the largest "
        "(most sagging) of the load cases, and the Wood–Armer design moments that the regions take their "

@@ -165,6 +165,9 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
            " (the bay's bars across it), legs " + (u.us ? plain_number(f.leg_mm / mm_per_in) + " in" : plain_number(f.leg_mm) + " mm") +
            " on each face; bar " + f.edge_bar + " along the edge in each face inside the U (" + f.clause + ")\n";
     const bool free = std::find(r.plate->edges.begin(), r.plate->edges.end(), EndSupport::free) != r.plate->edges.end();
+    if (!r.plate->integrity.empty()) o += "Detailing  " + r.plate->integrity + "\n";
+    if (!r.plate->top_extents.empty())
+      o += "Detailing  top bars past the faces by " + r.plate->extents_clause + ": see the record or plate.top_bar_extents\n";
     if (free && r.plate->free_edges.empty() && !r.plate->flat)
       o += "Free edge  the code sets no reinforcement rule of its own for a free edge: the bars as designed\n";
   }
