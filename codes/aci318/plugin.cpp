@@ -66,6 +66,9 @@ Checker::Checker(const Request& req, bool us) : req_(req), us_(us) {
     exposure_[static_cast<std::size_t>(face)] = req.durability.face(face).exposure.value_or("interior");
   for (const auto& name : req.reinforcement.bars.value_or(us ? default_bars_us : default_bars))
     bars_.push_back(*variant_bar(name, us));
+  if (req.slab_type == SlabType::flat)
+    warnings_.push_back("ACI 318-19 8.6.1.2 (the least flexural steel over bslab at a column where the shear stress "
+                        "vuv is high) is not checked: check it at the columns");
   if (req.fire.resistance_min)
     warnings_.push_back("fire resistance is not checked by this code: for US slabs it is set by "
                         "ACI/TMS 216.1, which armature does not implement");
@@ -101,17 +104,22 @@ std::vector<std::vector<bool>> Checker::load_arrangements(std::size_t n) const {
 // checkerboards) and on the panels adjacent to each support line; the
 // moments are not taken less than with the full factored live load on
 // every panel (6.4.3.3), which is always an arrangement. L and D are the
-// characteristic loads uniform over the whole slab.
+// characteristic loads uniform over the whole slab; a live load placed in
+// plan (a patch, line or point) has no such intensity to compare, so the
+// patterns are taken whenever there is one (on the safe side).
 std::vector<BayArrangement> Checker::bay_load_arrangements(std::size_t bays_x, std::size_t bays_y,
                                                            const std::vector<Action>& actions) const {
   std::vector<BayArrangement> out{{all_bays_loaded(bays_x, bays_y), 1.0}};
   double D = 0.0, L = 0.0;
+  bool located_live = false;  // a live load placed in plan has no intensity over the slab to compare
   for (const auto& a : actions) {
+    if (a.kind == ActionKind::imposed && (a.distribution != Distribution::uniform || a.plan_mm || a.span))
+      located_live = true;
     if (a.distribution != Distribution::uniform || a.plan_mm || a.span) continue;
     if (a.kind == ActionKind::permanent) D += a.value;
     else if (a.kind == ActionKind::imposed) L += a.value;
   }
-  if (!two_way_pattern_loading_required(L, D)) return out;
+  if (!located_live && !two_way_pattern_loading_required(L, D)) return out;
   for (auto& a : checkerboard_bay_arrangements(bays_x, bays_y))
     out.push_back({std::move(a), two_way_pattern_live_fraction});
   for (auto& a : adjacent_bays_across_lines(bays_x, bays_y))

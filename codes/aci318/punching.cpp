@@ -195,6 +195,18 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
                    return st.take();
                  });
     });
+    // 22.6.7.1 (from memory): stirrups only in slabs with d ≥ 6 in (150 mm)
+    // (and d ≥ 16 db of the stirrup, whose size is not chosen here).
+    const double d_min = us_ ? 6.0 * mm_per_in : 150.0;
+    run_check("punching_links", [&] {
+      checks.add("punching_links", p.where, "ACI 318-19 22.6.7.1", len_v(d_min), len_v(d), len_u(), [&] {
+        Steps st;
+        st.add("d_min", us_ ? "6 in for stirrups" : "150 mm for stirrups", "", len_v(d_min), len_u(),
+               "ACI 318-19 22.6.7.1 (from memory)");
+        st.add("d", "(dx + dy)/2", "", len_v(d), len_u(), "ACI 318-19 22.6.2.1");
+        return st.take();
+      });
+    });
   }
   out.perimeters.insert(out.perimeters.begin(), std::move(b0));
   out.pass = verdict.all_pass;

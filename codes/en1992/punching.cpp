@@ -275,6 +275,16 @@ PunchingOutcome Checker::check_punching(const PunchingDemand& p, Detail detail) 
         return st.take();
       });
     });
+    // 9.3.2(1): a slab with shear reinforcement at least 200 mm deep.
+    run_check("punching_links", [&] {
+      checks.add("punching_links", p.where, "EN 1992-1-1 9.3.2(1)", slab_min_depth_with_shear_reinforcement,
+                 p.h_mm, "mm", [&] {
+                   Steps st;
+                   st.add("h_min", "slab with shear reinforcement", "", slab_min_depth_with_shear_reinforcement, "mm",
+                          "EN 1992-1-1 9.3.2(1)");
+                   return st.take();
+                 });
+    });
   }
   // Moment transfer at an edge or corner column, across each free edge,
   // where the analysis gives the moments: Annex I.1.2(5) Mt,max = 0.17 be

@@ -63,6 +63,8 @@ double outer_perimeter_length(double beta, double V, double v_Rd_c, double d);
 // 6.4.5(4): the outermost perimeter of links no further than k d inside
 // uout (k = 1.5 recommended).
 constexpr double outer_link_perimeter_k = 1.5;
+// 9.3.2(1): the least depth of a slab with shear reinforcement (mm).
+constexpr double slab_min_depth_with_shear_reinforcement = 200.0;
 // 9.4.1(3) Figure 9.9 (from memory): the effective width be of the slab
 // for bars across a free edge at an edge column, cz + y (cz the column's
 // side along the edge, y the slab edge to the column's inner face: the

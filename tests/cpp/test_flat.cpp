@@ -527,3 +527,65 @@ TEST_CASE("Flat: ACI top bar extensions past the column faces", "[flat]") {
   const DesignRecord en = design(registry(), flat_request("EN1992-1-1", {6.0, 6.0}, {6.0}));
   CHECK(en.plate->top_extents.empty());
 }
+
+// ACI 318-19 6.4.3.2 compares L with 0.75 D for loads uniform over the
+// slab; a live load placed in plan has no such intensity, so the patterns
+// are taken (on the safe side).
+TEST_CASE("Flat: ACI patterns with a live load placed in plan", "[flat]") {
+  const Action g = uniform("g", ActionKind::permanent, 7.75e-3);
+  Action patch = uniform("store", ActionKind::imposed, 3.0e-3);
+  patch.plan_mm = std::array<double, 4>{0.0, 0.0, 6000.0, 6000.0};
+  const Request req = parsed(flat_request("ACI318-19", {6.0, 6.0, 6.0}, {6.0, 6.0, 6.0}));
+  const auto checker = registry().open("ACI318-19", "SI")->begin(req);
+  CHECK(checker->combination_rules().flat_load_arrangements(3, 3, {g, patch}).size() > 1);
+}
+
+// Shear reinforcement at columns only in slabs deep enough: EN 1992-1-1
+// 9.3.2(1) h ≥ 200 mm; ACI 318-19 22.6.7.1 d ≥ 150 mm for stirrups (values
+// from memory). Checked where links are needed.
+TEST_CASE("Flat: the least depth of a slab with punching reinforcement, both codes", "[flat]") {
+  const DesignRecord en = design(registry(), flat_request("EN1992-1-1", {6.0, 6.0}, {6.0, 6.0}, json::object(), 190));
+  bool found = false;
+  for (const auto& c : en.columns)
+    for (const auto& k : c.punching.checks)
+      if (k.clause.str() == "EN 1992-1-1 9.3.2(1)") {
+        CHECK(k.demand == 200.0);
+        CHECK(k.capacity == 190.0);
+        CHECK_FALSE(k.pass);
+        found = true;
+      }
+  CHECK(found);
+  json aci = flat_request("ACI318-19", {6.0, 6.0}, {6.0, 6.0}, json::object(), 180);
+  aci["slab"]["columns"]["height_m"] = 3.5;
+  const DesignRecord a = design(registry(), aci);
+  found = false;
+  for (const auto& c : a.columns)
+    for (const auto& k : c.punching.checks)
+      if (k.clause.str() == "ACI 318-19 22.6.7.1") {
+        CHECK(k.demand == 150.0);
+        CHECK(k.capacity == Approx(c.punching.d_mm));
+        CHECK(k.pass == (c.punching.d_mm >= 150.0));
+        found = true;
+      }
+  CHECK(found);
+}
+
+// The transfer bands count in the plate's bands (steel quantities, the
+// JSON) and carry their derivation; columns free to turn are warned.
+TEST_CASE("Flat: transfer bands recorded, free columns warned", "[flat]") {
+  json en = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0, 6.0});
+  const DesignRecord free_cols = design(registry(), en);
+  CHECK(std::any_of(free_cols.warnings.begin(), free_cols.warnings.end(),
+                    [](const std::string& w) { return w.find("free to turn") != std::string::npos; }));
+  en["slab"]["columns"]["height_m"] = 3.5;
+  const DesignRecord r = design(registry(), en);
+  const auto band = std::find_if(r.plate->bands.begin(), r.plate->bands.end(),
+                                 [](const FlatStripRecord& b) { return b.name == "column 1,2 transfer"; });
+  REQUIRE(band != r.plate->bands.end());
+  CHECK(band->pieces.front()[3] - band->pieces.front()[2] == Approx(800.0));  // be = 400 + 400, across y
+  const auto t = std::find_if(r.plate->transfers.begin(), r.plate->transfers.end(),
+                              [](const PlateRecord::Transfer& x) { return x.where == "column 1,2 transfer"; });
+  REQUIRE(t != r.plate->transfers.end());
+  CHECK(t->M_per_m_Nmm == Approx(t->share * t->M_column_Nmm / 800.0 * 1000.0));
+  CHECK(t->clause.find("9.4.1(3)") != std::string::npos);
+}

@@ -123,6 +123,19 @@ struct PlateRecord {
   std::vector<FlatColumnOutline> columns;
   std::string strip_clause, band_clause;
   std::vector<FlatTopExtent> top_extents;
+  // The bands for the moment each restrained column takes (their regions
+  // "column i,j transfer"): the code's width and share, the column's
+  // moment and the band's design moment per metre.
+  struct Transfer {
+    std::string where;
+    BarDirection direction = BarDirection::x;
+    double width_mm = 0.0, share = 1.0;
+    double M_column_Nmm = 0.0;    // the column's moment in this direction (ULS envelope)
+    double M_per_m_Nmm = 0.0;     // share × M / width, per metre
+    double M_strip_per_m_Nmm = 0.0;  // the column strip's there, per metre
+    std::string clause;
+  };
+  std::vector<Transfer> transfers;
   std::string extents_clause, integrity;
 };
 

@@ -84,7 +84,8 @@ PunchingDemand column_demand(const FlatColumn& col, const Request& req) {
 struct ColumnBand {
   std::string where;
   BarDirection direction = BarDirection::x;
-  double width_mm = 0.0;
+  double below_mm = 0.0, above_mm = 0.0;  // its reach either side of the column line
+  double width() const { return below_mm + above_mm; }
 };
 
 // Where the columns take moments (restrained columns), the code's bands of
@@ -93,7 +94,8 @@ struct ColumnBand {
 // share × the moment over the band's width per metre, and at least the
 // column strip's own moment there (the band's bars replace the strip's).
 void add_transfer_regions(const SlabChecker& checker, const CodeIdentity& code, const FlatPlate& plate,
-                          const Request& req, std::vector<RegionDemand>& demands, std::vector<ColumnBand>& bands) {
+                          const Request& req, std::vector<RegionDemand>& demands, std::vector<ColumnBand>& bands,
+                          std::vector<PlateRecord::Transfer>& transfers) {
   if (!plate.columns_restrained()) return;
   const PunchingRules& rules =
       call_code(code, "punching rules", [&]() -> const PunchingRules& { return checker.punching_rules(); });
@@ -117,10 +119,12 @@ void add_transfer_regions(const SlabChecker& checker, const CodeIdentity& code, 
       g.span_where.clear();
       g.x_mm = col.x_mm;
       g.y_mm = col.y_mm;
-      const double M = band->share * (bars_x ? col.M_x_Nmm : col.M_y_Nmm);
-      g.M_Ed = std::max(M / band->width_mm * 1000.0, under->M_Ed);
+      const double M_column = bars_x ? col.M_x_Nmm : col.M_y_Nmm;
+      const double M_band = band->share * M_column / band->width_mm * 1000.0;
+      g.M_Ed = std::max(M_band, under->M_Ed);
+      transfers.push_back({g.where, dir, band->width_mm, band->share, M_column, M_band, under->M_Ed, band->clause});
       demands.push_back(std::move(g));
-      bands.push_back({col.name + " transfer", dir, band->width_mm});
+      bands.push_back({col.name + " transfer", dir, band->width_mm / 2.0, band->width_mm / 2.0});
     }
   }
 }
@@ -146,7 +150,7 @@ std::vector<ColumnRecord> column_checks(const SlabChecker& checker, const CodeId
     // Per direction: the column strip's region and the band over the column.
     const RegionRecord* strip[2]{};
     const RegionRecord* over[2]{};
-    double band_width[2]{0.0, 0.0};
+    const ColumnBand* band[2]{};
     for (const bool bars_x : {true, false}) {
       const BarDirection dir = bars_x ? BarDirection::x : BarDirection::y;
       const std::size_t k = bars_x ? 0 : 1;
@@ -157,7 +161,7 @@ std::vector<ColumnRecord> column_checks(const SlabChecker& checker, const CodeId
         if (b.direction == dir && (b.where == col.name + " transfer" || b.where == col.name + " band"))
           if (const RegionRecord* r = region(b.where, dir); r && (over[k] == strip[k] || b.where == col.name + " transfer")) {
             over[k] = r;
-            band_width[k] = b.width_mm;
+            band[k] = &b;
           }
     }
     if (!(over[0]->d_mm > 0.0) || !(over[1]->d_mm > 0.0))
@@ -168,7 +172,11 @@ std::vector<ColumnRecord> column_checks(const SlabChecker& checker, const CodeId
     for (const bool bars_x : {true, false}) {
       const std::size_t k = bars_x ? 0 : 1;
       const double W = call_code(code, "punching steel width", [&] { return rules.steel_ratio_width_mm(d, bars_x); });
-      const double wb = over[k] == strip[k] ? 0.0 : std::min(band_width[k], W);
+      // The band's part of the width, taken symmetric about the column
+      // line (the width reaches W/2 each side at the internal columns
+      // where 9.4.1(2)'s bands, perhaps uneven, lie; an edge or corner
+      // column's band and width both start at the free edge: the smaller).
+      const double wb = !band[k] ? 0.0 : std::min(band[k]->below_mm, W / 2.0) + std::min(band[k]->above_mm, W / 2.0);
       const double rho_band = over[k]->bars.As_prov_mm2 / (1000.0 * over[k]->d_mm);
       const double rho_strip = strip[k]->bars.As_prov_mm2 / (1000.0 * strip[k]->d_mm);
       (bars_x ? d.rho_x : d.rho_y) = W > 0.0 && wb > 0.0 ? (rho_band * wb + rho_strip * (W - wb)) / W
@@ -341,13 +349,26 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   const double fraction = call_code(rec.code, "end fixity", [&] { return member_rules.pinned_end_fixity_fraction(); });
   std::vector<RegionDemand> demands;
   std::vector<ColumnBand> column_bands;  // flat slabs: the bands over columns
+  std::vector<PlateRecord::Transfer> transfers;
   if constexpr (flat) {
     demands = plate.design_regions(fraction, rec.warnings);
     for (const auto& band : plate.bands()) {
       const auto& q = band.pieces.front();
-      column_bands.push_back({band.name, band.direction, band.direction == BarDirection::x ? q[3] - q[2] : q[1] - q[0]});
+      const bool along_x = band.direction == BarDirection::x;
+      const auto col = std::find_if(plate.columns().begin(), plate.columns().end(),
+                                    [&](const FlatColumn& c) { return c.name + " band" == band.name; });
+      const double line = col == plate.columns().end() ? 0.0 : along_x ? col->y_mm : col->x_mm;
+      column_bands.push_back(
+          {band.name, band.direction, line - (along_x ? q[2] : q[0]), (along_x ? q[3] : q[1]) - line});
     }
-    add_transfer_regions(checker, rec.code, plate, req, demands, column_bands);
+    add_transfer_regions(checker, rec.code, plate, req, demands, column_bands, transfers);
+    if (!plate.columns_restrained() &&
+        std::any_of(plate.columns().begin(), plate.columns().end(), [](const FlatColumn& c) {
+          return c.free.x0 || c.free.x1 || c.free.y0 || c.free.y1;
+        }))
+      rec.warnings.push_back("the columns are free to turn (slab.columns.height_m not given): the analysis gives the "
+                             "edge and corner columns no moment, so no bars are designed for the moment they take "
+                             "from the slab in practice; give the storey heights to design them");
     // What the two-way rules add at walls meeting and free edges, not yet
     // designed for flat slabs: said, not left out silently.
     const auto& e = req.two_way.column_edges;
@@ -462,6 +483,29 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   PlateRecord plate_record = plate.record();
   if constexpr (flat) {
     rec.columns = column_checks(checker, rec.code, plate, rec.regions, column_bands, req, detail);
+    // The transfer bands among the plate's bands (quantities, JSON), with
+    // their derivation.
+    for (const auto& t : transfers) {
+      const auto col = std::find_if(rec.columns.begin(), rec.columns.end(),
+                                    [&](const ColumnRecord& c) { return c.name + " transfer" == t.where; });
+      if (col == rec.columns.end()) continue;
+      const auto& o = plate_record.outline_mm;
+      const auto member_col = std::find_if(plate.columns().begin(), plate.columns().end(),
+                                           [&](const FlatColumn& c) { return c.name == col->name; });
+      const bool along_x = t.direction == BarDirection::x;
+      // Across the bars: centred on the column, or from the free edge at a
+      // corner (the band and the slab both start there).
+      const bool free_lo = along_x ? member_col->free.y0 : member_col->free.x0;
+      const bool free_hi = along_x ? member_col->free.y1 : member_col->free.x1;
+      const double at = along_x ? col->y_mm : col->x_mm, lo_edge = along_x ? o[2] : o[0], hi_edge = along_x ? o[3] : o[1];
+      const double lo = free_lo ? lo_edge : free_hi ? hi_edge - t.width_mm : at - t.width_mm / 2.0;
+      const double hi = std::min(lo + t.width_mm, hi_edge);
+      FlatStripRecord transfer_band{t.where, t.direction, true, {}, {}};
+      transfer_band.pieces.push_back(along_x ? std::array<double, 4>{col->x_mm, col->x_mm, std::max(lo, lo_edge), hi}
+                                             : std::array<double, 4>{std::max(lo, lo_edge), hi, col->y_mm, col->y_mm});
+      plate_record.bands.push_back(std::move(transfer_band));
+    }
+    plate_record.transfers = std::move(transfers);
   } else {
     const FreeEdgeRule free_rule =
         call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });

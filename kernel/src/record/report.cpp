@@ -782,6 +782,23 @@ std::string plate_drawings_html(const DesignRecord& r) {
       o += "</table>\n";
     }
     if (!p.integrity.empty()) o += "<p>" + esc(p.integrity) + ".</p>\n";
+    if (!p.transfers.empty()) {
+      const std::string mu = us ? "kip-ft/ft" : "kNm/m";
+      const double per_unit = to_unit;  // per metre / 1000 → kNm/m or kip-ft/ft
+      o += "<h3>Bands for the moment the columns take</h3>\n<p>Top bars over each restrained column for the "
+           "code's share of the moment the column takes from the slab (the analysis's ULS envelope), over the "
+           "code's width: M_Ed = max(share × M / width, the column strip's moment there).</p>\n<table>\n"
+           "<tr><th>region</th><th>bars in</th><th>clause</th><th class=\"num\">width</th><th class=\"num\">share"
+           "</th><th class=\"num\">M column</th><th class=\"num\">share × M / width, " + mu +
+           "</th><th class=\"num\">column strip, " + mu + "</th></tr>\n";
+      for (const auto& t : p.transfers)
+        o += "<tr><td>" + esc(t.where) + "</td><td>" + to_string(t.direction) + "</td><td>" + esc(t.clause) +
+             "</td><td class=\"num\">" + esc(u.length(t.width_mm)) + "</td><td class=\"num\">" + esc(n4(t.share)) +
+             "</td><td class=\"num\">" + esc(u.moment(t.M_column_Nmm)) + "</td><td class=\"num\">" +
+             esc(n4(t.M_per_m_Nmm * 1e-3 * per_unit)) + "</td><td class=\"num\">" +
+             esc(n4(t.M_strip_per_m_Nmm * 1e-3 * per_unit)) + "</td></tr>\n";
+      o += "</table>\n";
+    }
   }
   o += "<h3>Moment fields (ULS envelope)</h3>\n<p>Elastic moments per metre at the mesh nodes, the largest "
        "(most sagging) of the load cases, and the Wood–Armer design moments that the regions take their "
