@@ -149,6 +149,30 @@ PlateLoadCase plate_load_case(const PlateModel& model, const std::vector<Action>
                               const Combination& combination, const BayArrangement& arrangement, double dx_mm = 0.0,
                               double dy_mm = 0.0);
 
+// The load cases a plate member solves on one factorisation: every ULS
+// combination × arrangement; the ULS combinations with every bay loaded
+// where no arrangement loads them all (the quasi-permanent to ULS ratios
+// need them); the quasi-permanent combinations with every bay loaded.
+// Cases [0, uls) are the ULS envelope's, [uls, uls + extra_uls) the extra
+// all-bays ULS ones, the rest quasi-permanent.
+struct PlateCaseSet {
+  std::vector<PlateLoadCase> cases;
+  std::vector<bool> all_bays_uls;  // per ULS case: every bay at its full load
+  std::size_t uls = 0, extra_uls = 0;
+  bool is_uls(std::size_t c) const { return c < uls; }
+  bool is_uls_all_bays(std::size_t c) const { return c < uls ? all_bays_uls[c] : c < uls + extra_uls; }
+  bool is_quasi_permanent(std::size_t c) const { return c >= uls + extra_uls; }
+};
+PlateCaseSet plate_case_set(const PlateModel& model, const std::vector<Action>& actions,
+                            const std::vector<Combination>& combinations,
+                            const std::vector<BayArrangement>& arrangements, double dx_mm = 0.0, double dy_mm = 0.0);
+
+// The ULS envelope of the node moments (PlateFieldRecord): start_field
+// sizes it for the model's nodes (positions moved by −dx, −dy into the
+// request's plan), add_to_field takes one case's node moments in.
+void start_field(PlateFieldRecord& field, const PlateModel& model, double dx_mm = 0.0, double dy_mm = 0.0);
+void add_to_field(PlateFieldRecord& field, const std::vector<PlateMoments>& node_moments);
+
 // Name of an outer edge or interior grid line: "edge x0", "edge x1",
 // "grid x2" (the line at x = Σ x_spans[0..2)), "edge y0", "grid y1", ...
 std::string plate_line_name(const SupportLine& line, std::size_t bays_x, std::size_t bays_y);

@@ -280,38 +280,11 @@ std::size_t FlatPlate::analyse(const std::vector<Action>& actions, const std::ve
                                const std::vector<BayArrangement>& arrangements, double uniform_load_ratio) {
   uniform_ratio_ = uniform_load_ratio;
   arrangements_ = arrangements.size();
-  const std::size_t nb = bays_x() * bays_y();
-  const BayArrangement every_bay{std::vector<bool>(nb, true), 1.0};
-  std::vector<PlateLoadCase> cases;
-  std::vector<bool> all_bays_uls;
-  for (const auto& c : combinations) {
-    if (c.limit_state != LimitState::uls) continue;
-    for (const auto& a : arrangements) {
-      cases.push_back(plate_load_case(model_, actions, c, a, ox_, oy_));
-      all_bays_uls.push_back(a.variable_fraction == 1.0 &&
-                             std::all_of(a.loaded.begin(), a.loaded.end(), [](bool b) { return b; }));
-    }
-  }
-  uls_cases_ = cases.size();
-  if (std::none_of(all_bays_uls.begin(), all_bays_uls.end(), [](bool b) { return b; }))
-    for (const auto& c : combinations)
-      if (c.limit_state == LimitState::uls) cases.push_back(plate_load_case(model_, actions, c, every_bay, ox_, oy_));
-  const std::size_t extra_uls = cases.size() - uls_cases_;
-  for (const auto& c : combinations)
-    if (c.limit_state == LimitState::quasi_permanent)
-      cases.push_back(plate_load_case(model_, actions, c, every_bay, ox_, oy_));
-
-  const PlateField field = model_.solve(cases);
-  const auto& xs = model_.node_x_mm();
-  const auto& ys = model_.node_y_mm();
-  const std::size_t nn = xs.size() * ys.size();
+  const PlateCaseSet set = plate_case_set(model_, actions, combinations, arrangements, ox_, oy_);
+  uls_cases_ = set.uls;
+  const PlateField field = model_.solve(set.cases);
   const double inf = std::numeric_limits<double>::infinity();
-  field_ = {};
-  for (double x : xs) field_.x_mm.push_back(x - ox_);
-  for (double y : ys) field_.y_mm.push_back(y - oy_);
-  for (auto* v : {&field_.mx_max, &field_.my_max, &field_.mxy_max}) v->assign(nn, -inf);
-  for (auto* v : {&field_.mx_min, &field_.my_min, &field_.mxy_min}) v->assign(nn, inf);
-  for (auto* v : {&field_.bottom_x, &field_.bottom_y, &field_.top_x, &field_.top_y}) v->assign(nn, 0.0);
+  start_field(field_, model_, ox_, oy_);
   for (auto& t : targets_) {
     t.uls = t.uls_all = t.qp = t.panel_uls = -inf;
     t.section_max.assign(t.sections.size(), -inf);
@@ -319,10 +292,8 @@ std::size_t FlatPlate::analyse(const std::vector<Action>& actions, const std::ve
   }
   for (auto& c : columns_) c.V_N = c.M_x_Nmm = c.M_y_Nmm = 0.0;
 
-  for (std::size_t c = 0; c < cases.size(); ++c) {
-    const bool uls = c < uls_cases_;
-    const bool uls_all = uls ? all_bays_uls[c] : c < uls_cases_ + extra_uls;
-    const bool qp = c >= uls_cases_ + extra_uls;
+  for (std::size_t c = 0; c < set.cases.size(); ++c) {
+    const bool uls = set.is_uls(c), uls_all = set.is_uls_all_bays(c), qp = set.is_quasi_permanent(c);
     for (auto& t : targets_) {
       double best = -inf;
       for (std::size_t k = 0; k < t.sections.size(); ++k) {
@@ -342,20 +313,7 @@ std::size_t FlatPlate::analyse(const std::vector<Action>& actions, const std::ve
           t.panel_uls = std::max(t.panel_uls, t.sign * field.section_moment(c, s.normal, s.at_mm, s.from_mm, s.to_mm, s.side));
     }
     if (!uls) continue;
-    const auto m = field.node_moments(c);
-    for (std::size_t n = 0; n < nn; ++n) {
-      const WoodArmerMoments w = wood_armer(m[n]);
-      field_.mx_max[n] = std::max(field_.mx_max[n], m[n].mx);
-      field_.mx_min[n] = std::min(field_.mx_min[n], m[n].mx);
-      field_.my_max[n] = std::max(field_.my_max[n], m[n].my);
-      field_.my_min[n] = std::min(field_.my_min[n], m[n].my);
-      field_.mxy_max[n] = std::max(field_.mxy_max[n], m[n].mxy);
-      field_.mxy_min[n] = std::min(field_.mxy_min[n], m[n].mxy);
-      field_.bottom_x[n] = std::max(field_.bottom_x[n], w.bottom_x);
-      field_.bottom_y[n] = std::max(field_.bottom_y[n], w.bottom_y);
-      field_.top_x[n] = std::max(field_.top_x[n], w.top_x);
-      field_.top_y[n] = std::max(field_.top_y[n], w.top_y);
-    }
+    add_to_field(field_, field.node_moments(c));
     const auto R = field.column_reactions(c);
     const auto M = field.column_moments(c);
     for (std::size_t k = 0; k < columns_.size(); ++k) {

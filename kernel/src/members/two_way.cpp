@@ -63,6 +63,57 @@ PlateGeometry geometry_of(const Request& req, double E_MPa) {
 
 }  // namespace
 
+PlateCaseSet plate_case_set(const PlateModel& model, const std::vector<Action>& actions,
+                            const std::vector<Combination>& combinations,
+                            const std::vector<BayArrangement>& arrangements, double dx_mm, double dy_mm) {
+  PlateCaseSet set;
+  const BayArrangement every_bay{std::vector<bool>(model.bay_count(), true), 1.0};
+  for (const auto& c : combinations) {
+    if (c.limit_state != LimitState::uls) continue;
+    for (const auto& a : arrangements) {
+      set.cases.push_back(plate_load_case(model, actions, c, a, dx_mm, dy_mm));
+      set.all_bays_uls.push_back(a.variable_fraction == 1.0 &&
+                                 std::all_of(a.loaded.begin(), a.loaded.end(), [](bool b) { return b; }));
+    }
+  }
+  set.uls = set.cases.size();
+  if (std::none_of(set.all_bays_uls.begin(), set.all_bays_uls.end(), [](bool b) { return b; }))
+    for (const auto& c : combinations)
+      if (c.limit_state == LimitState::uls) set.cases.push_back(plate_load_case(model, actions, c, every_bay, dx_mm, dy_mm));
+  set.extra_uls = set.cases.size() - set.uls;
+  for (const auto& c : combinations)
+    if (c.limit_state == LimitState::quasi_permanent)
+      set.cases.push_back(plate_load_case(model, actions, c, every_bay, dx_mm, dy_mm));
+  return set;
+}
+
+void start_field(PlateFieldRecord& field, const PlateModel& model, double dx_mm, double dy_mm) {
+  field = {};
+  for (double x : model.node_x_mm()) field.x_mm.push_back(x - dx_mm);
+  for (double y : model.node_y_mm()) field.y_mm.push_back(y - dy_mm);
+  const std::size_t nn = model.node_count();
+  const double inf = std::numeric_limits<double>::infinity();
+  for (auto* v : {&field.mx_max, &field.my_max, &field.mxy_max}) v->assign(nn, -inf);
+  for (auto* v : {&field.mx_min, &field.my_min, &field.mxy_min}) v->assign(nn, inf);
+  for (auto* v : {&field.bottom_x, &field.bottom_y, &field.top_x, &field.top_y}) v->assign(nn, 0.0);
+}
+
+void add_to_field(PlateFieldRecord& field, const std::vector<PlateMoments>& m) {
+  for (std::size_t n = 0; n < m.size() && n < field.mx_max.size(); ++n) {
+    const WoodArmerMoments w = wood_armer(m[n]);
+    field.mx_max[n] = std::max(field.mx_max[n], m[n].mx);
+    field.mx_min[n] = std::min(field.mx_min[n], m[n].mx);
+    field.my_max[n] = std::max(field.my_max[n], m[n].my);
+    field.my_min[n] = std::min(field.my_min[n], m[n].my);
+    field.mxy_max[n] = std::max(field.mxy_max[n], m[n].mxy);
+    field.mxy_min[n] = std::min(field.mxy_min[n], m[n].mxy);
+    field.bottom_x[n] = std::max(field.bottom_x[n], w.bottom_x);
+    field.bottom_y[n] = std::max(field.bottom_y[n], w.bottom_y);
+    field.top_x[n] = std::max(field.top_x[n], w.top_x);
+    field.top_y[n] = std::max(field.top_y[n], w.top_y);
+  }
+}
+
 bool is_plate_corner_name(const std::string& where) { return where.rfind("corner ", 0) == 0; }
 
 std::string plate_bay_name(std::size_t i, std::size_t j) {
@@ -135,38 +186,13 @@ std::size_t TwoWayPlate::analyse(const std::vector<Action>& actions, const std::
                                  const std::vector<BayArrangement>& arrangements, double uniform_load_ratio) {
   uniform_ratio_ = uniform_load_ratio;
   arrangements_ = arrangements.size();
-  const std::size_t nb = bays_x() * bays_y();
-  const BayArrangement every_bay{std::vector<bool>(nb, true), 1.0};
-  std::vector<PlateLoadCase> cases;
-  std::vector<bool> all_bays_uls;  // per ULS case: every bay at its full load
-  for (const auto& c : combinations) {
-    if (c.limit_state != LimitState::uls) continue;
-    for (const auto& a : arrangements) {
-      cases.push_back(load_case(actions, c, a));
-      all_bays_uls.push_back(a.variable_fraction == 1.0 &&
-                             std::all_of(a.loaded.begin(), a.loaded.end(), [](bool b) { return b; }));
-    }
-  }
-  uls_cases_ = cases.size();
-  bool any_all_bays = std::any_of(all_bays_uls.begin(), all_bays_uls.end(), [](bool b) { return b; });
-  if (!any_all_bays)  // the ratios need the ULS moments with every bay loaded
-    for (const auto& c : combinations)
-      if (c.limit_state == LimitState::uls) cases.push_back(load_case(actions, c, every_bay));
-  const std::size_t extra_uls = cases.size() - uls_cases_;
-  for (const auto& c : combinations)
-    if (c.limit_state == LimitState::quasi_permanent) cases.push_back(load_case(actions, c, every_bay));
-
-  const PlateField field = model_.solve(cases);
+  const PlateCaseSet set = plate_case_set(model_, actions, combinations, arrangements);
+  uls_cases_ = set.uls;
+  const PlateField field = model_.solve(set.cases);
   const auto& xs = model_.node_x_mm();
   const auto& ys = model_.node_y_mm();
   const std::size_t nn = xs.size() * ys.size();
-  field_ = {};
-  field_.x_mm = xs;
-  field_.y_mm = ys;
-  const double inf = std::numeric_limits<double>::infinity();
-  for (auto* v : {&field_.mx_max, &field_.my_max, &field_.mxy_max}) v->assign(nn, -inf);
-  for (auto* v : {&field_.mx_min, &field_.my_min, &field_.mxy_min}) v->assign(nn, inf);
-  for (auto* v : {&field_.bottom_x, &field_.bottom_y, &field_.top_x, &field_.top_y}) v->assign(nn, 0.0);
+  start_field(field_, model_);
   all_bays_uls_.assign(nn, WoodArmerMoments{});
   all_bays_qp_.assign(nn, WoodArmerMoments{});
   auto take_max = [](WoodArmerMoments& into, const WoodArmerMoments& w) {
@@ -187,28 +213,12 @@ std::size_t TwoWayPlate::analyse(const std::vector<Action>& actions, const std::
                         line.runs_along, line.position_mm, grid[s], grid[s + 1], 0.0, 0.0});
   }
 
-  for (std::size_t c = 0; c < cases.size(); ++c) {
+  for (std::size_t c = 0; c < set.cases.size(); ++c) {
     const auto m = field.node_moments(c);
-    const bool uls = c < uls_cases_;
-    const bool uls_all = uls ? all_bays_uls[c] : c < uls_cases_ + extra_uls;
-    const bool qp = c >= uls_cases_ + extra_uls;
-    for (std::size_t n = 0; n < nn; ++n) {
-      const WoodArmerMoments w = wood_armer(m[n]);
-      if (uls) {
-        field_.mx_max[n] = std::max(field_.mx_max[n], m[n].mx);
-        field_.mx_min[n] = std::min(field_.mx_min[n], m[n].mx);
-        field_.my_max[n] = std::max(field_.my_max[n], m[n].my);
-        field_.my_min[n] = std::min(field_.my_min[n], m[n].my);
-        field_.mxy_max[n] = std::max(field_.mxy_max[n], m[n].mxy);
-        field_.mxy_min[n] = std::min(field_.mxy_min[n], m[n].mxy);
-        field_.bottom_x[n] = std::max(field_.bottom_x[n], w.bottom_x);
-        field_.bottom_y[n] = std::max(field_.bottom_y[n], w.bottom_y);
-        field_.top_x[n] = std::max(field_.top_x[n], w.top_x);
-        field_.top_y[n] = std::max(field_.top_y[n], w.top_y);
-      }
-      if (uls_all) take_max(all_bays_uls_[n], w);
-      if (qp) take_max(all_bays_qp_[n], w);
-    }
+    const bool uls = set.is_uls(c), uls_all = set.is_uls_all_bays(c), qp = set.is_quasi_permanent(c);
+    if (uls) add_to_field(field_, m);
+    if (uls_all || qp)
+      for (std::size_t n = 0; n < nn; ++n) take_max(uls_all ? all_bays_uls_[n] : all_bays_qp_[n], wood_armer(m[n]));
     if (!uls) continue;
     // Line reactions per segment: the largest value per length, and the
     // resultant (each node's value over its tributary length, split at
