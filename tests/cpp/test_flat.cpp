@@ -10,6 +10,7 @@
 #include "armature/flat.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
+#include "request_problems.hpp"
 #include "armature/request.hpp"
 
 using nlohmann::json;
@@ -50,22 +51,8 @@ const ColumnRecord& column(const DesignRecord& r, const std::string& name) {
   throw std::runtime_error("no " + name);
 }
 
-std::vector<std::string> problem_fields(const json& request) {
-  try {
-    design(registry(), request);
-  } catch (const InputError& e) {
-    std::vector<std::string> out;
-    for (const auto& p : e.problems()) out.push_back(p.field + ": " + p.message);
-    return out;
-  }
-  return {};
-}
-
-bool has_problem(const std::vector<std::string>& problems, const std::string& field, const std::string& text = "") {
-  return std::any_of(problems.begin(), problems.end(), [&](const std::string& p) {
-    return p.rfind(field + ": ", 0) == 0 && p.find(text) != std::string::npos;
-  });
-}
+std::vector<std::string> problem_fields(const json& request) { return testing::problem_fields(registry(), request); }
+using testing::has_problem;
 
 Request parsed(const json& j) {
   InputProblems problems;
@@ -588,4 +575,31 @@ TEST_CASE("Flat: transfer bands recorded, free columns warned", "[flat]") {
   REQUIRE(t != r.plate->transfers.end());
   CHECK(t->M_per_m_Nmm == Approx(t->share * t->M_column_Nmm / 800.0 * 1000.0));
   CHECK(t->clause.find("9.4.1(3)") != std::string::npos);
+}
+
+// slab.columns.shear_reinforcement "none": where the concrete alone does
+// not carry the punching shear, the check against it fails (EN 6.4.4 vRd,c)
+// and no links are designed; "links" (the default) designs them.
+TEST_CASE("Flat: punching without shear reinforcement when asked", "[flat]") {
+  json req = flat_request("EN1992-1-1", {6.0, 6.0}, {6.0, 6.0}, json::object(), 200);
+  const DesignRecord with = design(registry(), req);
+  const ColumnRecord& c = column(with, "column 2,2");
+  REQUIRE(c.punching.reinforcement_needed);
+  CHECK(c.punching.reinforcement.has_value());
+  req["slab"]["columns"]["shear_reinforcement"] = "none";
+  const DesignRecord without = design(registry(), req);
+  const ColumnRecord& n = column(without, "column 2,2");
+  CHECK_FALSE(n.punching.reinforcement.has_value());
+  CHECK_FALSE(n.punching.pass);
+  bool concrete = false;
+  for (const auto& k : n.punching.checks)
+    if (k.id == "punching") {
+      CHECK(k.capacity == Approx(n.punching.v_concrete_MPa));
+      CHECK_FALSE(k.pass);
+      concrete = true;
+    }
+  CHECK(concrete);
+  CHECK_FALSE(without.pass);
+  req["slab"]["columns"]["shear_reinforcement"] = "studs";
+  CHECK(has_problem(problem_fields(req), "slab.columns.shear_reinforcement", "\"links\" or \"none\""));
 }

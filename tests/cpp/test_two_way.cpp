@@ -9,6 +9,7 @@
 #include "armature/design.hpp"
 #include "armature/json_io.hpp"
 #include "armature/registry.hpp"
+#include "request_problems.hpp"
 #include "armature/summary.hpp"
 #include "armature/two_way.hpp"
 
@@ -40,22 +41,8 @@ const RegionRecord& region(const DesignRecord& r, const std::string& where, BarD
   throw std::runtime_error("no region " + where + " " + to_string(d));
 }
 
-std::vector<std::string> problem_fields(const json& request) {
-  try {
-    design(registry(), request);
-  } catch (const InputError& e) {
-    std::vector<std::string> out;
-    for (const auto& p : e.problems()) out.push_back(p.field + ": " + p.message);
-    return out;
-  }
-  return {};
-}
-
-bool has_problem(const std::vector<std::string>& problems, const std::string& field, const std::string& text = "") {
-  return std::any_of(problems.begin(), problems.end(), [&](const std::string& p) {
-    return p.rfind(field + ": ", 0) == 0 && p.find(text) != std::string::npos;
-  });
-}
+std::vector<std::string> problem_fields(const json& request) { return testing::problem_fields(registry(), request); }
+using testing::has_problem;
 
 Action action(const char* name, ActionKind kind, const char* category, Distribution d, double value) {
   Action a;

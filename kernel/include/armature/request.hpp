@@ -190,6 +190,9 @@ struct ColumnsInput {
   // column on that side. Both 0: the columns are free to turn (none given).
   double below_mm = 0.0, above_mm = 0.0;
   bool restrained() const { return below_mm > 0.0 || above_mm > 0.0; }
+  // shear_reinforcement: "links" (the default: links or stirrups where the
+  // concrete alone does not carry the punching shear) or "none".
+  bool shear_reinforcement = true;
 };
 
 // The geometry and analysis options of a two-way slab (slab.x_spans_m,

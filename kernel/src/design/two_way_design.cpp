@@ -189,6 +189,7 @@ std::vector<ColumnRecord> column_checks(const SlabChecker& checker, const CodeId
       d.M_y_Nmm = col.M_y_Nmm;
     }
     d.braced_regular_spans = plate.regular_spans();
+    d.shear_reinforcement_allowed = req.two_way.columns.shear_reinforcement;
     ColumnRecord c;
     c.name = col.name;
     c.x_mm = col.x_mm;

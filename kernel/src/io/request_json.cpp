@@ -777,11 +777,16 @@ std::string not_yet(const Request& req) {
   return std::string("not available yet for ") + (req.slab_type == SlabType::flat ? "flat" : "two_way") + " slabs";
 }
 
-// slab.columns of a flat slab: size_mm [along x, along y], and height_m,
-// the storey heights below and above (one number: both; [below, above]; 0
-// on a side: no column there).
+// slab.columns of a flat slab: size_mm [along x, along y], height_m, the
+// storey heights below and above (one number: both; [below, above]; 0 on
+// a side: no column there), and shear_reinforcement ("links" or "none").
 void read_columns(const json& j, InputProblems& problems, ColumnsInput& c) {
-  ObjectReader r(j, "slab.columns", problems, {"size_mm", "height_m"});
+  ObjectReader r(j, "slab.columns", problems, {"size_mm", "height_m", "shear_reinforcement"});
+  if (auto s = r.text("shear_reinforcement")) {
+    if (*s == "links") c.shear_reinforcement = true;
+    else if (*s == "none") c.shear_reinforcement = false;
+    else problems.add("slab.columns.shear_reinforcement", "must be \"links\" or \"none\", got \"" + *s + "\"");
+  }
   if (const json* size = r.array("size_mm", true)) {
     if (size->size() != 2) {
       problems.add("slab.columns.size_mm", "must list the column's two sides [along x, along y] in mm, got " +
