@@ -121,8 +121,11 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     // Minimum thickness (7.3.1.1), calculated (24.2), or both; a check
     // carries its method only when the request names one.
     const auto& sv = req_.serviceability;
-    const bool calculated = sv.calculated_deflection() && g.long_term_span &&
-                            (g.span_kind != SpanKind::cantilever || (g.back_span && g.back_service_span));
+    // A cantilever turns with its back span at both load levels, or from a
+    // built-in root where the strip has no other span.
+    const bool calculated =
+        sv.calculated_deflection() && g.long_term_span &&
+        (g.span_kind != SpanKind::cantilever || (g.back_span && g.back_service_span) || (!g.back_span && g.service_span));
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection", [&] {
@@ -263,21 +266,28 @@ void Checker::cantilever_deflection_check(CheckCollector& span, const Section& s
   const double Mcr = cracking_moment(rupture_modulus(), Ig, h / 2.0);
   const double Icr = cracked_section(b, As, d, n).Icr;
   const bool at_start = g.cantilever_root_at_start;
-  auto tip = [&](const SpanForces& cant, const SpanForces& back, double Ie) {
+  // The tip from the root, which turns with the back span (none: a
+  // cantilever of one span, its root built in).
+  auto tip = [&](const SpanForces& cant, const SpanForces* back, double Ie) {
     const double EIe = Ec * Ie, EIg = Ec * Ig;
     const auto k_back = [EIe, EIg](double M) { return M <= 0.0 ? M / EIe : M / EIg; };
-    const SpanDeflection bs = span_deflection(back, k_back, 0.0005);
-    const double root = at_start ? bs.slope_end : bs.slope_start;
+    double root = 0.0;
+    if (back) {
+      const SpanDeflection bs = span_deflection(*back, k_back, 0.0005);
+      root = at_start ? bs.slope_end : bs.slope_start;
+    }
     return cantilever_deflection(cant, [EIe](double M) { return M / EIe; }, at_start, root).max_mm;
   };
+  const SpanForces* back_D = g.back_span ? &*g.back_span : nullptr;
+  const SpanForces* back_DL = g.back_service_span ? &*g.back_service_span : nullptr;
   auto root_moment = [](const SpanForces& f) { return std::max(-std::min(f.M_left, f.M_right()), 0.0); };
   const double Ma_D = root_moment(*g.long_term_span), Ma_DL = root_moment(*g.service_span);
   const double Ie_D = effective_moment_of_inertia(Ma_D, Mcr, Ig, Icr);
   const double Ie_DL = effective_moment_of_inertia(Ma_DL, Mcr, Ig, Icr);
-  double d_D = tip(*g.long_term_span, *g.back_span, Ie_D);
-  if (g.back_span_unloaded) d_D = std::max(d_D, tip(*g.long_term_span, *g.back_span_unloaded, Ie_D));
-  double d_DL = tip(*g.service_span, *g.back_service_span, Ie_DL);
-  if (g.back_service_span_unloaded) d_DL = std::max(d_DL, tip(*g.service_span, *g.back_service_span_unloaded, Ie_DL));
+  double d_D = tip(*g.long_term_span, back_D, Ie_D);
+  if (g.back_span_unloaded) d_D = std::max(d_D, tip(*g.long_term_span, &*g.back_span_unloaded, Ie_D));
+  double d_DL = tip(*g.service_span, back_DL, Ie_DL);
+  if (g.back_service_span_unloaded) d_DL = std::max(d_DL, tip(*g.service_span, &*g.back_service_span_unloaded, Ie_DL));
   const double live = std::max(d_DL - d_D, 0.0);
   const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
   const double long_term = lambda_delta * d_D + live;
@@ -294,8 +304,9 @@ void Checker::cantilever_deflection_check(CheckCollector& span, const Section& s
     st.add("Ma (D + L)", "moment at the support", "", moment_v(Ma_DL), moment_u(), "ACI 318-19 24.2.3.7");
     st.add("Ie (D + L)", "Table 24.2.3.5 at Ma (D + L)", "", us_ ? Ie_DL / std::pow(mm_per_in, 4) : Ie_DL * 1e-6,
            us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 Table 24.2.3.5");
-    st.add("Δ (D)", "at the tip, from the root, which turns with the back span (its sagging with Ig)", "",
-           len_v(d_D), len_u(), "ACI 318-19 24.2.3.1");
+    st.add("Δ (D)", back_D ? "at the tip, from the root, which turns with the back span (its sagging with Ig)"
+                           : "at the tip, from the built-in root (a strip of one span, its end fixed)",
+           "", len_v(d_D), len_u(), "ACI 318-19 24.2.3.1");
     st.add("Δ (D + L)", "likewise; live load on every span or on the cantilever only, the worse", "",
            len_v(d_DL), len_u(), "ACI 318-19 24.2.3.1");
   };

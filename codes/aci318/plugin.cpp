@@ -206,17 +206,10 @@ std::string unknown_bar_message(const std::string& name, bool us) {
             : "unknown bar '" + name + "'; ACI 318 bars are #3 to #11 (or No.10 to No.36)";
 }
 
-// The calculated deflection (24.2): a cantilever needs a back span (its
-// root turns with it); the creep and shrinkage inputs are EN's (24.2.4
-// takes ξ of Table 24.2.4.1.3 instead): refused, not ignored.
+// The calculated deflection (24.2): the creep and shrinkage inputs are
+// EN's (24.2.4 takes ξ of Table 24.2.4.1.3 instead): refused, not ignored.
 void add_deflection_input_problems(const Request& req, InputProblems& problems) {
   const auto& s = req.serviceability;
-  if (s.calculated_deflection() && req.slab.spans_mm.size() < 2)
-    for (std::size_t k = 0; k < 2; ++k)
-      if (req.slab.ends[k] == EndSupport::free)
-        problems.add("serviceability.deflection",
-                     "a cantilever's calculated deflection starts from its back span's rotation; slab.ends[" +
-                         std::to_string(k) + "] is free on a strip of one span: give \"span_depth\"");
   const std::pair<const char*, bool> keys[] = {
       {"creep_coefficient", s.creep_coefficient.has_value()},
       {"shrinkage_strain", s.shrinkage_strain.has_value()},

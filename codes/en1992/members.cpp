@@ -161,8 +161,9 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
   if (!g.span_where.empty()) {
     CheckCollector span(out.span_checks, out.verdict, detail);
     const auto& sv = req_.serviceability;
-    const bool calculated = sv.calculated_deflection() && g.long_term_span &&
-                            (g.span_kind != SpanKind::cantilever || g.back_span.has_value());
+    // A cantilever turns with its back span, or from a built-in root
+    // where the strip has no other span.
+    const bool calculated = sv.calculated_deflection() && g.long_term_span.has_value();
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection",
@@ -410,16 +411,20 @@ void Checker::cantilever_deflection_check(CheckCollector& checks, const Section&
   const CreepShrinkage& c = long_term_;
   // The back span with every span loaded, and with the variable actions on
   // the cantilever only (its root then turns back the least): the worse.
-  std::vector<const SpanForces*> backs{&*g.back_span};
+  // None (null): a cantilever of one span, its root built in.
+  std::vector<const SpanForces*> backs{g.back_span ? &*g.back_span : nullptr};
   if (g.back_span_unloaded) backs.push_back(&*g.back_span_unloaded);
-  auto tip_of = [&](const LongTermSection& s, const SpanForces& back_forces, double* root_out) {
+  auto tip_of = [&](const LongTermSection& s, const SpanForces* back_forces, double* root_out) {
     // Hogging magnitude m ≥ 0 as the flipped section's sagging.
     const auto hog = [&s](double M) { return -s.curvature(-M); };
     const auto back = [&s](double M) {
       return M <= 0.0 ? -s.curvature(-M) : M / (s.Ec_eff * s.uncracked.I) - s.kcs_I;
     };
-    const SpanDeflection bs = span_deflection(back_forces, back, integration_tolerance * 0.1, {-s.Mcr});
-    const double root_slope = g.cantilever_root_at_start ? bs.slope_end : bs.slope_start;
+    double root_slope = 0.0;
+    if (back_forces) {
+      const SpanDeflection bs = span_deflection(*back_forces, back, integration_tolerance * 0.1, {-s.Mcr});
+      root_slope = g.cantilever_root_at_start ? bs.slope_end : bs.slope_start;
+    }
     if (root_out) *root_out = g.cantilever_root_at_start ? root_slope : -root_slope;
     return cantilever_deflection(*g.long_term_span, hog, g.cantilever_root_at_start, root_slope,
                                  integration_tolerance, {-s.Mcr});
@@ -430,7 +435,7 @@ void Checker::cantilever_deflection_check(CheckCollector& checks, const Section&
   SpanDeflection w;
   for (std::size_t k = 0; k < backs.size(); ++k) {
     double theta = 0.0;
-    SpanDeflection wk = tip_of(total, *backs[k], &theta);
+    SpanDeflection wk = tip_of(total, backs[k], &theta);
     if (k == 0 || wk.max_mm > w.max_mm) {
       w = std::move(wk);
       theta_root = theta;
@@ -456,12 +461,16 @@ void Checker::cantilever_deflection_check(CheckCollector& checks, const Section&
                st.add("Mcr", "fctm I_I/(h − x_I), tension at the top", "", total.Mcr * 1e-6, "kNm",
                       "EN 1992-1-1 7.4.3(3)");
                st.add("M_root", "quasi-permanent hogging at the root", "", M_root * 1e-6, "kNm", "EN 1990 (6.16b)");
-               st.add("θ_root", std::string("rotation of the back span at the root, tip down positive, with ") +
-                                    (governing == 0 ? "every span loaded"
-                                                    : "the variable actions on the cantilever only (the worse)") +
-                                    ": its curvature integrated between its supports (hogging: these top bars; "
-                                    "sagging: uncracked, on the safe side)",
-                      "", theta_root * 1e3, "mrad", "EN 1992-1-1 7.4.3(7)");
+               if (g.back_span)
+                 st.add("θ_root", std::string("rotation of the back span at the root, tip down positive, with ") +
+                                      (governing == 0 ? "every span loaded"
+                                                      : "the variable actions on the cantilever only (the worse)") +
+                                      ": its curvature integrated between its supports (hogging: these top bars; "
+                                      "sagging: uncracked, on the safe side)",
+                        "", theta_root * 1e3, "mrad", "EN 1992-1-1 7.4.3(7)");
+               else
+                 st.add("θ_root", "the root built in (a strip of one span, its end fixed)", "", 0.0, "mrad",
+                        "EN 1992-1-1 7.4.3(7)");
                st.add("δ", "θ_root × length + double integration of 1/r from the root", "at the tip", w.max_mm,
                       "mm", "EN 1992-1-1 7.4.3(7)");
                st.add("δ_lim", "length/250", num(g.span_mm) + "/250", limit, "mm", "EN 1992-1-1 7.4.1(4)");
@@ -475,7 +484,7 @@ void Checker::cantilever_deflection_check(CheckCollector& checks, const Section&
   // the deflections as they are (a tip that rose at t_p counts its rise).
   double increment = 0.0, w_inf = 0.0, w_tp = 0.0;
   for (const SpanForces* bk : backs) {
-    const SpanDeflection a = tip_of(later, *bk, nullptr), e = tip_of(early, *bk, nullptr);
+    const SpanDeflection a = tip_of(later, bk, nullptr), e = tip_of(early, bk, nullptr);
     const double inc = largest_increment(a, e).first;
     if (inc >= increment) {
       increment = inc;

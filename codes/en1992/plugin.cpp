@@ -143,12 +143,6 @@ void add_deflection_input_problems(const Request& req, InputProblems& problems) 
                      "\"both\", or leave the field out");
     return;
   }
-  if (req.slab.spans_mm.size() < 2)
-    for (std::size_t k = 0; k < 2; ++k)
-      if (req.slab.ends[k] == EndSupport::free)
-        problems.add("serviceability.deflection",
-                     "a cantilever's calculated deflection starts from its back span's rotation; slab.ends[" +
-                         std::to_string(k) + "] is free on a strip of one span: give \"span_depth\"");
   const double t0 = s.age_at_loading_days.value_or(default_age_at_loading_days);
   const double tp = s.partitions_age_days.value_or(default_partitions_age_days);
   if (s.partitions && tp <= t0)

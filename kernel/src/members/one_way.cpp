@@ -334,6 +334,16 @@ std::vector<RegionDemand> OneWayStrip::design_regions(const RegionRules& rules,
                 }
               }
               g.cantilever_root_at_start = e == j;  // the cantilever starts at support j
+            } else if (n == 1) {
+              // A cantilever of one span: its root is built in (fixed end),
+              // no back span turns it.
+              for (const auto& c : long_term_)
+                if (!g.long_term_span || c.spans[e].min_moment() < g.long_term_span->min_moment())
+                  g.long_term_span = c.spans[e];
+              for (const auto& c : service_)
+                if (!g.service_span || c.spans[e].min_moment() < g.service_span->min_moment())
+                  g.service_span = c.spans[e];
+              g.cantilever_root_at_start = e == j;
             }
           }
         }
