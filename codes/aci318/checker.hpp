@@ -86,6 +86,15 @@ class Checker final : public SlabChecker,
   void deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
   void calculated_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const;
   void cantilever_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const;
+  // 24.2.3.5 of a section for calculated deflection, with the outer bars
+  // of `tension_face` in tension: Ec, fr, n = Es/Ec, Ig, Mcr = fr Ig/(h/2)
+  // and the cracked section with n As.
+  struct DeflectionSection {
+    double b = 0.0, h = 0.0, d = 0.0, As = 0.0;
+    double Ec = 0.0, fr = 0.0, n = 0.0, Ig = 0.0, Mcr = 0.0;
+    CrackedSection cracked{};
+  };
+  DeflectionSection deflection_section(const Section& sec, Face tension_face) const;
   struct DeflectionPair {
     double sustained = 0.0, all = 0.0;  // Δ(D), Δ(D + L)
   };

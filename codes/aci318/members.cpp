@@ -148,6 +148,22 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
   return out;
 }
 
+Checker::DeflectionSection Checker::deflection_section(const Section& sec, Face tension_face) const {
+  const SectionLayer& layer = sec.outer_layer(tension_face);
+  DeflectionSection ds;
+  ds.b = sec.b_mm;
+  ds.h = sec.h_mm;
+  ds.d = layer.d_mm;
+  ds.As = layer.area_mm2(ds.b);
+  ds.Ec = concrete_modulus();
+  ds.fr = rupture_modulus();
+  ds.n = reinforcement_modulus() / ds.Ec;
+  ds.Ig = gross_moment_of_inertia(ds.b, ds.h);
+  ds.Mcr = cracking_moment(ds.fr, ds.Ig, ds.h / 2.0);
+  ds.cracked = cracked_section(ds.b, ds.As, ds.d, ds.n);
+  return ds;
+}
+
 // 24.2 (values from memory of ACI 318-19): immediate deflections under D
 // and D + L with Ie of Table 24.2.3.5, each load level's Ie from its own
 // largest positive moment in the span (the midspan section, 24.2.3.6),
@@ -155,12 +171,9 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
 // the kernel; the live part by difference; long term by 24.2.4.1 with
 // ρ' = 0. The sustained load is the plug-in's sustained combination (D).
 void Checker::calculated_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const {
-  const SectionLayer& layer = sec.outer_layer(Face::bottom);
-  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
-  const double Ec = concrete_modulus(), fr = rupture_modulus(), Es = reinforcement_modulus(), n = Es / Ec;
-  const double Ig = gross_moment_of_inertia(b, h);
-  const double Mcr = cracking_moment(fr, Ig, h / 2.0);
-  const CrackedSection cr = cracked_section(b, As, d, n);
+  const DeflectionSection ds = deflection_section(sec, Face::bottom);
+  const double b = ds.b, h = ds.h, d = ds.d, As = ds.As, Ec = ds.Ec, fr = ds.fr, n = ds.n, Ig = ds.Ig, Mcr = ds.Mcr;
+  const CrackedSection& cr = ds.cracked;
   const SpanForces& sustained = *g.long_term_span;
   const SpanForces& service = g.service_span ? *g.service_span : sustained;
   struct Level {
@@ -214,12 +227,8 @@ std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, co
   if (!req_.serviceability.calculated_deflection() || !g.long_term_span || g.span_kind == SpanKind::cantilever ||
       g.direction != BarDirection::span)
     return std::nullopt;
-  const SectionLayer& layer = sec.outer_layer(Face::bottom);
-  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
-  const double Ec = concrete_modulus(), n = reinforcement_modulus() / Ec;
-  const double Ig = gross_moment_of_inertia(b, h);
-  const double Mcr = cracking_moment(rupture_modulus(), Ig, h / 2.0);
-  const double Icr = cracked_section(b, As, d, n).Icr;
+  const DeflectionSection ds = deflection_section(sec, Face::bottom);
+  const double Ec = ds.Ec, Ig = ds.Ig, Mcr = ds.Mcr, Icr = ds.cracked.Icr;
   const SpanForces& sustained = *g.long_term_span;
   const SpanForces& service = g.service_span ? *g.service_span : sustained;
   auto EI_of = [&](const SpanForces& f) {
@@ -259,12 +268,8 @@ std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, co
 // Immediate live by difference against ℓ/360, long term λΔ Δ(D) + live
 // against ℓ/240 or ℓ/480, ℓ the cantilever's length.
 void Checker::cantilever_deflection_check(CheckCollector& span, const Section& sec, const RegionDemand& g) const {
-  const SectionLayer& layer = sec.outer_layer(Face::top);
-  const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
-  const double Ec = concrete_modulus(), n = reinforcement_modulus() / Ec;
-  const double Ig = gross_moment_of_inertia(b, h);
-  const double Mcr = cracking_moment(rupture_modulus(), Ig, h / 2.0);
-  const double Icr = cracked_section(b, As, d, n).Icr;
+  const DeflectionSection ds = deflection_section(sec, Face::top);
+  const double Ec = ds.Ec, Ig = ds.Ig, Mcr = ds.Mcr, Icr = ds.cracked.Icr;
   const bool at_start = g.cantilever_root_at_start;
   // The tip from the root, which turns with the back span (none: a
   // cantilever of one span, its root built in).
@@ -296,7 +301,7 @@ void Checker::cantilever_deflection_check(CheckCollector& span, const Section& s
     st.add("Ig", "b h³/12", "", us_ ? Ig / std::pow(mm_per_in, 4) : Ig * 1e-6, us_ ? "in4" : "10⁶ mm⁴",
            "ACI 318-19 24.2.3.5");
     st.add("Mcr", "fr Ig/yt, yt = h/2", "", moment_v(Mcr), moment_u(), "ACI 318-19 24.2.3.5");
-    st.add("Icr", "b x³/3 + n As (d − x)², the top bars", "As = " + area(As) + ", d = " + len(d),
+    st.add("Icr", "b x³/3 + n As (d − x)², the top bars", "As = " + area(ds.As) + ", d = " + len(ds.d),
            us_ ? Icr / std::pow(mm_per_in, 4) : Icr * 1e-6, us_ ? "in4" : "10⁶ mm⁴", "ACI 318-19 24.2.3.5");
     st.add("Ma (D)", "moment at the support", "", moment_v(Ma_D), moment_u(), "ACI 318-19 24.2.3.7");
     st.add("Ie (D)", "Table 24.2.3.5 at Ma (D)", "", us_ ? Ie_D / std::pow(mm_per_in, 4) : Ie_D * 1e-6,

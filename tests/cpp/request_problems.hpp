@@ -14,6 +14,12 @@
 
 namespace armature::testing {
 
+// The registry of the build tree's code plug-ins, one per test program.
+inline Registry& build_registry() {
+  static Registry reg({ARMATURE_CODE_DIR});
+  return reg;
+}
+
 // Every problem of the InputError the design throws; none when it designs.
 inline std::vector<std::string> problem_fields(const Registry& registry, const nlohmann::json& request) {
   try {

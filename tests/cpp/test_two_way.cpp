@@ -17,10 +17,7 @@ using nlohmann::json;
 using namespace armature;
 
 namespace {
-Registry& registry() {
-  static Registry reg({ARMATURE_CODE_DIR});
-  return reg;
-}
+Registry& registry() { return testing::build_registry(); }
 
 json two_way_request(const std::string& code, const std::string& variant, json x_spans, json y_spans,
                      json edges = json::object()) {

@@ -173,6 +173,11 @@ PlateCaseSet plate_case_set(const PlateModel& model, const std::vector<Action>& 
 void start_field(PlateFieldRecord& field, const PlateModel& model, double dx_mm = 0.0, double dy_mm = 0.0);
 void add_to_field(PlateFieldRecord& field, const std::vector<PlateMoments>& node_moments);
 
+// The outer layer of each face (indexed by Face): `requested` ("x" or
+// "y", reinforcement.outer_layer), else the direction of the face's
+// larger design moment among the regions (x on a tie).
+std::array<BarDirection, 2> outer_layers(const std::vector<RegionDemand>& regions, const std::string& requested);
+
 // Name of an outer edge or interior grid line: "edge x0", "edge x1",
 // "grid x2" (the line at x = Σ x_spans[0..2)), "edge y0", "grid y1", ...
 std::string plate_line_name(const SupportLine& line, std::size_t bays_x, std::size_t bays_y);

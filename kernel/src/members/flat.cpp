@@ -335,8 +335,9 @@ std::size_t FlatPlate::analyse(const std::vector<Action>& actions, const std::ve
         const auto& s = t.sections.front();
         for (const auto& r : reactions[l]) {
           const double b = along_x ? r.y_mm : r.x_mm;
-          if (b >= s.from_mm - 1e-6 && b <= s.to_mm + 1e-6)
-            t.demand.supports.resize(1), t.demand.supports[0].V_Ed = std::max(t.demand.supports[0].V_Ed, r.N_per_mm * per_metre);
+          if (b < s.from_mm - 1e-6 || b > s.to_mm + 1e-6) continue;
+          if (t.demand.supports.empty()) t.demand.supports.push_back({t.demand.where, 0.0});
+          t.demand.supports[0].V_Ed = std::max(t.demand.supports[0].V_Ed, r.N_per_mm * per_metre);
         }
       }
     }
@@ -460,23 +461,7 @@ std::vector<RegionDemand> FlatPlate::design_regions(double pinned_edge_fraction,
                            "one way, beyond the span/depth rules for flat slab panels (ACI 318-19 8.3.1.1 is limited "
                            "to a ratio of 2); check its deflection by calculation");
     }
-  // The outer layer of each face: the request's, else the direction of the
-  // face's larger design moment (x on a tie).
-  for (const Face face : {Face::bottom, Face::top}) {
-    BarDirection dir = BarDirection::x;
-    if (requested_outer_ == "y") {
-      dir = BarDirection::y;
-    } else if (requested_outer_.empty()) {
-      double mx = 0.0, my = 0.0;
-      for (const auto& g : out)
-        if (g.face == face) {
-          double& m = g.direction == BarDirection::x ? mx : my;
-          m = std::max(m, g.M_Ed);
-        }
-      dir = my > mx ? BarDirection::y : BarDirection::x;
-    }
-    outer_[static_cast<std::size_t>(face)] = dir;
-  }
+  outer_ = outer_layers(out, requested_outer_);
   return out;
 }
 

@@ -114,6 +114,26 @@ void add_to_field(PlateFieldRecord& field, const std::vector<PlateMoments>& m) {
   }
 }
 
+std::array<BarDirection, 2> outer_layers(const std::vector<RegionDemand>& regions, const std::string& requested) {
+  std::array<BarDirection, 2> out{BarDirection::x, BarDirection::x};
+  for (const Face face : {Face::bottom, Face::top}) {
+    BarDirection dir = BarDirection::x;
+    if (requested == "y") {
+      dir = BarDirection::y;
+    } else if (requested.empty()) {
+      double mx = 0.0, my = 0.0;
+      for (const auto& g : regions)
+        if (g.face == face) {
+          double& m = g.direction == BarDirection::x ? mx : my;
+          m = std::max(m, g.M_Ed);
+        }
+      dir = my > mx ? BarDirection::y : BarDirection::x;
+    }
+    out[static_cast<std::size_t>(face)] = dir;
+  }
+  return out;
+}
+
 bool is_plate_corner_name(const std::string& where) { return where.rfind("corner ", 0) == 0; }
 
 std::string plate_bay_name(std::size_t i, std::size_t j) {
@@ -494,20 +514,7 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
       }
     }
   }
-  // The outer layer of each face: the request's, else the direction of the
-  // face's larger design moment (x on a tie).
-  for (const Face face : {Face::bottom, Face::top}) {
-    BarDirection dir = BarDirection::x;
-    if (requested_outer_ == "y") {
-      dir = BarDirection::y;
-    } else if (requested_outer_.empty()) {
-      double mx = 0.0, my = 0.0;
-      for (const auto& g : out)
-        if (g.face == face) (g.direction == BarDirection::x ? mx : my) = std::max(g.direction == BarDirection::x ? mx : my, g.M_Ed);
-      dir = my > mx ? BarDirection::y : BarDirection::x;
-    }
-    outer_[static_cast<std::size_t>(face)] = dir;
-  }
+  outer_ = outer_layers(out, requested_outer_);
   return out;
 }
 
