@@ -1104,3 +1104,67 @@ TEST_CASE("Wood–Armer steel resists the normal moment in every direction", "[p
     if (d.top_x + d.top_y > 0) CHECK(top_slack < 0.01 * (d.top_x + d.top_y));
   }
 }
+
+// ---- cracked (orthotropic) analysis -----------------------------------------
+
+namespace {
+std::vector<armature::ElementRigidity> uniform_rigidity(const PlateModel& model, double Dx, double Dy,
+                                                        double kx0 = 0.0, double ky0 = 0.0) {
+  return std::vector<armature::ElementRigidity>(model.elements_x() * model.elements_y(), {Dx, Dy, kx0, ky0});
+}
+double largest(const std::vector<double>& w) { return *std::max_element(w.begin(), w.end()); }
+}  // namespace
+
+TEST_CASE("Orthotropic solve with equal rigidities is the isotropic plate with nu = 0", "[plate][cracked]") {
+  // The same element energy (ν = 0): the two solutions must agree to
+  // rounding at every node; a simply supported square, Navier (ν = 0)
+  // w = 0.00406 q a⁴/D at the centre (Timoshenko & Woinowsky-Krieger
+  // Table 8, value from memory; the coefficient does not depend on ν).
+  PlateGeometry g = bay(5000.0, 5000.0, 0.0);
+  const PlateModel model(g);
+  const double D = armature::plate_flexural_rigidity(E, h, 0.0);
+  const auto iso = model.solve({uniform(model, q)});
+  const auto ortho = model.solve_orthotropic(uniform_rigidity(model, D, D), uniform(model, q));
+  const auto& xs = model.node_x_mm();
+  for (std::size_t n = 0; n < ortho.w_mm.size(); n += 7)
+    CHECK(ortho.w_mm[n] == Approx(iso.deflection_at(0, xs[n % xs.size()], model.node_y_mm()[n / xs.size()]))
+                               .margin(1e-9));
+  CHECK(largest(ortho.w_mm) == Approx(0.00406 * q * std::pow(5000.0, 4) / D).epsilon(0.005));
+}
+
+TEST_CASE("Orthotropic strip: 5 q L^4/(384 Dx) and a free curvature's k0 L^2/8", "[plate][cracked]") {
+  // Pinned at x0 and x1, free along y0 and y1: with ν = 0 every section
+  // across x is a simply supported beam whatever Dy (beam tables, value
+  // from memory): w = 5 q L⁴/(384 Dx) under q, κ0 L²/8 for a free
+  // curvature κ0 alone; the centre moment q L²/8 under q, 0 under κ0.
+  PlateGeometry g = bay(4500.0, 2000.0, 0.0);
+  g.edges = {EndSupport::pinned, EndSupport::pinned, EndSupport::free, EndSupport::free};
+  const PlateModel model(g);
+  const double L = 4500.0, Dx = 2.0e10, Dy = 7.0e10, k0 = 2.0e-6;
+  const auto loaded = model.solve_orthotropic(uniform_rigidity(model, Dx, Dy), uniform(model, q));
+  CHECK(largest(loaded.w_mm) == Approx(5.0 * q * std::pow(L, 4) / (384.0 * Dx)).epsilon(1e-4));
+  PlateLoadCase none;
+  const auto shrunk = model.solve_orthotropic(uniform_rigidity(model, Dx, Dy, k0, 0.0), none);
+  CHECK(largest(shrunk.w_mm) == Approx(k0 * L * L / 8.0).epsilon(1e-4));
+  // The moment at an element's centre: Hermite elements are exact at the
+  // nodes of a beam, and within one the element's (linear) moment is the
+  // exact one less the element's own fixed-end diagram, q a²/24 at its
+  // centre (beam tables, value from memory), a the element's length.
+  const std::size_t ex = model.elements_x() / 2, ey = model.elements_y() / 2;
+  const double x0 = model.node_x_mm()[ex], a = model.node_x_mm()[ex + 1] - x0, xc = x0 + a / 2.0;
+  const double Mx = q * xc * (L - xc) / 2.0 - q * a * a / 24.0;
+  CHECK(loaded.element_moments[ex + model.elements_x() * ey].mx == Approx(Mx).epsilon(1e-6));
+  CHECK(std::abs(shrunk.element_moments[ex + model.elements_x() * ey].mx) < 1e-6 * Dx * k0);
+  // Softer in x, stiffer in y: the strip's deflection scales with 1/Dx alone.
+  const auto softer = model.solve_orthotropic(uniform_rigidity(model, Dx / 2.0, Dy), uniform(model, q));
+  CHECK(largest(softer.w_mm) == Approx(2.0 * largest(loaded.w_mm)).epsilon(1e-6));
+}
+
+TEST_CASE("Orthotropic solve refuses rigidities it cannot use", "[plate][cracked]") {
+  const PlateModel model(bay(4000.0, 4000.0, 0.0, 4));
+  CHECK_THROWS_AS(model.solve_orthotropic({}, uniform(model, q)), std::invalid_argument);
+  CHECK_THROWS_AS(model.solve_orthotropic(uniform_rigidity(model, 0.0, 1.0e10), uniform(model, q)),
+                  std::invalid_argument);
+  CHECK_THROWS_AS(model.solve_orthotropic(uniform_rigidity(model, 1.0e10, 1.0e10), uniform(model, q), 0.0),
+                  std::invalid_argument);
+}

@@ -197,6 +197,27 @@ struct WoodArmerMoments {
 };
 WoodArmerMoments wood_armer(const PlateMoments& m);
 
+// ---- cracked analysis ------------------------------------------------------------
+
+// One element's rigidities for a calculated deflection (an orthotropic
+// Kirchhoff plate, ν = 0): bending in x and in y (N·mm: moment per unit
+// width over curvature), the twist taking √(Dx Dy)/2 (Huber's
+// orthotropic plate), and the free curvatures (1/mm, sagging positive:
+// shrinkage) the element would take unloaded.
+struct ElementRigidity {
+  double Dx_Nmm = 0.0, Dy_Nmm = 0.0;
+  double free_curvature_x = 0.0, free_curvature_y = 0.0;
+};
+
+// The deflection (mm, downward) at every mesh node (index ix + (node_x
+// count)·iy) and the moments at every element's centre (index ex +
+// elements_x·ey): mx = Dx (κx − κ0x) with κx = −w,xx, likewise my, and
+// mxy = −√(Dx Dy) w,xy.
+struct OrthotropicSolution {
+  std::vector<double> w_mm;
+  std::vector<PlateMoments> element_moments;
+};
+
 // ---- model and field -----------------------------------------------------------
 
 namespace detail {
@@ -252,6 +273,19 @@ class PlateModel {
   // not finite or a bay pressure list of the wrong length (the member must
   // name the field first).
   PlateField solve(const std::vector<PlateLoadCase>& cases) const;
+
+  // Elements along x and y (element (ex, ey) lies between node lines ex,
+  // ex + 1 and ey, ey + 1).
+  std::size_t elements_x() const;
+  std::size_t elements_y() const;
+  // One load case with a rigidity per element (index ex + elements_x·ey)
+  // and the columns' rotational stiffness × column_factor (the state's
+  // modulus over the model's): assembled and factorised anew, the
+  // supports and columns as for solve(). Throws std::invalid_argument on a
+  // list of the wrong length, a rigidity not positive and finite, or a
+  // load as solve() refuses it.
+  OrthotropicSolution solve_orthotropic(const std::vector<ElementRigidity>& elements, const PlateLoadCase& load,
+                                        double column_factor = 1.0) const;
 
  private:
   std::shared_ptr<const detail::PlateMesh> mesh_;

@@ -119,3 +119,31 @@ std::array<double, 256> plate_element_stiffness(double a_mm, double b_mm, double
 }
 
 }  // namespace armature
+
+namespace armature::detail {
+
+// Orthotropic Kirchhoff plate with ν = 0: energy density ½ (Dx w,xx² +
+// Dy w,yy² + Dt (2 w,xy)²), so k = Dx kxx + Dy kyy + Dt ktt; a free
+// curvature κ0 (sagging positive, w,xx = −κ0 unloaded) loads the element
+// with −(Dx κ0x ∫ w,xx + Dy κ0y ∫ w,yy).
+OrthotropicParts orthotropic_parts(double a, double b) {
+  OrthotropicParts p{};
+  for (std::size_t i = 0; i < 4; ++i) {
+    for (std::size_t j = 0; j < 4; ++j) {
+      const ElementShape e = element_shape(a, b, gauss_s[i], gauss_s[j]);
+      const double weight = gauss_w[i] * gauss_w[j] * a * b;
+      for (std::size_t r = 0; r < 16; ++r) {
+        p.ixx[r] += weight * e.wxx[r];
+        p.iyy[r] += weight * e.wyy[r];
+        for (std::size_t c = 0; c < 16; ++c) {
+          p.kxx[16 * r + c] += weight * e.wxx[r] * e.wxx[c];
+          p.kyy[16 * r + c] += weight * e.wyy[r] * e.wyy[c];
+          p.ktt[16 * r + c] += weight * 4.0 * e.wxy[r] * e.wxy[c];
+        }
+      }
+    }
+  }
+  return p;
+}
+
+}  // namespace armature::detail

@@ -47,6 +47,15 @@ std::array<double, 16> element_line_load(double a, double b, PlanAxis runs_along
                                          double from, double to, double q);
 std::array<double, 16> element_point_load(double a, double b, double x, double y, double P);
 
+// The parts of an orthotropic element's stiffness (ν = 0) per unit
+// rigidity, k = Dx kxx + Dy kyy + Dt ktt, and ∫ w,xx dA, ∫ w,yy dA for the
+// load of a free curvature.
+struct OrthotropicParts {
+  std::array<double, 256> kxx, kyy, ktt;
+  std::array<double, 16> ixx, iyy;
+};
+OrthotropicParts orthotropic_parts(double a, double b);
+
 // ---- mesh and solution (plate_mesh.cpp, plate_solve.cpp) -----------------------
 
 struct PlateMesh {

@@ -78,16 +78,16 @@ void factorise_edge_masses(PlateMesh& m) {
   }
 }
 
-}  // namespace
-
-// Triplets of the free dofs from each element (one matrix per bay), the
-// lower triangle only (SimplicialLDLT reads that one).
-void factorise(PlateMesh& m) {
+// The stiffness of the free dofs, lower triangle only (SimplicialLDLT
+// reads that one): each element's matrix (element(ex, ey)) through the
+// constraints, and the columns' rotational stiffness × column_factor.
+template <class ElementMatrix>
+Eigen::SparseMatrix<double> assemble(const PlateMesh& m, ElementMatrix&& element, double column_factor) {
   std::vector<Eigen::Triplet<double>> triplets;
   triplets.reserve(m.elements_x() * m.elements_y() * 136);
   for (std::size_t ey = 0; ey < m.elements_y(); ++ey) {
     for (std::size_t ex = 0; ex < m.elements_x(); ++ex) {
-      const auto& k = m.element_stiffness(ex, ey);
+      const std::array<double, 256>& k = element(ex, ey);
       const auto dofs = m.element_dofs(ex, ey);
       for (std::size_t r = 0; r < 16; ++r) {
         const long fr = m.free_index[dofs[r]];
@@ -117,17 +117,24 @@ void factorise(PlateMesh& m) {
   for (std::size_t k = 0; k < m.column_unknowns.size(); ++k) {
     const PlateColumn& col = m.geometry.columns[k];
     const auto [tx, ty] = m.column_unknowns[k];
-    if (col.k_x_Nmm > 0.0) triplets.emplace_back(static_cast<int>(tx), static_cast<int>(tx), col.k_x_Nmm);
-    if (col.k_y_Nmm > 0.0) triplets.emplace_back(static_cast<int>(ty), static_cast<int>(ty), col.k_y_Nmm);
+    if (col.k_x_Nmm > 0.0) triplets.emplace_back(static_cast<int>(tx), static_cast<int>(tx), column_factor * col.k_x_Nmm);
+    if (col.k_y_Nmm > 0.0) triplets.emplace_back(static_cast<int>(ty), static_cast<int>(ty), column_factor * col.k_y_Nmm);
   }
   const auto size = static_cast<Eigen::Index>(m.free_count);
   Eigen::SparseMatrix<double> K(size, size);
   K.setFromTriplets(triplets.begin(), triplets.end());
-  m.factor.compute(K);
-  if (m.factor.info() != Eigen::Success)
-    throw std::runtime_error(
-        "the plate's stiffness matrix could not be factorised: the supports "
-        "do not hold the slab (a mechanism)");
+  return K;
+}
+
+constexpr const char* mechanism_message =
+    "the plate's stiffness matrix could not be factorised: the supports do not hold the slab (a mechanism)";
+
+}  // namespace
+
+void factorise(PlateMesh& m) {
+  m.factor.compute(
+      assemble(m, [&m](std::size_t ex, std::size_t ey) -> const auto& { return m.element_stiffness(ex, ey); }, 1.0));
+  if (m.factor.info() != Eigen::Success) throw std::runtime_error(mechanism_message);
   factorise_edge_masses(m);
 }
 
@@ -338,6 +345,85 @@ PlateField PlateModel::solve(const std::vector<PlateLoadCase>& cases) const {
     }
   }
   return PlateField(mesh_, std::move(solution));
+}
+
+// ---- the cracked (orthotropic) analysis -------------------------------------------
+
+std::size_t PlateModel::elements_x() const { return mesh_->elements_x(); }
+std::size_t PlateModel::elements_y() const { return mesh_->elements_y(); }
+
+OrthotropicSolution PlateModel::solve_orthotropic(const std::vector<ElementRigidity>& elements,
+                                                  const PlateLoadCase& load, double column_factor) const {
+  const auto& m = *mesh_;
+  const std::size_t ne = m.elements_x() * m.elements_y();
+  if (elements.size() != ne)
+    throw std::invalid_argument("plate rigidities: " + std::to_string(elements.size()) + " given for " +
+                                std::to_string(ne) + " elements");
+  for (const auto& e : elements)
+    if (!(e.Dx_Nmm > 0.0 && e.Dy_Nmm > 0.0 && std::isfinite(e.Dx_Nmm) && std::isfinite(e.Dy_Nmm) &&
+          std::isfinite(e.free_curvature_x) && std::isfinite(e.free_curvature_y)))
+      throw std::invalid_argument("plate rigidities: every element needs positive, finite rigidities");
+  if (!(column_factor > 0.0 && std::isfinite(column_factor)))
+    throw std::invalid_argument("plate rigidities: the columns' stiffness factor must be positive");
+  check_case(m, load, 0);
+  // The parts per element size class, then each element's own matrix.
+  std::vector<detail::OrthotropicParts> parts;
+  parts.reserve(m.class_count());
+  for (std::size_t cy = 0; cy < m.heights.size(); ++cy)
+    for (std::size_t cx = 0; cx < m.widths.size(); ++cx) parts.push_back(detail::orthotropic_parts(m.widths[cx], m.heights[cy]));
+  std::array<double, 256> k{};
+  auto element = [&](std::size_t ex, std::size_t ey) -> const std::array<double, 256>& {
+    const ElementRigidity& r = elements[ex + m.elements_x() * ey];
+    const auto& p = parts[m.element_class(ex, ey)];
+    const double Dt = 0.5 * std::sqrt(r.Dx_Nmm * r.Dy_Nmm);
+    for (std::size_t i = 0; i < 256; ++i) k[i] = r.Dx_Nmm * p.kxx[i] + r.Dy_Nmm * p.kyy[i] + Dt * p.ktt[i];
+    return k;
+  };
+  Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>> factor(detail::assemble(m, element, column_factor));
+  if (factor.info() != Eigen::Success) throw std::runtime_error(detail::mechanism_message);
+
+  const std::size_t dofs = m.free_index.size();
+  std::vector<double> f(dofs, 0.0);
+  element_loads(m, load, [&](std::size_t ex, std::size_t ey, const std::array<double, 16>& fe) {
+    const auto d = m.element_dofs(ex, ey);
+    for (std::size_t i = 0; i < 16; ++i) f[d[i]] += fe[i];
+  });
+  for (std::size_t ey = 0; ey < m.elements_y(); ++ey)
+    for (std::size_t ex = 0; ex < m.elements_x(); ++ex) {
+      const ElementRigidity& r = elements[ex + m.elements_x() * ey];
+      if (r.free_curvature_x == 0.0 && r.free_curvature_y == 0.0) continue;
+      const auto& p = parts[m.element_class(ex, ey)];
+      const auto d = m.element_dofs(ex, ey);
+      for (std::size_t i = 0; i < 16; ++i)
+        f[d[i]] -= r.Dx_Nmm * r.free_curvature_x * p.ixx[i] + r.Dy_Nmm * r.free_curvature_y * p.iyy[i];
+    }
+  Eigen::VectorXd F = Eigen::VectorXd::Zero(static_cast<Eigen::Index>(m.free_count));
+  for (std::size_t i = 0; i < dofs; ++i) m.for_each_unknown(i, [&](long j, double c) { F(j) += c * f[i]; });
+  const Eigen::VectorXd U = factor.solve(F);
+  std::vector<double> u(dofs, 0.0);
+  for (std::size_t i = 0; i < dofs; ++i) m.for_each_unknown(i, [&](long j, double c) { u[i] += c * U(j); });
+
+  OrthotropicSolution out;
+  out.w_mm.resize(m.columns() * m.rows());
+  for (std::size_t n = 0; n < out.w_mm.size(); ++n) out.w_mm[n] = u[detail::dofs_per_node * n + detail::dof_w];
+  out.element_moments.resize(ne);
+  for (std::size_t ey = 0; ey < m.elements_y(); ++ey)
+    for (std::size_t ex = 0; ex < m.elements_x(); ++ex) {
+      const double a = m.node_x[ex + 1] - m.node_x[ex], b = m.node_y[ey + 1] - m.node_y[ey];
+      const auto shape = detail::element_shape(a, b, 0.5, 0.5);
+      const auto d = m.element_dofs(ex, ey);
+      double wxx = 0, wyy = 0, wxy = 0;
+      for (std::size_t i = 0; i < 16; ++i) {
+        wxx += shape.wxx[i] * u[d[i]];
+        wyy += shape.wyy[i] * u[d[i]];
+        wxy += shape.wxy[i] * u[d[i]];
+      }
+      const ElementRigidity& r = elements[ex + m.elements_x() * ey];
+      out.element_moments[ex + m.elements_x() * ey] = {-r.Dx_Nmm * (wxx + r.free_curvature_x),
+                                                       -r.Dy_Nmm * (wyy + r.free_curvature_y),
+                                                       -std::sqrt(r.Dx_Nmm * r.Dy_Nmm) * wxy};
+    }
+  return out;
 }
 
 // ---- the field ---------------------------------------------------------------
