@@ -75,6 +75,9 @@ class Checker final : public SlabChecker,
   CornerRule corner_rule() const override;
   FlatStripRule flat_strip_rule() const override;
   std::optional<SpanDeflection> deflection_diagram(const Section& sec, const RegionDemand& g) const override;
+  std::vector<PlateDeflectionState> plate_deflection_states() const override;
+  PlateSectionResponse plate_section_response(const Section& sec, double M_Nmm, std::size_t state) const override;
+  std::vector<Check> plate_deflection_checks(const PlateDeflectionDemand& d, Detail detail) const override;
 
   // punching.cpp (PunchingRules: ACI 318-19 22.6, 8.4.4.2)
   double steel_ratio_width_mm(const PunchingDemand&, bool) const override { return 0.0; }

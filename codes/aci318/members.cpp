@@ -123,9 +123,13 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     const auto& sv = req_.serviceability;
     // A cantilever turns with its back span at both load levels, or from a
     // built-in root where the strip has no other span.
+    // A plate's panel is calculated by the kernel on the whole plate
+    // (plate_deflection_checks), not here.
+    const bool plate = g.direction != BarDirection::span;
     const bool calculated =
-        sv.calculated_deflection() && g.long_term_span &&
-        (g.span_kind != SpanKind::cantilever || (g.back_span && g.back_service_span) || (!g.back_span && g.service_span));
+        sv.calculated_deflection() &&
+        (plate || (g.long_term_span && (g.span_kind != SpanKind::cantilever || (g.back_span && g.back_service_span) ||
+                                        (!g.back_span && g.service_span))));
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection", [&] {
@@ -136,7 +140,7 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
       if (sv.deflection)
         for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "span_depth";
     }
-    if (calculated && !span.verdict_settled()) {
+    if (calculated && !plate && !span.verdict_settled()) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection", [&] {
         if (g.span_kind == SpanKind::cantilever) cantilever_deflection_check(span, sec, g);
@@ -258,6 +262,70 @@ std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, co
   return out;
 }
 
+// ---- Calculated deflection of two-way and flat slabs (24.2 on a plate) ----------
+// The kernel solves the plate at D and at D + L with each element's Ec Ie
+// (Table 24.2.3.5 from the element's own moment: the plate's counterpart
+// of Ie at every section) and these checks read the panel's nodes: the
+// immediate live deflection Δ(D + L) − Δ(D) and the long-term λΔ Δ(D) +
+// live, each at its largest node.
+namespace {
+enum PlateLevel : std::size_t { plate_dead = 0, plate_service = 1 };
+}  // namespace
+
+std::vector<PlateDeflectionState> Checker::plate_deflection_states() const {
+  if (!req_.serviceability.calculated_deflection()) return {};
+  const double Ec = concrete_modulus();
+  return {{"D (sustained)", LimitState::quasi_permanent, Ec}, {"D + L (service)", LimitState::characteristic, Ec}};
+}
+
+PlateSectionResponse Checker::plate_section_response(const Section& sec, double M, std::size_t) const {
+  const DeflectionSection ds = deflection_section(sec, sec.layers.front().face);
+  const double Ie = effective_moment_of_inertia(M, ds.Mcr, ds.Ig, ds.cracked.Icr);
+  return {ds.Ec * Ie, 0.0, Ie < ds.Ig};
+}
+
+std::vector<Check> Checker::plate_deflection_checks(const PlateDeflectionDemand& d, Detail detail) const {
+  std::vector<Check> out;
+  RegionVerdict verdict;
+  CheckCollector span(out, verdict, detail);
+  if (d.w_mm.size() <= plate_service || d.w_mm.front().empty()) return out;
+  const auto& wD = d.w_mm[plate_dead];
+  const auto& wDL = d.w_mm[plate_service];
+  const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
+  DeflectionPair deltas;
+  double live = 0.0, long_term = 0.0;
+  for (std::size_t n = 0; n < wD.size(); ++n) {
+    deltas.sustained = std::max(deltas.sustained, wD[n]);
+    deltas.all = std::max(deltas.all, wDL[n]);
+    live = std::max(live, wDL[n] - wD[n]);
+    long_term = std::max(long_term, lambda_delta * wD[n] + wDL[n] - wD[n]);
+  }
+  const DeflectionSection ds = deflection_section(d.section, Face::bottom);
+  auto steps = [&](StepRecorder& st) {
+    st.add("Ig", "b h³/12", "", us_ ? ds.Ig / std::pow(mm_per_in, 4) : ds.Ig * 1e-6, us_ ? "in4" : "10⁶ mm⁴",
+           "ACI 318-19 24.2.3.5");
+    st.add("Mcr", "fr Ig/yt, yt = h/2", "", moment_v(ds.Mcr), moment_u(), "ACI 318-19 24.2.3.5");
+    st.add("Icr", "b x³/3 + n As (d − x)², the panel's bottom bars", "As = " + area(ds.As) + ", d = " + len(ds.d),
+           us_ ? ds.cracked.Icr / std::pow(mm_per_in, 4) : ds.cracked.Icr * 1e-6, us_ ? "in4" : "10⁶ mm⁴",
+           "ACI 318-19 24.2.3.5");
+    for (const std::size_t level : {plate_dead, plate_service}) {
+      const auto& it = d.iterations[level];
+      const std::string tag = level == plate_dead ? " (D)" : " (D + L)";
+      st.add("Ma" + tag, "the panel's largest moment per " + std::string(us_ ? "foot" : "metre") + ", every bay loaded",
+             "", moment_v(it.M_max_Nmm), moment_u(), "ACI 318-19 24.2.3.7");
+      st.add("cracked" + tag, "share of the panel's elements with Ma > (2/3) Mcr in x or y", "",
+             it.cracked_share * 100.0, "%", "ACI 318-19 Table 24.2.3.5");
+      st.add("n" + tag, d.model, "change " + num(it.change * 100.0) + " % in the last round",
+             static_cast<double>(it.rounds), "-", "ACI 318-19 24.2.3");
+    }
+    st.add("Δ (D)", "largest in the panel", "", len_v(deltas.sustained), len_u(), "ACI 318-19 24.2.3.1");
+    st.add("Δ (D + L)", "largest in the panel", "", len_v(deltas.all), len_u(), "ACI 318-19 24.2.3.1");
+  };
+  const std::string kind = is_flat_panel(d.span_kind) ? "panel, ℓ its longer span, " : "panel, ℓ its shorter span, ";
+  deflection_checks(span, d.where, kind, deltas, live, long_term, lambda_delta, d.span_mm, steps);
+  return out;
+}
+
 // A cantilever (24.2, values from memory): Ie of Table 24.2.3.5 from the
 // moment at the support (24.2.3.7) with the top bars' Icr, per load level;
 // integrated from its root, which turns with the back span. The back
@@ -334,7 +402,7 @@ void Checker::deflection_checks(CheckCollector& span, const std::string& where, 
              steps(st);
              st.add("ΔL", "Δ(D + L) − Δ(D)", len(deltas.all) + " − " + len(deltas.sustained), len_v(live), len_u(),
                     "ACI 318-19 24.2.3");
-             st.add("Δ_lim", kind.empty() ? "ℓ/360" : "ℓ/360, ℓ the cantilever's length", len(L) + "/360", len_v(L / immediate_live_span_ratio), len_u(),
+             st.add("Δ_lim", kind.empty() ? std::string("ℓ/360") : kind == "cantilever, " ? std::string("ℓ/360, ℓ the cantilever's length") : "ℓ/360 (" + kind.substr(0, kind.size() - 2) + ")", len(L) + "/360", len_v(L / immediate_live_span_ratio), len_u(),
                     "ACI 318-19 Table 24.2.2");
              return st.take();
            });

@@ -118,6 +118,9 @@ class Checker final : public SlabChecker,
   std::vector<Check> equilibrium_checks(const EquilibriumDemand& d, Detail detail) const override;
   double support_design_moment(const RegionDemand& g) const override;
   std::optional<SpanDeflection> deflection_diagram(const Section& sec, const RegionDemand& g) const override;
+  std::vector<PlateDeflectionState> plate_deflection_states() const override;
+  PlateSectionResponse plate_section_response(const Section& sec, double M_Nmm, std::size_t state) const override;
+  std::vector<Check> plate_deflection_checks(const PlateDeflectionDemand& d, Detail detail) const override;
   std::vector<Check> span_checks(const std::string& span_where) const override;
   double pinned_end_fixity_fraction() const override;
   CornerRule corner_rule() const override;
@@ -204,6 +207,9 @@ class Checker final : public SlabChecker,
                         double As_prov) const;
   void calculated_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const;
   void cantilever_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const;
+  void long_term_section_steps(Steps& st, const LongTermSection& s, const std::string& tag, double h) const;
+  void creep_shrinkage_steps(Steps& st, double h) const;
+  void partitions_age_steps(Steps& st) const;
 
   const Ndp& ndp_;       // of the Code, which outlives this checker
   const En1990Factors& en1990_;  // of the Code, likewise

@@ -163,7 +163,10 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
     const auto& sv = req_.serviceability;
     // A cantilever turns with its back span, or from a built-in root
     // where the strip has no other span.
-    const bool calculated = sv.calculated_deflection() && g.long_term_span.has_value();
+    // A plate's panel is calculated by the kernel on the whole plate
+    // (plate_deflection_checks), not here.
+    const bool plate = g.direction != BarDirection::span;
+    const bool calculated = sv.calculated_deflection() && (plate || g.long_term_span.has_value());
     if (sv.deflection_method() != DeflectionMethod::calculated || !calculated) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection",
@@ -171,7 +174,7 @@ MemberSectionOutcome Checker::check_with_section(const Section& sec, const Regio
       if (sv.deflection)
         for (std::size_t i = before; i < out.span_checks.size(); ++i) out.span_checks[i].method = "span_depth";
     }
-    if (calculated && !span.verdict_settled()) {
+    if (calculated && !plate && !span.verdict_settled()) {
       const std::size_t before = out.span_checks.size();
       run_check("deflection", [&] {
         if (g.span_kind == SpanKind::cantilever) cantilever_deflection_check(span, sec, g);
@@ -254,6 +257,84 @@ std::optional<SpanDeflection> Checker::deflection_diagram(const Section& sec, co
                          {total.Mcr, -total.Mcr});
 }
 
+// The section's long-term properties as the record shows them (7.4.3).
+void Checker::long_term_section_steps(Steps& st, const LongTermSection& s, const std::string& tag, double h) const {
+  const double Ecm = secant_modulus_MPa(m_.fck);
+  st.add("Ec,eff" + tag, "Ecm/(1 + φ)", num(Ecm) + "/(1 + " + num(s.Ec_eff > 0 ? Ecm / s.Ec_eff - 1.0 : 0.0) + ")",
+         s.Ec_eff, "MPa", "EN 1992-1-1 7.4.3(5) (7.20)");
+  st.add("αe" + tag, "Es/Ec,eff", num(steel_modulus_MPa) + "/" + num(s.Ec_eff), s.alpha_e, "-",
+         "EN 1992-1-1 7.4.3(5)");
+  st.add("x_I" + tag, "uncracked: b h plus (αe − 1) As at d", "", s.uncracked.x, "mm", "EN 1992-1-1 7.4.3");
+  st.add("I_I" + tag, "uncracked transformed section", "", s.uncracked.I * 1e-6, "10⁶ mm⁴", "EN 1992-1-1 7.4.3");
+  st.add("x_II" + tag, "b x²/2 = αe As (d − x)", "", s.cracked.x, "mm", "EN 1992-1-1 7.4.3");
+  st.add("I_II" + tag, "b x³/3 + αe As (d − x)²", "", s.cracked.I * 1e-6, "10⁶ mm⁴", "EN 1992-1-1 7.4.3");
+  st.add("Mcr" + tag, "fctm I_I/(h − x_I)",
+         num(m_.fctm) + " × " + num(s.uncracked.I * 1e-6) + " × 10⁶/(" + num(h) + " − " + num(s.uncracked.x) + ")",
+         s.Mcr * 1e-6, "kNm", "EN 1992-1-1 7.4.3(3)");
+  st.add("1/r_cs,I" + tag, "εcs αe S_I/I_I, S_I = As (d − x_I)", "", s.kcs_I * 1e6, "1/km",
+         "EN 1992-1-1 7.4.3(6) (7.21)");
+  st.add("1/r_cs,II" + tag, "εcs αe S_II/I_II, S_II = As (d − x_II)", "", s.kcs_II * 1e6, "1/km",
+         "EN 1992-1-1 7.4.3(6) (7.21)");
+}
+
+// Creep and shrinkage of the request (given, or 3.1.4 and Annex B).
+void Checker::creep_shrinkage_steps(Steps& st, double h) const {
+  const CreepShrinkage& c = long_term_;
+  if (c.creep_given) {
+    st.add("φ(∞,t0)", "given (serviceability.creep_coefficient)", "", c.phi_inf, "-", "EN 1992-1-1 3.1.4(2)");
+  } else {
+    st.add("h0", "2 Ac/u, both faces drying", "2 × " + num(h) + " × b/(2 b)", c.h0, "mm", "EN 1992-1-1 3.1.4(5), (B.6)");
+    st.add("fcm", "fck + 8", num(m_.fck) + " + 8", c.fcm, "MPa", "EN 1992-1-1 3.1.2 Table 3.1");
+    st.add("φRH", c.fcm <= 35.0 ? "1 + (1 − RH/100)/(0.1 h0^(1/3))" : "[1 + (1 − RH/100)/(0.1 h0^(1/3)) α1] α2",
+           "RH = " + num(c.RH) + " %, h0 = " + num(c.h0), c.phi_RH, "-",
+           c.fcm <= 35.0 ? "EN 1992-1-1 Annex B (B.3a)" : "EN 1992-1-1 Annex B (B.3b)");
+    st.add("β(fcm)", "16.8/√fcm", "16.8/√" + num(c.fcm), c.beta_fcm, "-", "EN 1992-1-1 Annex B (B.4)");
+    st.add("t0", "t0,T (9/(2 + t0,T^1.2) + 1)^α ≥ 0.5, cement " +
+                     std::string(c.cement == Cement::S ? "S" : c.cement == Cement::N ? "N" : "R"),
+           "t0,T = " + num(c.t0) + " days", c.t0_adj, "days", "EN 1992-1-1 Annex B (B.9)");
+    st.add("β(t0)", "1/(0.1 + t0^0.20)", "1/(0.1 + " + num(c.t0_adj) + "^0.20)", c.beta_t0, "-",
+           "EN 1992-1-1 Annex B (B.5)");
+    st.add("φ(∞,t0)", "φ0 = φRH β(fcm) β(t0)",
+           num(c.phi_RH) + " × " + num(c.beta_fcm) + " × " + num(c.beta_t0), c.phi_inf, "-",
+           "EN 1992-1-1 Annex B (B.1), (B.2)");
+  }
+  if (c.shrinkage_given) {
+    st.add("εcs(∞)", "given (serviceability.shrinkage_strain)", "", c.eps_cs_inf * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6)");
+  } else {
+    if (c.creep_given) st.add("h0", "2 Ac/u, both faces drying", "", c.h0, "mm", "EN 1992-1-1 3.1.4(5)");
+    st.add("εcd,0", "0.85 [(220 + 110 αds1) exp(−αds2 fcm/10)] 10⁻⁶ βRH", "fcm = " + num(c.fcm) + ", RH = " + num(c.RH) + " %",
+           c.eps_cd0 * 1e6, "10⁻⁶", "EN 1992-1-1 Annex B (B.11), (B.12)");
+    st.add("kh", "Table 3.3 at h0", "h0 = " + num(c.h0), c.kh, "-", "EN 1992-1-1 3.1.4(6) Table 3.3");
+    st.add("εcd,∞", "kh εcd,0", num(c.kh) + " × " + num(c.eps_cd0 * 1e6), c.eps_cd_inf * 1e6, "10⁻⁶",
+           "EN 1992-1-1 3.1.4(6) (3.9)");
+    st.add("εca(∞)", "2.5 (fck − 10) 10⁻⁶", "2.5 × (" + num(m_.fck) + " − 10)", c.eps_ca_inf * 1e6, "10⁻⁶",
+           "EN 1992-1-1 3.1.4(6) (3.12)");
+    st.add("εcs(∞)", "εcd,∞ + εca(∞)", num(c.eps_cd_inf * 1e6) + " + " + num(c.eps_ca_inf * 1e6),
+           c.eps_cs_inf * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6) (3.8)");
+  }
+}
+
+// The development of creep and shrinkage to the age the partitions go in.
+void Checker::partitions_age_steps(Steps& st) const {
+  const CreepShrinkage& c = long_term_;
+  st.add("t_p", "age when the partitions are built", "", c.t_p, "days", "serviceability.partitions_age_days");
+  st.add("βH", c.fcm <= 35.0 ? "1.5 [1 + (0.012 RH)^18] h0 + 250 ≤ 1500"
+                           : "1.5 [1 + (0.012 RH)^18] h0 + 250 α3 ≤ 1500 α3",
+         "RH = " + num(c.RH) + " %, h0 = " + num(c.h0), c.beta_H, "-",
+         c.fcm <= 35.0 ? "EN 1992-1-1 Annex B (B.8a)" : "EN 1992-1-1 Annex B (B.8b)");
+  st.add("βc(t_p,t0)", "((t_p − t0)/(βH + t_p − t0))^0.3",
+         "((" + num(c.t_p) + " − " + num(c.t0) + ")/(" + num(c.beta_H) + " + " + num(c.t_p) + " − " + num(c.t0) +
+             "))^0.3",
+         c.beta_c_p, "-", "EN 1992-1-1 Annex B (B.7)");
+  st.add("φ(t_p,t0)", "φ(∞,t0) βc(t_p,t0)", num(c.phi_inf) + " × " + num(c.beta_c_p), c.phi_p, "-",
+         "EN 1992-1-1 Annex B (B.1)");
+  st.add("βds(t_p,ts)", "(t_p − ts)/((t_p − ts) + 0.04 √h0³), ts = " + num(std::min(drying_start_days, c.t0)) + " days",
+         "", c.beta_ds_p, "-", "EN 1992-1-1 3.1.4(6) (3.10)");
+  st.add("βas(t_p)", "1 − exp(−0.2 t_p^0.5)", "", c.beta_as_p, "-", "EN 1992-1-1 3.1.4(6) (3.13)");
+  st.add("εcs(t_p)", "εcs(∞) (βds εcd,∞ + βas εca,∞)/(εcd,∞ + εca,∞)", "", c.eps_cs_p * 1e6, "10⁻⁶",
+         "EN 1992-1-1 3.1.4(6) (3.8)");
+}
+
 void Checker::calculated_deflection_check(CheckCollector& checks, const Section& sec, const RegionDemand& g) const {
   const SectionLayer& layer = sec.outer_layer(Face::bottom);
   const double b = sec.b_mm, h = sec.h_mm, d = layer.d_mm, As = layer.area_mm2(b);
@@ -266,63 +347,11 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
   const double limit = g.span_mm / total_deflection_span_ratio;
   double x_crit = 0.0;
   const double M_crit = qp.max_moment(&x_crit);
-  auto section_steps = [&](Steps& st, const LongTermSection& s, const char* when) {
-    const std::string tag = when;
-    st.add("Ec,eff" + tag, "Ecm/(1 + φ)", num(Ecm) + "/(1 + " + num(s.Ec_eff > 0 ? Ecm / s.Ec_eff - 1.0 : 0.0) + ")",
-           s.Ec_eff, "MPa", "EN 1992-1-1 7.4.3(5) (7.20)");
-    st.add("αe" + tag, "Es/Ec,eff", num(steel_modulus_MPa) + "/" + num(s.Ec_eff), s.alpha_e, "-",
-           "EN 1992-1-1 7.4.3(5)");
-    st.add("x_I" + tag, "uncracked: b h plus (αe − 1) As at d", "", s.uncracked.x, "mm", "EN 1992-1-1 7.4.3");
-    st.add("I_I" + tag, "uncracked transformed section", "", s.uncracked.I * 1e-6, "10⁶ mm⁴", "EN 1992-1-1 7.4.3");
-    st.add("x_II" + tag, "b x²/2 = αe As (d − x)", "", s.cracked.x, "mm", "EN 1992-1-1 7.4.3");
-    st.add("I_II" + tag, "b x³/3 + αe As (d − x)²", "", s.cracked.I * 1e-6, "10⁶ mm⁴", "EN 1992-1-1 7.4.3");
-    st.add("Mcr" + tag, "fctm I_I/(h − x_I)",
-           num(m_.fctm) + " × " + num(s.uncracked.I * 1e-6) + " × 10⁶/(" + num(h) + " − " + num(s.uncracked.x) + ")",
-           s.Mcr * 1e-6, "kNm", "EN 1992-1-1 7.4.3(3)");
-    st.add("1/r_cs,I" + tag, "εcs αe S_I/I_I, S_I = As (d − x_I)", "", s.kcs_I * 1e6, "1/km",
-           "EN 1992-1-1 7.4.3(6) (7.21)");
-    st.add("1/r_cs,II" + tag, "εcs αe S_II/I_II, S_II = As (d − x_II)", "", s.kcs_II * 1e6, "1/km",
-           "EN 1992-1-1 7.4.3(6) (7.21)");
-  };
-  auto creep_steps = [&](Steps& st) {
-    if (c.creep_given) {
-      st.add("φ(∞,t0)", "given (serviceability.creep_coefficient)", "", c.phi_inf, "-", "EN 1992-1-1 3.1.4(2)");
-    } else {
-      st.add("h0", "2 Ac/u, both faces drying", "2 × " + num(h) + " × b/(2 b)", c.h0, "mm", "EN 1992-1-1 3.1.4(5), (B.6)");
-      st.add("fcm", "fck + 8", num(m_.fck) + " + 8", c.fcm, "MPa", "EN 1992-1-1 3.1.2 Table 3.1");
-      st.add("φRH", c.fcm <= 35.0 ? "1 + (1 − RH/100)/(0.1 h0^(1/3))" : "[1 + (1 − RH/100)/(0.1 h0^(1/3)) α1] α2",
-             "RH = " + num(c.RH) + " %, h0 = " + num(c.h0), c.phi_RH, "-",
-             c.fcm <= 35.0 ? "EN 1992-1-1 Annex B (B.3a)" : "EN 1992-1-1 Annex B (B.3b)");
-      st.add("β(fcm)", "16.8/√fcm", "16.8/√" + num(c.fcm), c.beta_fcm, "-", "EN 1992-1-1 Annex B (B.4)");
-      st.add("t0", "t0,T (9/(2 + t0,T^1.2) + 1)^α ≥ 0.5, cement " +
-                       std::string(c.cement == Cement::S ? "S" : c.cement == Cement::N ? "N" : "R"),
-             "t0,T = " + num(c.t0) + " days", c.t0_adj, "days", "EN 1992-1-1 Annex B (B.9)");
-      st.add("β(t0)", "1/(0.1 + t0^0.20)", "1/(0.1 + " + num(c.t0_adj) + "^0.20)", c.beta_t0, "-",
-             "EN 1992-1-1 Annex B (B.5)");
-      st.add("φ(∞,t0)", "φ0 = φRH β(fcm) β(t0)",
-             num(c.phi_RH) + " × " + num(c.beta_fcm) + " × " + num(c.beta_t0), c.phi_inf, "-",
-             "EN 1992-1-1 Annex B (B.1), (B.2)");
-    }
-    if (c.shrinkage_given) {
-      st.add("εcs(∞)", "given (serviceability.shrinkage_strain)", "", c.eps_cs_inf * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6)");
-    } else {
-      if (c.creep_given) st.add("h0", "2 Ac/u, both faces drying", "", c.h0, "mm", "EN 1992-1-1 3.1.4(5)");
-      st.add("εcd,0", "0.85 [(220 + 110 αds1) exp(−αds2 fcm/10)] 10⁻⁶ βRH", "fcm = " + num(c.fcm) + ", RH = " + num(c.RH) + " %",
-             c.eps_cd0 * 1e6, "10⁻⁶", "EN 1992-1-1 Annex B (B.11), (B.12)");
-      st.add("kh", "Table 3.3 at h0", "h0 = " + num(c.h0), c.kh, "-", "EN 1992-1-1 3.1.4(6) Table 3.3");
-      st.add("εcd,∞", "kh εcd,0", num(c.kh) + " × " + num(c.eps_cd0 * 1e6), c.eps_cd_inf * 1e6, "10⁻⁶",
-             "EN 1992-1-1 3.1.4(6) (3.9)");
-      st.add("εca(∞)", "2.5 (fck − 10) 10⁻⁶", "2.5 × (" + num(m_.fck) + " − 10)", c.eps_ca_inf * 1e6, "10⁻⁶",
-             "EN 1992-1-1 3.1.4(6) (3.12)");
-      st.add("εcs(∞)", "εcd,∞ + εca(∞)", num(c.eps_cd_inf * 1e6) + " + " + num(c.eps_ca_inf * 1e6),
-             c.eps_cs_inf * 1e6, "10⁻⁶", "EN 1992-1-1 3.1.4(6) (3.8)");
-    }
-  };
   const double zeta_crit = distribution_coefficient(M_crit, total.Mcr, beta_sustained);
   checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(4) (span/250)", w.max_mm, limit, "mm", [&] {
     Steps st;
-    creep_steps(st);
-    section_steps(st, total, "");
+    creep_shrinkage_steps(st, h);
+    long_term_section_steps(st, total, "", h);
     st.add("M_qp", "largest quasi-permanent moment of the span, all spans loaded",
            "at " + num(x_crit * 1e-3) + " m from its left support", M_crit * 1e-6, "kNm", "EN 1990 (6.16b)");
     st.add("ζ", M_crit > total.Mcr ? "1 − β (Mcr/M)², β = 0.5" : "0 (M ≤ Mcr)",
@@ -360,25 +389,8 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
   checks.add("deflection", g.span_where, "EN 1992-1-1 7.4.3, 7.4.1(5) (span/500 after the partitions)", increment,
              limit_p, "mm", [&] {
                Steps st;
-               st.add("t_p", "age when the partitions are built", "", c.t_p, "days", "serviceability.partitions_age_days");
-               {
-                 st.add("βH", c.fcm <= 35.0 ? "1.5 [1 + (0.012 RH)^18] h0 + 250 ≤ 1500"
-                                          : "1.5 [1 + (0.012 RH)^18] h0 + 250 α3 ≤ 1500 α3",
-                        "RH = " + num(c.RH) + " %, h0 = " + num(c.h0), c.beta_H, "-",
-                        c.fcm <= 35.0 ? "EN 1992-1-1 Annex B (B.8a)" : "EN 1992-1-1 Annex B (B.8b)");
-                 st.add("βc(t_p,t0)", "((t_p − t0)/(βH + t_p − t0))^0.3",
-                        "((" + num(c.t_p) + " − " + num(c.t0) + ")/(" + num(c.beta_H) + " + " + num(c.t_p) + " − " +
-                            num(c.t0) + "))^0.3",
-                        c.beta_c_p, "-", "EN 1992-1-1 Annex B (B.7)");
-               }
-               st.add("φ(t_p,t0)", "φ(∞,t0) βc(t_p,t0)", num(c.phi_inf) + " × " + num(c.beta_c_p), c.phi_p, "-",
-                      "EN 1992-1-1 Annex B (B.1)");
-               st.add("βds(t_p,ts)", "(t_p − ts)/((t_p − ts) + 0.04 √h0³), ts = " + num(std::min(drying_start_days, c.t0)) + " days",
-                      "", c.beta_ds_p, "-", "EN 1992-1-1 3.1.4(6) (3.10)");
-               st.add("βas(t_p)", "1 − exp(−0.2 t_p^0.5)", "", c.beta_as_p, "-", "EN 1992-1-1 3.1.4(6) (3.13)");
-               st.add("εcs(t_p)", "εcs(∞) (βds εcd,∞ + βas εca,∞)/(εcd,∞ + εca,∞)", "", c.eps_cs_p * 1e6, "10⁻⁶",
-                      "EN 1992-1-1 3.1.4(6) (3.8)");
-               section_steps(st, early, " (t_p)");
+               partitions_age_steps(st);
+               long_term_section_steps(st, early, " (t_p)", h);
                st.add("δ(t_p)", "double integration of 1/r at t_p", "", w_p.max_mm, "mm", "EN 1992-1-1 7.4.3(7)");
                if (later.Mcr < total.Mcr)
                  st.add("δ(∞)", "long-term, cracked where cracked at t_p (Mcr = Mcr(t_p) = " + num(later.Mcr * 1e-6) +
@@ -392,6 +404,107 @@ void Checker::calculated_deflection_check(CheckCollector& checks, const Section&
                st.add("δ_lim", "span/500", num(g.span_mm) + "/500", limit_p, "mm", "EN 1992-1-1 7.4.1(5)");
                return st.take();
              });
+}
+
+// ---- Calculated deflection of two-way and flat slabs (7.4.3 on a plate) ---------
+// The kernel solves the plate with each element's secant rigidity from
+// these responses (plate_deflection.cpp); the states: the long term, and
+// with partitions the state at t_p and the long term cracked where it
+// was cracked at t_p (as for a span: the increment is never negative).
+namespace {
+enum PlateState : std::size_t { plate_long_term = 0, plate_at_partitions = 1, plate_long_term_after = 2 };
+}  // namespace
+
+std::vector<PlateDeflectionState> Checker::plate_deflection_states() const {
+  if (!req_.serviceability.calculated_deflection()) return {};
+  const double Ecm = secant_modulus_MPa(m_.fck);
+  const CreepShrinkage& c = long_term_;
+  std::vector<PlateDeflectionState> states{
+      {"long-term (φ(∞,t0), εcs(∞))", LimitState::quasi_permanent, effective_modulus(Ecm, c.phi_inf)}};
+  if (req_.serviceability.partitions) {
+    states.push_back({"when the partitions are built (φ(t_p,t0), εcs(t_p))", LimitState::quasi_permanent,
+                      effective_modulus(Ecm, c.phi_p)});
+    states.push_back({"long-term, cracked where cracked at t_p", LimitState::quasi_permanent,
+                      effective_modulus(Ecm, c.phi_inf)});
+  }
+  return states;
+}
+
+// 7.4.3(3): the secant rigidity 1/(ζ/(Ec,eff I_II) + (1 − ζ)/(Ec,eff I_I))
+// and the shrinkage curvature ζ (1/r_cs)II + (1 − ζ) (1/r_cs)I of the
+// section's bars under M, as a span's section takes them.
+PlateSectionResponse Checker::plate_section_response(const Section& sec, double M, std::size_t state) const {
+  const SectionLayer& layer = sec.layers.front();
+  const double b = sec.b_mm, As = layer.area_mm2(b), Ecm = secant_modulus_MPa(m_.fck);
+  const CreepShrinkage& c = long_term_;
+  const bool early = state == plate_at_partitions;
+  LongTermSection s = long_term_section(b, sec.h_mm, As, layer.d_mm, Ecm, m_.fctm, early ? c.phi_p : c.phi_inf,
+                                        early ? c.eps_cs_p : c.eps_cs_inf);
+  if (state == plate_long_term_after)
+    s.Mcr = std::min(s.Mcr, long_term_section(b, sec.h_mm, As, layer.d_mm, Ecm, m_.fctm, c.phi_p, c.eps_cs_p).Mcr);
+  const double zeta = distribution_coefficient(M, s.Mcr, beta_sustained);
+  const double flexibility = zeta / (s.Ec_eff * s.cracked.I) + (1.0 - zeta) / (s.Ec_eff * s.uncracked.I);
+  return {1.0 / flexibility, interpolated_parameter(zeta, s.kcs_II, s.kcs_I), zeta > 0.0};
+}
+
+std::vector<Check> Checker::plate_deflection_checks(const PlateDeflectionDemand& d, Detail detail) const {
+  std::vector<Check> out;
+  RegionVerdict verdict;
+  CheckCollector checks(out, verdict, detail);
+  if (d.w_mm.empty() || d.w_mm.front().empty()) return out;
+  const auto& w = d.w_mm[plate_long_term];
+  const std::size_t at = static_cast<std::size_t>(std::max_element(w.begin(), w.end()) - w.begin());
+  const double delta = std::max(w[at], 0.0), limit = d.span_mm / total_deflection_span_ratio;
+  const SectionLayer& layer = d.section.layers.front();
+  const double b = d.section.b_mm, h = d.section.h_mm;
+  const CreepShrinkage& c = long_term_;
+  const LongTermSection total = long_term_section(b, h, layer.area_mm2(b), layer.d_mm, secant_modulus_MPa(m_.fck),
+                                                  m_.fctm, c.phi_inf, c.eps_cs_inf);
+  const std::string span_name = is_flat_panel(d.span_kind) ? "the panel's longer span" : "the panel's shorter span";
+  auto where_at = [&](std::size_t n) { return "at x = " + num(d.x_mm[n] * 1e-3) + " m, y = " + num(d.y_mm[n] * 1e-3) + " m"; };
+  auto iteration_steps = [&](Steps& st, std::size_t state, const char* tag) {
+    const auto& it = d.iterations[state];
+    st.add(std::string("M_qp") + tag, "the panel's largest quasi-permanent moment per metre, every bay loaded", "",
+           it.M_max_Nmm * 1e-6, "kNm", "EN 1990 (6.16b)");
+    st.add(std::string("cracked") + tag, "share of the panel's elements with ζ > 0 in x or y", "",
+           it.cracked_share * 100.0, "%", "EN 1992-1-1 7.4.3(3)");
+    st.add(std::string("n") + tag, d.model, "change " + num(it.change * 100.0) + " % in the last round",
+           static_cast<double>(it.rounds), "-", "EN 1992-1-1 7.4.3(3), (7)");
+  };
+  checks.add("deflection", d.where, "EN 1992-1-1 7.4.3, 7.4.1(4) (span/250)", delta, limit, "mm", [&] {
+    Steps st;
+    creep_shrinkage_steps(st, h);
+    long_term_section_steps(st, total, " (bottom bars)", h);
+    iteration_steps(st, plate_long_term, "");
+    const double zeta = distribution_coefficient(d.iterations[plate_long_term].M_max_Nmm, total.Mcr, beta_sustained);
+    st.add("ζ", "1 − β (Mcr/M)², β = 0.5 (0 for M ≤ Mcr), at M_qp with the bottom bars", "", zeta, "-",
+           "EN 1992-1-1 7.4.3(3) (7.19)");
+    st.add("δ", "largest deflection in the panel", where_at(at), delta, "mm", "EN 1992-1-1 7.4.3(7)");
+    st.add("δ_lim", "span/250, " + span_name, num(d.span_mm) + "/250", limit, "mm", "EN 1992-1-1 7.4.1(4)");
+    return st.take();
+  });
+  if (d.w_mm.size() <= plate_long_term_after || checks.verdict_settled()) return out;
+  const auto& w_p = d.w_mm[plate_at_partitions];
+  const auto& w_later = d.w_mm[plate_long_term_after];
+  std::size_t at_p = 0;
+  for (std::size_t n = 1; n < w_p.size(); ++n)
+    if (w_later[n] - w_p[n] > w_later[at_p] - w_p[at_p]) at_p = n;
+  const double increment = std::max(w_later[at_p] - w_p[at_p], 0.0);
+  const double limit_p = d.span_mm / partitions_deflection_span_ratio;
+  checks.add("deflection", d.where, "EN 1992-1-1 7.4.3, 7.4.1(5) (span/500 after the partitions)", increment, limit_p,
+             "mm", [&] {
+               Steps st;
+               partitions_age_steps(st);
+               iteration_steps(st, plate_at_partitions, " (t_p)");
+               iteration_steps(st, plate_long_term_after, " (∞, cracked as at t_p)");
+               st.add("Δδ", "largest δ(∞) − δ(t_p) in the panel",
+                      where_at(at_p) + " (δ(∞) " + num(w_later[at_p]) + ", δ(t_p) " + num(w_p[at_p]) + ")", increment,
+                      "mm", "EN 1992-1-1 7.4.1(5)");
+               st.add("δ_lim", "span/500, " + span_name, num(d.span_mm) + "/500", limit_p, "mm",
+                      "EN 1992-1-1 7.4.1(5)");
+               return st.take();
+             });
+  return out;
 }
 
 // A cantilever (7.4.3 as for spans): its curvature from its own top bars

@@ -349,6 +349,52 @@ struct FlatStripRule {
   std::string integrity{};
 };
 
+// ---- Calculated deflection of plates (two-way and flat slabs) ----------------
+
+// One state of a plate's calculated deflection: every bay under the code's
+// combination of `load` (of several, the one with the largest total load),
+// the section response the code gives for the state's index, and the
+// concrete's modulus in this state (a flat slab's columns turn against
+// 4 E Ic/H with it: creep softens them as it does the slab).
+struct PlateDeflectionState {
+  std::string name;  // as the record prints it: "long-term", "D + L"
+  LimitState load = LimitState::quasi_permanent;
+  double modulus_MPa = 0.0;
+};
+
+// A section's response, in one direction of a plate, to a moment M (N·mm
+// for the section's width b, ≥ 0) that puts its bars' face in tension: the
+// secant rigidity M/(κ − κ_free) (N·mm² for the width b; at M = 0 the
+// uncracked one), the free curvature (1/mm, ≥ 0 in the sense of M: the
+// shrinkage curvature with those bars), and whether M cracks it.
+struct PlateSectionResponse {
+  double rigidity_Nmm2 = 0.0;
+  double free_curvature = 0.0;
+  bool cracked = false;
+};
+
+// What the kernel found for one panel (a span region's span_where), per
+// state of plate_deflection_states(): the deflection (mm, downward, from
+// the level of the supports) at every mesh node of the panel, at x_mm,
+// y_mm (request plan), and how its iteration ended. `section` holds the
+// panel's span region's bars (the record's section properties).
+struct PlateDeflectionDemand {
+  std::string where;
+  double span_mm = 0.0;  // the span region's span_mm, the span the limits read
+  SpanKind span_kind = SpanKind::simply_supported;
+  std::vector<double> x_mm, y_mm;
+  std::vector<std::vector<double>> w_mm;
+  struct Iteration {
+    std::size_t rounds = 0;       // solutions until converged
+    double change = 0.0;          // relative change of the largest deflection in the last round
+    double cracked_share = 0.0;   // share of the panel's elements cracked in either direction
+    double M_max_Nmm = 0.0;       // the panel's largest sagging moment for the width b
+  };
+  std::vector<Iteration> iterations;
+  Section section;
+  std::string model;  // the kernel's statement of the analysis, for the record
+};
+
 // The code's checks of a member that are not a section's.
 class MemberRules {
  public:
@@ -387,6 +433,15 @@ class MemberRules {
   virtual std::optional<SpanDeflection> deflection_diagram(const Section&, const RegionDemand&) const {
     return std::nullopt;
   }
+  // Calculated deflection of two-way and flat slabs: the states the kernel
+  // solves the plate for (none: the code calculates no plate deflection),
+  // a section's response in each, and the checks of one panel from the
+  // deflections found.
+  virtual std::vector<PlateDeflectionState> plate_deflection_states() const { return {}; }
+  virtual PlateSectionResponse plate_section_response(const Section&, double /*M_Nmm*/, std::size_t /*state*/) const {
+    return {};
+  }
+  virtual std::vector<Check> plate_deflection_checks(const PlateDeflectionDemand&, Detail) const { return {}; }
 };
 
 // A band of top bars over a column for the moment it takes (see
@@ -631,6 +686,15 @@ class ForwardingMemberRules : public MemberRules {
   }
   std::optional<SpanDeflection> deflection_diagram(const Section& section, const RegionDemand& region) const override {
     return inner_->deflection_diagram(section, region);
+  }
+  std::vector<PlateDeflectionState> plate_deflection_states() const override {
+    return inner_->plate_deflection_states();
+  }
+  PlateSectionResponse plate_section_response(const Section& section, double M_Nmm, std::size_t state) const override {
+    return inner_->plate_section_response(section, M_Nmm, state);
+  }
+  std::vector<Check> plate_deflection_checks(const PlateDeflectionDemand& demand, Detail detail) const override {
+    return inner_->plate_deflection_checks(demand, detail);
   }
 
  protected:

@@ -13,6 +13,7 @@
 #include "armature/two_way.hpp"
 #include "call_code.hpp"
 #include "loads.hpp"
+#include "plate_deflection.hpp"
 #include "search.hpp"
 
 namespace armature {
@@ -303,7 +304,9 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   rec.actions = all_actions(req, basis.density_kN_m3);
   rec.list_actions = req.loads.actions_given;
   const CombinationLabels labels =
-      rec.list_actions || detail == Detail::steps ? CombinationLabels::all : CombinationLabels::strength;
+      rec.list_actions || detail == Detail::steps || req.serviceability.calculated_deflection()
+          ? CombinationLabels::all
+          : CombinationLabels::strength;
   rec.combinations =
       call_code(rec.code, "combinations", [&] { return combination_rules.combinations(rec.actions, labels); });
   for (const auto& c : rec.combinations)
@@ -511,6 +514,29 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
     const FreeEdgeRule free_rule =
         call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });
     if (!free_rule.clause.empty()) plate_record.free_edges = free_edge_bars(plate_record, rec.regions, req, free_rule);
+  }
+  // Calculated deflection: the plate again with the chosen bars' cracked
+  // rigidities, per panel (plate_deflection.cpp).
+  if (req.serviceability.calculated_deflection()) {
+    PlateDeflectionInput in;
+    in.model = &plate.model();
+    if constexpr (flat) {
+      in.dx_mm = plate.offset_x_mm();
+      in.dy_mm = plate.offset_y_mm();
+    }
+    in.actions = &rec.actions;
+    in.combinations = &rec.combinations;
+    in.demands = &demands;
+    in.records = &rec.regions;
+    in.bays = &plate_record.bays;
+    in.element_bars = element_bars_of(plate.model(), plate_record, demands, in.dx_mm, in.dy_mm);
+    in.thickness_mm = req.slab.thickness_mm;
+    in.strip_width_mm = b;
+    for (auto& s : plate_deflection_checks(member_rules, rec.code, in, detail)) {
+      const auto at = std::find_if(rec.spans.begin(), rec.spans.end(), [&](const SpanRecord& r) { return r.where == s.where; });
+      if (at == rec.spans.end()) rec.spans.push_back(std::move(s));
+      else at->checks.insert(at->checks.end(), s.checks.begin(), s.checks.end());
+    }
   }
   rec.plate = std::make_shared<const PlateRecord>(std::move(plate_record));
 

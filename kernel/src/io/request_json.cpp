@@ -1060,9 +1060,6 @@ void read_two_way_loads(const json& j, InputProblems& problems, Request& req) {
 void add_two_way_scope_problems(const Request& req, InputProblems& problems) {
   if (req.design.redistribution_percent > 0.0) problems.add("design.redistribution_percent", not_yet(req));
   if (req.detailing.requested) problems.add("detailing", not_yet(req));
-  if (req.serviceability.calculated_deflection())
-    problems.add("serviceability.deflection", "\"calculated\" and \"both\" are " + not_yet(req) +
-                                                  "; give \"span_depth\" or leave the field out");
 }
 
 }  // namespace
