@@ -220,4 +220,35 @@ void flat_3x3_bays_design_aci(benchmark::State& state) {
 }
 ARMATURE_BENCHMARK(flat_3x3_bays_design_aci)->Unit(benchmark::kMillisecond);
 
+// The same floors with the deflection calculated on the plate (the plate
+// solved again per state with each element's cracked rigidity, until the
+// deflection settles): against the designs above, the cost of the
+// calculation (EN: three states with the partitions' check; ACI: D and
+// D + L; the EN creep and shrinkage keys are not ACI's).
+nlohmann::json aci_calculated(nlohmann::json j) {
+  j["serviceability"] = {{"deflection", "calculated"}, {"partitions", true}};
+  return j;
+}
+
+void two_way_3x3_bays_calculated_deflection_design(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(calculated(two_way_3x3));
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(two_way_3x3_bays_calculated_deflection_design)->Unit(benchmark::kMillisecond);
+
+void flat_3x3_bays_calculated_deflection_design_en(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(calculated(flat_3x3_en));
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(flat_3x3_bays_calculated_deflection_design_en)->Unit(benchmark::kMillisecond);
+
+void flat_3x3_bays_calculated_deflection_design_aci(benchmark::State& state) {
+  auto& reg = armature::Registry::shared();
+  const auto req = parsed(aci_calculated(flat_3x3_aci));
+  for (auto _ : state) benchmark::DoNotOptimize(armature::design(reg, req));
+}
+ARMATURE_BENCHMARK(flat_3x3_bays_calculated_deflection_design_aci)->Unit(benchmark::kMillisecond);
+
 BENCHMARK_MAIN();

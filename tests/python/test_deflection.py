@@ -502,3 +502,43 @@ def test_one_span_cantilever_from_its_built_in_root_aci():
     assert "cantilever" in immediate["clause"]
     assert immediate["demand"] == pytest.approx(d_DL - d_D, rel=0.005)
     assert after["demand"] == pytest.approx(2.0 * d_D + (d_DL - d_D), rel=0.005)
+
+
+# ---- Two-way and flat slabs: the plate with cracked stiffness ---------------
+# The workshop's gallery floor: 2 x 2 bays of 4.0 m on walls, 200 mm.
+GALLERY = {
+    "code": "EN1992-1-1",
+    "variant": "recommended",
+    "slab": {"type": "two_way", "x_spans_m": [4.0, 4.0], "y_spans_m": [4.0, 4.0], "thickness_mm": 200},
+    "concrete": {"class": "C30/37"},
+    "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0, "imposed_category": "C"},
+    "serviceability": {"deflection": "calculated"},
+}
+
+
+def test_two_way_panels_are_calculated_each_alike_where_the_floor_is():
+    """Every panel gets its calculated check (span/250 of its shorter span,
+    EN 1992-1-1 7.4.1(4)); the floor is symmetric about both centre lines,
+    so the four panels deflect alike (within the iteration's 0.5 %)."""
+    res = armature.design(GALLERY)
+    checks = {c["where"]: c for c in res["checks"] if c["id"] == "deflection"}
+    assert set(checks) == {"bay 1,1", "bay 2,1", "bay 1,2", "bay 2,2"}
+    assert all(c["method"] == "calculated" for c in checks.values())
+    demands = [c["demand"] for c in checks.values()]
+    assert max(demands) == pytest.approx(min(demands), rel=0.01)
+    assert checks["bay 1,1"]["capacity"] == pytest.approx(4000.0 / 250.0)
+    both = copy.deepcopy(GALLERY)
+    both["serviceability"]["deflection"] = "both"
+    methods = sorted(c["method"] for c in armature.design(both)["checks"]
+                     if c["id"] == "deflection" and c["where"] == "bay 1,1")
+    assert methods == ["calculated", "span_depth"]
+
+
+def test_two_way_record_states_the_plate_model_with_the_caution(tmp_path):
+    res = armature.design(copy.deepcopy(GALLERY))
+    out = tmp_path / "gallery.md"
+    armature.report(res, str(out))
+    text = out.read_text(encoding="utf-8")
+    for words in ("orthotropic Kirchhoff plate", "φ(∞,t0)", "I_II", "Mcr", "largest deflection in the panel"):
+        assert words in text
+    assert res["caution"] and res["caution"].split("\n")[0] in text

@@ -226,6 +226,7 @@ struct PlateSolution;
 }  // namespace detail
 
 class PlateField;
+class OrthotropicSolver;
 
 // Everything the peaks and reactions of one load case give, read at once
 // (the node moments are recovered once for all of them).
@@ -288,7 +289,25 @@ class PlateModel {
                                         double column_factor = 1.0) const;
 
  private:
+  friend class OrthotropicSolver;
   std::shared_ptr<const detail::PlateMesh> mesh_;
+};
+
+// solve_orthotropic again and again on one model (an iteration on the
+// rigidities): the sparse ordering is worked out at the first solve and
+// kept, each call factorises anew. Not for use from several threads at once.
+class OrthotropicSolver {
+ public:
+  explicit OrthotropicSolver(const PlateModel& model);
+  ~OrthotropicSolver();
+  OrthotropicSolver(const OrthotropicSolver&) = delete;
+  OrthotropicSolver& operator=(const OrthotropicSolver&) = delete;
+  OrthotropicSolution solve(const std::vector<ElementRigidity>& elements, const PlateLoadCase& load,
+                            double column_factor = 1.0);
+
+ private:
+  struct Impl;
+  std::unique_ptr<Impl> impl_;
 };
 
 // The solution of every load case; queries by case index.

@@ -352,9 +352,27 @@ PlateField PlateModel::solve(const std::vector<PlateLoadCase>& cases) const {
 std::size_t PlateModel::elements_x() const { return mesh_->elements_x(); }
 std::size_t PlateModel::elements_y() const { return mesh_->elements_y(); }
 
-OrthotropicSolution PlateModel::solve_orthotropic(const std::vector<ElementRigidity>& elements,
-                                                  const PlateLoadCase& load, double column_factor) const {
-  const auto& m = *mesh_;
+struct OrthotropicSolver::Impl {
+  std::shared_ptr<const detail::PlateMesh> mesh;
+  std::vector<detail::OrthotropicParts> parts;  // per element size class
+  Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>> factor;
+  bool analysed = false;
+};
+
+OrthotropicSolver::OrthotropicSolver(const PlateModel& model) : impl_(std::make_unique<Impl>()) {
+  impl_->mesh = model.mesh_;
+  const auto& m = *impl_->mesh;
+  impl_->parts.reserve(m.class_count());
+  for (std::size_t cy = 0; cy < m.heights.size(); ++cy)
+    for (std::size_t cx = 0; cx < m.widths.size(); ++cx)
+      impl_->parts.push_back(detail::orthotropic_parts(m.widths[cx], m.heights[cy]));
+}
+OrthotropicSolver::~OrthotropicSolver() = default;
+
+OrthotropicSolution OrthotropicSolver::solve(const std::vector<ElementRigidity>& elements, const PlateLoadCase& load,
+                                             double column_factor) {
+  const auto& m = *impl_->mesh;
+  const auto& parts = impl_->parts;
   const std::size_t ne = m.elements_x() * m.elements_y();
   if (elements.size() != ne)
     throw std::invalid_argument("plate rigidities: " + std::to_string(elements.size()) + " given for " +
@@ -366,11 +384,6 @@ OrthotropicSolution PlateModel::solve_orthotropic(const std::vector<ElementRigid
   if (!(column_factor > 0.0 && std::isfinite(column_factor)))
     throw std::invalid_argument("plate rigidities: the columns' stiffness factor must be positive");
   check_case(m, load, 0);
-  // The parts per element size class, then each element's own matrix.
-  std::vector<detail::OrthotropicParts> parts;
-  parts.reserve(m.class_count());
-  for (std::size_t cy = 0; cy < m.heights.size(); ++cy)
-    for (std::size_t cx = 0; cx < m.widths.size(); ++cx) parts.push_back(detail::orthotropic_parts(m.widths[cx], m.heights[cy]));
   std::array<double, 256> k{};
   auto element = [&](std::size_t ex, std::size_t ey) -> const std::array<double, 256>& {
     const ElementRigidity& r = elements[ex + m.elements_x() * ey];
@@ -379,9 +392,16 @@ OrthotropicSolution PlateModel::solve_orthotropic(const std::vector<ElementRigid
     for (std::size_t i = 0; i < 256; ++i) k[i] = r.Dx_Nmm * p.kxx[i] + r.Dy_Nmm * p.kyy[i] + Dt * p.ktt[i];
     return k;
   };
-  Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>> factor(detail::assemble(m, element, column_factor));
+  // The pattern (and so the ordering) is the same for every rigidity:
+  // analysed once, factorised per call.
+  const Eigen::SparseMatrix<double> K = detail::assemble(m, element, column_factor);
+  auto& factor = impl_->factor;
+  if (!impl_->analysed) {
+    factor.analyzePattern(K);
+    impl_->analysed = true;
+  }
+  factor.factorize(K);
   if (factor.info() != Eigen::Success) throw std::runtime_error(detail::mechanism_message);
-
   const std::size_t dofs = m.free_index.size();
   std::vector<double> f(dofs, 0.0);
   element_loads(m, load, [&](std::size_t ex, std::size_t ey, const std::array<double, 16>& fe) {
@@ -424,6 +444,13 @@ OrthotropicSolution PlateModel::solve_orthotropic(const std::vector<ElementRigid
                                                        -std::sqrt(r.Dx_Nmm * r.Dy_Nmm) * wxy};
     }
   return out;
+}
+
+
+OrthotropicSolution PlateModel::solve_orthotropic(const std::vector<ElementRigidity>& elements,
+                                                  const PlateLoadCase& load, double column_factor) const {
+  OrthotropicSolver solver(*this);
+  return solver.solve(elements, load, column_factor);
 }
 
 // ---- the field ---------------------------------------------------------------

@@ -21,10 +21,6 @@ constexpr std::size_t none = static_cast<std::size_t>(-1);
 // share of the largest (the one-way integration's 0.5 %).
 constexpr double settled_change = 0.005;
 constexpr std::size_t max_rounds = 40;
-// After this many rounds each new rigidity is averaged with the last, so
-// that an element whose moment sits at its cracking moment cannot flip
-// between the two states for ever.
-constexpr std::size_t plain_rounds = 8;
 
 // The index of the first value above v in sorted lines, less one, within
 // [0, lines.size() − 2]: the bay (span) v lies in.
@@ -176,7 +172,7 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
     }
     d.model = "orthotropic Kirchhoff plate (ν = 0; twist rigidity √(Dx Dy)/2), " + std::to_string(model.elements_x()) +
               " × " + std::to_string(model.elements_y()) +
-              " elements, each with the code's secant rigidity and shrinkage curvature of its bars in x and in y "
+              " elements, each with the code's secant rigidity (and shrinkage curvature, where the code has one) of its bars in x and in y "
               "under its own moment (Wood–Armer's mx ± |mxy|, the face it tensions more: bottom bars sagging, the "
               "top bars over the nearer support or column line hogging), every bay loaded, solved again until no "
               "deflection changes by more than 0.5 %";
@@ -220,46 +216,51 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
     };
     std::vector<ElementRigidity> rig(n_el);
     std::vector<unsigned char> cracked(n_el, 0);
-    auto update = [&](const std::vector<PlateMoments>* moments, double blend) {
+    // The largest sagging and hogging moment each element has had in each
+    // direction during the iteration: a crack once open stays open, so the
+    // rigidities only fall and the iteration settles (DEVELOPERS.md).
+    std::vector<std::array<double, 4>> seen(n_el, {0.0, 0.0, 0.0, 0.0});  // sag x, hog x, sag y, hog y
+    auto update = [&](const std::vector<PlateMoments>* moments) {
       for (std::size_t e = 0; e < n_el; ++e) {
         bool c = false;
-        ElementRigidity next;
+        ElementRigidity& r = rig[e];
         for (std::size_t dir = 0; dir < 2; ++dir) {
           const ElementBars& bars = in.element_bars[e][dir];
-          double M = 0.0;
-          std::size_t region = bars.bottom;
+          double& sag = seen[e][2 * dir];
+          double& hog = seen[e][2 * dir + 1];
           if (moments) {
             const PlateMoments& m = (*moments)[e];
             const double normal = dir == 0 ? m.mx : m.my;
-            const double sag = normal + std::abs(m.mxy), hog = -normal + std::abs(m.mxy);
-            if (sag >= hog) M = std::max(sag, 0.0);
-            else {
-              M = hog;
-              if (bars.top != none) region = bars.top;
+            sag = std::max(sag, normal + std::abs(m.mxy));
+            hog = std::max(hog, -normal + std::abs(m.mxy));
+          }
+          bool c_sag = false;
+          auto chosen = respond(bars.bottom, sag, c_sag);
+          if (hog > 0.0) {
+            bool c_hog = false;
+            // Without top bars the bottom bars' section serves, its
+            // shrinkage curvature keeping the sagging sense (as a span's).
+            const auto hogging = respond(bars.top != none ? bars.top : bars.bottom, hog, c_hog);
+            if (hogging.first < chosen.first) {
+              chosen = hogging;
+              c_sag = c_hog;
             }
           }
-          const auto [D, k0] = respond(region, M, c);
-          (dir == 0 ? next.Dx_Nmm : next.Dy_Nmm) = D;
-          (dir == 0 ? next.free_curvature_x : next.free_curvature_y) = k0;
+          c = c || c_sag;
+          (dir == 0 ? r.Dx_Nmm : r.Dy_Nmm) = chosen.first;
+          (dir == 0 ? r.free_curvature_x : r.free_curvature_y) = chosen.second;
         }
-        ElementRigidity& r = rig[e];
-        if (blend > 0.0) {
-          next.Dx_Nmm = blend * r.Dx_Nmm + (1.0 - blend) * next.Dx_Nmm;
-          next.Dy_Nmm = blend * r.Dy_Nmm + (1.0 - blend) * next.Dy_Nmm;
-          next.free_curvature_x = blend * r.free_curvature_x + (1.0 - blend) * next.free_curvature_x;
-          next.free_curvature_y = blend * r.free_curvature_y + (1.0 - blend) * next.free_curvature_y;
-        }
-        r = next;
         cracked[e] = c ? 1 : 0;
       }
     };
-    update(nullptr, 0.0);
+    update(nullptr);
     OrthotropicSolution solution;
     std::vector<double> last;
     std::size_t rounds = 0;
     double change = 1.0;
+    OrthotropicSolver solver(model);
     while (rounds < max_rounds) {
-      solution = model.solve_orthotropic(rig, *load, column_factor);
+      solution = solver.solve(rig, *load, column_factor);
       ++rounds;
       if (!last.empty()) {
         double largest = 0.0, moved = 0.0;
@@ -271,10 +272,8 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
         if (change <= settled_change) break;
       }
       last = solution.w_mm;
-      update(&solution.element_moments, rounds >= plain_rounds ? 0.5 : 0.0);
+      update(&solution.element_moments);
     }
-    // Whether each element is cracked under the converged moments.
-    update(&solution.element_moments, 0.0);
     for (std::size_t k = 0; k < panels.size(); ++k) {
       PlateDeflectionDemand& d = out[k];
       std::vector<double> w;
