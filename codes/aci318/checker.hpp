@@ -47,6 +47,8 @@ class Checker final : public SlabChecker,
   DetailLength end_support_anchorage(const BarDetailDemand& bar) const override;
   DetailLength interior_support_embedment(const BarDetailDemand& bar) const override;
   DetailLength lap(const BarDetailDemand& bar) const override;
+  DetailLength hooked_anchorage(const BarDetailDemand& bar) const override;
+  DetailLimit zero_moment_development(const BarDetailDemand& bar, const ZeroMomentSite& site) const override;
 
   // plugin.cpp
   LoadBasis load_basis() const override;

@@ -1,7 +1,8 @@
 // DetailingRules of ACI 318-19: the extension beyond the cutoff (7.7.3.3),
 // development length of straight bars in tension (25.4.2), embedment at
-// supports (7.7.3.8) and tension lap splices (25.5.2), each with its
-// steps; the US variant by the in-lb forms (us_customary.hpp).
+// supports (7.7.3.8), tension lap splices (25.5.2), standard hooks (25.3,
+// 25.4.3) and the size of bottom bars at zero moment (7.7.3.8.3), each with
+// its steps; the US variant by the in-lb forms (us_customary.hpp).
 #include <algorithm>
 #include <string>
 
@@ -97,7 +98,9 @@ DetailLength Checker::anchorage(const BarDetailDemand& bar) const {
 DetailLength Checker::end_support_anchorage(const BarDetailDemand&) const {
   StepRecorder st;
   const double l = support_embedment();
-  st.add("l", us_ ? "bottom bars into the support, at least 6 in" : "bottom bars into the support, at least 150 mm",
+  st.add("l",
+         us_ ? "bottom bars into the support, at least 6 in (past its face, or its line where no width is given)"
+             : "bottom bars into the support, at least 150 mm (past its face, or its line where no width is given)",
          "", len_v(l), len_u(), "ACI 318-19 7.7.3.8");
   return {l, "ACI 318-19 7.7.3.8", st.take()};
 }
@@ -117,6 +120,112 @@ DetailLength Checker::lap(const BarDetailDemand& bar) const {
   st.add("lst", us_ ? "Class B: 1.3 ld ≥ 12 in" : "Class B: 1.3 ld ≥ 300 mm", "1.3 × " + len(ld), len_v(l), len_u(),
          "ACI 318-19 25.5.2.1");
   return {l, "ACI 318-19 25.5.2", st.take()};
+}
+
+// A 90° standard hook (25.3.1) at the end of a bar whose straight
+// development does not fit: ldh of 25.4.3.1 past the critical section (the
+// support's face), measured to the outside of the hook, at the bar's full
+// fy (25.4.10's reduction for excess steel is not taken, and not allowed
+// at a noncontinuous support); bend and extension of Tables 25.3.1, 25.3.2.
+DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
+  StepRecorder st;
+  const double db = bar.diameter_mm;
+  const double psi_e = coating_factor_uncoated;
+  st.add("ψe", "uncoated bars", "", psi_e, "-", "ACI 318-19 25.4.3.2");
+  const double psi_r = hook_confinement_factor_none;
+  st.add("ψr", "no ties or stirrups confining the hook (a slab)", "", psi_r, "-",
+         "ACI 318-19 25.4.3.2 (value from memory)");
+  const double psi_o = hook_location_factor_side_cover;
+  st.add("ψo", "side cover normal to the plane of the hook ≥ 6 db (within a slab's width)", "", psi_o, "-",
+         "ACI 318-19 25.4.3.2 (value from memory)");
+  const double fc_v = stress_v(fc_);
+  const double psi_c = us_ ? inch_pound::hook_concrete_strength_factor(fc_v) : hook_concrete_strength_factor(fc_);
+  st.add("ψc", us_ ? "min(f'c/15 000 + 0.6, 1.0)" : "min(f'c/105 + 0.6, 1.0)",
+         us_ ? num(fc_v) + "/15000 + 0.6" : num(fc_v) + "/105 + 0.6", psi_c, "-",
+         "ACI 318-19 25.4.3.2 (value from memory)");
+  const double rf = root_fc_limited();
+  const double ldh = us_ ? inch_pound::hooked_development_length(fy_ / MPa_per_psi, rf, psi_e, psi_r, psi_o, psi_c,
+                                                                 lambda_normal_weight, db / mm_per_in) * mm_per_in
+                         : hooked_development_length(fy_, rf, psi_e, psi_r, psi_o, psi_c, lambda_normal_weight, db);
+  st.add("ldh", us_ ? "max(fy ψe ψr ψo ψc db^1.5 / (55 λ √f'c), 8 db, 6 in), to the outside of the hook"
+                    : "max(fy ψe ψr ψo ψc db^1.5 / (23 λ √f'c), 8 db, 150 mm), to the outside of the hook",
+         "max(" + stress(fy_) + " × " + num(psi_e) + " × " + num(psi_r) + " × " + num(psi_o) + " × " + num(psi_c) +
+             " × " + len(db) + "^1.5 / (" + (us_ ? "55" : "23") + " × 1.0 × " + num(rf) + "), 8 × " + len(db) +
+             ", " + (us_ ? "6" : "150") + ")",
+         len_v(ldh), len_u(), "ACI 318-19 25.4.3.1 (value from memory)");
+  const double bend = hook_inside_bend_diameter(db);
+  const char* bend_text = db <= 25.4 + 1e-6 ? "6 db (No. 25 / #8 and smaller)"
+                          : db <= 35.8 + 1e-6 ? "8 db (No. 29 to No. 36 / #9 to #11)"
+                                              : "10 db (No. 43, No. 57 / #14, #18)";
+  st.add("D", std::string("inside bend diameter ") + bend_text, "", len_v(bend), len_u(),
+         "ACI 318-19 Table 25.3.2 (value from memory)");
+  const double ext = hook_extension_90(db);
+  st.add("extension", "12 db past the bend (90° hook)", "12 × " + len(db), len_v(ext), len_u(),
+         "ACI 318-19 Table 25.3.1 (value from memory)");
+  DetailLength out{ldh, "ACI 318-19 25.3, 25.4.3", st.take()};
+  out.bend_diameter_mm = bend;
+  out.extension_mm = ext;
+  return out;
+}
+
+// 7.7.3.8.3: at a simple support or a point of inflection the bottom bars'
+// ld ≤ 1.3 Mn/Vu + ℓa (ends confined by a compressive reaction) or
+// Mn/Vu + ℓa; need not be met where the bars end past the centreline of a
+// simple support in a standard hook. Mn of the bars there, nominal.
+DetailLimit Checker::zero_moment_development(const BarDetailDemand& bar, const ZeroMomentSite& site) const {
+  DetailLimit out;
+  out.applies = true;
+  out.clause = "ACI 318-19 7.7.3.8.3";
+  StepRecorder st;
+  if (site.simple_support && site.hooked) {
+    st.add("ℓa", "the bars end past the support's centreline in a standard hook: the limit need not be met", "",
+           len_v(site.embedment_mm), len_u(), "ACI 318-19 7.7.3.8.3 (value from memory)");
+    out.steps = st.take();
+    return out;
+  }
+  const double ld = development_length(st, bar);
+  const double b = req_.slab.strip_width_mm;
+  const double a = stress_block_depth(bar.As_prov_mm2, fy_, fc_, b);
+  st.add("a", "As fy / (0.85 f'c b)",
+         area(bar.As_prov_mm2) + " × " + stress(fy_) + " / (0.85 × " + stress(fc_) + " × " + len(b) + ")", len_v(a),
+         len_u(), "ACI 318-19 22.2.2");
+  const double Mn = nominal_moment(bar.As_prov_mm2, fy_, bar.d_mm, a);
+  st.add("Mn", "As fy (d − a/2), the bars at the section",
+         area(bar.As_prov_mm2) + " × " + stress(fy_) + " × (" + len(bar.d_mm) + " − " + len(a) + "/2)", moment_v(Mn),
+         moment_u(), "ACI 318-19 22.2");
+  const double Vu = std::abs(bar.V_Ed_N);
+  st.add("Vu", site.simple_support ? "factored shear at the support" : "factored shear at the point of inflection", "",
+         force_v(Vu), force_u(), "ACI 318-19 7.7.3.8.3");
+  double la = site.embedment_mm;
+  if (site.simple_support) {
+    st.add("ℓa", "embedment past the centre of the support", "", len_v(la), len_u(),
+           "ACI 318-19 7.7.3.8.3 (value from memory)");
+  } else {
+    const double cap = inflection_embedment_limit(bar.d_mm, bar.diameter_mm);
+    la = std::min(la, cap);
+    st.add("ℓa", "embedment past the point of inflection, at most max(d, 12 db)",
+           "min(" + len(site.embedment_mm) + ", max(" + len(bar.d_mm) + ", 12 × " + len(bar.diameter_mm) + "))",
+           len_v(la), len_u(), "ACI 318-19 7.7.3.8.3 (value from memory)");
+  }
+  if (!(Vu > 0.0)) {
+    st.add("ld,max", "no shear at the section: no limit", "", 0.0, len_u(), "ACI 318-19 7.7.3.8.3");
+    out.steps = st.take();
+    return out;
+  }
+  const double limit = zero_moment_development_limit(Mn, Vu, la, site.confined);
+  const char* k = site.confined ? "1.3" : "1.0";
+  st.add("ld,max",
+         std::string(k) + " Mn/Vu + ℓa" +
+             (site.confined ? " (ends confined by a compressive reaction)" : " (ends not confined by a reaction)"),
+         std::string(k) + " × " + len(Mn / Vu) + " + " + len(la), len_v(limit), len_u(),
+         "ACI 318-19 7.7.3.8.3 (value from memory)");
+  out.length_mm = ld;
+  out.limit_mm = limit;
+  out.met = ld <= limit;
+  st.add("ld/ld,max", out.met ? "ld ≤ ld,max: met" : "ld > ld,max: not met (smaller bars, or a hook past the centreline)",
+         len(ld) + " / " + len(limit), ld / limit, "-", "ACI 318-19 7.7.3.8.3");
+  out.steps = st.take();
+  return out;
 }
 
 }  // namespace armature::aci318

@@ -184,4 +184,26 @@ double tension_lap_length(double ld, bool class_a) { return std::max((class_a ? 
 
 double extension_beyond_cutoff(double d, double db) { return std::max(d, 12.0 * db); }
 
+double hook_inside_bend_diameter(double db) {
+  if (db <= 25.4 + 1e-6) return 6.0 * db;  // No. 10 to No. 25 (#3 to #8)
+  if (db <= 35.8 + 1e-6) return 8.0 * db;  // No. 29 to No. 36 (#9 to #11)
+  return 10.0 * db;                        // No. 43, No. 57
+}
+
+double hook_extension_90(double db) { return 12.0 * db; }
+
+double hook_concrete_strength_factor(double fc) { return std::min(fc / 105.0 + 0.6, 1.0); }
+
+double hooked_development_length(double fy, double root_fc, double psi_e, double psi_r, double psi_o, double psi_c,
+                                 double lambda, double db) {
+  const double a = fy * psi_e * psi_r * psi_o * psi_c / (23.0 * lambda * root_fc) * std::pow(db, 1.5);
+  return std::max({a, 8.0 * db, 150.0});
+}
+
+double zero_moment_development_limit(double Mn, double Vu, double la, bool confined) {
+  return (confined ? 1.3 : 1.0) * Mn / Vu + la;
+}
+
+double inflection_embedment_limit(double d, double db) { return std::max(d, 12.0 * db); }
+
 }  // namespace armature::aci318

@@ -96,6 +96,30 @@ double extension_beyond_cutoff(double d, double db);
 // the support; taken past the line of every support.
 constexpr double support_embedment_mm = 150.0;
 
+// ---- Standard hooks (25.3, 25.4.3) and bars at zero moment (7.7.3.8.3) -----
+// Table 25.3.2 (value from memory): the least inside bend diameter of a
+// standard hook, 6 db for No. 10 to No. 25, 8 db for No. 29 to No. 36,
+// 10 db for No. 43 and No. 57 (db in mm).
+double hook_inside_bend_diameter(double db);
+// Table 25.3.1 (value from memory): the straight extension of a 90° standard hook, 12 db.
+double hook_extension_90(double db);
+constexpr double hook_confinement_factor_none = 1.6;  // 25.4.3.2 Table: ψr, no confining ties or stirrups
+constexpr double hook_location_factor_side_cover = 1.0;  // 25.4.3.2 Table: ψo, side cover ≥ 6 db
+// 25.4.3.2 Table (value from memory): ψc = f'c/105 + 0.6 for f'c below
+// 42 MPa, 1.0 above (the two meet there): min(f'c/105 + 0.6, 1.0).
+double hook_concrete_strength_factor(double fc);
+// 25.4.3.1 (value from memory): ldh = the largest of (a) fy ψe ψr ψo ψc
+// db^1.5 / (23 λ √f'c), (b) 8 db, (c) 150 mm; MPa, mm.
+double hooked_development_length(double fy, double root_fc, double psi_e, double psi_r, double psi_o, double psi_c,
+                                 double lambda, double db);
+// 7.7.3.8.3 (value from memory): at a simple support or a point of
+// inflection, ld of the positive-moment bars ≤ 1.3 Mn/Vu + ℓa where a
+// compressive reaction confines their ends, else Mn/Vu + ℓa (any
+// consistent units).
+double zero_moment_development_limit(double Mn, double Vu, double la, bool confined);
+// 7.7.3.8.3 (value from memory): ℓa at a point of inflection is at most the larger of d and 12 db.
+double inflection_embedment_limit(double d, double db);
+
 // ---- Shear (22.5.5.1) ----------------------------------------------------------
 double size_effect_factor(double d);                      // λs = √(2/(1 + 0.004 d)) ≤ 1
 // The form of 22.5.5.1 in either unit system: Vc = k λs λ ρw^(1/3) √f'c b d

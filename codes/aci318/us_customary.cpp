@@ -84,4 +84,12 @@ double tension_lap_length(double ld_in, bool class_a) { return std::max((class_a
 
 double casting_position_factor(double concrete_below_in) { return concrete_below_in > 12.0 ? 1.3 : 1.0; }
 
+double hook_concrete_strength_factor(double fc_psi) { return std::min(fc_psi / 15000.0 + 0.6, 1.0); }
+
+double hooked_development_length(double fy_psi, double root_fc_psi, double psi_e, double psi_r, double psi_o,
+                                 double psi_c, double lambda, double db_in) {
+  const double a = fy_psi * psi_e * psi_r * psi_o * psi_c / (55.0 * lambda * root_fc_psi) * std::pow(db_in, 1.5);
+  return std::max({a, 8.0 * db_in, 6.0});
+}
+
 }  // namespace armature::aci318::inch_pound

@@ -68,5 +68,12 @@ double tension_lap_length(double ld_in, bool class_a);      // 25.5.2.1: 1.0 or 
 // 25.4.2.5 Table: ψt = 1.3 with more than 12 in of fresh concrete below.
 double casting_position_factor(double concrete_below_in);
 constexpr double support_embedment_in = 6.0;                // 7.7.3.8.2 (value from memory)
+// 25.4.3.2 Table (value from memory): ψc = f'c/15 000 + 0.6 for f'c below
+// 6000 psi, 1.0 from there: min(f'c/15 000 + 0.6, 1.0).
+double hook_concrete_strength_factor(double fc_psi);
+// 25.4.3.1 (value from memory): ldh = the largest of (a) fy ψe ψr ψo ψc
+// db^1.5 / (55 λ √f'c), (b) 8 db, (c) 6 in; psi, in.
+double hooked_development_length(double fy_psi, double root_fc_psi, double psi_e, double psi_r, double psi_o,
+                                 double psi_c, double lambda, double db_in);
 
 }  // namespace armature::aci318::inch_pound

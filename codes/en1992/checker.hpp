@@ -90,6 +90,7 @@ class Checker final : public SlabChecker,
   DetailLength interior_support_embedment(const BarDetailDemand& bar) const override;
   DetailLength lap(const BarDetailDemand& bar) const override;
   DetailLength end_top_bar_extent(const BarDetailDemand& bar, double span_mm) const override;
+  DetailLength hooked_anchorage(const BarDetailDemand& bar) const override;
 
   // plugin.cpp
   LoadBasis load_basis() const override;
@@ -199,7 +200,10 @@ class Checker final : public SlabChecker,
   struct BasicAnchorage {
     double fbd = 0.0, lb_rqd = 0.0, alpha2 = 1.0;
   };
-  BasicAnchorage basic_anchorage(Steps& st, const BarDetailDemand& bar, double sigma_sd) const;
+  // straight false: a bent bar, without the straight bar's cd and α2 (α2 1.0).
+  BasicAnchorage basic_anchorage(Steps& st, const BarDetailDemand& bar, double sigma_sd, bool straight = true) const;
+  // 9.2.1.4(2), (3): σsd = FE/As ≤ fyd at an end support, with its steps.
+  double end_support_stress(Steps& st, const BarDetailDemand& bar) const;
 
   // members.cpp
   void fire_axis_distance_check(CheckCollector& checks, const RegionDemand& g, double c_nom, double phi) const;

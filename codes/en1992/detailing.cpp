@@ -1,6 +1,8 @@
 // DetailingRules of EN 1992-1-1: the shift (9.2.1.3), anchorage (8.4),
 // end and interior supports (9.2.1.4, 9.2.1.5) and laps (8.7.3) of
-// straight bars in slabs without shear reinforcement, each with its steps.
+// straight bars in slabs without shear reinforcement, and the standard
+// bend (8.3, 8.4.4(2)) where a straight anchorage does not fit, each with
+// its steps.
 #include <algorithm>
 #include <string>
 
@@ -12,7 +14,8 @@ namespace {
 // 8.4.4(1) Table 8.2: α1 = 1.0 for a straight bar; α3 = 1.0 (the
 // distribution bars are not counted as transverse reinforcement: common
 // practice, conservative); α4 = 1.0 (no welded transverse bars); α5 = 1.0
-// (no transverse pressure is taken: the support's width is not given).
+// (no transverse pressure is taken, even where the support's width is
+// given: the pressure over it is not worked out).
 constexpr double alpha1_straight = 1.0;
 constexpr double alpha3_none = 1.0;
 constexpr double alpha4_none = 1.0;
@@ -21,7 +24,8 @@ constexpr double alpha5_none = 1.0;
 constexpr double lever_arm_fraction = 0.9;
 }  // namespace
 
-Checker::BasicAnchorage Checker::basic_anchorage(Steps& st, const BarDetailDemand& bar, double sigma_sd) const {
+Checker::BasicAnchorage Checker::basic_anchorage(Steps& st, const BarDetailDemand& bar, double sigma_sd,
+                                                 bool straight) const {
   const double phi = bar.diameter_mm;
   const double h = req_.slab.thickness_mm;
   const double above_bottom = bar.face == Face::bottom ? bar.cover_mm + phi / 2.0 : h - bar.cover_mm - phi / 2.0;
@@ -49,6 +53,7 @@ Checker::BasicAnchorage Checker::basic_anchorage(Steps& st, const BarDetailDeman
   const double lb_rqd = basic_anchorage_length(phi, sigma_sd, fbd);
   st.add("lb,rqd", "(φ/4)(σsd/fbd)", "(" + num(phi) + "/4) × (" + num(sigma_sd) + "/" + num(fbd) + ")", lb_rqd,
          "mm", "EN 1992-1-1 8.4.3(2) (8.3)");
+  if (!straight) return {fbd, lb_rqd, 1.0};  // a bent bar: its own cd and α1 (hooked_anchorage)
   const double clear = bar.spacing_mm - phi;
   const double cd = std::min(clear / 2.0, bar.cover_mm);
   st.add("cd", "min(a/2, c) (a clear spacing, c cover; no side edge in a strip)",
@@ -82,8 +87,7 @@ DetailLength Checker::anchorage(const BarDetailDemand& bar) const {
   return {lbd, "EN 1992-1-1 8.4.4", st.take()};
 }
 
-DetailLength Checker::end_support_anchorage(const BarDetailDemand& bar) const {
-  Steps st;
+double Checker::end_support_stress(Steps& st, const BarDetailDemand& bar) const {
   const double al = tensile_force_shift(bar.d_mm);
   const double z = lever_arm_fraction * bar.d_mm;
   const double FE = end_support_tensile_force(bar.V_Ed_N, al, z);
@@ -91,6 +95,12 @@ DetailLength Checker::end_support_anchorage(const BarDetailDemand& bar) const {
          num(bar.V_Ed_N * 1e-3) + " × " + num(al) + " / " + num(z), FE * 1e-3, "kN", "EN 1992-1-1 9.2.1.4(2) (9.3)");
   const double sigma = std::min(FE / bar.As_prov_mm2, m_.fyd);
   st.add("σsd", "FE / As ≤ fyd", num(FE) + " / " + num(bar.As_prov_mm2), sigma, "MPa", "EN 1992-1-1 9.2.1.4(3)");
+  return sigma;
+}
+
+DetailLength Checker::end_support_anchorage(const BarDetailDemand& bar) const {
+  Steps st;
+  const double sigma = end_support_stress(st, bar);
   const BasicAnchorage b = basic_anchorage(st, bar, sigma);
   // lb,min from lb,rqd at fyd: the bar's full strength (conservative choice, DEVELOPERS.md).
   const double lb_rqd_full = basic_anchorage_length(bar.diameter_mm, m_.fyd, b.fbd);
@@ -100,7 +110,8 @@ DetailLength Checker::end_support_anchorage(const BarDetailDemand& bar) const {
          "EN 1992-1-1 8.4.4(1) (8.6)");
   const double lbd = design_anchorage_length(alpha1_straight, b.alpha2, alpha3_none, alpha4_none, alpha5_none,
                                              b.lb_rqd, lb_min);
-  st.add("lbd", "α1 α2 α3 α4 α5 lb,rqd ≥ lb,min, past the support line (all span bars run to the support)",
+  st.add("lbd", "α1 α2 α3 α4 α5 lb,rqd ≥ lb,min, past the support's face, or its line where no width is given "
+         "(all span bars run to the support)",
          "max(" + num(b.alpha2) + " × " + num(b.lb_rqd) + ", " + num(lb_min) + ")", lbd, "mm",
          "EN 1992-1-1 9.2.1.4(3), 9.3.1.2(1)");
   return {lbd, "EN 1992-1-1 9.2.1.4, 9.3.1.2", st.take()};
@@ -117,9 +128,44 @@ DetailLength Checker::interior_support_embedment(const BarDetailDemand& bar) con
 DetailLength Checker::end_top_bar_extent(const BarDetailDemand&, double span_mm) const {
   Steps st;
   const double l = partial_fixity_bar_extent(span_mm);
-  st.add("l", "0.2 × the adjacent span (from the support line: no width given)", "0.2 × " + num(span_mm), l, "mm",
-         "EN 1992-1-1 9.3.1.2(2)");
+  st.add("l", "0.2 × the adjacent span (from the support's face, or its line where no width is given)",
+         "0.2 × " + num(span_mm), l, "mm", "EN 1992-1-1 9.3.1.2(2)");
   return {l, "EN 1992-1-1 9.3.1.2(2)", st.take()};
+}
+
+// A standard bend (Figure 8.1 b, 90°) at the end of a bar whose straight
+// anchorage does not fit: the equivalent anchorage lb,eq = α1 lb,rqd of
+// 8.4.4(2), measured from the section to the outside of the bend, at the
+// stress the bar carries there (FE/As at an end support, else fyd); the
+// least mandrel of Table 8.1N and the tail of Figure 8.1 b.
+DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
+  Steps st;
+  const double phi = bar.diameter_mm;
+  double sigma = m_.fyd;
+  if (bar.at_end_support) sigma = end_support_stress(st, bar);
+  else st.add("σsd", "fyd (the bar at its design strength)", "", m_.fyd, "MPa", "EN 1992-1-1 8.4.3(2)");
+  const BasicAnchorage b = basic_anchorage(st, bar, sigma, false);
+  const double phi_m = minimum_mandrel_diameter(phi);
+  st.add("φm,min", phi <= 16.0 + 1e-9 ? "4 φ (φ ≤ 16 mm)" : "7 φ (φ > 16 mm)",
+         (phi <= 16.0 + 1e-9 ? "4 × " : "7 × ") + num(phi), phi_m, "mm",
+         "EN 1992-1-1 8.3(2) Table 8.1N (value from memory)");
+  const double cd = (bar.spacing_mm - phi) / 2.0;
+  st.add("cd", "min(a/2, c1): a/2 (c1, the cover beside the plane of the bend, is a slab edge's: none in a strip)",
+         "(" + num(bar.spacing_mm) + " − " + num(phi) + ")/2", cd, "mm", "EN 1992-1-1 Figure 8.3 b");
+  const double alpha1 = shape_factor_bent(cd, phi);
+  st.add("α1", cd > 3.0 * phi ? "0.7 (bent bar, cd > 3 φ)" : "1.0 (bent bar, cd ≤ 3 φ)",
+         num(cd) + (cd > 3.0 * phi ? " > 3 × " : " ≤ 3 × ") + num(phi), alpha1, "-",
+         "EN 1992-1-1 8.4.4(1) Table 8.2 (value from memory)");
+  const double lb_eq = equivalent_anchorage_length_bent(alpha1, b.lb_rqd);
+  st.add("lb,eq", "α1 lb,rqd, from the face of the support to the outside of the bend",
+         num(alpha1) + " × " + num(b.lb_rqd), lb_eq, "mm", "EN 1992-1-1 8.4.4(2), Figure 8.1 b");
+  const double ext = standard_bend_extension(phi);
+  st.add("extension", "5 φ past the bend (90° standard bend)", "5 × " + num(phi), ext, "mm",
+         "EN 1992-1-1 Figure 8.1 b (value from memory)");
+  DetailLength out{lb_eq, "EN 1992-1-1 8.3, 8.4.4(2)", st.take()};
+  out.bend_diameter_mm = phi_m;
+  out.extension_mm = ext;
+  return out;
 }
 
 DetailLength Checker::lap(const BarDetailDemand& bar) const {

@@ -587,6 +587,14 @@ double interior_support_minimum_embedment(double phi) { return 10.0 * phi; }
 
 double partial_fixity_bar_extent(double span) { return 0.2 * span; }
 
+double minimum_mandrel_diameter(double phi) { return (phi <= 16.0 + 1e-9 ? 4.0 : 7.0) * phi; }
+
+double shape_factor_bent(double cd, double phi) { return cd > 3.0 * phi ? 0.7 : 1.0; }
+
+double equivalent_anchorage_length_bent(double alpha1, double lb_rqd) { return alpha1 * lb_rqd; }
+
+double standard_bend_extension(double phi) { return 5.0 * phi; }
+
 // Table 5.8 columns 4 (ly/lx ≤ 1.5) and 5 (1.5 < ly/lx ≤ 2), REI 30 to 240.
 int fire_two_way_column(double ly_over_lx) { return ly_over_lx <= 1.5 ? 4 : ly_over_lx <= 2.0 ? 5 : 3; }
 double fire_min_axis_distance_two_way(int minutes, double ly_over_lx) {

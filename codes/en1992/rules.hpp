@@ -121,6 +121,19 @@ double interior_support_minimum_embedment(double phi);
 // 9.3.1.2(2): top steel at a simple end support runs at least 0.2 of the
 // adjacent span from the face of the support.
 double partial_fixity_bar_extent(double span);
+// 8.3(2) Table 8.1N (value from memory): the least mandrel diameter of a
+// bend or hook, φm,min = 4 φ for φ ≤ 16 mm, 7 φ for φ > 16 mm.
+double minimum_mandrel_diameter(double phi);
+// 8.4.4(1) Table 8.2 (value from memory): α1 = 0.7 for a bent or hooked
+// bar in tension where cd > 3 φ (cd of Figure 8.3 b, c), else 1.0.
+double shape_factor_bent(double cd, double phi);
+// 8.4.4(2): the equivalent anchorage length of a standard bend (Figure
+// 8.1 b), lb,eq = α1 lb,rqd, measured from the section to the outside of
+// the bend.
+double equivalent_anchorage_length_bent(double alpha1, double lb_rqd);
+// Figure 8.1 b (value from memory): the straight extension past a
+// standard bend, 5 φ.
+double standard_bend_extension(double phi);
 
 // ---- Crack control (EN 1992-1-1 7.3) --------------------------------------
 bool crack_check_needed(double h);  // 7.3.3(1): none for h ≤ 200 mm

@@ -317,3 +317,151 @@ TEST_CASE("EN 9.3.1.2(2) top bars at a simple end run 0.2 of the span", "[detail
   const armature::ForwardingDetailingRules fwd(*s.checker->detailing_rules());
   CHECK(fwd.end_top_bar_extent(bar12(armature::Face::top, 25), 3000).length_mm == Approx(600));
 }
+
+TEST_CASE("EN 8.3 and 8.4.4(2) standard bend clause functions", "[detailing][en1992][hooks]") {
+  using namespace armature::en1992;
+  // Table 8.1N (value from memory): φm,min = 4 φ for φ ≤ 16 mm, 7 φ above.
+  CHECK(minimum_mandrel_diameter(12) == Approx(48));
+  CHECK(minimum_mandrel_diameter(16) == Approx(64));
+  CHECK(minimum_mandrel_diameter(20) == Approx(140));
+  // Table 8.2 (value from memory): α1 = 0.7 for a bent bar where cd > 3 φ, else 1.0.
+  CHECK(shape_factor_bent(37, 12) == 0.7);
+  CHECK(shape_factor_bent(36, 12) == 1.0);
+  // 8.4.4(2): lb,eq = α1 lb,rqd; 0.7 × 428.9 = 300.2 mm (hand evaluation of EN 1992-1-1 8.4.4).
+  CHECK(equivalent_anchorage_length_bent(0.7, 428.88) == Approx(300.22).epsilon(0.001));
+  // Figure 8.1 b (value from memory): 5 φ past the bend.
+  CHECK(standard_bend_extension(12) == Approx(60));
+}
+
+TEST_CASE("EN hooked anchorage of a session: 12 mm and 20 mm bars in C30/37", "[detailing][en1992][hooks]") {
+  const Session s = session_of(workshop_en(200, "C30/37"));
+  const armature::DetailingRules* rules = s.checker->detailing_rules();
+  auto b = bar12(armature::Face::bottom, 25);
+  // At fyd: cd = a/2 = (175 − 12)/2 = 81.5 > 3 × 12 = 36, α1 = 0.7;
+  // lb,eq = 0.7 × 428.9 = 300.2 mm (hand evaluation of EN 1992-1-1 8.4.4(2), lb,rqd of the test above).
+  const auto h = rules->hooked_anchorage(b);
+  CHECK(h.length_mm == Approx(300.2).epsilon(0.002));
+  CHECK(h.length_mm == Approx(0.7 * rules->anchorage(b).length_mm / 0.8375).epsilon(0.002));  // α2 = 0.8375 straight
+  CHECK(h.bend_diameter_mm == Approx(48));  // 4 φ, Table 8.1N (value from memory)
+  CHECK(h.extension_mm == Approx(60));      // 5 φ, Figure 8.1 b (value from memory)
+  CHECK(h.clause == "EN 1992-1-1 8.3, 8.4.4(2)");
+  // At an end support, at σsd = FE/As: 3 × 51.6 / 3.041 = 50.9 mm, × 0.7 = 35.6 mm (by hand, as above).
+  b.V_Ed_N = 30e3;
+  b.at_end_support = true;
+  CHECK(rules->hooked_anchorage(b).length_mm == Approx(35.6).epsilon(0.005));
+  // 20 mm bars at 100 mm: cd = 40 ≤ 60, α1 = 1.0: lb,eq = lb,rqd = 5 × 434.8 / 3.041 = 714.8 mm; mandrel 7 φ.
+  armature::BarDetailDemand t = bar12(armature::Face::bottom, 25);
+  t.diameter_mm = 20;
+  t.spacing_mm = 100;
+  const auto h20 = rules->hooked_anchorage(t);
+  CHECK(h20.length_mm == Approx(714.8).epsilon(0.002));
+  CHECK(h20.bend_diameter_mm == Approx(140));
+  CHECK(h20.extension_mm == Approx(100));
+  // EN sets no limit of the kind of ACI 7.7.3.8.3.
+  CHECK_FALSE(rules->zero_moment_development(t, armature::ZeroMomentSite{}).applies);
+}
+
+TEST_CASE("ACI 25.3 and 25.4.3.1 standard hook clause functions", "[detailing][aci318][hooks]") {
+  using namespace armature::aci318;
+  // #4 bar, Grade 60, 4000 psi: ψc = 4000/15 000 + 0.6 = 0.8667; ldh = 60 000 × 1.0 × 1.6 × 1.0 × 0.8667
+  // × 0.5^1.5 / (55 × 1.0 × 63.25) = 8.456 in, above 8 db = 4 in and 6 in (hand evaluation of 25.4.3.1,
+  // value from memory).
+  const double psi_c = inch_pound::hook_concrete_strength_factor(4000);
+  CHECK(psi_c == Approx(0.86667).epsilon(1e-4));
+  CHECK(inch_pound::hooked_development_length(60000, std::sqrt(4000.0), 1.0, 1.6, 1.0, psi_c, 1.0, 0.5) ==
+        Approx(8.456).epsilon(0.001));
+  // ψc = 1.0 from 6000 psi; a #3 bar in 8000 psi: 4.48 in by (a), so the 6 in of (c) governs.
+  CHECK(inch_pound::hook_concrete_strength_factor(8000) == 1.0);
+  CHECK(inch_pound::hooked_development_length(60000, std::sqrt(8000.0), 1.0, 1.6, 1.0, 1.0, 1.0, 0.375) == 6.0);
+  // SI: No. 13 in 28 MPa, Grade 420: ψc = 28/105 + 0.6 = 0.8667; 420 × 1.6 × 0.8667 × 12.7^1.5 / (23 × 5.292)
+  // = 216.6 mm; No. 10: 140.1 mm, so 150 mm governs (hand evaluation of 25.4.3.1, value from memory).
+  CHECK(hook_concrete_strength_factor(28) == Approx(0.86667).epsilon(1e-4));
+  CHECK(hook_concrete_strength_factor(45) == 1.0);
+  const double rf = std::sqrt(28.0);
+  CHECK(hooked_development_length(420, rf, 1.0, 1.6, 1.0, 0.86667, 1.0, 12.7) == Approx(216.6).epsilon(0.001));
+  CHECK(hooked_development_length(420, rf, 1.0, 1.6, 1.0, 0.86667, 1.0, 9.5) == 150.0);
+  // Table 25.3.2 (value from memory): 6 db to No. 25, 8 db No. 29 to No. 36; Table 25.3.1: 12 db extension.
+  CHECK(hook_inside_bend_diameter(12.7) == Approx(76.2));
+  CHECK(hook_inside_bend_diameter(25.4) == Approx(152.4));
+  CHECK(hook_inside_bend_diameter(28.7) == Approx(229.6));
+  CHECK(hook_extension_90(12.7) == Approx(152.4));
+  // 7.7.3.8.3 (value from memory): 1.3 Mn/Vu + ℓa confined, Mn/Vu + ℓa not; ℓa at a point of inflection ≤ max(d, 12 db).
+  CHECK(zero_moment_development_limit(100e6, 100e3, 150, true) == Approx(1450));
+  CHECK(zero_moment_development_limit(100e6, 100e3, 150, false) == Approx(1150));
+  CHECK(inflection_embedment_limit(150, 12.7) == Approx(152.4));
+  CHECK(inflection_embedment_limit(180, 12.7) == 180);
+}
+
+TEST_CASE("ACI hooked anchorage and the 7.7.3.8.3 limit of a session", "[detailing][aci318][hooks]") {
+  nlohmann::json req = {{"code", "ACI318-19"},
+                        {"slab", {{"spans_m", {4.2}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 180}}},
+                        {"concrete", {{"cylinder_strength_MPa", 28}}},
+                        {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}}}};
+  const Session si = session_of(req);
+  const armature::DetailingRules* rules = si.checker->detailing_rules();
+  armature::BarDetailDemand b;
+  b.where = "span 1";
+  b.diameter_mm = 12.7;
+  b.spacing_mm = 200;
+  b.cover_mm = 20;
+  b.d_mm = 153.65;
+  b.As_prov_mm2 = 129 * 1000 / 200.0;
+  const auto h = rules->hooked_anchorage(b);
+  CHECK(h.length_mm == Approx(216.6).epsilon(0.001));  // as by hand above
+  CHECK(h.bend_diameter_mm == Approx(76.2));
+  CHECK(h.extension_mm == Approx(152.4));
+  CHECK(h.clause == "ACI 318-19 25.3, 25.4.3");
+  // 7.7.3.8.3: a = 645 × 420 / (0.85 × 28 × 1000) = 11.38 mm, Mn = 645 × 420 × (153.65 − 5.69) = 40.08 kNm;
+  // ld = 353.3 mm (above). Vu = 200 kN: 1.3 × 200.4 + 150 = 410.5 mm ≥ 353.3, met; Vu = 300 kN: 1.3 × 133.6
+  // + 150 = 323.7 mm < 353.3, not met (hand evaluation of 7.7.3.8.3, value from memory).
+  armature::ZeroMomentSite site{true, true, false, 150.0};
+  b.V_Ed_N = 200e3;
+  auto lim = rules->zero_moment_development(b, site);
+  CHECK(lim.applies);
+  CHECK(lim.met);
+  CHECK(lim.length_mm == Approx(353.3).epsilon(0.002));
+  CHECK(lim.limit_mm == Approx(410.5).epsilon(0.002));
+  CHECK(lim.clause == "ACI 318-19 7.7.3.8.3");
+  b.V_Ed_N = 300e3;
+  lim = rules->zero_moment_development(b, site);
+  CHECK_FALSE(lim.met);
+  CHECK(lim.limit_mm == Approx(323.7).epsilon(0.002));
+  // Not confined (a point of inflection): Mn/Vu + ℓa, ℓa ≤ max(d, 12 db) = 153.65: 133.6 + 153.65 = 287.3 mm.
+  lim = rules->zero_moment_development(b, armature::ZeroMomentSite{false, false, false, 400.0});
+  CHECK(lim.limit_mm == Approx(287.3).epsilon(0.002));
+  // A standard hook past the centreline of a simple support: need not be met.
+  lim = rules->zero_moment_development(b, armature::ZeroMomentSite{true, true, true, 80.0});
+  CHECK(lim.applies);
+  CHECK(lim.met);
+
+  req["variant"] = "US";
+  req["concrete"] = {{"cylinder_strength", "4000 psi"}};
+  req["slab"] = {{"spans", {"14 ft"}}, {"ends", {"pinned", "pinned"}}, {"thickness", "7 in"}};
+  req["loads"] = {{"dead", "15 psf"}, {"imposed", "65 psf"}};
+  const Session us = session_of(req);
+  armature::BarDetailDemand u = b;
+  u.diameter_mm = 0.5 * 25.4;
+  // #4, Grade 60, 4000 psi: 8.456 in (by hand above).
+  CHECK(us.checker->detailing_rules()->hooked_anchorage(u).length_mm / 25.4 == Approx(8.456).epsilon(0.001));
+}
+
+TEST_CASE("A forwarding detailing rules object forwards the hook and the zero-moment limit", "[detailing][hooks]") {
+  nlohmann::json req = {{"code", "ACI318-19"},
+                        {"slab", {{"spans_m", {4.2}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 180}}},
+                        {"concrete", {{"cylinder_strength_MPa", 28}}},
+                        {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}}}};
+  const Session s = session_of(req);
+  const armature::ForwardingDetailingRules fwd(*s.checker->detailing_rules());
+  armature::BarDetailDemand b;
+  b.where = "span 1";
+  b.diameter_mm = 12.7;
+  b.spacing_mm = 200;
+  b.cover_mm = 20;
+  b.d_mm = 153.65;
+  b.As_prov_mm2 = 645;
+  b.V_Ed_N = 300e3;
+  CHECK(fwd.hooked_anchorage(b).length_mm == Approx(216.6).epsilon(0.001));
+  const auto lim = fwd.zero_moment_development(b, armature::ZeroMomentSite{true, true, false, 150.0});
+  CHECK(lim.applies);
+  CHECK_FALSE(lim.met);
+}

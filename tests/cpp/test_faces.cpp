@@ -399,8 +399,8 @@ TEST_CASE("A support width at a pinned end is not used and the result says so", 
     return std::any_of(rec.warnings.begin(), rec.warnings.end(),
                        [&](const std::string& w) { return w.find(text) != std::string::npos; });
   };
-  CHECK(has(r, "support 1: the support width of 200 mm is not used (pinned end: no hogging moment to reduce)"));
-  CHECK(has(r, "support 3: the support width of 250 mm is not used (pinned end: no hogging moment to reduce)"));
+  CHECK(has(r, "support 1: the support width of 200 mm is not used for the design moment (pinned end: no hogging moment to reduce)"));
+  CHECK(has(r, "support 3: the support width of 250 mm is not used for the design moment (pinned end: no hogging moment to reduce)"));
   CHECK_FALSE(has(r, "support 2: the support width"));
   // The same design as with no width at the ends: nothing else changes.
   req["slab"]["support_widths_mm"] = {0, 300, 0};

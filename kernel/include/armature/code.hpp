@@ -517,6 +517,10 @@ struct BarDetailDemand {
   // Laps: the share of the bars lapped at one section (0.5: alternate
   // laps staggered).
   double lapped_share = 1.0;
+  // hooked_anchorage: a bottom bar anchored at an end support (the force
+  // of V_Ed_N there, as end_support_anchorage), else a bar at its full
+  // design strength.
+  bool at_end_support = false;
 };
 
 // A length the code requires, with its clause and the steps of its
@@ -525,11 +529,36 @@ struct DetailLength {
   double length_mm = 0.0;
   std::string clause;
   std::vector<Step> steps;
+  // A bent bar's end (hooked_anchorage only; 0 for straight lengths): the
+  // inside diameter of the bend and the straight extension past it.
+  double bend_diameter_mm = 0.0;
+  double extension_mm = 0.0;
+};
+
+// A limit the code sets on a bar where the code asks it (met or not), with
+// its derivation; `applies` false where the code sets none.
+struct DetailLimit {
+  bool applies = false;
+  bool met = true;
+  double length_mm = 0.0;  // the length the code limits (e.g. ld)
+  double limit_mm = 0.0;   // its limit (0: none at this section)
+  std::string clause;
+  std::vector<Step> steps;
+};
+
+// The end of a bottom (positive-moment) bar at a point of zero moment: a
+// simple support or a point of inflection.
+struct ZeroMomentSite {
+  bool simple_support = true;  // else a point of inflection
+  bool confined = false;       // the bar's end confined by a compressive reaction
+  bool hooked = false;         // the bar ends past the support's centreline in a standard hook
+  double embedment_mm = 0.0;   // past the support's centreline, or past the point of inflection
 };
 
 // The code's rules for the lengths of bars: how far past the point where
 // a bar is no longer needed it runs (the shift), its anchorage there, at
-// end and interior supports, and its laps. Straight bars throughout.
+// end and interior supports, its laps, and the standard bend or hook a bar
+// ends in where a straight anchorage does not fit.
 class DetailingRules {
  public:
   virtual ~DetailingRules() = default;
@@ -539,8 +568,9 @@ class DetailingRules {
   // Anchorage (development) length of a straight bar in tension at its
   // full design strength.
   virtual DetailLength anchorage(const BarDetailDemand& bar) const = 0;
-  // How far bottom bars run past the centreline of an end (simple)
-  // support (no support width is given).
+  // How far bottom bars run past an end (simple) support: past its
+  // centreline where no support width is given, past its face (the line
+  // of contact) where one is.
   virtual DetailLength end_support_anchorage(const BarDetailDemand& bar) const = 0;
   // The least embedment of bottom bars past the centreline of an
   // interior support.
@@ -553,6 +583,16 @@ class DetailingRules {
   // into the span of length span_mm at least; none (0) when the code sets
   // no such length (the shift and anchorage then govern).
   virtual DetailLength end_top_bar_extent(const BarDetailDemand&, double /*span_mm*/) const { return {}; }
+  // A bar that ends in the code's standard bend or hook where a straight
+  // anchorage does not fit: the anchorage it needs past the section (the
+  // support's face), measured to the outside of the bend, with the
+  // bend's inside diameter and the straight extension past the bend
+  // (bar.at_end_support: a bottom bar at an end support).
+  virtual DetailLength hooked_anchorage(const BarDetailDemand& bar) const = 0;
+  // A limit on the development of bottom bars where the moment falls to
+  // zero (a simple support or a point of inflection), bar.V_Ed_N the
+  // shear there; none (applies false) by default.
+  virtual DetailLimit zero_moment_development(const BarDetailDemand&, const ZeroMomentSite&) const { return {}; }
 };
 
 class ForwardingDetailingRules : public DetailingRules {
@@ -569,6 +609,10 @@ class ForwardingDetailingRules : public DetailingRules {
   DetailLength lap(const BarDetailDemand& bar) const override { return inner_->lap(bar); }
   DetailLength end_top_bar_extent(const BarDetailDemand& bar, double span_mm) const override {
     return inner_->end_top_bar_extent(bar, span_mm);
+  }
+  DetailLength hooked_anchorage(const BarDetailDemand& bar) const override { return inner_->hooked_anchorage(bar); }
+  DetailLimit zero_moment_development(const BarDetailDemand& bar, const ZeroMomentSite& site) const override {
+    return inner_->zero_moment_development(bar, site);
   }
 
  protected:

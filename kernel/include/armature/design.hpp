@@ -104,9 +104,14 @@ struct DetailedBar {
   int count = 0;              // floor(extent across / spacing) + 1, or its share of alternate laps
   double start_mm = 0.0, end_mm = 0.0;  // main bars: along the strip; distribution: across it
   double along_from_mm = 0.0, along_to_mm = 0.0;  // distribution: the part of the strip they are spread over
-  double length_mm = 0.0;     // cut length
-  std::string shape = "straight";
-  double anchorage_start_mm = 0.0, anchorage_end_mm = 0.0;  // past the shifted zero point or support line
+  double length_mm = 0.0;     // cut length, the legs of bent ends included
+  std::string shape = "straight";  // "straight", "L-bar" (one bent end), "U-bar" (both)
+  // past the shifted zero point, the support's line or (with a width) its
+  // face; at a bent end what the bar provides past the face to the outside
+  // of the bend
+  double anchorage_start_mm = 0.0, anchorage_end_mm = 0.0;
+  // A bent end's leg, measured to the outside of the bend (0: straight end).
+  double leg_start_mm = 0.0, leg_end_mm = 0.0;
   double shift_mm = 0.0;
   std::vector<DetailLap> laps;  // lap zones at this bar's ends
   std::string clause;

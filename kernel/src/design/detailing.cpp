@@ -1,7 +1,9 @@
 // Detailing of a one-way strip: each region's bars run over the part of
 // the strip where the envelope needs them, past it by the code's shift and
-// anchorage (or past a support line by the code's length there), lapped
-// where longer than the stock; then marks, counts, schedule and mass.
+// anchorage (or past a support line, or a given support's face, by the
+// code's length there), ending in the code's standard bend where a given
+// end support is too narrow for the straight length, lapped where longer
+// than the stock; then marks, counts, schedule and mass.
 #include "detailing.hpp"
 
 #include <algorithm>
@@ -42,8 +44,9 @@ struct Run {
   BarChoice bars;
   BarDetailDemand demand;
   double start = 0.0, end = 0.0;
-  bool start_fixed = false, end_fixed = false;  // at a free tip: rounding extends the other end
+  bool start_fixed = false, end_fixed = false;  // at a free tip or a bend: rounding extends the other end
   double anch_start = 0.0, anch_end = 0.0, shift = 0.0;
+  double leg_start = 0.0, leg_end = 0.0;  // bent ends: the leg to the outside of the bend
   std::string clause;
   bool distribution = false;
   bool curtailed = false;  // the alternate bars stopped inside the span
@@ -56,6 +59,24 @@ std::string face_name(Face f) { return f == Face::top ? "top" : "bottom"; }
 
 int count_over(double extent_mm, double spacing_mm) {
   return static_cast<int>(std::floor(extent_mm / spacing_mm + 1e-9)) + 1;
+}
+
+// The shape of a bar by its bent ends.
+std::string shape_of(double leg_start, double leg_end) {
+  const int bends = (leg_start > 0.0 ? 1 : 0) + (leg_end > 0.0 ? 1 : 0);
+  return bends == 0 ? "straight" : bends == 1 ? "L-bar" : "U-bar";
+}
+
+// The shear envelope of a span's points at x (linear between points).
+double shear_at(const std::vector<DiagramPoint>& pts, double x) {
+  auto V = [](const DiagramPoint& p) { return std::max(std::abs(p.V_max), std::abs(p.V_min)); };
+  for (std::size_t k = 1; k < pts.size(); ++k)
+    if (pts[k].x_mm >= x) {
+      const double dx = pts[k].x_mm - pts[k - 1].x_mm;
+      const double t = dx > 0.0 ? std::clamp((x - pts[k - 1].x_mm) / dx, 0.0, 1.0) : 1.0;
+      return V(pts[k - 1]) + t * (V(pts[k]) - V(pts[k - 1]));
+    }
+  return pts.empty() ? 0.0 : V(pts.back());
 }
 
 }  // namespace
@@ -74,6 +95,13 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   const bool left_free = req.slab.ends[0] == EndSupport::free;
   const bool right_free = req.slab.ends[1] == EndSupport::free;
   auto cantilever = [&](std::size_t e) { return (e == 0 && left_free) || (e + 1 == n && right_free); };
+  // slab.support_widths_mm (one per support; none or 0: a knife edge, the
+  // bars measured from its line and free to run past it). The slab ends
+  // flush with an end support's outer face.
+  auto width_at = [&](std::size_t j) {
+    return req.slab.support_widths_mm.size() == n + 1 ? req.slab.support_widths_mm[j] : 0.0;
+  };
+  auto support_label = [](std::size_t j) { return "support " + std::to_string(j + 1); };
 
   // The envelope along the strip, span by span (a support appears twice).
   std::vector<Point> P;
@@ -114,12 +142,100 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     b.lapped_share = lapped_share_staggered;
     return b;
   };
-  auto derive = [&](const std::string& where, const char* what, const DetailLength& l) {
+  auto derive = [&](const std::string& where, const std::string& what, const DetailLength& l) {
     if (l.length_mm != 0.0 || !l.clause.empty()) out.derivations.push_back({where, what, l});  // none: no rule
     return l.length_mm;
   };
   auto ask = [&](const char* stage, const std::string& where, auto&& fn) {
     return call_code(code, stage, std::forward<decltype(fn)>(fn), where);
+  };
+
+  // An end of a bar at end support j (dir outward) given a width t: the
+  // bar runs straight to `want` where that lies within the slab's end less
+  // the cover (t/2 − c past the centreline); else it stops there in the
+  // code's standard bend, whose anchorage (`demand`, measured from
+  // `origin`, to the outside of the bend) the bar then provides as far
+  // as the support allows, with a note where that is short or where the
+  // leg (bottom bars up into the slab; top bars down, into the support at
+  // a built-in end) does not fit the slab's depth.
+  struct EndFit {
+    double reach = 0.0, anchorage = 0.0, leg = 0.0;
+    bool bent = false;
+  };
+  auto fit_end = [&](const std::string& label, const std::string& side, std::size_t j, double dir, Face face,
+                     double want, double anchorage, double origin, bool from_face,
+                     const BarDetailDemand& demand) -> EndFit {
+    const double t = width_at(j);
+    const double c = rec.cover_mm(face);
+    const double outer = X[j] + dir * (t / 2.0 - c);
+    if (t <= 0.0 || dir * (want - outer) <= 1e-6) return {want, anchorage, 0.0, false};
+    const std::string where = demand.where;
+    const DetailLength hook =
+        ask("detailing hooked anchorage", where, [&] { return rules.hooked_anchorage(demand); });
+    derive(label, "hooked anchorage (" + side + ")", hook);
+    const double provided = dir * (outer - origin);
+    const double phi = demand.diameter_mm;
+    const double leg = hook.bend_diameter_mm / 2.0 + phi + hook.extension_mm;
+    const bool leg_in_slab = !(face == Face::top && req.slab.ends[j == 0 ? 0 : 1] == EndSupport::fixed);
+    const double room = req.slab.thickness_mm - rec.cover_mm(Face::top) - rec.cover_mm(Face::bottom);
+    DetailLength bend;
+    bend.length_mm = provided;
+    bend.clause = hook.clause;
+    bend.steps = {
+        {"t", "breadth of " + support_label(j) + " (the slab ends flush with its outer face)", "", t, "mm", ""},
+        {"c", "cover at the slab's end (the " + face_name(face) + " face's nominal cover)", "", c, "mm", ""},
+        {"l,straight", "the straight length the code requires here, past " +
+                           std::string(from_face ? "the support's face" : "the shifted zero point"),
+         "", dir * (want - origin), "mm", ""},
+        {"lb,prov", "from there to the slab's end less the cover: the outside of the bend",
+         plain_number(dir * (X[j] - origin) + t / 2.0) + " − " + plain_number(c), provided, "mm", ""},
+        {"lb,req", "the bent bar's anchorage (above)", "", hook.length_mm, "mm", hook.clause},
+        {"D", "inside diameter of the bend (above)", "", hook.bend_diameter_mm, "mm", hook.clause},
+        {"leg", "D/2 + φ + extension, to the outside of the bend",
+         plain_number(hook.bend_diameter_mm) + "/2 + " + plain_number(phi) + " + " + plain_number(hook.extension_mm),
+         leg, "mm", ""}};
+    if (leg_in_slab)
+      bend.steps.push_back({"h,legs", "room for the leg: h less the top and bottom covers",
+                            plain_number(req.slab.thickness_mm) + " − " + plain_number(rec.cover_mm(Face::top)) +
+                                " − " + plain_number(rec.cover_mm(Face::bottom)),
+                            room, "mm", ""});
+    const bool anchored = provided >= hook.length_mm - 1e-6;
+    bend.steps.push_back({"lb,req/lb,prov",
+                          anchored ? "the bend anchors the bar" : "short: the bend does not anchor the bar",
+                          plain_number(hook.length_mm) + " / " + plain_number(provided),
+                          provided > 0.0 ? hook.length_mm / provided : std::numeric_limits<double>::infinity(), "-",
+                          ""});
+    derive(label, "bend (" + side + ")", bend);
+    if (!anchored)
+      out.notes.push_back(label + ": at " + support_label(j) + " the bent bar provides " + plain_number(provided) +
+                          " mm of anchorage past its " +
+                          (from_face ? "face" : "shifted zero point") + ", less than the " +
+                          plain_number(hook.length_mm) + " mm " + hook.clause +
+                          " requires: widen the support or use smaller bars");
+    if (leg_in_slab && leg > room + 1e-6)
+      out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +
+                          " mm does not fit the slab's depth (" + plain_number(room) + " mm between the covers)");
+    return {outer, provided, leg, true};
+  };
+  // 7.7.3.8.3-like limits of the code on the bottom bars where the moment
+  // falls to zero: at a pinned end (its reaction, a bearing below the
+  // slab, confines the bars' ends) and at a point of inflection inside
+  // the span; a note where not met.
+  auto zero_moment_limit = [&](const std::string& label, std::size_t e, const std::string& side,
+                               const BarDetailDemand& demand, const ZeroMomentSite& site, double V_N,
+                               const std::string& at) {
+    BarDetailDemand d = demand;
+    d.V_Ed_N = V_N;
+    const DetailLimit lim =
+        ask("detailing zero moment", demand.where, [&] { return rules.zero_moment_development(d, site); });
+    if (!lim.applies) return;
+    derive(label, "bar size at zero moment (" + side + ")", DetailLength{lim.limit_mm, lim.clause, lim.steps});
+    if (!lim.met)
+      out.notes.push_back("span " + std::to_string(e + 1) + ": the bottom bars' development length " +
+                          plain_number(lim.length_mm) + " mm exceeds the limit " + plain_number(lim.limit_mm) +
+                          " mm at " + at + " (" + lim.clause + "): use smaller bars" +
+                          (site.simple_support ? ", or end them in a standard hook past the support's centreline"
+                                               : ""));
   };
 
   std::vector<Run> runs;
@@ -163,18 +279,42 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       const double reach_env = sags && !at_support_line ? zero + dir * (al + lbd) : X[node];
       double reach = reach_env;
       double anch = lbd;
+      const std::string side_word = side == 0 ? "start" : "end";
       if (strip_end) {
         BarDetailDemand d = run.demand;
         d.V_Ed_N = std::max(std::abs(pts[side == 0 ? 0 : pts.size() - 1].V_max),
                             std::abs(pts[side == 0 ? 0 : pts.size() - 1].V_min));
-        const double ea = derive(label, side == 0 ? "end support anchorage (start)" : "end support anchorage (end)",
+        const double ea = derive(label, "end support anchorage (" + side_word + ")",
                                  ask("detailing end support", where, [&] { return rules.end_support_anchorage(d); }));
-        const double past = X[node] + dir * ea;
+        const double face = X[node] - dir * width_at(node) / 2.0;  // the line where no width is given
+        const double past = face + dir * ea;
+        const bool by_support = at_support_line || !sags || dir * (past - reach_env) >= 0.0;
         if (at_support_line || !sags) {
+          reach = face;  // anchored from the face (EN 9.2.1.4(3): the line of contact); the line without a width
           anch = ea;
           run.clause += "; " + out.derivations.back().length.clause;
         }
         reach = dir < 0 ? std::min(reach, past) : std::max(reach, past);
+        // A given width: the bar ends within the slab, bent where the straight length does not fit.
+        BarDetailDemand hd = by_support ? d : run.demand;
+        hd.at_end_support = by_support;
+        const EndFit fit = fit_end(label, side_word, node, dir, Face::bottom, reach, anch,
+                                   by_support ? face : zero + dir * al, by_support, hd);
+        if (fit.bent) {
+          reach = fit.reach;
+          anch = fit.anchorage;
+          (side == 0 ? run.leg_start : run.leg_end) = fit.leg;
+          (side == 0 ? run.start_fixed : run.end_fixed) = true;
+          if (run.clause.find(out.derivations.back().length.clause) == std::string::npos)
+            run.clause += "; " + out.derivations.back().length.clause;
+        }
+        if (req.slab.ends[side == 0 ? 0 : 1] == EndSupport::pinned && sags && at_support_line)
+          zero_moment_limit(label, e, side_word, run.demand,
+                            ZeroMomentSite{true, true, fit.bent, dir * (reach - X[node])}, d.V_Ed_N,
+                            support_label(node));
+        else if (sags && !at_support_line)
+          zero_moment_limit(label, e, side_word, run.demand, ZeroMomentSite{false, false, false, dir * (reach - zero)},
+                            shear_at(pts, zero), "the point of inflection at " + plain_number(zero / 1000.0) + " m");
       } else {
         const double emb = derive(label, "interior support embedment",
                                   ask("detailing embedment", where, [&] { return rules.interior_support_embedment(run.demand); }));
@@ -182,6 +322,9 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
           run.clause += "; " + out.derivations.back().length.clause;
         const double past = X[node] + dir * emb;
         reach = dir < 0 ? std::min(reach, past) : std::max(reach, past);
+        if (sags && !at_support_line)
+          zero_moment_limit(label, e, side_word, run.demand, ZeroMomentSite{false, false, false, dir * (reach - zero)},
+                            shear_at(pts, zero), "the point of inflection at " + plain_number(zero / 1000.0) + " m");
       }
       if (side == 0) {
         run.start = reach;
@@ -312,6 +455,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     run.shift = al;
     run.clause = out.derivations[out.derivations.size() - 2].length.clause + "; " + out.derivations.back().length.clause;
     const std::size_t kL = first_at(X[j]), kR = last_at(X[j]);
+    // Top bars at an end support bend down (into the support at a built-in end).
     // Leftwards.
     {
       std::size_t k = kL;
@@ -324,8 +468,14 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
         else zl = crossing(P[k].x, P[k].hog, P[k - 1].x, P[k - 1].hog);
       }
       if (reached_end || (j == 0 && !hog)) {
-        if (left_free) run.start = rec.cover_mm(Face::top), run.anch_start = 0.0, run.start_fixed = true;
-        else run.start = 0.0 - lbd, run.anch_start = lbd;
+        if (left_free) {
+          run.start = rec.cover_mm(Face::top), run.anch_start = 0.0, run.start_fixed = true;
+        } else {
+          const double face = width_at(0) / 2.0;  // the line where no width is given
+          const EndFit fit = fit_end(label, "start", 0, -1.0, Face::top, face - lbd, lbd, face, true, run.demand);
+          run.start = fit.reach, run.anch_start = fit.anchorage;
+          if (fit.bent) run.leg_start = fit.leg, run.start_fixed = true;
+        }
       } else {
         run.start = (hog ? zl : X[j]) - al - lbd;
         run.anch_start = lbd;
@@ -333,7 +483,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
           const double ext = derive(label, "extent into the span",
                                     ask("detailing end top bars", where,
                                         [&] { return rules.end_top_bar_extent(run.demand, spans[n - 1]); }));
-          run.start = std::min(run.start, X[j] - ext);
+          run.start = std::min(run.start, X[j] - width_at(j) / 2.0 - ext);
         }
       }
     }
@@ -349,8 +499,14 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
         else zr = crossing(P[k].x, P[k].hog, P[k + 1].x, P[k + 1].hog);
       }
       if (reached_end || (j == n && !hog)) {
-        if (right_free) run.end = total - rec.cover_mm(Face::top), run.anch_end = 0.0, run.end_fixed = true;
-        else run.end = total + lbd, run.anch_end = lbd;
+        if (right_free) {
+          run.end = total - rec.cover_mm(Face::top), run.anch_end = 0.0, run.end_fixed = true;
+        } else {
+          const double face = total - width_at(n) / 2.0;  // the line where no width is given
+          const EndFit fit = fit_end(label, "end", n, 1.0, Face::top, face + lbd, lbd, face, true, run.demand);
+          run.end = fit.reach, run.anch_end = fit.anchorage;
+          if (fit.bent) run.leg_end = fit.leg, run.end_fixed = true;
+        }
       } else {
         run.end = (hog ? zr : X[j]) + al + lbd;
         run.anch_end = lbd;
@@ -358,7 +514,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
           const double ext = derive(label, "extent into the span",
                                     ask("detailing end top bars", where,
                                         [&] { return rules.end_top_bar_extent(run.demand, spans[0]); }));
-          run.end = std::max(run.end, X[j] + ext);
+          run.end = std::max(run.end, X[j] + width_at(j) / 2.0 + ext);
         }
       }
     }
@@ -414,7 +570,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   InputProblems problems;
   std::vector<DetailedBar> bars;
   for (auto& run : runs) {
-    double length = run.end - run.start;
+    const double length = run.end - run.start;
+    const double legs = run.leg_start + run.leg_end;
     DetailedBar base;
     base.where = run.where;
     base.face = run.face;
@@ -429,22 +586,33 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     base.clause = run.clause;
     base.along_from_mm = run.along_from;
     base.along_to_mm = run.along_to;
+    // The cut length: the run and its legs, each to the outside of its
+    // bend, rounded up; the extra goes to the end that is free to move
+    // (both bent: to the end's leg).
     auto rounded = [&](DetailedBar& b, bool start_fixed, bool end_fixed) {
-      const double raw = b.end_mm - b.start_mm;
+      const double legs_b = b.leg_start_mm + b.leg_end_mm;
+      const double raw = b.end_mm - b.start_mm + legs_b;
       const double cut = std::ceil(raw / length_step_mm - 1e-9) * length_step_mm;
-      if (end_fixed && !start_fixed) b.start_mm = b.end_mm - cut;
-      else b.end_mm = b.start_mm + cut;
+      if (start_fixed && end_fixed && legs_b > 0.0) (b.leg_end_mm > 0.0 ? b.leg_end_mm : b.leg_start_mm) += cut - raw;
+      else if (end_fixed && !start_fixed) b.start_mm = b.end_mm - (cut - legs_b);
+      else b.end_mm = b.start_mm + (cut - legs_b);
       b.length_mm = cut;
+      b.shape = shape_of(b.leg_start_mm, b.leg_end_mm);
     };
-    if (length <= out.stock_length_mm) {
+    if (length + legs <= out.stock_length_mm) {
       DetailedBar b = base;
       b.count = run.count;
       b.start_mm = run.start;
       b.end_mm = run.end;
+      b.leg_start_mm = run.leg_start;
+      b.leg_end_mm = run.leg_end;
       rounded(b, run.start_fixed, run.end_fixed);
       if (b.length_mm > out.stock_length_mm) {  // rounding took it past the stock: keep the raw length
-        b.end_mm = run.start + length;
-        b.length_mm = length;
+        b.start_mm = run.start;
+        b.end_mm = run.end;
+        b.leg_start_mm = run.leg_start;
+        b.leg_end_mm = run.leg_end;
+        b.length_mm = length + legs;
       }
       bars.push_back(std::move(b));
       continue;
@@ -458,7 +626,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       continue;
     }
     // n pieces of set A, each at most the stock: L/n + lap ≤ stock.
-    const int pieces = static_cast<int>(std::ceil(length / (out.stock_length_mm - lap) - 1e-9));
+    const int pieces = static_cast<int>(std::ceil((length + legs) / (out.stock_length_mm - lap) - 1e-9));
     const double pitch = length / pieces;
     const int count_a = (run.count + 1) / 2, count_b = run.count / 2;
     for (int set = 0; set < 2; ++set) {
@@ -473,6 +641,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
         b.count = count;
         b.start_mm = a;
         b.end_mm = k < centres.size() ? centres[k] + lap / 2.0 : run.end;
+        if (k == 0) b.leg_start_mm = run.leg_start;
+        if (k == centres.size()) b.leg_end_mm = run.leg_end;
         if (k > 0) {
           b.anchorage_start_mm = 0.0;
           b.laps.push_back({b.start_mm, b.start_mm + lap});
@@ -490,9 +660,11 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   problems.raise_if_any();
 
   // Marks: one per distinct diameter, shape and cut length, in order along the strip.
-  std::map<std::tuple<double, std::string, double>, std::string> marks;
+  // (Bent bars: their legs too, either way round.)
+  std::map<std::tuple<double, std::string, double, double, double>, std::string> marks;
   for (auto& b : bars) {
-    const auto key = std::make_tuple(b.diameter_mm, b.shape, b.length_mm);
+    const auto key = std::make_tuple(b.diameter_mm, b.shape, b.length_mm, std::max(b.leg_start_mm, b.leg_end_mm),
+                                     std::min(b.leg_start_mm, b.leg_end_mm));
     auto it = marks.find(key);
     if (it == marks.end()) {
       const std::size_t k = marks.size() + 1;

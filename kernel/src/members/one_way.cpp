@@ -393,7 +393,7 @@ void OneWayStrip::apply_support_widths(const RegionRules& rules, std::vector<Reg
     if (t <= 0.0 || !m.has_support(j)) continue;
     if (end && !m.is_restrained(j)) {  // a pinned end carries no hogging moment to reduce
       warnings.push_back(support_name(j) + ": the support width of " + number_text(t) +
-                         " mm is not used (pinned end: no hogging moment to reduce)");
+                         " mm is not used for the design moment (pinned end: no hogging moment to reduce)");
       continue;
     }
     const std::string where = support_name(j);

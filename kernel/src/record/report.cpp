@@ -10,6 +10,7 @@
 #include <fstream>
 #include <random>
 #include <sstream>
+#include <utility>
 
 #include <nlohmann/json.hpp>
 
@@ -312,7 +313,8 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
 // The strip in elevation, lengths to scale: the slab's outline, the
 // supports, every main bar as a line with its mark (bottom bars below the
 // slab's middle, top bars above, each on a row of its own so they read
-// apart), laps drawn heavy, distribution bars as a row of dots each.
+// apart), a bent end as a short leg towards the slab (its length not to
+// scale), laps drawn heavy, distribution bars as a row of dots each.
 std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
   const RecordUnits u = units_of(r);
   double lo = 0.0, hi = d.strip_length_mm;
@@ -350,6 +352,11 @@ std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
                                          : slab_top + slab_h + row * static_cast<double>(++bt) + 6;
     o += "<line x1=\"" + n4(sx(b.start_mm)) + "\" y1=\"" + n4(y) + "\" x2=\"" + n4(sx(b.end_mm)) + "\" y2=\"" +
          n4(y) + "\" stroke=\"#000\" stroke-width=\"1\"/>";
+    const double leg_dy = b.face == Face::top ? 8.0 : -8.0;  // towards the slab
+    for (const auto& [x_end, leg] : {std::pair{b.start_mm, b.leg_start_mm}, std::pair{b.end_mm, b.leg_end_mm}})
+      if (leg > 0.0)
+        o += "<line x1=\"" + n4(sx(x_end)) + "\" y1=\"" + n4(y) + "\" x2=\"" + n4(sx(x_end)) + "\" y2=\"" +
+             n4(y + leg_dy) + "\" stroke=\"#000\" stroke-width=\"1\"/>";
     for (const auto& l : b.laps)
       o += "<line x1=\"" + n4(sx(l.from_mm)) + "\" y1=\"" + n4(y) + "\" x2=\"" + n4(sx(l.to_mm)) + "\" y2=\"" + n4(y) +
            "\" stroke=\"#000\" stroke-width=\"3\"/>";
@@ -367,7 +374,11 @@ std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
     }
   }
   o += "<text x=\"4\" y=\"" + n4(height - 4) + "\">strip " + esc(u.along(d.strip_length_mm)) +
-       " between its ends; dots: distribution bars (marks in the table)</text>";
+       " between its ends; dots: distribution bars (marks in the table)" +
+       (std::any_of(d.bars.begin(), d.bars.end(), [](const DetailedBar& b) { return b.shape != "straight"; })
+            ? "; short ticks: bent ends"
+            : "") +
+       "</text>";
   return o + "</svg>";
 }
 
