@@ -275,7 +275,9 @@ enum PlateLevel : std::size_t { plate_dead = 0, plate_service = 1 };
 std::vector<PlateDeflectionState> Checker::plate_deflection_states() const {
   if (!req_.serviceability.calculated_deflection()) return {};
   const double Ec = concrete_modulus();
-  return {{"D (sustained)", LimitState::quasi_permanent, Ec}, {"D + L (service)", LimitState::characteristic, Ec}};
+  const double lambda_delta = long_term_multiplier(time_dependent_factor_five_years, 0.0);
+  return {{"D (sustained)", LimitState::quasi_permanent, Ec, lambda_delta - 1.0},
+          {"D + L (service)", LimitState::characteristic, Ec, 1.0}};
 }
 
 PlateSectionResponse Checker::plate_section_response(const Section& sec, double M, std::size_t) const {

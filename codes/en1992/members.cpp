@@ -420,7 +420,7 @@ std::vector<PlateDeflectionState> Checker::plate_deflection_states() const {
   const double Ecm = secant_modulus_MPa(m_.fck);
   const CreepShrinkage& c = long_term_;
   std::vector<PlateDeflectionState> states{
-      {"long-term (φ(∞,t0), εcs(∞))", LimitState::quasi_permanent, effective_modulus(Ecm, c.phi_inf)}};
+      {"long-term (φ(∞,t0), εcs(∞))", LimitState::quasi_permanent, effective_modulus(Ecm, c.phi_inf), 1.0}};
   if (req_.serviceability.partitions) {
     states.push_back({"when the partitions are built (φ(t_p,t0), εcs(t_p))", LimitState::quasi_permanent,
                       effective_modulus(Ecm, c.phi_p)});

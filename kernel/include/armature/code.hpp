@@ -360,6 +360,10 @@ struct PlateDeflectionState {
   std::string name;  // as the record prints it: "long-term", "D + L"
   LimitState load = LimitState::quasi_permanent;
   double modulus_MPa = 0.0;
+  // The record maps the long-term deflection over the plan as Σ
+  // record_weight × this state's deflection (EN: 1 for the long term;
+  // ACI: λΔ Δ(D) + Δ(D + L) − Δ(D)).
+  double record_weight = 0.0;
 };
 
 // A section's response, in one direction of a plate, to a moment M (N·mm

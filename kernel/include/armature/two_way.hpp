@@ -137,6 +137,10 @@ struct PlateRecord {
   };
   std::vector<Transfer> transfers;
   std::string extents_clause, integrity;
+  // Calculated deflection: the long-term deflection (mm, downward) at the
+  // field's nodes (field.x_mm, field.y_mm), as the code's states weigh it;
+  // empty when not calculated.
+  std::vector<double> long_term_deflection_mm;
 };
 
 // The plate's load case of one combination and arrangement: permanent

@@ -17,10 +17,14 @@ namespace armature {
 namespace {
 
 constexpr std::size_t none = static_cast<std::size_t>(-1);
-// The iteration stops when no node's deflection changes by more than this
-// share of the largest (the one-way integration's 0.5 %).
-constexpr double settled_change = 0.005;
-constexpr std::size_t max_rounds = 40;
+// The iteration stops when, in every panel, no node's deflection changed
+// in the last round by more than settled_change of the panel's largest,
+// and no element's rigidity falls by more than settled_rigidity with the
+// moments found: the rigidities only fall, so a small step alone could
+// still be a slow creep (DEVELOPERS.md).
+constexpr double settled_change = 0.001;
+constexpr double settled_rigidity = 0.005;
+constexpr std::size_t max_rounds = 200;
 
 // The index of the first value above v in sorted lines, less one, within
 // [0, lines.size() − 2]: the bay (span) v lies in.
@@ -101,8 +105,8 @@ std::vector<std::array<ElementBars, 2>> element_bars_of(const PlateModel& model,
   return out;
 }
 
-std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const CodeIdentity& code,
-                                                const PlateDeflectionInput& in, Detail detail) {
+PlateDeflectionOutcome plate_deflection_checks(const MemberRules& rules, const CodeIdentity& code,
+                                               const PlateDeflectionInput& in, Detail detail) {
   const auto states = call_code(code, "plate deflection states", [&] { return rules.plate_deflection_states(); });
   if (states.empty()) {
     InputProblems problems;
@@ -124,28 +128,44 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
       if (bars.bottom == none)
         throw DesignError("calculated deflection: an element of the plate lies under no region's bottom bars");
 
-  // The panels: every span region's span_where, once, with its bay.
+  // The panels: every bay. Its span region (span_where) gives the span
+  // the limits read and the bars the record shows; a bay without one (a
+  // two-way bay spanning to a free edge in its shorter direction) is read
+  // on its shorter side, with its bottom bars across that side.
   struct Panel {
+    std::string name;
     std::size_t region = 0;
-    const PlateBayRecord* bay = nullptr;
+    double span_mm = 0.0;
+    SpanKind kind = SpanKind::simply_supported;
     std::vector<std::size_t> nodes, elements;
   };
   std::vector<Panel> panels;
   const auto& node_x = model.node_x_mm();
   const auto& node_y = model.node_y_mm();
-  for (std::size_t i = 0; i < demands.size(); ++i) {
-    const RegionDemand& g = demands[i];
-    if (g.span_where.empty() || !(g.span_mm > 0.0)) continue;
-    if (std::any_of(panels.begin(), panels.end(),
-                    [&](const Panel& p) { return demands[p.region].span_where == g.span_where; }))
-      continue;
-    const auto bay = std::find_if(in.bays->begin(), in.bays->end(),
-                                  [&](const PlateBayRecord& r) { return r.name == g.span_where; });
-    if (bay == in.bays->end()) continue;
-    Panel p{i, &*bay, {}, {}};
-    const double tol = 1e-6 * (bay->x1_mm - bay->x0_mm + bay->y1_mm - bay->y0_mm);
+  for (const PlateBayRecord& bay : *in.bays) {
+    Panel p;
+    p.name = bay.name;
+    const auto span_region = std::find_if(demands.begin(), demands.end(), [&](const RegionDemand& g) {
+      return g.span_where == bay.name && g.span_mm > 0.0;
+    });
+    if (span_region != demands.end()) {
+      p.region = static_cast<std::size_t>(span_region - demands.begin());
+      p.span_mm = span_region->span_mm;
+      p.kind = span_region->span_kind;
+    } else {
+      const double lx = bay.x1_mm - bay.x0_mm, ly = bay.y1_mm - bay.y0_mm;
+      const BarDirection across = lx <= ly ? BarDirection::x : BarDirection::y;
+      const auto bottom = std::find_if(demands.begin(), demands.end(), [&](const RegionDemand& g) {
+        return g.where == bay.name && g.face == Face::bottom && g.direction == across;
+      });
+      if (bottom == demands.end())
+        throw DesignError("calculated deflection: " + bay.name + " has neither a span region nor bottom bars");
+      p.region = static_cast<std::size_t>(bottom - demands.begin());
+      p.span_mm = std::min(lx, ly);
+    }
+    const double tol = 1e-6 * (bay.x1_mm - bay.x0_mm + bay.y1_mm - bay.y0_mm);
     auto inside = [&](double x, double y) {
-      return x >= bay->x0_mm - tol && x <= bay->x1_mm + tol && y >= bay->y0_mm - tol && y <= bay->y1_mm + tol;
+      return x >= bay.x0_mm - tol && x <= bay.x1_mm + tol && y >= bay.y0_mm - tol && y <= bay.y1_mm + tol;
     };
     for (std::size_t iy = 0; iy < node_y.size(); ++iy)
       for (std::size_t ix = 0; ix < node_x.size(); ++ix)
@@ -157,14 +177,15 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
     panels.push_back(std::move(p));
   }
   if (panels.empty()) return {};
+  PlateDeflectionOutcome result;
+  result.long_term_mm.assign(node_x.size() * node_y.size(), 0.0);
 
   std::vector<PlateDeflectionDemand> out(panels.size());
   for (std::size_t k = 0; k < panels.size(); ++k) {
-    const RegionDemand& g = demands[panels[k].region];
     PlateDeflectionDemand& d = out[k];
-    d.where = g.span_where;
-    d.span_mm = g.span_mm;
-    d.span_kind = g.span_kind;
+    d.where = panels[k].name;
+    d.span_mm = panels[k].span_mm;
+    d.span_kind = panels[k].kind;
     d.section = sections[panels[k].region];
     for (std::size_t n : panels[k].nodes) {
       d.x_mm.push_back(node_x[n % node_x.size()] - in.dx_mm);
@@ -172,10 +193,11 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
     }
     d.model = "orthotropic Kirchhoff plate (ν = 0; twist rigidity √(Dx Dy)/2), " + std::to_string(model.elements_x()) +
               " × " + std::to_string(model.elements_y()) +
-              " elements, each with the code's secant rigidity (and shrinkage curvature, where the code has one) of its bars in x and in y "
-              "under its own moment (Wood–Armer's mx ± |mxy|, the face it tensions more: bottom bars sagging, the "
-              "top bars over the nearer support or column line hogging), every bay loaded, solved again until no "
-              "deflection changes by more than 0.5 %";
+              " elements, each with the code's secant rigidity of its bars in x and in y under the largest moment "
+              "it has had (Wood–Armer's mx ± |mxy|; bottom bars sagging, the top bars over the nearer support or "
+              "column line hogging, with their shrinkage curvature where the code has one), every "
+              "bay loaded, solved again until no panel's deflection changes by more than 0.1 % and no rigidity "
+              "falls by more than 0.5 %";
   }
 
   for (std::size_t s = 0; s < states.size(); ++s) {
@@ -234,12 +256,14 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
             sag = std::max(sag, normal + std::abs(m.mxy));
             hog = std::max(hog, -normal + std::abs(m.mxy));
           }
+          // The face the moments crack more (the lower rigidity) gives the
+          // rigidity and the shrinkage curvature, in that face's sense: the
+          // top bars' hogging curvature over a support of a continuous or
+          // flat slab turns the slab down from it (DEVELOPERS.md).
           bool c_sag = false;
           auto chosen = respond(bars.bottom, sag, c_sag);
           if (hog > 0.0) {
             bool c_hog = false;
-            // Without top bars the bottom bars' section serves, its
-            // shrinkage curvature keeping the sagging sense (as a span's).
             const auto hogging = respond(bars.top != none ? bars.top : bars.bottom, hog, c_hog);
             if (hogging.first < chosen.first) {
               chosen = hogging;
@@ -256,24 +280,44 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
     update(nullptr);
     OrthotropicSolution solution;
     std::vector<double> last;
+    std::vector<double> panel_change(panels.size(), 1.0);
     std::size_t rounds = 0;
-    double change = 1.0;
+    bool settled = false;
     OrthotropicSolver solver(model);
     while (rounds < max_rounds) {
       solution = solver.solve(rig, *load, column_factor);
       ++rounds;
-      if (!last.empty()) {
-        double largest = 0.0, moved = 0.0;
-        for (std::size_t n = 0; n < last.size(); ++n) {
-          largest = std::max(largest, std::abs(solution.w_mm[n]));
-          moved = std::max(moved, std::abs(solution.w_mm[n] - last[n]));
+      // Each panel's largest change of a node's deflection since the last
+      // round, over the panel's own largest deflection.
+      if (!last.empty())
+        for (std::size_t k = 0; k < panels.size(); ++k) {
+          double largest = 0.0, moved = 0.0;
+          for (std::size_t n : panels[k].nodes) {
+            largest = std::max(largest, std::abs(solution.w_mm[n]));
+            moved = std::max(moved, std::abs(solution.w_mm[n] - last[n]));
+          }
+          panel_change[k] = largest > 0.0 ? moved / largest : 0.0;
         }
-        change = largest > 0.0 ? moved / largest : 0.0;
-        if (change <= settled_change) break;
-      }
       last = solution.w_mm;
+      const std::vector<ElementRigidity> before = rig;
       update(&solution.element_moments);
+      // The largest fall of an element's rigidity the new moments bring.
+      double fall = 0.0;
+      for (std::size_t e = 0; e < n_el; ++e)
+        fall = std::max({fall, 1.0 - rig[e].Dx_Nmm / before[e].Dx_Nmm, 1.0 - rig[e].Dy_Nmm / before[e].Dy_Nmm});
+      const double change = *std::max_element(panel_change.begin(), panel_change.end());
+      if (rounds > 1 && change <= settled_change && fall <= settled_rigidity) {
+        settled = true;
+        break;
+      }
     }
+    if (!settled)
+      result.warnings.push_back("calculated deflection, " + state.name + ": the cracked plate had not settled after " +
+                                std::to_string(max_rounds) +
+                                " solutions (see each panel's rounds and last change); the deflections may be low");
+    if (state.record_weight != 0.0)
+      for (std::size_t n = 0; n < result.long_term_mm.size(); ++n)
+        result.long_term_mm[n] += state.record_weight * solution.w_mm[n];
     for (std::size_t k = 0; k < panels.size(); ++k) {
       PlateDeflectionDemand& d = out[k];
       std::vector<double> w;
@@ -281,7 +325,7 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
       d.w_mm.push_back(std::move(w));
       PlateDeflectionDemand::Iteration it;
       it.rounds = rounds;
-      it.change = change;
+      it.change = panel_change[k];
       std::size_t count = 0;
       for (std::size_t e : panels[k].elements) {
         count += cracked[e];
@@ -293,14 +337,13 @@ std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const 
     }
   }
 
-  std::vector<SpanRecord> spans;
   for (const auto& d : out) {
     auto checks = call_code(code, "plate deflection checks", [&] { return rules.plate_deflection_checks(d, detail); },
                             d.where);
     for (auto& c : checks) c.method = "calculated";
-    spans.push_back({d.where, std::move(checks)});
+    result.spans.push_back({d.where, std::move(checks)});
   }
-  return spans;
+  return result;
 }
 
 }  // namespace armature

@@ -47,9 +47,15 @@ std::vector<std::array<ElementBars, 2>> element_bars_of(const PlateModel& model,
                                                         const std::vector<RegionDemand>& demands, double dx_mm,
                                                         double dy_mm);
 
-// The checks of every panel that has a span region (its span_where), in
-// the order of the regions; none when the code gives no states.
-std::vector<SpanRecord> plate_deflection_checks(const MemberRules& rules, const CodeIdentity& code,
-                                                const PlateDeflectionInput& in, Detail detail);
+// The checks of every panel (bay), and the long-term deflection at every node
+// (PlateRecord::long_term_deflection_mm). Throws InputError naming
+// serviceability.deflection when the code gives no states.
+struct PlateDeflectionOutcome {
+  std::vector<SpanRecord> spans;
+  std::vector<double> long_term_mm;
+  std::vector<std::string> warnings;
+};
+PlateDeflectionOutcome plate_deflection_checks(const MemberRules& rules, const CodeIdentity& code,
+                                               const PlateDeflectionInput& in, Detail detail);
 
 }  // namespace armature

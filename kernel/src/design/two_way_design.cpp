@@ -532,11 +532,14 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
     in.element_bars = element_bars_of(plate.model(), plate_record, demands, in.dx_mm, in.dy_mm);
     in.thickness_mm = req.slab.thickness_mm;
     in.strip_width_mm = b;
-    for (auto& s : plate_deflection_checks(member_rules, rec.code, in, detail)) {
+    PlateDeflectionOutcome calc = plate_deflection_checks(member_rules, rec.code, in, detail);
+    for (auto& s : calc.spans) {
       const auto at = std::find_if(rec.spans.begin(), rec.spans.end(), [&](const SpanRecord& r) { return r.where == s.where; });
       if (at == rec.spans.end()) rec.spans.push_back(std::move(s));
       else at->checks.insert(at->checks.end(), s.checks.begin(), s.checks.end());
     }
+    plate_record.long_term_deflection_mm = std::move(calc.long_term_mm);
+    rec.warnings.insert(rec.warnings.end(), calc.warnings.begin(), calc.warnings.end());
   }
   rec.plate = std::make_shared<const PlateRecord>(std::move(plate_record));
 
