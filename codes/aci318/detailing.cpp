@@ -132,15 +132,17 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   const double db = bar.diameter_mm;
   const double psi_e = coating_factor_uncoated;
   st.add("ψe", "uncoated bars", "", psi_e, "-", "ACI 318-19 25.4.3.2");
-  const double psi_r = hook_confinement_factor_none;
-  st.add("ψr", "no ties or stirrups confining the hook (a slab)", "", psi_r, "-",
+  const double psi_r = hook_confinement_factor(bar.spacing_mm, db);
+  st.add("ψr", psi_r == hook_confinement_factor_spaced ? "1.0: hooked bars at s ≥ 6 db (no ties in a slab)"
+                                                       : "1.6: hooked bars at s < 6 db, no ties (a slab)",
+         num(bar.spacing_mm) + (psi_r == hook_confinement_factor_spaced ? " ≥ 6 × " : " < 6 × ") + num(db), psi_r, "-",
          "ACI 318-19 25.4.3.2 (value from memory)");
   const double psi_o = hook_location_factor_side_cover;
   st.add("ψo", "side cover normal to the plane of the hook ≥ 6 db (within a slab's width)", "", psi_o, "-",
          "ACI 318-19 25.4.3.2 (value from memory)");
   const double fc_v = stress_v(fc_);
   const double psi_c = us_ ? inch_pound::hook_concrete_strength_factor(fc_v) : hook_concrete_strength_factor(fc_);
-  st.add("ψc", us_ ? "min(f'c/15 000 + 0.6, 1.0)" : "min(f'c/105 + 0.6, 1.0)",
+  st.add("ψc", us_ ? "f'c/15 000 + 0.6 below 6000 psi, else 1.0" : "f'c/105 + 0.6 below 40 MPa, else 1.0",
          us_ ? num(fc_v) + "/15000 + 0.6" : num(fc_v) + "/105 + 0.6", psi_c, "-",
          "ACI 318-19 25.4.3.2 (value from memory)");
   const double rf = root_fc_limited();

@@ -192,7 +192,11 @@ double hook_inside_bend_diameter(double db) {
 
 double hook_extension_90(double db) { return 12.0 * db; }
 
-double hook_concrete_strength_factor(double fc) { return std::min(fc / 105.0 + 0.6, 1.0); }
+double hook_concrete_strength_factor(double fc) { return fc < 40.0 ? fc / 105.0 + 0.6 : 1.0; }
+
+double hook_confinement_factor(double spacing, double db) {
+  return spacing >= 6.0 * db ? hook_confinement_factor_spaced : hook_confinement_factor_none;
+}
 
 double hooked_development_length(double fy, double root_fc, double psi_e, double psi_r, double psi_o, double psi_c,
                                  double lambda, double db) {

@@ -103,10 +103,15 @@ constexpr double support_embedment_mm = 150.0;
 double hook_inside_bend_diameter(double db);
 // Table 25.3.1 (value from memory): the straight extension of a 90° standard hook, 12 db.
 double hook_extension_90(double db);
-constexpr double hook_confinement_factor_none = 1.6;  // 25.4.3.2 Table: ψr, no confining ties or stirrups
+// 25.4.3.2 Table (value from memory): ψr = 1.0 for No. 36 and smaller
+// hooked bars at centre-to-centre spacing s ≥ 6 db (or confined by ties),
+// 1.6 otherwise; any consistent length unit.
+constexpr double hook_confinement_factor_none = 1.6;
+constexpr double hook_confinement_factor_spaced = 1.0;
+double hook_confinement_factor(double spacing, double db);
 constexpr double hook_location_factor_side_cover = 1.0;  // 25.4.3.2 Table: ψo, side cover ≥ 6 db
 // 25.4.3.2 Table (value from memory): ψc = f'c/105 + 0.6 for f'c below
-// 42 MPa, 1.0 above (the two meet there): min(f'c/105 + 0.6, 1.0).
+// 40 MPa, 1.0 from there (the SI edition's break; 0.98 just below it).
 double hook_concrete_strength_factor(double fc);
 // 25.4.3.1 (value from memory): ldh = the largest of (a) fy ψe ψr ψo ψc
 // db^1.5 / (23 λ √f'c), (b) 8 db, (c) 150 mm; MPa, mm.

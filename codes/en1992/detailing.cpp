@@ -156,9 +156,17 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   st.add("α1", cd > 3.0 * phi ? "0.7 (bent bar, cd > 3 φ)" : "1.0 (bent bar, cd ≤ 3 φ)",
          num(cd) + (cd > 3.0 * phi ? " > 3 × " : " ≤ 3 × ") + num(phi), alpha1, "-",
          "EN 1992-1-1 8.4.4(1) Table 8.2 (value from memory)");
-  const double lb_eq = equivalent_anchorage_length_bent(alpha1, b.lb_rqd);
-  st.add("lb,eq", "α1 lb,rqd, from the face of the support to the outside of the bend",
-         num(alpha1) + " × " + num(b.lb_rqd), lb_eq, "mm", "EN 1992-1-1 8.4.4(2), Figure 8.1 b");
+  // lb,min as for a straight bar (lb,rqd at fyd: the bar's full strength),
+  // so that a bend never anchors with less than a straight bar would need
+  // (8.4.4(2) is silent; a second reading found bends of 40 mm otherwise).
+  const double lb_rqd_full = basic_anchorage_length(phi, m_.fyd, b.fbd);
+  const double lb_min = minimum_anchorage_length(lb_rqd_full, phi);
+  st.add("lb,min", "max(0.3 lb,rqd(fyd), 10 φ, 100 mm)",
+         "max(0.3 × " + num(lb_rqd_full) + ", 10 × " + num(phi) + ", 100)", lb_min, "mm", "EN 1992-1-1 8.4.4(1) (8.6)");
+  const double lb_eq = std::max(equivalent_anchorage_length_bent(alpha1, b.lb_rqd), lb_min);
+  st.add("lb,eq", "α1 lb,rqd ≥ lb,min, from the face of the support to the outside of the bend",
+         "max(" + num(alpha1) + " × " + num(b.lb_rqd) + ", " + num(lb_min) + ")", lb_eq, "mm",
+         "EN 1992-1-1 8.4.4(2), Figure 8.1 b");
   const double ext = standard_bend_extension(phi);
   st.add("extension", "5 φ past the bend (90° standard bend)", "5 × " + num(phi), ext, "mm",
          "EN 1992-1-1 Figure 8.1 b (value from memory)");

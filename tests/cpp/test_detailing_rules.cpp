@@ -345,10 +345,11 @@ TEST_CASE("EN hooked anchorage of a session: 12 mm and 20 mm bars in C30/37", "[
   CHECK(h.bend_diameter_mm == Approx(48));  // 4 φ, Table 8.1N (value from memory)
   CHECK(h.extension_mm == Approx(60));      // 5 φ, Figure 8.1 b (value from memory)
   CHECK(h.clause == "EN 1992-1-1 8.3, 8.4.4(2)");
-  // At an end support, at σsd = FE/As: 3 × 51.6 / 3.041 = 50.9 mm, × 0.7 = 35.6 mm (by hand, as above).
+  // At an end support, at σsd = FE/As: 3 × 51.6 / 3.041 = 50.9 mm, × 0.7 = 35.6 mm (by hand, as above),
+  // below lb,min = max(0.3 × 428.9, 10 × 12, 100) = 128.7 mm (8.6, lb,rqd at fyd), which governs.
   b.V_Ed_N = 30e3;
   b.at_end_support = true;
-  CHECK(rules->hooked_anchorage(b).length_mm == Approx(35.6).epsilon(0.005));
+  CHECK(rules->hooked_anchorage(b).length_mm == Approx(128.66).epsilon(0.002));
   // 20 mm bars at 100 mm: cd = 40 ≤ 60, α1 = 1.0: lb,eq = lb,rqd = 5 × 434.8 / 3.041 = 714.8 mm; mandrel 7 φ.
   armature::BarDetailDemand t = bar12(armature::Face::bottom, 25);
   t.diameter_mm = 20;
@@ -377,6 +378,12 @@ TEST_CASE("ACI 25.3 and 25.4.3.1 standard hook clause functions", "[detailing][a
   // = 216.6 mm; No. 10: 140.1 mm, so 150 mm governs (hand evaluation of 25.4.3.1, value from memory).
   CHECK(hook_concrete_strength_factor(28) == Approx(0.86667).epsilon(1e-4));
   CHECK(hook_concrete_strength_factor(45) == 1.0);
+  // The SI edition's break at 40 MPa: 39.9/105 + 0.6 = 0.98 below it, 1.0 from it.
+  CHECK(hook_concrete_strength_factor(39.9) == Approx(0.98).epsilon(1e-3));
+  CHECK(hook_concrete_strength_factor(40.0) == 1.0);
+  // ψr (Table 25.4.3.2, value from memory): 1.0 with hooked bars at s ≥ 6 db, else 1.6.
+  CHECK(hook_confinement_factor(200, 12.7) == 1.0);
+  CHECK(hook_confinement_factor(75, 12.7) == 1.6);
   const double rf = std::sqrt(28.0);
   CHECK(hooked_development_length(420, rf, 1.0, 1.6, 1.0, 0.86667, 1.0, 12.7) == Approx(216.6).epsilon(0.001));
   CHECK(hooked_development_length(420, rf, 1.0, 1.6, 1.0, 0.86667, 1.0, 9.5) == 150.0);
@@ -406,8 +413,13 @@ TEST_CASE("ACI hooked anchorage and the 7.7.3.8.3 limit of a session", "[detaili
   b.cover_mm = 20;
   b.d_mm = 153.65;
   b.As_prov_mm2 = 129 * 1000 / 200.0;
+  // No. 13 @ 200 mm ≥ 6 db: ψr = 1.0, 216.6/1.6 = 135.4 mm, so the 150 mm minimum governs; at 75 mm
+  // (< 6 db = 76.2 mm) ψr = 1.6: 216.6 mm (as by hand above).
   const auto h = rules->hooked_anchorage(b);
-  CHECK(h.length_mm == Approx(216.6).epsilon(0.001));  // as by hand above
+  CHECK(h.length_mm == Approx(150.0));
+  armature::BarDetailDemand close = b;
+  close.spacing_mm = 75;
+  CHECK(rules->hooked_anchorage(close).length_mm == Approx(216.6).epsilon(0.001));
   CHECK(h.bend_diameter_mm == Approx(76.2));
   CHECK(h.extension_mm == Approx(152.4));
   CHECK(h.clause == "ACI 318-19 25.3, 25.4.3");
@@ -441,7 +453,8 @@ TEST_CASE("ACI hooked anchorage and the 7.7.3.8.3 limit of a session", "[detaili
   const Session us = session_of(req);
   armature::BarDetailDemand u = b;
   u.diameter_mm = 0.5 * 25.4;
-  // #4, Grade 60, 4000 psi: 8.456 in (by hand above).
+  // #4, Grade 60, 4000 psi, at 2.9 in (< 6 db = 3 in: ψr = 1.6): 8.456 in (by hand above).
+  u.spacing_mm = 2.9 * 25.4;
   CHECK(us.checker->detailing_rules()->hooked_anchorage(u).length_mm / 25.4 == Approx(8.456).epsilon(0.001));
 }
 
@@ -460,7 +473,7 @@ TEST_CASE("A forwarding detailing rules object forwards the hook and the zero-mo
   b.d_mm = 153.65;
   b.As_prov_mm2 = 645;
   b.V_Ed_N = 300e3;
-  CHECK(fwd.hooked_anchorage(b).length_mm == Approx(216.6).epsilon(0.001));
+  CHECK(fwd.hooked_anchorage(b).length_mm == Approx(150.0));  // ψr = 1.0 at s ≥ 6 db: the 150 mm minimum
   const auto lim = fwd.zero_moment_development(b, armature::ZeroMomentSite{true, true, false, 150.0});
   CHECK(lim.applies);
   CHECK_FALSE(lim.met);

@@ -66,11 +66,18 @@ def test_en_narrow_wall_bends_the_bottom_bar():
     assert straight > 200 - c  # the straight bar does not fit
     # It stops at the slab's end (flush with the wall's outer face) less the cover.
     assert b["start_m"] == pytest.approx(-(100 - c) / 1000, abs=1e-9)
-    # Anchorage provided past the face, to the outside of the bend, ≥ the bent bar's.
+    # Anchorage provided past the face, to the outside of the bend: 200 − c. The bent bar needs
+    # lb,eq = α1 lb,rqd (α1 = 0.7: cd = (250 − 20)/2 = 115 > 60, at σsd = FE/As; EN 8.4.4(2), Table 8.2),
+    # not less than lb,min = 214.4 mm as a straight bar (8.6), which governs: the bend does not anchor
+    # the bar in this wall, and the support's anchorage check fails the design.
     hooked = derivation(r, "span 1, bottom", "hooked anchorage (start)")["length_mm"]
+    assert hooked == pytest.approx(214.4, abs=0.1)
     assert b["anchorage_mm"]["start"] == pytest.approx(200 - c)
-    assert b["anchorage_mm"]["start"] >= hooked
-    # lb,eq = α1 lb,rqd with α1 = 0.7 (cd = (250 − 20)/2 = 115 > 60) at σsd = FE/As (EN 8.4.4(2), Table 8.2).
+    short = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"
+             and k["demand"] == pytest.approx(hooked)]
+    assert len(short) == 1 and not short[0]["pass"]
+    assert short[0]["capacity"] == pytest.approx(200 - c)
+    assert r["status"] == "fail"
     fe_steps = derivation(r, "span 1, bottom", "end support anchorage (start)")
     assert fe_steps["clause"] == "EN 1992-1-1 9.2.1.4, 9.3.1.2"
     # Leg to the outside of the bend: 7φ/2 + φ + 5φ = 70 + 20 + 100 = 190 mm (Table 8.1N, Figure 8.1 b, values
@@ -132,8 +139,18 @@ def test_top_bars_at_a_narrow_wall_bend_and_say_where_short():
     provided = t["anchorage_mm"]["start"]
     assert provided == pytest.approx(200 - r["cover_mm"]["top"])
     assert provided < hooked
-    assert any(w.startswith("support 1, top: at support 1 the bent bar provides") and "8.4.4(2)" in w
-               for w in r["warnings"]), r["warnings"]
+    check = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"
+             and k["demand"] == pytest.approx(hooked)]
+    assert len(check) == 1 and not check[0]["pass"] and "8.4.4(2)" in check[0]["clause"]
+    # A 400 mm wall leaves 375 mm: the bent top bar (lb,eq = 0.7 × 510.6 = 357.4 mm at fyd, poor bond)
+    # is anchored there though the straight one would not be.
+    wide = armature.design(strip(spans, ends, h, widths=[400, 300, 400], given=bottom_20_at_250(spans)))
+    tw = bar(wide, "support 1", "top")
+    assert tw["shape"] == "L-bar"
+    ok = [k for k in wide["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"]
+    assert len(ok) == 1 and ok[0]["pass"]
+    assert ok[0]["demand"] == pytest.approx(hooked)
+    assert ok[0]["capacity"] == pytest.approx(400 - wide["cover_mm"]["top"])
 
 
 def test_aci_top_bars_at_built_in_ends_hook_into_narrow_walls():

@@ -142,6 +142,10 @@ struct DetailingRecord {
   std::vector<DiagramPoint> envelope;    // the moment envelope the bars cover
   std::vector<DetailDerivation> derivations;
   std::vector<std::string> notes;        // for the result's warnings (where bars were not curtailed, ...)
+  // The anchorage of each bent bar end (check id "anchorage", where the
+  // support): demand the code's length for the bend, capacity what the
+  // support's width leaves; the driver puts them among the support's checks.
+  std::vector<Check> checks;
 };
 
 struct DesignRecord {

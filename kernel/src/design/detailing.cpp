@@ -206,12 +206,19 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
                           provided > 0.0 ? hook.length_mm / provided : std::numeric_limits<double>::infinity(), "-",
                           ""});
     derive(label, "bend (" + side + ")", bend);
-    if (!anchored)
-      out.notes.push_back(label + ": at " + support_label(j) + " the bent bar provides " + plain_number(provided) +
-                          " mm of anchorage past its " +
-                          (from_face ? "face" : "shifted zero point") + ", less than the " +
-                          plain_number(hook.length_mm) + " mm " + hook.clause +
-                          " requires: widen the support or use smaller bars");
+    // A check of the support, so that a bar the bend does not anchor fails
+    // the design (a second reading found it passing with a warning).
+    Check anchorage_check;
+    anchorage_check.id = "anchorage";
+    anchorage_check.where = support_label(j);
+    anchorage_check.clause = hook.clause;
+    anchorage_check.demand = hook.length_mm;
+    anchorage_check.capacity = provided;
+    anchorage_check.unit = "mm";
+    anchorage_check.utilisation = utilisation_of(hook.length_mm, provided);
+    anchorage_check.pass = anchored;
+    anchorage_check.steps = bend.steps;
+    out.checks.push_back(std::move(anchorage_check));
     if (leg_in_slab && leg > room + 1e-6)
       out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +
                           " mm does not fit the slab's depth (" + plain_number(room) + " mm between the covers)");

@@ -266,6 +266,12 @@ void detail_design(const SlabChecker& checker, const Request& req, const Member&
   }
   DetailingRecord d = detail_strip(*rules, rec.code, req, rec, member.detailing_diagrams(loads));
   rec.warnings.insert(rec.warnings.end(), d.notes.begin(), d.notes.end());
+  for (const Check& c : d.checks) {
+    const auto at = std::find_if(rec.supports.begin(), rec.supports.end(),
+                                 [&](const SupportRecord& s) { return s.where == c.where; });
+    if (at != rec.supports.end()) at->checks.push_back(c);
+    else rec.supports.push_back({c.where, 0.0, 0.0, {c}});
+  }
   rec.detailing = std::move(d);
 }
 
