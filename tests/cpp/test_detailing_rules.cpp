@@ -43,6 +43,27 @@ nlohmann::json workshop_en(double h, const char* cls) {
           {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}}}};
 }
 
+// The same floor to ACI 318-19 (SI): 180 mm, f'c 28 MPa.
+nlohmann::json aci_strip_request() {
+  return {{"code", "ACI318-19"},
+          {"slab", {{"spans_m", {4.2}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 180}}},
+          {"concrete", {{"cylinder_strength_MPa", 28}}},
+          {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}}}};
+}
+
+// No. 13 bars at 200 mm in the 180 mm ACI strip, 20 mm cover: d = 180 −
+// 20 − 12.7/2 = 153.65 mm, As = 129 × 1000/200 = 645 mm²/m.
+armature::BarDetailDemand no13_at_200() {
+  armature::BarDetailDemand b;
+  b.where = "span 1";
+  b.diameter_mm = 12.7;
+  b.spacing_mm = 200;
+  b.cover_mm = 20;
+  b.d_mm = 153.65;
+  b.As_prov_mm2 = 129 * 1000 / 200.0;
+  return b;
+}
+
 armature::BarDetailDemand bar12(armature::Face face, double cover) {
   armature::BarDetailDemand b;
   b.where = "span 1";
@@ -250,20 +271,11 @@ TEST_CASE("ACI in-lb development length of a #4 bar, 4000 psi, Grade 60", "[deta
 }
 
 TEST_CASE("ACI detailing rules of a session, SI and US variants", "[detailing][aci318]") {
-  nlohmann::json req = {{"code", "ACI318-19"},
-                        {"slab", {{"spans_m", {4.2}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 180}}},
-                        {"concrete", {{"cylinder_strength_MPa", 28}}},
-                        {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}}}};
+  nlohmann::json req = aci_strip_request();
   const Session si = session_of(req);
   const armature::DetailingRules* rules = si.checker->detailing_rules();
   REQUIRE(rules != nullptr);
-  armature::BarDetailDemand b;
-  b.where = "span 1";
-  b.diameter_mm = 12.7;
-  b.spacing_mm = 200;
-  b.cover_mm = 20;
-  b.d_mm = 153.65;
-  b.As_prov_mm2 = 129 * 1000 / 200.0;
+  armature::BarDetailDemand b = no13_at_200();
   // min(480.0 by 25.4.2.3, 353.3 by 25.4.2.4) = 353.3 mm ≥ 300 mm.
   CHECK(rules->anchorage(b).length_mm == Approx(353.3).epsilon(0.002));
   CHECK(rules->lap(b).length_mm == Approx(1.3 * 353.3).epsilon(0.002));
@@ -400,19 +412,10 @@ TEST_CASE("ACI 25.3 and 25.4.3.1 standard hook clause functions", "[detailing][a
 }
 
 TEST_CASE("ACI hooked anchorage and the 7.7.3.8.3 limit of a session", "[detailing][aci318][hooks]") {
-  nlohmann::json req = {{"code", "ACI318-19"},
-                        {"slab", {{"spans_m", {4.2}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 180}}},
-                        {"concrete", {{"cylinder_strength_MPa", 28}}},
-                        {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}}}};
+  nlohmann::json req = aci_strip_request();
   const Session si = session_of(req);
   const armature::DetailingRules* rules = si.checker->detailing_rules();
-  armature::BarDetailDemand b;
-  b.where = "span 1";
-  b.diameter_mm = 12.7;
-  b.spacing_mm = 200;
-  b.cover_mm = 20;
-  b.d_mm = 153.65;
-  b.As_prov_mm2 = 129 * 1000 / 200.0;
+  armature::BarDetailDemand b = no13_at_200();
   // No. 13 @ 200 mm ≥ 6 db: ψr = 1.0, 216.6/1.6 = 135.4 mm, so the 150 mm minimum governs; at 75 mm
   // (< 6 db = 76.2 mm) ψr = 1.6: 216.6 mm (as by hand above).
   const auto h = rules->hooked_anchorage(b);
@@ -459,19 +462,10 @@ TEST_CASE("ACI hooked anchorage and the 7.7.3.8.3 limit of a session", "[detaili
 }
 
 TEST_CASE("A forwarding detailing rules object forwards the hook and the zero-moment limit", "[detailing][hooks]") {
-  nlohmann::json req = {{"code", "ACI318-19"},
-                        {"slab", {{"spans_m", {4.2}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 180}}},
-                        {"concrete", {{"cylinder_strength_MPa", 28}}},
-                        {"loads", {{"dead_kPa", 1.5}, {"imposed_kPa", 4.0}}}};
+  nlohmann::json req = aci_strip_request();
   const Session s = session_of(req);
   const armature::ForwardingDetailingRules fwd(*s.checker->detailing_rules());
-  armature::BarDetailDemand b;
-  b.where = "span 1";
-  b.diameter_mm = 12.7;
-  b.spacing_mm = 200;
-  b.cover_mm = 20;
-  b.d_mm = 153.65;
-  b.As_prov_mm2 = 645;
+  armature::BarDetailDemand b = no13_at_200();
   b.V_Ed_N = 300e3;
   CHECK(fwd.hooked_anchorage(b).length_mm == Approx(150.0));  // ψr = 1.0 at s ≥ 6 db: the 150 mm minimum
   const auto lim = fwd.zero_moment_development(b, armature::ZeroMomentSite{true, true, false, 150.0});
