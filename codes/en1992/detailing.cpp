@@ -142,8 +142,18 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   Steps st;
   const double phi = bar.diameter_mm;
   double sigma = m_.fyd;
-  if (bar.at_end_support) sigma = end_support_stress(st, bar);
-  else st.add("σsd", "fyd (the bar at its design strength)", "", m_.fyd, "MPa", "EN 1992-1-1 8.4.3(2)");
+  if (bar.at_end_support) {
+    sigma = end_support_stress(st, bar);
+  } else if (bar.As_req_mm2 > 0.0 && bar.As_req_mm2 < bar.As_prov_mm2) {
+    // 8.4.3(2): the design stress where the anchorage starts, the face:
+    // the region's design needs As,req of the As,prov there (the nominal
+    // top bars at a pinned end, sized by minimum steel, work far below fyd).
+    sigma = m_.fyd * bar.As_req_mm2 / bar.As_prov_mm2;
+    st.add("σsd", "fyd As,req/As,prov (the stress the design asks of the bars at the face)",
+           num(m_.fyd) + " × " + num(bar.As_req_mm2) + "/" + num(bar.As_prov_mm2), sigma, "MPa", "EN 1992-1-1 8.4.3(2)");
+  } else {
+    st.add("σsd", "fyd (the bar at its design strength)", "", m_.fyd, "MPa", "EN 1992-1-1 8.4.3(2)");
+  }
   const BasicAnchorage b = basic_anchorage(st, bar, sigma, false);
   const double phi_m = minimum_mandrel_diameter(phi);
   st.add("φm,min", phi <= 16.0 + 1e-9 ? "4 φ (φ ≤ 16 mm)" : "7 φ (φ > 16 mm)",

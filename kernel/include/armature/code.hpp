@@ -522,9 +522,11 @@ struct BarDetailDemand {
   // laps staggered).
   double lapped_share = 1.0;
   // hooked_anchorage: a bottom bar anchored at an end support (the force
-  // of V_Ed_N there, as end_support_anchorage), else a bar at its full
-  // design strength.
+  // of V_Ed_N there, as end_support_anchorage), else a bar at the stress
+  // its region's design asks of it (As_req_mm2 over As_prov_mm2 of its
+  // strength; 0: not known, its full strength).
   bool at_end_support = false;
+  double As_req_mm2 = 0.0;  // of the region, for the strip width
 };
 
 // A length the code requires, with its clause and the steps of its

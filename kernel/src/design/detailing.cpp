@@ -138,6 +138,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     b.cover_mm = r.cover_mm;
     b.d_mm = r.d_mm;
     b.As_prov_mm2 = r.bars.As_prov_mm2;
+    b.As_req_mm2 = r.As_req_mm2;
     b.bond = req.detailing.bond;
     b.lapped_share = lapped_share_staggered;
     return b;
@@ -218,6 +219,9 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     anchorage_check.utilisation = utilisation_of(hook.length_mm, provided);
     anchorage_check.pass = anchored;
     anchorage_check.steps = bend.steps;
+    // Which bar: a support may check its bottom and its top bars' bends.
+    anchorage_check.steps.insert(anchorage_check.steps.begin(),
+                                 Step{"φ", "the bar: " + label + ", " + side + " end", "", phi, "mm", ""});
     out.checks.push_back(std::move(anchorage_check));
     if (leg_in_slab && leg > room + 1e-6)
       out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +

@@ -85,10 +85,14 @@ std::vector<std::array<ElementBars, 2>> element_bars_of(const PlateModel& model,
         const std::size_t l = along - L[k] <= L[k + 1] - along ? k : k + 1;
         if (!plate.flat) {
           bars.bottom = find(plate_bay_name(i, j), Face::bottom, d);
+          const bool outer = l == 0 || l + 1 == L.size();
+          const EndSupport edge = in_x ? plate.edges[l == 0 ? 0 : 1] : plate.edges[l == 0 ? 2 : 3];
           for (const auto& line : plate.reactions)
             if ((line.runs_along == PlanAxis::y) == in_x && std::abs(line.position_mm - L[l]) <= tol &&
-                across >= line.from_mm - tol && across <= line.to_mm + tol)
+                across >= line.from_mm - tol && across <= line.to_mm + tol) {
               bars.top = find(line.name, Face::top, d);
+              bars.top_at_pinned_edge = outer && edge == EndSupport::pinned;
+            }
           continue;
         }
         for (const auto& strip : plate.strips) {
@@ -259,14 +263,22 @@ PlateDeflectionOutcome plate_deflection_checks(const MemberRules& rules, const C
           // The face the moments crack more (the lower rigidity) gives the
           // rigidity and the shrinkage curvature, in that face's sense: the
           // top bars' hogging curvature over a support of a continuous or
-          // flat slab turns the slab down from it (DEVELOPERS.md).
+          // flat slab turns the slab down from it; at a pinned outer edge
+          // it would lift the span, so the bottom bars' sagging curvature
+          // stays (DEVELOPERS.md).
           bool c_sag = false;
           auto chosen = respond(bars.bottom, sag, c_sag);
           if (hog > 0.0) {
             bool c_hog = false;
             const auto hogging = respond(bars.top != none ? bars.top : bars.bottom, hog, c_hog);
             if (hogging.first < chosen.first) {
-              chosen = hogging;
+              chosen.first = hogging.first;
+              if (bars.top_at_pinned_edge) {
+                bool unused = false;
+                chosen.second = respond(bars.bottom, hog, unused).second;
+              } else {
+                chosen.second = hogging.second;
+              }
               c_sag = c_hog;
             }
           }

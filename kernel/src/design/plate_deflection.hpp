@@ -19,6 +19,9 @@ namespace armature {
 // none; hogging then takes the bottom bars, as a one-way span does).
 struct ElementBars {
   std::size_t bottom = static_cast<std::size_t>(-1), top = static_cast<std::size_t>(-1);
+  // The top bars are a pinned outer edge's: hogging there (twist near a
+  // corner) keeps the bottom bars' sagging shrinkage curvature.
+  bool top_at_pinned_edge = false;
 };
 
 // Everything the calculation reads from the design: the model and the

@@ -824,14 +824,15 @@ std::string plate_drawings_html(const DesignRecord& r) {
   for (const auto& [values, title] : maps)
     if (!values->empty()) o += plate_map_svg(plan, map_of(*values), title, unit) + "\n";
   if (!p.long_term_deflection_mm.empty()) {
-    o += "<h3>Calculated deflection</h3>\n<p>The long-term deflection at the mesh nodes from the plate solved "
-         "with each element's cracked rigidity (every bay loaded; see each panel's deflection check for the "
-         "states, the limits and the derivation).</p>\n";
+    o += "<h3>Calculated deflection</h3>\n<p>The deflection the long-term check of each panel reads, at the mesh "
+         "nodes, from the plate solved with each element's cracked rigidity (every bay loaded): EN 1992-1-1 the "
+         "long-term total; ACI 318-19 the part after attachment, λΔ Δ(D) + Δ(D + L) − Δ(D). Each panel's "
+         "deflection checks give the states, the limits and the derivation.</p>\n";
     ScalarMap m;
     for (double x : p.field.x_mm) m.x.push_back(u.along_v(x));
     for (double y : p.field.y_mm) m.y.push_back(u.along_v(y));
     for (double v : p.long_term_deflection_mm) m.values.push_back(u.length_v(v));
-    o += plate_map_svg(plan, m, "long-term deflection, downward", u.length_u()) + "\n";
+    o += plate_map_svg(plan, m, "deflection of the long-term check, downward", u.length_u()) + "\n";
   }
   return o;
 }
