@@ -156,9 +156,9 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   // the cover (t/2 − c past the centreline); else it stops there in the
   // code's standard bend, whose anchorage (`demand`, measured from
   // `origin`, to the outside of the bend) the bar then provides as far
-  // as the support allows, with a note where that is short or where the
-  // leg (bottom bars up into the slab; top bars down, into the support at
-  // a built-in end) does not fit the slab's depth.
+  // as the support allows: an `anchorage` check of the support, and a
+  // note where the leg (bottom bars up into the slab; top bars down, into
+  // the support at a built-in end) does not fit the slab's depth.
   struct EndFit {
     double reach = 0.0, anchorage = 0.0, leg = 0.0;
     bool bent = false;
