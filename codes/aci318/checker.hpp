@@ -104,7 +104,7 @@ class Checker final : public SlabChecker,
     double sustained = 0.0, all = 0.0;  // Δ(D), Δ(D + L)
   };
   void deflection_checks(CheckCollector& span, const std::string& where, const std::string& kind,
-                         DeflectionPair deltas, double live, double long_term, double lambda_delta, double L,
+                         const std::string& span_note, DeflectionPair deltas, double live, double long_term, double lambda_delta, double L,
                          const std::function<void(StepRecorder&)>& steps) const;
   void two_way_deflection_check(CheckCollector& span, const RegionDemand& g, double h) const;
   static std::size_t governing_face_case(const SupportFace& f);

@@ -219,7 +219,8 @@ void Checker::calculated_deflection_check(CheckCollector& span, const Section& s
              "ACI 318-19 24.2.3.1");
     }
   };
-  deflection_checks(span, g.span_where, "", DeflectionPair{sus.delta, all.delta}, live, long_term, lambda_delta, L, common_steps);
+  deflection_checks(span, g.span_where, "", "", DeflectionPair{sus.delta, all.delta}, live, long_term, lambda_delta, L,
+                    common_steps);
 }
 
 // For the record: the long-term deflection of 24.2.4.1 along the span,
@@ -323,8 +324,9 @@ std::vector<Check> Checker::plate_deflection_checks(const PlateDeflectionDemand&
     st.add("Δ (D)", "largest in the panel", "", len_v(deltas.sustained), len_u(), "ACI 318-19 24.2.3.1");
     st.add("Δ (D + L)", "largest in the panel", "", len_v(deltas.all), len_u(), "ACI 318-19 24.2.3.1");
   };
-  const std::string kind = is_flat_panel(d.span_kind) ? "panel, ℓ its longer span, " : "panel, ℓ its shorter span, ";
-  deflection_checks(span, d.where, kind, deltas, live, long_term, lambda_delta, d.span_mm, steps);
+  const std::string panel = is_flat_panel(d.span_kind) ? "panel, ℓ its longer span" : "panel, ℓ its shorter span";
+  deflection_checks(span, d.where, panel + ", ", " (" + panel + ")", deltas, live, long_term, lambda_delta, d.span_mm,
+                    steps);
   return out;
 }
 
@@ -385,16 +387,18 @@ void Checker::cantilever_deflection_check(CheckCollector& span, const Section& s
     st.add("Δ (D + L)", "likewise; live load on every span or on the cantilever only, the worse", "",
            len_v(d_DL), len_u(), "ACI 318-19 24.2.3.1");
   };
-  deflection_checks(span, g.span_where, "cantilever, ", DeflectionPair{d_D, d_DL}, live, long_term, lambda_delta, L, steps);
+  deflection_checks(span, g.span_where, "cantilever, ", ", ℓ the cantilever's length", DeflectionPair{d_D, d_DL}, live,
+                    long_term, lambda_delta, L, steps);
 }
 
 // The two checks of 24.2 (Table 24.2.2): the immediate live deflection
 // against ℓ/360, then, unless the verdict is settled, the part after
 // attachment, λΔ Δ(D) + live, against ℓ/240 or ℓ/480 with partitions.
-// `kind` opens the clause's parenthesis ("cantilever, " or empty); `steps`
+// `kind` opens the clause's parenthesis ("cantilever, " or empty),
+// `span_note` follows ℓ/360 in the limit's step (what ℓ is); `steps`
 // writes the derivation both share.
 void Checker::deflection_checks(CheckCollector& span, const std::string& where, const std::string& kind,
-                                DeflectionPair deltas, double live, double long_term, double lambda_delta, double L,
+                                const std::string& span_note, DeflectionPair deltas, double live, double long_term, double lambda_delta, double L,
                                 const std::function<void(StepRecorder&)>& steps) const {
   const bool damageable = req_.serviceability.partitions;
   const double ratio = damageable ? after_attachment_damageable_span_ratio : after_attachment_span_ratio;
@@ -404,7 +408,7 @@ void Checker::deflection_checks(CheckCollector& span, const std::string& where, 
              steps(st);
              st.add("ΔL", "Δ(D + L) − Δ(D)", len(deltas.all) + " − " + len(deltas.sustained), len_v(live), len_u(),
                     "ACI 318-19 24.2.3");
-             st.add("Δ_lim", kind.empty() ? std::string("ℓ/360") : kind == "cantilever, " ? std::string("ℓ/360, ℓ the cantilever's length") : "ℓ/360 (" + kind.substr(0, kind.size() - 2) + ")", len(L) + "/360", len_v(L / immediate_live_span_ratio), len_u(),
+             st.add("Δ_lim", "ℓ/360" + span_note, len(L) + "/360", len_v(L / immediate_live_span_ratio), len_u(),
                     "ACI 318-19 Table 24.2.2");
              return st.take();
            });
