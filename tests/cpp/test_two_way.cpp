@@ -286,11 +286,15 @@ TEST_CASE("Two-way: bad input is named field by field") {
       {{"name", "tank"}, {"kind", "imposed"}, {"category", "E"}, {"point_kN", 12.0}, {"x_m", 20.0}, {"y_m", 1.0}}};
   const auto q = problem_fields(off);
   CHECK(has_problem(q, "loads.actions[0].x_m", "must lie on the slab"));
-  // Detailing is for strips so far: named, never ignored.
-  json later = two_way_request("EN1992-1-1", "UK", {5.4, 6.0}, {4.2});
-  later["detailing"] = {{"slab_width_m", 4.2}};
-  const auto r = problem_fields(later);
-  CHECK(has_problem(r, "detailing", "not available yet for two_way slabs"));
+  // A two-way slab's detailing counts its bars on the plan: slab_width_m
+  // is not required (a strip's is), and a bad value is still named.
+  json plan = two_way_request("EN1992-1-1", "UK", {5.4, 6.0}, {4.2});
+  plan["detailing"] = json::object();
+  CHECK_FALSE(has_problem(problem_fields(plan), "detailing"));
+  plan["detailing"] = {{"slab_width_m", -1.0}, {"curtail", "every third"}};
+  const auto r = problem_fields(plan);
+  CHECK(has_problem(r, "detailing.slab_width_m"));
+  CHECK(has_problem(r, "detailing.curtail", "\"none\" or \"alternate\""));
   // A one-way request takes no analysis options.
   json strip = two_way_request("EN1992-1-1", "UK", {4.0}, {4.0});
   strip["slab"] = {{"spans_m", {4.0}}, {"ends", {"pinned", "pinned"}}, {"thickness_mm", 200}};

@@ -88,7 +88,8 @@ struct DistributionRecord {
 
 // Detailing (detailing of the request): every bar of the strip with its
 // extent along it, and the schedule. Positions are from the strip's left
-// end (support 1, or a left cantilever's tip).
+// end (support 1, or a left cantilever's tip); on a two-way slab along the
+// bar's direction in the request's plan (from grid line x0 or y0).
 struct DetailLap {
   double from_mm = 0.0, to_mm = 0.0;  // along the strip
 };
@@ -115,6 +116,15 @@ struct DetailedBar {
   double shift_mm = 0.0;
   std::vector<DetailLap> laps;  // lap zones at this bar's ends
   std::string clause;
+  // A two-way slab: the bars' direction in plan and the band across them
+  // they are spread over (plan, mm); the strip of DetailingRecord::strips
+  // the bar is drawn in (−1: corner and free-edge bars, in the tables only).
+  BarDirection direction = BarDirection::span;
+  double across_from_mm = 0.0, across_to_mm = 0.0;
+  int strip = 0;
+  // A U-bar round a free edge: its legs lie flat in the two faces and its
+  // body stands across the slab's depth (leg_start/end are its flat legs).
+  bool edge_loop = false;
 };
 struct ScheduleRow {
   std::string mark;
@@ -124,6 +134,17 @@ struct ScheduleRow {
   double length_mm = 0.0;
   std::string shape;
   double mass_kg = 0.0;
+  double leg_a_mm = 0.0, leg_b_mm = 0.0;  // the legs of a bent bar, the longer first (0: none)
+};
+// One line of bars drawn in elevation: a one-way strip, or on a two-way
+// slab the bays of one row (bars in x) or column (bars in y).
+struct DetailingStrip {
+  std::string name;                          // "" for a one-way strip; "bays 1,1 to 2,1, bars in x"
+  BarDirection direction = BarDirection::span;
+  double across_from_mm = 0.0, across_to_mm = 0.0;  // plan, across the bars (two-way)
+  std::vector<double> spans_mm;
+  std::array<EndSupport, 2> ends{EndSupport::pinned, EndSupport::pinned};
+  std::vector<DiagramPoint> envelope;        // the moment envelope the bars cover
 };
 // A length the code gave, for the record: which bar, what, the code's derivation.
 struct DetailDerivation {
@@ -138,8 +159,10 @@ struct DetailingRecord {
   std::vector<DetailedBar> bars;
   std::vector<ScheduleRow> schedule;
   double total_mass_kg = 0.0;
-  double mass_per_area_kg_m2 = 0.0;      // over slab width × strip length
-  std::vector<DiagramPoint> envelope;    // the moment envelope the bars cover
+  double mass_per_area_kg_m2 = 0.0;      // over slab width × strip length (two-way: the plan's area)
+  std::vector<DiagramPoint> envelope;    // the moment envelope the bars cover (a one-way strip)
+  std::vector<DetailingStrip> strips;    // the lines of bars drawn (one for a one-way strip)
+  bool plan = false;                     // a two-way slab: counts from the plan, not slab_width_m
   std::vector<DetailDerivation> derivations;
   std::vector<std::string> notes;        // for the result's warnings (where bars were not curtailed, ...)
   // The anchorage of each bent bar end (check id "anchorage", where the

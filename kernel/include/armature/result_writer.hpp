@@ -120,8 +120,25 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
       w.key("to"), w.value(b.end_mm * m_per_mm);
       w.end();
     }
+    if (b.direction != BarDirection::span) {  // a two-way slab: the bars' direction and the band across them
+      w.key("direction"), w.value(to_string(b.direction));
+      if (!b.distribution) {
+        w.key("across_m");
+        w.begin_object();
+        w.key("from"), w.value(b.across_from_mm * m_per_mm);
+        w.key("to"), w.value(b.across_to_mm * m_per_mm);
+        w.end();
+      }
+    }
     w.key("length_mm"), w.value(b.length_mm);
     w.key("shape"), w.value(b.shape);
+    // The legs of a bent bar, each to the outside of its bend (a U round a
+    // free edge: its flat legs; its body stands across the depth).
+    w.key("legs_mm");
+    w.begin_object();
+    w.key("start"), w.value(b.leg_start_mm);
+    w.key("end"), w.value(b.leg_end_mm);
+    w.end();
     w.key("anchorage_mm");
     w.begin_object();
     w.key("start"), w.value(b.anchorage_start_mm);
@@ -152,6 +169,11 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     w.key("count"), w.value(static_cast<long long>(row.count));
     w.key("length_mm"), w.value(row.length_mm);
     w.key("shape"), w.value(row.shape);
+    w.key("legs_mm");  // the bends' legs, the longer first (none: straight)
+    w.begin_array();
+    for (double leg : {row.leg_a_mm, row.leg_b_mm})
+      if (leg > 0.0) w.value(leg);
+    w.end();
     w.key("mass_kg"), w.value(row.mass_kg);
     w.end();
   }

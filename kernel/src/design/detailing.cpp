@@ -53,6 +53,24 @@ struct Run {
   double along_from = 0.0, along_to = 0.0;  // distribution bars: the part of the strip they are spread over
   int count = 0;
   int preset_count = 0;  // an alternate set's share of the bars (else counted from the spacing)
+  int strip = 0;         // DetailingRecord::strips (−1: not drawn)
+  BarDirection direction = BarDirection::span;
+  double across_from = 0.0, across_to = 0.0;  // two-way: the band the bars are spread over (plan)
+  bool edge_loop = false;                      // a U-bar round a free edge (legs flat in the faces)
+  double body = 0.0;                           // its part across the slab's depth
+};
+
+// What the detailing of one line of bars reads: its spans and ends, the
+// regions of its spans (bottom) and supports (top) by position, their
+// names, and the width its bars are counted over.
+struct StripLayout {
+  DetailingStrip strip;
+  bool free_ends_are_edges = false;  // a free end is a slab edge the bars stop at (a plate), not a cantilever
+  std::vector<double> support_widths_mm;  // one per support, or none
+  std::vector<std::string> span_names, support_names;
+  std::vector<const RegionRecord*> bottom, top;  // per span, per support (null: none)
+  const BarChoice* distribution = nullptr;
+  double width_mm = 0.0;
 };
 
 std::string face_name(Face f) { return f == Face::top ? "top" : "bottom"; }
@@ -79,29 +97,78 @@ double shear_at(const std::vector<DiagramPoint>& pts, double x) {
   return pts.empty() ? 0.0 : V(pts.back());
 }
 
-}  // namespace
+class Detailer {
+ public:
+  Detailer(const DetailingRules& code_rules, const CodeIdentity& code_id, const DetailingInput& in,
+           double thickness_mm, std::array<double, 2> cover_mm, DetailingRecord& record)
+      : rules(code_rules), code(code_id), in_(in), thickness_(thickness_mm), cover_(cover_mm), out(record) {}
 
-DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
-                             const DesignRecord& rec, const std::vector<std::vector<DiagramPoint>>& envelope) {
-  DetailingRecord out;
-  out.slab_width_mm = req.detailing.slab_width_mm;
-  out.stock_length_mm = req.detailing.stock_length_mm;
-  const std::vector<double>& spans = req.slab.spans_mm;
+  std::vector<Run> runs;
+
+  double cover(Face face) const { return cover_[static_cast<std::size_t>(face)]; }
+  // A length the code gave, kept for the record (none: no rule).
+  double derive(const std::string& where, const std::string& what, const DetailLength& l) {
+    if (l.length_mm != 0.0 || !l.clause.empty()) out.derivations.push_back({where, what, l});
+    return l.length_mm;
+  }
+  template <class F>
+  auto ask(const char* stage, const std::string& where, F&& fn) {
+    return call_code(code, stage, std::forward<F>(fn), where);
+  }
+  BarDetailDemand demand_of(const RegionRecord& r) const {
+    BarDetailDemand b;
+    b.where = r.where;
+    b.face = r.face;
+    b.diameter_mm = r.bars.diameter_mm;
+    b.spacing_mm = r.bars.spacing_mm;
+    b.cover_mm = r.cover_mm;
+    b.d_mm = r.d_mm;
+    b.As_prov_mm2 = r.bars.As_prov_mm2;
+    b.As_req_mm2 = r.As_req_mm2;
+    b.bond = in_.bond;
+    b.lapped_share = lapped_share_staggered;
+    return b;
+  }
+
+  void add_strip(const StripLayout& L, const std::vector<std::vector<DiagramPoint>>& envelope);
+  void add_corner_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions);
+  void add_free_edge_bars(const PlateRecord& plate);
+  // Laps, marks, the schedule and the total mass.
+  void finish();
+
+ private:
+  const DetailingRules& rules;
+  const CodeIdentity& code;
+  const DetailingInput& in_;
+  double thickness_;
+  std::array<double, 2> cover_;
+  DetailingRecord& out;
+};
+
+void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<DiagramPoint>>& envelope) {
+  const std::size_t first_run = runs.size();
+  const int strip_index = static_cast<int>(out.strips.size());
+  DetailingStrip drawn = L.strip;
+  drawn.envelope.clear();
+  const std::vector<double>& spans = L.strip.spans_mm;
   const std::size_t n = spans.size();
   std::vector<double> X(n + 1, 0.0);
   for (std::size_t e = 0; e < n; ++e) X[e + 1] = X[e] + spans[e];
   const double total = X[n];
-  out.strip_length_mm = total;
-  const bool left_free = req.slab.ends[0] == EndSupport::free;
-  const bool right_free = req.slab.ends[1] == EndSupport::free;
-  auto cantilever = [&](std::size_t e) { return (e == 0 && left_free) || (e + 1 == n && right_free); };
-  // slab.support_widths_mm (one per support; none or 0: a knife edge, the
-  // bars measured from its line and free to run past it). The slab ends
-  // flush with an end support's outer face.
-  auto width_at = [&](std::size_t j) {
-    return req.slab.support_widths_mm.size() == n + 1 ? req.slab.support_widths_mm[j] : 0.0;
+  const bool left_free = L.strip.ends[0] == EndSupport::free;
+  const bool right_free = L.strip.ends[1] == EndSupport::free;
+  // A cantilever: a span past a free end of a strip (on a plate a free end
+  // is the edge of a bay that spans the other way: no cantilever).
+  auto cantilever = [&](std::size_t e) {
+    return !L.free_ends_are_edges && ((e == 0 && left_free) || (e + 1 == n && right_free));
   };
-  auto support_label = [](std::size_t j) { return "support " + std::to_string(j + 1); };
+  // Support widths (one per support; none or 0: a knife edge, the bars
+  // measured from its line and free to run past it). The slab ends flush
+  // with an end support's outer face.
+  auto width_at = [&](std::size_t j) {
+    return L.support_widths_mm.size() == n + 1 ? L.support_widths_mm[j] : 0.0;
+  };
+  auto support_label = [&](std::size_t j) { return L.support_names[j]; };
 
   // The envelope along the strip, span by span (a support appears twice).
   std::vector<Point> P;
@@ -109,7 +176,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   for (const auto& span : envelope)
     for (const auto& p : span) {
       P.push_back({p.x_mm, p.M_max, -p.M_min, std::max(std::abs(p.V_max), std::abs(p.V_min))});
-      out.envelope.push_back(p);
+      drawn.envelope.push_back(p);
       peak = std::max({peak, std::abs(p.M_max), std::abs(p.M_min)});
     }
   const double tol = 1e-6 * peak;
@@ -122,33 +189,6 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     for (std::size_t k = P.size(); k-- > 0;)
       if (P[k].x <= x + 1e-6) return k;
     return std::size_t{0};
-  };
-
-  auto region = [&](const std::string& where, Face face) -> const RegionRecord* {
-    for (const auto& r : rec.regions)
-      if (r.where == where && r.face == face) return &r;
-    return nullptr;
-  };
-  auto demand_of = [&](const RegionRecord& r) {
-    BarDetailDemand b;
-    b.where = r.where;
-    b.face = r.face;
-    b.diameter_mm = r.bars.diameter_mm;
-    b.spacing_mm = r.bars.spacing_mm;
-    b.cover_mm = r.cover_mm;
-    b.d_mm = r.d_mm;
-    b.As_prov_mm2 = r.bars.As_prov_mm2;
-    b.As_req_mm2 = r.As_req_mm2;
-    b.bond = req.detailing.bond;
-    b.lapped_share = lapped_share_staggered;
-    return b;
-  };
-  auto derive = [&](const std::string& where, const std::string& what, const DetailLength& l) {
-    if (l.length_mm != 0.0 || !l.clause.empty()) out.derivations.push_back({where, what, l});  // none: no rule
-    return l.length_mm;
-  };
-  auto ask = [&](const char* stage, const std::string& where, auto&& fn) {
-    return call_code(code, stage, std::forward<decltype(fn)>(fn), where);
   };
 
   // An end of a bar at end support j (dir outward) given a width t: the
@@ -167,7 +207,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
                      double want, double anchorage, double origin, bool from_face,
                      const BarDetailDemand& demand) -> EndFit {
     const double t = width_at(j);
-    const double c = rec.cover_mm(face);
+    const double c = cover(face);
     const double outer = X[j] + dir * (t / 2.0 - c);
     if (t <= 0.0 || dir * (want - outer) <= 1e-6) return {want, anchorage, 0.0, false};
     const std::string where = demand.where;
@@ -177,8 +217,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     const double provided = dir * (outer - origin);
     const double phi = demand.diameter_mm;
     const double leg = hook.bend_diameter_mm / 2.0 + phi + hook.extension_mm;
-    const bool leg_in_slab = !(face == Face::top && req.slab.ends[j == 0 ? 0 : 1] == EndSupport::fixed);
-    const double room = req.slab.thickness_mm - rec.cover_mm(Face::top) - rec.cover_mm(Face::bottom);
+    const bool leg_in_slab = !(face == Face::top && L.strip.ends[j == 0 ? 0 : 1] == EndSupport::fixed);
+    const double room = thickness_ - cover(Face::top) - cover(Face::bottom);
     DetailLength bend;
     bend.length_mm = provided;
     bend.clause = hook.clause;
@@ -197,8 +237,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
          leg, "mm", ""}};
     if (leg_in_slab)
       bend.steps.push_back({"h,legs", "room for the leg: h less the top and bottom covers",
-                            plain_number(req.slab.thickness_mm) + " − " + plain_number(rec.cover_mm(Face::top)) +
-                                " − " + plain_number(rec.cover_mm(Face::bottom)),
+                            plain_number(thickness_) + " − " + plain_number(cover(Face::top)) +
+                                " − " + plain_number(cover(Face::bottom)),
                             room, "mm", ""});
     const bool anchored = provided >= hook.length_mm - 1e-6;
     bend.steps.push_back({"lb,req/lb,prov",
@@ -242,21 +282,20 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     if (!lim.applies) return;
     derive(label, "bar size at zero moment (" + side + ")", DetailLength{lim.limit_mm, lim.clause, lim.steps});
     if (!lim.met)
-      out.notes.push_back("span " + std::to_string(e + 1) + ": the bottom bars' development length " +
+      out.notes.push_back(L.span_names[e] + ": the bottom bars' development length " +
                           plain_number(lim.length_mm) + " mm exceeds the limit " + plain_number(lim.limit_mm) +
                           " mm at " + at + " (" + lim.clause + "): use smaller bars" +
                           (site.simple_support ? ", or end them in a standard hook past the support's centreline"
                                                : ""));
   };
 
-  std::vector<Run> runs;
   // Bottom bars of span e (bars and demand as given: all the region's
   // bars, or one of the two alternate sets): the sagging zone, shifted and
   // anchored; at an end support past its line by the code's length there,
   // at an interior support at least the code's embedment past its line.
   auto bottom_run = [&](std::size_t e, const BarChoice& bars, const BarDetailDemand& demand,
                         const std::string& label) {
-    const std::string where = "span " + std::to_string(e + 1);
+    const std::string where = L.span_names[e];
     Run run;
     run.where = where;
     run.face = Face::bottom;
@@ -291,7 +330,13 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       double reach = reach_env;
       double anch = lbd;
       const std::string side_word = side == 0 ? "start" : "end";
-      if (strip_end) {
+      if (strip_end && L.free_ends_are_edges && L.strip.ends[side == 0 ? 0 : 1] == EndSupport::free) {
+        // A plate's free edge: the bars stop at the edge less the cover,
+        // inside the edge's U-bars.
+        reach = X[node] - dir * cover(Face::bottom);
+        anch = 0.0;
+        (side == 0 ? run.start_fixed : run.end_fixed) = true;
+      } else if (strip_end) {
         BarDetailDemand d = run.demand;
         d.V_Ed_N = std::max(std::abs(pts[side == 0 ? 0 : pts.size() - 1].V_max),
                             std::abs(pts[side == 0 ? 0 : pts.size() - 1].V_min));
@@ -319,7 +364,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
           if (run.clause.find(out.derivations.back().length.clause) == std::string::npos)
             run.clause += "; " + out.derivations.back().length.clause;
         }
-        if (req.slab.ends[side == 0 ? 0 : 1] == EndSupport::pinned && sags && at_support_line)
+        if (L.strip.ends[side == 0 ? 0 : 1] == EndSupport::pinned && sags && at_support_line)
           zero_moment_limit(label, e, side_word, run.demand,
                             ZeroMomentSite{true, true, fit.bent, dir * (reach - X[node])}, d.V_Ed_N,
                             support_label(node));
@@ -357,7 +402,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   // where the continuing set alone would be below the region's minimum
   // steel or beyond its spacing limit, or carries the whole envelope.
   auto alternate_sets = [&](std::size_t e, const RegionRecord& r) -> std::optional<std::pair<Run, Run>> {
-    const std::string where = "span " + std::to_string(e + 1);
+    const std::string where = L.span_names[e];
     const double As_half = r.bars.As_prov_mm2 / 2.0, s2 = 2.0 * r.bars.spacing_mm;
     double s_max = std::numeric_limits<double>::infinity();
     for (const auto& c : r.checks)  // the upper limits (demand: the spacing itself; not the least clear gap)
@@ -413,7 +458,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     b.anch_start = b.start > a.start ? lbd : a.anch_start;
     b.anch_end = b.end < a.end ? lbd : a.anch_end;
     // The split of the count: the continuing set takes the odd bars.
-    const int all = count_over(out.slab_width_mm, r.bars.spacing_mm);
+    const int all = count_over(L.width_mm, r.bars.spacing_mm);
     a.preset_count = (all + 1) / 2;
     b.preset_count = all / 2;
     DetailLength stop;
@@ -434,10 +479,10 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   };
   for (std::size_t e = 0; e < n; ++e) {
     if (cantilever(e)) continue;
-    const std::string where = "span " + std::to_string(e + 1);
-    const RegionRecord* r = region(where, Face::bottom);
+    const std::string where = L.span_names[e];
+    const RegionRecord* r = L.bottom[e];
     if (!r || r->bars.spacing_mm <= 0.0) continue;
-    if (req.detailing.curtail == Curtailment::alternate) {
+    if (in_.curtail == Curtailment::alternate) {
       if (auto sets = alternate_sets(e, *r)) {
         runs.push_back(std::move(sets->first));
         runs.push_back(std::move(sets->second));
@@ -451,8 +496,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   // anchored; to a free tip less the cover; into an end support past its
   // line by the anchorage.
   for (std::size_t j = 0; j <= n; ++j) {
-    const std::string where = "support " + std::to_string(j + 1);
-    const RegionRecord* r = region(where, Face::top);
+    const std::string where = L.support_names[j];
+    const RegionRecord* r = L.top[j];
     if (!r || r->bars.spacing_mm <= 0.0) continue;
     Run run;
     run.where = where;
@@ -480,7 +525,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       }
       if (reached_end || (j == 0 && !hog)) {
         if (left_free) {
-          run.start = rec.cover_mm(Face::top), run.anch_start = 0.0, run.start_fixed = true;
+          run.start = cover(Face::top), run.anch_start = 0.0, run.start_fixed = true;
         } else {
           const double face = width_at(0) / 2.0;  // the line where no width is given
           const EndFit fit = fit_end(label, "start", 0, -1.0, Face::top, face - lbd, lbd, face, true, run.demand);
@@ -511,7 +556,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       }
       if (reached_end || (j == n && !hog)) {
         if (right_free) {
-          run.end = total - rec.cover_mm(Face::top), run.anch_end = 0.0, run.end_fixed = true;
+          run.end = total - cover(Face::top), run.anch_end = 0.0, run.end_fixed = true;
         } else {
           const double face = total - width_at(n) / 2.0;  // the line where no width is given
           const EndFit fit = fit_end(label, "end", n, 1.0, Face::top, face + lbd, lbd, face, true, run.demand);
@@ -530,30 +575,30 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       }
     }
     // A bar cannot pass a free end: it stops at the tip less the cover.
-    if (left_free && run.start < rec.cover_mm(Face::top))
-      run.start = rec.cover_mm(Face::top), run.anch_start = 0.0, run.start_fixed = true;
-    if (right_free && run.end > total - rec.cover_mm(Face::top))
-      run.end = total - rec.cover_mm(Face::top), run.anch_end = 0.0, run.end_fixed = true;
+    if (left_free && run.start < cover(Face::top))
+      run.start = cover(Face::top), run.anch_start = 0.0, run.start_fixed = true;
+    if (right_free && run.end > total - cover(Face::top))
+      run.end = total - cover(Face::top), run.anch_end = 0.0, run.end_fixed = true;
     runs.push_back(std::move(run));
   }
 
-  // Counts across the slab width.
-  for (auto& run : runs)
-    run.count = run.preset_count > 0 ? run.preset_count : count_over(out.slab_width_mm, run.bars.spacing_mm);
+  // Counts across the strip's width.
+  for (std::size_t i = first_run; i < runs.size(); ++i)
+    runs[i].count = runs[i].preset_count > 0 ? runs[i].preset_count : count_over(L.width_mm, runs[i].bars.spacing_mm);
 
   // Distribution bars: across the strip, under or over the main bars,
   // spread over the bottom bars' extent and each top bar's.
-  if (rec.distribution.bars.spacing_mm > 0.0) {
-    const BarChoice& db = rec.distribution.bars;
+  if (L.distribution && L.distribution->spacing_mm > 0.0) {
+    const BarChoice& db = *L.distribution;
     auto add_distribution = [&](Face face, double from, double to, const std::string& where) {
       Run run;
       run.where = where;
       run.face = face;
       run.bars = db;
       run.distribution = true;
-      const double c = rec.cover_mm(face);
+      const double c = cover(face);
       run.start = c;  // across the strip, cover to cover
-      run.end = out.slab_width_mm - c;
+      run.end = L.width_mm - c;
       run.along_from = std::max(from, 0.0);
       run.along_to = std::min(to, total);
       run.count = count_over(std::max(0.0, run.along_to - run.along_from), db.spacing_mm);
@@ -562,20 +607,32 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       run.demand.diameter_mm = db.diameter_mm;
       run.demand.spacing_mm = db.spacing_mm;
       run.demand.cover_mm = c;
-      run.demand.bond = req.detailing.bond;
+      run.demand.bond = in_.bond;
       run.demand.lapped_share = lapped_share_staggered;
       runs.push_back(std::move(run));
     };
     double lo = total, hi = 0.0;
-    for (const auto& r : runs)
-      if (r.face == Face::bottom && !r.distribution) lo = std::min(lo, r.start), hi = std::max(hi, r.end);
+    for (std::size_t i = first_run; i < runs.size(); ++i)
+      if (runs[i].face == Face::bottom && !runs[i].distribution)
+        lo = std::min(lo, runs[i].start), hi = std::max(hi, runs[i].end);
     const std::size_t main_count = runs.size();
     if (lo < hi) add_distribution(Face::bottom, lo, hi, "distribution, bottom");
-    for (std::size_t i = 0; i < main_count; ++i)
+    for (std::size_t i = first_run; i < main_count; ++i)
       if (runs[i].face == Face::top)
         add_distribution(Face::top, runs[i].start, runs[i].end, "distribution, top (" + runs[i].where + ")");
   }
+  // The strip's runs: where they are drawn, their direction and the band
+  // across them (plan).
+  for (std::size_t i = first_run; i < runs.size(); ++i) {
+    runs[i].strip = strip_index;
+    runs[i].direction = L.strip.direction;
+    runs[i].across_from = L.strip.across_from_mm;
+    runs[i].across_to = L.strip.across_to_mm;
+  }
+  out.strips.push_back(std::move(drawn));
+}
 
+void Detailer::finish() {
   // Laps where a run is longer than the stock: alternate bars lapped at
   // staggered positions (set A: laps at k L/n; set B halfway between).
   InputProblems problems;
@@ -597,6 +654,23 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     base.clause = run.clause;
     base.along_from_mm = run.along_from;
     base.along_to_mm = run.along_to;
+    base.strip = run.strip;
+    base.direction = run.direction;
+    base.across_from_mm = run.across_from;
+    base.across_to_mm = run.across_to;
+    if (run.edge_loop) {  // a U round a free edge: its two flat legs and its body across the depth, no laps
+      DetailedBar b = base;
+      b.edge_loop = true;
+      b.count = run.count;
+      b.start_mm = run.start;
+      b.end_mm = run.end;
+      b.leg_start_mm = run.leg_start;
+      b.leg_end_mm = run.leg_end;
+      b.length_mm = std::ceil((run.leg_start + run.leg_end + run.body) / length_step_mm - 1e-9) * length_step_mm;
+      b.shape = "U-bar";
+      bars.push_back(std::move(b));
+      continue;
+    }
     // The cut length: the run and its legs, each to the outside of its
     // bend, rounded up; the extra goes to the end that is free to move
     // (both bent: to the end's leg).
@@ -682,7 +756,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
       std::string m = std::to_string(k);
       if (m.size() < 2) m = "0" + m;
       it = marks.emplace(key, m).first;
-      out.schedule.push_back({m, b.bar, b.diameter_mm, 0, b.length_mm, b.shape, 0.0});
+      out.schedule.push_back({m, b.bar, b.diameter_mm, 0, b.length_mm, b.shape, 0.0, std::get<3>(key),
+                              std::get<4>(key)});
     }
     b.mark = it->second;
     for (auto& row : out.schedule)
@@ -692,9 +767,289 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     row.mass_kg = row.count * row.length_mm / 1000.0 * unit_mass_kg_per_m_mm2 * row.diameter_mm * row.diameter_mm;
     out.total_mass_kg += row.mass_kg;
   }
-  out.mass_per_area_kg_m2 = out.total_mass_kg / (out.slab_width_mm / 1000.0 * total / 1000.0);
   out.bars = std::move(bars);
+}
+
+
+// The corner zones' bars (two-way slabs): each corner region's bars run
+// over the zone in their direction, past the slab's edge line by their
+// anchorage (as top bars at an end support without a width) and past the
+// zone's inner side by their anchorage; counted over the zone's width.
+void Detailer::add_corner_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions) {
+  const double tol = 1e-6;
+  for (const auto& c : plate.corners)
+    for (const auto& r : regions) {
+      if (r.where != c.name || r.bars.spacing_mm <= 0.0) continue;
+      const bool in_x = r.direction == BarDirection::x;
+      const double lo = in_x ? c.x0_mm : c.y0_mm, hi = in_x ? c.x1_mm : c.y1_mm;
+      const double edge_lo = in_x ? plate.x_lines_mm.front() : plate.y_lines_mm.front();
+      const bool edge_at_start = lo <= edge_lo + tol;
+      Run run;
+      run.where = c.name;
+      run.face = r.face;
+      run.bars = r.bars;
+      run.demand = demand_of(r);
+      const std::string label = c.name + ", " + face_name(r.face) + " " + to_string(r.direction);
+      const double lbd =
+          derive(label, "anchorage", ask("detailing anchorage", c.name, [&] { return rules.anchorage(run.demand); }));
+      run.clause = (c.clause.empty() ? "" : c.clause + "; ") + out.derivations.back().length.clause;
+      run.start = lo - lbd;
+      run.end = hi + lbd;
+      run.anch_start = run.anch_end = lbd;
+      (void)edge_at_start;  // both ends anchored alike: past the edge line and past the zone
+      run.strip = -1;
+      run.direction = r.direction;
+      run.across_from = in_x ? c.y0_mm : c.x0_mm;
+      run.across_to = in_x ? c.y1_mm : c.x1_mm;
+      run.count = count_over(run.across_to - run.across_from, r.bars.spacing_mm);
+      runs.push_back(std::move(run));
+    }
+}
+
+// Free edges (two-way slabs): the U-bars of each bay's edge (their flat
+// legs in the two faces reach the rule's leg from the edge; the body
+// stands across the depth between the covers) and, per edge, one bar in
+// each face inside the U along the whole free edge, lapped where longer
+// than the stock.
+void Detailer::add_free_edge_bars(const PlateRecord& plate) {
+  const double c = std::max(cover(Face::top), cover(Face::bottom));
+  const double body = thickness_ - cover(Face::top) - cover(Face::bottom);
+  std::map<std::string, std::pair<double, double>> edge_extent;  // edge → (from, to)
+  std::map<std::string, const PlateFreeEdgeRecord*> edge_bar;     // edge → the record of its largest bar
+  for (const auto& f : plate.free_edges) {
+    const bool x_edge = f.edge.find(" x") != std::string::npos;  // "edge x0", "edge x1": bars across in x
+    const bool high = f.edge.back() == '1';
+    const double pos = x_edge ? (high ? plate.x_lines_mm.back() : plate.x_lines_mm.front())
+                              : (high ? plate.y_lines_mm.back() : plate.y_lines_mm.front());
+    const double dir = high ? 1.0 : -1.0;  // outward
+    Run u;
+    u.where = f.edge + ", " + f.bay;
+    u.face = Face::top;
+    u.bars = BarChoice{f.u_bar, f.u_bar_diameter_mm, f.u_bar_spacing_mm, f.u_bar_area_mm2};
+    u.edge_loop = true;
+    u.start = std::min(pos - dir * f.leg_mm, pos - dir * c);
+    u.end = std::max(pos - dir * f.leg_mm, pos - dir * c);
+    u.leg_start = u.leg_end = f.leg_mm - c;
+    u.body = body;
+    u.clause = f.clause;
+    u.strip = -1;
+    u.direction = x_edge ? BarDirection::x : BarDirection::y;
+    u.across_from = f.from_mm;
+    u.across_to = f.to_mm;
+    u.count = count_over(f.to_mm - f.from_mm, f.u_bar_spacing_mm);
+    runs.push_back(std::move(u));
+    auto [it, fresh] = edge_extent.try_emplace(f.edge, f.from_mm, f.to_mm);
+    if (!fresh) it->second = {std::min(it->second.first, f.from_mm), std::max(it->second.second, f.to_mm)};
+    auto& big = edge_bar[f.edge];
+    if (!big || f.edge_bar_diameter_mm > big->edge_bar_diameter_mm) big = &f;
+  }
+  for (const auto& [edge, extent] : edge_extent) {
+    const PlateFreeEdgeRecord& f = *edge_bar[edge];
+    const bool x_edge = edge.find(" x") != std::string::npos;
+    const bool high = edge.back() == '1';
+    const double pos = x_edge ? (high ? plate.x_lines_mm.back() : plate.x_lines_mm.front())
+                              : (high ? plate.y_lines_mm.back() : plate.y_lines_mm.front());
+    const double area = 3.14159265358979 * f.edge_bar_diameter_mm * f.edge_bar_diameter_mm / 4.0;
+    for (const Face face : {Face::bottom, Face::top}) {
+      Run e;
+      e.where = edge + ", edge bar";
+      e.face = face;
+      e.bars = BarChoice{f.edge_bar, f.edge_bar_diameter_mm, 0.0, area};
+      e.start = extent.first;
+      e.end = extent.second;
+      e.clause = f.clause;
+      e.strip = -1;
+      e.direction = x_edge ? BarDirection::y : BarDirection::x;  // along the edge
+      e.across_from = e.across_to = pos;
+      e.count = 1;
+      e.preset_count = 1;
+      e.demand.where = e.where;
+      e.demand.face = face;
+      e.demand.diameter_mm = f.edge_bar_diameter_mm;
+      e.demand.cover_mm = cover(face);
+      e.demand.d_mm = thickness_ - cover(face) - f.edge_bar_diameter_mm / 2.0;
+      e.demand.As_prov_mm2 = area;
+      e.demand.As_req_mm2 = area;  // nominal bars: lapped for their full strength
+      e.demand.bond = in_.bond;
+      e.demand.lapped_share = 1.0;  // one bar per face: its lap is the whole section's
+      runs.push_back(std::move(e));
+    }
+  }
+}
+
+}  // namespace
+
+DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
+                             const DesignRecord& rec, const std::vector<std::vector<DiagramPoint>>& envelope) {
+  DetailingRecord out;
+  out.slab_width_mm = req.detailing.slab_width_mm;
+  out.stock_length_mm = req.detailing.stock_length_mm;
+  const std::size_t n = req.slab.spans_mm.size();
+  StripLayout L;
+  L.strip.direction = BarDirection::span;
+  L.strip.across_to_mm = req.detailing.slab_width_mm;
+  L.strip.spans_mm = req.slab.spans_mm;
+  L.strip.ends = req.slab.ends;
+  L.support_widths_mm = req.slab.support_widths_mm;
+  L.width_mm = req.detailing.slab_width_mm;
+  auto region = [&](const std::string& where, Face face) -> const RegionRecord* {
+    for (const auto& r : rec.regions)
+      if (r.where == where && r.face == face) return &r;
+    return nullptr;
+  };
+  for (std::size_t e = 0; e < n; ++e) {
+    L.span_names.push_back("span " + std::to_string(e + 1));
+    L.bottom.push_back(region(L.span_names.back(), Face::bottom));
+  }
+  for (std::size_t j = 0; j <= n; ++j) {
+    L.support_names.push_back("support " + std::to_string(j + 1));
+    L.top.push_back(region(L.support_names.back(), Face::top));
+  }
+  L.distribution = &rec.distribution.bars;
+  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, out);
+  detailer.add_strip(L, envelope);
+  detailer.finish();
+  out.envelope = out.strips.front().envelope;
+  for (double s : req.slab.spans_mm) out.strip_length_mm += s;
+  out.mass_per_area_kg_m2 = out.total_mass_kg / (out.slab_width_mm / 1000.0 * out.strip_length_mm / 1000.0);
   return out;
+}
+
+DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
+                             const DesignRecord& rec, const PlateRecord& plate) {
+  constexpr double per_metre = 1000.0;  // N·mm/mm → N·mm per metre width
+  DetailingRecord out;
+  out.plan = true;
+  out.stock_length_mm = req.detailing.stock_length_mm;
+  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, out);
+  const PlateFieldRecord& f = plate.field;
+  const std::size_t nx = f.x_mm.size();
+  const double tol = 1e-6;
+  // Strictly inside a corner zone: its bars are the corner's (as the
+  // regions' design reads the zones).
+  auto in_corner = [&](double x, double y) {
+    return std::any_of(plate.corners.begin(), plate.corners.end(), [&](const PlateCornerRecord& c) {
+      const bool inner_x = c.x0_mm <= plate.x_lines_mm.front() + tol ? x < c.x1_mm - tol : x > c.x0_mm + tol;
+      const bool inner_y = c.y0_mm <= plate.y_lines_mm.front() + tol ? y < c.y1_mm - tol : y > c.y0_mm + tol;
+      return inner_x && inner_y;
+    });
+  };
+  auto region = [&](const std::string& where, Face face, BarDirection dir) -> const RegionRecord* {
+    for (const auto& r : rec.regions)
+      if (r.where == where && r.face == face && r.direction == dir) return &r;
+    return nullptr;
+  };
+  auto reaction_N_per_mm = [&](const std::string& name) {
+    for (const auto& l : plate.reactions)
+      if (l.name == name) return l.max_N_per_mm;
+    return 0.0;
+  };
+  for (const BarDirection dir : {BarDirection::x, BarDirection::y}) {
+    const bool in_x = dir == BarDirection::x;
+    const std::vector<double>& along = in_x ? plate.x_lines_mm : plate.y_lines_mm;
+    const std::vector<double>& across = in_x ? plate.y_lines_mm : plate.x_lines_mm;
+    const std::vector<double>& node_along = in_x ? f.x_mm : f.y_mm;
+    const std::vector<double>& node_across = in_x ? f.y_mm : f.x_mm;
+    const std::vector<double>& bottom = in_x ? f.bottom_x : f.bottom_y;
+    const std::vector<double>& top = in_x ? f.top_x : f.top_y;
+    const std::size_t n = along.size() - 1;
+    const char axis = in_x ? 'x' : 'y';
+    for (std::size_t row = 0; row + 1 < across.size(); ++row) {
+      StripLayout L;
+      const std::string first = in_x ? plate_bay_name(0, row) : plate_bay_name(row, 0);
+      const std::string last = in_x ? plate_bay_name(n - 1, row) : plate_bay_name(row, n - 1);
+      L.strip.name = (n == 1 ? first : first + " to " + last.substr(4)) + ", bars in " + axis;
+      L.strip.direction = dir;
+      L.strip.across_from_mm = across[row];
+      L.strip.across_to_mm = across[row + 1];
+      for (std::size_t e = 0; e < n; ++e) L.strip.spans_mm.push_back(along[e + 1] - along[e]);
+      L.strip.ends = in_x ? std::array<EndSupport, 2>{plate.edges[0], plate.edges[1]}
+                          : std::array<EndSupport, 2>{plate.edges[2], plate.edges[3]};
+      L.free_ends_are_edges = true;
+      L.width_mm = across[row + 1] - across[row];
+      for (std::size_t e = 0; e < n; ++e) {
+        L.span_names.push_back(in_x ? plate_bay_name(e, row) : plate_bay_name(row, e));
+        L.bottom.push_back(region(L.span_names.back(), Face::bottom, dir));
+      }
+      std::vector<double> V_end(n + 1, 0.0);  // the line's largest reaction, N per metre
+      for (std::size_t k = 0; k <= n; ++k) {
+        const std::string line = k == 0   ? std::string("edge ") + axis + "0"
+                                 : k == n ? std::string("edge ") + axis + "1"
+                                          : std::string("grid ") + axis + std::to_string(k);
+        L.support_names.push_back(line + " segment " + std::to_string(row + 1));
+        L.top.push_back(region(L.support_names.back(), Face::top, dir));
+        V_end[k] = reaction_N_per_mm(L.support_names.back()) * per_metre;
+      }
+      // The envelope along the row: at each node line across it the
+      // largest Wood–Armer design moments over the row's width, per metre.
+      // The hogging leaves out the corner zones (the corner bars') and the
+      // row's sides that lie on a supported line: there the moment along
+      // the line is the Poisson share of the hogging across it and the
+      // twist of the edge, carried by the bars over the line and the
+      // corner bars (DEVELOPERS.md, "Detailing of two-way slabs"). The
+      // shear, which only the points of inflection read, is taken between
+      // the lines' largest reactions (more than the span's: on the safe side).
+      const std::size_t rows = across.size() - 1;
+      const EndSupport side_lo = row == 0 ? plate.edges[in_x ? 2 : 0] : EndSupport::fixed;
+      const EndSupport side_hi = row + 1 == rows ? plate.edges[in_x ? 3 : 1] : EndSupport::fixed;
+      auto on_supported_side = [&](double t) {
+        return (std::abs(t - across[row]) < tol && side_lo != EndSupport::free) ||
+               (std::abs(t - across[row + 1]) < tol && side_hi != EndSupport::free);
+      };
+      std::vector<std::vector<DiagramPoint>> envelope(n);
+      for (std::size_t e = 0; e < n; ++e)
+        for (std::size_t a = 0; a < node_along.size(); ++a) {
+          const double s = node_along[a];
+          if (s < along[e] - tol || s > along[e + 1] + tol) continue;
+          double sag = 0.0, hog = 0.0;
+          for (std::size_t b = 0; b < node_across.size(); ++b) {
+            const double t = node_across[b];
+            if (t < across[row] - tol || t > across[row + 1] + tol) continue;
+            const std::size_t node = in_x ? a + nx * b : b + nx * a;
+            sag = std::max(sag, bottom[node]);
+            if (!(in_x ? in_corner(s, t) : in_corner(t, s)) && !on_supported_side(t)) hog = std::max(hog, top[node]);
+          }
+          const double u = (s - along[e]) / (along[e + 1] - along[e]);
+          const double V = V_end[e] + u * (V_end[e + 1] - V_end[e]);
+          DiagramPoint p{};
+          p.x_mm = s;
+          p.M_max = sag * per_metre;
+          p.M_min = -hog * per_metre;
+          p.V_max = V;
+          p.V_min = -V;
+          envelope[e].push_back(p);
+        }
+      detailer.add_strip(L, envelope);
+    }
+  }
+  detailer.add_corner_bars(plate, rec.regions);
+  detailer.add_free_edge_bars(plate);
+  detailer.finish();
+  const double area_m2 = (plate.x_lines_mm.back() - plate.x_lines_mm.front()) *
+                         (plate.y_lines_mm.back() - plate.y_lines_mm.front()) * 1e-6;
+  out.mass_per_area_kg_m2 = out.total_mass_kg / area_m2;
+  return out;
+}
+
+const DetailingRules& detailing_rules_of(const SlabChecker& checker, const CodeIdentity& code) {
+  const DetailingRules* rules = call_code(code, "detailing rules", [&] { return checker.detailing_rules(); });
+  if (!rules) {
+    InputProblems problems;
+    problems.add("detailing", code.id + " (" + code.variant + ") gives no detailing rules");
+    problems.raise_if_any();
+  }
+  return *rules;
+}
+
+void adopt_detailing(DesignRecord& rec, DetailingRecord d) {
+  rec.warnings.insert(rec.warnings.end(), d.notes.begin(), d.notes.end());
+  for (const Check& c : d.checks) {
+    const auto at = std::find_if(rec.supports.begin(), rec.supports.end(),
+                                 [&](const SupportRecord& s) { return s.where == c.where; });
+    if (at != rec.supports.end()) at->checks.push_back(c);
+    else rec.supports.push_back({c.where, 0.0, 0.0, {c}});
+  }
+  rec.detailing = std::move(d);
 }
 
 }  // namespace armature

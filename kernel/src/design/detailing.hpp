@@ -1,10 +1,12 @@
-// Detailing of a one-way strip (private to the kernel): bars along the
-// strip from the moment envelope, with the code's lengths (DetailingRules).
+// Detailing (private to the kernel): bars along one-way strips and along
+// the rows and columns of bays of a two-way slab, from the moment
+// envelope, with the code's lengths (DetailingRules).
 #pragma once
 
 #include <vector>
 
 #include "armature/design.hpp"
+#include "armature/two_way.hpp"
 
 namespace armature {
 
@@ -14,5 +16,22 @@ namespace armature {
 // the stock is too short for the laps.
 DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
                              const DesignRecord& rec, const std::vector<std::vector<DiagramPoint>>& envelope);
+
+// The bars of a two-way slab on walls or beams: each row of bays (bars in
+// x) and each column of bays (bars in y) detailed as a strip on the
+// plate's Wood–Armer envelope over its width, counted over that width;
+// then the corner zones' bars and the U-bars and edge bars of free edges.
+// `rec` the design with its regions and covers; `plate` its record.
+DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
+                             const DesignRecord& rec, const PlateRecord& plate);
+
+// The code's detailing rules (an InputError naming `detailing` where the
+// code gives none).
+const DetailingRules& detailing_rules_of(const SlabChecker& checker, const CodeIdentity& code);
+
+// Puts a detailing into the design: its notes among the warnings, its
+// anchorage checks among their supports' checks (a support the design has
+// no record for gets one).
+void adopt_detailing(DesignRecord& rec, DetailingRecord detailing);
 
 }  // namespace armature

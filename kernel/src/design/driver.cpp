@@ -257,22 +257,8 @@ BarPlan plan_bars(const SlabChecker& checker, const CodeIdentity& code, const Re
 // detailing envelope (a code giving none refuses the request's field).
 void detail_design(const SlabChecker& checker, const Request& req, const Member& member, const MemberLoads& loads,
                    DesignRecord& rec) {
-  const DetailingRules* rules =
-      call_code(rec.code, "detailing rules", [&] { return checker.detailing_rules(); });
-  if (!rules) {
-    InputProblems problems;
-    problems.add("detailing", rec.code.id + " (" + rec.code.variant + ") gives no detailing rules");
-    problems.raise_if_any();
-  }
-  DetailingRecord d = detail_strip(*rules, rec.code, req, rec, member.detailing_diagrams(loads));
-  rec.warnings.insert(rec.warnings.end(), d.notes.begin(), d.notes.end());
-  for (const Check& c : d.checks) {
-    const auto at = std::find_if(rec.supports.begin(), rec.supports.end(),
-                                 [&](const SupportRecord& s) { return s.where == c.where; });
-    if (at != rec.supports.end()) at->checks.push_back(c);
-    else rec.supports.push_back({c.where, 0.0, 0.0, {c}});
-  }
-  rec.detailing = std::move(d);
+  const DetailingRules& rules = detailing_rules_of(checker, rec.code);
+  adopt_detailing(rec, detail_strip(rules, rec.code, req, rec, member.detailing_diagrams(loads)));
 }
 
 DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Member& member,

@@ -12,6 +12,7 @@
 #include "armature/flat.hpp"
 #include "armature/two_way.hpp"
 #include "call_code.hpp"
+#include "detailing.hpp"
 #include "loads.hpp"
 #include "plate_deflection.hpp"
 #include "search.hpp"
@@ -540,6 +541,16 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
     }
     plate_record.long_term_deflection_mm = std::move(calc.long_term_mm);
     rec.warnings.insert(rec.warnings.end(), calc.warnings.begin(), calc.warnings.end());
+  }
+  // Detailing: the bars of each row and column of bays, the corners' and
+  // the free edges' (detailing.cpp).
+  if constexpr (!flat) {
+    if (req.detailing.requested) {
+      adopt_detailing(rec, detail_plate(detailing_rules_of(checker, rec.code), rec.code, req, rec, plate_record));
+      if (req.detailing.slab_width_mm > 0.0)
+        rec.warnings.push_back("detailing.slab_width_m is not used for a two-way slab: each row or column of bays "
+                               "counts its bars over its own width on the plan");
+    }
   }
   rec.plate = std::make_shared<const PlateRecord>(std::move(plate_record));
 

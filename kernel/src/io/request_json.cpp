@@ -751,10 +751,11 @@ void read_serviceability(const json& j, InputProblems& problems, ServiceabilityI
 }
 
 // detailing (contract-v2 section 5).
-void read_detailing(const json& j, InputProblems& problems, DetailingInput& d) {
+// slab_width_m: required for a strip; a plate's widths come from its plan.
+void read_detailing(const json& j, InputProblems& problems, DetailingInput& d, bool width_required) {
   ObjectReader r(j, "detailing", problems, {"slab_width_m", "stock_length_m", "bond", "curtail"});
   d.requested = true;
-  if (auto w = r.in_range(r.number("slab_width_m", true), "slab_width_m", 0, 1000, "m", true))
+  if (auto w = r.in_range(r.number("slab_width_m", width_required), "slab_width_m", 0, 1000, "m", true))
     d.slab_width_mm = *w * 1000.0;
   if (auto s = r.in_range(r.number("stock_length_m"), "stock_length_m", 0, 100, "m", true))
     d.stock_length_mm = *s * 1000.0;
@@ -1059,7 +1060,7 @@ void read_two_way_loads(const json& j, InputProblems& problems, Request& req) {
 // What a two-way slab does not take yet, named (never ignored).
 void add_two_way_scope_problems(const Request& req, InputProblems& problems) {
   if (req.design.redistribution_percent > 0.0) problems.add("design.redistribution_percent", not_yet(req));
-  if (req.detailing.requested) problems.add("detailing", not_yet(req));
+  if (req.detailing.requested && req.slab_type == SlabType::flat) problems.add("detailing", not_yet(req));
 }
 
 }  // namespace
@@ -1129,7 +1130,7 @@ Request request_from_json(const json& j, InputProblems& problems) {
   if (const json* f = r.object("fire")) read_fire(*f, problems, req.fire);
   if (const json* d = r.object("design")) read_design(*d, problems, req.design);
   if (const json* s = r.object("serviceability")) read_serviceability(*s, problems, req.serviceability);
-  if (const json* d = r.object("detailing")) read_detailing(*d, problems, req.detailing);
+  if (const json* d = r.object("detailing")) read_detailing(*d, problems, req.detailing, !two_way);
   if (two_way) add_two_way_scope_problems(req, problems);
   if (request_gives(j, "reinforcement.outer_layer")) {
     const json& o = j["reinforcement"]["outer_layer"];

@@ -315,38 +315,45 @@ std::string diagram_svg(const DesignRecord& r, bool moment) {
 // slab's middle, top bars above, each on a row of its own so they read
 // apart), a bent end as a short leg towards the slab (its length not to
 // scale), laps drawn heavy, distribution bars as a row of dots each.
-std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
+std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d, std::size_t which) {
   const RecordUnits u = units_of(r);
-  double lo = 0.0, hi = d.strip_length_mm;
+  const DetailingStrip& strip = d.strips[which];
+  double length = 0.0;
+  for (double s : strip.spans_mm) length += s;
+  std::vector<const DetailedBar*> bars;
   for (const auto& b : d.bars)
-    if (!b.distribution) lo = std::min(lo, b.start_mm), hi = std::max(hi, b.end_mm);
+    if (b.strip == static_cast<int>(which)) bars.push_back(&b);
+  double lo = 0.0, hi = length;
+  for (const DetailedBar* b : bars)
+    if (!b->distribution) lo = std::min(lo, b->start_mm), hi = std::max(hi, b->end_mm);
   const double width = 660, pad = 30, row = 13;
   std::size_t tops = 0, bottoms = 0;
-  for (const auto& b : d.bars)
-    if (!b.distribution) (b.face == Face::top ? tops : bottoms) += 1;
+  for (const DetailedBar* b : bars)
+    if (!b->distribution) (b->face == Face::top ? tops : bottoms) += 1;
   const double slab_top = 24 + row * static_cast<double>(tops + 1), slab_h = 22;
   const double height = slab_top + slab_h + row * static_cast<double>(bottoms + 1) + 34;
   auto sx = [&](double x) { return pad + (width - 2 * pad) * (x - lo) / (hi - lo); };
   std::string o = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" + n4(width) + "\" height=\"" + n4(height) +
                   "\" viewBox=\"0 0 " + n4(width) + " " + n4(height) +
                   "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" aria-label=\"bar layout in elevation\">";
-  o += "<text x=\"4\" y=\"12\">Bars in elevation, lengths to scale (" + std::string(u.along_u()) +
-       "); marks at each bar, laps heavy</text>";
-  o += "<rect x=\"" + n4(sx(0)) + "\" y=\"" + n4(slab_top) + "\" width=\"" + n4(sx(d.strip_length_mm) - sx(0)) +
+  o += "<text x=\"4\" y=\"12\">" + (strip.name.empty() ? std::string() : esc(strip.name) + ": ") +
+       "bars in elevation, lengths to scale (" + std::string(u.along_u()) + "); marks at each bar, laps heavy</text>";
+  o += "<rect x=\"" + n4(sx(0)) + "\" y=\"" + n4(slab_top) + "\" width=\"" + n4(sx(length) - sx(0)) +
        "\" height=\"" + n4(slab_h) + "\" fill=\"none\" stroke=\"#000\" stroke-width=\"1\"/>";
   double x = 0.0;
-  for (std::size_t j = 0; j <= r.spans_mm.size(); ++j) {
-    const bool free = (j == 0 && r.ends[0] == EndSupport::free) ||
-                      (j == r.spans_mm.size() && r.ends[1] == EndSupport::free);
+  for (std::size_t j = 0; j <= strip.spans_mm.size(); ++j) {
+    const bool free = (j == 0 && strip.ends[0] == EndSupport::free) ||
+                      (j == strip.spans_mm.size() && strip.ends[1] == EndSupport::free);
     if (!free) {
       const double px = sx(x), py = slab_top + slab_h;
       o += "<polygon points=\"" + n4(px) + "," + n4(py) + " " + n4(px - 5) + "," + n4(py + 8) + " " + n4(px + 5) +
            "," + n4(py + 8) + "\" fill=\"none\" stroke=\"#000\"/>";
     }
-    if (j < r.spans_mm.size()) x += r.spans_mm[j];
+    if (j < strip.spans_mm.size()) x += strip.spans_mm[j];
   }
   std::size_t t = 0, bt = 0;
-  for (const auto& b : d.bars) {
+  for (const DetailedBar* bp : bars) {
+    const DetailedBar& b = *bp;
     if (b.distribution) continue;
     const double y = b.face == Face::top ? slab_top - row * static_cast<double>(++t) + 4
                                          : slab_top + slab_h + row * static_cast<double>(++bt) + 6;
@@ -363,7 +370,8 @@ std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
     o += "<text x=\"" + n4(sx(b.start_mm) + 2) + "\" y=\"" + n4(y - 2) + "\">" + esc(b.mark) + "</text>";
   }
   // Distribution bars: dots spread over their extent (at most 60 a set), inside the main bars.
-  for (const auto& b : d.bars) {
+  for (const DetailedBar* bp : bars) {
+    const DetailedBar& b = *bp;
     if (!b.distribution || b.count < 1) continue;
     const double y = b.face == Face::top ? slab_top + 4 : slab_top + slab_h - 4;
     const int dots = std::min(b.count, 60);
@@ -373,9 +381,9 @@ std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
       o += "<circle cx=\"" + n4(sx(xx)) + "\" cy=\"" + n4(y) + "\" r=\"1.2\" fill=\"#000\"/>";
     }
   }
-  o += "<text x=\"4\" y=\"" + n4(height - 4) + "\">strip " + esc(u.along(d.strip_length_mm)) +
+  o += "<text x=\"4\" y=\"" + n4(height - 4) + "\">strip " + esc(u.along(length)) +
        " between its ends; dots: distribution bars (marks in the table)" +
-       (std::any_of(d.bars.begin(), d.bars.end(), [](const DetailedBar& b) { return b.shape != "straight"; })
+       (std::any_of(bars.begin(), bars.end(), [](const DetailedBar* b) { return b->shape != "straight"; })
             ? "; short ticks: bent ends"
             : "") +
        "</text>";
@@ -384,13 +392,33 @@ std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d) {
 
 std::string detail_position(const RecordUnits& u, double mm) { return n4(u.along_v(mm)); }
 
+// The bar's place in the tables: its region, and on a two-way slab its
+// direction and the band across it.
+std::string detail_where(const RecordUnits& u, const DetailedBar& b) {
+  std::string w = b.where + (b.curtailed ? " (curtailed)" : "");
+  if (b.direction != BarDirection::span && !b.distribution)
+    w += std::string(", in ") + to_string(b.direction) + ", across " + detail_position(u, b.across_from_mm) +
+         (b.across_to_mm != b.across_from_mm ? " to " + detail_position(u, b.across_to_mm) : std::string()) + " " +
+         u.along_u();
+  return w;
+}
+
+// The widths the counts are over.
+std::string detail_widths(const RecordUnits& u, const DetailingRecord& d) {
+  return d.plan ? std::string("Counts over each row's or column's width on the plan")
+                : "Slab width " + u.along(d.slab_width_mm);
+}
+
 std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
   const RecordUnits u = units_of(r);
   std::string o = "<h3>Detailing: bars, laps and schedule</h3>\n";
-  o += "<p>Slab width " + esc(u.along(d.slab_width_mm)) + ", stock length " + esc(u.along(d.stock_length_mm)) +
+  o += "<p>" + esc(detail_widths(u, d)) + ", stock length " + esc(u.along(d.stock_length_mm)) +
        "; each bar covers the moment envelope (with a cantilever's EQU cases) past its zero points by the shift "
        "and the anchorage.</p>\n";
-  o += detailing_svg(r, d) + "\n";
+  for (std::size_t k = 0; k < d.strips.size(); ++k) o += detailing_svg(r, d, k) + "\n";
+  if (d.plan)
+    o += "<p>Each row of bays (bars in x) and column of bays (bars in y) in elevation, positions from grid line x0 "
+         "or y0; corner and free-edge bars in the table only.</p>\n";
   o += "<table>\n<tr><th>mark</th><th>where</th><th>face</th><th>bar</th><th class=\"num\">count</th><th "
        "class=\"num\">from, " + std::string(u.along_u()) + "</th><th class=\"num\">to, " + u.along_u() +
        "</th><th class=\"num\">length, mm</th><th>anchorage, mm (start, end)</th><th>laps</th></tr>\n";
@@ -398,7 +426,7 @@ std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
     std::string laps;
     for (const auto& l : b.laps)
       laps += (laps.empty() ? "" : "; ") + detail_position(u, l.from_mm) + " to " + detail_position(u, l.to_mm);
-    o += "<tr><td>" + esc(b.mark) + "</td><td>" + esc(b.where + (b.curtailed ? " (curtailed)" : "")) + "</td><td>" +
+    o += "<tr><td>" + esc(b.mark) + "</td><td>" + esc(detail_where(u, b)) + "</td><td>" +
          (b.face == Face::top ? "top" : "bottom") +
          "</td><td>" + esc(u.bars({b.bar, b.diameter_mm, b.spacing_mm, 0.0})) + "</td><td class=\"num\">" +
          std::to_string(b.count) + "</td><td class=\"num\">" +
@@ -432,7 +460,7 @@ std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
 
 std::string detailing_markdown(const DesignRecord& r, const DetailingRecord& d) {
   const RecordUnits u = units_of(r);
-  std::string o = "\n### Detailing: bars, laps and schedule\n\nSlab width " + u.along(d.slab_width_mm) +
+  std::string o = "\n### Detailing: bars, laps and schedule\n\n" + detail_widths(u, d) +
                   ", stock length " + u.along(d.stock_length_mm) +
                   "; each bar covers the moment envelope (with a cantilever's EQU cases) past its zero points by "
                   "the shift and the anchorage.\n\n| mark | where | face | bar | count | from, " +
@@ -442,7 +470,7 @@ std::string detailing_markdown(const DesignRecord& r, const DetailingRecord& d) 
     std::string laps;
     for (const auto& l : b.laps)
       laps += (laps.empty() ? "" : "; ") + detail_position(u, l.from_mm) + " to " + detail_position(u, l.to_mm);
-    o += "| " + b.mark + " | " + b.where + (b.curtailed ? " (curtailed)" : "") + " | " +
+    o += "| " + b.mark + " | " + detail_where(u, b) + " | " +
          (b.face == Face::top ? "top" : "bottom") + " | " +
          u.bars({b.bar, b.diameter_mm, b.spacing_mm, 0.0}) + " | " + std::to_string(b.count) + " | " +
          detail_position(u, b.distribution ? b.along_from_mm : b.start_mm) + " | " +

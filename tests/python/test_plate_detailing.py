@@ -1,0 +1,220 @@
+"""Detailing of two-way slabs on walls (request and result `detailing`):
+each row and column of bays detailed as a strip on the plate's envelope,
+counted over its width on the plan; corner-zone bars; the U-bars and edge
+bars of a free edge. Values are checked against the request's geometry,
+the regions' bars, EN 1992-1-1 8.4 evaluated here, and the unit mass
+0.00617 d² kg/m (common practice). The slabs are our own workshop
+scenarios."""
+import copy
+import math
+
+import pytest
+
+import armature
+from test_detailing import en_anchorage_by_hand
+
+UNIT_MASS = 0.00617  # kg/m per mm² of d² (common practice)
+
+# The workshop's ground floor over the store: two bays by two on walls.
+GROUND = {
+    "code": "EN1992-1-1", "variant": "recommended",
+    "slab": {"type": "two_way", "x_spans_m": [5.4, 6.0], "y_spans_m": [4.2, 4.2], "thickness_mm": 200,
+             "edges": {"x0": "pinned", "x1": "pinned", "y0": "pinned", "y1": "fixed"}},
+    "concrete": {"class": "C30/37"},
+    "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0, "imposed_category": "C"},
+    "detailing": {"stock_length_m": 12.0},
+}
+
+# The loading bay canopy slab: one bay, a free edge at y1.
+CANOPY = copy.deepcopy(GROUND)
+CANOPY["slab"].update({"x_spans_m": [5.0], "y_spans_m": [3.6],
+                       "edges": {"x0": "pinned", "x1": "pinned", "y0": "fixed", "y1": "free"}})
+
+
+def lines(spans):
+    out = [0.0]
+    for s in spans:
+        out.append(out[-1] + s)
+    return out
+
+
+def bars_of(d, where, face, direction):
+    return [b for b in d["bars"] if b["where"] == where and b["face"] == face and b.get("direction") == direction]
+
+
+def count_over(width_m, spacing_mm):
+    return math.floor(width_m * 1000 / spacing_mm + 1e-9) + 1
+
+
+@pytest.fixture(scope="module")
+def ground():
+    return armature.design(GROUND)
+
+
+def test_every_bay_and_line_has_its_bars_over_its_width(ground):
+    r = ground
+    d = r["detailing"]
+    X, Y = lines(GROUND["slab"]["x_spans_m"]), lines(GROUND["slab"]["y_spans_m"])
+    for g in r["regions"]:
+        if g["where"].startswith("corner"):
+            continue
+        bars = bars_of(d, g["where"], g["face"], g["direction"])
+        assert bars, g["where"]
+        for b in bars:
+            assert b["bar"] == g["bars"]["bar"] and b["spacing_mm"] == g["bars"]["spacing_mm"]
+        # Counted over the row's (bars in x) or column's (bars in y) width on the plan.
+        lo, hi = bars[0]["across_m"]["from"], bars[0]["across_m"]["to"]
+        across = Y if g["direction"] == "x" else X
+        assert any(abs(lo - a) < 1e-9 and abs(hi - b) < 1e-9 for a, b in zip(across, across[1:]))
+        if not any(b["laps"] for b in bars):
+            assert sum(b["count"] for b in bars) == count_over(hi - lo, g["bars"]["spacing_mm"])
+
+
+def test_bottom_bars_span_their_bay_and_top_bars_pass_their_line(ground):
+    d = ground["detailing"]
+    X, Y = lines(GROUND["slab"]["x_spans_m"]), lines(GROUND["slab"]["y_spans_m"])
+    for direction, along in (("x", X), ("y", Y)):
+        for i in range(len(X) - 1):
+            for j in range(len(Y) - 1):
+                e = i if direction == "x" else j
+                bars = bars_of(d, f"bay {i + 1},{j + 1}", "bottom", direction)
+                lo = min(b["start_m"] for b in bars)
+                hi = max(b["end_m"] for b in bars)
+                # The bay's bottom bars reach past both its supports.
+                assert lo < along[e] and hi > along[e + 1]
+        # Top bars over an interior line: past it on each side by at least
+        # the shift and the anchorage (the hogging peaks on the line).
+        k = 1
+        for seg in range(1, (len(Y) if direction == "x" else len(X))):
+            bars = bars_of(d, f"grid {direction}{k} segment {seg}", "top", direction)
+            assert bars
+            lo = min(b["start_m"] for b in bars)
+            hi = max(b["end_m"] for b in bars)
+            b = bars[0]
+            need = (b["shift_mm"] + max(b["anchorage_mm"]["start"], b["anchorage_mm"]["end"])) / 1000
+            assert lo <= along[k] - need + 1e-9 and hi >= along[k] + need - 1e-9
+
+
+def test_anchorage_of_the_top_bars_is_en_8_4_by_hand(ground):
+    """EN 1992-1-1 8.4.2–8.4.4 (good bond: a 200 mm slab, 8.4.2(2))."""
+    r = ground
+    d = r["detailing"]
+    g = next(g for g in r["regions"] if g["where"] == "grid x1 segment 1")
+    bars = bars_of(d, "grid x1 segment 1", "top", "x")
+    phi, s = g["bars"]["diameter_mm"], g["bars"]["spacing_mm"]
+    lbd, _ = en_anchorage_by_hand(phi, r["cover_mm"]["top"], s)
+    inner = [b["anchorage_mm"][side] for b in bars for side in ("start", "end") if b["anchorage_mm"][side] > 0]
+    assert inner and all(a == pytest.approx(lbd, rel=1e-6) for a in inner)
+
+
+def test_corner_bars_cover_their_zone_and_are_anchored_past_it(ground):
+    r = ground
+    d = r["detailing"]
+    corners = r["plate"]["corners"]
+    assert corners
+    for c in corners:
+        for g in (g for g in r["regions"] if g["where"] == c["name"]):
+            (b,) = bars_of(d, c["name"], g["face"], g["direction"])
+            lo, hi = (c["x0_m"], c["x1_m"]) if g["direction"] == "x" else (c["y0_m"], c["y1_m"])
+            a0, a1 = (c["y0_m"], c["y1_m"]) if g["direction"] == "x" else (c["x0_m"], c["x1_m"])
+            anch = b["anchorage_mm"]["start"] / 1000
+            assert b["start_m"] == pytest.approx(lo - anch)
+            assert b["end_m"] >= hi + anch - 1e-9
+            assert b["count"] == count_over(a1 - a0, g["bars"]["spacing_mm"])
+
+
+def test_schedule_masses_and_the_plan_area(ground):
+    d = ground["detailing"]
+    total = 0.0
+    for row in d["schedule"]:
+        mass = row["count"] * row["length_mm"] / 1000 * UNIT_MASS * row["diameter_mm"] ** 2
+        assert row["mass_kg"] == pytest.approx(mass, rel=1e-9)
+        total += mass
+        # Every bar of a mark adds to its count.
+        assert row["count"] == sum(b["count"] for b in d["bars"] if b["mark"] == row["mark"])
+    assert d["total_mass_kg"] == pytest.approx(total, rel=1e-9)
+    area = sum(GROUND["slab"]["x_spans_m"]) * sum(GROUND["slab"]["y_spans_m"])
+    assert d["mass_per_area_kg_m2"] == pytest.approx(total / area, rel=1e-9)
+
+
+def test_cut_lengths_are_the_extent_rounded_up():
+    d = armature.design(GROUND)["detailing"]
+    for b in d["bars"]:
+        if b["shape"] == "straight":
+            raw = (b["end_m"] - b["start_m"]) * 1000
+            assert b["length_mm"] == pytest.approx(raw, abs=1e-6)
+            assert b["length_mm"] % 25 == pytest.approx(0, abs=1e-6) or b["length_mm"] % 25 == pytest.approx(25)
+
+
+def test_free_edge_u_bars_edge_bars_and_the_bars_stopping_at_it():
+    r = armature.design(CANOPY)
+    d = r["detailing"]
+    h = CANOPY["slab"]["thickness_mm"]
+    ct, cb = r["cover_mm"]["top"], r["cover_mm"]["bottom"]
+    c = max(ct, cb)
+    edges = r["plate"]["free_edges"]
+    assert edges
+    y_edge = sum(CANOPY["slab"]["y_spans_m"])
+    for fe in edges:
+        u = [b for b in d["bars"] if b["where"] == f"{fe['edge']}, {fe['bay']}"]
+        assert len(u) == 1
+        u = u[0]
+        leg = fe["u_bar_leg_mm"] - c
+        assert u["shape"] == "U-bar"
+        assert u["legs_mm"] == {"start": pytest.approx(leg), "end": pytest.approx(leg)}
+        assert u["length_mm"] == math.ceil((2 * leg + h - ct - cb) / 25 - 1e-9) * 25
+        assert u["count"] == count_over(fe["to_m"] - fe["from_m"], fe["u_bar_spacing_mm"])
+        assert u["end_m"] == pytest.approx(y_edge - c / 1000)
+    # One bar in each face along the whole free edge.
+    along = [b for b in d["bars"] if b["where"] == "edge y1, edge bar"]
+    assert sorted(b["face"] for b in along) == ["bottom", "top"]
+    for b in along:
+        assert b["count"] == 1 and b["start_m"] == pytest.approx(0.0)
+        assert b["end_m"] >= sum(CANOPY["slab"]["x_spans_m"]) - 1e-9
+    # The bay's bars in y stop at the free edge less the cover.
+    (bottom_y,) = bars_of(d, "bay 1,1", "bottom", "y")
+    assert bottom_y["end_m"] == pytest.approx(y_edge - cb / 1000)
+    assert bottom_y["anchorage_mm"]["end"] == 0
+
+
+def test_slab_width_is_not_used_on_a_plan_and_says_so():
+    req = copy.deepcopy(GROUND)
+    req["detailing"]["slab_width_m"] = 3.0
+    r = armature.design(req)
+    assert any("slab_width_m is not used" in w for w in r["warnings"])
+    assert r["detailing"]["schedule"] == armature.design(GROUND)["detailing"]["schedule"]
+
+
+def test_detailing_leaves_the_design_unchanged(ground):
+    plain = copy.deepcopy(GROUND)
+    del plain["detailing"]
+    p = armature.design(plain)
+    assert [g["bars"] for g in p["regions"]] == [g["bars"] for g in ground["regions"]]
+    assert p["max_utilisation"] == ground["max_utilisation"]
+
+
+def test_flat_slab_detailing_is_refused_by_name():
+    req = {"code": "EN1992-1-1", "concrete": {"class": "C30/37"},
+           "slab": {"type": "flat", "x_spans_m": [6.0, 6.0], "y_spans_m": [6.0], "thickness_mm": 250,
+                    "columns": {"x_mm": 400, "y_mm": 400}},
+           "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}, "detailing": {"slab_width_m": 6.0}}
+    with pytest.raises(armature.InputError) as e:
+        armature.design(req)
+    assert "detailing" in str(e.value) and "not available yet" in str(e.value)
+
+
+def test_record_draws_each_row_and_column_with_the_caution(tmp_path):
+    import re
+    r = armature.design(GROUND)
+    path = armature.report(r, tmp_path / "ground.html")
+    text = open(path).read()
+    svgs = re.findall(r'<svg[^>]*aria-label="bar layout in elevation".*?</svg>', text, re.S)
+    rows = len(GROUND["slab"]["y_spans_m"]) + len(GROUND["slab"]["x_spans_m"])
+    assert len(svgs) == rows
+    d = r["detailing"]
+    drawn = [b for b in d["bars"] if not b["where"].startswith("corner")]
+    # One thin line per drawn bar (no bent ends here), one heavy per lap.
+    assert sum(len(re.findall(r'<line[^>]*stroke-width="1"/>', s)) for s in svgs) == len(drawn)
+    assert sum(len(re.findall(r'<line[^>]*stroke-width="3"/>', s)) for s in svgs) == \
+        sum(len(b["laps"]) for b in drawn)
+    assert "<h4>Bar schedule</h4>" in text and armature.CAUTION in text
