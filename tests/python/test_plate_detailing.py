@@ -218,3 +218,19 @@ def test_record_draws_each_row_and_column_with_the_caution(tmp_path):
     assert sum(len(re.findall(r'<line[^>]*stroke-width="3"/>', s)) for s in svgs) == \
         sum(len(b["laps"]) for b in drawn)
     assert "<h4>Bar schedule</h4>" in text and armature.CAUTION in text
+
+
+def test_bars_between_two_free_edges_keep_their_cover():
+    """A bay spanning in y between walls with free edges at x0 and x1 (the
+    workshop's bridge link): its bars in x stop at both edges less the
+    cover, cut to a whole 25 mm (common practice) without losing cover."""
+    req = copy.deepcopy(GROUND)
+    req["slab"].update({"x_spans_m": [4.0], "y_spans_m": [4.5],
+                        "edges": {"x0": "free", "x1": "free", "y0": "pinned", "y1": "pinned"}})
+    r = armature.design(req)
+    cb = r["cover_mm"]["bottom"] / 1000
+    (b,) = bars_of(r["detailing"], "bay 1,1", "bottom", "x")
+    assert b["start_m"] >= cb - 1e-9 and b["end_m"] <= 4.0 - cb + 1e-9
+    assert b["end_m"] - b["start_m"] > 4.0 - 2 * cb - 0.025
+    assert b["length_mm"] % 25 == pytest.approx(0, abs=1e-6)
+    assert b["anchorage_mm"] == {"start": 0, "end": 0}

@@ -673,10 +673,21 @@ void Detailer::finish() {
     }
     // The cut length: the run and its legs, each to the outside of its
     // bend, rounded up; the extra goes to the end that is free to move
-    // (both bent: to the end's leg).
+    // (both bent: to the end's leg). A straight bar held at both ends (a
+    // free tip or edge each side: cover to cover) is rounded down instead,
+    // each end moving in by half the difference, so that it keeps its
+    // cover.
     auto rounded = [&](DetailedBar& b, bool start_fixed, bool end_fixed) {
       const double legs_b = b.leg_start_mm + b.leg_end_mm;
       const double raw = b.end_mm - b.start_mm + legs_b;
+      if (start_fixed && end_fixed && legs_b <= 0.0) {
+        const double cut = std::max(std::floor(raw / length_step_mm + 1e-9) * length_step_mm, length_step_mm);
+        b.start_mm += (raw - cut) / 2.0;
+        b.end_mm -= (raw - cut) / 2.0;
+        b.length_mm = cut;
+        b.shape = shape_of(0.0, 0.0);
+        return;
+      }
       const double cut = std::ceil(raw / length_step_mm - 1e-9) * length_step_mm;
       if (start_fixed && end_fixed && legs_b > 0.0) (b.leg_end_mm > 0.0 ? b.leg_end_mm : b.leg_start_mm) += cut - raw;
       else if (end_fixed && !start_fixed) b.start_mm = b.end_mm - (cut - legs_b);
