@@ -234,3 +234,50 @@ def test_bars_between_two_free_edges_keep_their_cover():
     assert b["end_m"] - b["start_m"] > 4.0 - 2 * cb - 0.025
     assert b["length_mm"] % 25 == pytest.approx(0, abs=1e-6)
     assert b["anchorage_mm"] == {"start": 0, "end": 0}
+
+
+def narrow_bay_slab(x_spans, y_spans, edges):
+    req = copy.deepcopy(GROUND)
+    req["slab"].update({"x_spans_m": x_spans, "y_spans_m": y_spans, "edges": edges})
+    return armature.design(req)
+
+
+def test_top_bars_at_a_simple_edge_reach_a_fifth_of_the_span():
+    """EN 1992-1-1 9.3.1.2(2): top steel at a simply supported edge over 0.2
+    of the adjacent span (value from memory), also where the plate's twist
+    gives the edge a little hogging."""
+    r = narrow_bay_slab([6.0], [3.0], {"x0": "pinned", "x1": "pinned", "y0": "pinned", "y1": "pinned"})
+    (b,) = bars_of(r["detailing"], "edge x0 segment 1", "top", "x")
+    assert b["end_m"] >= 0.2 * 6.0 - 1e-9
+    (b,) = bars_of(r["detailing"], "edge x1 segment 1", "top", "x")
+    assert b["start_m"] <= 6.0 - 0.2 * 6.0 + 1e-9
+
+
+def test_hogging_away_from_the_lines_is_covered_by_top_bars():
+    """A narrow bay beside a wide one: the corner zone spans the narrow
+    bay's width, and hogging in y inside the bay reaches no line. Every
+    node of the field with hogging in y (outside the corner zones, off the
+    supported sides) lies within the narrow column's top y bars."""
+    r = narrow_bay_slab([1.2, 6.0], [6.0], {"x0": "pinned", "x1": "pinned", "y0": "pinned", "y1": "pinned"})
+    f = r["plate"]["field"]
+    xs, ys, top_y = f["x_m"], f["y_m"], f["design"]["top_y"]
+    corners = r["plate"]["corners"]
+
+    def in_corner(x, y):
+        for c in corners:
+            ix = x < c["x1_m"] - 1e-9 if c["x0_m"] <= 1e-9 else x > c["x0_m"] + 1e-9
+            iy = y < c["y1_m"] - 1e-9 if c["y0_m"] <= 1e-9 else y > c["y0_m"] + 1e-9
+            if ix and iy:
+                return True
+        return False
+    bars = [b for b in r["detailing"]["bars"] if b["face"] == "top" and b.get("direction") == "y"
+            and b["across_m"]["to"] <= 1.2 + 1e-9 and not b["where"].startswith("corner")]
+    checked = 0
+    for i, x in enumerate(xs):
+        if not (0.0 < x < 1.2):
+            continue
+        for j, y in enumerate(ys):
+            if top_y[j][i] > 1e-3 and not in_corner(x, y):
+                assert any(b["start_m"] <= y <= b["end_m"] for b in bars), (x, y, top_y[j][i])
+                checked += 1
+    assert checked > 0

@@ -535,7 +535,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       } else {
         run.start = (hog ? zl : X[j]) - al - lbd;
         run.anch_start = lbd;
-        if (j == n && !hog && n > 0) {  // an end support taken as simple: the code's least extent into the span
+        if (j == n && n > 0 && L.strip.ends[1] == EndSupport::pinned) {  // the code's least extent at a simple end
           const double ext = derive(label, "extent into the span",
                                     ask("detailing end top bars", where,
                                         [&] { return rules.end_top_bar_extent(run.demand, spans[n - 1]); }));
@@ -566,7 +566,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       } else {
         run.end = (hog ? zr : X[j]) + al + lbd;
         run.anch_end = lbd;
-        if (j == 0 && !hog && n > 0) {  // an end support taken as simple: the code's least extent into the span
+        if (j == 0 && n > 0 && L.strip.ends[0] == EndSupport::pinned) {  // the code's least extent at a simple end
           const double ext = derive(label, "extent into the span",
                                     ask("detailing end top bars", where,
                                         [&] { return rules.end_top_bar_extent(run.demand, spans[0]); }));
@@ -580,6 +580,72 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     if (right_free && run.end > total - cover(Face::top))
       run.end = total - cover(Face::top), run.anch_end = 0.0, run.end_fixed = true;
     runs.push_back(std::move(run));
+  }
+
+  // Hogging the top bars do not reach (on a plate a hogging zone need not
+  // touch a support line: a bay's twist, a corner zone across the whole
+  // row): the nearest top run of the strip is carried over it, past it by
+  // its shift and anchorage; with no top run in the strip, a note.
+  {
+    std::size_t k = 0;
+    while (k < P.size()) {
+      if (!(P[k].hog > tol)) {
+        ++k;
+        continue;
+      }
+      std::size_t m = k;
+      while (m + 1 < P.size() && P[m + 1].hog > tol) ++m;
+      const double z0 = k == 0 ? P[0].x : crossing(P[k].x, P[k].hog, P[k - 1].x, P[k - 1].hog);
+      const double z1 = m + 1 == P.size() ? P.back().x : crossing(P[m].x, P[m].hog, P[m + 1].x, P[m + 1].hog);
+      // Where the zone reaches a strip end, that end's rule (past the
+      // support line, or to the free tip or edge less the cover) holds.
+      const bool at_start = z0 <= P.front().x + 1e-6, at_end = z1 >= P.back().x - 1e-6;
+      k = m + 1;
+      auto need_start = [&](const Run& r, double lbd) {
+        return at_start ? P[0].x + (left_free ? cover(Face::top) : 0.0) : z0 - r.shift - lbd;
+      };
+      auto need_end = [&](const Run& r, double lbd) {
+        return at_end ? P.back().x - (right_free ? cover(Face::top) : 0.0) : z1 + r.shift + lbd;
+      };
+      Run* nearest = nullptr;
+      double gap = std::numeric_limits<double>::infinity(), peak_hog = 0.0;
+      for (std::size_t i = first_run; i < runs.size(); ++i) {
+        Run& r = runs[i];
+        if (r.face != Face::top || r.distribution) continue;
+        const double lbd = r.anch_start > 0.0 ? r.anch_start : r.anch_end;
+        if (r.start <= need_start(r, lbd) + 1e-6 && r.end >= need_end(r, lbd) - 1e-6) {
+          nearest = nullptr, gap = -1.0;  // covered
+          break;
+        }
+        const double g = std::max({0.0, r.start - z0, z1 - r.end});
+        if (g < gap) gap = g, nearest = &r;
+      }
+      if (gap < 0.0) continue;
+      for (std::size_t q = 0; q < P.size(); ++q)
+        if (P[q].x >= z0 - 1e-6 && P[q].x <= z1 + 1e-6) peak_hog = std::max(peak_hog, P[q].hog);
+      if (!nearest) {
+        out.notes.push_back((L.strip.name.empty() ? std::string("the strip") : L.strip.name) + ": hogging of up to " +
+                            plain_number(peak_hog * 1e-6) + " kNm/m between " + plain_number(z0 / 1000.0) + " and " +
+                            plain_number(z1 / 1000.0) + " m has no top bars in this direction: provide them");
+        continue;
+      }
+      const double lbd = nearest->anch_start > 0.0 ? nearest->anch_start : nearest->anch_end;
+      const double s0 = need_start(*nearest, lbd), s1 = need_end(*nearest, lbd);
+      if (s0 < nearest->start && !nearest->start_fixed) {
+        nearest->start = left_free ? std::max(s0, cover(Face::top)) : s0;
+        nearest->anch_start = at_start ? 0.0 : lbd;
+        if (at_start && left_free) nearest->start_fixed = true;
+      }
+      if (s1 > nearest->end && !nearest->end_fixed) {
+        nearest->end = right_free ? std::min(s1, total - cover(Face::top)) : s1;
+        nearest->anch_end = at_end ? 0.0 : lbd;
+        if (at_end && right_free) nearest->end_fixed = true;
+      }
+      out.notes.push_back((L.strip.name.empty() ? std::string("the strip") : L.strip.name) + ": the top bars of " +
+                          nearest->where + " carried over hogging of up to " + plain_number(peak_hog * 1e-6) +
+                          " kNm/m between " + plain_number(z0 / 1000.0) + " and " + plain_number(z1 / 1000.0) +
+                          " m that reaches no support line");
+    }
   }
 
   // Counts across the strip's width.
@@ -861,6 +927,10 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate) {
     const double pos = x_edge ? (high ? plate.x_lines_mm.back() : plate.x_lines_mm.front())
                               : (high ? plate.y_lines_mm.back() : plate.y_lines_mm.front());
     const double area = 3.14159265358979 * f.edge_bar_diameter_mm * f.edge_bar_diameter_mm / 4.0;
+    // At a crossing edge that is free too the bar stops at it less the cover.
+    const EndSupport cross_lo = plate.edges[x_edge ? 2 : 0], cross_hi = plate.edges[x_edge ? 3 : 1];
+    const double lo_edge = x_edge ? plate.y_lines_mm.front() : plate.x_lines_mm.front();
+    const double hi_edge = x_edge ? plate.y_lines_mm.back() : plate.x_lines_mm.back();
     for (const Face face : {Face::bottom, Face::top}) {
       Run e;
       e.where = edge + ", edge bar";
@@ -868,6 +938,8 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate) {
       e.bars = BarChoice{f.edge_bar, f.edge_bar_diameter_mm, 0.0, area};
       e.start = extent.first;
       e.end = extent.second;
+      if (cross_lo == EndSupport::free && extent.first <= lo_edge + 1e-6) e.start = lo_edge + c, e.start_fixed = true;
+      if (cross_hi == EndSupport::free && extent.second >= hi_edge - 1e-6) e.end = hi_edge - c, e.end_fixed = true;
       e.clause = f.clause;
       e.strip = -1;
       e.direction = x_edge ? BarDirection::y : BarDirection::x;  // along the edge

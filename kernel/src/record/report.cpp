@@ -336,8 +336,8 @@ std::string detailing_svg(const DesignRecord& r, const DetailingRecord& d, std::
   std::string o = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" + n4(width) + "\" height=\"" + n4(height) +
                   "\" viewBox=\"0 0 " + n4(width) + " " + n4(height) +
                   "\" font-family=\"Georgia, serif\" font-size=\"10\" role=\"img\" aria-label=\"bar layout in elevation\">";
-  o += "<text x=\"4\" y=\"12\">" + (strip.name.empty() ? std::string() : esc(strip.name) + ": ") +
-       "bars in elevation, lengths to scale (" + std::string(u.along_u()) + "); marks at each bar, laps heavy</text>";
+  o += "<text x=\"4\" y=\"12\">" + (strip.name.empty() ? std::string("Bars") : esc(strip.name) + ": bars") +
+       " in elevation, lengths to scale (" + std::string(u.along_u()) + "); marks at each bar, laps heavy</text>";
   o += "<rect x=\"" + n4(sx(0)) + "\" y=\"" + n4(slab_top) + "\" width=\"" + n4(sx(length) - sx(0)) +
        "\" height=\"" + n4(slab_h) + "\" fill=\"none\" stroke=\"#000\" stroke-width=\"1\"/>";
   double x = 0.0;
