@@ -96,15 +96,51 @@ def test_bottom_bars_span_their_bay_and_top_bars_pass_their_line(ground):
 
 
 def test_anchorage_of_the_top_bars_is_en_8_4_by_hand(ground):
-    """EN 1992-1-1 8.4.2–8.4.4 (good bond: a 200 mm slab, 8.4.2(2))."""
+    """EN 1992-1-1 8.4.2–8.4.4 (good bond: a 200 mm slab, 8.4.2(2)): every
+    top bar's end that is neither a lap nor a free edge is anchored by lbd."""
     r = ground
-    d = r["detailing"]
-    g = next(g for g in r["regions"] if g["where"] == "grid x1 segment 1")
-    bars = bars_of(d, "grid x1 segment 1", "top", "x")
-    phi, s = g["bars"]["diameter_mm"], g["bars"]["spacing_mm"]
-    lbd, _ = en_anchorage_by_hand(phi, r["cover_mm"]["top"], s)
-    inner = [b["anchorage_mm"][side] for b in bars for side in ("start", "end") if b["anchorage_mm"][side] > 0]
-    assert inner and all(a == pytest.approx(lbd, rel=1e-6) for a in inner)
+    checked = 0
+    for b in r["detailing"]["bars"]:
+        if b["face"] != "top" or b["role"] != "main":
+            continue
+        lbd, _ = en_anchorage_by_hand(b["diameter_mm"], r["cover_mm"]["top"], b["spacing_mm"])
+        for side in ("start", "end"):
+            if b["anchorage_mm"][side] > 0:
+                assert b["anchorage_mm"][side] == pytest.approx(lbd, rel=1e-6), (b["where"], side)
+                checked += 1
+    assert checked > 0
+
+
+def en_lap_by_hand(bar, r):
+    """EN 1992-1-1 8.7.3 (8.10), (8.11), Table 8.3 with every bar lapped at
+    the section (α6 = 1.5), σsd = fyd, good bond, α1 = α3 = α5 = 1."""
+    phi, s, c = bar["diameter_mm"], bar["spacing_mm"], r["cover_mm"]["top"]
+    _, lb_rqd = en_anchorage_by_hand(phi, c, s)
+    cd = min((s - phi) / 2, c)
+    a2 = min(max(1 - 0.15 * (cd - phi) / phi, 0.7), 1.0)
+    return max(a2 * 1.5 * lb_rqd, 0.3 * 1.5 * lb_rqd, 15 * phi, 200.0)
+
+
+def test_top_bars_of_neighbouring_lines_are_lapped_not_doubled(ground):
+    """Where the top bars of two lines of a row would overlap by more than
+    a lap they are lapped (EN 8.7.3, all the bars at one section: α6 = 1.5),
+    so the row never carries two layers of top bars beyond the lap."""
+    d = ground["detailing"]
+    for direction in ("x", "y"):
+        rows = {}
+        for b in d["bars"]:
+            if b["face"] == "top" and b.get("direction") == direction and not b["where"].startswith("corner"):
+                rows.setdefault((b["across_m"]["from"], b["across_m"]["to"]), []).append(b)
+        for bars in rows.values():
+            bars.sort(key=lambda b: b["start_m"])
+            for a, b in zip(bars, bars[1:]):
+                overlap = a["end_m"] - b["start_m"]
+                if overlap > 0:
+                    (lap,) = [lp for lp in a["laps"] if lp in b["laps"]]
+                    assert lap["from_m"] == pytest.approx(b["start_m"])
+                    assert lap["length_mm"] == pytest.approx(max(en_lap_by_hand(a, ground), en_lap_by_hand(b, ground)))
+                    assert lap["to_m"] <= a["end_m"] + 1e-9
+                    assert a["anchorage_mm"]["end"] == 0 and b["anchorage_mm"]["start"] == 0
 
 
 def test_corner_bars_cover_their_zone_and_are_anchored_past_it(ground):
@@ -159,12 +195,15 @@ def test_free_edge_u_bars_edge_bars_and_the_bars_stopping_at_it():
         u = [b for b in d["bars"] if b["where"] == f"{fe['edge']}, {fe['bay']}"]
         assert len(u) == 1
         u = u[0]
-        leg = fe["u_bar_leg_mm"] - c
+        # EN 9.3.1.4(2): legs 2h from the edge (value from memory), and at
+        # least the lap with the bay's bars that stop at the edge (8.7.3).
+        leg = max(fe["u_bar_leg_mm"] - c, en_lap_by_hand(u, r))
         assert u["shape"] == "U-bar"
         assert u["legs_mm"] == {"start": pytest.approx(leg), "end": pytest.approx(leg)}
         assert u["length_mm"] == math.ceil((2 * leg + h - ct - cb) / 25 - 1e-9) * 25
         assert u["count"] == count_over(fe["to_m"] - fe["from_m"], fe["u_bar_spacing_mm"])
         assert u["end_m"] == pytest.approx(y_edge - c / 1000)
+        assert u["start_m"] == pytest.approx(y_edge - c / 1000 - leg / 1000)
     # One bar in each face along the whole free edge.
     along = [b for b in d["bars"] if b["where"] == "edge y1, edge bar"]
     assert sorted(b["face"] for b in along) == ["bottom", "top"]

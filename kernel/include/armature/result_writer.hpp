@@ -95,7 +95,7 @@ template <class W>
 void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
   using namespace result_units;
   w.begin_object();
-  w.key("slab_width_m"), w.value(d.slab_width_mm * m_per_mm);
+  if (!d.plan) w.key("slab_width_m"), w.value(d.slab_width_mm * m_per_mm);  // a plate counts on its plan
   w.key("stock_length_m"), w.value(d.stock_length_mm * m_per_mm);
   w.key("bars");
   w.begin_array();
@@ -132,6 +132,7 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     }
     w.key("length_mm"), w.value(b.length_mm);
     w.key("shape"), w.value(b.shape);
+    if (b.edge_loop) w.key("body_mm"), w.value(b.length_mm - b.leg_start_mm - b.leg_end_mm);  // across the depth
     // The legs of a bent bar, each to the outside of its bend (a U round a
     // free edge: its flat legs; its body stands across the depth).
     w.key("legs_mm");
@@ -180,16 +181,38 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
   w.end();
   w.key("total_mass_kg"), w.value(d.total_mass_kg);
   w.key("mass_per_area_kg_m2"), w.value(d.mass_per_area_kg_m2);
-  w.key("envelope");
-  w.begin_array();
-  for (const auto& p : d.envelope) {
-    w.begin_object();
-    w.key("x_m"), w.value(p.x_mm * m_per_mm);
-    w.key("M_max_kNm"), w.value(p.M_max * kNm_per_Nmm);
-    w.key("M_min_kNm"), w.value(p.M_min * kNm_per_Nmm);
+  auto write_envelope = [&](const std::vector<DiagramPoint>& points) {
+    w.begin_array();
+    for (const auto& p : points) {
+      w.begin_object();
+      w.key("x_m"), w.value(p.x_mm * m_per_mm);
+      w.key("M_max_kNm"), w.value(p.M_max * kNm_per_Nmm);
+      w.key("M_min_kNm"), w.value(p.M_min * kNm_per_Nmm);
+      w.end();
+    }
+    w.end();
+  };
+  if (!d.plan) {
+    w.key("envelope"), write_envelope(d.envelope);
+  } else {
+    // A plate: each row (bars in x) and column (bars in y) of bays, the
+    // band it spans across and the envelope (per metre) its bars cover.
+    w.key("strips");
+    w.begin_array();
+    for (const auto& st : d.strips) {
+      w.begin_object();
+      w.key("name"), w.value(st.name);
+      w.key("direction"), w.value(to_string(st.direction));
+      w.key("across_m");
+      w.begin_object();
+      w.key("from"), w.value(st.across_from_mm * m_per_mm);
+      w.key("to"), w.value(st.across_to_mm * m_per_mm);
+      w.end();
+      w.key("envelope"), write_envelope(st.envelope);
+      w.end();
+    }
     w.end();
   }
-  w.end();
   w.key("derivations");
   w.begin_array();
   for (const auto& dv : d.derivations) {

@@ -56,6 +56,7 @@ struct Run {
   int strip = 0;         // DetailingRecord::strips (−1: not drawn)
   BarDirection direction = BarDirection::span;
   double across_from = 0.0, across_to = 0.0;  // two-way: the band the bars are spread over (plan)
+  std::vector<DetailLap> joins;                // laps with the next support's top bars (both runs carry it)
   bool edge_loop = false;                      // a U-bar round a free edge (legs flat in the faces)
   double body = 0.0;                           // its part across the slab's depth
 };
@@ -66,6 +67,7 @@ struct Run {
 struct StripLayout {
   DetailingStrip strip;
   bool free_ends_are_edges = false;  // a free end is a slab edge the bars stop at (a plate), not a cantilever
+  bool join_top_bars = false;        // lap neighbouring supports' top bars that overlap (a plate's rows)
   std::vector<double> support_widths_mm;  // one per support, or none
   std::vector<std::string> span_names, support_names;
   std::vector<const RegionRecord*> bottom, top;  // per span, per support (null: none)
@@ -132,7 +134,7 @@ class Detailer {
 
   void add_strip(const StripLayout& L, const std::vector<std::vector<DiagramPoint>>& envelope);
   void add_corner_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions);
-  void add_free_edge_bars(const PlateRecord& plate);
+  void add_free_edge_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions);
   // Laps, marks, the schedule and the total mass.
   void finish();
 
@@ -648,6 +650,44 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     }
   }
 
+  // Top bars of neighbouring supports that overlap by more than a lap:
+  // lapped where the hogging between the two lines is least (all the bars
+  // at that section), instead of two layers over the overlap.
+  if (L.join_top_bars) {
+    std::vector<std::size_t> tops;
+    for (std::size_t i = first_run; i < runs.size(); ++i)
+      if (runs[i].face == Face::top && !runs[i].distribution) tops.push_back(i);
+    for (std::size_t t = 0; t + 1 < tops.size(); ++t) {
+      Run& a = runs[tops[t]];
+      Run& b = runs[tops[t + 1]];
+      BarDetailDemand da = a.demand, db = b.demand;
+      da.lapped_share = db.lapped_share = 1.0;
+      const double lap_a = ask("detailing lap", a.where, [&] { return rules.lap(da); }).length_mm;
+      const double lap_b = ask("detailing lap", b.where, [&] { return rules.lap(db); }).length_mm;
+      const bool a_governs = lap_a >= lap_b;
+      const double lap = std::max(lap_a, lap_b);
+      if (!(a.end - b.start > lap + 1e-6)) continue;
+      // Where between the two supports the hogging is least (their lines).
+      const std::size_t ja = static_cast<std::size_t>(
+          std::find(L.support_names.begin(), L.support_names.end(), a.where) - L.support_names.begin());
+      const std::size_t jb = static_cast<std::size_t>(
+          std::find(L.support_names.begin(), L.support_names.end(), b.where) - L.support_names.begin());
+      if (ja > n || jb > n) continue;
+      double m = (X[ja] + X[jb]) / 2.0, least = std::numeric_limits<double>::infinity();
+      for (const Point& q : P)
+        if (q.x > X[ja] + lap / 2.0 && q.x < X[jb] - lap / 2.0 && q.hog < least) least = q.hog, m = q.x;
+      if (!(m - lap / 2.0 >= b.start - 1e-6 && m + lap / 2.0 <= a.end + 1e-6)) continue;  // the lap must lie in both
+      derive(a.where + ", top, and " + b.where + ", top", "lap (all bars at one section)",
+             ask("detailing lap", a_governs ? a.where : b.where, [&] { return rules.lap(a_governs ? da : db); }));
+      a.end = m + lap / 2.0;
+      a.anch_end = 0.0;
+      b.start = m - lap / 2.0;
+      b.anch_start = 0.0;
+      a.joins.push_back({m - lap / 2.0, m + lap / 2.0});
+      b.joins.push_back({m - lap / 2.0, m + lap / 2.0});
+    }
+  }
+
   // Counts across the strip's width.
   for (std::size_t i = first_run; i < runs.size(); ++i)
     runs[i].count = runs[i].preset_count > 0 ? runs[i].preset_count : count_over(L.width_mm, runs[i].bars.spacing_mm);
@@ -763,6 +803,7 @@ void Detailer::finish() {
     };
     if (length + legs <= out.stock_length_mm) {
       DetailedBar b = base;
+      b.laps = run.joins;
       b.count = run.count;
       b.start_mm = run.start;
       b.end_mm = run.end;
@@ -805,6 +846,9 @@ void Detailer::finish() {
         b.end_mm = k < centres.size() ? centres[k] + lap / 2.0 : run.end;
         if (k == 0) b.leg_start_mm = run.leg_start;
         if (k == centres.size()) b.leg_end_mm = run.leg_end;
+        for (const DetailLap& j : run.joins)  // a join with the next support's bars at this piece's end
+          if ((k == 0 && j.from_mm <= a + 1e-6) || (k == centres.size() && j.to_mm >= run.end - 1e-6))
+            b.laps.push_back(j);
         if (k > 0) {
           b.anchorage_start_mm = 0.0;
           b.laps.push_back({b.start_mm, b.start_mm + lap});
@@ -888,7 +932,7 @@ void Detailer::add_corner_bars(const PlateRecord& plate, const std::vector<Regio
 // stands across the depth between the covers) and, per edge, one bar in
 // each face inside the U along the whole free edge, lapped where longer
 // than the stock.
-void Detailer::add_free_edge_bars(const PlateRecord& plate) {
+void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions) {
   const double c = std::max(cover(Face::top), cover(Face::bottom));
   const double body = thickness_ - cover(Face::top) - cover(Face::bottom);
   std::map<std::string, std::pair<double, double>> edge_extent;  // edge → (from, to)
@@ -904,11 +948,32 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate) {
     u.face = Face::top;
     u.bars = BarChoice{f.u_bar, f.u_bar_diameter_mm, f.u_bar_spacing_mm, f.u_bar_area_mm2};
     u.edge_loop = true;
-    u.start = std::min(pos - dir * f.leg_mm, pos - dir * c);
-    u.end = std::max(pos - dir * f.leg_mm, pos - dir * c);
-    u.leg_start = u.leg_end = f.leg_mm - c;
+
+    // The flat legs lap the bay's bars that stop at the edge (all of them
+    // at that section): each at least the rule's leg less the cover and
+    // the code's lap of the U-bar.
+    const BarDirection across = x_edge ? BarDirection::x : BarDirection::y;
+    const auto bay = std::find_if(regions.begin(), regions.end(), [&](const RegionRecord& r) {
+      return r.where == f.bay && r.face == Face::bottom && r.direction == across;
+    });
+    if (bay != regions.end()) u.demand = demand_of(*bay);
+    u.demand.where = u.where;
+    u.demand.diameter_mm = f.u_bar_diameter_mm;
+    u.demand.spacing_mm = f.u_bar_spacing_mm;
+    u.demand.cover_mm = c;
+    u.demand.bond = in_.bond;
+    u.demand.lapped_share = 1.0;
+    const double lap = derive(u.where + ", U-bars", "lap with the bay's bars (all at the edge)",
+                              ask("detailing lap", u.where, [&] { return rules.lap(u.demand); }));
+    u.leg_start = u.leg_end = std::max(f.leg_mm - c, lap);
+    if (lap > f.leg_mm - c)
+      out.notes.push_back(u.where + ": the U-bars' legs run " + plain_number(lap) +
+                          " mm, the lap with the bay's bars, more than the edge rule's " + plain_number(f.leg_mm) +
+                          " mm less the cover");
+    u.start = std::min(pos - dir * (c + u.leg_start), pos - dir * c);
+    u.end = std::max(pos - dir * (c + u.leg_start), pos - dir * c);
     u.body = body;
-    u.clause = f.clause;
+    u.clause = f.clause + "; " + out.derivations.back().length.clause;
     u.strip = -1;
     u.direction = x_edge ? BarDirection::x : BarDirection::y;
     u.across_from = f.from_mm;
@@ -1049,6 +1114,7 @@ DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& co
       L.strip.ends = in_x ? std::array<EndSupport, 2>{plate.edges[0], plate.edges[1]}
                           : std::array<EndSupport, 2>{plate.edges[2], plate.edges[3]};
       L.free_ends_are_edges = true;
+      L.join_top_bars = true;
       L.width_mm = across[row + 1] - across[row];
       for (std::size_t e = 0; e < n; ++e) {
         L.span_names.push_back(in_x ? plate_bay_name(e, row) : plate_bay_name(row, e));
@@ -1064,21 +1130,11 @@ DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& co
         V_end[k] = reaction_N_per_mm(L.support_names.back()) * per_metre;
       }
       // The envelope along the row: at each node line across it the
-      // largest Wood–Armer design moments over the row's width, per metre.
-      // The hogging leaves out the corner zones (the corner bars') and the
-      // row's sides that lie on a supported line: there the moment along
-      // the line is the Poisson share of the hogging across it and the
-      // twist of the edge, carried by the bars over the line and the
-      // corner bars (DEVELOPERS.md, "Detailing of two-way slabs"). The
-      // shear, which only the points of inflection read, is taken between
-      // the lines' largest reactions (more than the span's: on the safe side).
-      const std::size_t rows = across.size() - 1;
-      const EndSupport side_lo = row == 0 ? plate.edges[in_x ? 2 : 0] : EndSupport::fixed;
-      const EndSupport side_hi = row + 1 == rows ? plate.edges[in_x ? 3 : 1] : EndSupport::fixed;
-      auto on_supported_side = [&](double t) {
-        return (std::abs(t - across[row]) < tol && side_lo != EndSupport::free) ||
-               (std::abs(t - across[row + 1]) < tol && side_hi != EndSupport::free);
-      };
+      // largest Wood–Armer design moments over the row's width (its sides
+      // included), per metre; the hogging leaves out the nodes strictly
+      // inside a corner zone (the corner bars'). The shear, which only the
+      // points of inflection read, is taken between the lines' largest
+      // reactions (more than the span's: on the safe side).
       std::vector<std::vector<DiagramPoint>> envelope(n);
       for (std::size_t e = 0; e < n; ++e)
         for (std::size_t a = 0; a < node_along.size(); ++a) {
@@ -1090,7 +1146,7 @@ DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& co
             if (t < across[row] - tol || t > across[row + 1] + tol) continue;
             const std::size_t node = in_x ? a + nx * b : b + nx * a;
             sag = std::max(sag, bottom[node]);
-            if (!(in_x ? in_corner(s, t) : in_corner(t, s)) && !on_supported_side(t)) hog = std::max(hog, top[node]);
+            if (!(in_x ? in_corner(s, t) : in_corner(t, s))) hog = std::max(hog, top[node]);
           }
           const double u = (s - along[e]) / (along[e + 1] - along[e]);
           const double V = V_end[e] + u * (V_end[e + 1] - V_end[e]);
@@ -1106,7 +1162,7 @@ DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& co
     }
   }
   detailer.add_corner_bars(plate, rec.regions);
-  detailer.add_free_edge_bars(plate);
+  detailer.add_free_edge_bars(plate, rec.regions);
   detailer.finish();
   const double area_m2 = (plate.x_lines_mm.back() - plate.x_lines_mm.front()) *
                          (plate.y_lines_mm.back() - plate.y_lines_mm.front()) * 1e-6;
