@@ -232,14 +232,106 @@ def test_detailing_leaves_the_design_unchanged(ground):
     assert p["max_utilisation"] == ground["max_utilisation"]
 
 
-def test_flat_slab_detailing_is_refused_by_name():
-    req = {"code": "EN1992-1-1", "concrete": {"class": "C30/37"},
-           "slab": {"type": "flat", "x_spans_m": [6.0, 6.0], "y_spans_m": [6.0], "thickness_mm": 250,
-                    "columns": {"x_mm": 400, "y_mm": 400}},
-           "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}, "detailing": {"slab_width_m": 6.0}}
-    with pytest.raises(armature.InputError) as e:
-        armature.design(req)
-    assert "detailing" in str(e.value) and "not available yet" in str(e.value)
+# The workshop's studio floor on columns (our own scenario), in each code.
+STUDIO_ACI = {"code": "ACI318-19", "concrete": {"cylinder_strength_MPa": 28},
+              "slab": {"type": "flat", "x_spans_m": [6.0, 6.0], "y_spans_m": [5.5], "thickness_mm": 230,
+                       "columns": {"size_mm": [400, 400], "height_m": 3.5}},
+              "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}, "detailing": {}}
+STUDIO_EN = {"code": "EN1992-1-1", "variant": "recommended", "concrete": {"class": "C30/37"},
+             "slab": {"type": "flat", "x_spans_m": [6.0, 6.0], "y_spans_m": [5.5, 5.5], "thickness_mm": 250,
+                      "columns": {"size_mm": [400, 400]}},
+             "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}, "detailing": {}}
+
+
+def aci_development_by_hand(db, cover, spacing, fy=420.0, fc=28.0):
+    """ACI 318-19 25.4.2.4 (SI): ld = fy/(1.1 λ √f'c) · ψt ψe ψs ψg /
+    ((cb + Ktr)/db) · db ≥ 300 mm; bottom bars ψt = 1, uncoated ψe = 1,
+    ψs = 0.8 for No. 19 and smaller, ψg = 1.0 for Grade 420, Ktr = 0,
+    (cb + Ktr)/db ≤ 2.5."""
+    cb = min(cover + db / 2, spacing / 2)
+    return max(fy / (1.1 * math.sqrt(fc)) * 0.8 / min(cb / db, 2.5) * db, 300.0)
+
+
+@pytest.fixture(scope="module")
+def studio_aci():
+    return armature.design(STUDIO_ACI)
+
+
+@pytest.mark.parametrize("req", [STUDIO_ACI, STUDIO_EN], ids=["ACI", "EN"])
+def test_flat_strips_have_their_bars_over_each_span_band(req):
+    r = armature.design(req)
+    d = r["detailing"]
+    strips = {s["name"]: s for s in r["plate"]["strips"]}
+    seen = 0
+    for g in r["regions"]:
+        if " span " not in g["where"] or g["face"] != "bottom":
+            continue
+        name, span = g["where"].rsplit(" span ", 1)
+        piece = strips[name]["spans"][int(span) - 1]
+        lo, hi = (piece["y0_m"], piece["y1_m"]) if g["direction"] == "x" else (piece["x0_m"], piece["x1_m"])
+        bars = bars_of(d, g["where"], "bottom", g["direction"])
+        assert bars and all(b["bar"] == g["bars"]["bar"] for b in bars)
+        # Counted over the strip's band in that span (the strip's width varies with the spans).
+        for b in bars:
+            assert (b["across_m"]["from"], b["across_m"]["to"]) == (pytest.approx(lo), pytest.approx(hi))
+            assert b["count"] == count_over(hi - lo, g["bars"]["spacing_mm"])
+        seen += 1
+    assert seen > 0
+    # Schedule masses at 0.00617 d² kg/m (common practice), over the slab's outline.
+    total = sum(row["count"] * row["length_mm"] / 1000 * UNIT_MASS * row["diameter_mm"] ** 2 for row in d["schedule"])
+    assert d["total_mass_kg"] == pytest.approx(total, rel=1e-9)
+    x0, x1, y0, y1 = (r["plate"]["outline_m"][k] for k in ("x0", "x1", "y0", "y1")) \
+        if isinstance(r["plate"]["outline_m"], dict) else r["plate"]["outline_m"]
+    assert d["mass_per_area_kg_m2"] == pytest.approx(total / ((x1 - x0) * (y1 - y0)), rel=1e-9)
+
+
+def test_aci_column_strip_top_bars_reach_the_figure_8_7_4_1_3_extents(studio_aci):
+    """ACI 318-19 Figure 8.7.4.1.3: column strip top bars 0.30 ℓn past the
+    face of an interior column (value from memory); ℓn the clear span."""
+    d = studio_aci["detailing"]
+    ln = 6.0 - 0.4
+    (b,) = bars_of(d, "column strip y0 at x1", "top", "x")
+    assert b["start_m"] <= 6.0 - 0.2 - 0.30 * ln + 1e-9
+    assert b["end_m"] >= 6.0 + 0.2 + 0.30 * ln - 1e-9
+
+
+def test_aci_column_strip_bottom_bars_are_lapped_over_columns_and_anchored_at_edges(studio_aci):
+    """ACI 318-19 8.7.4.2.1: column strip bottom bars continuous or spliced
+    with a Class B splice over the columns (25.5.2.1: 1.3 ld, ld by
+    25.4.2.4); 8.7.4.2.2: anchored at exterior supports (here developed
+    past the edge column's inner face)."""
+    r = studio_aci
+    d = r["detailing"]
+    g = next(g for g in r["regions"] if g["where"] == "column strip y0 span 1")
+    left = bars_of(d, "column strip y0 span 1", "bottom", "x")[0]
+    right = bars_of(d, "column strip y0 span 2", "bottom", "x")[0]
+    (lap,) = [lp for lp in left["laps"] if lp in right["laps"]]
+    db_l, db_r = left["diameter_mm"], right["diameter_mm"]
+    c = r["cover_mm"]["bottom"]
+    need = max(1.3 * aci_development_by_hand(db_l, c, left["spacing_mm"]),
+               1.3 * aci_development_by_hand(db_r, c, right["spacing_mm"]), 300.0)
+    assert lap["length_mm"] == pytest.approx(need, rel=1e-6)
+    assert (lap["from_m"] + lap["to_m"]) / 2 == pytest.approx(6.0)
+    assert g["bars"]["bar"] == left["bar"]
+    # At the edge column (x = 0, 400 mm wide): past its inner face by ld.
+    ld = aci_development_by_hand(db_l, c, left["spacing_mm"])
+    assert left["start_m"] <= 0.2 - ld / 1000 + 1e-9 or left["shape"] != "straight"
+
+
+def test_flat_bands_take_their_bars_over_their_width(studio_aci):
+    r = studio_aci
+    d = r["detailing"]
+    bands = r["plate"]["bands"]
+    assert bands
+    for band in bands:
+        g = [g for g in r["regions"] if g["where"] == band["name"] and g["direction"] == band["direction"]]
+        if not g:
+            continue
+        bars = bars_of(d, band["name"], "top", band["direction"])
+        assert bars
+        for b in bars:
+            w = b["across_m"]["to"] - b["across_m"]["from"]
+            assert b["count"] == count_over(w, g[0]["bars"]["spacing_mm"])
 
 
 def test_record_draws_each_row_and_column_with_the_caution(tmp_path):

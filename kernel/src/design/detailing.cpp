@@ -57,6 +57,9 @@ struct Run {
   BarDirection direction = BarDirection::span;
   double across_from = 0.0, across_to = 0.0;  // two-way: the band the bars are spread over (plan)
   std::vector<DetailLap> joins;                // laps with the next support's top bars (both runs carry it)
+  int span = -1, support = -1;                 // the strip's span (bottom) or support (top) of the run
+  double pre_start = 0.0, pre_end = 0.0;       // top bars: the extent before any join (bands follow it)
+  double pre_anch_start = 0.0, pre_anch_end = 0.0;
   bool edge_loop = false;                      // a U-bar round a free edge (legs flat in the faces)
   double body = 0.0;                           // its part across the slab's depth
 };
@@ -68,6 +71,16 @@ struct StripLayout {
   DetailingStrip strip;
   bool free_ends_are_edges = false;  // a free end is a slab edge the bars stop at (a plate), not a cantilever
   bool join_top_bars = false;        // lap neighbouring supports' top bars that overlap (a plate's rows)
+  bool join_bottom_bars = false;     // lap the spans' bottom bars over the interior supports (a flat slab's column strips)
+  // Per span the band across the bars (plan; empty: strip.across for every
+  // span); a support's bars span the union of its two spans' bands.
+  std::vector<std::array<double, 2>> span_across;
+  // Per support the code's least reach of its top bars past the support's
+  // line on each side (0: none), and the clause.
+  std::vector<double> top_reach_before, top_reach_after;
+  std::string top_reach_clause;
+  bool draw = true;             // drawn in elevation (a band's bars: in the tables only)
+  bool cover_all_hogging = true;  // carry the nearest top bars over hogging no support's bars reach
   std::vector<double> support_widths_mm;  // one per support, or none
   std::vector<std::string> span_names, support_names;
   std::vector<const RegionRecord*> bottom, top;  // per span, per support (null: none)
@@ -149,7 +162,7 @@ class Detailer {
 
 void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<DiagramPoint>>& envelope) {
   const std::size_t first_run = runs.size();
-  const int strip_index = static_cast<int>(out.strips.size());
+  const int strip_index = L.draw ? static_cast<int>(out.strips.size()) : -1;
   DetailingStrip drawn = L.strip;
   drawn.envelope.clear();
   const std::vector<double>& spans = L.strip.spans_mm;
@@ -171,6 +184,23 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     return L.support_widths_mm.size() == n + 1 ? L.support_widths_mm[j] : 0.0;
   };
   auto support_label = [&](std::size_t j) { return L.support_names[j]; };
+  // Where bars stop at a free end: the slab's edge less the cover; on a
+  // plate the edge lies half the end's width past its line (a flat slab's
+  // edge flush with its columns' outer faces).
+  auto free_stop = [&](int side, Face face) {
+    const std::size_t node = side == 0 ? 0 : n;
+    const double dir = side == 0 ? -1.0 : 1.0;
+    return X[node] + dir * ((L.free_ends_are_edges ? width_at(node) / 2.0 : 0.0) - cover(face));
+  };
+  auto across_of_span = [&](std::size_t e) {
+    return L.span_across.size() == n ? L.span_across[e]
+                                     : std::array<double, 2>{L.strip.across_from_mm, L.strip.across_to_mm};
+  };
+  auto across_of_support = [&](std::size_t j) {
+    if (L.span_across.size() != n) return std::array<double, 2>{L.strip.across_from_mm, L.strip.across_to_mm};
+    const auto a = across_of_span(j == 0 ? 0 : j - 1), b = across_of_span(j == n ? n - 1 : j);
+    return std::array<double, 2>{std::min(a[0], b[0]), std::max(a[1], b[1])};
+  };
 
   // The envelope along the strip, span by span (a support appears twice).
   std::vector<Point> P;
@@ -303,6 +333,9 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     run.face = Face::bottom;
     run.bars = bars;
     run.demand = demand;
+    run.across_from = across_of_span(e)[0];
+    run.across_to = across_of_span(e)[1];
+    run.span = static_cast<int>(e);
     const double al = derive(label, "shift", ask("detailing shift", where, [&] { return rules.shift(run.demand); }));
     const double lbd =
         derive(label, "anchorage", ask("detailing anchorage", where, [&] { return rules.anchorage(run.demand); }));
@@ -335,7 +368,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       if (strip_end && L.free_ends_are_edges && L.strip.ends[side == 0 ? 0 : 1] == EndSupport::free) {
         // A plate's free edge: the bars stop at the edge less the cover,
         // inside the edge's U-bars.
-        reach = X[node] - dir * cover(Face::bottom);
+        reach = free_stop(side, Face::bottom);
         anch = 0.0;
         (side == 0 ? run.start_fixed : run.end_fixed) = true;
       } else if (strip_end) {
@@ -353,11 +386,20 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
           run.clause += "; " + out.derivations.back().length.clause;
         }
         reach = dir < 0 ? std::min(reach, past) : std::max(reach, past);
+        // Bottom bars the code asks continuous through the columns (a flat
+        // slab's column strip, ACI 318-19 8.7.4.2.2): at an end column
+        // developed past its inner face by their full anchorage.
+        const bool integrity = L.join_bottom_bars && width_at(node) > 0.0;
+        if (integrity && dir * (face + dir * lbd - reach) > 0.0) {
+          reach = face + dir * lbd;
+          anch = lbd;
+        }
         // A given width: the bar ends within the slab, bent where the straight length does not fit.
-        BarDetailDemand hd = by_support ? d : run.demand;
-        hd.at_end_support = by_support;
+        const bool from_face = by_support || integrity;
+        BarDetailDemand hd = by_support && !integrity ? d : run.demand;
+        hd.at_end_support = by_support && !integrity;
         const EndFit fit = fit_end(label, side_word, node, dir, Face::bottom, reach, anch,
-                                   by_support ? face : zero + dir * al, by_support, hd);
+                                   from_face ? face : zero + dir * al, from_face, hd);
         if (fit.bent) {
           reach = fit.reach;
           anch = fit.anchorage;
@@ -441,6 +483,8 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     Run b;
     b.where = where;
     b.face = Face::bottom;
+    b.across_from = a.across_from;
+    b.across_to = a.across_to;
     b.bars = half;
     b.demand = dem;
     b.curtailed = true;
@@ -460,7 +504,8 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     b.anch_start = b.start > a.start ? lbd : a.anch_start;
     b.anch_end = b.end < a.end ? lbd : a.anch_end;
     // The split of the count: the continuing set takes the odd bars.
-    const int all = count_over(L.width_mm, r.bars.spacing_mm);
+    const auto band = across_of_span(e);
+    const int all = count_over(band[1] - band[0], r.bars.spacing_mm);
     a.preset_count = (all + 1) / 2;
     b.preset_count = all / 2;
     DetailLength stop;
@@ -503,6 +548,9 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     if (!r || r->bars.spacing_mm <= 0.0) continue;
     Run run;
     run.where = where;
+    run.support = static_cast<int>(j);
+    run.across_from = across_of_support(j)[0];
+    run.across_to = across_of_support(j)[1];
     run.face = Face::top;
     run.bars = r->bars;
     run.demand = demand_of(*r);
@@ -527,7 +575,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       }
       if (reached_end || (j == 0 && !hog)) {
         if (left_free) {
-          run.start = cover(Face::top), run.anch_start = 0.0, run.start_fixed = true;
+          run.start = free_stop(0, Face::top), run.anch_start = 0.0, run.start_fixed = true;
         } else {
           const double face = width_at(0) / 2.0;  // the line where no width is given
           const EndFit fit = fit_end(label, "start", 0, -1.0, Face::top, face - lbd, lbd, face, true, run.demand);
@@ -558,7 +606,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       }
       if (reached_end || (j == n && !hog)) {
         if (right_free) {
-          run.end = total - cover(Face::top), run.anch_end = 0.0, run.end_fixed = true;
+          run.end = free_stop(1, Face::top), run.anch_end = 0.0, run.end_fixed = true;
         } else {
           const double face = total - width_at(n) / 2.0;  // the line where no width is given
           const EndFit fit = fit_end(label, "end", n, 1.0, Face::top, face + lbd, lbd, face, true, run.demand);
@@ -577,18 +625,40 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       }
     }
     // A bar cannot pass a free end: it stops at the tip less the cover.
-    if (left_free && run.start < cover(Face::top))
-      run.start = cover(Face::top), run.anch_start = 0.0, run.start_fixed = true;
-    if (right_free && run.end > total - cover(Face::top))
-      run.end = total - cover(Face::top), run.anch_end = 0.0, run.end_fixed = true;
+    if (left_free && run.start < free_stop(0, Face::top))
+      run.start = free_stop(0, Face::top), run.anch_start = 0.0, run.start_fixed = true;
+    if (right_free && run.end > free_stop(1, Face::top))
+      run.end = free_stop(1, Face::top), run.anch_end = 0.0, run.end_fixed = true;
     runs.push_back(std::move(run));
+  }
+
+  // The code's least reach of top bars past a support's line (a flat
+  // slab's: ACI 318-19 Figure 8.7.4.1.3), where the envelope asks less;
+  // never past a free end.
+  for (std::size_t i = first_run; i < runs.size(); ++i) {
+    Run& r = runs[i];
+    if (r.face != Face::top || r.support < 0) continue;
+    const std::size_t j = static_cast<std::size_t>(r.support);
+    const double before = j < L.top_reach_before.size() ? L.top_reach_before[j] : 0.0;
+    const double after = j < L.top_reach_after.size() ? L.top_reach_after[j] : 0.0;
+    const double lbd = r.anch_start > 0.0 ? r.anch_start : r.anch_end;
+    if (before > 0.0 && X[j] - before < r.start && !r.start_fixed) {
+      r.start = left_free ? std::max(X[j] - before, free_stop(0, Face::top)) : X[j] - before;
+      r.anch_start = lbd;
+      if (r.clause.find(L.top_reach_clause) == std::string::npos) r.clause += "; " + L.top_reach_clause;
+    }
+    if (after > 0.0 && X[j] + after > r.end && !r.end_fixed) {
+      r.end = right_free ? std::min(X[j] + after, free_stop(1, Face::top)) : X[j] + after;
+      r.anch_end = lbd;
+      if (r.clause.find(L.top_reach_clause) == std::string::npos) r.clause += "; " + L.top_reach_clause;
+    }
   }
 
   // Hogging the top bars do not reach (on a plate a hogging zone need not
   // touch a support line: a bay's twist, a corner zone across the whole
   // row): the nearest top run of the strip is carried over it, past it by
   // its shift and anchorage; with no top run in the strip, a note.
-  {
+  if (L.cover_all_hogging) {
     std::size_t k = 0;
     while (k < P.size()) {
       if (!(P[k].hog > tol)) {
@@ -604,10 +674,10 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       const bool at_start = z0 <= P.front().x + 1e-6, at_end = z1 >= P.back().x - 1e-6;
       k = m + 1;
       auto need_start = [&](const Run& r, double lbd) {
-        return at_start ? P[0].x + (left_free ? cover(Face::top) : 0.0) : z0 - r.shift - lbd;
+        return at_start ? (left_free ? free_stop(0, Face::top) : P[0].x) : z0 - r.shift - lbd;
       };
       auto need_end = [&](const Run& r, double lbd) {
-        return at_end ? P.back().x - (right_free ? cover(Face::top) : 0.0) : z1 + r.shift + lbd;
+        return at_end ? (right_free ? free_stop(1, Face::top) : P.back().x) : z1 + r.shift + lbd;
       };
       Run* nearest = nullptr;
       double gap = std::numeric_limits<double>::infinity(), peak_hog = 0.0;
@@ -634,12 +704,12 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       const double lbd = nearest->anch_start > 0.0 ? nearest->anch_start : nearest->anch_end;
       const double s0 = need_start(*nearest, lbd), s1 = need_end(*nearest, lbd);
       if (s0 < nearest->start && !nearest->start_fixed) {
-        nearest->start = left_free ? std::max(s0, cover(Face::top)) : s0;
+        nearest->start = left_free ? std::max(s0, free_stop(0, Face::top)) : s0;
         nearest->anch_start = at_start ? 0.0 : lbd;
         if (at_start && left_free) nearest->start_fixed = true;
       }
       if (s1 > nearest->end && !nearest->end_fixed) {
-        nearest->end = right_free ? std::min(s1, total - cover(Face::top)) : s1;
+        nearest->end = right_free ? std::min(s1, free_stop(1, Face::top)) : s1;
         nearest->anch_end = at_end ? 0.0 : lbd;
         if (at_end && right_free) nearest->end_fixed = true;
       }
@@ -653,6 +723,10 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
   // Top bars of neighbouring supports that overlap by more than a lap:
   // lapped where the hogging between the two lines is least (all the bars
   // at that section), instead of two layers over the overlap.
+  for (std::size_t i = first_run; i < runs.size(); ++i) {
+    Run& r = runs[i];
+    r.pre_start = r.start, r.pre_end = r.end, r.pre_anch_start = r.anch_start, r.pre_anch_end = r.anch_end;
+  }
   if (L.join_top_bars) {
     std::vector<std::size_t> tops;
     for (std::size_t i = first_run; i < runs.size(); ++i)
@@ -688,9 +762,44 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     }
   }
 
-  // Counts across the strip's width.
+  // The bottom bars of neighbouring spans lapped over each interior
+  // support (every bar, centred on the line), where the code asks them
+  // continuous there (a flat slab's column strips: ACI 318-19 8.7.4.2.1,
+  // EN 1992-1-1 9.4.1(3)).
+  if (L.join_bottom_bars) {
+    for (std::size_t j = 1; j < n; ++j) {
+      Run* a = nullptr;
+      Run* b = nullptr;
+      for (std::size_t i = first_run; i < runs.size(); ++i) {
+        Run& r = runs[i];
+        if (r.face != Face::bottom || r.distribution || r.curtailed) continue;
+        if (r.span == static_cast<int>(j) - 1) a = &r;
+        if (r.span == static_cast<int>(j)) b = &r;
+      }
+      if (!a || !b) continue;
+      BarDetailDemand da = a->demand, db = b->demand;
+      da.lapped_share = db.lapped_share = 1.0;
+      const double lap_a = ask("detailing lap", a->where, [&] { return rules.lap(da); }).length_mm;
+      const double lap_b = ask("detailing lap", b->where, [&] { return rules.lap(db); }).length_mm;
+      const bool a_governs = lap_a >= lap_b;
+      const double lap = derive(a->where + ", bottom, and " + b->where + ", bottom, over " + L.support_names[j],
+                                "lap (all bars at one section)",
+                                ask("detailing lap", a_governs ? a->where : b->where,
+                                    [&] { return rules.lap(a_governs ? da : db); }));
+      a->end = std::max(a->end, X[j] + lap / 2.0);
+      b->start = std::min(b->start, X[j] - lap / 2.0);
+      a->anch_end = 0.0;
+      b->anch_start = 0.0;
+      a->joins.push_back({X[j] - lap / 2.0, X[j] + lap / 2.0});
+      b->joins.push_back({X[j] - lap / 2.0, X[j] + lap / 2.0});
+    }
+  }
+
+  // Counts across each run's band.
   for (std::size_t i = first_run; i < runs.size(); ++i)
-    runs[i].count = runs[i].preset_count > 0 ? runs[i].preset_count : count_over(L.width_mm, runs[i].bars.spacing_mm);
+    runs[i].count = runs[i].preset_count > 0
+                        ? runs[i].preset_count
+                        : count_over(runs[i].across_to - runs[i].across_from, runs[i].bars.spacing_mm);
 
   // Distribution bars: across the strip, under or over the main bars,
   // spread over the bottom bars' extent and each top bar's.
@@ -732,10 +841,12 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
   for (std::size_t i = first_run; i < runs.size(); ++i) {
     runs[i].strip = strip_index;
     runs[i].direction = L.strip.direction;
-    runs[i].across_from = L.strip.across_from_mm;
-    runs[i].across_to = L.strip.across_to_mm;
+    if (runs[i].distribution) {
+      runs[i].across_from = L.strip.across_from_mm;
+      runs[i].across_to = L.strip.across_to_mm;
+    }
   }
-  out.strips.push_back(std::move(drawn));
+  if (L.draw) out.strips.push_back(std::move(drawn));
 }
 
 void Detailer::finish() {
@@ -1063,8 +1174,148 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   return out;
 }
 
+// A flat slab: each design strip (column and middle strips, bars along
+// them) detailed as a strip on its own envelope, its bands per span; the
+// bands over internal columns and the transfer bands at edge columns as
+// strips of their own with the column strip's envelope and ends.
+DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
+                            const DesignRecord& rec, const PlateRecord& plate) {
+  DetailingRecord out;
+  out.plan = true;
+  out.stock_length_mm = req.detailing.stock_length_mm;
+  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, out);
+  const double tol = 1e-6;
+  const double cx = plate.columns.empty() ? 0.0 : plate.columns.front().cx_mm;
+  const double cy = plate.columns.empty() ? 0.0 : plate.columns.front().cy_mm;
+  auto region = [&](const std::string& where, Face face, BarDirection dir) -> const RegionRecord* {
+    for (const auto& r : rec.regions)
+      if (r.where == where && r.face == face && r.direction == dir) return &r;
+    return nullptr;
+  };
+  // The strip's layout, regions looked up by `name` (a band: its one top
+  // region at `band_line`), and its envelope per span with the shear of
+  // each span read from the envelope's slope (V = dM/dx; its largest in
+  // the span, on the safe side).
+  struct Built {
+    StripLayout layout;
+    std::vector<std::vector<DiagramPoint>> envelope;
+  };
+  auto build = [&](const FlatStripRecord& s, const std::string& band, std::size_t band_line,
+                   const std::array<double, 2>& band_across) {
+    Built b;
+    StripLayout& L = b.layout;
+    const bool in_x = s.direction == BarDirection::x;
+    const char axis = in_x ? 'x' : 'y';
+    const std::vector<double>& along = in_x ? plate.x_lines_mm : plate.y_lines_mm;
+    const std::size_t n = along.size() - 1;
+    const double c = in_x ? cx : cy;
+    L.strip.name = band.empty() ? s.name : band;
+    L.strip.direction = s.direction;
+    for (std::size_t e = 0; e < n; ++e) L.strip.spans_mm.push_back(along[e + 1] - along[e]);
+    L.free_ends_are_edges = true;
+    L.support_widths_mm.assign(n + 1, 0.0);
+    for (int side = 0; side < 2; ++side) {
+      const std::size_t k = in_x ? static_cast<std::size_t>(side) : static_cast<std::size_t>(2 + side);
+      if (plate.column_edges[k]) {
+        // On columns: the slab's edge flush with their outer faces; a
+        // column strip holds the edge column, a middle strip ends at the
+        // free edge between columns.
+        L.strip.ends[static_cast<std::size_t>(side)] = s.column ? EndSupport::fixed : EndSupport::free;
+        L.support_widths_mm[side == 0 ? 0 : n] = c;
+      } else {
+        L.strip.ends[static_cast<std::size_t>(side)] = plate.edges[k];
+      }
+    }
+    for (const auto& piece : s.pieces)
+      L.span_across.push_back(in_x ? std::array<double, 2>{piece[2], piece[3]}
+                                   : std::array<double, 2>{piece[0], piece[1]});
+    if (L.span_across.size() != n) L.span_across.clear();
+    if (!band.empty()) L.span_across.assign(n, band_across);
+    L.strip.across_from_mm = L.span_across.empty() ? 0.0 : L.span_across.front()[0];
+    L.strip.across_to_mm = L.span_across.empty() ? 0.0 : L.span_across.front()[1];
+    for (std::size_t e = 0; e < n; ++e) {
+      L.span_names.push_back(s.name + " span " + std::to_string(e + 1));
+      L.bottom.push_back(band.empty() ? region(L.span_names.back(), Face::bottom, s.direction) : nullptr);
+    }
+    L.top_reach_before.assign(n + 1, 0.0);
+    L.top_reach_after.assign(n + 1, 0.0);
+    for (std::size_t k = 0; k <= n; ++k) {
+      const std::string line = s.name + " at " + axis + std::to_string(k);
+      L.support_names.push_back(band.empty() ? line : band);
+      L.top.push_back(band.empty() || k == band_line ? region(band.empty() ? line : band, Face::top, s.direction)
+                                                      : nullptr);
+      // The code's least reach past the faces (a column line; a wall's line is its face).
+      const bool wall = (k == 0 && !plate.column_edges[in_x ? 0 : 2]) || (k == n && !plate.column_edges[in_x ? 1 : 3]);
+      for (const auto& t : plate.top_extents) {
+        if (t.where != line || t.direction != s.direction) continue;
+        const double face = wall ? 0.0 : c / 2.0;
+        if (t.before_mm > 0.0) L.top_reach_before[k] = std::max(L.top_reach_before[k], face + t.before_mm);
+        if (t.after_mm > 0.0) L.top_reach_after[k] = std::max(L.top_reach_after[k], face + t.after_mm);
+      }
+    }
+    L.top_reach_clause = plate.extents_clause;
+    L.join_top_bars = band.empty();
+    L.join_bottom_bars = band.empty() && s.column && !plate.integrity.empty();
+    L.draw = band.empty();
+    L.cover_all_hogging = band.empty();
+    L.width_mm = L.strip.across_to_mm - L.strip.across_from_mm;
+    b.envelope.resize(n);
+    for (std::size_t e = 0; e < n; ++e) {
+      for (const auto& q : s.envelope)
+        if (q[0] >= along[e] - tol && q[0] <= along[e + 1] + tol) {
+          DiagramPoint p{};
+          p.x_mm = q[0];
+          p.M_max = q[1];
+          p.M_min = q[2];
+          b.envelope[e].push_back(p);
+        }
+      double V = 0.0;
+      auto& pts = b.envelope[e];
+      for (std::size_t k = 1; k < pts.size(); ++k) {
+        const double dx = pts[k].x_mm - pts[k - 1].x_mm;
+        if (dx > tol)
+          V = std::max({V, std::abs(pts[k].M_max - pts[k - 1].M_max) / dx, std::abs(pts[k].M_min - pts[k - 1].M_min) / dx});
+      }
+      for (auto& p : pts) p.V_max = V, p.V_min = -V;
+    }
+    return b;
+  };
+  for (const auto& s : plate.strips) {
+    Built b = build(s, "", 0, {});
+    detailer.add_strip(b.layout, b.envelope);
+  }
+  // Bands: the column strip of the band's column line gives the ends and the envelope.
+  for (const auto& band : plate.bands) {
+    if (band.pieces.empty()) continue;
+    const bool in_x = band.direction == BarDirection::x;
+    const auto& q = band.pieces.front();
+    const double at_line = in_x ? q[0] : q[2];
+    const double mid = in_x ? (q[2] + q[3]) / 2.0 : (q[0] + q[1]) / 2.0;
+    const std::array<double, 2> across = in_x ? std::array<double, 2>{q[2], q[3]} : std::array<double, 2>{q[0], q[1]};
+    const std::vector<double>& along = in_x ? plate.x_lines_mm : plate.y_lines_mm;
+    std::size_t line = along.size();
+    for (std::size_t k = 0; k < along.size(); ++k)
+      if (std::abs(along[k] - at_line) < 1.0) line = k;
+    const FlatStripRecord* strip = nullptr;
+    for (const auto& s : plate.strips)
+      if (s.column && s.direction == band.direction)
+        for (const auto& piece : s.pieces) {
+          const double lo = in_x ? piece[2] : piece[0], hi = in_x ? piece[3] : piece[1];
+          if (mid >= lo - tol && mid <= hi + tol) strip = &s;
+        }
+    if (!strip || line == along.size()) continue;
+    Built b = build(*strip, band.name, line, across);
+    detailer.add_strip(b.layout, b.envelope);
+  }
+  detailer.finish();
+  const auto& o = plate.outline_mm;
+  out.mass_per_area_kg_m2 = out.total_mass_kg / ((o[1] - o[0]) * (o[3] - o[2]) * 1e-6);
+  return out;
+}
+
 DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
                              const DesignRecord& rec, const PlateRecord& plate) {
+  if (plate.flat) return detail_flat(rules, code, req, rec, plate);
   constexpr double per_metre = 1000.0;  // N·mm/mm → N·mm per metre width
   DetailingRecord out;
   out.plan = true;

@@ -544,13 +544,12 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   }
   // Detailing: the bars of each row and column of bays, the corners' and
   // the free edges' (detailing.cpp).
-  if constexpr (!flat) {
-    if (req.detailing.requested) {
-      adopt_detailing(rec, detail_plate(detailing_rules_of(checker, rec.code), rec.code, req, rec, plate_record));
-      if (req.detailing.slab_width_mm > 0.0)
-        rec.warnings.push_back("detailing.slab_width_m is not used for a two-way slab: each row or column of bays "
-                               "counts its bars over its own width on the plan");
-    }
+  if (req.detailing.requested) {
+    adopt_detailing(rec, detail_plate(detailing_rules_of(checker, rec.code), rec.code, req, rec, plate_record));
+    if (req.detailing.slab_width_mm > 0.0)
+      rec.warnings.push_back(std::string("detailing.slab_width_m is not used for a ") +
+                             (flat ? "flat slab: each strip" : "two-way slab: each row or column of bays") +
+                             " counts its bars over its own width on the plan");
   }
   rec.plate = std::make_shared<const PlateRecord>(std::move(plate_record));
 

@@ -1060,7 +1060,6 @@ void read_two_way_loads(const json& j, InputProblems& problems, Request& req) {
 // What a two-way slab does not take yet, named (never ignored).
 void add_two_way_scope_problems(const Request& req, InputProblems& problems) {
   if (req.design.redistribution_percent > 0.0) problems.add("design.redistribution_percent", not_yet(req));
-  if (req.detailing.requested && req.slab_type == SlabType::flat) problems.add("detailing", not_yet(req));
 }
 
 }  // namespace
