@@ -359,7 +359,12 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       const bool strip_end = node == 0 || node == n;
       const double zero = side == 0 ? zs : ze;
       const double dir = side == 0 ? -1.0 : 1.0;  // outward
-      const bool at_support_line = std::abs(zero - X[node]) < 1e-6;
+      // Sagging up to the support's line; on a plate whose envelope starts
+      // at the support's faces (a flat slab's columns), up to a face.
+      const bool at_support_line =
+          std::abs(zero - X[node]) < 1e-6 ||
+          (L.free_ends_are_edges && sags && std::abs(zero - (side == 0 ? pts.front().x_mm : pts.back().x_mm)) < 1e-6 &&
+           std::abs(zero - X[node]) <= width_at(node) / 2.0 + 1e-6);
       // How far out the bars must reach: past the shifted zero point by the anchorage.
       const double reach_env = sags && !at_support_line ? zero + dir * (al + lbd) : X[node];
       double reach = reach_env;

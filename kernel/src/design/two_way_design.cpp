@@ -546,6 +546,16 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   // the free edges' (detailing.cpp).
   if (req.detailing.requested) {
     adopt_detailing(rec, detail_plate(detailing_rules_of(checker, rec.code), rec.code, req, rec, plate_record));
+    if constexpr (flat) {
+      std::string linked;
+      for (const auto& c : rec.columns)
+        if (c.punching.reinforcement && c.punching.reinforcement->spacing_mm > 0.0)
+          linked += (linked.empty() ? "" : ", ") + c.name;
+      if (!linked.empty())
+        rec.warnings.push_back("the punching reinforcement of " + linked +
+                               " is not in the bar schedule (its legs are not chosen; columns[].punching gives the "
+                               "area per perimeter); sweep and optimise rows add it as estimated");
+    }
     if (req.detailing.slab_width_mm > 0.0)
       rec.warnings.push_back(std::string("detailing.slab_width_m is not used for a ") +
                              (flat ? "flat slab: each strip" : "two-way slab: each row or column of bays") +

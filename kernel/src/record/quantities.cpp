@@ -39,6 +39,21 @@ double bar_length_mm(const DesignRecord& r, const RegionRecord& g) {
 // adjacent span (a band likewise, counted in full beside the column
 // strip's bars it overlaps), and the punching links: each perimeter's
 // area over a leg of the slab's depth between the covers.
+// The punching links of a flat slab's columns: each perimeter's area over
+// a leg of the slab's depth between the covers (the bar schedule has no
+// links: their legs are not chosen).
+double punching_link_volume_mm3(const DesignRecord& r) {
+  const double leg = r.thickness_mm - r.cover_mm(Face::top) - r.cover_mm(Face::bottom);
+  double volume_mm3 = 0.0;
+  for (const auto& c : r.columns) {
+    const auto& s = c.punching.reinforcement;
+    if (!s || !(s->spacing_mm > 0.0)) continue;
+    const double perimeters = std::floor(s->outermost_line_distance_mm / s->spacing_mm) + 1.0;
+    volume_mm3 += perimeters * s->area_per_perimeter_mm2 * std::max(leg, 0.0);
+  }
+  return volume_mm3;
+}
+
 double flat_steel_mass_kg_per_m2(const DesignRecord& r) {
   const PlateRecord& p = *r.plate;
   const auto& o = p.outline_mm;
@@ -83,13 +98,7 @@ double flat_steel_mass_kg_per_m2(const DesignRecord& r) {
     }
     volume_mm3 += g.bars.As_prov_mm2 * area_mm2 / 1000.0;
   }
-  const double leg = r.thickness_mm - r.cover_mm(Face::top) - r.cover_mm(Face::bottom);
-  for (const auto& c : r.columns) {
-    const auto& s = c.punching.reinforcement;
-    if (!s || !(s->spacing_mm > 0.0)) continue;
-    const double perimeters = std::floor(s->outermost_line_distance_mm / s->spacing_mm) + 1.0;
-    volume_mm3 += perimeters * s->area_per_perimeter_mm2 * std::max(leg, 0.0);
-  }
+  volume_mm3 += punching_link_volume_mm3(r);
   return volume_mm3 / area * 1e-3 * steel_density_kg_m3;
 }
 
@@ -132,8 +141,17 @@ double plate_steel_mass_kg_per_m2(const DesignRecord& r) {
 }  // namespace
 
 double steel_mass_kg_per_m2(const DesignRecord& r) {
-  // A detailed design: the bar schedule's mass (every bar as cut) over the floor.
-  if (r.detailing) return r.detailing->mass_per_area_kg_m2;
+  // A detailed design: the bar schedule's mass (every bar as cut) over the
+  // floor, and a flat slab's punching links as estimated (not scheduled).
+  if (r.detailing) {
+    double links = 0.0;
+    if (r.plate && r.plate->flat) {
+      const auto& o = r.plate->outline_mm;
+      const double area = (o[1] - o[0]) * (o[3] - o[2]);
+      if (area > 0.0) links = punching_link_volume_mm3(r) / area * 1e-3 * steel_density_kg_m3;
+    }
+    return r.detailing->mass_per_area_kg_m2 + links;
+  }
   if (r.plate) return plate_steel_mass_kg_per_m2(r);
   double strip_length = 0.0;
   for (double L : r.spans_mm) strip_length += L;
