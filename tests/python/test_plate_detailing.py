@@ -412,3 +412,36 @@ def test_hogging_away_from_the_lines_is_covered_by_top_bars():
                 assert any(b["start_m"] <= y <= b["end_m"] for b in bars), (x, y, top_y[j][i])
                 checked += 1
     assert checked > 0
+
+
+def test_flat_bars_stay_inside_the_slab_at_edge_columns():
+    """A short span beside a long one (the workshop's stair bay): the
+    hogging over the first interior column reaches near the edge column;
+    no bar may leave the slab, whose edge is flush with the columns."""
+    req = copy.deepcopy(STUDIO_ACI)
+    req["slab"]["x_spans_m"] = [3.0, 9.0]
+    r = armature.design(req)
+    o = r["plate"]["outline_m"]
+    for b in r["detailing"]["bars"]:
+        lo, hi = (o["x0"], o["x1"]) if b["direction"] == "x" else (o["y0"], o["y1"])
+        assert b["start_m"] >= lo - 1e-9 and b["end_m"] <= hi + 1e-9, b["where"]
+
+
+def test_en_top_bars_at_edge_columns_free_to_turn_reach_a_fifth_of_the_span():
+    """EN 1992-1-1 9.3.1.2(2) (value from memory): columns free to turn are
+    simple supports for the slab's top bars: 0.2 of the end span from the
+    column's face."""
+    r = armature.design(STUDIO_EN)
+    (b,) = bars_of(r["detailing"], "column strip y0 at x0", "top", "x")
+    assert b["end_m"] >= 0.2 + 0.2 * 6.0 - 1e-9
+
+
+def test_aci_column_strip_bottom_bars_are_never_curtailed():
+    """ACI 318-19 8.7.4.2.1: every column strip bottom bar continuous or
+    spliced over the columns, so detailing.curtail "alternate" leaves them whole."""
+    req = copy.deepcopy(STUDIO_ACI)
+    req["detailing"]["curtail"] = "alternate"
+    r = armature.design(req)
+    d = r["detailing"]
+    assert not any(b["role"] == "curtailed" and b["where"].startswith("column strip") for b in d["bars"])
+    assert any("continuous over the columns" in w for w in r["warnings"])

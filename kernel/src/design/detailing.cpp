@@ -80,6 +80,7 @@ struct StripLayout {
   std::vector<double> top_reach_before, top_reach_after;
   std::string top_reach_clause;
   bool draw = true;             // drawn in elevation (a band's bars: in the tables only)
+  bool legs_into_support = true;  // a top bar's leg at a built-in end turns down into the support (a wall)
   bool cover_all_hogging = true;  // carry the nearest top bars over hogging no support's bars reach
   std::vector<double> support_widths_mm;  // one per support, or none
   std::vector<std::string> span_names, support_names;
@@ -249,7 +250,8 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const double provided = dir * (outer - origin);
     const double phi = demand.diameter_mm;
     const double leg = hook.bend_diameter_mm / 2.0 + phi + hook.extension_mm;
-    const bool leg_in_slab = !(face == Face::top && L.strip.ends[j == 0 ? 0 : 1] == EndSupport::fixed);
+    const bool leg_in_slab =
+        !(face == Face::top && L.strip.ends[j == 0 ? 0 : 1] == EndSupport::fixed && L.legs_into_support);
     const double room = thickness_ - cover(Face::top) - cover(Face::bottom);
     DetailLength bend;
     bend.length_mm = provided;
@@ -534,7 +536,10 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const std::string where = L.span_names[e];
     const RegionRecord* r = L.bottom[e];
     if (!r || r->bars.spacing_mm <= 0.0) continue;
-    if (in_.curtail == Curtailment::alternate) {
+    if (in_.curtail == Curtailment::alternate && L.join_bottom_bars) {
+      out.notes.push_back(where + ": every bottom bar runs through (detailing.curtail \"alternate\"): the code asks "
+                          "the column strip's bottom bars continuous over the columns");
+    } else if (in_.curtail == Curtailment::alternate) {
       if (auto sets = alternate_sets(e, *r)) {
         runs.push_back(std::move(sets->first));
         runs.push_back(std::move(sets->second));
@@ -634,6 +639,22 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       run.start = free_stop(0, Face::top), run.anch_start = 0.0, run.start_fixed = true;
     if (right_free && run.end > free_stop(1, Face::top))
       run.end = free_stop(1, Face::top), run.anch_end = 0.0, run.end_fixed = true;
+    // Nor the slab's end at a support with a width (the end ends flush
+    // with its outer face): a top bar whose anchorage past its zero point
+    // would run out of the slab there ends in the code's bend, and its
+    // anchorage is checked there.
+    if (!left_free && !run.start_fixed && width_at(0) > 0.0 && run.start < X[0] - (width_at(0) / 2.0 - cover(Face::top))) {
+      const EndFit fit =
+          fit_end(label, "start", 0, -1.0, Face::top, run.start, run.anch_start, run.start + run.anch_start, false, run.demand);
+      run.start = fit.reach, run.anch_start = fit.anchorage;
+      if (fit.bent) run.leg_start = fit.leg, run.start_fixed = true;
+    }
+    if (!right_free && !run.end_fixed && width_at(n) > 0.0 && run.end > total + (width_at(n) / 2.0 - cover(Face::top))) {
+      const EndFit fit =
+          fit_end(label, "end", n, 1.0, Face::top, run.end, run.anch_end, run.end - run.anch_end, false, run.demand);
+      run.end = fit.reach, run.anch_end = fit.anchorage;
+      if (fit.bent) run.leg_end = fit.leg, run.end_fixed = true;
+    }
     runs.push_back(std::move(run));
   }
 
@@ -746,6 +767,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       const bool a_governs = lap_a >= lap_b;
       const double lap = std::max(lap_a, lap_b);
       if (!(a.end - b.start > lap + 1e-6)) continue;
+      if (a.end_fixed || b.start_fixed) continue;  // an end held at a free edge or bent (its bend checked): kept
       // Where between the two supports the hogging is least (their lines).
       const std::size_t ja = static_cast<std::size_t>(
           std::find(L.support_names.begin(), L.support_names.end(), a.where) - L.support_names.begin());
@@ -1225,7 +1247,8 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
         // On columns: the slab's edge flush with their outer faces; a
         // column strip holds the edge column, a middle strip ends at the
         // free edge between columns.
-        L.strip.ends[static_cast<std::size_t>(side)] = s.column ? EndSupport::fixed : EndSupport::free;
+        L.strip.ends[static_cast<std::size_t>(side)] =
+            !s.column ? EndSupport::free : plate.columns_restrained ? EndSupport::fixed : EndSupport::pinned;
         L.support_widths_mm[side == 0 ? 0 : n] = c;
       } else {
         L.strip.ends[static_cast<std::size_t>(side)] = plate.edges[k];
@@ -1262,6 +1285,7 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
     L.join_top_bars = band.empty();
     L.join_bottom_bars = band.empty() && s.column && !plate.integrity.empty();
     L.draw = band.empty();
+    L.legs_into_support = false;  // most of a strip's bars lie beside the column, their legs in the slab
     L.cover_all_hogging = band.empty();
     L.width_mm = L.strip.across_to_mm - L.strip.across_from_mm;
     b.envelope.resize(n);

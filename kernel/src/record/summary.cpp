@@ -66,6 +66,14 @@ struct Show {
 // The summary of a two-way slab: per metre, by bay (its bottom bars in x
 // and y), then the supported line segments (top bars across each) with
 // their largest line reaction, the checks, the status.
+// The bar schedule's totals, where the request asked for detailing.
+std::string detailing_line(const DesignRecord& r) {
+  if (!r.detailing) return "";
+  const DetailingRecord& d = *r.detailing;
+  return "Bars       " + std::to_string(d.schedule.size()) + " marks, " + plain_number(d.total_mass_kg) + " kg, " +
+         plain_number(d.mass_per_area_kg_m2) + " kg/m2 of floor (the schedule: --schedule FILE.csv, or the record)\n";
+}
+
 std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
   const PlateRecord& p = *r.plate;
   const std::string L = u.length_unit(), A = u.area_unit();
@@ -158,6 +166,7 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
   }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " + util(r.max_utilisation) + " (" +
        r.governing_check + ", " + r.governing_where + ")\n";
+  o += detailing_line(r);
   if (r.plate) {
     for (const auto& f : r.plate->free_edges)
       o += "Free edge  " + f.edge + " of " + f.bay + ": U-bars " +
@@ -241,6 +250,7 @@ std::string format_summary(const DesignRecord& r) {
   }
   o += "\nStatus     " + std::string(r.pass ? "PASS" : "FAIL") + ", max utilisation " +
        util(r.max_utilisation) + " (" + r.governing_check + ", " + r.governing_where + ")\n";
+  o += detailing_line(r);
   for (const auto& w : r.warnings) o += "Warning    " + w + "\n";
   o += "\nCaution    " + std::string(caution_text) + "\n";
   return o;
