@@ -445,3 +445,32 @@ def test_aci_column_strip_bottom_bars_are_never_curtailed():
     d = r["detailing"]
     assert not any(b["role"] == "curtailed" and b["where"].startswith("column strip") for b in d["bars"])
     assert any("continuous over the columns" in w for w in r["warnings"])
+
+
+def test_band_bars_take_the_place_of_the_column_strip_bars_within_the_band():
+    """The band over an internal column is designed for at least the
+    column strip's moment within its width, so the strip's bars over that
+    column keep only the parts beside the band, each set from one spacing
+    off the band's edge bar (common practice)."""
+    r = armature.design(STUDIO_EN)
+    d = r["detailing"]
+    checked = 0
+    for band in r["plate"]["bands"]:
+        bb = bars_of(d, band["name"], "top", band["direction"])
+        if not bb:
+            continue
+        b = bb[0]
+        at = band["x0_m"] if band["direction"] == "x" else band["y0_m"]
+        for s in d["bars"]:
+            if not (s["where"].startswith("column strip") and s["face"] == "top" and s["direction"] == band["direction"]):
+                continue
+            lo, hi = s["across_m"]["from"], s["across_m"]["to"]
+            line = s["where"].rsplit(" at ", 1)[1]
+            lines = r["plate"]["x_lines_m"] if band["direction"] == "x" else r["plate"]["y_lines_m"]
+            if abs(lines[int(line[1:])] - at) > 1e-6 or not (lo <= b["across_m"]["from"] and b["across_m"]["to"] <= hi):
+                continue
+            sp = s["spacing_mm"] / 1000
+            expect = math.floor((b["across_m"]["from"] - lo) / sp + 1e-9) + math.floor((hi - b["across_m"]["to"]) / sp + 1e-9)
+            assert s["count"] == expect
+            checked += 1
+    assert checked > 0

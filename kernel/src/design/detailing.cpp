@@ -1334,8 +1334,32 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
         }
     if (!strip || line == along.size()) continue;
     Built b = build(*strip, band.name, line, across);
+    const std::size_t first = detailer.runs.size();
     detailer.add_strip(b.layout, b.envelope);
+    // The band's bars take the place of the column strip's within its
+    // width (the band is designed for at least the strip's moment there):
+    // the strip's bars over the line keep the parts of its band beside
+    // the band, each from a spacing off the band's edge bar.
+    for (std::size_t i = first; i < detailer.runs.size(); ++i) {
+      const Run& bandrun = detailer.runs[i];
+      if (bandrun.face != Face::top || bandrun.support < 0) continue;
+      for (Run& r : detailer.runs) {
+        if (&r == &bandrun || r.strip < 0 || r.face != Face::top || r.distribution || r.support != bandrun.support ||
+            r.direction != bandrun.direction || r.where.rfind(strip->name + " at ", 0) != 0)
+          continue;
+        if (!(r.across_from <= mid + tol && r.across_to >= mid - tol)) continue;
+        const double sp = r.bars.spacing_mm;
+        const double left = bandrun.across_from - r.across_from, right = r.across_to - bandrun.across_to;
+        r.count = (left > tol ? static_cast<int>(std::floor(left / sp + 1e-9)) : 0) +
+                  (right > tol ? static_cast<int>(std::floor(right / sp + 1e-9)) : 0);
+        r.preset_count = r.count;
+      }
+    }
   }
+  // A strip's top bars a band took the whole place of: none.
+  detailer.runs.erase(std::remove_if(detailer.runs.begin(), detailer.runs.end(),
+                                     [](const Run& r) { return !r.distribution && !r.edge_loop && r.count <= 0; }),
+                      detailer.runs.end());
   detailer.finish();
   const auto& o = plate.outline_mm;
   out.mass_per_area_kg_m2 = out.total_mass_kg / ((o[1] - o[0]) * (o[3] - o[2]) * 1e-6);
