@@ -58,8 +58,6 @@ struct Run {
   double across_from = 0.0, across_to = 0.0;  // two-way: the band the bars are spread over (plan)
   std::vector<DetailLap> joins;                // laps with the next support's top bars (both runs carry it)
   int span = -1, support = -1;                 // the strip's span (bottom) or support (top) of the run
-  double pre_start = 0.0, pre_end = 0.0;       // top bars: the extent before any join (bands follow it)
-  double pre_anch_start = 0.0, pre_anch_end = 0.0;
   bool edge_loop = false;                      // a U-bar round a free edge (legs flat in the faces)
   double body = 0.0;                           // its part across the slab's depth
 };
@@ -86,7 +84,7 @@ struct StripLayout {
   std::vector<std::string> span_names, support_names;
   std::vector<const RegionRecord*> bottom, top;  // per span, per support (null: none)
   const BarChoice* distribution = nullptr;
-  double width_mm = 0.0;
+  double width_mm = 0.0;  // across the strip: its distribution bars' length (a one-way strip)
 };
 
 std::string face_name(Face f) { return f == Face::top ? "top" : "bottom"; }
@@ -749,10 +747,6 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
   // Top bars of neighbouring supports that overlap by more than a lap:
   // lapped where the hogging between the two lines is least (all the bars
   // at that section), instead of two layers over the overlap.
-  for (std::size_t i = first_run; i < runs.size(); ++i) {
-    Run& r = runs[i];
-    r.pre_start = r.start, r.pre_end = r.end, r.pre_anch_start = r.anch_start, r.pre_anch_end = r.anch_end;
-  }
   if (L.join_top_bars) {
     std::vector<std::size_t> tops;
     for (std::size_t i = first_run; i < runs.size(); ++i)
@@ -1287,7 +1281,6 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
     L.draw = band.empty();
     L.legs_into_support = false;  // most of a strip's bars lie beside the column, their legs in the slab
     L.cover_all_hogging = band.empty();
-    L.width_mm = L.strip.across_to_mm - L.strip.across_from_mm;
     b.envelope.resize(n);
     for (std::size_t e = 0; e < n; ++e) {
       for (const auto& q : s.envelope)
@@ -1419,7 +1412,6 @@ DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& co
                           : std::array<EndSupport, 2>{plate.edges[2], plate.edges[3]};
       L.free_ends_are_edges = true;
       L.join_top_bars = true;
-      L.width_mm = across[row + 1] - across[row];
       for (std::size_t e = 0; e < n; ++e) {
         L.span_names.push_back(in_x ? plate_bay_name(e, row) : plate_bay_name(row, e));
         L.bottom.push_back(region(L.span_names.back(), Face::bottom, dir));
