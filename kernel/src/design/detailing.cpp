@@ -59,6 +59,10 @@ struct Run {
   std::vector<DetailLap> joins;                // laps with the next support's top bars (both runs carry it)
   int span = -1, support = -1;                 // the strip's span (bottom) or support (top) of the run
   bool edge_loop = false;                      // a U-bar round a free edge (legs flat in the faces)
+  // The slab's ends less the cover, where the strip has them (a free end,
+  // an end support with a width): rounding a cut length never passes them.
+  double lo_limit = -std::numeric_limits<double>::infinity();
+  double hi_limit = std::numeric_limits<double>::infinity();
   double body = 0.0;                           // its part across the slab's depth
 };
 
@@ -862,6 +866,13 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
   for (std::size_t i = first_run; i < runs.size(); ++i) {
     runs[i].strip = strip_index;
     runs[i].direction = L.strip.direction;
+    if (!runs[i].distribution) {
+      const Face f = runs[i].face;
+      if (left_free) runs[i].lo_limit = free_stop(0, f);
+      else if (width_at(0) > 0.0) runs[i].lo_limit = X[0] - (width_at(0) / 2.0 - cover(f));
+      if (right_free) runs[i].hi_limit = free_stop(1, f);
+      else if (width_at(n) > 0.0) runs[i].hi_limit = total + (width_at(n) / 2.0 - cover(f));
+    }
     if (runs[i].distribution) {
       runs[i].across_from = L.strip.across_from_mm;
       runs[i].across_to = L.strip.across_to_mm;
@@ -930,6 +941,27 @@ void Detailer::finish() {
       if (start_fixed && end_fixed && legs_b > 0.0) (b.leg_end_mm > 0.0 ? b.leg_end_mm : b.leg_start_mm) += cut - raw;
       else if (end_fixed && !start_fixed) b.start_mm = b.end_mm - (cut - legs_b);
       else b.end_mm = b.start_mm + (cut - legs_b);
+      // Not past the slab's end less the cover: the extra goes to the
+      // other end where that is free, else the bar keeps its raw length.
+      if (b.end_mm > run.hi_limit + 1e-6) {
+        const double over = b.end_mm - run.hi_limit;
+        b.end_mm = run.hi_limit;
+        if (!start_fixed && b.start_mm - over >= run.lo_limit - 1e-6) b.start_mm -= over;
+        else {
+          b.length_mm = b.end_mm - b.start_mm + b.leg_start_mm + b.leg_end_mm;
+          b.shape = shape_of(b.leg_start_mm, b.leg_end_mm);
+          return;
+        }
+      } else if (b.start_mm < run.lo_limit - 1e-6) {
+        const double over = run.lo_limit - b.start_mm;
+        b.start_mm = run.lo_limit;
+        if (!end_fixed && b.end_mm + over <= run.hi_limit + 1e-6) b.end_mm += over;
+        else {
+          b.length_mm = b.end_mm - b.start_mm + b.leg_start_mm + b.leg_end_mm;
+          b.shape = shape_of(b.leg_start_mm, b.leg_end_mm);
+          return;
+        }
+      }
       b.length_mm = cut;
       b.shape = shape_of(b.leg_start_mm, b.leg_end_mm);
     };
