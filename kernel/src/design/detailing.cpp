@@ -597,7 +597,9 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       } else {
         run.start = (hog ? zl : X[j]) - al - lbd;
         run.anch_start = lbd;
-        if (j == n && n > 0 && L.strip.ends[1] == EndSupport::pinned) {  // the code's least extent at a simple end
+        // The code's least extent at an end taken as simple: no hogging at
+        // it, or a pinned end (on a plate the twist gives it some).
+        if (j == n && n > 0 && (!hog || L.strip.ends[1] == EndSupport::pinned)) {
           const double ext = derive(label, "extent into the span",
                                     ask("detailing end top bars", where,
                                         [&] { return rules.end_top_bar_extent(run.demand, spans[n - 1]); }));
@@ -628,7 +630,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       } else {
         run.end = (hog ? zr : X[j]) + al + lbd;
         run.anch_end = lbd;
-        if (j == 0 && n > 0 && L.strip.ends[0] == EndSupport::pinned) {  // the code's least extent at a simple end
+        if (j == 0 && n > 0 && (!hog || L.strip.ends[0] == EndSupport::pinned)) {  // likewise
           const double ext = derive(label, "extent into the span",
                                     ask("detailing end top bars", where,
                                         [&] { return rules.end_top_bar_extent(run.demand, spans[0]); }));
@@ -645,15 +647,21 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     // with its outer face): a top bar whose anchorage past its zero point
     // would run out of the slab there ends in the code's bend, and its
     // anchorage is checked there.
+    // Where the shifted zero point itself lies past the support's face,
+    // the bar is anchored from the face, as one reaching the support.
     if (!left_free && !run.start_fixed && width_at(0) > 0.0 && run.start < X[0] - (width_at(0) / 2.0 - cover(Face::top))) {
-      const EndFit fit =
-          fit_end(label, "start", 0, -1.0, Face::top, run.start, run.anch_start, run.start + run.anch_start, false, run.demand);
+      const double face = X[0] + width_at(0) / 2.0;
+      const double origin = std::max(run.start + run.anch_start, face);
+      const EndFit fit = fit_end(label, "start", 0, -1.0, Face::top, origin - run.anch_start, run.anch_start, origin,
+                                 origin >= face - 1e-6, run.demand);
       run.start = fit.reach, run.anch_start = fit.anchorage;
       if (fit.bent) run.leg_start = fit.leg, run.start_fixed = true;
     }
     if (!right_free && !run.end_fixed && width_at(n) > 0.0 && run.end > total + (width_at(n) / 2.0 - cover(Face::top))) {
-      const EndFit fit =
-          fit_end(label, "end", n, 1.0, Face::top, run.end, run.anch_end, run.end - run.anch_end, false, run.demand);
+      const double face = total - width_at(n) / 2.0;
+      const double origin = std::min(run.end - run.anch_end, face);
+      const EndFit fit = fit_end(label, "end", n, 1.0, Face::top, origin + run.anch_end, run.anch_end, origin,
+                                 origin <= face + 1e-6, run.demand);
       run.end = fit.reach, run.anch_end = fit.anchorage;
       if (fit.bent) run.leg_end = fit.leg, run.end_fixed = true;
     }
