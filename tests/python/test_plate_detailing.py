@@ -478,3 +478,18 @@ def test_band_bars_take_the_place_of_the_column_strip_bars_within_the_band():
             assert s["count"] == expect
             checked += 1
     assert checked > 0
+
+
+def test_cli_summary_states_the_schedule_totals(tmp_path):
+    import json
+    import subprocess
+    from conftest import CLI
+    r = armature.design(GROUND)
+    run = subprocess.run([str(CLI), "design", "-"], input=json.dumps(GROUND), capture_output=True, text=True)
+    assert run.returncode in (0, 1), run.stderr
+    (line,) = [l for l in run.stdout.splitlines() if l.startswith("Bars ")]
+    d = r["detailing"]
+    assert f"{len(d['schedule'])} marks" in line
+    kg = float(line.split(" marks, ")[1].split(" kg")[0])
+    assert kg == pytest.approx(d["total_mass_kg"], rel=1e-3)
+    assert "Caution" in run.stdout

@@ -417,8 +417,8 @@ std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
        "and the anchorage.</p>\n";
   for (std::size_t k = 0; k < d.strips.size(); ++k) o += detailing_svg(r, d, k) + "\n";
   if (d.plan)
-    o += "<p>Each row of bays (bars in x) and column of bays (bars in y) in elevation, positions from grid line x0 "
-         "or y0; corner and free-edge bars in the table only.</p>\n";
+    o += "<p>Each row of bays (bars in x) and column of bays (bars in y), or each design strip of a flat slab, in "
+         "elevation, positions from grid line x0 or y0; corner, free-edge and band bars in the table only.</p>\n";
   o += "<table>\n<tr><th>mark</th><th>where</th><th>face</th><th>bar</th><th class=\"num\">count</th><th "
        "class=\"num\">from, " + std::string(u.along_u()) + "</th><th class=\"num\">to, " + u.along_u() +
        "</th><th class=\"num\">length, mm</th><th>anchorage, mm (start, end)</th><th>laps</th></tr>\n";

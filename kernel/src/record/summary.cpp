@@ -63,9 +63,7 @@ struct Show {
     return bar_arrangement(b.bar, length(b.spacing_mm), length_unit());
   }
 };
-// The summary of a two-way slab: per metre, by bay (its bottom bars in x
-// and y), then the supported line segments (top bars across each) with
-// their largest line reaction, the checks, the status.
+
 // The bar schedule's totals, where the request asked for detailing.
 std::string detailing_line(const DesignRecord& r) {
   if (!r.detailing) return "";
@@ -74,6 +72,9 @@ std::string detailing_line(const DesignRecord& r) {
          plain_number(d.mass_per_area_kg_m2) + " kg/m2 of floor (the schedule: --schedule FILE.csv, or the record)\n";
 }
 
+// The summary of a two-way slab: per metre, by bay (its bottom bars in x
+// and y), then the supported line segments (top bars across each) with
+// their largest line reaction, the checks, the status.
 std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
   const PlateRecord& p = *r.plate;
   const std::string L = u.length_unit(), A = u.area_unit();
