@@ -261,3 +261,15 @@ def test_no_bar_leaves_the_slab_at_an_end_support_with_a_width(code):
             continue
         c = r["cover_mm"][b["face"]] / 1000
         assert b["start_m"] >= -0.15 + c - 1e-9 and b["end_m"] <= total + 0.15 - c + 1e-9, b["where"]
+
+
+def test_top_bars_at_a_wide_built_in_end_stop_at_their_anchorage_past_the_face():
+    """A built-in end on a 600 mm wall: the straight anchorage past the
+    face fits, so the top bars end there (not at the wall's centreline)
+    with that anchorage (EN 1992-1-1 8.4.4; the face as in 9.2.1.4(3))."""
+    spans = [4.2, 4.8, 4.2, 1.5]
+    r = armature.design(strip(spans, ["fixed", "fixed"], 200, widths=[600] * 5))
+    b = bar(r, "support 1", "top")
+    lbd = b["anchorage_mm"]["start"]
+    assert lbd > 0 and b["shape"] == "straight"
+    assert b["start_m"] == pytest.approx(0.3 - lbd / 1000, abs=1e-6)

@@ -705,15 +705,17 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       while (m + 1 < P.size() && P[m + 1].hog > tol) ++m;
       const double z0 = k == 0 ? P[0].x : crossing(P[k].x, P[k].hog, P[k - 1].x, P[k - 1].hog);
       const double z1 = m + 1 == P.size() ? P.back().x : crossing(P[m].x, P[m].hog, P[m + 1].x, P[m + 1].hog);
-      // Where the zone reaches a strip end, that end's rule (past the
-      // support line, or to the free tip or edge less the cover) holds.
+      // Where the zone reaches a strip end, that end's rule holds: to the
+      // free tip or edge less the cover, or past the support's face (its
+      // line without a width) by the anchorage; a bar ended there in a
+      // bend or at a free end covers it.
       const bool at_start = z0 <= P.front().x + 1e-6, at_end = z1 >= P.back().x - 1e-6;
       k = m + 1;
       auto need_start = [&](const Run& r, double lbd) {
-        return at_start ? (left_free ? free_stop(0, Face::top) : P[0].x) : z0 - r.shift - lbd;
+        return at_start ? (left_free ? free_stop(0, Face::top) : X[0] + width_at(0) / 2.0 - lbd) : z0 - r.shift - lbd;
       };
       auto need_end = [&](const Run& r, double lbd) {
-        return at_end ? (right_free ? free_stop(1, Face::top) : P.back().x) : z1 + r.shift + lbd;
+        return at_end ? (right_free ? free_stop(1, Face::top) : total - width_at(n) / 2.0 + lbd) : z1 + r.shift + lbd;
       };
       Run* nearest = nullptr;
       double gap = std::numeric_limits<double>::infinity(), peak_hog = 0.0;
@@ -721,7 +723,9 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
         Run& r = runs[i];
         if (r.face != Face::top || r.distribution) continue;
         const double lbd = r.anch_start > 0.0 ? r.anch_start : r.anch_end;
-        if (r.start <= need_start(r, lbd) + 1e-6 && r.end >= need_end(r, lbd) - 1e-6) {
+        const bool start_ok = r.start <= need_start(r, lbd) + 1e-6 || (at_start && r.start_fixed);
+        const bool end_ok = r.end >= need_end(r, lbd) - 1e-6 || (at_end && r.end_fixed);
+        if (start_ok && end_ok) {
           nearest = nullptr, gap = -1.0;  // covered
           break;
         }
@@ -741,12 +745,12 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       const double s0 = need_start(*nearest, lbd), s1 = need_end(*nearest, lbd);
       if (s0 < nearest->start && !nearest->start_fixed) {
         nearest->start = left_free ? std::max(s0, free_stop(0, Face::top)) : s0;
-        nearest->anch_start = at_start ? 0.0 : lbd;
+        nearest->anch_start = at_start && left_free ? 0.0 : lbd;
         if (at_start && left_free) nearest->start_fixed = true;
       }
       if (s1 > nearest->end && !nearest->end_fixed) {
         nearest->end = right_free ? std::min(s1, free_stop(1, Face::top)) : s1;
-        nearest->anch_end = at_end ? 0.0 : lbd;
+        nearest->anch_end = at_end && right_free ? 0.0 : lbd;
         if (at_end && right_free) nearest->end_fixed = true;
       }
       out.notes.push_back((L.strip.name.empty() ? std::string("the strip") : L.strip.name) + ": the top bars of " +
