@@ -10,6 +10,7 @@
 #include <cmath>
 #include <limits>
 #include <map>
+#include <numbers>
 #include <optional>
 #include <string>
 #include <tuple>
@@ -1067,20 +1068,16 @@ void Detailer::finish() {
   out.bars = std::move(bars);
 }
 
-
 // The corner zones' bars (two-way slabs): each corner region's bars run
 // over the zone in their direction, past the slab's edge line by their
 // anchorage (as top bars at an end support without a width) and past the
 // zone's inner side by their anchorage; counted over the zone's width.
 void Detailer::add_corner_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions) {
-  const double tol = 1e-6;
   for (const auto& c : plate.corners)
     for (const auto& r : regions) {
       if (r.where != c.name || r.bars.spacing_mm <= 0.0) continue;
       const bool in_x = r.direction == BarDirection::x;
       const double lo = in_x ? c.x0_mm : c.y0_mm, hi = in_x ? c.x1_mm : c.y1_mm;
-      const double edge_lo = in_x ? plate.x_lines_mm.front() : plate.y_lines_mm.front();
-      const bool edge_at_start = lo <= edge_lo + tol;
       Run run;
       run.where = c.name;
       run.face = r.face;
@@ -1092,8 +1089,7 @@ void Detailer::add_corner_bars(const PlateRecord& plate, const std::vector<Regio
       run.clause = (c.clause.empty() ? "" : c.clause + "; ") + out.derivations.back().length.clause;
       run.start = lo - lbd;
       run.end = hi + lbd;
-      run.anch_start = run.anch_end = lbd;
-      (void)edge_at_start;  // both ends anchored alike: past the edge line and past the zone
+      run.anch_start = run.anch_end = lbd;  // both ends alike: past the edge line and past the zone
       run.strip = -1;
       run.direction = r.direction;
       run.across_from = in_x ? c.y0_mm : c.x0_mm;
@@ -1124,7 +1120,6 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
     u.face = Face::top;
     u.bars = BarChoice{f.u_bar, f.u_bar_diameter_mm, f.u_bar_spacing_mm, f.u_bar_area_mm2};
     u.edge_loop = true;
-
     // The flat legs lap the bay's bars that stop at the edge (all of them
     // at that section): each at least the rule's leg less the cover and
     // the code's lap of the U-bar.
@@ -1167,7 +1162,7 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
     const bool high = edge.back() == '1';
     const double pos = x_edge ? (high ? plate.x_lines_mm.back() : plate.x_lines_mm.front())
                               : (high ? plate.y_lines_mm.back() : plate.y_lines_mm.front());
-    const double area = 3.14159265358979 * f.edge_bar_diameter_mm * f.edge_bar_diameter_mm / 4.0;
+    const double area = std::numbers::pi * f.edge_bar_diameter_mm * f.edge_bar_diameter_mm / 4.0;
     // At a crossing edge that is free too the bar stops at it less the cover.
     const EndSupport cross_lo = plate.edges[x_edge ? 2 : 0], cross_hi = plate.edges[x_edge ? 3 : 1];
     const double lo_edge = x_edge ? plate.y_lines_mm.front() : plate.x_lines_mm.front();
@@ -1238,6 +1233,8 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
   out.mass_per_area_kg_m2 = out.total_mass_kg / (out.slab_width_mm / 1000.0 * out.strip_length_mm / 1000.0);
   return out;
 }
+
+namespace {
 
 // A flat slab: each design strip (column and middle strips, bars along
 // them) detailed as a strip on its own envelope, its bands per span; the
@@ -1402,6 +1399,8 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
   out.mass_per_area_kg_m2 = out.total_mass_kg / ((o[1] - o[0]) * (o[3] - o[2]) * 1e-6);
   return out;
 }
+
+}  // namespace
 
 DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
                              const DesignRecord& rec, const PlateRecord& plate) {
