@@ -43,6 +43,7 @@ def bars_of(d, where, face, direction):
 
 
 def count_over(width_m, spacing_mm):
+    # floor(width / spacing) + 1: the count convention of issue 17 (common practice)
     return math.floor(width_m * 1000 / spacing_mm + 1e-9) + 1
 
 
@@ -174,6 +175,7 @@ def test_schedule_masses_and_the_plan_area(ground):
 
 
 def test_cut_lengths_are_the_extent_rounded_up():
+    # Cut lengths in whole 25 mm (common practice).
     d = armature.design(GROUND)["detailing"]
     for b in d["bars"]:
         if b["shape"] == "straight":

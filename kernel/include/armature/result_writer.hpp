@@ -91,6 +91,17 @@ void write_checks(W& w, const std::vector<Check>& checks, bool with_steps) {
 
 // detailing of the result (contract-v2 section 5): lengths along the
 // strip in metres from its left end, cut lengths in mm.
+// key: {"from": …, "to": …} in metres.
+template <class W>
+void write_range_m(W& w, const char* key, double from_mm, double to_mm) {
+  using namespace result_units;
+  w.key(key);
+  w.begin_object();
+  w.key("from"), w.value(from_mm * m_per_mm);
+  w.key("to"), w.value(to_mm * m_per_mm);
+  w.end();
+}
+
 template <class W>
 void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
   using namespace result_units;
@@ -113,22 +124,10 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     // with their own extent across the strip in across_m).
     w.key("start_m"), w.value((b.distribution ? b.along_from_mm : b.start_mm) * m_per_mm);
     w.key("end_m"), w.value((b.distribution ? b.along_to_mm : b.end_mm) * m_per_mm);
-    if (b.distribution) {
-      w.key("across_m");
-      w.begin_object();
-      w.key("from"), w.value(b.start_mm * m_per_mm);
-      w.key("to"), w.value(b.end_mm * m_per_mm);
-      w.end();
-    }
+    if (b.distribution) write_range_m(w, "across_m", b.start_mm, b.end_mm);
     if (b.direction != BarDirection::span) {  // a two-way slab: the bars' direction and the band across them
       w.key("direction"), w.value(to_string(b.direction));
-      if (!b.distribution) {
-        w.key("across_m");
-        w.begin_object();
-        w.key("from"), w.value(b.across_from_mm * m_per_mm);
-        w.key("to"), w.value(b.across_to_mm * m_per_mm);
-        w.end();
-      }
+      if (!b.distribution) write_range_m(w, "across_m", b.across_from_mm, b.across_to_mm);
     }
     w.key("length_mm"), w.value(b.length_mm);
     w.key("shape"), w.value(b.shape);
@@ -203,11 +202,7 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
       w.begin_object();
       w.key("name"), w.value(st.name);
       w.key("direction"), w.value(to_string(st.direction));
-      w.key("across_m");
-      w.begin_object();
-      w.key("from"), w.value(st.across_from_mm * m_per_mm);
-      w.key("to"), w.value(st.across_to_mm * m_per_mm);
-      w.end();
+      write_range_m(w, "across_m", st.across_from_mm, st.across_to_mm);
       w.key("envelope"), write_envelope(st.envelope);
       w.end();
     }

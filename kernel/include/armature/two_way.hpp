@@ -189,6 +189,12 @@ std::string plate_line_name(const SupportLine& line, std::size_t bays_x, std::si
 std::string plate_bay_name(std::size_t i, std::size_t j);
 // Whether a region's name is a corner zone's ("corner x0 y0", ...).
 bool is_plate_corner_name(const std::string& where);
+// Whether (x, y) lies strictly inside one of the corner zones of a plate
+// whose grid starts at (x_front, y_front): a point on a zone's inner
+// boundary stays with the bay's and the line's bars (the corner bars end
+// there).
+bool strictly_in_corner_zone(const std::vector<PlateCornerRecord>& corners, double x_front, double y_front, double x,
+                             double y);
 
 class TwoWayPlate {
  public:

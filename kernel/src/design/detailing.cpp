@@ -116,6 +116,27 @@ double shear_at(const std::vector<DiagramPoint>& pts, double x) {
   return pts.empty() ? 0.0 : V(pts.back());
 }
 
+// The region of a plate by its name, face and the direction of its bars.
+const RegionRecord* plate_region(const std::vector<RegionRecord>& regions, const std::string& where, Face face,
+                                 BarDirection dir) {
+  for (const auto& r : regions)
+    if (r.where == where && r.face == face && r.direction == dir) return &r;
+  return nullptr;
+}
+
+// The plan position of a plate's outer edge ("edge x0", "edge y1") and
+// whether it lies at x (bars across it run in x).
+struct OuterEdge {
+  bool x_edge = true;
+  double position_mm = 0.0;
+};
+OuterEdge outer_edge(const PlateRecord& plate, const std::string& edge) {
+  const bool x_edge = edge.find(" x") != std::string::npos;
+  const bool high = edge.back() == '1';
+  const auto& lines = x_edge ? plate.x_lines_mm : plate.y_lines_mm;
+  return {x_edge, high ? lines.back() : lines.front()};
+}
+
 class Detailer {
  public:
   Detailer(const DetailingRules& code_rules, const CodeIdentity& code_id, const DetailingInput& in,
@@ -1110,11 +1131,8 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
   std::map<std::string, std::pair<double, double>> edge_extent;  // edge → (from, to)
   std::map<std::string, const PlateFreeEdgeRecord*> edge_bar;     // edge → the record of its largest bar
   for (const auto& f : plate.free_edges) {
-    const bool x_edge = f.edge.find(" x") != std::string::npos;  // "edge x0", "edge x1": bars across in x
-    const bool high = f.edge.back() == '1';
-    const double pos = x_edge ? (high ? plate.x_lines_mm.back() : plate.x_lines_mm.front())
-                              : (high ? plate.y_lines_mm.back() : plate.y_lines_mm.front());
-    const double dir = high ? 1.0 : -1.0;  // outward
+    const auto [x_edge, pos] = outer_edge(plate, f.edge);
+    const double dir = f.edge.back() == '1' ? 1.0 : -1.0;  // outward
     Run u;
     u.where = f.edge + ", " + f.bay;
     u.face = Face::top;
@@ -1123,11 +1141,9 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
     // The flat legs lap the bay's bars that stop at the edge (all of them
     // at that section): each at least the rule's leg less the cover and
     // the code's lap of the U-bar.
-    const BarDirection across = x_edge ? BarDirection::x : BarDirection::y;
-    const auto bay = std::find_if(regions.begin(), regions.end(), [&](const RegionRecord& r) {
-      return r.where == f.bay && r.face == Face::bottom && r.direction == across;
-    });
-    if (bay != regions.end()) u.demand = demand_of(*bay);
+    if (const RegionRecord* bay =
+            plate_region(regions, f.bay, Face::bottom, x_edge ? BarDirection::x : BarDirection::y))
+      u.demand = demand_of(*bay);
     u.demand.where = u.where;
     u.demand.diameter_mm = f.u_bar_diameter_mm;
     u.demand.spacing_mm = f.u_bar_spacing_mm;
@@ -1158,10 +1174,7 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
   }
   for (const auto& [edge, extent] : edge_extent) {
     const PlateFreeEdgeRecord& f = *edge_bar[edge];
-    const bool x_edge = edge.find(" x") != std::string::npos;
-    const bool high = edge.back() == '1';
-    const double pos = x_edge ? (high ? plate.x_lines_mm.back() : plate.x_lines_mm.front())
-                              : (high ? plate.y_lines_mm.back() : plate.y_lines_mm.front());
+    const auto [x_edge, pos] = outer_edge(plate, edge);
     const double area = std::numbers::pi * f.edge_bar_diameter_mm * f.edge_bar_diameter_mm / 4.0;
     // At a crossing edge that is free too the bar stops at it less the cover.
     const EndSupport cross_lo = plate.edges[x_edge ? 2 : 0], cross_hi = plate.edges[x_edge ? 3 : 1];
@@ -1249,10 +1262,8 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
   const double tol = 1e-6;
   const double cx = plate.columns.empty() ? 0.0 : plate.columns.front().cx_mm;
   const double cy = plate.columns.empty() ? 0.0 : plate.columns.front().cy_mm;
-  auto region = [&](const std::string& where, Face face, BarDirection dir) -> const RegionRecord* {
-    for (const auto& r : rec.regions)
-      if (r.where == where && r.face == face && r.direction == dir) return &r;
-    return nullptr;
+  auto region = [&](const std::string& where, Face face, BarDirection dir) {
+    return plate_region(rec.regions, where, face, dir);
   };
   // The strip's layout, regions looked up by `name` (a band: its one top
   // region at `band_line`), and its envelope per span with the shear of
@@ -1416,16 +1427,10 @@ DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& co
   // Strictly inside a corner zone: its bars are the corner's (as the
   // regions' design reads the zones).
   auto in_corner = [&](double x, double y) {
-    return std::any_of(plate.corners.begin(), plate.corners.end(), [&](const PlateCornerRecord& c) {
-      const bool inner_x = c.x0_mm <= plate.x_lines_mm.front() + tol ? x < c.x1_mm - tol : x > c.x0_mm + tol;
-      const bool inner_y = c.y0_mm <= plate.y_lines_mm.front() + tol ? y < c.y1_mm - tol : y > c.y0_mm + tol;
-      return inner_x && inner_y;
-    });
+    return strictly_in_corner_zone(plate.corners, plate.x_lines_mm.front(), plate.y_lines_mm.front(), x, y);
   };
-  auto region = [&](const std::string& where, Face face, BarDirection dir) -> const RegionRecord* {
-    for (const auto& r : rec.regions)
-      if (r.where == where && r.face == face && r.direction == dir) return &r;
-    return nullptr;
+  auto region = [&](const std::string& where, Face face, BarDirection dir) {
+    return plate_region(rec.regions, where, face, dir);
   };
   auto reaction_N_per_mm = [&](const std::string& name) {
     for (const auto& l : plate.reactions)

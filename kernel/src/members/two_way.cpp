@@ -136,6 +136,16 @@ std::array<BarDirection, 2> outer_layers(const std::vector<RegionDemand>& region
 
 bool is_plate_corner_name(const std::string& where) { return where.rfind("corner ", 0) == 0; }
 
+bool strictly_in_corner_zone(const std::vector<PlateCornerRecord>& corners, double x_front, double y_front, double x,
+                             double y) {
+  constexpr double tol = 1e-6;
+  return std::any_of(corners.begin(), corners.end(), [&](const PlateCornerRecord& c) {
+    const bool inner_x = c.x0_mm <= x_front + tol ? x < c.x1_mm - tol : x > c.x0_mm + tol;
+    const bool inner_y = c.y0_mm <= y_front + tol ? y < c.y1_mm - tol : y > c.y0_mm + tol;
+    return inner_x && inner_y;
+  });
+}
+
 std::string plate_bay_name(std::size_t i, std::size_t j) {
   return "bay " + std::to_string(i + 1) + "," + std::to_string(j + 1);
 }
@@ -341,13 +351,7 @@ std::vector<RegionDemand> TwoWayPlate::design_regions(double pinned_edge_fractio
   // the bay's and the line's regions (their bars cover it; the corner bars
   // end there).
   auto in_corner = [&](std::size_t n) {
-    const double x = xs[n % row], y = ys[n / row];
-    return std::any_of(corners_.begin(), corners_.end(), [&](const PlateCornerRecord& c) {
-      const double tol = 1e-6;
-      const bool inner_x = c.x0_mm <= xg.front() + tol ? x < c.x1_mm - tol : x > c.x0_mm + tol;
-      const bool inner_y = c.y0_mm <= yg.front() + tol ? y < c.y1_mm - tol : y > c.y0_mm + tol;
-      return inner_x && inner_y;
-    });
+    return strictly_in_corner_zone(corners_, xg.front(), yg.front(), xs[n % row], ys[n / row]);
   };
   auto peak_outside = [&](const std::vector<std::size_t>& ix, const std::vector<std::size_t>& iy,
                           const std::vector<double>& values) {
