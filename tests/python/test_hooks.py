@@ -273,3 +273,58 @@ def test_top_bars_at_a_wide_built_in_end_stop_at_their_anchorage_past_the_face()
     lbd = b["anchorage_mm"]["start"]
     assert lbd > 0 and b["shape"] == "straight"
     assert b["start_m"] == pytest.approx(0.3 - lbd / 1000, abs=1e-6)
+
+
+# ACI, the workshop's wash room floor: fixed ends on 200 mm walls, two 4.5 m
+# spans, a 200 mm slab under 10 kPa. The search's first choice over the end
+# walls (No. 5 bars) does not anchor in the 200 − 20 mm the wall leaves
+# even with the standard hook; the search is limited to smaller bars there
+# and the design passes.
+WASH = ([4.5, 4.5], ["fixed", "fixed"], 200, [200, 300, 200], {"dead_kPa": 2.0, "imposed_kPa": 10.0})
+
+
+def test_bars_whose_hook_does_not_fit_are_replaced_by_smaller_ones():
+    spans, ends, h, widths, loads = WASH
+    r = armature.design(strip(spans, ends, h, code="ACI", widths=widths, loads=loads))
+    assert r["status"] == "pass"
+    c = r["cover_mm"]["top"]
+    for j, side in ((1, "start"), (3, "end")):
+        t = bar(r, "support %d" % j, "top")
+        assert t["diameter_mm"] < 15.9  # smaller than No. 5
+        checks = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support %d" % j]
+        assert checks and all(k["pass"] for k in checks)
+        # What the wall leaves to the outside of the hook: its breadth less the cover.
+        assert t["anchorage_mm"][side] == pytest.approx(200 - c)
+        # ACI 318-19 25.4.3.1: ldh ≥ max(8 db, 150 mm) (value from memory).
+        hooked = derivation(r, "support %d, top" % j, "hooked anchorage (%s)" % side)["length_mm"]
+        assert hooked >= max(8 * t["diameter_mm"], 150.0) - 1e-9
+        assert hooked <= 200 - c
+        assert any(w.startswith("support %d (top): bars searched among #4 and smaller" % j)
+                   and "#5 bars first chosen" in w for w in r["warnings"])
+    # The No. 5 bars the search chose first: given, they are checked, never
+    # replaced, and their hook is short.
+    given = [{"where": "support 1", "face": "top", "bar": "#5", "spacing_mm": 250},
+             {"where": "support 3", "face": "top", "bar": "#5", "spacing_mm": 250}]
+    k = armature.design(strip(spans, ends, h, code="ACI", widths=widths, loads=loads, given=given))
+    assert bar(k, "support 1", "top")["bar"] == "#5"
+    short = [x for x in k["checks"] if x["id"] == "anchorage" and x["where"] == "support 1" and not x["pass"]]
+    assert short and short[0]["demand"] > 200 - c and short[0]["capacity"] == pytest.approx(200 - c)
+    assert k["status"] == "fail" and not any("bars searched among" in w for w in k["warnings"])
+
+
+def test_smaller_bars_that_do_not_help_are_not_taken():
+    """Fixed at support 1, pinned at support 3, a 250 mm slab: the bottom
+    bars at the built-in end, past their shifted zero point, reach the
+    slab's end and are hooked there with 47.8 mm left, short of ACI 318-19
+    25.4.3.1's 150 mm least ldh (value from memory) for any bar size; the
+    design keeps its first bars and says so, failing the anchorage alone."""
+    spans, _, _, widths, loads = WASH
+    first = armature.design(strip(spans, ["fixed", "pinned"], 250, code="ACI", widths=widths, loads=loads))
+    failing = [k for k in first["checks"] if not k["pass"]]
+    assert failing and all(k["id"] == "anchorage" and k["where"] == "support 1" for k in failing)
+    assert all(k["demand"] >= 150.0 - 1e-9 and k["capacity"] < 150.0 for k in failing)
+    assert first["status"] == "fail"
+    assert any("do not anchor either, or fail other checks" in w for w in first["warnings"])
+    assert not any("bars searched among" in w for w in first["warnings"])
+    for g in first["regions"]:
+        assert all(k["pass"] for k in g["checks"]), g["where"]

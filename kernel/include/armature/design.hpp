@@ -136,6 +136,16 @@ struct ScheduleRow {
   double mass_kg = 0.0;
   double leg_a_mm = 0.0, leg_b_mm = 0.0;  // the legs of a bent bar, the longer first (0: none)
 };
+// A bar whose bend at a support is too short to anchor it (the support's
+// width leaves less than the code's length): its region (name, face, bar
+// direction), its size and the support.
+struct ShortBend {
+  std::string where;
+  Face face = Face::bottom;
+  BarDirection direction = BarDirection::span;
+  double diameter_mm = 0.0;
+  std::string support;
+};
 // One line of bars drawn in elevation: a one-way strip, or on a two-way
 // slab the bays of one row (bars in x) or column (bars in y).
 struct DetailingStrip {
@@ -169,6 +179,8 @@ struct DetailingRecord {
   // support): demand the code's length for the bend, capacity what the
   // support's width leaves; the driver puts them among the support's checks.
   std::vector<Check> checks;
+  // The bars of those failing checks, for the design to try smaller ones.
+  std::vector<ShortBend> short_bends;
 };
 
 struct DesignRecord {

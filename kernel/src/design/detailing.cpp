@@ -321,6 +321,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     anchorage_check.steps.insert(anchorage_check.steps.begin(),
                                  Step{"φ", "the bar: " + label + ", " + side + " end", "", phi, "mm", ""});
     out.checks.push_back(std::move(anchorage_check));
+    if (!anchored) out.short_bends.push_back({demand.where, face, L.strip.direction, phi, support_label(j)});
     if (leg_in_slab && leg > room + 1e-6)
       out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +
                           " mm does not fit the slab's depth (" + plain_number(room) + " mm between the covers)");

@@ -7,7 +7,9 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <map>
 #include <optional>
+#include <set>
 #include <string_view>
 #include <limits>
 #include <numbers>
@@ -15,6 +17,7 @@
 #include <boost/container/small_vector.hpp>
 
 #include "armature/analysis.hpp"
+#include "armature/format.hpp"
 #include "armature/member.hpp"
 #include "detailing.hpp"
 #include "armature/json_io.hpp"
@@ -37,7 +40,139 @@ namespace {
 // For a request that passed validation; `id` is the code's identity,
 // `checker` the code's checker for this request.
 DesignRecord design_validated(const SlabChecker& checker, CodeIdentity id, const Request& req, Member& member,
-                              Detail detail);
+                              Detail detail, const std::vector<BarLimit>& limits);
+
+// A region's name with its face (and on a plate its bars' direction).
+std::string region_words(const std::string& where, Face face, BarDirection direction) {
+  return where + " (" + to_string(face) +
+         (direction == BarDirection::span ? std::string() : std::string(", bars in ") + to_string(direction)) + ")";
+}
+
+// Bars whose bends the detailing found too short at a support (a narrow
+// wall or column; DetailingRecord::short_bends): the request designed
+// again with each such region's bars kept below the size whose bend
+// failed, one size smaller each round while a bend is short and a smaller
+// size is left. A limit under which its own region fails a check it
+// passed (too little steel at the closest spacing, say) is undone and not
+// tried again. A design replaces the one kept only when it fails fewer
+// checks and none that the kept one passes; a warning names every limit
+// the kept design takes. Given bars are never changed.
+// `design_with(limits)` designs the request.
+template <class DesignWith>
+DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity& code, DesignWith&& design_with) {
+  std::vector<BarLimit> limits;
+  DesignRecord best = design_with(limits);
+  if (!best.detailing || best.detailing->short_bends.empty()) return best;
+  const auto& options =
+      call_code(code, "bar options", [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
+  using Key = std::pair<std::string, std::string>;  // a failed check: id, where
+  auto failures = [](const DesignRecord& r) {
+    std::map<Key, int> out;
+    for (const Check* c : r.all_checks())
+      if (!c->pass) ++out[{c->id, c->where}];
+    return out;
+  };
+  auto total = [](const std::map<Key, int>& f) {
+    int n = 0;
+    for (const auto& [k, v] : f) n += v;
+    return n;
+  };
+  // Fewer failures, none new and none more often.
+  auto better = [&](const std::map<Key, int>& next, const std::map<Key, int>& kept) {
+    for (const auto& [k, v] : next) {
+      const auto it = kept.find(k);
+      if (it == kept.end() || it->second < v) return false;
+    }
+    return total(next) < total(kept);
+  };
+  auto same_region = [](const RegionRecord& g, const BarLimit& l) {
+    return g.where == l.where && g.face == l.face && g.direction == l.direction;
+  };
+  auto region_failures = [&](const DesignRecord& r, const BarLimit& l) {
+    std::set<std::string> out;
+    for (const auto& g : r.regions)
+      if (same_region(g, l))
+        for (const auto& c : g.checks)
+          if (!c.pass) out.insert(c.id);
+    return out;
+  };
+  auto name_of = [&](double diameter_mm) {
+    for (const auto& o : options)
+      if (std::abs(o.diameter_mm - diameter_mm) < 1e-9) return o.designation;
+    return plain_number(diameter_mm) + " mm";
+  };
+  const DesignRecord first = best;  // its regions: which bars are given, which checks pass
+  auto given = [&](const BarLimit& l) {
+    return std::any_of(first.regions.begin(), first.regions.end(),
+                       [&](const RegionRecord& g) { return same_region(g, l) && g.bars_given; });
+  };
+  std::map<Key, int> best_failures = failures(best);
+  std::vector<BarLimit> best_limits;
+  std::vector<BarLimit> frozen;  // limits undone: their regions keep the size they had
+  auto is_frozen = [&](const BarLimit& l) {
+    return std::any_of(frozen.begin(), frozen.end(), [&](const BarLimit& f) {
+      return f.where == l.where && f.face == l.face && f.direction == l.direction;
+    });
+  };
+  std::vector<ShortBend> short_bends = best.detailing->short_bends;
+  bool tried = false;
+  for (std::size_t round = 0; round < options.size() && !short_bends.empty(); ++round) {
+    std::vector<std::pair<std::size_t, double>> tightened;  // limit, its size before (0: none)
+    for (const ShortBend& s : short_bends) {
+      const BarLimit wanted{s.where, s.face, s.direction, 0.0, s.diameter_mm, s.support};
+      if (given(wanted) || is_frozen(wanted)) continue;
+      double smaller = 0.0;
+      for (const auto& o : options)
+        if (o.diameter_mm < s.diameter_mm - 1e-9) smaller = std::max(smaller, o.diameter_mm);
+      if (smaller <= 0.0) continue;
+      auto it = std::find_if(limits.begin(), limits.end(), [&](const BarLimit& l) {
+        return l.where == s.where && l.face == s.face && l.direction == s.direction;
+      });
+      if (it == limits.end()) {
+        limits.push_back(wanted);
+        limits.back().max_diameter_mm = smaller;
+        tightened.emplace_back(limits.size() - 1, 0.0);
+      } else if (it->max_diameter_mm > smaller + 1e-9) {
+        tightened.emplace_back(static_cast<std::size_t>(it - limits.begin()), it->max_diameter_mm);
+        it->max_diameter_mm = smaller;
+      }
+    }
+    if (tightened.empty()) break;
+    tried = true;
+    DesignRecord next = design_with(limits);
+    // Undo the limits under which their region fails a check of its own
+    // that it passed in the first design.
+    bool undone = false;
+    for (auto t = tightened.rbegin(); t != tightened.rend(); ++t) {
+      const BarLimit l = limits[t->first];
+      const std::set<std::string> before = region_failures(first, l);
+      const std::set<std::string> now = region_failures(next, l);
+      if (std::includes(before.begin(), before.end(), now.begin(), now.end())) continue;
+      frozen.push_back(l);
+      if (t->second > 0.0) limits[t->first].max_diameter_mm = t->second;
+      else limits.erase(limits.begin() + static_cast<std::ptrdiff_t>(t->first));
+      undone = true;
+    }
+    if (undone) next = design_with(limits);
+    const std::map<Key, int> f = failures(next);
+    short_bends = next.detailing ? next.detailing->short_bends : std::vector<ShortBend>{};
+    if (better(f, best_failures)) {
+      best = std::move(next);
+      best_failures = f;
+      best_limits = limits;
+    }
+  }
+  for (const BarLimit& l : best_limits)
+    best.warnings.push_back(region_words(l.where, l.face, l.direction) + ": bars searched among " +
+                            name_of(l.max_diameter_mm) + " and smaller, since the bend of the " +
+                            name_of(l.first_diameter_mm) + " bars first chosen is too short to anchor them at " +
+                            l.support);
+  if (tried && best_limits.empty())
+    best.warnings.push_back("smaller bars where a bend is too short to anchor its bars do not anchor either, or "
+                            "fail other checks: the bars first chosen are kept (a wider support, or other bars, "
+                            "are needed)");
+  return best;
+}
 
 // Each region of reinforcement.given must be one of the strip's, at its
 // face. `pinned_end_steel`: whether pinned ends carry top bars (the code's
@@ -141,6 +276,14 @@ bool states_strip_width(const PracticeDefaults& practice) {
   return practice.strip_width_mm != PracticeDefaults{}.strip_width_mm;
 }
 
+// A one-way strip's design, each round on a strip of its own.
+DesignRecord design_strip(const SlabChecker& checker, const CodeIdentity& id, const Request& req, Detail detail) {
+  return with_anchored_bends(checker, id, [&](const std::vector<BarLimit>& limits) {
+    OneWayStrip member(req.slab, req.design.redistribution_percent);
+    return design_validated(checker, id, req, member, detail, limits);
+  });
+}
+
 }  // namespace
 
 std::vector<const Check*> DesignRecord::all_checks() const {
@@ -189,7 +332,9 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     if (problems.empty()) add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
-    return design_two_way(*checker, std::move(id), req, detail);
+    return with_anchored_bends(*checker, id, [&](const std::vector<BarLimit>& limits) {
+      return design_two_way(*checker, id, req, detail, limits);
+    });
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
   if (problems.empty()) member.add_scope_problems(problems);
@@ -199,7 +344,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail);
+  DesignRecord rec = design_strip(*checker, id, req, detail);
   rec.state_strip_width = states_strip_width(practice);
   return rec;
 }
@@ -215,7 +360,9 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
     add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
-    return design_two_way(*checker, std::move(id), req, detail);
+    return with_anchored_bends(*checker, id, [&](const std::vector<BarLimit>& limits) {
+      return design_two_way(*checker, id, req, detail, limits);
+    });
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
   add_action_problems(req, problems);
@@ -223,7 +370,7 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail);
+  DesignRecord rec = design_strip(*checker, id, req, detail);
   rec.state_strip_width =
       states_strip_width(call_code(rec.code, "practice defaults", [&] { return code->practice_defaults(); }));
   return rec;
@@ -262,7 +409,7 @@ void detail_design(const SlabChecker& checker, const Request& req, const Member&
 }
 
 DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Member& member,
-                              Detail detail) {
+                              Detail detail, const std::vector<BarLimit>& limits) {
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = std::move(id);
@@ -333,7 +480,8 @@ DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, 
   };
   auto demands = member.design_regions(rules, rec.warnings);
   rec.rationalise = req.reinforcement.rationalise;
-  const BarPlan plan = plan_bars(*checker, rec.code, req.reinforcement, demands, b);
+  BarPlan plan = plan_bars(*checker, rec.code, req.reinforcement, demands, b);
+  apply_bar_limits(limits, demands, plan);
   const std::vector<SearchCandidate> picks = search_with_face_covers(
       *checker, rec.code, demands, b, req.durability, plan, rec.warnings);
 

@@ -99,6 +99,11 @@ void consider(Trial& best, const Trial& c) {
     best = c;
 }
 
+// A bar above the region's limit (BarPlan::max_bar_mm; 0: none).
+bool too_large(const BarOption& bar, double max_bar_mm) {
+  return max_bar_mm > 0.0 && bar.diameter_mm > max_bar_mm + 1e-9;
+}
+
 void keep_largest(Trial& largest, const Trial& c) {
   if (!largest.found() || c.As_prov_mm2 > largest.As_prov_mm2) largest = c;
 }
@@ -143,7 +148,7 @@ Failures failures_of(const CandidateSection& candidate) {
 // one, and the failures shown are the real causes.
 Trial fewest_failures(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
                       const RegionDemand& region, double width_mm, double s_max, const Trial& least,
-                      const SpacingGrid& grid) {
+                      const SpacingGrid& grid, double max_bar_mm) {
   CandidateSection candidate(rules, code, region, width_mm);
   Trial best = least;
   candidate.set_bar(*least.bar);
@@ -153,6 +158,7 @@ Trial fewest_failures(const SlabChecker& checker, const SearchRules& rules, cons
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const int steps = searched_steps(grid, s_max);
   for (const auto& bar : bars) {
+    if (too_large(bar, max_bar_mm)) continue;
     const double floor =
         call_code(code, "minimum area", [&] { return rules.section.minimum_area_mm2(region, bar); }) * (1 - 1e-12);
     bool bar_set = false;
@@ -191,7 +197,7 @@ namespace {
 // search_bars with the rules already fetched (once per design).
 SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
                               const RegionDemand& region, double width_mm, std::vector<std::string>& warnings,
-                              const SpacingGrid& grid) {
+                              const SpacingGrid& grid, double max_bar_mm = 0.0) {
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const double s_max =
@@ -203,6 +209,7 @@ SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rul
   Trial passing, fallback, largest;
   const int steps = searched_steps(grid, s_max);
   for (const auto& bar : bars) {
+    if (too_large(bar, max_bar_mm)) continue;
     // Arrangements below the code's strength floor fail bending or minimum
     // steel: no verdict is needed (the margin keeps a rounding tie with the
     // check's own ratio on the checked side). Asked for only when this bar
@@ -233,7 +240,7 @@ SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rul
   }
   if (passing.found()) return passing.candidate();
   if (fallback.found())
-    return fewest_failures(checker, rules, code, region, width_mm, s_max, fallback, grid).candidate();
+    return fewest_failures(checker, rules, code, region, width_mm, s_max, fallback, grid, max_bar_mm).candidate();
   if (!largest.found())
     throw DesignError(code.id + " (" + code.variant + "): no bar arrangement to try at " +
                       region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
@@ -247,7 +254,7 @@ SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rul
 // search_common_bars with the rules already fetched.
 SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
                               const std::vector<const RegionDemand*>& regions, double width_mm,
-                              std::vector<std::string>& warnings, const SpacingGrid& grid) {
+                              std::vector<std::string>& warnings, const SpacingGrid& grid, double max_bar_mm = 0.0) {
   if (regions.empty()) throw DesignError("no region for a common bar arrangement");
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
@@ -272,6 +279,7 @@ SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rul
   Trial passing, largest;
   bool any_strong = false;  // some arrangement passes bending and minimum steel in every region
   for (const auto& bar : bars) {
+    if (too_large(bar, max_bar_mm)) continue;
     std::optional<double> floor;  // below it, some region fails a strength check
     bool bar_set = false;
     for (int k = steps; k >= 0; --k) {
@@ -314,7 +322,7 @@ SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rul
     Trial best;
     std::size_t best_failures = 0;
     for (const auto& bar : bars)
-      for (int k = steps; k >= 0; --k) {
+      for (int k = steps; k >= 0 && !too_large(bar, max_bar_mm); --k) {
         const double s = grid.at(k);
         const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
         std::size_t failed = 0;
@@ -434,18 +442,23 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
   for (std::size_t k = 0; k < groups; ++k)
     for (const std::size_t i : plan.common[k]) group_of[i] = k;
   auto is_given = [&](std::size_t i) { return plan.given[i].has_value(); };
+  auto limit_of = [&](std::size_t i) { return i < plan.max_bar_mm.size() ? plan.max_bar_mm[i] : 0.0; };
   auto search_common = [&](std::size_t k) {
     std::vector<const RegionDemand*> regions;
-    for (const std::size_t i : plan.common[k]) regions.push_back(&demands[i]);
+    double limit = 0.0;  // the smallest of the group's limits
+    for (const std::size_t i : plan.common[k]) {
+      regions.push_back(&demands[i]);
+      if (limit_of(i) > 0.0) limit = limit > 0.0 ? std::min(limit, limit_of(i)) : limit_of(i);
+    }
     common_warnings[k].clear();
     const SearchCandidate pick =
-        search_shared(checker, rules, code, regions, width_mm, common_warnings[k], plan.grid);
+        search_shared(checker, rules, code, regions, width_mm, common_warnings[k], plan.grid, limit);
     for (const std::size_t i : plan.common[k]) picks[i] = pick;
   };
   for (std::size_t i = 0; i < n; ++i) {
     if (is_given(i)) picks[i] = *plan.given[i];
     else if (group_of[i] == none)
-      picks[i] = search_region(checker, rules, code, demands[i], width_mm, region_warnings[i], plan.grid);
+      picks[i] = search_region(checker, rules, code, demands[i], width_mm, region_warnings[i], plan.grid, limit_of(i));
   }
   for (std::size_t k = 0; k < groups; ++k)
     if (!plan.common[k].empty()) search_common(k);
@@ -475,7 +488,7 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
           continue;
         }
         region_warnings[i].clear();
-        picks[i] = search_region(checker, rules, code, g, width_mm, region_warnings[i], plan.grid);
+        picks[i] = search_region(checker, rules, code, g, width_mm, region_warnings[i], plan.grid, limit_of(i));
         searched_again = true;
       }
     }
@@ -557,6 +570,14 @@ double provided_area_mm2(double bar_area_mm2, double spacing_mm, double width_mm
 bool preferred(const SearchCandidate& a, const SearchCandidate& b) {
   return preferred_values(a.As_prov_mm2, a.spacing_mm, a.bar.diameter_mm, b.As_prov_mm2, b.spacing_mm,
                           b.bar.diameter_mm);
+}
+
+void apply_bar_limits(const std::vector<BarLimit>& limits, const std::vector<RegionDemand>& demands, BarPlan& plan) {
+  plan.max_bar_mm.assign(demands.size(), 0.0);
+  for (const BarLimit& l : limits)
+    for (std::size_t i = 0; i < demands.size(); ++i)
+      if (demands[i].where == l.where && demands[i].face == l.face && demands[i].direction == l.direction)
+        plan.max_bar_mm[i] = l.max_diameter_mm;
 }
 
 }  // namespace armature

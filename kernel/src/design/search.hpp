@@ -17,7 +17,24 @@ struct BarPlan {
   std::vector<std::optional<SearchCandidate>> given;  // per region
   std::vector<std::vector<std::size_t>> common;       // groups of regions, each sharing one arrangement
   SpacingGrid grid;
+  // Per region the largest bar the search may choose (none: 0): bars whose
+  // bends the detailing found too short at a support (BarLimit).
+  std::vector<double> max_bar_mm;
 };
+
+// A region's bars limited in size: where its bend at a support was too
+// short to anchor bars of the size first chosen (DetailingRecord::short_bends).
+struct BarLimit {
+  std::string where;
+  Face face = Face::bottom;
+  BarDirection direction = BarDirection::span;
+  double max_diameter_mm = 0.0;
+  double first_diameter_mm = 0.0;  // the size whose bend was short
+  std::string support;             // where
+};
+
+// The plan's max_bar_mm from the limits (by region name, face and direction).
+void apply_bar_limits(const std::vector<BarLimit>& limits, const std::vector<RegionDemand>& demands, BarPlan& plan);
 
 // uniform_bottom: every bottom region not given shares one arrangement
 // per bar direction (a strip's spans; a two-way slab's bays in x, and in

@@ -289,7 +289,8 @@ void add_two_way_problems(const Request& req, InputProblems& problems) {
 namespace {
 
 template <class Member>
-DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
+DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail,
+                          const std::vector<BarLimit>& limits) {
   constexpr bool flat = std::is_same_v<Member, FlatPlate>;
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
@@ -436,6 +437,7 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
   }
   given_problems.raise_if_any();
   if (req.reinforcement.rationalise == Rationalise::uniform_bottom) add_uniform_bottom_groups(demands, plan);
+  apply_bar_limits(limits, demands, plan);
   const auto& options = call_code(rec.code, "bar options",
                                   [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   double smallest = options.empty() ? 0.0 : options.front().diameter_mm;
@@ -571,9 +573,10 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
 
 }  // namespace
 
-DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
-  if (req.slab_type == SlabType::flat) return design_plate<FlatPlate>(checker, std::move(id), req, detail);
-  return design_plate<TwoWayPlate>(checker, std::move(id), req, detail);
+DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail,
+                            const std::vector<BarLimit>& limits) {
+  if (req.slab_type == SlabType::flat) return design_plate<FlatPlate>(checker, std::move(id), req, detail, limits);
+  return design_plate<TwoWayPlate>(checker, std::move(id), req, detail, limits);
 }
 
 }  // namespace armature

@@ -1,6 +1,8 @@
 // The design of a two-way slab (driver.cpp hands a validated request here).
 #pragma once
 
+#include <vector>
+
 #include "armature/design.hpp"
 
 namespace armature {
@@ -20,6 +22,11 @@ inline constexpr int min_flat_mesh_per_bay = 8;
 // size) and located loads off the plate, each named by its request path.
 void add_two_way_problems(const Request& request, InputProblems& problems);
 
-DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& request, Detail detail);
+struct BarLimit;  // search.hpp
+
+// `limits`: regions whose bars the search keeps below a size (bends too
+// short at a support in an earlier design of the request; driver.cpp).
+DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& request, Detail detail,
+                            const std::vector<BarLimit>& limits);
 
 }  // namespace armature
