@@ -183,6 +183,10 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   DetailLength out{lb_eq, "EN 1992-1-1 8.3, 8.4.4(2)", st.take()};
   out.bend_diameter_mm = phi_m;
   out.extension_mm = ext;
+  // Figure 8.1 a: lb (here lbd = α1 lb,rqd ≥ lb,min, the same length) may
+  // be measured along the bar's centreline for any shape: a longer leg
+  // counts where the bend measured to its outside falls short.
+  out.centreline_clause = "EN 1992-1-1 8.4.4(1), Figure 8.1 a";
   return out;
 }
 

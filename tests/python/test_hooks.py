@@ -66,18 +66,21 @@ def test_en_narrow_wall_bends_the_bottom_bar():
     assert straight > 200 - c  # the straight bar does not fit
     # It stops at the slab's end (flush with the wall's outer face) less the cover.
     assert b["start_m"] == pytest.approx(-(100 - c) / 1000, abs=1e-9)
-    # Anchorage provided past the face, to the outside of the bend: 200 − c. The bent bar needs
+    # Past the face to the outside of the bend the wall leaves 200 − c. The bent bar needs
     # lb,eq = α1 lb,rqd (α1 = 0.7: cd = (250 − 20)/2 = 115 > 60, at σsd = FE/As; EN 8.4.4(2), Table 8.2),
-    # not less than lb,min = 214.4 mm as a straight bar (8.6), which governs: the bend does not anchor
-    # the bar in this wall, and the support's anchorage check fails the design.
+    # not less than lb,min = 214.4 mm as a straight bar (8.6), which governs: measured to the
+    # outside of the bend the wall is short. Measured along the bar's centreline (8.4.4(1), Figure
+    # 8.1 a: any shape) the bend anchors it: straight to the bend 200 − c − φ − D/2, the arc
+    # π/2 (D/2 + φ/2), the 5φ extension (hand evaluation; D = 7φ, Table 8.1N, value from memory).
     hooked = derivation(r, "span 1, bottom", "hooked anchorage (start)")["length_mm"]
     assert hooked == pytest.approx(214.4, abs=0.1)
-    assert b["anchorage_mm"]["start"] == pytest.approx(200 - c)
-    short = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"
+    along = (200 - c - 20 - 70) + math.pi / 2 * (70 + 10) + 100
+    assert b["anchorage_mm"]["start"] == pytest.approx(along)
+    check = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"
              and k["demand"] == pytest.approx(hooked)]
-    assert len(short) == 1 and not short[0]["pass"]
-    assert short[0]["capacity"] == pytest.approx(200 - c)
-    assert r["status"] == "fail"
+    assert len(check) == 1 and check[0]["pass"]
+    assert check[0]["capacity"] == pytest.approx(along)
+    assert "Figure 8.1 a" in check[0]["clause"]
     fe_steps = derivation(r, "span 1, bottom", "end support anchorage (start)")
     assert fe_steps["clause"] == "EN 1992-1-1 9.2.1.4, 9.3.1.2"
     # Leg to the outside of the bend: 7φ/2 + φ + 5φ = 70 + 20 + 100 = 190 mm (Table 8.1N, Figure 8.1 b, values
@@ -87,7 +90,7 @@ def test_en_narrow_wall_bends_the_bottom_bar():
     assert b["length_mm"] == pytest.approx(math.ceil(raw / 25 - 1e-9) * 25, abs=1e-6)
     assert b["length_mm"] >= (b["end_m"] - b["start_m"]) * 1000 + leg - 1e-6
     bend = derivation(r, "span 1, bottom", "bend (start)")
-    assert bend["length_mm"] == pytest.approx(200 - c)
+    assert bend["length_mm"] == pytest.approx(along)
     row = [s for s in r["detailing"]["schedule"] if s["mark"] == b["mark"]][0]
     assert row["shape"] == "L-bar" and row["length_mm"] == b["length_mm"]
     # Mirrored at the far end: span 2's bar bends at support 3 and shares the mark.
@@ -328,3 +331,50 @@ def test_smaller_bars_that_do_not_help_are_not_taken():
     assert not any("bars searched among" in w for w in first["warnings"])
     for g in first["regions"]:
         assert all(k["pass"] for k in g["checks"]), g["where"]
+
+
+def test_en_top_bars_at_a_built_in_end_get_a_leg_long_enough_along_the_centreline():
+    """EN, fixed ends on 200 mm walls, a 300 mm slab under 10 kPa: the top
+    bars over the end walls need lbd (poor bond) past the face; measured to
+    the outside of the bend the wall leaves 200 − c. Measured along the
+    bar's centreline (EN 1992-1-1 8.4.4(1), Figure 8.1 a: any shape), the
+    leg down into the wall is lengthened until the straight part to the
+    bend, the bend's arc and the leg's straight part make lbd (hand
+    evaluation of the geometry; mandrel 4φ for φ ≤ 16 mm, Table 8.1N,
+    value from memory)."""
+    r = armature.design(strip([5.0, 5.0], ["fixed", "fixed"], 300, widths=[200, 300, 200],
+                              loads={"dead_kPa": 2.0, "imposed_kPa": 10.0}))
+    assert r["status"] == "pass"
+    c = r["cover_mm"]["top"]
+    t = bar(r, "support 1", "top")
+    phi = t["diameter_mm"]
+    D = 4 * phi if phi <= 16 else 7 * phi
+    need = derivation(r, "support 1, top", "hooked anchorage (start)")["length_mm"]
+    l1 = 200 - c - phi - D / 2
+    arc = math.pi / 2 * (D / 2 + phi / 2)
+    l2 = need - l1 - arc
+    assert l2 > 5 * phi  # longer than the standard bend's extension
+    assert t["shape"] == "L-bar"
+    assert t["legs_mm"]["start"] == pytest.approx(D / 2 + phi + l2)
+    assert t["anchorage_mm"]["start"] == pytest.approx(need)
+    check = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"]
+    assert len(check) == 1 and check[0]["pass"] and check[0]["capacity"] == pytest.approx(need)
+    assert "Figure 8.1 a" in check[0]["clause"]
+    # The leg goes down into the wall: no warning about the slab's depth.
+    assert not any("does not fit the slab's depth" in w for w in r["warnings"])
+    # Cut length: the run and the leg, rounded up to 25 mm at the free end.
+    raw = (t["end_m"] - t["start_m"]) * 1000 + t["legs_mm"]["start"]
+    assert t["length_mm"] == pytest.approx(math.ceil(raw / 25 - 1e-9) * 25, abs=1e-6)
+
+
+def test_aci_hooks_are_not_counted_along_the_centreline():
+    """ACI 318-19 25.4.3: ldh to the outside of the hook; a longer tail
+    does not develop the bar (value from memory). The same walls and
+    slab as the EN strip above: capacity stays the wall less the cover."""
+    r = armature.design(strip([5.0, 5.0], ["fixed", "fixed"], 300, code="ACI", widths=[200, 300, 200],
+                              loads={"dead_kPa": 2.0, "imposed_kPa": 10.0}))
+    c = r["cover_mm"]["top"]
+    checks = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"]
+    assert checks
+    for k in checks:
+        assert k["capacity"] == pytest.approx(200 - c) and "Figure" not in k["clause"]

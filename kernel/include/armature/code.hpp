@@ -539,6 +539,11 @@ struct DetailLength {
   // inside diameter of the bend and the straight extension past it.
   double bend_diameter_mm = 0.0;
   double extension_mm = 0.0;
+  // hooked_anchorage: where the code also lets the same anchorage be
+  // measured along the bar's centreline whatever its shape (so that a leg
+  // longer than the extension counts where the bend measured to its
+  // outside falls short), the clause that says so; empty where it does not.
+  std::string centreline_clause{};
 };
 
 // A limit the code sets on a bar where the code asks it (met or not), with

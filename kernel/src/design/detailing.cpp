@@ -273,7 +273,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     derive(label, "hooked anchorage (" + side + ")", hook);
     const double provided = dir * (outer - origin);
     const double phi = demand.diameter_mm;
-    const double leg = hook.bend_diameter_mm / 2.0 + phi + hook.extension_mm;
+    const double leg_standard = hook.bend_diameter_mm / 2.0 + phi + hook.extension_mm;
     const bool leg_in_slab =
         !(face == Face::top && L.strip.ends[j == 0 ? 0 : 1] == EndSupport::fixed && L.legs_into_support);
     const double room = thickness_ - cover(Face::top) - cover(Face::bottom);
@@ -289,20 +289,62 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
         {"lb,prov", "from there to the slab's end less the cover: the outside of the bend",
          plain_number(dir * (X[j] - origin) + t / 2.0) + " − " + plain_number(c), provided, "mm", ""},
         {"lb,req", "the bent bar's anchorage (above)", "", hook.length_mm, "mm", hook.clause},
-        {"D", "inside diameter of the bend (above)", "", hook.bend_diameter_mm, "mm", hook.clause},
-        {"leg", "D/2 + φ + extension, to the outside of the bend",
-         plain_number(hook.bend_diameter_mm) + "/2 + " + plain_number(phi) + " + " + plain_number(hook.extension_mm),
-         leg, "mm", ""}};
+        {"D", "inside diameter of the bend (above)", "", hook.bend_diameter_mm, "mm", hook.clause}};
     if (leg_in_slab)
       bend.steps.push_back({"h,legs", "room for the leg: h less the top and bottom covers",
                             plain_number(thickness_) + " − " + plain_number(cover(Face::top)) +
                                 " − " + plain_number(cover(Face::bottom)),
                             room, "mm", ""});
-    const bool anchored = provided >= hook.length_mm - 1e-6;
+    bool anchored = provided >= hook.length_mm - 1e-6;
+    double capacity = provided, leg = leg_standard;
+    bool lengthened = false;
+    // A code measuring the anchorage along the bar's centreline (EN 1992-1-1
+    // Figure 8.1 a): where the bend measured to its outside falls short, the
+    // leg is lengthened until the length along the centreline (the straight
+    // part to the bend, the bend's arc, the leg) is the anchorage, as far
+    // as the slab's depth allows (a top bar's leg into a built-in end's
+    // wall: as far as needed).
+    if (!anchored && !hook.centreline_clause.empty()) {
+      const double D = hook.bend_diameter_mm;
+      const double R = D / 2.0 + phi / 2.0;
+      const double l1 = provided - phi - D / 2.0;
+      const double arc = std::numbers::pi / 2.0 * R;
+      const double l2 = std::max(hook.extension_mm, hook.length_mm - l1 - arc);
+      const double l2_room = leg_in_slab ? room - R - phi / 2.0 : std::numeric_limits<double>::infinity();
+      if (l1 >= 0.0 && l2 <= l2_room + 1e-6) {
+        capacity = l1 + arc + l2;
+        leg = D / 2.0 + phi + l2;
+        anchored = capacity >= hook.length_mm - 1e-6;
+        bend.steps.push_back({"R", "D/2 + φ/2: the bend's radius to the bar's centreline",
+                              plain_number(D) + "/2 + " + plain_number(phi) + "/2", R, "mm", ""});
+        bend.steps.push_back({"l1", "lb,prov − φ − D/2: straight, to where the bend starts",
+                              plain_number(provided) + " − " + plain_number(phi) + " − " + plain_number(D) + "/2", l1,
+                              "mm", ""});
+        bend.steps.push_back({"l,arc", "π/2 × R", "π/2 × " + plain_number(R), arc, "mm", ""});
+        bend.steps.push_back({"l2", std::string("the leg's straight part: lb,req − l1 − l,arc, at least the extension") +
+                                        (leg_in_slab ? ", within the slab's depth" : ", down into the support"),
+                              "max(" + plain_number(hook.extension_mm) + ", " + plain_number(hook.length_mm) + " − " +
+                                  plain_number(l1) + " − " + plain_number(arc) + ")",
+                              l2, "mm", ""});
+        bend.steps.push_back({"lb,prov", "l1 + l,arc + l2, along the bar's centreline",
+                              plain_number(l1) + " + " + plain_number(arc) + " + " + plain_number(l2), capacity, "mm",
+                              hook.centreline_clause});
+        bend.steps.push_back({"leg", "D/2 + φ + l2, to the outside of the bend",
+                              plain_number(D) + "/2 + " + plain_number(phi) + " + " + plain_number(l2), leg, "mm", ""});
+        bend.length_mm = capacity;
+        bend.clause += "; " + hook.centreline_clause;
+        lengthened = true;
+      }
+    }
+    if (!lengthened)
+      bend.steps.push_back({"leg", "D/2 + φ + extension, to the outside of the bend",
+                            plain_number(hook.bend_diameter_mm) + "/2 + " + plain_number(phi) + " + " +
+                                plain_number(hook.extension_mm),
+                            leg, "mm", ""});
     bend.steps.push_back({"lb,req/lb,prov",
                           anchored ? "the bend anchors the bar" : "short: the bend does not anchor the bar",
-                          plain_number(hook.length_mm) + " / " + plain_number(provided),
-                          provided > 0.0 ? hook.length_mm / provided : std::numeric_limits<double>::infinity(), "-",
+                          plain_number(hook.length_mm) + " / " + plain_number(capacity),
+                          capacity > 0.0 ? hook.length_mm / capacity : std::numeric_limits<double>::infinity(), "-",
                           ""});
     derive(label, "bend (" + side + ")", bend);
     // A check of the support, so that a bar the bend does not anchor fails
@@ -310,11 +352,11 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     Check anchorage_check;
     anchorage_check.id = "anchorage";
     anchorage_check.where = support_label(j);
-    anchorage_check.clause = hook.clause;
+    anchorage_check.clause = bend.clause;
     anchorage_check.demand = hook.length_mm;
-    anchorage_check.capacity = provided;
+    anchorage_check.capacity = capacity;
     anchorage_check.unit = "mm";
-    anchorage_check.utilisation = utilisation_of(hook.length_mm, provided);
+    anchorage_check.utilisation = utilisation_of(hook.length_mm, capacity);
     anchorage_check.pass = anchored;
     anchorage_check.steps = bend.steps;
     // Which bar: a support may check its bottom and its top bars' bends.
@@ -325,7 +367,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     if (leg_in_slab && leg > room + 1e-6)
       out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +
                           " mm does not fit the slab's depth (" + plain_number(room) + " mm between the covers)");
-    return {outer, provided, leg, true};
+    return {outer, capacity, leg, true};
   };
   // 7.7.3.8.3-like limits of the code on the bottom bars where the moment
   // falls to zero: at a pinned end (its reaction, a bearing below the
@@ -339,7 +381,11 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const DetailLimit lim =
         ask("detailing zero moment", demand.where, [&] { return rules.zero_moment_development(d, site); });
     if (!lim.applies) return;
-    derive(label, "bar size at zero moment (" + side + ")", DetailLength{lim.limit_mm, lim.clause, lim.steps});
+    DetailLength limit;
+    limit.length_mm = lim.limit_mm;
+    limit.clause = lim.clause;
+    limit.steps = lim.steps;
+    derive(label, "bar size at zero moment (" + side + ")", limit);
     if (!lim.met)
       out.notes.push_back(L.span_names[e] + ": the bottom bars' development length " +
                           plain_number(lim.length_mm) + " mm exceeds the limit " + plain_number(lim.limit_mm) +
