@@ -35,9 +35,10 @@ const char* version_string() { return ARMATURE_VERSION; }
 namespace {
 
 // For a request that passed validation; `id` is the code's identity,
-// `checker` the code's checker for this request.
+// `checker` the code's checker for this request, `step_units` the units of
+// its edition (DesignRecord::step_units).
 DesignRecord design_validated(const SlabChecker& checker, CodeIdentity id, const Request& req, Member& member,
-                              Detail detail);
+                              Detail detail, ReportUnits step_units);
 
 // Each region of reinforcement.given must be one of the strip's, at its
 // face. `pinned_end_steel`: whether pinned ends carry top bars (the code's
@@ -189,7 +190,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     if (problems.empty()) add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
-    return design_two_way(*checker, std::move(id), req, detail);
+    return design_two_way(*checker, std::move(id), req, detail, practice.report_units);
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
   if (problems.empty()) member.add_scope_problems(problems);
@@ -199,7 +200,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail);
+  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail, practice.report_units);
   rec.state_strip_width = states_strip_width(practice);
   return rec;
 }
@@ -211,11 +212,12 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                               [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
+  const PracticeDefaults practice = call_code(id, "practice defaults", [&] { return code->practice_defaults(); });
   if (req.plate()) {  // a two-way or flat slab: its own path (two_way_design.cpp)
     add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
-    return design_two_way(*checker, std::move(id), req, detail);
+    return design_two_way(*checker, std::move(id), req, detail, practice.report_units);
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
   add_action_problems(req, problems);
@@ -223,9 +225,8 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail);
-  rec.state_strip_width =
-      states_strip_width(call_code(rec.code, "practice defaults", [&] { return code->practice_defaults(); }));
+  DesignRecord rec = design_validated(*checker, std::move(id), req, member, detail, practice.report_units);
+  rec.state_strip_width = states_strip_width(practice);
   return rec;
 }
 
@@ -262,11 +263,12 @@ void detail_design(const SlabChecker& checker, const Request& req, const Member&
 }
 
 DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Member& member,
-                              Detail detail) {
+                              Detail detail, ReportUnits step_units) {
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = std::move(id);
   rec.report_units = req.report_units;
+  rec.step_units = step_units;
   rec.strip_width_mm = req.slab.strip_width_mm;
   rec.support_widths_given = !req.slab.support_widths_mm.empty();
   const SlabChecker* const checker = &code_checker;

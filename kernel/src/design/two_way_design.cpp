@@ -289,12 +289,14 @@ void add_two_way_problems(const Request& req, InputProblems& problems) {
 namespace {
 
 template <class Member>
-DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
+DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail,
+                          ReportUnits step_units) {
   constexpr bool flat = std::is_same_v<Member, FlatPlate>;
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = std::move(id);
   rec.report_units = req.report_units;
+  rec.step_units = step_units;
   rec.strip_width_mm = 1000.0;
   const double b = rec.strip_width_mm;
   const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker.load_basis(); });
@@ -571,9 +573,10 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
 
 }  // namespace
 
-DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail) {
-  if (req.slab_type == SlabType::flat) return design_plate<FlatPlate>(checker, std::move(id), req, detail);
-  return design_plate<TwoWayPlate>(checker, std::move(id), req, detail);
+DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail,
+                            ReportUnits step_units) {
+  if (req.slab_type == SlabType::flat) return design_plate<FlatPlate>(checker, std::move(id), req, detail, step_units);
+  return design_plate<TwoWayPlate>(checker, std::move(id), req, detail, step_units);
 }
 
 }  // namespace armature

@@ -20,6 +20,8 @@ inline constexpr int min_flat_mesh_per_bay = 8;
 // size) and located loads off the plate, each named by its request path.
 void add_two_way_problems(const Request& request, InputProblems& problems);
 
-DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& request, Detail detail);
+// `step_units`: the units of the code's edition (DesignRecord::step_units).
+DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& request, Detail detail,
+                            ReportUnits step_units);
 
 }  // namespace armature
