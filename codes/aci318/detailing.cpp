@@ -135,7 +135,7 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   const double psi_r = hook_confinement_factor(bar.spacing_mm, db);
   st.add("ψr", psi_r == hook_confinement_factor_spaced ? "1.0: hooked bars at s ≥ 6 db (no ties in a slab)"
                                                        : "1.6: hooked bars at s < 6 db, no ties (a slab)",
-         num(bar.spacing_mm) + (psi_r == hook_confinement_factor_spaced ? " ≥ 6 × " : " < 6 × ") + num(db), psi_r, "-",
+         len(bar.spacing_mm) + (psi_r == hook_confinement_factor_spaced ? " ≥ 6 × " : " < 6 × ") + len(db), psi_r, "-",
          "ACI 318-19 25.4.3.2 (value from memory)");
   const double psi_o = hook_location_factor_side_cover;
   st.add("ψo", "side cover normal to the plane of the hook ≥ 6 db (within a slab's width)", "", psi_o, "-",

@@ -199,6 +199,12 @@ struct DesignRecord {
   DistributionRecord distribution;
   std::vector<std::string> warnings;
   ReportUnits report_units = ReportUnits::SI;  // of the summary, as requested
+  // The units of the code's edition (its practice's report units,
+  // PracticeDefaults::report_units): the kernel writes its own derivation
+  // steps (detailing's bends and curtailment) in them, so that each
+  // derivation of the record reads in the units of the code's steps beside
+  // it, whatever report_units asks. The values held stay in mm, N·mm.
+  ReportUnits step_units = ReportUnits::SI;
   double strip_width_mm = 1000.0;
   // The result states strip_width_mm: the code's practice strip is not
   // the contract's 1000 mm (a variant drawn in inches), so a reader of

@@ -17,6 +17,7 @@
 #include <utility>
 
 #include "armature/format.hpp"
+#include "armature/units.hpp"
 #include "call_code.hpp"
 
 namespace armature {
@@ -29,6 +30,27 @@ constexpr double lapped_share_staggered = 0.5;      // alternate bars lapped at 
 
 struct Point {
   double x, sag, hog, shear;
+};
+
+// The units of the kernel's own derivation steps (bends, curtailment):
+// those of the code's edition (DesignRecord::step_units), so that each
+// derivation reads in one system beside the code's steps (in-lb: inches,
+// in², kip-ft, positions along the strip in ft). Every conversion of those
+// steps is here; the values the detailing holds stay in mm, mm², N·mm.
+struct StepUnits {
+  bool us = false;
+  double length_v(double mm) const { return us ? mm / mm_per_in : mm; }
+  std::string length(double mm) const { return plain_number(length_v(mm)); }
+  const char* length_u() const { return us ? "in" : "mm"; }
+  double area_v(double mm2) const { return us ? mm2 / (mm_per_in * mm_per_in) : mm2; }
+  std::string area(double mm2) const { return plain_number(area_v(mm2)); }
+  const char* area_u() const { return us ? "in2" : "mm2"; }
+  double moment_v(double Nmm) const { return us ? Nmm * 1e-6 / kNm_per_kipft : Nmm * 1e-6; }
+  std::string moment(double Nmm) const { return plain_number(moment_v(Nmm)); }
+  const char* moment_u() const { return us ? "kip-ft" : "kNm"; }
+  double along_v(double mm) const { return us ? mm * 1e-3 / m_per_ft : mm * 1e-3; }
+  std::string along(double mm) const { return plain_number(along_v(mm)); }
+  const char* along_u() const { return us ? "ft" : "m"; }
 };
 
 // x where f falls from above tol (at b) to tol or below (at a), linearly.
@@ -140,8 +162,14 @@ OuterEdge outer_edge(const PlateRecord& plate, const std::string& edge) {
 class Detailer {
  public:
   Detailer(const DetailingRules& code_rules, const CodeIdentity& code_id, const DetailingInput& in,
-           double thickness_mm, std::array<double, 2> cover_mm, DetailingRecord& record)
-      : rules(code_rules), code(code_id), in_(in), thickness_(thickness_mm), cover_(cover_mm), out(record) {}
+           double thickness_mm, std::array<double, 2> cover_mm, ReportUnits step_units, DetailingRecord& record)
+      : rules(code_rules),
+        code(code_id),
+        in_(in),
+        thickness_(thickness_mm),
+        cover_(cover_mm),
+        u_{step_units == ReportUnits::US},
+        out(record) {}
 
   std::vector<Run> runs;
 
@@ -182,6 +210,7 @@ class Detailer {
   const DetailingInput& in_;
   double thickness_;
   std::array<double, 2> cover_;
+  StepUnits u_;  // of the kernel's own steps
   DetailingRecord& out;
 };
 
@@ -280,21 +309,24 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     DetailLength bend;
     bend.length_mm = provided;
     bend.clause = hook.clause;
+    const std::string length_u = u_.length_u();
     bend.steps = {
-        {"t", "breadth of " + support_label(j) + " (the slab ends flush with its outer face)", "", t, "mm", ""},
-        {"c", "cover at the slab's end (the " + face_name(face) + " face's nominal cover)", "", c, "mm", ""},
+        {"t", "breadth of " + support_label(j) + " (the slab ends flush with its outer face)", "", u_.length_v(t),
+         length_u, ""},
+        {"c", "cover at the slab's end (the " + face_name(face) + " face's nominal cover)", "", u_.length_v(c),
+         length_u, ""},
         {"l,straight", "the straight length the code requires here, past " +
                            std::string(from_face ? "the support's face" : "the shifted zero point"),
-         "", dir * (want - origin), "mm", ""},
+         "", u_.length_v(dir * (want - origin)), length_u, ""},
         {"lb,prov", "from there to the slab's end less the cover: the outside of the bend",
-         plain_number(dir * (X[j] - origin) + t / 2.0) + " − " + plain_number(c), provided, "mm", ""},
-        {"lb,req", "the bent bar's anchorage (above)", "", hook.length_mm, "mm", hook.clause},
-        {"D", "inside diameter of the bend (above)", "", hook.bend_diameter_mm, "mm", hook.clause}};
+         u_.length(dir * (X[j] - origin) + t / 2.0) + " − " + u_.length(c), u_.length_v(provided), length_u, ""},
+        {"lb,req", "the bent bar's anchorage (above)", "", u_.length_v(hook.length_mm), length_u, hook.clause},
+        {"D", "inside diameter of the bend (above)", "", u_.length_v(hook.bend_diameter_mm), length_u, hook.clause}};
     if (leg_in_slab)
       bend.steps.push_back({"h,legs", "room for the leg: h less the top and bottom covers",
-                            plain_number(thickness_) + " − " + plain_number(cover(Face::top)) +
-                                " − " + plain_number(cover(Face::bottom)),
-                            room, "mm", ""});
+                            u_.length(thickness_) + " − " + u_.length(cover(Face::top)) + " − " +
+                                u_.length(cover(Face::bottom)),
+                            u_.length_v(room), length_u, ""});
     bool anchored = provided >= hook.length_mm - 1e-6;
     double capacity = provided, leg = leg_standard;
     bool lengthened = false;
@@ -316,21 +348,22 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
         leg = D / 2.0 + phi + l2;
         anchored = capacity >= hook.length_mm - 1e-6;
         bend.steps.push_back({"R", "D/2 + φ/2: the bend's radius to the bar's centreline",
-                              plain_number(D) + "/2 + " + plain_number(phi) + "/2", R, "mm", ""});
+                              u_.length(D) + "/2 + " + u_.length(phi) + "/2", u_.length_v(R), length_u, ""});
         bend.steps.push_back({"l1", "lb,prov − φ − D/2: straight, to where the bend starts",
-                              plain_number(provided) + " − " + plain_number(phi) + " − " + plain_number(D) + "/2", l1,
-                              "mm", ""});
-        bend.steps.push_back({"l,arc", "π/2 × R", "π/2 × " + plain_number(R), arc, "mm", ""});
+                              u_.length(provided) + " − " + u_.length(phi) + " − " + u_.length(D) + "/2",
+                              u_.length_v(l1), length_u, ""});
+        bend.steps.push_back({"l,arc", "π/2 × R", "π/2 × " + u_.length(R), u_.length_v(arc), length_u, ""});
         bend.steps.push_back({"l2", std::string("the leg's straight part: lb,req − l1 − l,arc, at least the extension") +
                                         (leg_in_slab ? ", within the slab's depth" : ", down into the support"),
-                              "max(" + plain_number(hook.extension_mm) + ", " + plain_number(hook.length_mm) + " − " +
-                                  plain_number(l1) + " − " + plain_number(arc) + ")",
-                              l2, "mm", ""});
+                              "max(" + u_.length(hook.extension_mm) + ", " + u_.length(hook.length_mm) + " − " +
+                                  u_.length(l1) + " − " + u_.length(arc) + ")",
+                              u_.length_v(l2), length_u, ""});
         bend.steps.push_back({"lb,prov", "l1 + l,arc + l2, along the bar's centreline",
-                              plain_number(l1) + " + " + plain_number(arc) + " + " + plain_number(l2), capacity, "mm",
-                              hook.centreline_clause});
+                              u_.length(l1) + " + " + u_.length(arc) + " + " + u_.length(l2), u_.length_v(capacity),
+                              length_u, hook.centreline_clause});
         bend.steps.push_back({"leg", "D/2 + φ + l2, to the outside of the bend",
-                              plain_number(D) + "/2 + " + plain_number(phi) + " + " + plain_number(l2), leg, "mm", ""});
+                              u_.length(D) + "/2 + " + u_.length(phi) + " + " + u_.length(l2), u_.length_v(leg),
+                              length_u, ""});
         bend.length_mm = capacity;
         bend.clause += "; " + hook.centreline_clause;
         lengthened = true;
@@ -338,12 +371,12 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     }
     if (!lengthened)
       bend.steps.push_back({"leg", "D/2 + φ + extension, to the outside of the bend",
-                            plain_number(hook.bend_diameter_mm) + "/2 + " + plain_number(phi) + " + " +
-                                plain_number(hook.extension_mm),
-                            leg, "mm", ""});
+                            u_.length(hook.bend_diameter_mm) + "/2 + " + u_.length(phi) + " + " +
+                                u_.length(hook.extension_mm),
+                            u_.length_v(leg), length_u, ""});
     bend.steps.push_back({"lb,req/lb,prov",
                           anchored ? "the bend anchors the bar" : "short: the bend does not anchor the bar",
-                          plain_number(hook.length_mm) + " / " + plain_number(capacity),
+                          u_.length(hook.length_mm) + " / " + u_.length(capacity),
                           capacity > 0.0 ? hook.length_mm / capacity : std::numeric_limits<double>::infinity(), "-",
                           ""});
     derive(label, "bend (" + side + ")", bend);
@@ -361,7 +394,8 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     anchorage_check.steps = bend.steps;
     // Which bar: a support may check its bottom and its top bars' bends.
     anchorage_check.steps.insert(anchorage_check.steps.begin(),
-                                 Step{"φ", "the bar: " + label + ", " + side + " end", "", phi, "mm", ""});
+                                 Step{"φ", "the bar: " + label + ", " + side + " end", "", u_.length_v(phi),
+                                      length_u, ""});
     out.checks.push_back(std::move(anchorage_check));
     if (!anchored) out.short_bends.push_back({demand.where, face, L.strip.direction, phi, support_label(j)});
     if (leg_in_slab && leg > room + 1e-6)
@@ -590,15 +624,15 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     stop.length_mm = z1 - z0;
     stop.clause = shift_clause;
     stop.steps = {
-        {"As,A", "As,prov / 2 (the continuing bars, at twice the spacing)",
-         plain_number(r.bars.As_prov_mm2) + " / 2", As_half, "mm2", ""},
+        {"As,A", "As,prov / 2 (the continuing bars, at twice the spacing)", u_.area(r.bars.As_prov_mm2) + " / 2",
+         u_.area_v(As_half), u_.area_u(), ""},
         {"M_A", "M_Ed As,A / As,req (As,req(M) ≤ M As,req(M_Ed)/M_Ed below M_Ed)",
-         plain_number(r.M_Ed * 1e-6) + " × " + plain_number(As_half) + " / " + plain_number(r.As_req_mm2),
-         M_A * 1e-6, "kNm", ""},
-        {"x0", "the sagging envelope rises past M_A", "", z0 * 1e-3, "m", ""},
-        {"x1", "the sagging envelope falls back to M_A", "", z1 * 1e-3, "m", ""},
+         u_.moment(r.M_Ed) + " × " + u_.area(As_half) + " / " + u_.area(r.As_req_mm2), u_.moment_v(M_A),
+         u_.moment_u(), ""},
+        {"x0", "the sagging envelope rises past M_A", "", u_.along_v(z0), u_.along_u(), ""},
+        {"x1", "the sagging envelope falls back to M_A", "", u_.along_v(z1), u_.along_u(), ""},
         {"l", "x1 − x0: where the curtailed bars are needed, before the shift and anchorage",
-         plain_number(z1 * 1e-3) + " − " + plain_number(z0 * 1e-3), (z1 - z0) * 1e-3, "m", ""}};
+         u_.along(z1) + " − " + u_.along(z0), u_.along_v(z1 - z0), u_.along_u(), ""}};
     out.derivations.push_back({label, "curtailment", stop});
     return std::make_pair(std::move(a), std::move(b));
   };
@@ -1285,7 +1319,7 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
     L.top.push_back(region(L.support_names.back(), Face::top));
   }
   L.distribution = &rec.distribution.bars;
-  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, out);
+  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, rec.step_units, out);
   detailer.add_strip(L, envelope);
   detailer.finish();
   out.envelope = out.strips.front().envelope;
@@ -1305,7 +1339,7 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
   DetailingRecord out;
   out.plan = true;
   out.stock_length_mm = req.detailing.stock_length_mm;
-  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, out);
+  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, rec.step_units, out);
   const double tol = 1e-6;
   const double cx = plate.columns.empty() ? 0.0 : plate.columns.front().cx_mm;
   const double cy = plate.columns.empty() ? 0.0 : plate.columns.front().cy_mm;
@@ -1467,7 +1501,7 @@ DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& co
   DetailingRecord out;
   out.plan = true;
   out.stock_length_mm = req.detailing.stock_length_mm;
-  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, out);
+  Detailer detailer(rules, code, req.detailing, req.slab.thickness_mm, rec.face_cover_mm, rec.step_units, out);
   const PlateFieldRecord& f = plate.field;
   const std::size_t nx = f.x_mm.size();
   const double tol = 1e-6;

@@ -38,9 +38,11 @@ const char* version_string() { return ARMATURE_VERSION; }
 namespace {
 
 // For a request that passed validation; `id` is the code's identity,
-// `checker` the code's checker for this request.
+// `checker` the code's checker for this request, `step_units` the units of
+// its edition (DesignRecord::step_units), `limits` the regions whose bars
+// the search keeps below a size (with_anchored_bends).
 DesignRecord design_validated(const SlabChecker& checker, CodeIdentity id, const Request& req, Member& member,
-                              Detail detail, const std::vector<BarLimit>& limits);
+                              Detail detail, ReportUnits step_units, const std::vector<BarLimit>& limits);
 
 // A region's name with its face (and on a plate its bars' direction).
 std::string region_words(const std::string& where, Face face, BarDirection direction) {
@@ -277,10 +279,11 @@ bool states_strip_width(const PracticeDefaults& practice) {
 }
 
 // A one-way strip's design, each round on a strip of its own.
-DesignRecord design_strip(const SlabChecker& checker, const CodeIdentity& id, const Request& req, Detail detail) {
+DesignRecord design_strip(const SlabChecker& checker, const CodeIdentity& id, const Request& req, Detail detail,
+                          ReportUnits step_units) {
   return with_anchored_bends(checker, id, [&](const std::vector<BarLimit>& limits) {
     OneWayStrip member(req.slab, req.design.redistribution_percent);
-    return design_validated(checker, id, req, member, detail, limits);
+    return design_validated(checker, id, req, member, detail, step_units, limits);
   });
 }
 
@@ -333,7 +336,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
     return with_anchored_bends(*checker, id, [&](const std::vector<BarLimit>& limits) {
-      return design_two_way(*checker, id, req, detail, limits);
+      return design_two_way(*checker, id, req, detail, practice.report_units, limits);
     });
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
@@ -344,7 +347,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  DesignRecord rec = design_strip(*checker, id, req, detail);
+  DesignRecord rec = design_strip(*checker, id, req, detail, practice.report_units);
   rec.state_strip_width = states_strip_width(practice);
   return rec;
 }
@@ -356,12 +359,13 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   CodeIdentity id = call_code(CodeIdentity{req.code, req.variant.value_or(""), ""}, "identity",
                               [&] { return code->identity(); });
   call_code(id, "input validation", [&] { code->validate(req, problems); });
+  const PracticeDefaults practice = call_code(id, "practice defaults", [&] { return code->practice_defaults(); });
   if (req.plate()) {  // a two-way or flat slab: its own path (two_way_design.cpp)
     add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
     return with_anchored_bends(*checker, id, [&](const std::vector<BarLimit>& limits) {
-      return design_two_way(*checker, id, req, detail, limits);
+      return design_two_way(*checker, id, req, detail, practice.report_units, limits);
     });
   }
   OneWayStrip member(req.slab, req.design.redistribution_percent);
@@ -370,9 +374,8 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
   if (!problems.empty()) add_given_region_problems(req, std::nullopt, problems);
   problems.raise_if_any();
   const auto checker = begin_checked(*code, id, req);
-  DesignRecord rec = design_strip(*checker, id, req, detail);
-  rec.state_strip_width =
-      states_strip_width(call_code(rec.code, "practice defaults", [&] { return code->practice_defaults(); }));
+  DesignRecord rec = design_strip(*checker, id, req, detail, practice.report_units);
+  rec.state_strip_width = states_strip_width(practice);
   return rec;
 }
 
@@ -409,11 +412,12 @@ void detail_design(const SlabChecker& checker, const Request& req, const Member&
 }
 
 DesignRecord design_validated(const SlabChecker& code_checker, CodeIdentity id, const Request& req, Member& member,
-                              Detail detail, const std::vector<BarLimit>& limits) {
+                              Detail detail, ReportUnits step_units, const std::vector<BarLimit>& limits) {
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = std::move(id);
   rec.report_units = req.report_units;
+  rec.step_units = step_units;
   rec.strip_width_mm = req.slab.strip_width_mm;
   rec.support_widths_given = !req.slab.support_widths_mm.empty();
   const SlabChecker* const checker = &code_checker;

@@ -290,12 +290,13 @@ namespace {
 
 template <class Member>
 DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail,
-                          const std::vector<BarLimit>& limits) {
+                          ReportUnits step_units, const std::vector<BarLimit>& limits) {
   constexpr bool flat = std::is_same_v<Member, FlatPlate>;
   if (detail == Detail::verdict) detail = Detail::checks;
   DesignRecord rec;
   rec.code = std::move(id);
   rec.report_units = req.report_units;
+  rec.step_units = step_units;
   rec.strip_width_mm = 1000.0;
   const double b = rec.strip_width_mm;
   const LoadBasis basis = call_code(rec.code, "load basis", [&] { return checker.load_basis(); });
@@ -574,9 +575,10 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
 }  // namespace
 
 DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& req, Detail detail,
-                            const std::vector<BarLimit>& limits) {
-  if (req.slab_type == SlabType::flat) return design_plate<FlatPlate>(checker, std::move(id), req, detail, limits);
-  return design_plate<TwoWayPlate>(checker, std::move(id), req, detail, limits);
+                            ReportUnits step_units, const std::vector<BarLimit>& limits) {
+  if (req.slab_type == SlabType::flat)
+    return design_plate<FlatPlate>(checker, std::move(id), req, detail, step_units, limits);
+  return design_plate<TwoWayPlate>(checker, std::move(id), req, detail, step_units, limits);
 }
 
 }  // namespace armature

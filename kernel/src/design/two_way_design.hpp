@@ -24,9 +24,10 @@ void add_two_way_problems(const Request& request, InputProblems& problems);
 
 struct BarLimit;  // search.hpp
 
+// `step_units`: the units of the code's edition (DesignRecord::step_units);
 // `limits`: regions whose bars the search keeps below a size (bends too
 // short at a support in an earlier design of the request; driver.cpp).
 DesignRecord design_two_way(const SlabChecker& checker, CodeIdentity id, const Request& request, Detail detail,
-                            const std::vector<BarLimit>& limits);
+                            ReportUnits step_units, const std::vector<BarLimit>& limits);
 
 }  // namespace armature

@@ -33,8 +33,8 @@ std::string n4(double v, double scale = 1.0) {
 }
 
 // The units of the record's own tables and text (report_units); the
-// derivation steps are printed as the code wrote them, in the units of
-// its edition.
+// derivation steps are printed as written, in the units of the code's
+// edition (the kernel's own steps too: DesignRecord::step_units).
 struct RecordUnits {
   bool us = false;
   std::string load(double MPa) const { return us ? n4(MPa * 1e3 / kPa_per_psf) + " psf" : n4(MPa * 1e3) + " kPa"; }
