@@ -548,7 +548,14 @@ TEST_CASE("Two-way: U-bars along a free edge by EN 9.3.1.4") {
   }
   CHECK(r.plate->free_edges[0].from_mm == 0.0);
   CHECK(r.plate->free_edges[1].to_mm == Approx(11400.0));
-  CHECK(format_summary(r).find("Free edge  edge y1 of bay 2,1: U-bars") != std::string::npos);
+  // One summary line for the edge, naming each bay's U-bars.
+  const std::string summary = format_summary(r);
+  const auto line = summary.find("Free edge  edge y1: U-bars");
+  REQUIRE(line != std::string::npos);
+  const std::string text = summary.substr(line, summary.find('\n', line) - line);
+  CHECK(text.find("(bay 1,1)") != std::string::npos);
+  CHECK(text.find("(bay 2,1)") != std::string::npos);
+  CHECK(summary.find("Free edge", line + 1) == std::string::npos);
   // ACI: no rule, and the summary says so.
   const DesignRecord a = design(registry(), two_way_request("ACI318-19", "SI", {5.4, 6.0}, {4.2},
                                                             {{"x0", "pinned"}, {"x1", "pinned"},

@@ -495,3 +495,65 @@ def test_cli_summary_states_the_schedule_totals(tmp_path):
     kg = float(line.split(" marks, ")[1].split(" kg")[0])
     assert kg == pytest.approx(d["total_mass_kg"], rel=1e-3)
     assert "Caution" in run.stdout
+
+
+def test_flat_free_edges_get_u_bars_and_edge_bars_between_the_columns():
+    """EN 1992-1-1 9.3.1.4, Figure 9.8 (value from memory): along a free
+    edge U-bars with legs 2h on each face and bars along the edge inside
+    the U, the slab's own bars serving. On a flat slab the edge, flush with
+    the edge columns, is free between them: each strip ending there gets
+    U-bars of its bottom bars over its width, the whole edge is covered,
+    and every bar stays inside the outline less the cover."""
+    r = armature.design(STUDIO_EN)
+    assert not any("not designed for flat slabs" in w for w in r["warnings"])
+    o = r["plate"]["outline_m"]
+    h = STUDIO_EN["slab"]["thickness_mm"]
+    edges = r["plate"]["free_edges"]
+    regions = {(g["where"], g["face"], g["direction"]): g for g in r["regions"]}
+    for name, (lo, hi), across in (("edge x0", (o["y0"], o["y1"]), "x"), ("edge x1", (o["y0"], o["y1"]), "x"),
+                                   ("edge y0", (o["x0"], o["x1"]), "y"), ("edge y1", (o["x0"], o["x1"]), "y")):
+        mine = sorted((f for f in edges if f["edge"] == name), key=lambda f: f["from_m"])
+        assert mine, name
+        # The whole edge, strip after strip.
+        assert mine[0]["from_m"] == pytest.approx(lo) and mine[-1]["to_m"] == pytest.approx(hi)
+        for a, b in zip(mine, mine[1:]):
+            assert b["from_m"] == pytest.approx(a["to_m"])
+        for f in mine:
+            g = regions[(f["bay"], "bottom", across)]
+            assert f["u_bar"] == g["bars"]["bar"] and f["u_bar_spacing_mm"] == g["bars"]["spacing_mm"]
+            assert f["u_bar_leg_mm"] == pytest.approx(2 * h)
+    d = r["detailing"]
+    c = max(r["cover_mm"].values()) / 1000
+    loops = [b for b in d["bars"] if b["where"].startswith("edge ") and b["shape"] == "U-bar"]
+    assert len(loops) == len(edges)
+    for b in loops:
+        f = next(f for f in edges if b["where"] == f["edge"] + ", " + f["bay"])
+        width = f["to_m"] - f["from_m"]
+        assert b["count"] == count_over(width, f["u_bar_spacing_mm"])
+        assert b["legs_mm"]["start"] >= 2 * h - c * 1000 - 1e-6
+        lo, hi = (o["x0"], o["x1"]) if b["direction"] == "x" else (o["y0"], o["y1"])
+        assert b["start_m"] >= lo + c - 1e-9 and b["end_m"] <= hi - c + 1e-9
+        assert min(b["end_m"] - lo, hi - b["start_m"]) <= (b["legs_mm"]["start"] / 1000 + c) + 1e-6
+    # One bar along each edge in each face, inside the outline less the cover.
+    for name in ("edge x0", "edge x1", "edge y0", "edge y1"):
+        along = [b for b in d["bars"] if b["where"] == name + ", edge bar"]
+        for face in ("bottom", "top"):
+            pieces = [b for b in along if b["face"] == face]
+            assert pieces, (name, face)
+            lo, hi = (o["y0"], o["y1"]) if name.startswith("edge x") else (o["x0"], o["x1"])
+            assert min(b["start_m"] for b in pieces) >= lo + c - 1e-9
+            assert max(b["end_m"] for b in pieces) <= hi - c + 1e-9
+            # Reaches within a 25 mm rounding of the cover at both corners (both crossing edges are free).
+            assert min(b["start_m"] for b in pieces) <= lo + c + 0.025 + 1e-9
+            assert max(b["end_m"] for b in pieces) >= hi - c - 0.025 - 1e-9
+    # The schedule carries them: mass = count × length × 0.00617 d² (common practice).
+    for row in d["schedule"]:
+        assert row["mass_kg"] == pytest.approx(row["count"] * row["length_mm"] / 1000 * UNIT_MASS * row["diameter_mm"] ** 2)
+
+
+def test_aci_flat_slab_has_no_free_edge_rule():
+    """ACI 318-19 sets no U-bar rule for a slab's free edge (value from
+    memory): none designed, none scheduled."""
+    r = armature.design(STUDIO_ACI)
+    assert r["plate"]["free_edges"] == []
+    assert not any(b["where"].startswith("edge ") for b in r["detailing"]["bars"])

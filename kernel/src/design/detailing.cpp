@@ -138,14 +138,6 @@ double shear_at(const std::vector<DiagramPoint>& pts, double x) {
   return pts.empty() ? 0.0 : V(pts.back());
 }
 
-// The region of a plate by its name, face and the direction of its bars.
-const RegionRecord* plate_region(const std::vector<RegionRecord>& regions, const std::string& where, Face face,
-                                 BarDirection dir) {
-  for (const auto& r : regions)
-    if (r.where == where && r.face == face && r.direction == dir) return &r;
-  return nullptr;
-}
-
 // The plan position of a plate's outer edge ("edge x0", "edge y1") and
 // whether it lies at x (bars across it run in x).
 struct OuterEdge {
@@ -155,6 +147,7 @@ struct OuterEdge {
 OuterEdge outer_edge(const PlateRecord& plate, const std::string& edge) {
   const bool x_edge = edge.find(" x") != std::string::npos;
   const bool high = edge.back() == '1';
+  if (plate.flat) return {x_edge, plate.outline_mm[(x_edge ? 0 : 2) + (high ? 1 : 0)]};  // flush with the columns
   const auto& lines = x_edge ? plate.x_lines_mm : plate.y_lines_mm;
   return {x_edge, high ? lines.back() : lines.front()};
 }
@@ -1257,10 +1250,13 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
     const PlateFreeEdgeRecord& f = *edge_bar[edge];
     const auto [x_edge, pos] = outer_edge(plate, edge);
     const double area = std::numbers::pi * f.edge_bar_diameter_mm * f.edge_bar_diameter_mm / 4.0;
-    // At a crossing edge that is free too the bar stops at it less the cover.
-    const EndSupport cross_lo = plate.edges[x_edge ? 2 : 0], cross_hi = plate.edges[x_edge ? 3 : 1];
-    const double lo_edge = x_edge ? plate.y_lines_mm.front() : plate.x_lines_mm.front();
-    const double hi_edge = x_edge ? plate.y_lines_mm.back() : plate.x_lines_mm.back();
+    // At a crossing edge that is free too (a flat slab's on columns) the
+    // bar stops at it less the cover.
+    const std::size_t k_lo = x_edge ? 2 : 0, k_hi = x_edge ? 3 : 1;
+    const bool free_lo = plate.edges[k_lo] == EndSupport::free || (plate.flat && plate.column_edges[k_lo]);
+    const bool free_hi = plate.edges[k_hi] == EndSupport::free || (plate.flat && plate.column_edges[k_hi]);
+    const double lo_edge = plate.flat ? plate.outline_mm[k_lo] : x_edge ? plate.y_lines_mm.front() : plate.x_lines_mm.front();
+    const double hi_edge = plate.flat ? plate.outline_mm[k_hi] : x_edge ? plate.y_lines_mm.back() : plate.x_lines_mm.back();
     for (const Face face : {Face::bottom, Face::top}) {
       Run e;
       e.where = edge + ", edge bar";
@@ -1268,8 +1264,8 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
       e.bars = BarChoice{f.edge_bar, f.edge_bar_diameter_mm, 0.0, area};
       e.start = extent.first;
       e.end = extent.second;
-      if (cross_lo == EndSupport::free && extent.first <= lo_edge + 1e-6) e.start = lo_edge + c, e.start_fixed = true;
-      if (cross_hi == EndSupport::free && extent.second >= hi_edge - 1e-6) e.end = hi_edge - c, e.end_fixed = true;
+      if (free_lo && extent.first <= lo_edge + 1e-6) e.start = lo_edge + c, e.start_fixed = true;
+      if (free_hi && extent.second >= hi_edge - 1e-6) e.end = hi_edge - c, e.end_fixed = true;
       e.clause = f.clause;
       e.strip = -1;
       e.direction = x_edge ? BarDirection::y : BarDirection::x;  // along the edge
@@ -1291,6 +1287,13 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
 }
 
 }  // namespace
+
+const RegionRecord* plate_region(const std::vector<RegionRecord>& regions, const std::string& where, Face face,
+                                 BarDirection dir) {
+  for (const auto& r : regions)
+    if (r.where == where && r.face == face && r.direction == dir) return &r;
+  return nullptr;
+}
 
 DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
                              const DesignRecord& rec, const std::vector<std::vector<DiagramPoint>>& envelope) {
@@ -1486,6 +1489,8 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
   detailer.runs.erase(std::remove_if(detailer.runs.begin(), detailer.runs.end(),
                                      [](const Run& r) { return !r.distribution && !r.edge_loop && r.count <= 0; }),
                       detailer.runs.end());
+  // The free edges between the edge columns: U-bars and edge bars.
+  detailer.add_free_edge_bars(plate, rec.regions);
   detailer.finish();
   const auto& o = plate.outline_mm;
   out.mass_per_area_kg_m2 = out.total_mass_kg / ((o[1] - o[0]) * (o[3] - o[2]) * 1e-6);

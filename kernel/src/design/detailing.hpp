@@ -25,6 +25,11 @@ DetailingRecord detail_strip(const DetailingRules& rules, const CodeIdentity& co
 DetailingRecord detail_plate(const DetailingRules& rules, const CodeIdentity& code, const Request& req,
                              const DesignRecord& rec, const PlateRecord& plate);
 
+// The region of a plate by its name, face and the direction of its bars
+// (null: none).
+const RegionRecord* plate_region(const std::vector<RegionRecord>& regions, const std::string& where, Face face,
+                                 BarDirection dir);
+
 // The code's detailing rules (an InputError naming `detailing` where the
 // code gives none).
 const DetailingRules& detailing_rules_of(const SlabChecker& checker, const CodeIdentity& code);

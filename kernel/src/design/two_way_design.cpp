@@ -63,6 +63,56 @@ std::vector<PlateFreeEdgeRecord> free_edge_bars(const PlateRecord& p, const std:
   return out;
 }
 
+// A flat slab's free edges between its edge columns (FreeEdgeRule), strip
+// by strip: the U-bars of each design strip ending at the edge (column and
+// middle strips alike) are its bottom bars of the end span, over the
+// strip's width there; the bars along the edge inside the U are the
+// largest bottom bars of the column strip along that edge.
+std::vector<PlateFreeEdgeRecord> flat_free_edge_bars(const PlateRecord& p, const std::vector<RegionRecord>& regions,
+                                                     const Request& req, const FreeEdgeRule& rule) {
+  std::vector<PlateFreeEdgeRecord> out;
+  const char* names[4] = {"edge x0", "edge x1", "edge y0", "edge y1"};
+  const std::size_t nx = p.x_lines_mm.size() - 1, ny = p.y_lines_mm.size() - 1;
+  for (std::size_t e = 0; e < 4; ++e) {
+    if (!p.column_edges[e]) continue;
+    const bool across_x = e < 2;  // edges x0, x1 run along y: the bars across them run in x
+    const BarDirection across = across_x ? BarDirection::x : BarDirection::y;
+    const std::size_t end_span = (e == 0 || e == 2) ? 1 : (across_x ? nx : ny);
+    const std::string along_strip =
+        "column strip " + std::string(across_x ? "x" : "y") +
+        std::to_string(e == 0 || e == 2 ? std::size_t{0} : (across_x ? nx : ny)) + " span ";
+    const RegionRecord* edge_bar = nullptr;
+    for (const auto& g : regions)
+      if (g.face == Face::bottom && g.direction != across && g.where.rfind(along_strip, 0) == 0 &&
+          (!edge_bar || g.bars.diameter_mm > edge_bar->bars.diameter_mm))
+        edge_bar = &g;
+    const double lo = across_x ? p.outline_mm[2] : p.outline_mm[0], hi = across_x ? p.outline_mm[3] : p.outline_mm[1];
+    for (const auto& strip : p.strips) {
+      if (strip.direction != across || strip.pieces.size() < end_span) continue;
+      const auto& piece = strip.pieces[end_span - 1];
+      const RegionRecord* g = plate_region(regions, strip.name + " span " + std::to_string(end_span), Face::bottom, across);
+      if (!g) continue;
+      PlateFreeEdgeRecord f;
+      f.edge = names[e];
+      f.bay = g->where;
+      f.from_mm = std::max(lo, across_x ? piece[2] : piece[0]);
+      f.to_mm = std::min(hi, across_x ? piece[3] : piece[1]);
+      f.leg_mm = rule.u_bar_leg_over_h * req.slab.thickness_mm;
+      f.clause = rule.clause;
+      f.u_bar = g->bars.bar;
+      f.u_bar_diameter_mm = g->bars.diameter_mm;
+      f.u_bar_spacing_mm = g->bars.spacing_mm;
+      f.u_bar_area_mm2 = g->bars.As_prov_mm2;
+      if (edge_bar) {
+        f.edge_bar = edge_bar->bars.bar;
+        f.edge_bar_diameter_mm = edge_bar->bars.diameter_mm;
+      }
+      if (f.to_mm > f.from_mm) out.push_back(std::move(f));
+    }
+  }
+  return out;
+}
+
 // The column strip's top region over a column, bars in x or y.
 std::string column_strip_at(const FlatColumn& col, bool bars_x) {
   return bars_x ? "column strip y" + std::to_string(col.j) + " at x" + std::to_string(col.i)
@@ -383,10 +433,6 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
     if (walls_meet && !call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); }).clause.empty())
       rec.warnings.push_back("two walls meet at a corner of the slab: the corner bars against torsion of the "
                              "two-way rules are not designed for flat slabs yet; provide them as for a slab on walls");
-    const bool free_edge = e[0] || e[1] || e[2] || e[3];
-    if (free_edge && !call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); }).clause.empty())
-      rec.warnings.push_back("the slab's edges on columns are free between the columns: the code's free-edge bars "
-                             "(U-bars) are not designed for flat slabs yet; provide them");
   } else {
     const CornerRule corners = call_code(rec.code, "corner rule", [&] { return member_rules.corner_rule(); });
     demands = plate.design_regions(fraction, corners, rec.warnings);
@@ -514,6 +560,10 @@ DesignRecord design_plate(const SlabChecker& checker, CodeIdentity id, const Req
       plate_record.bands.push_back(std::move(transfer_band));
     }
     plate_record.transfers = std::move(transfers);
+    const FreeEdgeRule free_rule =
+        call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });
+    if (!free_rule.clause.empty())
+      plate_record.free_edges = flat_free_edge_bars(plate_record, rec.regions, req, free_rule);
   } else {
     const FreeEdgeRule free_rule =
         call_code(rec.code, "free-edge rule", [&] { return member_rules.free_edge_rule(); });

@@ -628,7 +628,7 @@ std::string free_edge_text(const DesignRecord& r) {
   for (const auto& f : p.free_edges)
     t += (t.empty() ? "" : " ") + f.edge + " of " + f.bay + ": U-bars " +
          bar_arrangement(f.u_bar, u.length_v(f.u_bar_spacing_mm), u.length_u()) +
-         " (the bay's bottom bars across the edge, bent up), legs " + u.length(f.leg_mm) +
+         " (the bottom bars across the edge there, bent up), legs " + u.length(f.leg_mm) +
          " on each face; bar " + f.edge_bar + " along the edge in each face inside the U (" + f.clause + ").";
   if (t.empty() && !p.flat && std::find(p.edges.begin(), p.edges.end(), EndSupport::free) != p.edges.end())
     t = "The code sets no reinforcement rule of its own for a free edge: the bars as designed.";

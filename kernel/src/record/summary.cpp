@@ -169,11 +169,21 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
        r.governing_check + ", " + r.governing_where + ")\n";
   o += detailing_line(r);
   if (r.plate) {
-    for (const auto& f : r.plate->free_edges)
-      o += "Free edge  " + f.edge + " of " + f.bay + ": U-bars " +
-           bar_arrangement(f.u_bar, u.us ? f.u_bar_spacing_mm / mm_per_in : f.u_bar_spacing_mm, u.us ? "in" : "mm") +
-           " (the bay's bars across it), legs " + (u.us ? plain_number(f.leg_mm / mm_per_in) + " in" : plain_number(f.leg_mm) + " mm") +
-           " on each face; bar " + f.edge_bar + " along the edge in each face inside the U (" + f.clause + ")\n";
+    // One line per edge: the U-bars of each bay or strip along it.
+    for (std::size_t i = 0; i < r.plate->free_edges.size(); ++i) {
+      const auto& f = r.plate->free_edges[i];
+      if (i > 0 && r.plate->free_edges[i - 1].edge == f.edge) continue;
+      std::string arrangements;
+      for (std::size_t k = i; k < r.plate->free_edges.size() && r.plate->free_edges[k].edge == f.edge; ++k) {
+        const auto& g = r.plate->free_edges[k];
+        const std::string a =
+            bar_arrangement(g.u_bar, u.us ? g.u_bar_spacing_mm / mm_per_in : g.u_bar_spacing_mm, u.us ? "in" : "mm");
+        arrangements += (arrangements.empty() ? "" : ", ") + a + " (" + g.bay + ")";
+      }
+      o += "Free edge  " + f.edge + ": U-bars " + arrangements + ", the bottom bars across it, legs " +
+           (u.us ? plain_number(f.leg_mm / mm_per_in) + " in" : plain_number(f.leg_mm) + " mm") + " on each face; bar " +
+           f.edge_bar + " along the edge in each face inside the U (" + f.clause + ")\n";
+    }
     const bool free = std::find(r.plate->edges.begin(), r.plate->edges.end(), EndSupport::free) != r.plate->edges.end();
     if (!r.plate->integrity.empty()) o += "Detailing  " + r.plate->integrity + "\n";
     if (!r.plate->top_extents.empty())
