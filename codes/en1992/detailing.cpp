@@ -4,6 +4,7 @@
 // bend (8.3, 8.4.4(2)) where a straight anchorage does not fit, each with
 // its steps.
 #include <algorithm>
+#include <numbers>
 #include <string>
 
 #include "checker.hpp"
@@ -180,9 +181,26 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   const double ext = standard_bend_extension(phi);
   st.add("extension", "5 φ past the bend (90° standard bend)", "5 × " + num(phi), ext, "mm",
          "EN 1992-1-1 Figure 8.1 b (value from memory)");
+  // 8.3(3): a bar anchored by more than 5φ past the end of its bend (a leg
+  // lengthened to anchor it along the centreline) needs the mandrel of
+  // (8.1) against crushing inside the bend; Fbt = As σsd, the whole force
+  // at the start of the bend (no bond credited before it), ab = s/2 (the
+  // bars side by side across the slab).
+  const double area = std::numbers::pi * phi * phi / 4.0;
+  const double Fbt = area * sigma;
+  st.add("Fbt", "As σsd of one bar at the start of the bend (where the leg anchors more than 5 φ past it)",
+         num(area) + " × " + num(sigma), Fbt * 1e-3, "kN", "EN 1992-1-1 8.3(3)");
+  const double ab = bar.spacing_mm / 2.0;
+  st.add("ab", "half the bars' centre-to-centre spacing, perpendicular to the plane of the bend",
+         num(bar.spacing_mm) + "/2", ab, "mm", "EN 1992-1-1 8.3(3)");
+  const double phi_m_bearing = std::max(phi_m, bend_bearing_mandrel_diameter(Fbt, ab, phi, m_.fcd));
+  st.add("φm,min (8.1)", "Fbt (1/ab + 1/(2φ)) / fcd, not less than Table 8.1N's",
+         num(Fbt) + " × (1/" + num(ab) + " + 1/(2 × " + num(phi) + ")) / " + num(m_.fcd), phi_m_bearing, "mm",
+         "EN 1992-1-1 8.3(3) (8.1) (value from memory)");
   DetailLength out{lb_eq, "EN 1992-1-1 8.3, 8.4.4(2)", st.take()};
   out.bend_diameter_mm = phi_m;
   out.extension_mm = ext;
+  out.long_leg_bend_diameter_mm = phi_m_bearing;
   // Figure 8.1 a: lb (here lbd = α1 lb,rqd ≥ lb,min, the same length) may
   // be measured along the bar's centreline for any shape: a longer leg
   // counts where the bend measured to its outside falls short.

@@ -595,6 +595,10 @@ double equivalent_anchorage_length_bent(double alpha1, double lb_rqd) { return a
 
 double standard_bend_extension(double phi) { return 5.0 * phi; }
 
+double bend_bearing_mandrel_diameter(double Fbt, double ab, double phi, double fcd) {
+  return Fbt * (1.0 / ab + 1.0 / (2.0 * phi)) / fcd;
+}
+
 // Table 5.8 columns 4 (ly/lx ≤ 1.5) and 5 (1.5 < ly/lx ≤ 2), REI 30 to 240.
 int fire_two_way_column(double ly_over_lx) { return ly_over_lx <= 1.5 ? 4 : ly_over_lx <= 2.0 ? 5 : 3; }
 double fire_min_axis_distance_two_way(int minutes, double ly_over_lx) {

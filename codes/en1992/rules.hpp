@@ -134,6 +134,12 @@ double equivalent_anchorage_length_bent(double alpha1, double lb_rqd);
 // Figure 8.1 b (value from memory): the straight extension past a
 // standard bend, 5 φ.
 double standard_bend_extension(double phi);
+// 8.3(3) (8.1) (value from memory): the least mandrel diameter against
+// failure of the concrete inside the bend, φm,min = Fbt (1/ab + 1/(2φ)) /
+// fcd, Fbt (N) the bar's force at the start of the bend, ab (mm) half the
+// centre-to-centre spacing of the bars perpendicular to the plane of the
+// bend (cover + φ/2 next to a face), fcd (MPa).
+double bend_bearing_mandrel_diameter(double Fbt, double ab, double phi, double fcd);
 
 // ---- Crack control (EN 1992-1-1 7.3) --------------------------------------
 bool crack_check_needed(double h);  // 7.3.3(1): none for h ≤ 200 mm

@@ -5,6 +5,7 @@ code's standard bend where the straight length does not fit; ACI 318-19
 scenarios: a store room on walls, a plant platform carrying a wall."""
 import copy
 import math
+import re
 
 import pytest
 
@@ -340,20 +341,30 @@ def test_en_top_bars_at_a_built_in_end_get_a_leg_long_enough_along_the_centrelin
     bar's centreline (EN 1992-1-1 8.4.4(1), Figure 8.1 a: any shape), the
     leg down into the wall is lengthened until the straight part to the
     bend, the bend's arc and the leg's straight part make lbd (hand
-    evaluation of the geometry; mandrel 4φ for φ ≤ 16 mm, Table 8.1N,
-    value from memory)."""
+    evaluation of the geometry). The leg anchors more than 5φ past the
+    bend, so the mandrel is that of 8.3(3) (8.1) against crushing inside
+    the bend, φm ≥ Fbt (1/ab + 1/(2φ))/fcd with Fbt = As σsd (σsd = fyd
+    As,req/As,prov, 8.4.3(2)), ab = s/2, fcd = 30/1.5 (values from memory;
+    at least 4φ, Table 8.1N), and a warning asks for it on the schedule."""
     r = armature.design(strip([5.0, 5.0], ["fixed", "fixed"], 300, widths=[200, 300, 200],
                               loads={"dead_kPa": 2.0, "imposed_kPa": 10.0}))
     assert r["status"] == "pass"
     c = r["cover_mm"]["top"]
     t = bar(r, "support 1", "top")
-    phi = t["diameter_mm"]
-    D = 4 * phi if phi <= 16 else 7 * phi
+    g = next(g for g in r["regions"] if g["where"] == "support 1" and g["face"] == "top")
+    phi, s = t["diameter_mm"], t["spacing_mm"]
     need = derivation(r, "support 1, top", "hooked anchorage (start)")["length_mm"]
+    sigma = 500 / 1.15 * g["As_req_mm2"] / g["bars"]["As_prov_mm2"]
+    Fbt = math.pi * phi ** 2 / 4 * sigma
+    D = max(4 * phi, Fbt * (1 / (s / 2) + 1 / (2 * phi)) / (30 / 1.5))
+    assert D > 4 * phi
     l1 = 200 - c - phi - D / 2
     arc = math.pi / 2 * (D / 2 + phi / 2)
     l2 = need - l1 - arc
     assert l2 > 5 * phi  # longer than the standard bend's extension
+    said = [re.search(r"inside diameter is ([0-9.]+) mm", w) for w in r["warnings"] if w.startswith("support 1, top")]
+    said = [float(m.group(1)) for m in said if m]
+    assert len(said) == 1 and said[0] == pytest.approx(D, rel=1e-3)
     assert t["shape"] == "L-bar"
     assert t["legs_mm"]["start"] == pytest.approx(D / 2 + phi + l2)
     assert t["anchorage_mm"]["start"] == pytest.approx(need)

@@ -544,6 +544,10 @@ struct DetailLength {
   // longer than the extension counts where the bend measured to its
   // outside falls short), the clause that says so; empty where it does not.
   std::string centreline_clause{};
+  // ... and the least inside diameter of that bend where the leg must
+  // anchor more than the extension past it (the concrete inside the bend
+  // then bears the bar's force; 0: the bend's own).
+  double long_leg_bend_diameter_mm = 0.0;
 };
 
 // A limit the code sets on a bar where the code asks it (met or not), with

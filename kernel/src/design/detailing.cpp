@@ -330,16 +330,34 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     // as the slab's depth allows (a top bar's leg into a built-in end's
     // wall: as far as needed).
     if (!anchored && !hook.centreline_clause.empty()) {
-      const double D = hook.bend_diameter_mm;
+      // The leg's straight part past a bend of inside diameter D.
+      auto straight_leg = [&](double D) {
+        const double l1 = provided - phi - D / 2.0;
+        return hook.length_mm - l1 - std::numbers::pi / 2.0 * (D / 2.0 + phi / 2.0);
+      };
+      // A leg anchoring more than the extension past the bend: the code's
+      // larger mandrel against crushing inside it (EN 8.3(3)).
+      double D = hook.bend_diameter_mm;
+      const bool bearing = straight_leg(D) > hook.extension_mm + 1e-6 && hook.long_leg_bend_diameter_mm > D;
+      if (bearing) D = hook.long_leg_bend_diameter_mm;
       const double R = D / 2.0 + phi / 2.0;
       const double l1 = provided - phi - D / 2.0;
       const double arc = std::numbers::pi / 2.0 * R;
-      const double l2 = std::max(hook.extension_mm, hook.length_mm - l1 - arc);
+      const double l2 = std::max(hook.extension_mm, straight_leg(D));
       const double l2_room = leg_in_slab ? room - R - phi / 2.0 : std::numeric_limits<double>::infinity();
       if (l1 >= 0.0 && l2 <= l2_room + 1e-6) {
         capacity = l1 + arc + l2;
         leg = D / 2.0 + phi + l2;
         anchored = capacity >= hook.length_mm - 1e-6;
+        if (bearing) {
+          bend.steps.push_back({"D", "the mandrel against crushing inside the bend (above): the leg anchors more than "
+                                     "the extension past it",
+                                "", u_.length_v(D), length_u, hook.clause});
+          out.notes.push_back(label + ": at " + support_label(j) + " the bend's inside diameter is " +
+                              plain_number(D) + " mm (" + plain_number(D / phi) +
+                              " φ), more than the standard, against crushing inside the bend (" + hook.clause +
+                              "): state it on the bar schedule");
+        }
         bend.steps.push_back({"R", "D/2 + φ/2: the bend's radius to the bar's centreline",
                               u_.length(D) + "/2 + " + u_.length(phi) + "/2", u_.length_v(R), length_u, ""});
         bend.steps.push_back({"l1", "lb,prov − φ − D/2: straight, to where the bend starts",
