@@ -91,6 +91,7 @@ class Checker final : public SlabChecker,
   DetailLength lap(const BarDetailDemand& bar) const override;
   DetailLength end_top_bar_extent(const BarDetailDemand& bar, double span_mm) const override;
   DetailLength hooked_anchorage(const BarDetailDemand& bar) const override;
+  ContinuousTopRule fire_continuous_top(int minutes) const override;
 
   // plugin.cpp
   LoadBasis load_basis() const override;

@@ -208,6 +208,12 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   return out;
 }
 
+ContinuousTopRule Checker::fire_continuous_top(int minutes) const {
+  const double share = fire_continuous_top_share(minutes);
+  if (share <= 0.0) return {};
+  return {share, "EN 1992-1-2 5.7.4(2)"};
+}
+
 DetailLength Checker::lap(const BarDetailDemand& bar) const {
   Steps st;
   st.add("σsd", "fyd (the bar at its design strength)", "", m_.fyd, "MPa", "EN 1992-1-1 8.4.3(2)");

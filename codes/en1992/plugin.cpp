@@ -105,11 +105,13 @@ std::vector<std::string> Checker::warnings() const {
                   "(EN 1992-1-1 7.4.2) alone, which does not check the part after the partitions are built "
                   "(7.4.1(5), span/500): give serviceability.deflection \"calculated\" or \"both\"");
   // A flat slab in fire: Table 5.9 holds only with the top steel that
-  // 5.7.4(2) asks for, which armature does not detail.
-  if (req_.fire.resistance_min && req_.slab_type == SlabType::flat)
+  // 5.7.4(2) asks for from REI 90, which the detailing provides (bars of
+  // their own in the column strips); without detailing, said.
+  if (req_.fire.resistance_min && req_.slab_type == SlabType::flat && !req_.detailing.requested &&
+      fire_continuous_top_share(*req_.fire.resistance_min) > 0.0)
     out.push_back("EN 1992-1-2 5.7.4(2): for the fire resistance of Table 5.9, at least 20 % of the top "
                   "reinforcement over the intermediate supports in each direction must run continuous over the whole "
-                  "span, in the column strip; not detailed here: make sure the drawings do");
+                  "span, in the column strip; ask for detailing to have these bars, or make sure the drawings do");
   {
     const std::lock_guard<std::mutex> lock(span_depth_notes_mutex_);
     for (const auto& [where, note] : span_depth_notes_) out.push_back(note);

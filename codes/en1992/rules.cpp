@@ -595,6 +595,8 @@ double equivalent_anchorage_length_bent(double alpha1, double lb_rqd) { return a
 
 double standard_bend_extension(double phi) { return 5.0 * phi; }
 
+double fire_continuous_top_share(int minutes) { return minutes >= 90 ? 0.2 : 0.0; }
+
 double bend_bearing_mandrel_diameter(double Fbt, double ab, double phi, double fcd) {
   return Fbt * (1.0 / ab + 1.0 / (2.0 * phi)) / fcd;
 }

@@ -140,6 +140,11 @@ double standard_bend_extension(double phi);
 // centre-to-centre spacing of the bars perpendicular to the plane of the
 // bend (cover + φ/2 next to a face), fcd (MPa).
 double bend_bearing_mandrel_diameter(double Fbt, double ab, double phi, double fcd);
+// EN 1992-1-2 5.7.4(2) (value from memory): in a flat slab of fire
+// resistance REI 90 and above, at least 20 % of the top reinforcement in
+// each direction over the intermediate supports runs continuous over the
+// full span, in the column strip; below REI 90, none (0).
+double fire_continuous_top_share(int minutes);
 
 // ---- Crack control (EN 1992-1-1 7.3) --------------------------------------
 bool crack_check_needed(double h);  // 7.3.3(1): none for h ≤ 200 mm

@@ -557,3 +557,84 @@ def test_aci_flat_slab_has_no_free_edge_rule():
     r = armature.design(STUDIO_ACI)
     assert r["plate"]["free_edges"] == []
     assert not any(b["where"].startswith("edge ") for b in r["detailing"]["bars"])
+
+
+def top_over_line_by_hand(r, strip, k):
+    """The top steel over interior line k that falls to a column strip
+    (mm²): its own bars over its width there, a band's more within the
+    band's width, half of each neighbouring middle strip's."""
+    p = r["plate"]
+    axis = "x" if strip["direction"] == "x" else "y"
+    lohi = ("y0_m", "y1_m") if axis == "x" else ("x0_m", "x1_m")
+    regions = {(g["where"], g["face"], g["direction"]): g for g in r["regions"]}
+
+    def width(s):
+        a, b = s["spans"][k - 1], s["spans"][k]
+        return min(a[lohi[0]], b[lohi[0]]), max(a[lohi[1]], b[lohi[1]])
+
+    lo, hi = width(strip)
+    own = regions[("%s at %s%d" % (strip["name"], axis, k), "top", axis)]["bars"]["As_prov_mm2"]
+    total = own * (hi - lo)
+    line = p["x_lines_m" if axis == "x" else "y_lines_m"][k]
+    for band in p["bands"]:
+        if band["direction"] != axis:
+            continue
+        q = band
+        at = q["x0_m"] if axis == "x" else q["y0_m"]
+        b0, b1 = q[lohi[0]], q[lohi[1]]
+        if abs(at - line) < 1e-3 and b0 >= lo - 1e-3 and b1 <= hi + 1e-3:
+            total += (regions[(band["name"], "top", axis)]["bars"]["As_prov_mm2"] - own) * (b1 - b0)
+    for m in p["strips"]:
+        if m["kind"] != "middle" or m["direction"] != axis:
+            continue
+        m0, m1 = width(m)
+        if abs(m1 - lo) < 1e-3 or abs(m0 - hi) < 1e-3:
+            total += regions[("%s at %s%d" % (m["name"], axis, k), "top", axis)]["bars"]["As_prov_mm2"] * (m1 - m0) / 2
+    return total
+
+
+def test_en_flat_slab_in_fire_gets_continuous_top_bars_in_its_column_strips():
+    """EN 1992-1-2 5.7.4(2) (value from memory): from REI 90, at least 20 %
+    of the top reinforcement over the intermediate supports, in each
+    direction, continuous over the full span, in the column strip. Each
+    column strip gets bars of its own from the slab's end to its other end
+    less the cover, as many of its largest top bar as 20 % of the largest
+    interior line's top steel needs (counted here from the regions and the
+    plate's strips), at least two."""
+    req = copy.deepcopy(STUDIO_EN)
+    req["fire"] = {"resistance_min": 90}
+    r = armature.design(req)
+    assert not any("5.7.4(2)" in w for w in r["warnings"])
+    p, d = r["plate"], r["detailing"]
+    o = p["outline_m"]
+    c = r["cover_mm"]["top"] / 1000
+    for strip in (s for s in p["strips"] if s["kind"] == "column"):
+        axis = strip["direction"]
+        n = len(p["x_lines_m" if axis == "x" else "y_lines_m"]) - 1
+        need = 0.2 * max(top_over_line_by_hand(r, strip, k) for k in range(1, n))
+        bars = [b for b in d["bars"] if b["where"] == strip["name"] + ", fire continuity"]
+        assert bars, strip["name"]
+        phi = bars[0]["diameter_mm"]
+        tops = [g for g in r["regions"] if g["face"] == "top" and g["direction"] == axis
+                and g["where"].startswith(strip["name"] + " at ") and not g["where"].endswith(("0", str(n)))]
+        assert phi == max(g["bars"]["diameter_mm"] for g in tops)
+        count = max(2, math.ceil(need / (math.pi * phi ** 2 / 4) - 1e-9))
+        (deriv,) = [x for x in d["derivations"] if x["where"] == strip["name"] + ", fire continuity"]
+        assert deriv["length_mm"] == pytest.approx(need, rel=1e-9) and deriv["clause"] == "EN 1992-1-2 5.7.4(2)"
+        # Every bar across the strip is continuous from end to end: the pieces of
+        # each lapped set cover the whole length, and the sets hold `count` bars.
+        lo, hi = (o["x0"], o["x1"]) if axis == "x" else (o["y0"], o["y1"])
+        assert min(b["start_m"] for b in bars) == pytest.approx(lo + c, abs=0.025 + 1e-9)
+        assert max(b["end_m"] for b in bars) == pytest.approx(hi - c, abs=0.025 + 1e-9)
+        assert all(b["start_m"] >= lo + c - 1e-9 and b["end_m"] <= hi - c + 1e-9 for b in bars)
+        firsts = [b for b in bars if b["start_m"] == pytest.approx(min(x["start_m"] for x in bars))]
+        assert sum(b["count"] for b in firsts) == count
+    # Below REI 90 the clause asks nothing.
+    req["fire"]["resistance_min"] = 60
+    r60 = armature.design(req)
+    assert not any(b["where"].endswith("fire continuity") for b in r60["detailing"]["bars"])
+    # Without detailing the design says what the drawings must show.
+    plain = copy.deepcopy(STUDIO_EN)
+    plain["fire"] = {"resistance_min": 90}
+    del plain["detailing"]
+    assert any("5.7.4(2)" in w for w in armature.design(plain)["warnings"])

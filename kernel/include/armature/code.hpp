@@ -550,6 +550,13 @@ struct DetailLength {
   double long_leg_bend_diameter_mm = 0.0;
 };
 
+// A share of a slab's top reinforcement the code asks to run continuous
+// (share 0: none), with its clause.
+struct ContinuousTopRule {
+  double share = 0.0;
+  std::string clause{};
+};
+
 // A limit the code sets on a bar where the code asks it (met or not), with
 // its derivation; `applies` false where the code sets none.
 struct DetailLimit {
@@ -608,6 +615,11 @@ class DetailingRules {
   // zero (a simple support or a point of inflection), bar.V_Ed_N the
   // shear there; none (applies false) by default.
   virtual DetailLimit zero_moment_development(const BarDetailDemand&, const ZeroMomentSite&) const { return {}; }
+  // A flat slab of fire resistance `minutes`: the share of the top
+  // reinforcement over the intermediate supports, in each direction, that
+  // runs continuous over the whole span, placed in the column strips;
+  // none by default.
+  virtual ContinuousTopRule fire_continuous_top(int /*minutes*/) const { return {}; }
 };
 
 class ForwardingDetailingRules : public DetailingRules {
@@ -629,6 +641,7 @@ class ForwardingDetailingRules : public DetailingRules {
   DetailLimit zero_moment_development(const BarDetailDemand& bar, const ZeroMomentSite& site) const override {
     return inner_->zero_moment_development(bar, site);
   }
+  ContinuousTopRule fire_continuous_top(int minutes) const override { return inner_->fire_continuous_top(minutes); }
 
  protected:
   const DetailingRules& inner() const { return *inner_; }

@@ -20,7 +20,7 @@ namespace armature {
 
 // Bump whenever anything in code.hpp, record.hpp, request.hpp or this file
 // changes layout or meaning.
-inline constexpr std::uint32_t plugin_abi_version = 11;
+inline constexpr std::uint32_t plugin_abi_version = 12;
 
 struct PluginContext {
   std::filesystem::path plugin_file;                 // the .so being loaded

@@ -194,6 +194,7 @@ class Detailer {
   void add_strip(const StripLayout& L, const std::vector<std::vector<DiagramPoint>>& envelope);
   void add_corner_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions);
   void add_free_edge_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions);
+  void add_fire_continuity(const PlateRecord& plate, const std::vector<RegionRecord>& regions, int minutes);
   // Laps, marks, the schedule and the total mass.
   void finish();
 
@@ -1217,6 +1218,116 @@ void Detailer::add_corner_bars(const PlateRecord& plate, const std::vector<Regio
 // stands across the depth between the covers) and, per edge, one bar in
 // each face inside the U along the whole free edge, lapped where longer
 // than the stock.
+// A flat slab in fire (the code's ContinuousTopRule): in each column strip
+// bars of their own run the strip's whole length, from the slab's end to
+// its other end less the cover, with the code's share of the top
+// reinforcement over the intermediate supports that falls to the strip:
+// at each interior column line the strip's top bars over its width (a
+// band's within the band's width, in place of the strip's) and half of
+// each neighbouring middle strip's; the largest line governs. The
+// strip's largest top bar at those lines, as many as the area needs (at
+// least two), spread over the strip's narrowest width. Their area is not
+// taken off the hogging bars (on the safe side).
+void Detailer::add_fire_continuity(const PlateRecord& plate, const std::vector<RegionRecord>& regions, int minutes) {
+  const ContinuousTopRule rule = ask("detailing fire continuity", "the slab", [&] { return rules.fire_continuous_top(minutes); });
+  if (rule.share <= 0.0) return;
+  for (const auto& s : plate.strips) {
+    if (!s.column || s.pieces.empty()) continue;
+    const bool in_x = s.direction == BarDirection::x;
+    const std::string axis = in_x ? "x" : "y";
+    const std::vector<double>& along = in_x ? plate.x_lines_mm : plate.y_lines_mm;
+    const std::size_t n = along.size() - 1;
+    if (n < 2 || s.pieces.size() != n) continue;  // no intermediate support
+    auto across = [&](const std::array<double, 4>& p) {
+      return in_x ? std::array<double, 2>{p[2], p[3]} : std::array<double, 2>{p[0], p[1]};
+    };
+    // A line's width across: the union of its two spans' widths.
+    auto width_at_line = [](const std::array<double, 2>& a, const std::array<double, 2>& b) {
+      return std::array<double, 2>{std::min(a[0], b[0]), std::max(a[1], b[1])};
+    };
+    double lo = -std::numeric_limits<double>::infinity(), hi = std::numeric_limits<double>::infinity();
+    for (const auto& piece : s.pieces) {
+      const auto a = across(piece);
+      lo = std::max(lo, a[0]);
+      hi = std::min(hi, a[1]);
+    }
+    if (!(hi > lo)) continue;
+    std::vector<Step> st;
+    const std::string area_u = u_.area_u();
+    double need = 0.0;
+    const RegionRecord* largest = nullptr;
+    for (std::size_t k = 1; k < n; ++k) {
+      const std::string line = s.name + " at " + axis + std::to_string(k);
+      const RegionRecord* own = plate_region(regions, line, Face::top, s.direction);
+      if (!own) continue;
+      const auto w = width_at_line(across(s.pieces[k - 1]), across(s.pieces[k]));
+      double total = own->bars.As_prov_mm2 * (w[1] - w[0]) / 1000.0;
+      std::string how = u_.area(total);
+      for (const auto& band : plate.bands) {
+        if (band.direction != s.direction || band.pieces.empty()) continue;
+        const auto& q = band.pieces.front();
+        const auto bw = across(q);
+        if (std::abs((in_x ? q[0] : q[2]) - along[k]) > 1.0 || bw[0] < w[0] - 1.0 || bw[1] > w[1] + 1.0) continue;
+        if (const RegionRecord* g = plate_region(regions, band.name, Face::top, s.direction)) {
+          const double extra = (g->bars.As_prov_mm2 - own->bars.As_prov_mm2) * (bw[1] - bw[0]) / 1000.0;
+          total += extra;
+          how += " + " + u_.area(extra);
+        }
+      }
+      for (const auto& m : plate.strips) {
+        if (m.column || m.direction != s.direction || m.pieces.size() != n) continue;
+        const auto mw = width_at_line(across(m.pieces[k - 1]), across(m.pieces[k]));
+        if (std::abs(mw[1] - w[0]) > 1.0 && std::abs(mw[0] - w[1]) > 1.0) continue;  // not a neighbour
+        if (const RegionRecord* g = plate_region(regions, m.name + " at " + axis + std::to_string(k), Face::top, s.direction)) {
+          const double half = g->bars.As_prov_mm2 * (mw[1] - mw[0]) / 2.0 / 1000.0;
+          total += half;
+          how += " + " + u_.area(half);
+        }
+      }
+      st.push_back({"As,top " + axis + std::to_string(k),
+                    "the top bars over line " + axis + std::to_string(k) +
+                        " that fall to the strip: its own over its width, a band's more within the band's, half of "
+                        "each neighbouring middle strip's",
+                    how, u_.area_v(total), area_u, ""});
+      need = std::max(need, rule.share * total);
+      if (!largest || own->bars.diameter_mm > largest->bars.diameter_mm) largest = own;
+    }
+    if (!largest || need <= 0.0) continue;
+    const double phi = largest->bars.diameter_mm;
+    const double area = std::numbers::pi * phi * phi / 4.0;
+    const int count = std::max(2, static_cast<int>(std::ceil(need / area - 1e-9)));
+    st.push_back({"As,cont", "share × the largest As,top of the interior lines",
+                  plain_number(rule.share) + " × max(As,top)", u_.area_v(need), area_u, rule.clause});
+    st.push_back({"n", "bars of the strip's largest top bar (" + largest->bars.bar + "): As,cont / (π φ²/4), at least 2",
+                  "⌈" + u_.area(need) + " / " + u_.area(area) + "⌉", static_cast<double>(count), "-", ""});
+    st.push_back({"b", "the strip's narrowest width, over which they are spread", "", u_.along_v(hi - lo),
+                  u_.along_u(), ""});
+    Run r;
+    r.where = s.name + ", fire continuity";
+    r.face = Face::top;
+    const double spacing = (hi - lo) / (count - 1);
+    r.bars = BarChoice{largest->bars.bar, phi, spacing, area * 1000.0 / spacing};
+    r.demand = demand_of(*largest);
+    r.demand.where = r.where;
+    r.demand.spacing_mm = spacing;
+    r.demand.As_prov_mm2 = r.bars.As_prov_mm2;
+    r.demand.As_req_mm2 = r.bars.As_prov_mm2;  // lapped for their full strength
+    const double c = cover(Face::top);
+    const double o_lo = plate.outline_mm[in_x ? 0 : 2], o_hi = plate.outline_mm[in_x ? 1 : 3];
+    r.start = r.lo_limit = o_lo + c;
+    r.end = r.hi_limit = o_hi - c;
+    r.start_fixed = r.end_fixed = true;
+    r.clause = rule.clause;
+    r.strip = -1;
+    r.direction = s.direction;
+    r.across_from = lo;
+    r.across_to = hi;
+    r.count = r.preset_count = count;
+    out.derivations.push_back({r.where, "continuous top bars for fire", DetailLength{need, rule.clause, std::move(st)}});
+    runs.push_back(std::move(r));
+  }
+}
+
 void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<RegionRecord>& regions) {
   const double c = std::max(cover(Face::top), cover(Face::bottom));
   const double body = thickness_ - cover(Face::top) - cover(Face::bottom);
@@ -1507,8 +1618,10 @@ DetailingRecord detail_flat(const DetailingRules& rules, const CodeIdentity& cod
   detailer.runs.erase(std::remove_if(detailer.runs.begin(), detailer.runs.end(),
                                      [](const Run& r) { return !r.distribution && !r.edge_loop && r.count <= 0; }),
                       detailer.runs.end());
-  // The free edges between the edge columns: U-bars and edge bars.
+  // The free edges between the edge columns: U-bars and edge bars; the
+  // code's continuous top bars for fire.
   detailer.add_free_edge_bars(plate, rec.regions);
+  if (req.fire.resistance_min) detailer.add_fire_continuity(plate, rec.regions, *req.fire.resistance_min);
   detailer.finish();
   const auto& o = plate.outline_mm;
   out.mass_per_area_kg_m2 = out.total_mass_kg / ((o[1] - o[0]) * (o[3] - o[2]) * 1e-6);
