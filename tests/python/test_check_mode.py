@@ -330,3 +330,26 @@ def test_sweep_over_given_spacings_marks_the_given_region(floor):
     # Without check mode the study has no bars_given columns.
     plain = armature.sweep(floor, {"slab.thickness_mm": [200]})
     assert not [c for c in plain.columns if c.endswith("bars_given")]
+
+
+def test_a_plate_region_takes_given_bars_in_each_direction_once():
+    """A bay of a two-way slab has bottom bars in x and in y: both may be
+    given; the same region, face and direction twice is refused, naming the
+    entry."""
+    base = {"code": "EN1992-1-1", "variant": "recommended", "concrete": {"class": "C30/37"},
+            "slab": {"type": "two_way", "x_spans_m": [5.0], "y_spans_m": [4.0], "thickness_mm": 200,
+                     "edges": {"x0": "pinned", "x1": "pinned", "y0": "pinned", "y1": "pinned"}},
+            "loads": {"dead_kPa": 1.5, "imposed_kPa": 3.0}}
+    both = copy.deepcopy(base)
+    both["reinforcement"] = {"given": [
+        {"where": "bay 1,1", "face": "bottom", "direction": "x", "bar": "10", "spacing_mm": 150},
+        {"where": "bay 1,1", "face": "bottom", "direction": "y", "bar": "10", "spacing_mm": 200}]}
+    r = armature.design(both)
+    got = {g["direction"]: g for g in r["regions"] if g["where"] == "bay 1,1" and g["face"] == "bottom"}
+    assert got["x"]["bars_given"] and got["x"]["bars"]["spacing_mm"] == 150
+    assert got["y"]["bars_given"] and got["y"]["bars"]["spacing_mm"] == 200
+    twice = copy.deepcopy(both)
+    twice["reinforcement"]["given"][1]["direction"] = "x"
+    lines = _problems(twice)
+    assert any(line.startswith("reinforcement.given[1].where:") and "already listed in reinforcement.given[0]" in line
+               for line in lines), lines

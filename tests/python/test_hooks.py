@@ -389,3 +389,19 @@ def test_aci_hooks_are_not_counted_along_the_centreline():
     assert checks
     for k in checks:
         assert k["capacity"] == pytest.approx(200 - c) and "Figure" not in k["clause"]
+
+
+def test_a_region_failing_its_own_checks_is_not_given_smaller_bars():
+    """ACI, fixed ends on 200 mm walls, a 175 mm slab under 30 kPa: over the
+    end walls no arrangement carries the hogging (bending fails with the
+    most steel). Smaller bars for the short hook would fail bending far
+    worse, so the design keeps the bars and says why."""
+    r = armature.design(strip([5.5, 5.5], ["fixed", "fixed"], 175, code="ACI", widths=[200, 300, 200],
+                              loads={"dead_kPa": 2.0, "imposed_kPa": 30.0}))
+    g = next(g for g in r["regions"] if g["where"] == "support 1")
+    bending = next(c for c in g["checks"] if c["id"] == "bending")
+    assert not bending["pass"] and bending["utilisation"] < 1.05
+    assert g["bars"]["bar"] == "#8"
+    assert any(w.startswith("support 1 (top): the bend at support 1 is too short")
+               and "fails a check of its own already" in w for w in r["warnings"])
+    assert not any("bars searched among" in w for w in r["warnings"])

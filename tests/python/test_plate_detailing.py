@@ -638,3 +638,31 @@ def test_en_flat_slab_in_fire_gets_continuous_top_bars_in_its_column_strips():
     plain["fire"] = {"resistance_min": 90}
     del plain["detailing"]
     assert any("5.7.4(2)" in w for w in armature.design(plain)["warnings"])
+
+
+def test_bent_legs_keep_the_opposite_cover_or_say_they_do_not_fit():
+    """A leg in the slab runs from the bar's face (an inner layer lies a bar
+    deeper: d + φ/2 from the opposite face) to the opposite cover at most;
+    a standard leg that does not fit is said (the workshop's EN flat slab
+    on 300 mm columns, 200 mm thick, in two directions)."""
+    req = copy.deepcopy(STUDIO_EN)
+    req["slab"].update({"x_spans_m": [5.0, 5.0], "y_spans_m": [5.5, 5.5], "thickness_mm": 200,
+                        "columns": {"size_mm": [300, 300], "height_m": 3.5}})
+    r = armature.design(req)
+    regions = {(g["where"], g["face"], g["direction"]): g for g in r["regions"]}
+    checked = 0
+    for b in r["detailing"]["bars"]:
+        g = regions.get((b["where"], b["face"], b["direction"]))
+        if g is None or b.get("body_mm"):
+            continue
+        opposite = "bottom" if b["face"] == "top" else "top"
+        room = g["effective_depth_mm"] + b["diameter_mm"] / 2 - r["cover_mm"][opposite]
+        for side in ("start", "end"):
+            leg = b["legs_mm"][side]
+            if leg <= 0:
+                continue
+            checked += 1
+            if leg > room + 1e-6:
+                assert any(w.startswith(b["where"] + ", " + b["face"]) and "does not fit the slab's depth (%g mm"
+                           % float("%.4g" % room) in w for w in r["warnings"]), (b["where"], leg, room)
+    assert checked > 0

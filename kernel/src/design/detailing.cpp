@@ -69,6 +69,7 @@ struct Run {
   double start = 0.0, end = 0.0;
   bool start_fixed = false, end_fixed = false;  // at a free tip or a bend: rounding extends the other end
   double anch_start = 0.0, anch_end = 0.0, shift = 0.0;
+  double lbd = 0.0;  // the bars' straight anchorage (a bent end's anch_* may be less: measured along a bend)
   double leg_start = 0.0, leg_end = 0.0;  // bent ends: the leg to the outside of the bend
   std::string clause;
   bool distribution = false;
@@ -115,6 +116,12 @@ struct StripLayout {
 };
 
 std::string face_name(Face f) { return f == Face::top ? "top" : "bottom"; }
+
+// A run's straight anchorage: its own, or for a run without one the
+// anchorage at one of its ends.
+double straight_anchorage(const Run& r) {
+  return r.lbd > 0.0 ? r.lbd : r.anch_start > 0.0 ? r.anch_start : r.anch_end;
+}
 
 int count_over(double extent_mm, double spacing_mm) {
   return static_cast<int>(std::floor(extent_mm / spacing_mm + 1e-9)) + 1;
@@ -299,7 +306,11 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const double leg_standard = hook.bend_diameter_mm / 2.0 + phi + hook.extension_mm;
     const bool leg_in_slab =
         !(face == Face::top && L.strip.ends[j == 0 ? 0 : 1] == EndSupport::fixed && L.legs_into_support);
-    const double room = thickness_ - cover(Face::top) - cover(Face::bottom);
+    // Room for the leg: from the bar's own face of the layer it lies in (an
+    // inner layer of a plate lies a bar deeper) to the opposite cover.
+    const Face opposite = face == Face::top ? Face::bottom : Face::top;
+    const double room = demand.d_mm > 0.0 ? demand.d_mm + phi / 2.0 - cover(opposite)
+                                          : thickness_ - cover(Face::top) - cover(Face::bottom);
     DetailLength bend;
     bend.length_mm = provided;
     bend.clause = hook.clause;
@@ -317,9 +328,8 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
         {"lb,req", "the bent bar's anchorage (above)", "", u_.length_v(hook.length_mm), length_u, hook.clause},
         {"D", "inside diameter of the bend (above)", "", u_.length_v(hook.bend_diameter_mm), length_u, hook.clause}};
     if (leg_in_slab)
-      bend.steps.push_back({"h,legs", "room for the leg: h less the top and bottom covers",
-                            u_.length(thickness_) + " − " + u_.length(cover(Face::top)) + " − " +
-                                u_.length(cover(Face::bottom)),
+      bend.steps.push_back({"h,legs", "room for the leg: from the bar's outer face (d + φ/2) to the opposite cover",
+                            u_.length(demand.d_mm) + " + " + u_.length(phi) + "/2 − " + u_.length(cover(opposite)),
                             u_.length_v(room), length_u, ""});
     bool anchored = provided >= hook.length_mm - 1e-6;
     double capacity = provided, leg = leg_standard;
@@ -412,7 +422,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     if (!anchored) out.short_bends.push_back({demand.where, face, L.strip.direction, phi, support_label(j)});
     if (leg_in_slab && leg > room + 1e-6)
       out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +
-                          " mm does not fit the slab's depth (" + plain_number(room) + " mm between the covers)");
+                          " mm does not fit the slab's depth (" + plain_number(room) + " mm from the bar to the opposite cover)");
     return {outer, capacity, leg, true};
   };
   // 7.7.3.8.3-like limits of the code on the bottom bars where the moment
@@ -459,6 +469,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const double lbd =
         derive(label, "anchorage", ask("detailing anchorage", where, [&] { return rules.anchorage(run.demand); }));
     run.shift = al;
+    run.lbd = lbd;
     run.clause = out.derivations[out.derivations.size() - 2].length.clause + "; " + out.derivations.back().length.clause;
     const auto& pts = envelope[e];
     std::size_t i0 = pts.size(), i1 = pts.size();
@@ -686,6 +697,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const double lbd =
         derive(label, "anchorage", ask("detailing anchorage", where, [&] { return rules.anchorage(run.demand); }));
     run.shift = al;
+    run.lbd = lbd;
     run.clause = out.derivations[out.derivations.size() - 2].length.clause + "; " + out.derivations.back().length.clause;
     const std::size_t kL = first_at(X[j]), kR = last_at(X[j]);
     // Top bars at an end support bend down (into the support at a built-in end).
@@ -792,7 +804,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const std::size_t j = static_cast<std::size_t>(r.support);
     const double before = j < L.top_reach_before.size() ? L.top_reach_before[j] : 0.0;
     const double after = j < L.top_reach_after.size() ? L.top_reach_after[j] : 0.0;
-    const double lbd = r.anch_start > 0.0 ? r.anch_start : r.anch_end;
+    const double lbd = straight_anchorage(r);
     if (before > 0.0 && X[j] - before < r.start && !r.start_fixed) {
       r.start = left_free ? std::max(X[j] - before, free_stop(0, Face::top)) : X[j] - before;
       r.anch_start = lbd;
@@ -837,7 +849,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       for (std::size_t i = first_run; i < runs.size(); ++i) {
         Run& r = runs[i];
         if (r.face != Face::top || r.distribution) continue;
-        const double lbd = r.anch_start > 0.0 ? r.anch_start : r.anch_end;
+        const double lbd = straight_anchorage(r);
         const bool start_ok = r.start <= need_start(r, lbd) + 1e-6 || (at_start && r.start_fixed);
         const bool end_ok = r.end >= need_end(r, lbd) - 1e-6 || (at_end && r.end_fixed);
         if (start_ok && end_ok) {
@@ -856,7 +868,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
                             plain_number(z1 / 1000.0) + " m has no top bars in this direction: provide them");
         continue;
       }
-      const double lbd = nearest->anch_start > 0.0 ? nearest->anch_start : nearest->anch_end;
+      const double lbd = straight_anchorage(*nearest);
       const double s0 = need_start(*nearest, lbd), s1 = need_end(*nearest, lbd);
       if (s0 < nearest->start && !nearest->start_fixed) {
         nearest->start = left_free ? std::max(s0, free_stop(0, Face::top)) : s0;
@@ -1203,7 +1215,7 @@ void Detailer::add_corner_bars(const PlateRecord& plate, const std::vector<Regio
       run.clause = (c.clause.empty() ? "" : c.clause + "; ") + out.derivations.back().length.clause;
       run.start = lo - lbd;
       run.end = hi + lbd;
-      run.anch_start = run.anch_end = lbd;  // both ends alike: past the edge line and past the zone
+      run.anch_start = run.anch_end = run.lbd = lbd;  // both ends alike: past the edge line and past the zone
       run.strip = -1;
       run.direction = r.direction;
       run.across_from = in_x ? c.y0_mm : c.x0_mm;

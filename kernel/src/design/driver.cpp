@@ -68,22 +68,30 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
   const auto& options =
       call_code(code, "bar options", [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   using Key = std::pair<std::string, std::string>;  // a failed check: id, where
+  struct Failed {
+    int count = 0;
+    double worst = 0.0;  // the largest utilisation among them
+  };
   auto failures = [](const DesignRecord& r) {
-    std::map<Key, int> out;
+    std::map<Key, Failed> out;
     for (const Check* c : r.all_checks())
-      if (!c->pass) ++out[{c->id, c->where}];
+      if (!c->pass) {
+        Failed& f = out[{c->id, c->where}];
+        ++f.count;
+        f.worst = std::max(f.worst, c->utilisation);
+      }
     return out;
   };
-  auto total = [](const std::map<Key, int>& f) {
+  auto total = [](const std::map<Key, Failed>& f) {
     int n = 0;
-    for (const auto& [k, v] : f) n += v;
+    for (const auto& [k, v] : f) n += v.count;
     return n;
   };
-  // Fewer failures, none new and none more often.
-  auto better = [&](const std::map<Key, int>& next, const std::map<Key, int>& kept) {
+  // Fewer failures, none new, none more often and none worse.
+  auto better = [&](const std::map<Key, Failed>& next, const std::map<Key, Failed>& kept) {
     for (const auto& [k, v] : next) {
       const auto it = kept.find(k);
-      if (it == kept.end() || it->second < v) return false;
+      if (it == kept.end() || it->second.count < v.count || v.worst > it->second.worst + 1e-9) return false;
     }
     return total(next) < total(kept);
   };
@@ -108,7 +116,10 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
     return std::any_of(first.regions.begin(), first.regions.end(),
                        [&](const RegionRecord& g) { return same_region(g, l) && g.bars_given; });
   };
-  std::map<Key, int> best_failures = failures(best);
+  // A region failing a check of its own in the first design (bending,
+  // say) is not limited: smaller bars would only make it worse.
+  auto failing_already = [&](const BarLimit& l) { return !region_failures(first, l).empty(); };
+  std::map<Key, Failed> best_failures = failures(best);
   std::vector<BarLimit> best_limits;
   std::vector<BarLimit> frozen;  // limits undone: their regions keep the size they had
   auto is_frozen = [&](const BarLimit& l) {
@@ -122,7 +133,7 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
     std::vector<std::pair<std::size_t, double>> tightened;  // limit, its size before (0: none)
     for (const ShortBend& s : short_bends) {
       const BarLimit wanted{s.where, s.face, s.direction, 0.0, s.diameter_mm, s.support};
-      if (given(wanted) || is_frozen(wanted)) continue;
+      if (given(wanted) || failing_already(wanted) || is_frozen(wanted)) continue;
       double smaller = 0.0;
       for (const auto& o : options)
         if (o.diameter_mm < s.diameter_mm - 1e-9) smaller = std::max(smaller, o.diameter_mm);
@@ -156,7 +167,7 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
       undone = true;
     }
     if (undone) next = design_with(limits);
-    const std::map<Key, int> f = failures(next);
+    const std::map<Key, Failed> f = failures(next);
     short_bends = next.detailing ? next.detailing->short_bends : std::vector<ShortBend>{};
     if (better(f, best_failures)) {
       best = std::move(next);
@@ -164,15 +175,46 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
       best_limits = limits;
     }
   }
-  for (const BarLimit& l : best_limits)
+  // What was done: each limit the kept design takes, and whether its
+  // bends now anchor; each region whose bend is still short and why
+  // smaller bars were not taken.
+  const std::vector<ShortBend> still =
+      best.detailing ? best.detailing->short_bends : std::vector<ShortBend>{};
+  auto short_in = [&](const BarLimit& l) {
+    return std::find_if(still.begin(), still.end(), [&](const ShortBend& s) {
+      return s.where == l.where && s.face == l.face && s.direction == l.direction;
+    });
+  };
+  for (const BarLimit& l : best_limits) {
+    const auto s = short_in(l);
     best.warnings.push_back(region_words(l.where, l.face, l.direction) + ": bars searched among " +
                             name_of(l.max_diameter_mm) + " and smaller, since the bend of the " +
                             name_of(l.first_diameter_mm) + " bars first chosen is too short to anchor them at " +
-                            l.support);
-  if (tried && best_limits.empty())
-    best.warnings.push_back("smaller bars where a bend is too short to anchor its bars do not anchor either, or "
-                            "fail other checks: the bars first chosen are kept (a wider support, or other bars, "
-                            "are needed)");
+                            l.support + (s == still.end() ? std::string() : "; the bend at " + s->support +
+                                                                               " is still too short"));
+  }
+  std::vector<BarLimit> said;
+  for (const ShortBend& s : still) {
+    const BarLimit l{s.where, s.face, s.direction, 0.0, s.diameter_mm, s.support};
+    const bool limited = std::any_of(best_limits.begin(), best_limits.end(), [&](const BarLimit& b) {
+      return b.where == l.where && b.face == l.face && b.direction == l.direction;
+    });
+    const bool repeated = std::any_of(said.begin(), said.end(), [&](const BarLimit& b) {
+      return b.where == l.where && b.face == l.face && b.direction == l.direction;
+    });
+    if (limited || repeated) continue;
+    said.push_back(l);
+    const bool smallest = std::none_of(options.begin(), options.end(),
+                                       [&](const BarOption& o) { return o.diameter_mm < s.diameter_mm - 1e-9; });
+    const std::string why = given(l)             ? "the bars are given (reinforcement.given)"
+                            : failing_already(l) ? "the region fails a check of its own already"
+                            : smallest           ? "no smaller bar is among the options"
+                            : tried              ? "smaller bars do not anchor either, or fail other checks"
+                                                 : "smaller bars were not tried";
+    best.warnings.push_back(region_words(s.where, s.face, s.direction) + ": the bend at " + s.support +
+                            " is too short to anchor the " + name_of(s.diameter_mm) + " bars, and smaller bars "
+                            "are not taken: " + why + " (a wider support, or other bars, are needed)");
+  }
   return best;
 }
 

@@ -342,16 +342,9 @@ void read_given(const json& list, InputProblems& problems, std::vector<GivenBars
       continue;
     }
     ObjectReader r(entry, path, problems, {"where", "face", "direction", "bar", "spacing_mm"});
-    if (auto where = r.text("where", true)) {
-      const auto same = std::find_if(out.begin(), out.end() - 1, [&](const GivenBars& o) { return o.where == *where; });
-      if (where->empty())
-        problems.add(path + ".where", "must name a region such as \"span 1\" or \"support 2\"");
-      else if (same != out.end() - 1)
-        problems.add(path + ".where", "the region '" + *where + "' is already listed in reinforcement.given[" +
-                                          std::to_string(same - out.begin()) + "]");
-      else
-        g.where = *where;
-    }
+    const auto where = r.text("where", true);
+    if (where && where->empty())
+      problems.add(path + ".where", "must name a region such as \"span 1\" or \"support 2\"");
     if (auto face = r.text("face", true)) {
       if (*face == "bottom") g.face = Face::bottom;
       else if (*face == "top") g.face = Face::top;
@@ -368,6 +361,20 @@ void read_given(const json& list, InputProblems& problems, std::vector<GivenBars
       problems.add(path + ".direction",
                    "a one-way strip's main bars run along the strip: \"x\" (or leave it out), got \"" +
                        *direction + "\"");
+    // Listed once: a strip's region by its name; a plate's by its name,
+    // face and direction (a bay has bars in x and in y, on both faces).
+    if (where && !where->empty()) {
+      const auto same = std::find_if(out.begin(), out.end() - 1, [&](const GivenBars& o) {
+        return o.where == *where && (!two_way || (o.face == g.face && o.direction == g.direction));
+      });
+      if (same != out.end() - 1)
+        problems.add(path + ".where", "the region '" + *where + "'" +
+                                          (two_way ? " (" + std::string(to_string(g.face)) + ", bars in " + g.direction + ")" : std::string()) +
+                                          " is already listed in reinforcement.given[" +
+                                          std::to_string(same - out.begin()) + "]");
+      else
+        g.where = *where;
+    }
     if (auto bar = r.text("bar", true)) {
       if (bar->empty()) problems.add(path + ".bar", "must be a bar designation such as \"12\" or \"#4\"");
       else g.bar = *bar;
