@@ -193,9 +193,11 @@ DetailLength Checker::hooked_anchorage(const BarDetailDemand& bar) const {
   const double ab = bar.spacing_mm / 2.0;
   st.add("ab", "half the bars' centre-to-centre spacing, perpendicular to the plane of the bend",
          num(bar.spacing_mm) + "/2", ab, "mm", "EN 1992-1-1 8.3(3)");
-  const double phi_m_bearing = std::max(phi_m, bend_bearing_mandrel_diameter(Fbt, ab, phi, m_.fcd));
-  st.add("φm,min (8.1)", "Fbt (1/ab + 1/(2φ)) / fcd, not less than Table 8.1N's",
-         num(Fbt) + " × (1/" + num(ab) + " + 1/(2 × " + num(phi) + ")) / " + num(m_.fcd), phi_m_bearing, "mm",
+  // fcd not above C55/67's (8.3(3), value from memory).
+  const double fcd = std::min(m_.fcd, design_compressive_strength(55.0, ndp_.alpha_cc, ndp_.gamma_c));
+  const double phi_m_bearing = std::max(phi_m, bend_bearing_mandrel_diameter(Fbt, ab, phi, fcd));
+  st.add("φm,min (8.1)", "Fbt (1/ab + 1/(2φ)) / fcd (fcd ≤ that of C55/67), not less than Table 8.1N's",
+         num(Fbt) + " × (1/" + num(ab) + " + 1/(2 × " + num(phi) + ")) / " + num(fcd), phi_m_bearing, "mm",
          "EN 1992-1-1 8.3(3) (8.1) (value from memory)");
   DetailLength out{lb_eq, "EN 1992-1-1 8.3, 8.4.4(2)", st.take()};
   out.bend_diameter_mm = phi_m;

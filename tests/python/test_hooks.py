@@ -405,3 +405,36 @@ def test_a_region_failing_its_own_checks_is_not_given_smaller_bars():
     assert any(w.startswith("support 1 (top): the bend at support 1 is too short")
                and "fails a check of its own already" in w for w in r["warnings"])
     assert not any("bars searched among" in w for w in r["warnings"])
+
+
+@pytest.mark.parametrize("ends,h,wall,q", [(["fixed", "fixed"], 200, 150, 3.0), (["pinned", "pinned"], 200, 150, 15.0),
+                                           (["fixed", "fixed"], 300, 300, 15.0)])
+def test_en_wider_bends_take_the_lesser_of_the_two_mandrels(ends, h, wall, q):
+    """EN 1992-1-1 8.3(3) (value from memory): a bend needs the mandrel of
+    (8.1), φm ≥ Fbt (1/ab + 1/(2φ))/fcd, unless the bar needs no more than
+    5φ past the bend. A top bar whose standard bend is short in a narrow
+    wall gets the lesser of: the (8.1) mandrel (Fbt = As σsd, σsd = fyd
+    As,req/As,prov, ab = s/2, fcd = 30/1.5), and the mandrel whose arc
+    with the 5φ extension alone makes up the anchorage along the
+    centreline (8.4.4(1), Figure 8.1 a), where that one fits the wall;
+    both not less than Table 8.1N's 4φ (φ ≤ 16 mm). Evaluated here."""
+    r = armature.design(strip([5.0, 5.0], ends, h, widths=[wall, 300, wall],
+                              loads={"dead_kPa": 2.0, "imposed_kPa": q}))
+    said = [re.search(r"inside diameter is ([0-9.]+) mm", w) for w in r["warnings"] if w.startswith("support 1, top")]
+    said = [float(m.group(1)) for m in said if m]
+    assert len(said) == 1
+    t = bar(r, "support 1", "top")
+    g = next(g for g in r["regions"] if g["where"] == "support 1" and g["face"] == "top")
+    phi, s = t["diameter_mm"], t["spacing_mm"]
+    need = derivation(r, "support 1, top", "hooked anchorage (start)")["length_mm"]
+    provided = wall - r["cover_mm"]["top"]
+    sigma = 500 / 1.15 * g["As_req_mm2"] / g["bars"]["As_prov_mm2"]
+    table = 4 * phi if phi <= 16 else 7 * phi
+    d81 = max(table, math.pi * phi ** 2 / 4 * sigma * (1 / (s / 2) + 1 / (2 * phi)) / 20.0)
+    d_ext = (need - provided + phi - math.pi / 4 * phi - 5 * phi) / (math.pi / 4 - 0.5)
+    expected = d_ext if table <= d_ext <= d81 and provided - phi - d_ext / 2 >= 0 else d81
+    assert said[0] == pytest.approx(expected, rel=1e-3)
+    # Anchored along the centreline with that bend.
+    check = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"
+             and k["demand"] == pytest.approx(need)]
+    assert check and check[0]["pass"]

@@ -534,6 +534,18 @@ def test_flat_free_edges_get_u_bars_and_edge_bars_between_the_columns():
         lo, hi = (o["x0"], o["x1"]) if b["direction"] == "x" else (o["y0"], o["y1"])
         assert b["start_m"] >= lo + c - 1e-9 and b["end_m"] <= hi - c + 1e-9
         assert min(b["end_m"] - lo, hi - b["start_m"]) <= (b["legs_mm"]["start"] / 1000 + c) + 1e-6
+        # The flat leg laps the strip's bottom bars across the edge (EN 8.7.3, every bar at the
+        # section): where they stop short of the edge (a column strip anchored past its column),
+        # the leg reaches past their end by the lap.
+        lap = next(x["length_mm"] for x in d["derivations"]
+                   if x["where"] == b["where"] + ", U-bars" and x["what"].startswith("lap"))
+        across = [x for x in d["bars"] if x["where"] == f["bay"] and x["face"] == "bottom"
+                  and x["direction"] == b["direction"]]
+        assert across
+        at_low = b["start_m"] < (lo + hi) / 2
+        end = min(x["start_m"] for x in across) if at_low else max(x["end_m"] for x in across)
+        overlap = (b["end_m"] - end) if at_low else (end - b["start_m"])
+        assert overlap * 1000 >= lap - 1e-6, (b["where"], overlap, lap)
     # One bar along each edge in each face, inside the outline less the cover.
     for name in ("edge x0", "edge x1", "edge y0", "edge y1"):
         along = [b for b in d["bars"] if b["where"] == name + ", edge bar"]
@@ -562,7 +574,8 @@ def test_aci_flat_slab_has_no_free_edge_rule():
 def top_over_line_by_hand(r, strip, k):
     """The top steel over interior line k that falls to a column strip
     (mm²): its own bars over its width there, a band's more within the
-    band's width, half of each neighbouring middle strip's."""
+    band's width, half of each neighbouring middle strip's (the whole of a
+    middle strip with one column strip beside it: at a wall)."""
     p = r["plate"]
     axis = "x" if strip["direction"] == "x" else "y"
     lohi = ("y0_m", "y1_m") if axis == "x" else ("x0_m", "x1_m")
@@ -584,16 +597,22 @@ def top_over_line_by_hand(r, strip, k):
         b0, b1 = q[lohi[0]], q[lohi[1]]
         if abs(at - line) < 1e-3 and b0 >= lo - 1e-3 and b1 <= hi + 1e-3:
             total += (regions[(band["name"], "top", axis)]["bars"]["As_prov_mm2"] - own) * (b1 - b0)
+    def touch(a, b):
+        return abs(a[1] - b[0]) < 1e-3 or abs(a[0] - b[1]) < 1e-3
+
+    columns = [width(c) for c in p["strips"] if c["kind"] == "column" and c["direction"] == axis]
     for m in p["strips"]:
         if m["kind"] != "middle" or m["direction"] != axis:
             continue
-        m0, m1 = width(m)
-        if abs(m1 - lo) < 1e-3 or abs(m0 - hi) < 1e-3:
-            total += regions[("%s at %s%d" % (m["name"], axis, k), "top", axis)]["bars"]["As_prov_mm2"] * (m1 - m0) / 2
+        mw = width(m)
+        if touch(mw, (lo, hi)):
+            share = 1 / sum(1 for c in columns if touch(mw, c))
+            total += regions[("%s at %s%d" % (m["name"], axis, k), "top", axis)]["bars"]["As_prov_mm2"] * (mw[1] - mw[0]) * share
     return total
 
 
-def test_en_flat_slab_in_fire_gets_continuous_top_bars_in_its_column_strips():
+@pytest.mark.parametrize("walls", [{}, {"x0": "columns", "x1": "columns", "y0": "wall", "y1": "wall"}], ids=["columns", "walls"])
+def test_en_flat_slab_in_fire_gets_continuous_top_bars_in_its_column_strips(walls):
     """EN 1992-1-2 5.7.4(2) (value from memory): from REI 90, at least 20 %
     of the top reinforcement over the intermediate supports, in each
     direction, continuous over the full span, in the column strip. Each
@@ -603,6 +622,8 @@ def test_en_flat_slab_in_fire_gets_continuous_top_bars_in_its_column_strips():
     plate's strips), at least two."""
     req = copy.deepcopy(STUDIO_EN)
     req["fire"] = {"resistance_min": 90}
+    if walls:
+        req["slab"]["edges"] = walls
     r = armature.design(req)
     assert not any("5.7.4(2)" in w for w in r["warnings"])
     p, d = r["plate"], r["detailing"]
@@ -620,10 +641,11 @@ def test_en_flat_slab_in_fire_gets_continuous_top_bars_in_its_column_strips():
         assert phi == max(g["bars"]["diameter_mm"] for g in tops)
         count = max(2, math.ceil(need / (math.pi * phi ** 2 / 4) - 1e-9))
         (deriv,) = [x for x in d["derivations"] if x["where"] == strip["name"] + ", fire continuity"]
-        assert deriv["length_mm"] == pytest.approx(need, rel=1e-9) and deriv["clause"] == "EN 1992-1-2 5.7.4(2)"
+        assert deriv["clause"] == "EN 1992-1-2 5.7.4(2)"
         # Every bar across the strip is continuous from end to end: the pieces of
         # each lapped set cover the whole length, and the sets hold `count` bars.
         lo, hi = (o["x0"], o["x1"]) if axis == "x" else (o["y0"], o["y1"])
+        assert deriv["length_mm"] == pytest.approx((hi - lo - 2 * c) * 1000)
         assert min(b["start_m"] for b in bars) == pytest.approx(lo + c, abs=0.025 + 1e-9)
         assert max(b["end_m"] for b in bars) == pytest.approx(hi - c, abs=0.025 + 1e-9)
         assert all(b["start_m"] >= lo + c - 1e-9 and b["end_m"] <= hi - c + 1e-9 for b in bars)

@@ -145,6 +145,7 @@ struct ShortBend {
   BarDirection direction = BarDirection::span;
   double diameter_mm = 0.0;
   std::string support;
+  double demand_mm = 0.0;  // the anchorage the bend must give
 };
 // One line of bars drawn in elevation: a one-way strip, or on a two-way
 // slab the bays of one row (bars in x) or column (bars in y).

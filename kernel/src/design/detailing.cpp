@@ -346,11 +346,20 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
         const double l1 = provided - phi - D / 2.0;
         return hook.length_mm - l1 - std::numbers::pi / 2.0 * (D / 2.0 + phi / 2.0);
       };
-      // A leg anchoring more than the extension past the bend: the code's
-      // larger mandrel against crushing inside it (EN 8.3(3)).
+      // A leg anchoring more than the extension past the bend needs the
+      // code's larger mandrel against crushing inside it (EN 8.3(3)); a
+      // bend wide enough that the extension alone makes up the anchorage
+      // (the arc grows faster than the straight part shrinks) needs none,
+      // so the smaller of the two.
       double D = hook.bend_diameter_mm;
       const bool bearing = straight_leg(D) > hook.extension_mm + 1e-6 && hook.long_leg_bend_diameter_mm > D;
-      if (bearing) D = hook.long_leg_bend_diameter_mm;
+      if (bearing) {
+        const double k = std::numbers::pi / 4.0 - 0.5;  // d(l1 + arc)/dD
+        const double D_ext = (hook.length_mm - provided + phi - std::numbers::pi / 4.0 * phi - hook.extension_mm) / k;
+        D = D_ext >= D && D_ext <= hook.long_leg_bend_diameter_mm && provided - phi - D_ext / 2.0 >= 0.0
+                ? D_ext
+                : hook.long_leg_bend_diameter_mm;
+      }
       const double R = D / 2.0 + phi / 2.0;
       const double l1 = provided - phi - D / 2.0;
       const double arc = std::numbers::pi / 2.0 * R;
@@ -361,13 +370,13 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
         leg = D / 2.0 + phi + l2;
         anchored = capacity >= hook.length_mm - 1e-6;
         if (bearing) {
-          bend.steps.push_back({"D", "the mandrel against crushing inside the bend (above): the leg anchors more than "
-                                     "the extension past it",
+          bend.steps.push_back({"D", "a wider bend: the least of the mandrel against crushing inside the bend (above) "
+                                     "and the one whose extension alone completes the anchorage",
                                 "", u_.length_v(D), length_u, hook.clause});
           out.notes.push_back(label + ": at " + support_label(j) + " the bend's inside diameter is " +
                               plain_number(D) + " mm (" + plain_number(D / phi) +
-                              " φ), more than the standard, against crushing inside the bend (" + hook.clause +
-                              "): state it on the bar schedule");
+                              " φ), more than the standard, for the concrete inside the bend (the code's mandrel "
+                              "rule): state it on the bar schedule");
         }
         bend.steps.push_back({"R", "D/2 + φ/2: the bend's radius to the bar's centreline",
                               u_.length(D) + "/2 + " + u_.length(phi) + "/2", u_.length_v(R), length_u, ""});
@@ -419,7 +428,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
                                  Step{"φ", "the bar: " + label + ", " + side + " end", "", u_.length_v(phi),
                                       length_u, ""});
     out.checks.push_back(std::move(anchorage_check));
-    if (!anchored) out.short_bends.push_back({demand.where, face, L.strip.direction, phi, support_label(j)});
+    if (!anchored) out.short_bends.push_back({demand.where, face, L.strip.direction, phi, support_label(j), hook.length_mm});
     if (leg_in_slab && leg > room + 1e-6)
       out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +
                           " mm does not fit the slab's depth (" + plain_number(room) + " mm from the bar to the opposite cover)");
@@ -1286,20 +1295,30 @@ void Detailer::add_fire_continuity(const PlateRecord& plate, const std::vector<R
           how += " + " + u_.area(extra);
         }
       }
+      // A middle strip's share: half to each neighbouring column strip, the
+      // whole where it has one (beside a wall).
+      auto touches = [](const std::array<double, 2>& a, const std::array<double, 2>& b) {
+        return std::abs(a[1] - b[0]) <= 1.0 || std::abs(a[0] - b[1]) <= 1.0;
+      };
       for (const auto& m : plate.strips) {
         if (m.column || m.direction != s.direction || m.pieces.size() != n) continue;
         const auto mw = width_at_line(across(m.pieces[k - 1]), across(m.pieces[k]));
-        if (std::abs(mw[1] - w[0]) > 1.0 && std::abs(mw[0] - w[1]) > 1.0) continue;  // not a neighbour
+        if (!touches(mw, w)) continue;  // not a neighbour
+        int neighbours = 0;
+        for (const auto& o : plate.strips)
+          if (o.column && o.direction == s.direction && o.pieces.size() == n &&
+              touches(mw, width_at_line(across(o.pieces[k - 1]), across(o.pieces[k]))))
+            ++neighbours;
         if (const RegionRecord* g = plate_region(regions, m.name + " at " + axis + std::to_string(k), Face::top, s.direction)) {
-          const double half = g->bars.As_prov_mm2 * (mw[1] - mw[0]) / 2.0 / 1000.0;
-          total += half;
-          how += " + " + u_.area(half);
+          const double part = g->bars.As_prov_mm2 * (mw[1] - mw[0]) / std::max(neighbours, 1) / 1000.0;
+          total += part;
+          how += " + " + u_.area(part);
         }
       }
       st.push_back({"As,top " + axis + std::to_string(k),
                     "the top bars over line " + axis + std::to_string(k) +
                         " that fall to the strip: its own over its width, a band's more within the band's, half of "
-                        "each neighbouring middle strip's",
+                        "each neighbouring middle strip's (the whole of one beside a wall)",
                     how, u_.area_v(total), area_u, ""});
       need = std::max(need, rule.share * total);
       if (!largest || own->bars.diameter_mm > largest->bars.diameter_mm) largest = own;
@@ -1335,7 +1354,9 @@ void Detailer::add_fire_continuity(const PlateRecord& plate, const std::vector<R
     r.across_from = lo;
     r.across_to = hi;
     r.count = r.preset_count = count;
-    out.derivations.push_back({r.where, "continuous top bars for fire", DetailLength{need, rule.clause, std::move(st)}});
+    // The derivation's length: the bars' run, end to end (the area is its step As,cont).
+    out.derivations.push_back(
+        {r.where, "continuous top bars for fire", DetailLength{r.end - r.start, rule.clause, std::move(st)}});
     runs.push_back(std::move(r));
   }
 }
@@ -1368,6 +1389,14 @@ void Detailer::add_free_edge_bars(const PlateRecord& plate, const std::vector<Re
     const double lap = derive(u.where + ", U-bars", "lap with the bay's bars (all at the edge)",
                               ask("detailing lap", u.where, [&] { return rules.lap(u.demand); }));
     u.leg_start = u.leg_end = std::max(f.leg_mm - c, lap);
+    // ... and reach the bars across the edge by the lap where they stop
+    // short of it (a flat slab's column strip, anchored past the column).
+    for (const Run& r : runs)
+      if (r.face == Face::bottom && !r.distribution && !r.edge_loop && r.where == f.bay &&
+          r.direction == (x_edge ? BarDirection::x : BarDirection::y)) {
+        const double gap = dir < 0.0 ? r.start - (pos + c) : (pos - c) - r.end;
+        if (gap > 1e-6) u.leg_start = u.leg_end = std::max(u.leg_start, gap + lap);
+      }
     if (lap > f.leg_mm - c)
       out.notes.push_back(u.where + ": the U-bars' legs run " + plain_number(lap) +
                           " mm, the lap with the bay's bars, more than the edge rule's " + plain_number(f.leg_mm) +

@@ -10,6 +10,7 @@
 #include <map>
 #include <optional>
 #include <set>
+#include <tuple>
 #include <string_view>
 #include <limits>
 #include <numbers>
@@ -44,6 +45,9 @@ namespace {
 DesignRecord design_validated(const SlabChecker& checker, CodeIdentity id, const Request& req, Member& member,
                               Detail detail, ReportUnits step_units, const std::vector<BarLimit>& limits);
 
+// The request's spacing grid.
+SpacingGrid grid_of(const Request& req) { return {req.reinforcement.min_spacing_mm, req.reinforcement.spacing_step_mm}; }
+
 // A region's name with its face (and on a plate its bars' direction).
 std::string region_words(const std::string& where, Face face, BarDirection direction) {
   return where + " (" + to_string(face) +
@@ -61,7 +65,8 @@ std::string region_words(const std::string& where, Face face, BarDirection direc
 // the kept design takes. Given bars are never changed.
 // `design_with(limits)` designs the request.
 template <class DesignWith>
-DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity& code, DesignWith&& design_with) {
+DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity& code, const SpacingGrid& grid,
+                                 DesignWith&& design_with) {
   std::vector<BarLimit> limits;
   DesignRecord best = design_with(limits);
   if (!best.detailing || best.detailing->short_bends.empty()) return best;
@@ -128,26 +133,52 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
     });
   };
   std::vector<ShortBend> short_bends = best.detailing->short_bends;
+  std::vector<RegionRecord> latest = best.regions;  // the bars of the design the short bends are from
+  // A closer spacing tried: the bend's demand then, so that a code whose
+  // demand does not fall with it (ACI's hook) stops there.
+  std::map<std::tuple<std::string, Face, BarDirection>, double> spacing_demand;
   bool tried = false;
-  for (std::size_t round = 0; round < options.size() && !short_bends.empty(); ++round) {
-    std::vector<std::pair<std::size_t, double>> tightened;  // limit, its size before (0: none)
+  const std::size_t rounds = options.size() + 12;  // sizes, then a few spacings closer
+  for (std::size_t round = 0; round < rounds && !short_bends.empty(); ++round) {
+    std::vector<std::pair<std::size_t, std::optional<BarLimit>>> tightened;  // limit, as it was (none: new)
     for (const ShortBend& s : short_bends) {
-      const BarLimit wanted{s.where, s.face, s.direction, 0.0, s.diameter_mm, s.support};
+      const BarLimit wanted{s.where, s.face, s.direction, 0.0, 0.0, s.diameter_mm, s.support};
       if (given(wanted) || failing_already(wanted) || is_frozen(wanted)) continue;
-      double smaller = 0.0;
-      for (const auto& o : options)
-        if (o.diameter_mm < s.diameter_mm - 1e-9) smaller = std::max(smaller, o.diameter_mm);
-      if (smaller <= 0.0) continue;
       auto it = std::find_if(limits.begin(), limits.end(), [&](const BarLimit& l) {
         return l.where == s.where && l.face == s.face && l.direction == s.direction;
       });
+      if (std::any_of(tightened.begin(), tightened.end(),
+                      [&](const auto& t) { return it != limits.end() && t.first == std::size_t(it - limits.begin()); }))
+        continue;  // a region with two short bends: tightened once a round
+      double smaller = 0.0;
+      for (const auto& o : options)
+        if (o.diameter_mm < s.diameter_mm - 1e-9) smaller = std::max(smaller, o.diameter_mm);
+      BarLimit next_limit = it == limits.end() ? wanted : *it;
+      if (smaller > 0.0) {
+        next_limit.max_diameter_mm = smaller;
+        next_limit.max_spacing_mm = 0.0;
+      } else {
+        // The smallest size: a closer spacing, where the code's demand falls
+        // with the stress the bars work at (EN 8.4.3(2)).
+        const auto g = std::find_if(latest.begin(), latest.end(), [&](const RegionRecord& r) {
+          return r.where == s.where && r.face == s.face && r.direction == s.direction;
+        });
+        const auto key = std::make_tuple(s.where, s.face, s.direction);
+        const auto tried_at = spacing_demand.find(key);
+        if (g == latest.end() || (tried_at != spacing_demand.end() && s.demand_mm >= tried_at->second - 1e-6))
+          continue;
+        const double closer = g->bars.spacing_mm - grid.step_mm;
+        if (closer < grid.first_mm - 1e-9) continue;
+        spacing_demand[key] = s.demand_mm;
+        next_limit.max_diameter_mm = s.diameter_mm;
+        next_limit.max_spacing_mm = closer;
+      }
       if (it == limits.end()) {
-        limits.push_back(wanted);
-        limits.back().max_diameter_mm = smaller;
-        tightened.emplace_back(limits.size() - 1, 0.0);
-      } else if (it->max_diameter_mm > smaller + 1e-9) {
-        tightened.emplace_back(static_cast<std::size_t>(it - limits.begin()), it->max_diameter_mm);
-        it->max_diameter_mm = smaller;
+        limits.push_back(next_limit);
+        tightened.emplace_back(limits.size() - 1, std::nullopt);
+      } else {
+        tightened.emplace_back(static_cast<std::size_t>(it - limits.begin()), *it);
+        *it = next_limit;
       }
     }
     if (tightened.empty()) break;
@@ -162,13 +193,14 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
       const std::set<std::string> now = region_failures(next, l);
       if (std::includes(before.begin(), before.end(), now.begin(), now.end())) continue;
       frozen.push_back(l);
-      if (t->second > 0.0) limits[t->first].max_diameter_mm = t->second;
+      if (t->second) limits[t->first] = *t->second;
       else limits.erase(limits.begin() + static_cast<std::ptrdiff_t>(t->first));
       undone = true;
     }
     if (undone) next = design_with(limits);
     const std::map<Key, Failed> f = failures(next);
     short_bends = next.detailing ? next.detailing->short_bends : std::vector<ShortBend>{};
+    latest = next.regions;
     if (better(f, best_failures)) {
       best = std::move(next);
       best_failures = f;
@@ -187,15 +219,23 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
   };
   for (const BarLimit& l : best_limits) {
     const auto s = short_in(l);
-    best.warnings.push_back(region_words(l.where, l.face, l.direction) + ": bars searched among " +
-                            name_of(l.max_diameter_mm) + " and smaller, since the bend of the " +
+    const bool closer_only = l.max_spacing_mm > 0.0 && std::abs(l.max_diameter_mm - l.first_diameter_mm) < 1e-9;
+    best.warnings.push_back(region_words(l.where, l.face, l.direction) + ": bars searched " +
+                            (closer_only ? std::string("at ")
+                                         : "among " + name_of(l.max_diameter_mm) + " and smaller" +
+                                               (l.max_spacing_mm > 0.0 ? std::string(" at ") : std::string())) +
+                            (l.max_spacing_mm > 0.0 ? plain_number(l.max_spacing_mm) +
+                                                          " mm or closer (the bend's anchorage falls with the stress "
+                                                          "the bars work at)"
+                                                    : std::string()) +
+                            ", since the bend of the " +
                             name_of(l.first_diameter_mm) + " bars first chosen is too short to anchor them at " +
                             l.support + (s == still.end() ? std::string() : "; the bend at " + s->support +
                                                                                " is still too short"));
   }
   std::vector<BarLimit> said;
   for (const ShortBend& s : still) {
-    const BarLimit l{s.where, s.face, s.direction, 0.0, s.diameter_mm, s.support};
+    const BarLimit l{s.where, s.face, s.direction, 0.0, 0.0, s.diameter_mm, s.support};
     const bool limited = std::any_of(best_limits.begin(), best_limits.end(), [&](const BarLimit& b) {
       return b.where == l.where && b.face == l.face && b.direction == l.direction;
     });
@@ -208,7 +248,7 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
                                        [&](const BarOption& o) { return o.diameter_mm < s.diameter_mm - 1e-9; });
     const std::string why = given(l)             ? "the bars are given (reinforcement.given)"
                             : failing_already(l) ? "the region fails a check of its own already"
-                            : smallest           ? "no smaller bar is among the options"
+                            : smallest           ? "no smaller bar is among the options, nor does a closer spacing help"
                             : tried              ? "smaller bars do not anchor either, or fail other checks"
                                                  : "smaller bars were not tried";
     best.warnings.push_back(region_words(s.where, s.face, s.direction) + ": the bend at " + s.support +
@@ -323,7 +363,7 @@ bool states_strip_width(const PracticeDefaults& practice) {
 // A one-way strip's design, each round on a strip of its own.
 DesignRecord design_strip(const SlabChecker& checker, const CodeIdentity& id, const Request& req, Detail detail,
                           ReportUnits step_units) {
-  return with_anchored_bends(checker, id, [&](const std::vector<BarLimit>& limits) {
+  return with_anchored_bends(checker, id, grid_of(req), [&](const std::vector<BarLimit>& limits) {
     OneWayStrip member(req.slab, req.design.redistribution_percent);
     return design_validated(checker, id, req, member, detail, step_units, limits);
   });
@@ -377,7 +417,7 @@ DesignRecord design(const Registry& registry, const nlohmann::json& j, Detail de
     if (problems.empty()) add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
-    return with_anchored_bends(*checker, id, [&](const std::vector<BarLimit>& limits) {
+    return with_anchored_bends(*checker, id, grid_of(req), [&](const std::vector<BarLimit>& limits) {
       return design_two_way(*checker, id, req, detail, practice.report_units, limits);
     });
   }
@@ -406,7 +446,7 @@ DesignRecord design(const Registry& registry, const Request& req, Detail detail)
     add_two_way_problems(req, problems);
     problems.raise_if_any();
     const auto checker = call_code(id, "set-up", [&] { return code->begin(req); });
-    return with_anchored_bends(*checker, id, [&](const std::vector<BarLimit>& limits) {
+    return with_anchored_bends(*checker, id, grid_of(req), [&](const std::vector<BarLimit>& limits) {
       return design_two_way(*checker, id, req, detail, practice.report_units, limits);
     });
   }

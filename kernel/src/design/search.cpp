@@ -99,11 +99,6 @@ void consider(Trial& best, const Trial& c) {
     best = c;
 }
 
-// A bar above the region's limit (BarPlan::max_bar_mm; 0: none).
-bool too_large(const BarOption& bar, double max_bar_mm) {
-  return max_bar_mm > 0.0 && bar.diameter_mm > max_bar_mm + 1e-9;
-}
-
 void keep_largest(Trial& largest, const Trial& c) {
   if (!largest.found() || c.As_prov_mm2 > largest.As_prov_mm2) largest = c;
 }
@@ -148,7 +143,7 @@ Failures failures_of(const CandidateSection& candidate) {
 // one, and the failures shown are the real causes.
 Trial fewest_failures(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
                       const RegionDemand& region, double width_mm, double s_max, const Trial& least,
-                      const SpacingGrid& grid, double max_bar_mm) {
+                      const SpacingGrid& grid, const SearchLimit& limit) {
   CandidateSection candidate(rules, code, region, width_mm);
   Trial best = least;
   candidate.set_bar(*least.bar);
@@ -158,14 +153,15 @@ Trial fewest_failures(const SlabChecker& checker, const SearchRules& rules, cons
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const int steps = searched_steps(grid, s_max);
   for (const auto& bar : bars) {
-    if (too_large(bar, max_bar_mm)) continue;
+    if (limit.excludes_bar(bar.diameter_mm)) continue;
     const double floor =
         call_code(code, "minimum area", [&] { return rules.section.minimum_area_mm2(region, bar); }) * (1 - 1e-12);
     bool bar_set = false;
     for (int k = steps; k >= 0 && best_failures > 0; --k) {
       const double s = grid.at(k);
       const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
-      if (c.As_prov_mm2 < floor || (c.bar == best.bar && s == best.spacing_mm)) continue;
+      if (limit.excludes_spacing(s) || c.As_prov_mm2 < floor || (c.bar == best.bar && s == best.spacing_mm))
+        continue;
       if (!bar_set) {
         candidate.set_bar(bar);
         bar_set = true;
@@ -197,7 +193,7 @@ namespace {
 // search_bars with the rules already fetched (once per design).
 SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
                               const RegionDemand& region, double width_mm, std::vector<std::string>& warnings,
-                              const SpacingGrid& grid, double max_bar_mm = 0.0) {
+                              const SpacingGrid& grid, const SearchLimit& limit = {}) {
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
   const double s_max =
@@ -209,7 +205,7 @@ SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rul
   Trial passing, fallback, largest;
   const int steps = searched_steps(grid, s_max);
   for (const auto& bar : bars) {
-    if (too_large(bar, max_bar_mm)) continue;
+    if (limit.excludes_bar(bar.diameter_mm)) continue;
     // Arrangements below the code's strength floor fail bending or minimum
     // steel: no verdict is needed (the margin keeps a rounding tie with the
     // check's own ratio on the checked side). Asked for only when this bar
@@ -218,6 +214,7 @@ SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rul
     bool bar_set = false;
     for (int k = steps; k >= 0; --k) {
       const double s = grid.at(k);
+      if (limit.excludes_spacing(s)) continue;
       const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       keep_largest(largest, c);
       if (passing.found() && c.As_prov_mm2 > passing.As_prov_mm2 * (1 + 1e-9)) break;
@@ -240,7 +237,7 @@ SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rul
   }
   if (passing.found()) return passing.candidate();
   if (fallback.found())
-    return fewest_failures(checker, rules, code, region, width_mm, s_max, fallback, grid, max_bar_mm).candidate();
+    return fewest_failures(checker, rules, code, region, width_mm, s_max, fallback, grid, limit).candidate();
   if (!largest.found())
     throw DesignError(code.id + " (" + code.variant + "): no bar arrangement to try at " +
                       region.where + " (maximum spacing " + std::to_string(s_max) + " mm)");
@@ -254,7 +251,8 @@ SearchCandidate search_region(const SlabChecker& checker, const SearchRules& rul
 // search_common_bars with the rules already fetched.
 SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rules, const CodeIdentity& code,
                               const std::vector<const RegionDemand*>& regions, double width_mm,
-                              std::vector<std::string>& warnings, const SpacingGrid& grid, double max_bar_mm = 0.0) {
+                              std::vector<std::string>& warnings, const SpacingGrid& grid,
+                              const SearchLimit& limit = {}) {
   if (regions.empty()) throw DesignError("no region for a common bar arrangement");
   const auto& bars = call_code(code, "bar options",
                                [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
@@ -279,11 +277,12 @@ SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rul
   Trial passing, largest;
   bool any_strong = false;  // some arrangement passes bending and minimum steel in every region
   for (const auto& bar : bars) {
-    if (too_large(bar, max_bar_mm)) continue;
+    if (limit.excludes_bar(bar.diameter_mm)) continue;
     std::optional<double> floor;  // below it, some region fails a strength check
     bool bar_set = false;
     for (int k = steps; k >= 0; --k) {
       const double s = grid.at(k);
+      if (limit.excludes_spacing(s)) continue;
       const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
       keep_largest(largest, c);
       if (passing.found() && c.As_prov_mm2 > passing.As_prov_mm2 * (1 + 1e-9)) break;
@@ -322,8 +321,9 @@ SearchCandidate search_shared(const SlabChecker& checker, const SearchRules& rul
     Trial best;
     std::size_t best_failures = 0;
     for (const auto& bar : bars)
-      for (int k = steps; k >= 0 && !too_large(bar, max_bar_mm); --k) {
+      for (int k = steps; k >= 0 && !limit.excludes_bar(bar.diameter_mm); --k) {
         const double s = grid.at(k);
+        if (limit.excludes_spacing(s)) continue;
         const Trial c{&bar, s, provided_area_mm2(bar.area_mm2, s, width_mm)};
         std::size_t failed = 0;
         bool strong = true;
@@ -442,13 +442,13 @@ std::vector<SearchCandidate> search_with_face_covers(const SlabChecker& checker,
   for (std::size_t k = 0; k < groups; ++k)
     for (const std::size_t i : plan.common[k]) group_of[i] = k;
   auto is_given = [&](std::size_t i) { return plan.given[i].has_value(); };
-  auto limit_of = [&](std::size_t i) { return i < plan.max_bar_mm.size() ? plan.max_bar_mm[i] : 0.0; };
+  auto limit_of = [&](std::size_t i) { return i < plan.limits.size() ? plan.limits[i] : SearchLimit{}; };
   auto search_common = [&](std::size_t k) {
     std::vector<const RegionDemand*> regions;
-    double limit = 0.0;  // the smallest of the group's limits
+    SearchLimit limit;  // the tightest of the group's limits
     for (const std::size_t i : plan.common[k]) {
       regions.push_back(&demands[i]);
-      if (limit_of(i) > 0.0) limit = limit > 0.0 ? std::min(limit, limit_of(i)) : limit_of(i);
+      limit = limit.with(limit_of(i));
     }
     common_warnings[k].clear();
     const SearchCandidate pick =
@@ -573,11 +573,11 @@ bool preferred(const SearchCandidate& a, const SearchCandidate& b) {
 }
 
 void apply_bar_limits(const std::vector<BarLimit>& limits, const std::vector<RegionDemand>& demands, BarPlan& plan) {
-  plan.max_bar_mm.assign(demands.size(), 0.0);
+  plan.limits.assign(demands.size(), SearchLimit{});
   for (const BarLimit& l : limits)
     for (std::size_t i = 0; i < demands.size(); ++i)
       if (demands[i].where == l.where && demands[i].face == l.face && demands[i].direction == l.direction)
-        plan.max_bar_mm[i] = l.max_diameter_mm;
+        plan.limits[i] = {l.max_diameter_mm, l.max_spacing_mm};
 }
 
 }  // namespace armature

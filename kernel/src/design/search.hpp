@@ -2,6 +2,7 @@
 // (search_bars, search_common_bars, SpacingGrid) are in armature/design.hpp.
 #pragma once
 
+#include <algorithm>
 #include <optional>
 #include <string>
 #include <vector>
@@ -10,6 +11,22 @@
 
 namespace armature {
 
+// The largest bar and the widest spacing a region's search may choose
+// (0: no limit): where the detailing found its bend too short (BarLimit).
+struct SearchLimit {
+  double max_bar_mm = 0.0;
+  double max_spacing_mm = 0.0;
+  bool excludes_bar(double diameter_mm) const { return max_bar_mm > 0.0 && diameter_mm > max_bar_mm + 1e-9; }
+  bool excludes_spacing(double spacing_mm) const {
+    return max_spacing_mm > 0.0 && spacing_mm > max_spacing_mm + 1e-9;
+  }
+  // The tighter of two limits.
+  SearchLimit with(const SearchLimit& o) const {
+    auto tighter = [](double a, double b) { return a > 0.0 && b > 0.0 ? std::min(a, b) : std::max(a, b); };
+    return {tighter(max_bar_mm, o.max_bar_mm), tighter(max_spacing_mm, o.max_spacing_mm)};
+  }
+};
+
 // How each region gets its bars: searched on its own, given by the
 // request (checked, never searched), or one of the regions sharing one
 // arrangement (reinforcement.rationalise).
@@ -17,9 +34,9 @@ struct BarPlan {
   std::vector<std::optional<SearchCandidate>> given;  // per region
   std::vector<std::vector<std::size_t>> common;       // groups of regions, each sharing one arrangement
   SpacingGrid grid;
-  // Per region the largest bar the search may choose (none: 0): bars whose
-  // bends the detailing found too short at a support (BarLimit).
-  std::vector<double> max_bar_mm;
+  // Per region the largest bar and widest spacing the search may choose:
+  // bars whose bends the detailing found too short at a support (BarLimit).
+  std::vector<SearchLimit> limits;
 };
 
 // A region's bars limited in size: where its bend at a support was too
@@ -29,11 +46,12 @@ struct BarLimit {
   Face face = Face::bottom;
   BarDirection direction = BarDirection::span;
   double max_diameter_mm = 0.0;
+  double max_spacing_mm = 0.0;     // 0: none (a closer spacing, where no smaller size is left)
   double first_diameter_mm = 0.0;  // the size whose bend was short
   std::string support;             // where
 };
 
-// The plan's max_bar_mm from the limits (by region name, face and direction).
+// The plan's limits from the BarLimits (by region name, face and direction).
 void apply_bar_limits(const std::vector<BarLimit>& limits, const std::vector<RegionDemand>& demands, BarPlan& plan);
 
 // uniform_bottom: every bottom region not given shares one arrangement

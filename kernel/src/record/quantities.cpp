@@ -98,6 +98,9 @@ double flat_steel_mass_kg_per_m2(const DesignRecord& r) {
     }
     volume_mm3 += g.bars.As_prov_mm2 * area_mm2 / 1000.0;
   }
+  // U-bars at the free edges between the edge columns: as on a two-way slab.
+  for (const auto& f : p.free_edges)
+    volume_mm3 += f.u_bar_area_mm2 * (f.to_mm - f.from_mm) * (f.leg_mm + r.thickness_mm) / 1000.0;
   volume_mm3 += punching_link_volume_mm3(r);
   return volume_mm3 / area * 1e-3 * steel_density_kg_m3;
 }

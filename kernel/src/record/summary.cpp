@@ -174,15 +174,17 @@ std::string format_two_way_summary(const DesignRecord& r, const Show& u) {
       const auto& f = r.plate->free_edges[i];
       if (i > 0 && r.plate->free_edges[i - 1].edge == f.edge) continue;
       std::string arrangements;
+      const PlateFreeEdgeRecord* largest = &f;  // the bar along the edge: the largest of its bays' (as detailed)
       for (std::size_t k = i; k < r.plate->free_edges.size() && r.plate->free_edges[k].edge == f.edge; ++k) {
         const auto& g = r.plate->free_edges[k];
+        if (g.edge_bar_diameter_mm > largest->edge_bar_diameter_mm) largest = &g;
         const std::string a =
             bar_arrangement(g.u_bar, u.us ? g.u_bar_spacing_mm / mm_per_in : g.u_bar_spacing_mm, u.us ? "in" : "mm");
         arrangements += (arrangements.empty() ? "" : ", ") + a + " (" + g.bay + ")";
       }
       o += "Free edge  " + f.edge + ": U-bars " + arrangements + ", the bottom bars across it, legs " +
            (u.us ? plain_number(f.leg_mm / mm_per_in) + " in" : plain_number(f.leg_mm) + " mm") + " on each face; bar " +
-           f.edge_bar + " along the edge in each face inside the U (" + f.clause + ")\n";
+           largest->edge_bar + " along the edge in each face inside the U (" + f.clause + ")\n";
     }
     const bool free = std::find(r.plate->edges.begin(), r.plate->edges.end(), EndSupport::free) != r.plate->edges.end();
     if (!r.plate->integrity.empty()) o += "Detailing  " + r.plate->integrity + "\n";
