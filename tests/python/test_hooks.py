@@ -438,3 +438,28 @@ def test_en_wider_bends_take_the_lesser_of_the_two_mandrels(ends, h, wall, q):
     check = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"
              and k["demand"] == pytest.approx(need)]
     assert check and check[0]["pass"]
+
+
+def test_en_closer_spacing_where_no_smaller_bar_is_left():
+    """EN, a 150 mm slab on 100 mm walls: the partial-fixity top bars at the
+    pinned ends are already the smallest size (8 mm) and their bend is
+    short; their demand falls with the stress they work at, σsd = fyd
+    As,req/As,prov (EN 1992-1-1 8.4.3(2)), so a closer spacing is tried and
+    anchors them (measured along the centreline, 8.4.4(1))."""
+    spans = [4.5, 4.5]
+    loads = {"dead_kPa": 1.5, "imposed_kPa": 10.0}
+    r = armature.design(strip(spans, ["pinned", "pinned"], 150, widths=[100, 300, 100], loads=loads))
+    t = bar(r, "support 1", "top")
+    assert t["diameter_mm"] == 8
+    checks = [k for k in r["checks"] if k["id"] == "anchorage" and k["where"] == "support 1"]
+    assert checks and all(k["pass"] for k in checks)
+    said = [w for w in r["warnings"] if w.startswith("support 1 (top): bars searched at ")]
+    assert len(said) == 1
+    limit = float(re.search(r"at ([0-9.]+) mm or closer", said[0]).group(1))
+    assert t["spacing_mm"] <= limit
+    # One grid step wider (the request's grid steps by 25 mm, the default), given, leaves the bend short.
+    first = float(re.search(r"at ([0-9.]+) mm or closer", said[0]).group(1)) + 25
+    given = [{"where": "support 1", "face": "top", "bar": "8", "spacing_mm": first}]
+    g = armature.design(strip(spans, ["pinned", "pinned"], 150, widths=[100, 300, 100], loads=loads, given=given))
+    short = [k for k in g["checks"] if k["id"] == "anchorage" and k["where"] == "support 1" and not k["pass"]]
+    assert short
