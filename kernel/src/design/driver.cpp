@@ -58,11 +58,13 @@ std::string region_words(const std::string& where, Face face, BarDirection direc
 // wall or column; DetailingRecord::short_bends): the request designed
 // again with each such region's bars kept below the size whose bend
 // failed, one size smaller each round while a bend is short and a smaller
-// size is left. A limit under which its own region fails a check it
-// passed (too little steel at the closest spacing, say) is undone and not
-// tried again. A design replaces the one kept only when it fails fewer
-// checks and none that the kept one passes; a warning names every limit
-// the kept design takes. Given bars are never changed.
+// size is left, then one grid step closer (`grid`) while that lowers the
+// bend's demand. Given bars, and regions failing a check of their own in
+// the first design, are never limited; a limit under which its region
+// fails a check it passed is undone and not tried again. A design
+// replaces the one kept only when it fails fewer checks, none that the
+// kept one passes and none by more; warnings say what the kept design
+// takes and which bends stay short, and why (DEVELOPERS.md, "Detailing").
 // `design_with(limits)` designs the request.
 template <class DesignWith>
 DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity& code, const SpacingGrid& grid,
