@@ -74,7 +74,9 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
   if (!best.detailing || best.detailing->short_bends.empty()) return best;
   const auto& options =
       call_code(code, "bar options", [&]() -> const std::vector<BarOption>& { return checker.bar_options(); });
-  using Key = std::pair<std::string, std::string>;  // a failed check: id, where
+  // A failed check: id, where, and its first step's text, which tells the
+  // bars apart where one support checks several bends.
+  using Key = std::tuple<std::string, std::string, std::string>;
   struct Failed {
     int count = 0;
     double worst = 0.0;  // the largest utilisation among them
@@ -83,7 +85,7 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
     std::map<Key, Failed> out;
     for (const Check* c : r.all_checks())
       if (!c->pass) {
-        Failed& f = out[{c->id, c->where}];
+        Failed& f = out[{c->id, c->where, c->steps.empty() ? std::string() : c->steps.front().expression}];
         ++f.count;
         f.worst = std::max(f.worst, c->utilisation);
       }
