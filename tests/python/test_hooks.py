@@ -365,6 +365,15 @@ def test_en_top_bars_at_a_built_in_end_get_a_leg_long_enough_along_the_centrelin
     said = [re.search(r"inside diameter is ([0-9.]+) mm", w) for w in r["warnings"] if w.startswith("support 1, top")]
     said = [float(m.group(1)) for m in said if m]
     assert len(said) == 1 and said[0] == pytest.approx(D, rel=1e-3)
+    # The wider mandrel is on the bar and its schedule row, and gives it a mark of its own.
+    assert t["bend_diameter_mm"] == pytest.approx(D)
+    row = next(x for x in r["detailing"]["schedule"] if x["mark"] == t["mark"])
+    assert row["bend_diameter_mm"] == pytest.approx(D)
+    for b in r["detailing"]["bars"]:
+        if b["mark"] == t["mark"]:
+            assert b.get("bend_diameter_mm") == pytest.approx(D)
+        elif b["shape"] == "straight":
+            assert "bend_diameter_mm" not in b
     assert t["shape"] == "L-bar"
     assert t["legs_mm"]["start"] == pytest.approx(D / 2 + phi + l2)
     assert t["anchorage_mm"]["start"] == pytest.approx(need)

@@ -113,6 +113,9 @@ struct DetailedBar {
   double anchorage_start_mm = 0.0, anchorage_end_mm = 0.0;
   // A bent end's leg, measured to the outside of the bend (0: straight end).
   double leg_start_mm = 0.0, leg_end_mm = 0.0;
+  // The inside diameter of its bends where wider than the code's standard
+  // one (the concrete inside the bend; 0: the standard mandrel).
+  double bend_diameter_mm = 0.0;
   double shift_mm = 0.0;
   std::vector<DetailLap> laps;  // lap zones at this bar's ends
   std::string clause;
@@ -135,6 +138,7 @@ struct ScheduleRow {
   std::string shape;
   double mass_kg = 0.0;
   double leg_a_mm = 0.0, leg_b_mm = 0.0;  // the legs of a bent bar, the longer first (0: none)
+  double bend_diameter_mm = 0.0;          // a mandrel wider than the standard (0: the standard)
 };
 // A bar whose bend at a support is too short to anchor it (the support's
 // width leaves less than the code's length): its region (name, face, bar

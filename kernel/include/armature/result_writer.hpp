@@ -139,6 +139,7 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     w.key("start"), w.value(b.leg_start_mm);
     w.key("end"), w.value(b.leg_end_mm);
     w.end();
+    if (b.bend_diameter_mm > 0.0) w.key("bend_diameter_mm"), w.value(b.bend_diameter_mm);  // wider than the standard
     w.key("anchorage_mm");
     w.begin_object();
     w.key("start"), w.value(b.anchorage_start_mm);
@@ -174,6 +175,7 @@ void write_detailing(W& w, const DetailingRecord& d, bool with_steps) {
     for (double leg : {row.leg_a_mm, row.leg_b_mm})
       if (leg > 0.0) w.value(leg);
     w.end();
+    if (row.bend_diameter_mm > 0.0) w.key("bend_diameter_mm"), w.value(row.bend_diameter_mm);
     w.key("mass_kg"), w.value(row.mass_kg);
     w.end();
   }

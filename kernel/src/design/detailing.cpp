@@ -71,6 +71,7 @@ struct Run {
   double anch_start = 0.0, anch_end = 0.0, shift = 0.0;
   double lbd = 0.0;  // the bars' straight anchorage (a bent end's anch_* may be less: measured along a bend)
   double leg_start = 0.0, leg_end = 0.0;  // bent ends: the leg to the outside of the bend
+  double bend_start = 0.0, bend_end = 0.0;  // a bent end's mandrel where wider than the code's standard (0: none)
   std::string clause;
   bool distribution = false;
   bool curtailed = false;  // the alternate bars stopped inside the span
@@ -289,6 +290,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
   struct EndFit {
     double reach = 0.0, anchorage = 0.0, leg = 0.0;
     bool bent = false;
+    double wide_bend = 0.0;  // a mandrel wider than the standard (0: the standard)
   };
   auto fit_end = [&](const std::string& label, const std::string& side, std::size_t j, double dir, Face face,
                      double want, double anchorage, double origin, bool from_face,
@@ -296,7 +298,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     const double t = width_at(j);
     const double c = cover(face);
     const double outer = X[j] + dir * (t / 2.0 - c);
-    if (t <= 0.0 || dir * (want - outer) <= 1e-6) return {want, anchorage, 0.0, false};
+    if (t <= 0.0 || dir * (want - outer) <= 1e-6) return {want, anchorage, 0.0, false, 0.0};
     const std::string where = demand.where;
     const DetailLength hook =
         ask("detailing hooked anchorage", where, [&] { return rules.hooked_anchorage(demand); });
@@ -334,6 +336,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     bool anchored = provided >= hook.length_mm - 1e-6;
     double capacity = provided, leg = leg_standard;
     bool lengthened = false;
+    double wide_bend = 0.0;
     // A code measuring the anchorage along the bar's centreline (EN 1992-1-1
     // Figure 8.1 a): where the bend measured to its outside falls short, the
     // leg is lengthened until the length along the centreline (the straight
@@ -370,6 +373,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
         leg = D / 2.0 + phi + l2;
         anchored = capacity >= hook.length_mm - 1e-6;
         if (bearing) {
+          wide_bend = D;
           bend.steps.push_back({"D", "a wider bend: the least of the mandrel against crushing inside the bend (above) "
                                      "and the one whose extension alone completes the anchorage",
                                 "", u_.length_v(D), length_u, hook.clause});
@@ -432,7 +436,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
     if (leg_in_slab && leg > room + 1e-6)
       out.notes.push_back(label + ": at " + support_label(j) + " the bend's leg of " + plain_number(leg) +
                           " mm does not fit the slab's depth (" + plain_number(room) + " mm from the bar to the opposite cover)");
-    return {outer, capacity, leg, true};
+    return {outer, capacity, leg, true, wide_bend};
   };
   // 7.7.3.8.3-like limits of the code on the bottom bars where the moment
   // falls to zero: at a pinned end (its reaction, a bearing below the
@@ -548,6 +552,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
           reach = fit.reach;
           anch = fit.anchorage;
           (side == 0 ? run.leg_start : run.leg_end) = fit.leg;
+          (side == 0 ? run.bend_start : run.bend_end) = fit.wide_bend;
           (side == 0 ? run.start_fixed : run.end_fixed) = true;
           if (run.clause.find(out.derivations.back().length.clause) == std::string::npos)
             run.clause += "; " + out.derivations.back().length.clause;
@@ -728,7 +733,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
           const double face = width_at(0) / 2.0;  // the line where no width is given
           const EndFit fit = fit_end(label, "start", 0, -1.0, Face::top, face - lbd, lbd, face, true, run.demand);
           run.start = fit.reach, run.anch_start = fit.anchorage;
-          if (fit.bent) run.leg_start = fit.leg, run.start_fixed = true;
+          if (fit.bent) run.leg_start = fit.leg, run.start_fixed = true, run.bend_start = fit.wide_bend;
         }
       } else {
         run.start = (hog ? zl : X[j]) - al - lbd;
@@ -761,7 +766,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
           const double face = total - width_at(n) / 2.0;  // the line where no width is given
           const EndFit fit = fit_end(label, "end", n, 1.0, Face::top, face + lbd, lbd, face, true, run.demand);
           run.end = fit.reach, run.anch_end = fit.anchorage;
-          if (fit.bent) run.leg_end = fit.leg, run.end_fixed = true;
+          if (fit.bent) run.leg_end = fit.leg, run.end_fixed = true, run.bend_end = fit.wide_bend;
         }
       } else {
         run.end = (hog ? zr : X[j]) + al + lbd;
@@ -791,7 +796,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       const EndFit fit = fit_end(label, "start", 0, -1.0, Face::top, origin - run.anch_start, run.anch_start, origin,
                                  origin >= face - 1e-6, run.demand);
       run.start = fit.reach, run.anch_start = fit.anchorage;
-      if (fit.bent) run.leg_start = fit.leg, run.start_fixed = true;
+      if (fit.bent) run.leg_start = fit.leg, run.start_fixed = true, run.bend_start = fit.wide_bend;
     }
     if (!right_free && !run.end_fixed && width_at(n) > 0.0 && run.end > total + (width_at(n) / 2.0 - cover(Face::top))) {
       const double face = total - width_at(n) / 2.0;
@@ -799,7 +804,7 @@ void Detailer::add_strip(const StripLayout& L, const std::vector<std::vector<Dia
       const EndFit fit = fit_end(label, "end", n, 1.0, Face::top, origin + run.anch_end, run.anch_end, origin,
                                  origin <= face + 1e-6, run.demand);
       run.end = fit.reach, run.anch_end = fit.anchorage;
-      if (fit.bent) run.leg_end = fit.leg, run.end_fixed = true;
+      if (fit.bent) run.leg_end = fit.leg, run.end_fixed = true, run.bend_end = fit.wide_bend;
     }
     runs.push_back(std::move(run));
   }
@@ -1121,6 +1126,7 @@ void Detailer::finish() {
       b.end_mm = run.end;
       b.leg_start_mm = run.leg_start;
       b.leg_end_mm = run.leg_end;
+      b.bend_diameter_mm = std::max(run.bend_start, run.bend_end);
       rounded(b, run.start_fixed, run.end_fixed);
       if (b.length_mm > out.stock_length_mm) {  // rounding took it past the stock: keep the raw length
         b.start_mm = run.start;
@@ -1156,8 +1162,8 @@ void Detailer::finish() {
         b.count = count;
         b.start_mm = a;
         b.end_mm = k < centres.size() ? centres[k] + lap / 2.0 : run.end;
-        if (k == 0) b.leg_start_mm = run.leg_start;
-        if (k == centres.size()) b.leg_end_mm = run.leg_end;
+        if (k == 0) b.leg_start_mm = run.leg_start, b.bend_diameter_mm = run.bend_start;
+        if (k == centres.size()) b.leg_end_mm = run.leg_end, b.bend_diameter_mm = std::max(b.bend_diameter_mm, run.bend_end);
         for (const DetailLap& j : run.joins)  // a join with the next support's bars at this piece's end
           if ((k == 0 && j.from_mm <= a + 1e-6) || (k == centres.size() && j.to_mm >= run.end - 1e-6))
             b.laps.push_back(j);
@@ -1178,11 +1184,11 @@ void Detailer::finish() {
   problems.raise_if_any();
 
   // Marks: one per distinct diameter, shape and cut length, in order along the strip.
-  // (Bent bars: their legs too, either way round.)
-  std::map<std::tuple<double, std::string, double, double, double>, std::string> marks;
+  // (Bent bars: their legs too, either way round, and a mandrel wider than the standard.)
+  std::map<std::tuple<double, std::string, double, double, double, double>, std::string> marks;
   for (auto& b : bars) {
     const auto key = std::make_tuple(b.diameter_mm, b.shape, b.length_mm, std::max(b.leg_start_mm, b.leg_end_mm),
-                                     std::min(b.leg_start_mm, b.leg_end_mm));
+                                     std::min(b.leg_start_mm, b.leg_end_mm), b.bend_diameter_mm);
     auto it = marks.find(key);
     if (it == marks.end()) {
       const std::size_t k = marks.size() + 1;
@@ -1190,7 +1196,7 @@ void Detailer::finish() {
       if (m.size() < 2) m = "0" + m;
       it = marks.emplace(key, m).first;
       out.schedule.push_back({m, b.bar, b.diameter_mm, 0, b.length_mm, b.shape, 0.0, std::get<3>(key),
-                              std::get<4>(key)});
+                              std::get<4>(key), b.bend_diameter_mm});
     }
     b.mark = it->second;
     for (auto& row : out.schedule)

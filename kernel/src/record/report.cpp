@@ -409,6 +409,11 @@ std::string detail_widths(const RecordUnits& u, const DetailingRecord& d) {
                 : "Slab width " + u.along(d.slab_width_mm);
 }
 
+// A schedule row's shape, with its mandrel where wider than the standard.
+std::string shape_text(const ScheduleRow& row) {
+  return row.shape + (row.bend_diameter_mm > 0.0 ? ", bent on " + n4(row.bend_diameter_mm) + " mm" : std::string());
+}
+
 std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
   const RecordUnits u = units_of(r);
   std::string o = "<h3>Detailing: bars, laps and schedule</h3>\n";
@@ -440,7 +445,7 @@ std::string detailing_html(const DesignRecord& r, const DetailingRecord& d) {
        "class=\"num\">length, mm</th><th>shape</th><th class=\"num\">mass, kg</th></tr>\n";
   for (const auto& row : d.schedule)
     o += "<tr><td>" + esc(row.mark) + "</td><td>" + esc(row.bar) + "</td><td class=\"num\">" + std::to_string(row.count) +
-         "</td><td class=\"num\">" + n4(row.length_mm) + "</td><td>" + esc(row.shape) + "</td><td class=\"num\">" +
+         "</td><td class=\"num\">" + n4(row.length_mm) + "</td><td>" + esc(shape_text(row)) + "</td><td class=\"num\">" +
          n4(row.mass_kg) + "</td></tr>\n";
   o += "</table>\n<p>Total " + n4(d.total_mass_kg) + " kg, " + n4(d.mass_per_area_kg_m2) +
        " kg/m² of floor (0.00617 d² kg/m, common practice).</p>\n";
@@ -481,7 +486,7 @@ std::string detailing_markdown(const DesignRecord& r, const DetailingRecord& d) 
   o += "\n**Bar schedule**\n\n| mark | bar | count | length, mm | shape | mass, kg |\n|---|---|---:|---:|---|---:|\n";
   for (const auto& row : d.schedule)
     o += "| " + row.mark + " | " + row.bar + " | " + std::to_string(row.count) + " | " + n4(row.length_mm) + " | " +
-         row.shape + " | " + n4(row.mass_kg) + " |\n";
+         shape_text(row) + " | " + n4(row.mass_kg) + " |\n";
   o += "\nTotal " + n4(d.total_mass_kg) + " kg, " + n4(d.mass_per_area_kg_m2) +
        " kg/m² of floor (0.00617 d² kg/m, common practice).\n";
   for (const auto& dv : d.derivations) {
