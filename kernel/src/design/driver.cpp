@@ -104,9 +104,6 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
     }
     return total(next) < total(kept);
   };
-  auto same_region = [](const RegionRecord& g, const BarLimit& l) {
-    return g.where == l.where && g.face == l.face && g.direction == l.direction;
-  };
   auto region_failures = [&](const DesignRecord& r, const BarLimit& l) {
     std::set<std::string> out;
     for (const auto& g : r.regions)
@@ -132,9 +129,7 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
   std::vector<BarLimit> best_limits;
   std::vector<BarLimit> frozen;  // limits undone: their regions keep the size they had
   auto is_frozen = [&](const BarLimit& l) {
-    return std::any_of(frozen.begin(), frozen.end(), [&](const BarLimit& f) {
-      return f.where == l.where && f.face == l.face && f.direction == l.direction;
-    });
+    return std::any_of(frozen.begin(), frozen.end(), [&](const BarLimit& f) { return same_region(f, l); });
   };
   std::vector<ShortBend> short_bends = best.detailing->short_bends;
   std::vector<RegionRecord> latest = best.regions;  // the bars of the design the short bends are from
@@ -148,9 +143,7 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
     for (const ShortBend& s : short_bends) {
       const BarLimit wanted{s.where, s.face, s.direction, 0.0, 0.0, s.diameter_mm, s.support};
       if (given(wanted) || failing_already(wanted) || is_frozen(wanted)) continue;
-      auto it = std::find_if(limits.begin(), limits.end(), [&](const BarLimit& l) {
-        return l.where == s.where && l.face == s.face && l.direction == s.direction;
-      });
+      auto it = std::find_if(limits.begin(), limits.end(), [&](const BarLimit& l) { return same_region(l, s); });
       if (std::any_of(tightened.begin(), tightened.end(),
                       [&](const auto& t) { return it != limits.end() && t.first == std::size_t(it - limits.begin()); }))
         continue;  // a region with two short bends: tightened once a round
@@ -164,9 +157,8 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
       } else {
         // The smallest size: a closer spacing, where the code's demand falls
         // with the stress the bars work at (EN 8.4.3(2)).
-        const auto g = std::find_if(latest.begin(), latest.end(), [&](const RegionRecord& r) {
-          return r.where == s.where && r.face == s.face && r.direction == s.direction;
-        });
+        const auto g =
+            std::find_if(latest.begin(), latest.end(), [&](const RegionRecord& r) { return same_region(r, s); });
         const auto key = std::make_tuple(s.where, s.face, s.direction);
         const auto tried_at = spacing_demand.find(key);
         if (g == latest.end() || (tried_at != spacing_demand.end() && s.demand_mm >= tried_at->second - 1e-6))
@@ -217,9 +209,7 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
   const std::vector<ShortBend> still =
       best.detailing ? best.detailing->short_bends : std::vector<ShortBend>{};
   auto short_in = [&](const BarLimit& l) {
-    return std::find_if(still.begin(), still.end(), [&](const ShortBend& s) {
-      return s.where == l.where && s.face == l.face && s.direction == l.direction;
-    });
+    return std::find_if(still.begin(), still.end(), [&](const ShortBend& s) { return same_region(s, l); });
   };
   for (const BarLimit& l : best_limits) {
     const auto s = short_in(l);
@@ -240,12 +230,9 @@ DesignRecord with_anchored_bends(const SlabChecker& checker, const CodeIdentity&
   std::vector<BarLimit> said;
   for (const ShortBend& s : still) {
     const BarLimit l{s.where, s.face, s.direction, 0.0, 0.0, s.diameter_mm, s.support};
-    const bool limited = std::any_of(best_limits.begin(), best_limits.end(), [&](const BarLimit& b) {
-      return b.where == l.where && b.face == l.face && b.direction == l.direction;
-    });
-    const bool repeated = std::any_of(said.begin(), said.end(), [&](const BarLimit& b) {
-      return b.where == l.where && b.face == l.face && b.direction == l.direction;
-    });
+    const bool limited =
+        std::any_of(best_limits.begin(), best_limits.end(), [&](const BarLimit& b) { return same_region(b, l); });
+    const bool repeated = std::any_of(said.begin(), said.end(), [&](const BarLimit& b) { return same_region(b, l); });
     if (limited || repeated) continue;
     said.push_back(l);
     const bool smallest = std::none_of(options.begin(), options.end(),

@@ -576,7 +576,7 @@ void apply_bar_limits(const std::vector<BarLimit>& limits, const std::vector<Reg
   plan.limits.assign(demands.size(), SearchLimit{});
   for (const BarLimit& l : limits)
     for (std::size_t i = 0; i < demands.size(); ++i)
-      if (demands[i].where == l.where && demands[i].face == l.face && demands[i].direction == l.direction)
+      if (same_region(demands[i], l))
         plan.limits[i] = {l.max_diameter_mm, l.max_spacing_mm};
 }
 

@@ -51,6 +51,13 @@ struct BarLimit {
   std::string support;             // where
 };
 
+// The same region by name, face and bars' direction (RegionDemand,
+// RegionRecord, BarLimit, ShortBend alike).
+template <class A, class B>
+bool same_region(const A& a, const B& b) {
+  return a.where == b.where && a.face == b.face && a.direction == b.direction;
+}
+
 // The plan's limits from the BarLimits (by region name, face and direction).
 void apply_bar_limits(const std::vector<BarLimit>& limits, const std::vector<RegionDemand>& demands, BarPlan& plan);
 
